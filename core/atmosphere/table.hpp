@@ -1,0 +1,30 @@
+#pragma once
+
+#include <vector>
+
+#include "atmosphere/atmosphere.hpp"
+#include "design/design.hpp"
+
+namespace ds {
+
+/// Tabulated atmosphere: rows of altitude, density, temperature, strictly increasing in
+/// altitude. Density is interpolated log-linearly, temperature linearly. Outside the table the
+/// end segment is extended (the sizing refuses a table that does not cover the flight).
+class TableAtmosphere final : public Atmosphere {
+public:
+    /// Throws std::invalid_argument (with the row index) for fewer than two rows, altitudes
+    /// not strictly increasing, or a density or temperature that is not positive and finite.
+    TableAtmosphere(std::vector<AtmosphereRow> rows, double gas_constant_J_kgK, double gamma,
+                    double density_scale = 1.0);
+
+    double lowest_altitude_m() const { return rows_.front().altitude_m; }
+    double highest_altitude_m() const { return rows_.back().altitude_m; }
+
+protected:
+    Profile profile(double altitude_m) const override;
+
+private:
+    std::vector<AtmosphereRow> rows_;
+};
+
+}  // namespace ds

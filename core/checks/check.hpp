@@ -1,0 +1,23 @@
+#pragma once
+
+#include <string>
+#include <string_view>
+
+namespace ds {
+
+enum class CheckStatus { pass, marginal, fail };
+
+std::string_view to_string(CheckStatus status);
+
+/// The outcome of one named check: the value, the limit it was held against, and why.
+struct Check {
+    std::string id;
+    CheckStatus status = CheckStatus::pass;
+    double value = 0.0;
+    double limit = 0.0;
+    std::string unit;
+    std::string message;  ///< in words a person understands, with the numbers
+    std::string source;   ///< where the limit comes from
+};
+
+}  // namespace ds

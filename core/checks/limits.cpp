@@ -1,0 +1,24 @@
+#include "checks/limits.hpp"
+
+#include <array>
+
+namespace ds {
+
+std::span<const LimitField> limit_fields() {
+    static constexpr std::array fields{
+        LimitField{"ballistic_coefficient_max_kg_m2", &Limits::ballistic_coefficient_max_kg_m2, "kg/m^2"},
+        LimitField{"aeroshell_diameter_max_m", &Limits::aeroshell_diameter_max_m, "m"},
+        LimitField{"heritage_half_angle_deg", &Limits::heritage_half_angle_deg, "deg"},
+        LimitField{"parachute_diameter_max_m", &Limits::parachute_diameter_max_m, "m"},
+        LimitField{"deploy_mach_max", &Limits::deploy_mach_max, ""},
+        LimitField{"deploy_dynamic_pressure_min_Pa", &Limits::deploy_dynamic_pressure_min_Pa, "Pa"},
+        LimitField{"deploy_dynamic_pressure_max_Pa", &Limits::deploy_dynamic_pressure_max_Pa, "Pa"},
+        LimitField{"peak_deceleration_max_g", &Limits::peak_deceleration_max_g, "g"},
+        LimitField{"peak_heat_flux_max_W_cm2", &Limits::peak_heat_flux_max_W_cm2, "W/cm^2"},
+        LimitField{"site_elevation_max_m", &Limits::site_elevation_max_m, "m"},
+        LimitField{"marginal_band", &Limits::marginal_band, ""},
+    };
+    return fields;
+}
+
+}  // namespace ds

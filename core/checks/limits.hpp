@@ -1,0 +1,47 @@
+#pragma once
+
+#include <string_view>
+#include <span>
+
+namespace ds {
+
+/// The limits the checks compare against. Defaults are the heritage envelope for a soft
+/// landing on Mars with today's technology (Braun and Manning, J. Spacecraft and Rockets
+/// 44(2), 2007, and common practice); every one can be overridden in a design's "limits".
+struct Limits {
+    /// Above this the design leaves the heritage envelope (common practice).
+    double ballistic_coefficient_max_kg_m2 = 150.0;
+    /// Launcher fairing allows about 4.5-4.6 m (Braun and Manning 2007; common practice).
+    double aeroshell_diameter_max_m = 4.6;
+    /// Heritage aeroshells are 70 deg sphere-cones (Braun and Manning 2007).
+    double heritage_half_angle_deg = 70.0;
+    /// Heritage supersonic parachutes stay below about 30 m (Braun and Manning 2007).
+    double parachute_diameter_max_m = 30.0;
+    /// Heritage deploy window: Mach up to about 2.1, 250-850 Pa (common practice).
+    double deploy_mach_max = 2.1;
+    double deploy_dynamic_pressure_min_Pa = 250.0;
+    double deploy_dynamic_pressure_max_Pa = 850.0;
+    /// The payload's qualified load; 15 g is our default for a science payload (common
+    /// practice: set it to the payload's own qualification level).
+    double peak_deceleration_max_g = 15.0;
+    /// The heat-shield material's qualified stagnation heat flux; 200 W/cm^2 is our default
+    /// for a low-density ablator (common practice: set it to the material's test data).
+    double peak_heat_flux_max_W_cm2 = 200.0;
+    /// Heritage landing sites lie below about -1 km on the reference (Braun and Manning 2007).
+    double site_elevation_max_m = -1000.0;
+    /// A physics check within this fraction of its limit is "marginal" (common practice).
+    double marginal_band = 0.10;
+};
+
+/// One named field of Limits, so the reader, the writer, the checks and the window share one
+/// list of keys.
+struct LimitField {
+    std::string_view key;
+    double Limits::*member;
+    std::string_view unit;
+};
+
+/// Every limit field, in the order they are written.
+std::span<const LimitField> limit_fields();
+
+}  // namespace ds

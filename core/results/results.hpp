@@ -1,0 +1,108 @@
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "checks/check.hpp"
+
+namespace ds {
+
+/// The results document (design-file.md, version 1) as plain values, SI units throughout.
+/// An empty optional is a figure this design did not produce (written as null).
+
+inline constexpr int results_format_version = 1;
+
+struct EntryResults {
+    double mass_kg = 0.0;
+    double diameter_m = 0.0;
+    double nose_radius_m = 0.0;
+    double drag_coefficient = 0.0;
+    std::string drag_coefficient_source;  ///< "design" or "modified Newtonian"
+    double ballistic_coefficient_kg_m2 = 0.0;
+    double peak_deceleration_g = 0.0;
+    double peak_deceleration_altitude_m = 0.0;
+    double peak_heat_flux_W_cm2 = 0.0;  ///< convective, Sutton-Graves
+    double peak_heat_flux_altitude_m = 0.0;
+    double heat_load_J_cm2 = 0.0;  ///< convective
+    std::optional<double> peak_radiative_heat_flux_W_cm2;
+    std::optional<double> radiative_heat_load_J_cm2;
+    double peak_dynamic_pressure_Pa = 0.0;
+    double peak_dynamic_pressure_altitude_m = 0.0;
+    double heat_shield_mass_fraction = 0.0;  ///< TPS mass over entry mass, from the total heat load
+    double heat_shield_tps_kg = 0.0;
+};
+
+struct ParachuteResults {
+    bool deployed = false;
+    std::optional<double> deploy_time_s;
+    std::optional<double> deploy_altitude_m;
+    std::optional<double> deploy_mach;
+    std::optional<double> deploy_dynamic_pressure_Pa;
+    std::optional<double> deploy_velocity_m_s;
+    std::optional<double> diameter_m;
+    std::optional<double> drag_coefficient;
+    std::optional<double> opening_load_N;
+};
+
+struct TerminalResults {
+    std::string method;
+    std::optional<double> ignition_altitude_m;
+    std::optional<double> ignition_velocity_m_s;
+    std::optional<double> delta_v_m_s;
+    std::optional<double> gravity_loss_m_s;
+    std::optional<double> propellant_kg;
+    std::optional<double> burn_time_s;
+};
+
+struct TimelineEvent {
+    std::string name;
+    double time_s = 0.0;
+    double altitude_m = 0.0;
+    double velocity_m_s = 0.0;
+};
+
+struct Timeline {
+    std::vector<TimelineEvent> events;  ///< in time order
+    std::optional<double> margin_s;
+};
+
+struct MassItem {
+    std::string name;
+    double mass_kg = 0.0;
+};
+
+struct MassResults {
+    double entry_kg = 0.0;
+    std::optional<double> landed_kg;
+    std::vector<MassItem> items;
+};
+
+/// One point of the flown trajectory, for plots and the sheet.
+struct TrajectorySample {
+    double time_s = 0.0;
+    double altitude_m = 0.0;
+    double downrange_m = 0.0;
+    double velocity_m_s = 0.0;
+    double flight_path_angle_deg = 0.0;
+    double mach = 0.0;
+    double dynamic_pressure_Pa = 0.0;
+    double deceleration_g = 0.0;
+    double heat_flux_W_cm2 = 0.0;  ///< convective
+    double radiative_heat_flux_W_cm2 = 0.0;
+};
+
+struct Results {
+    int version = results_format_version;
+    bool converged = false;
+    EntryResults entry;
+    ParachuteResults parachute;
+    TerminalResults terminal;
+    Timeline timeline;
+    MassResults mass;
+    std::vector<Check> checks;  ///< failing first, then marginal, then passing
+    std::vector<TrajectorySample> history;
+    std::vector<std::string> notes;  ///< what the results do not cover, in words
+};
+
+}  // namespace ds
