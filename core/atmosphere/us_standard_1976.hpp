@@ -12,7 +12,9 @@ class UsStandardAtmosphere1976 final : public Atmosphere {
 public:
     explicit UsStandardAtmosphere1976(double density_scale = 1.0);
 
-    /// Pressure in Pa at a geometric altitude (0-86 km from the defining constants).
+    /// Pressure in Pa at a geometric altitude: from the defining constants up to 86 km (and
+    /// below 0); above 86 km approximated as rho R T with the sea-level molar mass, which
+    /// understates it increasingly with height (about 10 % at 120 km).
     double pressure_Pa(double altitude_m) const;
 
 protected:

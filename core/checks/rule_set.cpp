@@ -1,1 +1,145 @@
-// in progress
+#include "checks/rule_set.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include <fmt/format.h>
+
+namespace ds {
+namespace {
+
+constexpr std::string_view heritage_source =
+    "heritage envelope for Mars soft landing, Braun and Manning, J. Spacecraft and Rockets "
+    "44(2), 2007 (common practice)";
+constexpr std::string_view deploy_window_source =
+    "heritage supersonic parachute deploy window (common practice)";
+
+std::string number(double value, std::string_view unit) {
+    return unit.empty() ? fmt::format("{:.4g}", value) : fmt::format("{:.4g} {}", value, unit);
+}
+
+/// `beyond` is how far value lies past the limit as a fraction of it (positive = past it).
+Check judge(const LimitRule& rule, double value, double limit, double beyond, double band,
+            std::string_view past_word, std::string_view within_word) {
+    Check c{rule.id, CheckStatus::pass, value, limit, rule.unit, "", rule.source};
+    const std::string v = number(value, rule.unit);
+    const std::string l = number(limit, rule.unit);
+    if (beyond > 0.0) {
+        c.status = rule.severity == Severity::envelope ? CheckStatus::marginal : CheckStatus::fail;
+        c.message = rule.severity == Severity::envelope
+                        ? fmt::format("{} {} is {} the heritage envelope's {}: beyond today's "
+                                      "demonstrated technology",
+                                      rule.what, v, past_word, l)
+                        : fmt::format("{} {} is {} the limit of {}", rule.what, v, past_word, l);
+    } else if (rule.severity == Severity::physics && beyond > -band) {
+        c.status = CheckStatus::marginal;
+        c.message = fmt::format("{} {} is within {:.0f} % of the limit of {}", rule.what, v,
+                                band * 100.0, l);
+    } else {
+        c.message = fmt::format("{} {} is {} the limit of {}", rule.what, v, within_word, l);
+    }
+    return c;
+}
+
+double relative_excess(double value, double limit) {
+    return limit != 0.0 ? (value - limit) / std::abs(limit) : value - limit;
+}
+
+}  // namespace
+
+Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band) {
+    return judge(rule, value, limit, relative_excess(value, limit), marginal_band, "above",
+                 "within");
+}
+
+Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band) {
+    return judge(rule, value, limit, relative_excess(limit, value), marginal_band, "below",
+                 "above");
+}
+
+std::vector<Check> limit_checks(const Design& design, const Results& results) {
+    const Limits& lim = design.limits;
+    const double band = lim.marginal_band;
+    const std::string heritage{heritage_source};
+    std::vector<Check> checks;
+
+    checks.push_back(check_at_most({"ballistic_coefficient", "entry ballistic coefficient",
+                                    "kg/m^2", Severity::envelope, heritage},
+                                   results.entry.ballistic_coefficient_kg_m2,
+                                   lim.ballistic_coefficient_max_kg_m2, band));
+    checks.push_back(check_at_most({"aeroshell_diameter", "aeroshell diameter", "m",
+                                    Severity::envelope,
+                                    heritage + "; launcher fairing about 4.5-4.6 m"},
+                                   results.entry.diameter_m, lim.aeroshell_diameter_max_m, band));
+    {
+        const double off = std::abs(design.aeroshell.half_angle_deg - lim.heritage_half_angle_deg);
+        constexpr double same_angle_deg = 0.5;  // a heritage shape to within half a degree
+        Check c{"aeroshell_half_angle", CheckStatus::pass, design.aeroshell.half_angle_deg,
+                lim.heritage_half_angle_deg, "deg", "", heritage};
+        if (off > same_angle_deg) {
+            c.status = CheckStatus::marginal;
+            c.message = fmt::format(
+                "a {:.4g} deg sphere-cone is not the heritage {:.4g} deg shape: its "
+                "aerodynamics and stability need their own data",
+                design.aeroshell.half_angle_deg, lim.heritage_half_angle_deg);
+        } else {
+            c.message = fmt::format("{:.4g} deg sphere-cone, the heritage shape",
+                                    design.aeroshell.half_angle_deg);
+        }
+        checks.push_back(c);
+    }
+    if (results.parachute.diameter_m) {
+        checks.push_back(check_at_most({"parachute_diameter", "parachute diameter", "m",
+                                        Severity::envelope, heritage},
+                                       *results.parachute.diameter_m, lim.parachute_diameter_max_m,
+                                       band));
+    }
+    if (results.parachute.deployed) {
+        const std::string window{deploy_window_source};
+        checks.push_back(check_at_most({"deploy_mach", "Mach number at parachute deploy", "",
+                                        Severity::physics, window},
+                                       *results.parachute.deploy_mach, lim.deploy_mach_max, band));
+        checks.push_back(check_at_most({"deploy_dynamic_pressure_high",
+                                        "dynamic pressure at parachute deploy", "Pa",
+                                        Severity::physics, window},
+                                       *results.parachute.deploy_dynamic_pressure_Pa,
+                                       lim.deploy_dynamic_pressure_max_Pa, band));
+        checks.push_back(check_at_least({"deploy_dynamic_pressure_low",
+                                         "dynamic pressure at parachute deploy", "Pa",
+                                         Severity::physics, window},
+                                        *results.parachute.deploy_dynamic_pressure_Pa,
+                                        lim.deploy_dynamic_pressure_min_Pa, band));
+    }
+    checks.push_back(check_at_most(
+        {"peak_deceleration", "peak deceleration", "g", Severity::physics,
+         "the payload's qualified load (default 15 g: common practice, set your own)"},
+        results.entry.peak_deceleration_g, lim.peak_deceleration_max_g, band));
+    const double peak_total_flux = results.entry.peak_heat_flux_W_cm2 +
+                                   results.entry.peak_radiative_heat_flux_W_cm2.value_or(0.0);
+    checks.push_back(check_at_most(
+        {"peak_heat_flux", "peak stagnation heat flux (convective plus radiative peaks)",
+         "W/cm^2", Severity::physics,
+         "the heat-shield material's qualified heat flux (default 200 W/cm^2: common practice, "
+         "set your material's)"},
+        peak_total_flux, lim.peak_heat_flux_max_W_cm2, band));
+    checks.push_back(check_at_most({"site_elevation", "landing site elevation", "m",
+                                    Severity::envelope, heritage},
+                                   design.site.elevation_m, lim.site_elevation_max_m, band));
+    return checks;
+}
+
+void order_checks(std::vector<Check>& checks) {
+    const auto rank = [](CheckStatus s) {
+        switch (s) {
+            case CheckStatus::fail: return 0;
+            case CheckStatus::marginal: return 1;
+            case CheckStatus::pass: return 2;
+        }
+        return 2;
+    };
+    std::stable_sort(checks.begin(), checks.end(), [&](const Check& a, const Check& b) {
+        return rank(a.status) < rank(b.status);
+    });
+}
+
+}  // namespace ds

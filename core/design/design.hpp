@@ -2,6 +2,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "body/body.hpp"
@@ -13,6 +14,8 @@ namespace ds {
 /// Optional members are the keys a design may leave out; the reader fills nothing in that the
 /// document did not say, so the writer can give the same document back.
 
+/// The document's "format" and "version" keys.
+inline constexpr std::string_view design_format_id = "descent-sizer/design";
 inline constexpr int design_format_version = 1;
 
 struct BodyDesign {
@@ -95,6 +98,12 @@ struct SolverDesign {
     double max_time_s = 4000.0;  ///< flight-time budget
     int max_steps = 200000;      ///< step budget
 };
+
+/// The document's names for the enumerations, one table each for reading and writing.
+std::string_view to_string(AtmosphereModel model);
+std::string_view to_string(TerminalMethod method);
+std::optional<AtmosphereModel> atmosphere_model_from(std::string_view name);
+std::optional<TerminalMethod> terminal_method_from(std::string_view name);
 
 struct Design {
     int version = design_format_version;

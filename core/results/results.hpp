@@ -2,6 +2,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "checks/check.hpp"
@@ -11,6 +12,8 @@ namespace ds {
 /// The results document (design-file.md, version 1) as plain values, SI units throughout.
 /// An empty optional is a figure this design did not produce (written as null).
 
+/// The document's "format" and "version" keys.
+inline constexpr std::string_view results_format_id = "descent-sizer/results";
 inline constexpr int results_format_version = 1;
 
 struct EntryResults {

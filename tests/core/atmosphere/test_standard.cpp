@@ -1,1 +1,79 @@
-// placeholder: being written
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <initializer_list>
+
+#include "atmosphere/standard.hpp"
+
+namespace {
+
+doctest::Approx relative(double expected, double tolerance) {
+    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
+}
+
+// Any gas: the presets other than Earth must pass it through to the speed of sound.
+constexpr double test_gas_constant_J_kgK = 191.8;
+constexpr double test_gamma = 1.29;
+
+}  // namespace
+
+TEST_CASE(
+    "standard atmosphere for earth is the US Standard Atmosphere 1976 with its own gas "
+    "(NOAA/NASA/USAF 1976, references.md)") {
+    const auto atmosphere = ds::standard_atmosphere("earth", test_gas_constant_J_kgK, test_gamma);
+    REQUIRE(atmosphere != nullptr);
+    // Source: references.md, rho(10 km) = 0.41351 kg/m^3; 1e-4 relative.
+    CHECK(atmosphere->at(10000.0).density_kg_m3 == relative(0.41351, 1e-4));
+    // Source: derived from the standard's constants, 340.294 m/s at sea level: air's gas, not
+    // the one passed in.
+    CHECK(atmosphere->at(0.0).speed_of_sound_m_s == relative(340.294, 1e-6));
+}
+
+TEST_CASE(
+    "standard atmosphere for mars is the Mars reference profile (NASA Glenn fit, "
+    "references.md)") {
+    const auto atmosphere = ds::standard_atmosphere("mars", test_gas_constant_J_kgK, test_gamma);
+    REQUIRE(atmosphere != nullptr);
+    // Source: references.md, rho(20 km) = 2.930e-3 kg/m^3 (derived); 1e-3 relative.
+    CHECK(atmosphere->at(20000.0).density_kg_m3 == relative(2.930e-3, 1e-3));
+    // Source: hand value sqrt(1.29 x 191.8 x 242.1) = 244.84 m/s, with the gas passed in.
+    CHECK(atmosphere->at(0.0).speed_of_sound_m_s ==
+          relative(std::sqrt(test_gamma * test_gas_constant_J_kgK * 242.1), 1e-9));
+}
+
+TEST_CASE(
+    "standard atmospheres for venus and titan are exponential with their fact-sheet "
+    "values (NASA NSSDC, from memory)") {
+    const auto venus = ds::standard_atmosphere("venus", test_gas_constant_J_kgK, test_gamma);
+    REQUIRE(venus != nullptr);
+    // Source: NASA NSSDC Venus fact sheet, from memory: about 65 kg/m^3, 737 K, H = 15.9 km;
+    // 10 % on each.
+    CHECK(venus->at(0.0).density_kg_m3 == relative(65.0, 0.1));
+    CHECK(venus->at(0.0).temperature_K == relative(737.0, 0.1));
+    CHECK(venus->log_density_slope_per_m(30000.0) == relative(-1.0 / 15.9e3, 0.1));
+
+    const auto titan = ds::standard_atmosphere("titan", test_gas_constant_J_kgK, test_gamma);
+    REQUIRE(titan != nullptr);
+    // Source: from memory, surface density about 5.4 kg/m^3 and 94 K; 10 %.
+    CHECK(titan->at(0.0).density_kg_m3 == relative(5.4, 0.1));
+    CHECK(titan->at(0.0).temperature_K == relative(94.0, 0.1));
+}
+
+TEST_CASE("standard atmosphere passes the density scale to every preset (design-file.md)") {
+    for (const char* name : {"earth", "mars", "venus", "titan"}) {
+        CAPTURE(name);
+        const auto nominal = ds::standard_atmosphere(name, test_gas_constant_J_kgK, test_gamma);
+        const auto scaled = ds::standard_atmosphere(name, test_gas_constant_J_kgK, test_gamma, 1.2);
+        REQUIRE(nominal != nullptr);
+        REQUIRE(scaled != nullptr);
+        // Source: design-file.md, density_scale multiplies the density of any model.
+        CHECK(scaled->at(30000.0).density_kg_m3 ==
+              relative(1.2 * nominal->at(30000.0).density_kg_m3, 1e-12));
+    }
+}
+
+TEST_CASE("standard atmosphere is null for a name without a preset (standard.hpp contract)") {
+    CHECK(ds::standard_atmosphere("jupiter", test_gas_constant_J_kgK, test_gamma) == nullptr);
+    CHECK(ds::standard_atmosphere("", test_gas_constant_J_kgK, test_gamma) == nullptr);
+    CHECK(ds::standard_atmosphere("Mars", test_gas_constant_J_kgK, test_gamma) == nullptr);
+}

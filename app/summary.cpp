@@ -1,0 +1,130 @@
+#include "summary.hpp"
+
+#include <algorithm>
+#include <optional>
+#include <string_view>
+
+#include <fmt/format.h>
+
+namespace ds {
+namespace {
+
+constexpr int label_width = 36;
+
+void heading(std::string& out, std::string_view title) {
+    fmt::format_to(std::back_inserter(out), "\n{}\n{:-<{}}\n", title, "", title.size());
+}
+
+void row(std::string& out, std::string_view label, double value, std::string_view unit,
+         int decimals) {
+    fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12.{}f} {}\n", label, label_width, value,
+                   decimals, unit);
+}
+
+void row(std::string& out, std::string_view label, const std::optional<double>& value,
+         std::string_view unit, int decimals) {
+    if (value) {
+        row(out, label, *value, unit, decimals);
+    } else {
+        fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12} {}\n", label, label_width, "-",
+                       unit);
+    }
+}
+
+void text_row(std::string& out, std::string_view label, std::string_view text) {
+    fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12}\n", label, label_width, text);
+}
+
+std::string_view status_tag(CheckStatus status) {
+    switch (status) {
+        case CheckStatus::fail: return "FAIL";
+        case CheckStatus::marginal: return "MARGINAL";
+        case CheckStatus::pass: return "pass";
+    }
+    return "";
+}
+
+}  // namespace
+
+std::string format_summary(const Design& design, const Results& results) {
+    std::string out;
+    auto it = std::back_inserter(out);
+    fmt::format_to(it, "Descent Sizer: {}\n", design.name.empty() ? "(unnamed design)" : design.name);
+    fmt::format_to(it, "body {}, site elevation {:.0f} m, entry {:.0f} m/s at {:.2f} deg from "
+                       "{:.0f} m\n",
+                   design.body.body.name, design.site.elevation_m, design.entry.velocity_m_s,
+                   design.entry.flight_path_angle_deg, design.entry.interface_altitude_m);
+    const std::size_t failing = static_cast<std::size_t>(
+        std::count_if(results.checks.begin(), results.checks.end(),
+                      [](const Check& c) { return c.status == CheckStatus::fail; }));
+    const std::size_t marginal = static_cast<std::size_t>(
+        std::count_if(results.checks.begin(), results.checks.end(),
+                      [](const Check& c) { return c.status == CheckStatus::marginal; }));
+    fmt::format_to(it, "{}: {} failing, {} marginal, {} checks\n",
+                   results.converged ? "sized" : "NOT SIZED", failing, marginal,
+                   results.checks.size());
+
+    heading(out, "Checks (failing first)");
+    for (const Check& c : results.checks) {
+        fmt::format_to(it, "  {:<9} {:<30} {}\n", status_tag(c.status), c.id, c.message);
+    }
+
+    const EntryResults& e = results.entry;
+    heading(out, "Entry");
+    row(out, "entry mass", e.mass_kg, "kg", 1);
+    row(out, "aeroshell diameter", e.diameter_m, "m", 3);
+    row(out, "nose radius", e.nose_radius_m, "m", 3);
+    fmt::format_to(it, "  {:<{}} {:>12.4f} ({})\n", "drag coefficient", label_width,
+                   e.drag_coefficient, e.drag_coefficient_source);
+    row(out, "ballistic coefficient", e.ballistic_coefficient_kg_m2, "kg/m^2", 1);
+    row(out, "peak deceleration", e.peak_deceleration_g, "g", 2);
+    row(out, "  at altitude", e.peak_deceleration_altitude_m, "m", 0);
+    row(out, "peak convective heat flux", e.peak_heat_flux_W_cm2, "W/cm^2", 2);
+    row(out, "  at altitude", e.peak_heat_flux_altitude_m, "m", 0);
+    row(out, "convective heat load", e.heat_load_J_cm2, "J/cm^2", 0);
+    row(out, "peak radiative heat flux", e.peak_radiative_heat_flux_W_cm2, "W/cm^2", 2);
+    row(out, "radiative heat load", e.radiative_heat_load_J_cm2, "J/cm^2", 0);
+    row(out, "peak dynamic pressure", e.peak_dynamic_pressure_Pa, "Pa", 0);
+    row(out, "  at altitude", e.peak_dynamic_pressure_altitude_m, "m", 0);
+    row(out, "heat-shield TPS mass fraction", e.heat_shield_mass_fraction * 100.0, "%", 2);
+    row(out, "heat-shield TPS mass estimate", e.heat_shield_tps_kg, "kg", 1);
+
+    const ParachuteResults& p = results.parachute;
+    heading(out, "Parachute");
+    text_row(out, "deployed", p.deployed ? "yes" : "no");
+    row(out, "diameter", p.diameter_m, "m", 2);
+    row(out, "drag coefficient", p.drag_coefficient, "", 3);
+    row(out, "deploy time", p.deploy_time_s, "s", 2);
+    row(out, "deploy altitude", p.deploy_altitude_m, "m", 0);
+    row(out, "deploy Mach", p.deploy_mach, "", 3);
+    row(out, "deploy dynamic pressure", p.deploy_dynamic_pressure_Pa, "Pa", 1);
+    row(out, "deploy velocity", p.deploy_velocity_m_s, "m/s", 1);
+    row(out, "opening load", p.opening_load_N, "N", 0);
+
+    const TerminalResults& t = results.terminal;
+    heading(out, "Terminal descent");
+    text_row(out, "method", t.method);
+    row(out, "ignition altitude", t.ignition_altitude_m, "m", 0);
+    row(out, "delta-v", t.delta_v_m_s, "m/s", 1);
+    row(out, "gravity loss", t.gravity_loss_m_s, "m/s", 1);
+    row(out, "propellant", t.propellant_kg, "kg", 1);
+    row(out, "burn time", t.burn_time_s, "s", 1);
+
+    heading(out, "Timeline");
+    for (const TimelineEvent& ev : results.timeline.events) {
+        fmt::format_to(it, "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s\n", ev.time_s, ev.name,
+                       ev.altitude_m, ev.velocity_m_s);
+    }
+    row(out, "timeline margin", results.timeline.margin_s, "s", 1);
+
+    heading(out, "Mass");
+    for (const MassItem& item : results.mass.items) row(out, item.name, item.mass_kg, "kg", 1);
+    row(out, "entry mass", results.mass.entry_kg, "kg", 1);
+    row(out, "landed mass", results.mass.landed_kg, "kg", 1);
+
+    out += "\n";
+    for (const std::string& note : results.notes) fmt::format_to(it, "Note: {}\n", note);
+    return out;
+}
+
+}  // namespace ds

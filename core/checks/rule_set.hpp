@@ -1,0 +1,37 @@
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "checks/check.hpp"
+#include "design/design.hpp"
+#include "results/results.hpp"
+
+namespace ds {
+
+/// What crossing a limit means. Leaving the heritage envelope is "marginal" (it needs new
+/// technology, not new physics); crossing a physical limit is "fail", and coming within the
+/// marginal band of it is "marginal".
+enum class Severity { envelope, physics };
+
+/// What a limit check compares, in words and numbers.
+struct LimitRule {
+    std::string id;
+    std::string what;  ///< "peak deceleration"
+    std::string unit;
+    Severity severity = Severity::physics;
+    std::string source;
+};
+
+/// Checks value <= limit.
+Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band);
+/// Checks value >= limit.
+Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band);
+
+/// Every limit check that applies to these results, against the design's limits.
+std::vector<Check> limit_checks(const Design& design, const Results& results);
+
+/// Orders checks failing first, then marginal, then passing, keeping their order otherwise.
+void order_checks(std::vector<Check>& checks);
+
+}  // namespace ds

@@ -1,0 +1,258 @@
+#pragma once
+
+#include <algorithm>
+#include <cmath>
+#include <cstddef>
+#include <cstdint>
+#include <functional>
+#include <limits>
+#include <optional>
+#include <span>
+#include <vector>
+
+#include <Eigen/Core>
+#include <boost/math/tools/toms748_solve.hpp>
+
+namespace ds {
+
+template <int N>
+using Vector = Eigen::Matrix<double, N, 1>;
+
+/// How closely and how long to integrate.
+template <int N>
+struct IntegratorSettings {
+    double relative_tolerance = 1e-8;
+    Vector<N> absolute_tolerance = Vector<N>::Constant(1e-10);
+    double initial_step = 0.1;
+    double max_step = std::numeric_limits<double>::infinity();
+    std::size_t max_steps = 200000;  ///< step budget: beyond it the integration stops and says so
+    double event_time_tolerance = 1e-7;  ///< events are located to within this time
+};
+
+enum class EventDirection { any, rising, falling };
+
+/// A zero crossing of g(t, y) to locate. A terminal event ends the integration.
+template <int N>
+struct Event {
+    std::function<double(double, const Vector<N>&)> function;
+    EventDirection direction = EventDirection::any;
+    bool terminal = false;
+};
+
+template <int N>
+struct EventHit {
+    std::size_t index = 0;  ///< into the events given
+    double t = 0.0;
+    Vector<N> y;
+};
+
+enum class StopReason {
+    reached_end,     ///< integrated to t_end (for a flight: the time budget ran out)
+    terminal_event,  ///< a terminal event fired
+    step_budget,     ///< max_steps accepted steps were not enough
+    step_collapse,   ///< the step fell below what the tolerance can resolve (stiff or singular)
+    not_finite,      ///< the right-hand side produced NaN or infinity
+};
+
+template <int N>
+struct IntegrationOutcome {
+    StopReason reason = StopReason::reached_end;
+    double t = 0.0;
+    Vector<N> y;
+    std::vector<EventHit<N>> events;  ///< in time order; the terminal one last
+    std::size_t accepted_steps = 0;
+    std::size_t rejected_steps = 0;
+    std::size_t evaluations = 0;
+};
+
+namespace detail {
+
+/// Dormand and Prince, "A family of embedded Runge-Kutta formulae", J. Comp. Appl. Math. 6
+/// (1980); dense output coefficients of Hairer, Norsett and Wanner, Solving ODEs I (DOPRI5).
+struct DormandPrinceTableau {
+    static constexpr double c2 = 1.0 / 5.0, c3 = 3.0 / 10.0, c4 = 4.0 / 5.0, c5 = 8.0 / 9.0;
+    static constexpr double a21 = 1.0 / 5.0;
+    static constexpr double a31 = 3.0 / 40.0, a32 = 9.0 / 40.0;
+    static constexpr double a41 = 44.0 / 45.0, a42 = -56.0 / 15.0, a43 = 32.0 / 9.0;
+    static constexpr double a51 = 19372.0 / 6561.0, a52 = -25360.0 / 2187.0,
+                            a53 = 64448.0 / 6561.0, a54 = -212.0 / 729.0;
+    static constexpr double a61 = 9017.0 / 3168.0, a62 = -355.0 / 33.0, a63 = 46732.0 / 5247.0,
+                            a64 = 49.0 / 176.0, a65 = -5103.0 / 18656.0;
+    static constexpr double a71 = 35.0 / 384.0, a73 = 500.0 / 1113.0, a74 = 125.0 / 192.0,
+                            a75 = -2187.0 / 6784.0, a76 = 11.0 / 84.0;
+    // Fifth-order solution minus the embedded fourth-order one.
+    static constexpr double e1 = 71.0 / 57600.0, e3 = -71.0 / 16695.0, e4 = 71.0 / 1920.0,
+                            e5 = -17253.0 / 339200.0, e6 = 22.0 / 525.0, e7 = -1.0 / 40.0;
+    static constexpr double d1 = -12715105075.0 / 11282082432.0,
+                            d3 = 87487479700.0 / 32700410799.0,
+                            d4 = -10690763975.0 / 1880347072.0,
+                            d5 = 701980252875.0 / 199316789632.0,
+                            d6 = -1453857185.0 / 822651844.0, d7 = 69997945.0 / 29380423.0;
+};
+
+/// The continuous extension of one accepted step, valid for t in [t0, t0 + h].
+template <int N>
+struct DenseStep {
+    double t0 = 0.0;
+    double h = 0.0;
+    Vector<N> r1, r2, r3, r4, r5;
+
+    Vector<N> operator()(double t) const {
+        const double theta = (t - t0) / h;
+        const double theta1 = 1.0 - theta;
+        return r1 + theta * (r2 + theta1 * (r3 + theta * (r4 + theta1 * r5)));
+    }
+};
+
+inline bool crosses(double before, double after, EventDirection direction) {
+    const bool rising = before < 0.0 && after >= 0.0;
+    const bool falling = before > 0.0 && after <= 0.0;
+    switch (direction) {
+        case EventDirection::rising: return rising;
+        case EventDirection::falling: return falling;
+        case EventDirection::any: return rising || falling;
+    }
+    return false;
+}
+
+}  // namespace detail
+
+/// Integrates y' = rhs(t, y) from t0 to t_end with the Dormand-Prince 5(4) pair, adaptive step
+/// size on a mixed absolute/relative error norm, locating events on the dense output with
+/// TOMS 748 (Boost.Math). After every accepted step `on_step(t, y)` is called. The one
+/// integrator of the project: every flight phase is a call of it with its own rhs and events.
+template <int N, class Rhs, class OnStep>
+IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vector<N>& y0,
+                                               double t_end, std::span<const Event<N>> events,
+                                               const IntegratorSettings<N>& settings,
+                                               OnStep&& on_step) {
+    using T = detail::DormandPrinceTableau;
+    // Step control constants of Hairer's DOPRI5 (common practice).
+    constexpr double safety = 0.9;
+    constexpr double shrink_limit = 0.2;
+    constexpr double grow_limit = 10.0;
+    constexpr double order_exponent = 1.0 / 5.0;
+
+    IntegrationOutcome<N> out;
+    double t = t0;
+    Vector<N> y = y0;
+    Vector<N> k1 = rhs(t, y);
+    ++out.evaluations;
+    double h = std::min({settings.initial_step, settings.max_step, t_end - t0});
+
+    std::vector<double> g_before(events.size());
+    for (std::size_t i = 0; i < events.size(); ++i) g_before[i] = events[i].function(t, y);
+
+    on_step(t, y);
+    while (t < t_end) {
+        if (out.accepted_steps >= settings.max_steps) {
+            out.reason = StopReason::step_budget;
+            break;
+        }
+        if (h < 64.0 * std::numeric_limits<double>::epsilon() * std::max(1.0, std::abs(t))) {
+            out.reason = StopReason::step_collapse;
+            break;
+        }
+        const bool last = t + h >= t_end;
+        if (last) h = t_end - t;
+
+        const Vector<N> k2 = rhs(t + T::c2 * h, y + h * (T::a21 * k1));
+        const Vector<N> k3 = rhs(t + T::c3 * h, y + h * (T::a31 * k1 + T::a32 * k2));
+        const Vector<N> k4 = rhs(t + T::c4 * h, y + h * (T::a41 * k1 + T::a42 * k2 + T::a43 * k3));
+        const Vector<N> k5 = rhs(
+            t + T::c5 * h, y + h * (T::a51 * k1 + T::a52 * k2 + T::a53 * k3 + T::a54 * k4));
+        const Vector<N> k6 = rhs(t + h, y + h * (T::a61 * k1 + T::a62 * k2 + T::a63 * k3 +
+                                                 T::a64 * k4 + T::a65 * k5));
+        const Vector<N> y_new =
+            y + h * (T::a71 * k1 + T::a73 * k3 + T::a74 * k4 + T::a75 * k5 + T::a76 * k6);
+        const Vector<N> k7 = rhs(t + h, y_new);
+        out.evaluations += 6;
+
+        if (!y_new.allFinite() || !k7.allFinite()) {
+            if (h > settings.event_time_tolerance) {  // a step too bold may leave the model
+                h *= shrink_limit;
+                ++out.rejected_steps;
+                continue;
+            }
+            out.reason = StopReason::not_finite;
+            break;
+        }
+
+        const Vector<N> error =
+            h * (T::e1 * k1 + T::e3 * k3 + T::e4 * k4 + T::e5 * k5 + T::e6 * k6 + T::e7 * k7);
+        const Vector<N> scale = settings.absolute_tolerance.array() +
+                                settings.relative_tolerance *
+                                    y.cwiseAbs().cwiseMax(y_new.cwiseAbs()).array();
+        const double err = std::sqrt((error.array() / scale.array()).square().mean());
+        if (!(err <= 1.0)) {
+            const double factor =
+                std::isfinite(err) ? std::max(shrink_limit, safety * std::pow(err, -order_exponent))
+                                   : shrink_limit;
+            h *= factor;
+            ++out.rejected_steps;
+            continue;
+        }
+
+        // Accepted: build the continuous extension, then look for events inside the step.
+        const Vector<N> ydiff = y_new - y;
+        const Vector<N> bspl = h * k1 - ydiff;
+        const detail::DenseStep<N> dense{
+            t, h, y, ydiff, bspl, ydiff - h * k7 - bspl,
+            h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 + T::d6 * k6 + T::d7 * k7)};
+        const double t_new = last ? t_end : t + h;
+
+        std::vector<EventHit<N>> hits;
+        std::vector<double> g_after(events.size());
+        for (std::size_t i = 0; i < events.size(); ++i) {
+            g_after[i] = events[i].function(t_new, y_new);
+            if (!detail::crosses(g_before[i], g_after[i], events[i].direction)) continue;
+            const auto g = [&](double tau) { return events[i].function(tau, dense(tau)); };
+            const auto close_enough = [&](double a, double b) {
+                return std::abs(b - a) <= settings.event_time_tolerance;
+            };
+            std::uintmax_t iterations = 100;
+            // The end of the bracket past the crossing, so the event state is on its far side.
+            const double t_hit = boost::math::tools::toms748_solve(g, t, t_new, g_before[i],
+                                                                   g_after[i], close_enough,
+                                                                   iterations)
+                                     .second;
+            hits.push_back({i, t_hit, dense(t_hit)});
+        }
+        std::sort(hits.begin(), hits.end(),
+                  [](const EventHit<N>& a, const EventHit<N>& b) { return a.t < b.t; });
+        const auto terminal = std::find_if(hits.begin(), hits.end(), [&](const EventHit<N>& hit) {
+            return events[hit.index].terminal;
+        });
+
+        ++out.accepted_steps;
+        if (terminal != hits.end()) {
+            const EventHit<N> stop = *terminal;
+            for (auto it = hits.begin(); it != terminal; ++it) out.events.push_back(*it);
+            out.events.push_back(stop);
+            t = stop.t;
+            y = stop.y;
+            on_step(t, y);
+            out.reason = StopReason::terminal_event;
+            out.t = t;
+            out.y = y;
+            return out;
+        }
+        out.events.insert(out.events.end(), hits.begin(), hits.end());
+
+        t = t_new;
+        y = y_new;
+        k1 = k7;  // first-same-as-last
+        g_before = std::move(g_after);
+        on_step(t, y);
+
+        const double factor =
+            err > 0.0 ? std::clamp(safety * std::pow(err, -order_exponent), shrink_limit, grow_limit)
+                      : grow_limit;
+        h = std::min(h * factor, settings.max_step);
+    }
+    out.t = t;
+    out.y = y;
+    return out;
+}
+
+}  // namespace ds

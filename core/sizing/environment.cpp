@@ -1,0 +1,40 @@
+#include "sizing/environment.hpp"
+
+#include <stdexcept>
+
+#include "atmosphere/exponential.hpp"
+#include "atmosphere/standard.hpp"
+#include "atmosphere/table.hpp"
+
+namespace ds {
+
+double design_gas_constant(const Design& design) {
+    return design.atmosphere.gas_constant_J_kgK.value_or(design.body.body.gas.gas_constant_J_kgK);
+}
+
+double design_gamma(const Design& design) {
+    return design.atmosphere.gamma.value_or(design.body.body.gas.gamma);
+}
+
+std::unique_ptr<Atmosphere> make_atmosphere(const Design& design) {
+    const AtmosphereDesign& a = design.atmosphere;
+    const double r = design_gas_constant(design);
+    const double gamma = design_gamma(design);
+    switch (a.model) {
+        case AtmosphereModel::exponential:
+            return std::make_unique<ExponentialAtmosphere>(
+                ExponentialAtmosphere::Parameters{a.surface_density_kg_m3, a.scale_height_m,
+                                                  a.temperature_K},
+                r, gamma, a.density_scale);
+        case AtmosphereModel::table:
+            return std::make_unique<TableAtmosphere>(a.rows, r, gamma, a.density_scale);
+        case AtmosphereModel::standard:
+            if (auto model = standard_atmosphere(design.body.preset, r, gamma, a.density_scale)) {
+                return model;
+            }
+            throw std::invalid_argument("atmosphere.model: the body has no standard atmosphere");
+    }
+    throw std::invalid_argument("atmosphere.model: unknown model");
+}
+
+}  // namespace ds

@@ -1,0 +1,140 @@
+#include <cmath>
+#include <vector>
+
+#include <doctest/doctest.h>
+
+#include "numerics/dormand_prince.hpp"
+
+using ds::Event;
+using ds::EventDirection;
+using ds::IntegratorSettings;
+using ds::StopReason;
+using ds::Vector;
+
+namespace {
+
+const auto ignore_step = [](double, const auto&) {};
+
+IntegratorSettings<2> tight() {
+    IntegratorSettings<2> s;
+    s.relative_tolerance = 1e-10;
+    s.absolute_tolerance = Vector<2>::Constant(1e-12);
+    return s;
+}
+
+// The harmonic oscillator x'' = -x: x = cos t, v = -sin t from (1, 0).
+Vector<2> oscillator(double, const Vector<2>& y) { return Vector<2>(y[1], -y[0]); }
+
+}  // namespace
+
+TEST_CASE("exponential decay matches exp(-t) at t = 10 to 1e-8 relative (closed form)") {
+    const auto rhs = [](double, const Vector<1>& y) { return Vector<1>(-y[0]); };
+    IntegratorSettings<1> s;
+    s.relative_tolerance = 1e-10;
+    s.absolute_tolerance = Vector<1>::Constant(1e-14);
+    const auto out = ds::integrate_dormand_prince<1>(rhs, 0.0, Vector<1>(1.0), 10.0,
+                                                     std::span<const Event<1>>{}, s, ignore_step);
+    CHECK(out.reason == StopReason::reached_end);
+    CHECK(out.t == doctest::Approx(10.0).epsilon(1e-15));
+    CHECK(out.y[0] == doctest::Approx(std::exp(-10.0)).epsilon(1e-8));
+}
+
+TEST_CASE("harmonic oscillator returns to its start after one period to 1e-8 (closed form)") {
+    const double period = 2.0 * M_PI;
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), period,
+                                                     std::span<const Event<2>>{}, tight(),
+                                                     ignore_step);
+    CHECK(out.y[0] == doctest::Approx(1.0).epsilon(1e-8));
+    CHECK(std::abs(out.y[1]) < 1e-8);
+}
+
+TEST_CASE("error falls with the tolerance: fifth-order pair converges (closed form)") {
+    const auto error_at = [](double rtol) {
+        IntegratorSettings<2> s;
+        s.relative_tolerance = rtol;
+        s.absolute_tolerance = Vector<2>::Constant(rtol);
+        const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 20.0,
+                                                         std::span<const Event<2>>{}, s,
+                                                         ignore_step);
+        return std::abs(out.y[0] - std::cos(20.0));
+    };
+    const double coarse = error_at(1e-5);
+    const double fine = error_at(1e-9);
+    CHECK(coarse < 1e-3);
+    CHECK(fine < 1e-7);
+    CHECK(fine < coarse / 100.0);
+}
+
+TEST_CASE("a terminal event is located within 1e-6 s: x = cos t crosses zero at pi/2") {
+    const std::vector<Event<2>> events{
+        {[](double, const Vector<2>& y) { return y[0]; }, EventDirection::falling, true}};
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 10.0,
+                                                     events, tight(), ignore_step);
+    REQUIRE(out.reason == StopReason::terminal_event);
+    REQUIRE(out.events.size() == 1);
+    CHECK(std::abs(out.t - M_PI / 2.0) < 1e-6);
+    CHECK(std::abs(out.y[0]) < 1e-6);
+    CHECK(out.y[1] == doctest::Approx(-1.0).epsilon(1e-6));
+}
+
+TEST_CASE("event direction: a rising crossing is skipped by a falling-only event") {
+    // x = cos t rises through zero at 3 pi / 2 and falls at pi / 2 and 5 pi / 2.
+    const std::vector<Event<2>> events{
+        {[](double, const Vector<2>& y) { return y[0]; }, EventDirection::rising, false},
+        {[](double, const Vector<2>& y) { return y[0]; }, EventDirection::falling, false}};
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 8.0,
+                                                     events, tight(), ignore_step);
+    REQUIRE(out.events.size() == 3);
+    CHECK(out.events[0].index == 1);
+    CHECK(std::abs(out.events[0].t - M_PI / 2.0) < 1e-6);
+    CHECK(out.events[1].index == 0);
+    CHECK(std::abs(out.events[1].t - 3.0 * M_PI / 2.0) < 1e-6);
+    CHECK(out.events[2].index == 1);
+    CHECK(std::abs(out.events[2].t - 5.0 * M_PI / 2.0) < 1e-6);
+}
+
+TEST_CASE("dense output between steps is accurate to 1e-6 (cos t sampled at a peak event)") {
+    // The maximum of -v = sin t is at pi/2: located from v' = -x crossing zero.
+    const std::vector<Event<2>> events{
+        {[](double, const Vector<2>& y) { return -y[0]; }, EventDirection::rising, false}};
+    IntegratorSettings<2> s = tight();
+    s.max_step = 2.0;
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 3.0,
+                                                     events, s, ignore_step);
+    REQUIRE(out.events.size() == 1);
+    CHECK(std::abs(out.events[0].t - M_PI / 2.0) < 1e-6);
+    CHECK(out.events[0].y[1] == doctest::Approx(-1.0).epsilon(1e-9));
+}
+
+TEST_CASE("the step budget stops the integration and says so") {
+    IntegratorSettings<2> s = tight();
+    s.max_steps = 5;
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 1000.0,
+                                                     std::span<const Event<2>>{}, s, ignore_step);
+    CHECK(out.reason == StopReason::step_budget);
+    CHECK(out.accepted_steps == 5);
+    CHECK(out.t < 1000.0);
+}
+
+TEST_CASE("a singular right-hand side is reported, not looped on: y' = 1/(1-t) near t = 1") {
+    const auto rhs = [](double t, const Vector<1>&) { return Vector<1>(1.0 / (1.0 - t)); };
+    IntegratorSettings<1> s;
+    s.relative_tolerance = 1e-8;
+    s.absolute_tolerance = Vector<1>::Constant(1e-10);
+    const auto out = ds::integrate_dormand_prince<1>(rhs, 0.0, Vector<1>(0.0), 2.0,
+                                                     std::span<const Event<1>>{}, s, ignore_step);
+    CHECK((out.reason == StopReason::step_collapse || out.reason == StopReason::not_finite));
+    CHECK(out.t < 1.0);
+    CHECK(out.t > 0.99);
+}
+
+TEST_CASE("the observer sees every accepted step, in time order, ending at t_end") {
+    std::vector<double> times;
+    const auto on_step = [&](double t, const Vector<2>&) { times.push_back(t); };
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 5.0,
+                                                     std::span<const Event<2>>{}, tight(), on_step);
+    REQUIRE(times.size() == out.accepted_steps + 1);
+    CHECK(times.front() == 0.0);
+    CHECK(times.back() == doctest::Approx(5.0).epsilon(1e-15));
+    CHECK(std::is_sorted(times.begin(), times.end()));
+}
