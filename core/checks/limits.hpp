@@ -8,6 +8,7 @@ namespace ds {
 /// The limits the checks compare against. Defaults are the heritage envelope for a soft
 /// landing on Mars with today's technology (Braun and Manning, J. Spacecraft and Rockets
 /// 44(2), 2007, and common practice); every one can be overridden in a design's "limits".
+/// The envelope limits other than the fairing's are checked for Mars designs only.
 struct Limits {
     /// Above this the design leaves the heritage envelope (common practice).
     double ballistic_coefficient_max_kg_m2 = 150.0;

@@ -45,6 +45,22 @@ double relative_excess(double value, double limit) {
     return limit != 0.0 ? (value - limit) / std::abs(limit) : value - limit;
 }
 
+Check half_angle_check(double half_angle_deg, double heritage_deg, const std::string& source) {
+    constexpr double same_angle_deg = 0.5;  // a heritage shape to within half a degree
+    Check c{"aeroshell_half_angle", CheckStatus::pass, half_angle_deg, heritage_deg, "deg", "",
+            source};
+    if (std::abs(half_angle_deg - heritage_deg) > same_angle_deg) {
+        c.status = CheckStatus::marginal;
+        c.message = fmt::format(
+            "a {:.4g} deg sphere-cone is not the heritage {:.4g} deg shape: its aerodynamics "
+            "and stability need their own data",
+            half_angle_deg, heritage_deg);
+    } else {
+        c.message = fmt::format("{:.4g} deg sphere-cone, the heritage shape", half_angle_deg);
+    }
+    return c;
+}
+
 }  // namespace
 
 Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band) {
@@ -63,36 +79,29 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
     const std::string heritage{heritage_source};
     std::vector<Check> checks;
 
-    checks.push_back(check_at_most({"ballistic_coefficient", "entry ballistic coefficient",
-                                    "kg/m^2", Severity::envelope, heritage},
-                                   results.entry.ballistic_coefficient_kg_m2,
-                                   lim.ballistic_coefficient_max_kg_m2, band));
+    // The launcher fairing bounds every aeroshell; the rest of the heritage envelope is that
+    // of Mars soft landing, so it applies to Mars only.
     checks.push_back(check_at_most({"aeroshell_diameter", "aeroshell diameter", "m",
                                     Severity::envelope,
-                                    heritage + "; launcher fairing about 4.5-4.6 m"},
+                                    "launcher fairing about 4.5-4.6 m, " + heritage},
                                    results.entry.diameter_m, lim.aeroshell_diameter_max_m, band));
-    {
-        const double off = std::abs(design.aeroshell.half_angle_deg - lim.heritage_half_angle_deg);
-        constexpr double same_angle_deg = 0.5;  // a heritage shape to within half a degree
-        Check c{"aeroshell_half_angle", CheckStatus::pass, design.aeroshell.half_angle_deg,
-                lim.heritage_half_angle_deg, "deg", "", heritage};
-        if (off > same_angle_deg) {
-            c.status = CheckStatus::marginal;
-            c.message = fmt::format(
-                "a {:.4g} deg sphere-cone is not the heritage {:.4g} deg shape: its "
-                "aerodynamics and stability need their own data",
-                design.aeroshell.half_angle_deg, lim.heritage_half_angle_deg);
-        } else {
-            c.message = fmt::format("{:.4g} deg sphere-cone, the heritage shape",
-                                    design.aeroshell.half_angle_deg);
+    const bool mars = design.body.preset == "mars";
+    if (mars) {
+        checks.push_back(check_at_most({"ballistic_coefficient", "entry ballistic coefficient",
+                                        "kg/m^2", Severity::envelope, heritage},
+                                       results.entry.ballistic_coefficient_kg_m2,
+                                       lim.ballistic_coefficient_max_kg_m2, band));
+        checks.push_back(half_angle_check(design.aeroshell.half_angle_deg,
+                                          lim.heritage_half_angle_deg, heritage));
+        if (results.parachute.diameter_m) {
+            checks.push_back(check_at_most({"parachute_diameter", "parachute diameter", "m",
+                                            Severity::envelope, heritage},
+                                           *results.parachute.diameter_m,
+                                           lim.parachute_diameter_max_m, band));
         }
-        checks.push_back(c);
-    }
-    if (results.parachute.diameter_m) {
-        checks.push_back(check_at_most({"parachute_diameter", "parachute diameter", "m",
+        checks.push_back(check_at_most({"site_elevation", "landing site elevation", "m",
                                         Severity::envelope, heritage},
-                                       *results.parachute.diameter_m, lim.parachute_diameter_max_m,
-                                       band));
+                                       design.site.elevation_m, lim.site_elevation_max_m, band));
     }
     if (results.parachute.deployed) {
         const std::string window{deploy_window_source};
@@ -122,9 +131,6 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
          "the heat-shield material's qualified heat flux (default 200 W/cm^2: common practice, "
          "set your material's)"},
         peak_total_flux, lim.peak_heat_flux_max_W_cm2, band));
-    checks.push_back(check_at_most({"site_elevation", "landing site elevation", "m",
-                                    Severity::envelope, heritage},
-                                   design.site.elevation_m, lim.site_elevation_max_m, band));
     return checks;
 }
 

@@ -40,9 +40,11 @@ IntegratorSettings<flight_state_size> flight_integrator_settings(double relative
     IntegratorSettings<flight_state_size> s;
     s.relative_tolerance = relative_tolerance;
     s.max_steps = max_steps;
-    // Absolute floors well below what any result reports: 1 mm, 1 mm/s, 1 microradian,
-    // 1 g of mass, 1 J/m^2 of heat load.
-    s.absolute_tolerance << 1e-3, 1e-3, 1e-3, 1e-6, 1e-3, 1.0, 1.0;
+    // Absolute floors: the relative tolerance times a typical size of each state (100 km,
+    // 100 km, 1 km/s, 1 rad, 1 t, 1 MJ/m^2, 1 MJ/m^2), so one tolerance sets both.
+    FlightState typical;
+    typical << 1e5, 1e5, 1e3, 1.0, 1e3, 1e6, 1e6;
+    s.absolute_tolerance = relative_tolerance * typical;
     s.initial_step = 0.1;
     s.event_time_tolerance = 1e-7;
     return s;

@@ -1,0 +1,64 @@
+#include <doctest/doctest.h>
+
+#include "checks/rule_set.hpp"
+
+using ds::CheckStatus;
+using ds::LimitRule;
+using ds::Severity;
+
+namespace {
+
+const LimitRule physics{"peak_deceleration", "peak deceleration", "g", Severity::physics, "test"};
+const LimitRule envelope{"aeroshell_diameter", "aeroshell diameter", "m", Severity::envelope,
+                         "test"};
+
+}  // namespace
+
+TEST_CASE("a physics limit passes below its marginal band, is marginal inside it, fails past it") {
+    CHECK(ds::check_at_most(physics, 10.0, 15.0, 0.1).status == CheckStatus::pass);
+    CHECK(ds::check_at_most(physics, 14.0, 15.0, 0.1).status == CheckStatus::marginal);
+    CHECK(ds::check_at_most(physics, 15.0, 15.0, 0.1).status == CheckStatus::marginal);
+    CHECK(ds::check_at_most(physics, 15.1, 15.0, 0.1).status == CheckStatus::fail);
+}
+
+TEST_CASE("an envelope limit is marginal past it and never fails") {
+    CHECK(ds::check_at_most(envelope, 4.0, 4.6, 0.1).status == CheckStatus::pass);
+    CHECK(ds::check_at_most(envelope, 4.5, 4.6, 0.1).status == CheckStatus::pass);
+    CHECK(ds::check_at_most(envelope, 9.0, 4.6, 0.1).status == CheckStatus::marginal);
+}
+
+TEST_CASE("a lower limit mirrors the upper one") {
+    const LimitRule low{"deploy_q_low", "deploy dynamic pressure", "Pa", Severity::physics, "t"};
+    CHECK(ds::check_at_least(low, 400.0, 250.0, 0.1).status == CheckStatus::pass);
+    CHECK(ds::check_at_least(low, 260.0, 250.0, 0.1).status == CheckStatus::marginal);
+    CHECK(ds::check_at_least(low, 200.0, 250.0, 0.1).status == CheckStatus::fail);
+}
+
+TEST_CASE("a negative limit is judged on its magnitude (site elevation below -1 km)") {
+    const LimitRule site{"site_elevation", "site elevation", "m", Severity::envelope, "t"};
+    CHECK(ds::check_at_most(site, -2000.0, -1000.0, 0.1).status == CheckStatus::pass);
+    CHECK(ds::check_at_most(site, -500.0, -1000.0, 0.1).status == CheckStatus::marginal);
+}
+
+TEST_CASE("a check carries its value, limit, unit, source and a message with the numbers") {
+    const ds::Check c = ds::check_at_most(physics, 16.25, 15.0, 0.1);
+    CHECK(c.id == "peak_deceleration");
+    CHECK(c.value == 16.25);
+    CHECK(c.limit == 15.0);
+    CHECK(c.unit == "g");
+    CHECK(c.source == "test");
+    CHECK(c.message == "peak deceleration 16.25 g is above the limit of 15 g");
+}
+
+TEST_CASE("checks are ordered failing first, then marginal, keeping their order otherwise") {
+    std::vector<ds::Check> checks{
+        ds::check_at_most({"a", "a", "", Severity::physics, ""}, 1.0, 10.0, 0.1),
+        ds::check_at_most({"b", "b", "", Severity::physics, ""}, 9.5, 10.0, 0.1),
+        ds::check_at_most({"c", "c", "", Severity::physics, ""}, 11.0, 10.0, 0.1),
+        ds::check_at_most({"d", "d", "", Severity::physics, ""}, 2.0, 10.0, 0.1),
+        ds::check_at_most({"e", "e", "", Severity::physics, ""}, 12.0, 10.0, 0.1)};
+    ds::order_checks(checks);
+    std::string order;
+    for (const ds::Check& c : checks) order += c.id;
+    CHECK(order == "cebad");
+}

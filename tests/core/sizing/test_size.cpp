@@ -1,0 +1,193 @@
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+#include <doctest/doctest.h>
+
+#include "aeroshell/sphere_cone.hpp"
+#include "design/reader.hpp"
+#include "sizing/environment.hpp"
+#include "sizing/size.hpp"
+
+namespace {
+
+ds::Design sample(const std::string& name) {
+    const ds::DesignReadResult read =
+        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
+    REQUIRE_MESSAGE(read.ok(), (read.errors.empty() ? "" : read.errors.front().text()));
+    return *read.design;
+}
+
+const ds::Check* find_check(const ds::Results& r, const std::string& id) {
+    const auto it = std::find_if(r.checks.begin(), r.checks.end(),
+                                 [&](const ds::Check& c) { return c.id == id; });
+    return it == r.checks.end() ? nullptr : &*it;
+}
+
+}  // namespace
+
+TEST_CASE("every sample flies from the interface to its parachute trigger") {
+    for (const char* name :
+         {"small-ballistic-station", "lifting-rover-carrier", "earth-return-capsule"}) {
+        CAPTURE(name);
+        const ds::Design d = sample(name);
+        const ds::Results r = ds::size_design(d);
+        CHECK(r.converged);
+        CHECK(r.parachute.deployed);
+        CHECK(r.entry.peak_deceleration_g > 1.0);
+        CHECK(r.entry.peak_heat_flux_W_cm2 > 1.0);
+        CHECK(r.entry.heat_load_J_cm2 > 100.0);
+        CHECK(r.timeline.events.front().name == "entry interface");
+        CHECK(r.timeline.events.back().name == "parachute deploy");
+        CHECK(std::is_sorted(r.timeline.events.begin(), r.timeline.events.end(),
+                             [](const auto& a, const auto& b) { return a.time_s < b.time_s; }));
+        REQUIRE(find_check(r, "parachute_trigger"));
+        CHECK(find_check(r, "parachute_trigger")->status == ds::CheckStatus::pass);
+    }
+}
+
+TEST_CASE("the small station deploys at its trigger Mach, with the figures Allen-Eggers predicts") {
+    const ds::Design d = sample("small-ballistic-station");
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.parachute.deploy_mach);
+    CHECK(*r.parachute.deploy_mach == doctest::Approx(1.8).epsilon(1e-6));
+    // Allen-Eggers (NACA Report 1381) straight-line peak V^2 sin|g| / (2 e H) / g0 = 11.9 g is
+    // an upper bound here: at 5.6 km/s, above circular speed, the path lofts and shallows.
+    const double allen_eggers_g = 5600.0 * 5600.0 * std::sin(13.0 * M_PI / 180.0) /
+                                  (2.0 * M_E * 11100.0) / 9.80665;
+    CHECK(r.entry.peak_deceleration_g < allen_eggers_g);
+    CHECK(r.entry.peak_deceleration_g > 0.5 * allen_eggers_g);
+    // With Cd from modified Newtonian theory: 560 / (1.6607 * 5.309) = 63.5 kg/m^2.
+    CHECK(r.entry.drag_coefficient_source == "modified Newtonian");
+    CHECK(r.entry.ballistic_coefficient_kg_m2 ==
+          doctest::Approx(560.0 / (r.entry.drag_coefficient * ds::frontal_area_m2(2.6)))
+              .epsilon(1e-12));
+}
+
+TEST_CASE("the deploy state is consistent: dynamic pressure is 0.5 rho V^2 at the deploy altitude") {
+    const ds::Design d = sample("small-ballistic-station");
+    const ds::Results r = ds::size_design(d);
+    const auto atmosphere = ds::make_atmosphere(d);
+    const double rho = atmosphere->at(*r.parachute.deploy_altitude_m).density_kg_m3;
+    const double v = *r.parachute.deploy_velocity_m_s;
+    CHECK(*r.parachute.deploy_dynamic_pressure_Pa == doctest::Approx(0.5 * rho * v * v).epsilon(1e-9));
+    // Opening load = 1.3 q Cd A for a disk-gap-band (Knacke, NWC TP 6575; from memory).
+    CHECK(*r.parachute.opening_load_N ==
+          doctest::Approx(1.3 * *r.parachute.deploy_dynamic_pressure_Pa * 0.55 *
+                          ds::frontal_area_m2(12.0))
+              .epsilon(1e-9));
+}
+
+TEST_CASE("an aeroshell sized for a ballistic coefficient meets it") {
+    const ds::Design d = sample("lifting-rover-carrier");
+    const ds::Results r = ds::size_design(d);
+    CHECK(r.entry.ballistic_coefficient_kg_m2 == doctest::Approx(115.0).epsilon(1e-8));
+    // Constant Cd 1.68: D = sqrt(4 * 2900 / (pi * 1.68 * 115)) = 4.3722 m.
+    CHECK(r.entry.diameter_m == doctest::Approx(std::sqrt(4.0 * 2900.0 / (M_PI * 1.68 * 115.0)))
+                                    .epsilon(1e-8));
+}
+
+TEST_CASE("a parachute sized for a velocity holds it at the requested height by hand balance") {
+    const ds::Design d = sample("earth-return-capsule");
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.parachute.diameter_m);
+    const auto atmosphere = ds::make_atmosphere(d);
+    const double rho = atmosphere->at(d.site.elevation_m).density_kg_m3;
+    const double drag = 0.5 * rho * 6.0 * 6.0 * *r.parachute.drag_coefficient *
+                        ds::frontal_area_m2(*r.parachute.diameter_m);
+    CHECK(drag == doctest::Approx(48.0 * d.body.body.gravity_m_s2(d.site.elevation_m)).epsilon(1e-9));
+}
+
+TEST_CASE("a design that reaches the ground before its trigger fails with where and how fast") {
+    ds::Design d = sample("small-ballistic-station");
+    d.parachute.trigger_value = 0.2;  // Mach 0.2 is never reached above the site
+    const ds::Results r = ds::size_design(d);
+    CHECK_FALSE(r.parachute.deployed);
+    const ds::Check* c = find_check(r, "parachute_trigger");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->message.find("reaches the ground at") != std::string::npos);
+    CHECK(r.checks.front().status == ds::CheckStatus::fail);
+    CHECK(r.timeline.events.back().name == "ground impact");
+    CHECK(r.timeline.events.back().altitude_m == doctest::Approx(-1500.0).epsilon(1e-6));
+}
+
+TEST_CASE("a shallow lifting entry that skips out fails and says so") {
+    ds::Design d = sample("small-ballistic-station");
+    d.entry.flight_path_angle_deg = -6.0;
+    d.entry.lift_to_drag = 0.6;
+    d.entry.velocity_m_s = 6500.0;
+    const ds::Results r = ds::size_design(d);
+    const ds::Check* c = find_check(r, "parachute_trigger");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->message.find("skips out") != std::string::npos);
+}
+
+TEST_CASE("an exhausted step budget is a failing check and an unconverged result, not a hang") {
+    ds::Design d = sample("small-ballistic-station");
+    d.solver.max_steps = 10;
+    const ds::Results r = ds::size_design(d);
+    CHECK_FALSE(r.converged);
+    const ds::Check* c = find_check(r, "trajectory");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->message.find("step budget") != std::string::npos);
+}
+
+TEST_CASE("a denser atmosphere deploys the parachute higher (trend)") {
+    ds::Design d = sample("small-ballistic-station");
+    const double nominal = *ds::size_design(d).parachute.deploy_altitude_m;
+    d.atmosphere.density_scale = 1.2;
+    const double dense = *ds::size_design(d).parachute.deploy_altitude_m;
+    CHECK(dense > nominal + 500.0);
+}
+
+TEST_CASE("a larger aeroshell lowers the ballistic coefficient and raises the deploy altitude") {
+    ds::Design d = sample("small-ballistic-station");
+    const ds::Results small = ds::size_design(d);
+    d.aeroshell.diameter_m = 3.2;
+    const ds::Results large = ds::size_design(d);
+    CHECK(large.entry.ballistic_coefficient_kg_m2 < small.entry.ballistic_coefficient_kg_m2);
+    CHECK(*large.parachute.deploy_altitude_m > *small.parachute.deploy_altitude_m);
+}
+
+TEST_CASE("a limit set in the design changes the check (peak deceleration over a 5 g payload)") {
+    ds::Design d = sample("small-ballistic-station");
+    d.limits.peak_deceleration_max_g = 5.0;
+    const ds::Results r = ds::size_design(d);
+    const ds::Check* c = find_check(r, "peak_deceleration");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->limit == 5.0);
+}
+
+TEST_CASE("radiative heating is reported for an Earth return at 11 km/s and absent for Venus") {
+    const ds::Results earth = ds::size_design(sample("earth-return-capsule"));
+    REQUIRE(earth.entry.peak_radiative_heat_flux_W_cm2);
+    CHECK(*earth.entry.peak_radiative_heat_flux_W_cm2 > 0.0);
+    CHECK(*earth.entry.peak_radiative_heat_flux_W_cm2 < earth.entry.peak_heat_flux_W_cm2);
+    ds::Design venus = sample("small-ballistic-station");
+    venus.body.preset = "venus";
+    venus.body.body = *ds::body_preset("venus");
+    venus.atmosphere.model = ds::AtmosphereModel::standard;
+    venus.entry.interface_altitude_m = 200000.0;
+    venus.entry.velocity_m_s = 10500.0;
+    venus.parachute.trigger_value = 0.8;
+    venus.site.elevation_m = 0.0;
+    const ds::Results r = ds::size_design(venus);
+    CHECK_FALSE(r.entry.peak_radiative_heat_flux_W_cm2);
+    CHECK(r.entry.peak_heat_flux_W_cm2 > 0.0);
+}
+
+TEST_CASE("the heat-shield TPS estimate is the Laub-Venkatapathy fraction of the entry mass") {
+    const ds::Results r = ds::size_design(sample("small-ballistic-station"));
+    // 0.091 Q^0.51575 % (Laub and Venkatapathy 2003; from memory).
+    CHECK(r.entry.heat_shield_mass_fraction ==
+          doctest::Approx(0.00091 * std::pow(r.entry.heat_load_J_cm2 +
+                                                 r.entry.radiative_heat_load_J_cm2.value_or(0.0),
+                                             0.51575))
+              .epsilon(1e-12));
+    CHECK(r.entry.heat_shield_tps_kg ==
+          doctest::Approx(560.0 * r.entry.heat_shield_mass_fraction).epsilon(1e-12));
+}
