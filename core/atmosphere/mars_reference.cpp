@@ -53,19 +53,34 @@ MarsReferenceAtmosphere::MarsReferenceAtmosphere(double gas_constant_J_kgK, doub
     : Atmosphere(gas_constant_J_kgK, gamma, density_scale) {}
 
 Atmosphere::Profile MarsReferenceAtmosphere::profile(double altitude_m) const {
-    if (altitude_m <= join_altitude_m) {
-        const FitState fit = glenn_fit(altitude_m);
-        return {fit.density_kg_m3, fit.temperature_K};
-    }
     // Isothermal hydrostatic continuation at the join temperature, with the fit's own gas
     // constant: rho = rho_join exp(-(h - h_join) / H), H = R T_join / g (about 8.3 km).
-    // Continuous in density and temperature at the join; d(ln rho)/dh is not (the fit's own
-    // is -7.6e-5 /m there, this -1.2e-4 /m).
     const FitState join = glenn_fit(join_altitude_m);
     const double scale_height_m =
         fit_gas_constant_J_kgK * join.temperature_K / mars_surface_gravity_m_s2;
-    return {join.density_kg_m3 * std::exp(-(altitude_m - join_altitude_m) / scale_height_m),
-            join.temperature_K};
+    const auto continuation = [&](double h) {
+        return FitState{join.density_kg_m3 * std::exp(-(h - join_altitude_m) / scale_height_m),
+                        join.temperature_K};
+    };
+    const double below = join_altitude_m - blend_half_width_m;
+    const double above = join_altitude_m + blend_half_width_m;
+    if (altitude_m <= below) {
+        const FitState fit = glenn_fit(altitude_m);
+        return {fit.density_kg_m3, fit.temperature_K};
+    }
+    if (altitude_m >= above) {
+        const FitState iso = continuation(altitude_m);
+        return {iso.density_kg_m3, iso.temperature_K};
+    }
+    // The two agree at the join but their d(ln rho)/dh does not (-7.6e-5 /m against
+    // -1.2e-4 /m). A smoothstep blend of ln rho and T across the band keeps the slope
+    // continuous, so no peak of heating or deceleration settles on a kink of the model.
+    const double x = (altitude_m - below) / (above - below);
+    const double w = x * x * (3.0 - 2.0 * x);
+    const FitState fit = glenn_fit(altitude_m);
+    const FitState iso = continuation(altitude_m);
+    return {std::exp((1.0 - w) * std::log(fit.density_kg_m3) + w * std::log(iso.density_kg_m3)),
+            (1.0 - w) * fit.temperature_K + w * iso.temperature_K};
 }
 
 }  // namespace ds

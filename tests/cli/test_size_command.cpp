@@ -1,0 +1,144 @@
+// The `size` command as a user runs it: the binary, its exit codes and what it prints.
+
+#include <sys/wait.h>
+
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <functional>
+#include <sstream>
+#include <string>
+
+#include <doctest/doctest.h>
+#include <nlohmann/json.hpp>
+
+namespace fs = std::filesystem;
+
+namespace {
+
+struct Run {
+    int exit_code = -1;
+    std::string out;
+    std::string err;
+};
+
+std::string slurp(const fs::path& file) {
+    std::ifstream in(file);
+    std::stringstream text;
+    text << in.rdbuf();
+    return text.str();
+}
+
+Run run(const std::string& arguments) {
+    const fs::path dir = fs::temp_directory_path() / "descent-sizer-cli-test";
+    fs::create_directories(dir);
+    const fs::path out = dir / "stdout.txt";
+    const fs::path err = dir / "stderr.txt";
+    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments +
+                                " >'" + out.string() + "' 2>'" + err.string() + "'";
+    const int status = std::system(command.c_str());
+    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, slurp(out), slurp(err)};
+}
+
+std::string sample(const std::string& name) {
+    return std::string("'") + DESCENT_SIZER_SAMPLES_DIR + "/" + name + ".json'";
+}
+
+/// The small station sample with one change, written to a temporary file.
+std::string variant(const std::string& name, const std::function<void(nlohmann::json&)>& edit) {
+    nlohmann::json doc = nlohmann::json::parse(
+        slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json"));
+    edit(doc);
+    const fs::path file = fs::temp_directory_path() / ("descent-sizer-" + name + ".json");
+    std::ofstream(file) << doc.dump(2);
+    return "'" + file.string() + "'";
+}
+
+}  // namespace
+
+TEST_CASE("size prints a summary with units and the caution, and exits 0") {
+    const Run r = run("size " + sample("small-ballistic-station"));
+    CHECK(r.exit_code == 0);
+    CHECK(r.out.find("Checks (failing first)") != std::string::npos);
+    CHECK(r.out.find("kg/m^2") != std::string::npos);
+    CHECK(r.out.find("W/cm^2") != std::string::npos);
+    CHECK(r.out.find("Conceptual sizing estimates") != std::string::npos);
+    CHECK(r.err.empty());
+}
+
+TEST_CASE("size --json prints a results document with the contract's keys") {
+    for (const char* name :
+         {"small-ballistic-station", "lifting-rover-carrier", "earth-return-capsule"}) {
+        CAPTURE(name);
+        const Run r = run("size --json " + sample(name));
+        REQUIRE(r.exit_code == 0);
+        const nlohmann::json doc = nlohmann::json::parse(r.out);
+        CHECK(doc["format"] == "descent-sizer/results");
+        CHECK(doc["version"] == 1);
+        CHECK(doc["converged"] == true);
+        for (const char* key : {"mass_kg", "diameter_m", "drag_coefficient",
+                                "ballistic_coefficient_kg_m2", "peak_deceleration_g",
+                                "peak_heat_flux_W_cm2", "heat_load_J_cm2",
+                                "peak_dynamic_pressure_Pa"}) {
+            CHECK(doc["entry"].contains(key));
+        }
+        CHECK(doc["parachute"]["deploy_mach"].is_number());
+        CHECK(doc["checks"].is_array());
+        CHECK_FALSE(doc.contains("history"));
+    }
+}
+
+TEST_CASE("size --json --history adds the trajectory samples") {
+    const Run r = run("size --json --history " + sample("small-ballistic-station"));
+    REQUIRE(r.exit_code == 0);
+    const nlohmann::json doc = nlohmann::json::parse(r.out);
+    REQUIRE(doc["history"].is_array());
+    CHECK(doc["history"].size() > 10);
+    CHECK(doc["history"][0]["altitude_m"] == 125000.0);
+}
+
+TEST_CASE("a negative entry velocity exits 2 naming the key's path") {
+    const Run r = run("size " + variant("negative-velocity", [](nlohmann::json& d) {
+                          d["entry"]["velocity_m_s"] = -5600;
+                      }));
+    CHECK(r.exit_code == 2);
+    CHECK(r.err.find("entry.velocity_m_s") != std::string::npos);
+    CHECK(r.out.empty());
+}
+
+TEST_CASE("an unknown key exits 2 naming it") {
+    const Run r = run("size " + variant("unknown-key", [](nlohmann::json& d) {
+                          d["aeroshell"]["colour"] = "red";
+                      }));
+    CHECK(r.exit_code == 2);
+    CHECK(r.err.find("aeroshell.colour") != std::string::npos);
+}
+
+TEST_CASE("a newer version exits 2 and says so") {
+    const Run r = run("size " + variant("newer", [](nlohmann::json& d) { d["version"] = 2; }));
+    CHECK(r.exit_code == 2);
+    CHECK(r.err.find("version") != std::string::npos);
+}
+
+TEST_CASE("text that is not JSON exits 2 with a line number") {
+    const fs::path file = fs::temp_directory_path() / "descent-sizer-not-json.json";
+    std::ofstream(file) << "{\n  \"format\": \"descent-sizer/design\",\n  oops\n}\n";
+    const Run r = run("size '" + file.string() + "'");
+    CHECK(r.exit_code == 2);
+    CHECK(r.err.find("line 3") != std::string::npos);
+}
+
+TEST_CASE("a design that hits the ground before its trigger still sizes (exit 0) and fails a check") {
+    const Run r = run("size " + variant("never-deploys", [](nlohmann::json& d) {
+                          d["parachute"]["deploy_mach"] = 0.2;
+                      }));
+    CHECK(r.exit_code == 0);
+    CHECK(r.out.find("FAIL") != std::string::npos);
+    CHECK(r.out.find("reaches the ground at") != std::string::npos);
+}
+
+TEST_CASE("a missing design file is refused with a non-zero exit") {
+    const Run r = run("size /nonexistent/design.json");
+    CHECK(r.exit_code != 0);
+    CHECK_FALSE(r.err.empty());
+}
