@@ -1,1 +1,158 @@
-// placeholder: being written
+#include "results/writer.hpp"
+
+#include <cmath>
+
+namespace ds {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+/// A number, or null when it is not finite: JSON has no NaN or infinity, and a figure that
+/// could not be computed must not pass for one.
+Json number(double value) {
+    return std::isfinite(value) ? Json(value) : Json(nullptr);
+}
+
+/// An absent figure is null: the key is always there, so readers need not guess.
+Json number(const std::optional<double>& value) {
+    return value ? number(*value) : Json(nullptr);
+}
+
+Json entry_to_json(const EntryResults& entry) {
+    Json out;
+    out["mass_kg"] = number(entry.mass_kg);
+    out["diameter_m"] = number(entry.diameter_m);
+    out["nose_radius_m"] = number(entry.nose_radius_m);
+    out["drag_coefficient"] = number(entry.drag_coefficient);
+    out["drag_coefficient_source"] = entry.drag_coefficient_source;
+    out["ballistic_coefficient_kg_m2"] = number(entry.ballistic_coefficient_kg_m2);
+    out["peak_deceleration_g"] = number(entry.peak_deceleration_g);
+    out["peak_deceleration_altitude_m"] = number(entry.peak_deceleration_altitude_m);
+    out["peak_heat_flux_W_cm2"] = number(entry.peak_heat_flux_W_cm2);
+    out["peak_heat_flux_altitude_m"] = number(entry.peak_heat_flux_altitude_m);
+    out["heat_load_J_cm2"] = number(entry.heat_load_J_cm2);
+    out["peak_radiative_heat_flux_W_cm2"] = number(entry.peak_radiative_heat_flux_W_cm2);
+    out["radiative_heat_load_J_cm2"] = number(entry.radiative_heat_load_J_cm2);
+    out["peak_dynamic_pressure_Pa"] = number(entry.peak_dynamic_pressure_Pa);
+    out["peak_dynamic_pressure_altitude_m"] = number(entry.peak_dynamic_pressure_altitude_m);
+    out["heat_shield_mass_fraction"] = number(entry.heat_shield_mass_fraction);
+    out["heat_shield_tps_kg"] = number(entry.heat_shield_tps_kg);
+    return out;
+}
+
+Json parachute_to_json(const ParachuteResults& parachute) {
+    Json out;
+    out["deployed"] = parachute.deployed;
+    out["deploy_time_s"] = number(parachute.deploy_time_s);
+    out["deploy_altitude_m"] = number(parachute.deploy_altitude_m);
+    out["deploy_mach"] = number(parachute.deploy_mach);
+    out["deploy_dynamic_pressure_Pa"] = number(parachute.deploy_dynamic_pressure_Pa);
+    out["deploy_velocity_m_s"] = number(parachute.deploy_velocity_m_s);
+    out["diameter_m"] = number(parachute.diameter_m);
+    out["drag_coefficient"] = number(parachute.drag_coefficient);
+    out["opening_load_N"] = number(parachute.opening_load_N);
+    return out;
+}
+
+Json terminal_to_json(const TerminalResults& terminal) {
+    Json out;
+    out["method"] = terminal.method;
+    out["ignition_altitude_m"] = number(terminal.ignition_altitude_m);
+    out["ignition_velocity_m_s"] = number(terminal.ignition_velocity_m_s);
+    out["delta_v_m_s"] = number(terminal.delta_v_m_s);
+    out["gravity_loss_m_s"] = number(terminal.gravity_loss_m_s);
+    out["propellant_kg"] = number(terminal.propellant_kg);
+    out["burn_time_s"] = number(terminal.burn_time_s);
+    return out;
+}
+
+Json timeline_to_json(const Timeline& timeline) {
+    Json events = Json::array();
+    for (const auto& event : timeline.events) {
+        Json item;
+        item["name"] = event.name;
+        item["time_s"] = number(event.time_s);
+        item["altitude_m"] = number(event.altitude_m);
+        item["velocity_m_s"] = number(event.velocity_m_s);
+        events.push_back(std::move(item));
+    }
+    Json out;
+    out["events"] = std::move(events);
+    out["margin_s"] = number(timeline.margin_s);
+    return out;
+}
+
+Json mass_to_json(const MassResults& mass) {
+    Json items = Json::array();
+    for (const auto& item : mass.items) {
+        Json entry;
+        entry["name"] = item.name;
+        entry["mass_kg"] = number(item.mass_kg);
+        items.push_back(std::move(entry));
+    }
+    Json out;
+    out["entry_kg"] = number(mass.entry_kg);
+    out["landed_kg"] = number(mass.landed_kg);
+    out["items"] = std::move(items);
+    return out;
+}
+
+Json checks_to_json(const std::vector<Check>& checks) {
+    Json out = Json::array();
+    for (const auto& check : checks) {
+        Json item;
+        item["id"] = check.id;
+        item["status"] = to_string(check.status);
+        item["value"] = number(check.value);
+        item["limit"] = number(check.limit);
+        item["unit"] = check.unit;
+        item["message"] = check.message;
+        item["source"] = check.source;
+        out.push_back(std::move(item));
+    }
+    return out;
+}
+
+Json history_to_json(const std::vector<TrajectorySample>& history) {
+    Json out = Json::array();
+    for (const auto& sample : history) {
+        Json item;
+        item["time_s"] = number(sample.time_s);
+        item["altitude_m"] = number(sample.altitude_m);
+        item["downrange_m"] = number(sample.downrange_m);
+        item["velocity_m_s"] = number(sample.velocity_m_s);
+        item["flight_path_angle_deg"] = number(sample.flight_path_angle_deg);
+        item["mach"] = number(sample.mach);
+        item["dynamic_pressure_Pa"] = number(sample.dynamic_pressure_Pa);
+        item["deceleration_g"] = number(sample.deceleration_g);
+        item["heat_flux_W_cm2"] = number(sample.heat_flux_W_cm2);
+        item["radiative_heat_flux_W_cm2"] = number(sample.radiative_heat_flux_W_cm2);
+        out.push_back(std::move(item));
+    }
+    return out;
+}
+
+}  // namespace
+
+nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptions options) {
+    Json out;
+    out["format"] = results_format_id;
+    out["version"] = results_format_version;
+    out["converged"] = results.converged;
+    out["entry"] = entry_to_json(results.entry);
+    out["parachute"] = parachute_to_json(results.parachute);
+    out["terminal"] = terminal_to_json(results.terminal);
+    out["timeline"] = timeline_to_json(results.timeline);
+    out["mass"] = mass_to_json(results.mass);
+    out["checks"] = checks_to_json(results.checks);
+    out["notes"] = results.notes;
+    if (options.include_history)
+        out["history"] = history_to_json(results.history);
+    return out;
+}
+
+std::string write_results(const Results& results, ResultsWriteOptions options) {
+    return results_to_json(results, options).dump(2) + "\n";
+}
+
+}  // namespace ds

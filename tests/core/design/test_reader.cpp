@@ -1,1 +1,623 @@
-// placeholder: being written
+#include <doctest/doctest.h>
+
+#include <filesystem>
+#include <fstream>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "body/body.hpp"
+#include "design/reader.hpp"
+
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+// The design example of design-file.md, word for word.
+constexpr std::string_view contract_example = R"({
+  "format": "descent-sizer/design",
+  "version": 1,
+  "name": "free text",
+  "body": "mars",
+  "atmosphere": { "model": "exponential",
+                  "surface_density_kg_m3": 0.020, "scale_height_m": 11100,
+                  "temperature_K": 210, "gas_constant_J_kgK": 188.9, "gamma": 1.29 },
+  "site":  { "elevation_m": -1000 },
+  "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
+             "flight_path_angle_deg": -13.0, "lift_to_drag": 0.0, "bank_angle_deg": 0.0 },
+  "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65,
+                 "drag_coefficient": 1.65 },
+  "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+  "parachute": { "type": "disk-gap-band", "diameter_m": 12.0, "drag_coefficient": 0.55,
+                 "deploy_mach": 1.8 },
+  "terminal": { "method": "retro", "isp_s": 220, "thrust_to_weight": 2.5,
+                "touchdown_velocity_m_s": 2.0 }
+})";
+
+Json baseline() {
+    return Json::parse(contract_example);
+}
+
+/// The baseline with one key set (added or replaced), by JSON pointer.
+Json with(Json document, const std::string& pointer, Json value) {
+    document[Json::json_pointer(pointer)] = std::move(value);
+    return document;
+}
+
+/// The baseline with one key taken out, by JSON pointer.
+Json without(Json document, const std::string& pointer) {
+    const Json::json_pointer key(pointer);
+    document[key.parent_pointer()].erase(key.back());
+    return document;
+}
+
+ds::DesignReadResult read(const Json& document, const std::filesystem::path& base = {}) {
+    return ds::read_design(document.dump(), base);
+}
+
+std::string error_list(const ds::DesignReadResult& result) {
+    std::string text;
+    for (const auto& error : result.errors)
+        text += error.text() + "\n";
+    return text;
+}
+
+/// True when an error sits at exactly this path and its message holds the fragment.
+bool has_error(const ds::DesignReadResult& result, std::string_view path,
+               std::string_view fragment) {
+    for (const auto& error : result.errors) {
+        if (error.path == path && error.message.find(fragment) != std::string::npos)
+            return true;
+    }
+    return false;
+}
+
+/// A scratch folder for files a test writes, removed when the test ends.
+class ScratchFolder {
+public:
+    explicit ScratchFolder(std::string_view name)
+        : path_(std::filesystem::temp_directory_path() /
+                ("descent_sizer_test_reader_" + std::string(name))) {
+        std::filesystem::remove_all(path_);
+        std::filesystem::create_directories(path_);
+    }
+    ~ScratchFolder() {
+        std::error_code ignored;
+        std::filesystem::remove_all(path_, ignored);
+    }
+    ScratchFolder(const ScratchFolder&) = delete;
+    ScratchFolder& operator=(const ScratchFolder&) = delete;
+
+    std::filesystem::path write(const std::string& relative, const std::string& text) const {
+        const auto file = path_ / relative;
+        std::filesystem::create_directories(file.parent_path());
+        std::ofstream(file) << text;
+        return file;
+    }
+
+private:
+    std::filesystem::path path_;
+};
+
+/// A table atmosphere around Mars-like values, from -2 km to 130 km.
+Json table_rows() {
+    return Json::array({
+        {{"altitude_m", -2000}, {"density_kg_m3", 0.024}, {"temperature_K", 215}},
+        {{"altitude_m", 40000}, {"density_kg_m3", 0.0008}, {"temperature_K", 180}},
+        {{"altitude_m", 130000}, {"density_kg_m3", 1e-8}, {"temperature_K", 140}},
+    });
+}
+
+Json table_atmosphere(Json rows) {
+    return {{"model", "table"}, {"rows", std::move(rows)}};
+}
+
+}  // namespace
+
+TEST_CASE("the design example of design-file.md reads with the values it states") {
+    const auto result = ds::read_design(contract_example);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    REQUIRE(result.errors.empty());
+    const ds::Design& d = *result.design;
+    CHECK(d.version == 1);
+    CHECK(d.name == "free text");
+    CHECK(d.body.preset == "mars");
+    CHECK(d.body.body.radius_m == ds::body_preset("mars")->radius_m);
+    CHECK(d.atmosphere.model == ds::AtmosphereModel::exponential);
+    CHECK(d.atmosphere.surface_density_kg_m3 == 0.020);
+    CHECK(d.atmosphere.scale_height_m == 11100.0);
+    CHECK(d.atmosphere.temperature_K == 210.0);
+    CHECK(d.atmosphere.gas_constant_J_kgK == 188.9);
+    CHECK(d.atmosphere.gamma == 1.29);
+    CHECK(d.atmosphere.density_scale == 1.0);
+    CHECK(d.site.elevation_m == -1000.0);
+    CHECK(d.entry.interface_altitude_m == 125000.0);
+    CHECK(d.entry.velocity_m_s == 5600.0);
+    CHECK(d.entry.flight_path_angle_deg == -13.0);
+    CHECK(d.aeroshell.diameter_m == 2.6);
+    CHECK_FALSE(d.aeroshell.size_for_ballistic_coefficient_kg_m2.has_value());
+    CHECK(d.aeroshell.half_angle_deg == 70.0);
+    CHECK(d.aeroshell.nose_radius_m == 0.65);
+    CHECK(d.aeroshell.drag_coefficient == 1.65);
+    CHECK(d.mass.entry_kg == 560.0);
+    CHECK(d.mass.heat_shield_kg == 60.0);
+    CHECK(d.parachute.type == "disk-gap-band");
+    CHECK(d.parachute.diameter_m == 12.0);
+    CHECK(d.parachute.drag_coefficient == 0.55);
+    CHECK(d.parachute.trigger == ds::TriggerKind::mach);
+    CHECK(d.parachute.trigger_value == 1.8);
+    CHECK(d.terminal.method == ds::TerminalMethod::retro);
+    CHECK(d.terminal.isp_s == 220.0);
+    CHECK(d.terminal.thrust_to_weight == 2.5);
+    CHECK(d.terminal.touchdown_velocity_m_s == 2.0);
+    // Absent sections keep their defaults.
+    CHECK(d.limits.peak_deceleration_max_g == ds::Limits{}.peak_deceleration_max_g);
+    CHECK(d.solver.max_steps == ds::SolverDesign{}.max_steps);
+}
+
+TEST_CASE("optional keys left out take the defaults of the design structs") {
+    Json document = without(baseline(), "/entry/lift_to_drag");
+    document = without(document, "/entry/bank_angle_deg");
+    document = without(document, "/aeroshell/half_angle_deg");
+    document = without(document, "/aeroshell/drag_coefficient");
+    document = without(document, "/mass/heat_shield_kg");
+    document = without(document, "/parachute/drag_coefficient");
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    CHECK(result.design->entry.lift_to_drag == 0.0);
+    CHECK(result.design->entry.bank_angle_deg == 0.0);
+    CHECK(result.design->aeroshell.half_angle_deg == 70.0);
+    CHECK_FALSE(result.design->aeroshell.drag_coefficient.has_value());
+    CHECK(result.design->mass.heat_shield_kg == 0.0);
+    CHECK_FALSE(result.design->parachute.drag_coefficient.has_value());
+}
+
+TEST_CASE("a missing key is reported at its path as missing") {
+    const auto result = read(without(baseline(), "/entry/velocity_m_s"));
+    REQUIRE_FALSE(result.ok());
+    REQUIRE(result.errors.size() == 1);
+    CHECK(result.errors[0].path == "entry.velocity_m_s");
+    CHECK(result.errors[0].message == "missing");
+    CHECK(result.errors[0].text() == "entry.velocity_m_s: missing");
+}
+
+TEST_CASE("a value of the wrong type names the type it got") {
+    const auto number = read(with(baseline(), "/entry/velocity_m_s", "fast"));
+    INFO(error_list(number));
+    CHECK(has_error(number, "entry.velocity_m_s", "must be a number, got string"));
+    CHECK(number.errors[0].text() == "entry.velocity_m_s: must be a number, got string");
+
+    const auto string = read(with(baseline(), "/name", 42));
+    CHECK(has_error(string, "name", "must be a string, got number"));
+
+    const auto object = read(with(baseline(), "/entry", Json::array()));
+    CHECK(has_error(object, "entry", "must be an object, got array"));
+
+    const auto integer = read(with(baseline(), "/solver", {{"max_steps", 1.5}}));
+    CHECK(has_error(integer, "solver.max_steps", "must be an integer, got 1.5"));
+}
+
+TEST_CASE("numbers outside their range name the rule and the value") {
+    struct Case {
+        std::string pointer;
+        Json value;
+        std::string path;
+        std::string message;
+    };
+    const std::vector<Case> cases{
+        {"/entry/velocity_m_s", -5, "entry.velocity_m_s", "must be positive, got -5"},
+        {"/entry/flight_path_angle_deg", -95, "entry.flight_path_angle_deg",
+         "must be greater than -90 and less than 90, got -95"},
+        {"/entry/lift_to_drag", 5, "entry.lift_to_drag", "must be at least 0 and less than 5"},
+        {"/entry/bank_angle_deg", 200, "entry.bank_angle_deg", "at most 180, got 200"},
+        {"/aeroshell/half_angle_deg", 90, "aeroshell.half_angle_deg", "less than 90, got 90"},
+        {"/aeroshell/drag_coefficient", 0, "aeroshell.drag_coefficient", "must be positive"},
+        {"/mass/heat_shield_kg", -1, "mass.heat_shield_kg", "must not be negative, got -1"},
+        {"/mass/entry_kg", 0, "mass.entry_kg", "must be positive, got 0"},
+        {"/atmosphere/density_scale", 0, "atmosphere.density_scale", "must be positive"},
+        {"/atmosphere/gamma", 1.0, "atmosphere.gamma", "must be greater than 1, got 1"},
+        {"/terminal/isp_s", 0, "terminal.isp_s", "must be positive"},
+        {"/terminal/thrust_to_weight", 1.0, "terminal.thrust_to_weight", "greater than 1"},
+        {"/terminal/touchdown_velocity_m_s", 0, "terminal.touchdown_velocity_m_s",
+         "must be positive"},
+        {"/version", 0, "version", "must be at least 1, got 0"},
+        {"/solver/relative_tolerance", 1e-2, "solver.relative_tolerance",
+         "must be at least 1e-14 and at most 0.001, got 0.01"},
+        {"/solver/max_time_s", -1, "solver.max_time_s", "must be positive"},
+        {"/solver/max_steps", 0, "solver.max_steps",
+         "must be greater than 0 and at most 2147483647, got 0"},
+        {"/limits/marginal_band", 1.5, "limits.marginal_band", "less than 1"},
+    };
+    for (const auto& c : cases) {
+        CAPTURE(c.pointer);
+        const auto result = read(with(baseline(), c.pointer, c.value));
+        INFO(error_list(result));
+        CHECK_FALSE(result.ok());
+        CHECK(has_error(result, c.path, c.message));
+    }
+}
+
+TEST_CASE("an unknown key is reported at its path") {
+    Json document = with(baseline(), "/aeroshell/colour", "red");
+    document = with(document, "/speed_m_s", 3);
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.errors.size() == 2);
+    CHECK(has_error(result, "aeroshell.colour", "unknown key"));
+    CHECK(result.errors[0].text() == "aeroshell.colour: unknown key");
+    CHECK(has_error(result, "speed_m_s", "unknown key"));
+}
+
+TEST_CASE("a key given twice in one object is an error, not a silent choice") {
+    std::string text(contract_example);
+    const std::string site = R"("site":  { "elevation_m": -1000 })";
+    text.replace(text.find(site), site.size(),
+                 R"("site":  { "elevation_m": -1000, "elevation_m": -3000 })");
+    const auto result = ds::read_design(text);
+    INFO(error_list(result));
+    REQUIRE(result.errors.size() == 1);
+    CHECK(has_error(result, "site.elevation_m", "given more than once"));
+}
+
+TEST_CASE("every error of a document is reported, in the order of the document") {
+    Json document = with(baseline(), "/site/elevation_m", "low");
+    document = with(document, "/entry/velocity_m_s", -1);
+    document = with(document, "/aeroshell/colour", "red");
+    document = without(document, "/terminal/isp_s");
+    document = with(document, "/terminal/skids", true);
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.errors.size() == 5);
+    CHECK(result.errors[0].path == "site.elevation_m");
+    CHECK(result.errors[1].path == "entry.velocity_m_s");
+    CHECK(result.errors[2].path == "aeroshell.colour");
+    // Within one object, keys that are there come before keys that are missing.
+    CHECK(result.errors[3].path == "terminal.skids");
+    CHECK(result.errors[4].path == "terminal.isp_s");
+}
+
+TEST_CASE("JSON syntax errors give the line and column, with an empty path") {
+    const auto nan =
+        ds::read_design("{\n  \"format\": \"descent-sizer/design\",\n  \"version\": NaN\n}");
+    REQUIRE(nan.errors.size() == 1);
+    CHECK(nan.errors[0].path.empty());
+    CHECK(nan.errors[0].message.starts_with("line 3, column 14: "));
+    CHECK(nan.errors[0].text() == nan.errors[0].message);
+
+    const auto overflow = ds::read_design("{\n  \"version\": 1,\n  \"name\": 1e999\n}");
+    REQUIRE(overflow.errors.size() == 1);
+    CHECK(overflow.errors[0].path.empty());
+    CHECK(overflow.errors[0].message.starts_with("line 3, column 11: "));
+    CHECK(overflow.errors[0].message.find("not a finite number") != std::string::npos);
+
+    const auto truncated = ds::read_design(R"({"format": "descent-sizer/design",)");
+    REQUIRE(truncated.errors.size() == 1);
+    CHECK(truncated.errors[0].message.starts_with("line 1, column "));
+
+    const auto not_object = ds::read_design("[1, 2]");
+    REQUIRE(not_object.errors.size() == 1);
+    CHECK(not_object.errors[0].text() == "the document must be a JSON object, got array");
+}
+
+TEST_CASE("a document from a newer version is refused with that version named") {
+    Json document = with(baseline(), "/version", 2);
+    document = with(document, "/warp_drive", true);  // a newer key: not reported as unknown
+    const auto result = read(document);
+    REQUIRE(result.errors.size() == 1);
+    CHECK(result.errors[0].text() ==
+          "version: written by a newer version (2); this build reads version 1");
+}
+
+TEST_CASE("a document of another format is refused, and so is one without a version") {
+    const auto results = read(with(baseline(), "/format", "descent-sizer/results"));
+    REQUIRE(results.errors.size() == 1);
+    CHECK(has_error(results, "format", "must be \"descent-sizer/design\""));
+
+    const auto unversioned = read(without(baseline(), "/version"));
+    CHECK(has_error(unversioned, "version", "missing"));
+}
+
+TEST_CASE("a body is a preset name or an object; unknown presets list the names") {
+    const auto venus = read(with(baseline(), "/body", "venus"));
+    REQUIRE(venus.ok());
+    CHECK(venus.design->body.preset == "venus");
+    CHECK(venus.design->body.body.mu_m3_s2 == ds::body_preset("venus")->mu_m3_s2);
+
+    const auto unknown = read(with(baseline(), "/body", "vulcan"));
+    CHECK(has_error(unknown, "body", "unknown body \"vulcan\""));
+    CHECK(has_error(unknown, "body", "mars, earth, venus, titan"));
+
+    const auto number = read(with(baseline(), "/body", 3));
+    CHECK(has_error(number, "body", "must be a preset name or an object, got number"));
+
+    const Json custom{{"name", "test sphere"},       {"radius_m", 1.0e6},
+                      {"mu_m3_s2", 1.0e12},          {"rotation_rad_s", 1e-5},
+                      {"gas_constant_J_kgK", 290.0}, {"gamma", 1.4},
+                      {"sutton_graves_k", 1.8e-4}};
+    const auto read_custom = read(with(baseline(), "/body", custom));
+    INFO(error_list(read_custom));
+    REQUIRE(read_custom.ok());
+    const ds::BodyDesign& body = read_custom.design->body;
+    CHECK(body.preset.empty());
+    CHECK(body.body.name == "test sphere");
+    CHECK(body.body.radius_m == 1.0e6);
+    CHECK(body.body.mu_m3_s2 == 1.0e12);
+    CHECK(body.body.rotation_rad_s == 1e-5);
+    CHECK(body.body.gas.gas_constant_J_kgK == 290.0);
+    CHECK(body.body.gas.gamma == 1.4);
+    CHECK(body.body.gas.sutton_graves_k == 1.8e-4);
+}
+
+TEST_CASE("a custom body without its gas names each missing gas key") {
+    const Json custom{{"name", "bare"}, {"radius_m", 1.0e6}, {"mu_m3_s2", 1.0e12}};
+    Json document = with(baseline(), "/body", custom);
+    document = without(document, "/atmosphere/gas_constant_J_kgK");
+    document = without(document, "/atmosphere/gamma");
+    const auto bare = read(document);
+    INFO(error_list(bare));
+    CHECK(bare.errors.size() == 3);
+    CHECK(has_error(bare, "body.gas_constant_J_kgK", "missing"));
+    CHECK(has_error(bare, "body.gamma", "missing"));
+    CHECK(has_error(bare, "body.sutton_graves_k", "missing"));
+
+    // The atmosphere may carry the gas constant and gamma; the heating constant stays the body's.
+    const auto with_gas = read(with(baseline(), "/body", custom));
+    REQUIRE(with_gas.errors.size() == 1);
+    CHECK(has_error(with_gas, "body.sutton_graves_k", "missing"));
+}
+
+TEST_CASE("the standard atmosphere needs a preset body") {
+    const Json standard{{"model", "standard"}};
+    const auto earth = read(with(with(baseline(), "/atmosphere", standard), "/body", "earth"));
+    INFO(error_list(earth));
+    REQUIRE(earth.ok());
+    CHECK(earth.design->atmosphere.model == ds::AtmosphereModel::standard);
+    CHECK_FALSE(earth.design->atmosphere.gamma.has_value());
+
+    const Json custom{{"name", "c"},        {"radius_m", 1.0e6},
+                      {"mu_m3_s2", 1.0e12}, {"gas_constant_J_kgK", 290.0},
+                      {"gamma", 1.4},       {"sutton_graves_k", 1.8e-4}};
+    const auto result = read(with(with(baseline(), "/atmosphere", standard), "/body", custom));
+    REQUIRE(result.errors.size() == 1);
+    CHECK(has_error(result, "atmosphere.model", "needs a preset body"));
+}
+
+TEST_CASE("atmosphere keys of another model are unknown for this one; unknown models are listed") {
+    const auto rows = read(with(baseline(), "/atmosphere/rows", table_rows()));
+    REQUIRE(rows.errors.size() == 1);
+    CHECK(has_error(rows, "atmosphere.rows", "unknown key for the \"exponential\" model"));
+
+    Json table = table_atmosphere(table_rows());
+    table["scale_height_m"] = 11100;
+    const auto scale = read(with(baseline(), "/atmosphere", table));
+    REQUIRE(scale.errors.size() == 1);
+    CHECK(has_error(scale, "atmosphere.scale_height_m", "unknown key for the \"table\" model"));
+
+    const auto model = read(with(baseline(), "/atmosphere/model", "isothermal"));
+    REQUIRE(model.errors.size() == 1);
+    CHECK(has_error(model, "atmosphere.model",
+                    "unknown model \"isothermal\"; expected one of: exponential, table, standard"));
+}
+
+TEST_CASE("a table atmosphere reads its rows from the document") {
+    const auto result = read(with(baseline(), "/atmosphere", table_atmosphere(table_rows())));
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    const auto& atmosphere = result.design->atmosphere;
+    CHECK(atmosphere.model == ds::AtmosphereModel::table);
+    REQUIRE(atmosphere.rows.size() == 3);
+    CHECK(atmosphere.rows[1].altitude_m == 40000.0);
+    CHECK(atmosphere.rows[1].density_kg_m3 == 0.0008);
+    CHECK(atmosphere.rows[1].temperature_K == 180.0);
+    CHECK(atmosphere.csv_file.empty());
+}
+
+TEST_CASE("table rows must rise in altitude, be at least two, and come one way only") {
+    Json unordered = table_rows();
+    unordered[2]["altitude_m"] = 30000;
+    const auto order = read(with(baseline(), "/atmosphere", table_atmosphere(unordered)));
+    REQUIRE(order.errors.size() == 1);
+    CHECK(has_error(order, "atmosphere.rows[2].altitude_m",
+                    "must be above the previous row's altitude (40000 m), got 30000"));
+
+    Json one = Json::array({table_rows()[0]});
+    const auto single = read(with(baseline(), "/atmosphere", table_atmosphere(one)));
+    CHECK(has_error(single, "atmosphere.rows", "at least 2 rows, got 1"));
+
+    Json bad_row = table_rows();
+    bad_row[1]["density_kg_m3"] = -1;
+    bad_row[1]["pressure_Pa"] = 100;
+    const auto row = read(with(baseline(), "/atmosphere", table_atmosphere(bad_row)));
+    CHECK(has_error(row, "atmosphere.rows[1].density_kg_m3", "must be positive"));
+    CHECK(has_error(row, "atmosphere.rows[1].pressure_Pa", "unknown key"));
+
+    Json both = table_atmosphere(table_rows());
+    both["csv_file"] = "table.csv";
+    CHECK(has_error(read(with(baseline(), "/atmosphere", both)), "atmosphere", "not both"));
+    const auto neither = read(with(baseline(), "/atmosphere", {{"model", "table"}}));
+    CHECK(has_error(neither, "atmosphere", "needs rows"));
+}
+
+TEST_CASE("a table must cover the flight from the site to the entry interface") {
+    Json rows = table_rows();
+    rows[0]["altitude_m"] = 0;       // above the site at -1000 m
+    rows[2]["altitude_m"] = 100000;  // below the interface at 125000 m
+    const auto result = read(with(baseline(), "/atmosphere", table_atmosphere(rows)));
+    INFO(error_list(result));
+    REQUIRE(result.errors.size() == 1);
+    CHECK(has_error(result, "atmosphere.rows", "-1000 m (site elevation) to 0 m"));
+    CHECK(has_error(result, "atmosphere.rows", "100000 m to 125000 m (entry interface)"));
+
+    // Exactly covering both ends is enough.
+    rows[0]["altitude_m"] = -1000;
+    rows[2]["altitude_m"] = 125000;
+    CHECK(read(with(baseline(), "/atmosphere", table_atmosphere(rows))).ok());
+}
+
+TEST_CASE("a table read from a CSV file beside the design file") {
+    const ScratchFolder folder("csv");
+    folder.write("tables/profile.csv",
+                 "# test profile\n"
+                 "altitude_m,density_kg_m3,temperature_K\n"
+                 "-2000,0.024,215\n"
+                 "40000,0.0008,180\n"
+                 "130000,1e-8,140\n");
+    const Json atmosphere{{"model", "table"}, {"csv_file", "tables/profile.csv"}};
+    const auto design_file =
+        folder.write("design.json", with(baseline(), "/atmosphere", atmosphere).dump());
+    const auto result = ds::read_design_file(design_file);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    CHECK(result.design->atmosphere.csv_file == "tables/profile.csv");
+    REQUIRE(result.design->atmosphere.rows.size() == 3);
+    CHECK(result.design->atmosphere.rows[2].altitude_m == 130000.0);
+    CHECK(result.design->atmosphere.rows[0].density_kg_m3 == 0.024);
+
+    const Json missing{{"model", "table"}, {"csv_file", "tables/absent.csv"}};
+    const auto absent = read(with(baseline(), "/atmosphere", missing), design_file.parent_path());
+    CHECK(has_error(absent, "atmosphere.csv_file", "cannot open the file"));
+
+    folder.write("tables/falling.csv",
+                 "altitude_m,density_kg_m3,temperature_K\n"
+                 "-2000,0.024,215\n"
+                 "130000,1e-8,140\n"
+                 "40000,0.0008,180\n");
+    const Json falling{{"model", "table"}, {"csv_file", "tables/falling.csv"}};
+    const auto order = read(with(baseline(), "/atmosphere", falling), design_file.parent_path());
+    INFO(error_list(order));
+    CHECK(has_error(order, "atmosphere.csv_file", "line 4: altitude_m must be above"));
+}
+
+TEST_CASE("diameters may be sizing requests in their object form") {
+    Json document =
+        with(baseline(), "/aeroshell/diameter_m", {{"size_for_ballistic_coefficient_kg_m2", 60}});
+    document = with(document, "/parachute/diameter_m",
+                    {{"size_for_velocity_m_s", 70}, {"at_height_above_site_m", 2000}});
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    const ds::Design& d = *result.design;
+    CHECK_FALSE(d.aeroshell.diameter_m.has_value());
+    CHECK(d.aeroshell.size_for_ballistic_coefficient_kg_m2 == 60.0);
+    CHECK_FALSE(d.parachute.diameter_m.has_value());
+    CHECK(d.parachute.size_for_velocity_m_s == 70.0);
+    CHECK(d.parachute.at_height_above_site_m == 2000.0);
+
+    const auto incomplete =
+        read(with(baseline(), "/parachute/diameter_m", {{"size_for_velocity_m_s", 70}, {"x", 1}}));
+    CHECK(has_error(incomplete, "parachute.diameter_m.at_height_above_site_m", "missing"));
+    CHECK(has_error(incomplete, "parachute.diameter_m.x", "unknown key"));
+
+    const auto text = read(with(baseline(), "/aeroshell/diameter_m", "big"));
+    CHECK(has_error(text, "aeroshell.diameter_m", "must be a number or a sizing request"));
+}
+
+TEST_CASE("the nose radius is at most half the aeroshell diameter") {
+    const auto result = read(with(baseline(), "/aeroshell/nose_radius_m", 1.4));
+    REQUIRE(result.errors.size() == 1);
+    CHECK(has_error(result, "aeroshell.nose_radius_m",
+                    "must be no more than half the diameter (1.3 m), got 1.4"));
+    CHECK(read(with(baseline(), "/aeroshell/nose_radius_m", 1.3)).ok());
+}
+
+TEST_CASE("the entry mass is required, and the heat shield is lighter than it") {
+    const auto result = read(without(baseline(), "/mass/entry_kg"));
+    REQUIRE(result.errors.size() == 1);
+    CHECK(result.errors[0].text() ==
+          "mass.entry_kg: required: sizing without a fixed entry mass (mass budget closure) is "
+          "not available yet");
+
+    const auto heavy = read(with(baseline(), "/mass/heat_shield_kg", 560));
+    CHECK(has_error(heavy, "mass.heat_shield_kg",
+                    "must be less than the entry mass (560 kg), got 560"));
+}
+
+TEST_CASE("the parachute takes exactly one deploy trigger, and a known type") {
+    const auto none = read(without(baseline(), "/parachute/deploy_mach"));
+    REQUIRE(none.errors.size() == 1);
+    CHECK(has_error(none, "parachute", "needs one deploy trigger"));
+
+    const auto two = read(with(baseline(), "/parachute/deploy_altitude_m", 10000));
+    REQUIRE(two.errors.size() == 1);
+    CHECK(has_error(two, "parachute", "one deploy trigger, got deploy_mach, deploy_altitude_m"));
+
+    const auto pressure = read(with(without(baseline(), "/parachute/deploy_mach"),
+                                    "/parachute/deploy_dynamic_pressure_Pa", 600));
+    REQUIRE(pressure.ok());
+    CHECK(pressure.design->parachute.trigger == ds::TriggerKind::dynamic_pressure);
+    CHECK(pressure.design->parachute.trigger_value == 600.0);
+
+    const auto altitude = read(
+        with(without(baseline(), "/parachute/deploy_mach"), "/parachute/deploy_altitude_m", -500));
+    REQUIRE(altitude.ok());
+    CHECK(altitude.design->parachute.trigger == ds::TriggerKind::altitude);
+    CHECK(altitude.design->parachute.trigger_value == -500.0);
+
+    const auto type = read(with(baseline(), "/parachute/type", "cross"));
+    CHECK(has_error(type, "parachute.type",
+                    "unknown type \"cross\"; expected one of: disk-gap-band, ringsail"));
+}
+
+TEST_CASE("a retro terminal needs its engine; the other methods do not") {
+    Json document = without(baseline(), "/terminal/isp_s");
+    document = without(document, "/terminal/thrust_to_weight");
+    const auto retro = read(document);
+    CHECK(retro.errors.size() == 2);
+    CHECK(has_error(retro, "terminal.isp_s", "missing"));
+    CHECK(has_error(retro, "terminal.thrust_to_weight", "missing"));
+
+    Json airbag = with(document, "/terminal/method", "airbag");
+    airbag = without(airbag, "/terminal/touchdown_velocity_m_s");
+    const auto bag = read(airbag);
+    INFO(error_list(bag));
+    REQUIRE(bag.ok());
+    CHECK(bag.design->terminal.method == ds::TerminalMethod::airbag);
+    CHECK(bag.design->terminal.isp_s == 0.0);
+
+    const auto stopped = read(with(with(baseline(), "/terminal/method", "tethered"),
+                                   "/terminal/touchdown_velocity_m_s", 0));
+    CHECK(stopped.ok());
+
+    const auto unknown = read(with(baseline(), "/terminal/method", "legs"));
+    CHECK(has_error(unknown, "terminal.method",
+                    "unknown method \"legs\"; expected one of: retro, airbag, tethered, none"));
+}
+
+TEST_CASE("the entry interface must be above the landing site") {
+    const auto result = read(with(baseline(), "/site/elevation_m", 130000));
+    REQUIRE(result.errors.size() == 1);
+    CHECK(has_error(result, "entry.interface_altitude_m",
+                    "must be above the site elevation (130000 m), got 125000"));
+}
+
+TEST_CASE("limits and solver settings override the defaults key by key") {
+    Json document = with(baseline(), "/limits",
+                         {{"peak_deceleration_max_g", 12}, {"site_elevation_max_m", 500}});
+    document = with(document, "/solver",
+                    {{"relative_tolerance", 1e-10}, {"max_time_s", 900}, {"max_steps", 5000}});
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    const ds::Design& d = *result.design;
+    CHECK(d.limits.peak_deceleration_max_g == 12.0);
+    CHECK(d.limits.site_elevation_max_m == 500.0);
+    CHECK(d.limits.deploy_mach_max == ds::Limits{}.deploy_mach_max);
+    CHECK(d.solver.relative_tolerance == 1e-10);
+    CHECK(d.solver.max_time_s == 900.0);
+    CHECK(d.solver.max_steps == 5000);
+
+    const auto unknown = read(with(baseline(), "/limits", {{"peak_g", 12}}));
+    CHECK(has_error(unknown, "limits.peak_g", "unknown key"));
+}
+
+TEST_CASE("read_design_file names a file it cannot open, with an empty path") {
+    const auto missing = std::filesystem::temp_directory_path() / "descent_sizer_no_such.json";
+    const auto result = ds::read_design_file(missing);
+    REQUIRE(result.errors.size() == 1);
+    CHECK(result.errors[0].path.empty());
+    CHECK(result.errors[0].message == "cannot open " + missing.string());
+}

@@ -1,1 +1,225 @@
-// placeholder: being written
+#include <doctest/doctest.h>
+
+#include <filesystem>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "body/body.hpp"
+#include "design/reader.hpp"
+#include "design/writer.hpp"
+
+namespace {
+
+/// A design as the reader would give it for the contract's example.
+ds::Design example_design() {
+    ds::Design d;
+    d.name = "round trip";
+    d.body.preset = "mars";
+    d.body.body = *ds::body_preset("mars");
+    d.atmosphere.model = ds::AtmosphereModel::exponential;
+    d.atmosphere.surface_density_kg_m3 = 0.020;
+    d.atmosphere.scale_height_m = 11100.0;
+    d.atmosphere.temperature_K = 210.0;
+    d.atmosphere.gas_constant_J_kgK = 188.9;
+    d.atmosphere.gamma = 1.29;
+    d.site.elevation_m = -1000.0;
+    d.entry = {125000.0, 5600.0, -13.0, 0.0, 0.0};
+    d.aeroshell.diameter_m = 2.6;
+    d.aeroshell.half_angle_deg = 70.0;
+    d.aeroshell.nose_radius_m = 0.65;
+    d.aeroshell.drag_coefficient = 1.65;
+    d.mass.entry_kg = 560.0;
+    d.mass.heat_shield_kg = 60.0;
+    d.parachute.type = "disk-gap-band";
+    d.parachute.diameter_m = 12.0;
+    d.parachute.drag_coefficient = 0.55;
+    d.parachute.trigger = ds::TriggerKind::mach;
+    d.parachute.trigger_value = 1.8;
+    d.terminal = {ds::TerminalMethod::retro, 220.0, 2.5, 2.0};
+    return d;
+}
+
+/// Every value of a design, compared one by one so a failure names the field.
+void check_same(const ds::Design& a, const ds::Design& b) {
+    CHECK(a.version == b.version);
+    CHECK(a.name == b.name);
+    CHECK(a.body.preset == b.body.preset);
+    CHECK(a.body.body.name == b.body.body.name);
+    CHECK(a.body.body.radius_m == b.body.body.radius_m);
+    CHECK(a.body.body.mu_m3_s2 == b.body.body.mu_m3_s2);
+    CHECK(a.body.body.rotation_rad_s == b.body.body.rotation_rad_s);
+    CHECK(a.body.body.gas.gas_constant_J_kgK == b.body.body.gas.gas_constant_J_kgK);
+    CHECK(a.body.body.gas.gamma == b.body.body.gas.gamma);
+    CHECK(a.body.body.gas.sutton_graves_k == b.body.body.gas.sutton_graves_k);
+    CHECK(a.body.body.gas.radiative_correlation == b.body.body.gas.radiative_correlation);
+
+    CHECK(a.atmosphere.model == b.atmosphere.model);
+    CHECK(a.atmosphere.surface_density_kg_m3 == b.atmosphere.surface_density_kg_m3);
+    CHECK(a.atmosphere.scale_height_m == b.atmosphere.scale_height_m);
+    CHECK(a.atmosphere.temperature_K == b.atmosphere.temperature_K);
+    REQUIRE(a.atmosphere.rows.size() == b.atmosphere.rows.size());
+    for (std::size_t i = 0; i < a.atmosphere.rows.size(); ++i) {
+        CAPTURE(i);
+        CHECK(a.atmosphere.rows[i].altitude_m == b.atmosphere.rows[i].altitude_m);
+        CHECK(a.atmosphere.rows[i].density_kg_m3 == b.atmosphere.rows[i].density_kg_m3);
+        CHECK(a.atmosphere.rows[i].temperature_K == b.atmosphere.rows[i].temperature_K);
+    }
+    CHECK(a.atmosphere.csv_file == b.atmosphere.csv_file);
+    CHECK(a.atmosphere.gas_constant_J_kgK == b.atmosphere.gas_constant_J_kgK);
+    CHECK(a.atmosphere.gamma == b.atmosphere.gamma);
+    CHECK(a.atmosphere.density_scale == b.atmosphere.density_scale);
+
+    CHECK(a.site.elevation_m == b.site.elevation_m);
+    CHECK(a.entry.interface_altitude_m == b.entry.interface_altitude_m);
+    CHECK(a.entry.velocity_m_s == b.entry.velocity_m_s);
+    CHECK(a.entry.flight_path_angle_deg == b.entry.flight_path_angle_deg);
+    CHECK(a.entry.lift_to_drag == b.entry.lift_to_drag);
+    CHECK(a.entry.bank_angle_deg == b.entry.bank_angle_deg);
+
+    CHECK(a.aeroshell.diameter_m == b.aeroshell.diameter_m);
+    CHECK(a.aeroshell.size_for_ballistic_coefficient_kg_m2 ==
+          b.aeroshell.size_for_ballistic_coefficient_kg_m2);
+    CHECK(a.aeroshell.half_angle_deg == b.aeroshell.half_angle_deg);
+    CHECK(a.aeroshell.nose_radius_m == b.aeroshell.nose_radius_m);
+    CHECK(a.aeroshell.drag_coefficient == b.aeroshell.drag_coefficient);
+
+    CHECK(a.mass.entry_kg == b.mass.entry_kg);
+    CHECK(a.mass.heat_shield_kg == b.mass.heat_shield_kg);
+
+    CHECK(a.parachute.type == b.parachute.type);
+    CHECK(a.parachute.diameter_m == b.parachute.diameter_m);
+    CHECK(a.parachute.size_for_velocity_m_s == b.parachute.size_for_velocity_m_s);
+    CHECK(a.parachute.at_height_above_site_m == b.parachute.at_height_above_site_m);
+    CHECK(a.parachute.drag_coefficient == b.parachute.drag_coefficient);
+    CHECK(a.parachute.trigger == b.parachute.trigger);
+    CHECK(a.parachute.trigger_value == b.parachute.trigger_value);
+
+    CHECK(a.terminal.method == b.terminal.method);
+    CHECK(a.terminal.isp_s == b.terminal.isp_s);
+    CHECK(a.terminal.thrust_to_weight == b.terminal.thrust_to_weight);
+    CHECK(a.terminal.touchdown_velocity_m_s == b.terminal.touchdown_velocity_m_s);
+
+    for (const auto& field : ds::limit_fields()) {
+        CAPTURE(field.key);
+        CHECK(a.limits.*field.member == b.limits.*field.member);
+    }
+    CHECK(a.solver.relative_tolerance == b.solver.relative_tolerance);
+    CHECK(a.solver.max_time_s == b.solver.max_time_s);
+    CHECK(a.solver.max_steps == b.solver.max_steps);
+}
+
+ds::Design round_trip(const ds::Design& design) {
+    const auto result = ds::read_design(ds::write_design(design));
+    std::string errors;
+    for (const auto& error : result.errors)
+        errors += error.text() + "\n";
+    INFO(errors);
+    REQUIRE(result.ok());
+    return *result.design;
+}
+
+}  // namespace
+
+TEST_CASE("writing the example design and reading it back gives the same values") {
+    const ds::Design design = example_design();
+    check_same(round_trip(design), design);
+}
+
+TEST_CASE("round trip of a custom body, table rows, sizing requests and changed settings") {
+    ds::Design design = example_design();
+    design.body.preset.clear();
+    design.body.body = ds::Body{"test sphere", 2.0e6, 3.0e12, 1.5e-5, {250.0, 1.35, 1.8e-4, ""}};
+    design.atmosphere = {};
+    design.atmosphere.model = ds::AtmosphereModel::table;
+    design.atmosphere.rows = {
+        {-1500.0, 0.03, 220.0}, {60000.0, 1e-4, 170.0}, {126000.0, 2e-9, 150.0}};
+    design.atmosphere.density_scale = 1.15;
+    design.entry = {125000.0, 6100.5, -11.25, 0.24, -35.0};
+    design.aeroshell.diameter_m.reset();
+    design.aeroshell.size_for_ballistic_coefficient_kg_m2 = 72.5;
+    design.aeroshell.drag_coefficient.reset();
+    design.aeroshell.half_angle_deg = 60.0;
+    design.parachute.type = "ringsail";
+    design.parachute.diameter_m.reset();
+    design.parachute.size_for_velocity_m_s = 65.0;
+    design.parachute.at_height_above_site_m = 1500.0;
+    design.parachute.drag_coefficient.reset();
+    design.parachute.trigger = ds::TriggerKind::altitude;
+    design.parachute.trigger_value = 9000.0;
+    design.terminal = {ds::TerminalMethod::airbag, 0.0, 0.0, 12.0};
+    design.limits.peak_deceleration_max_g = 11.5;
+    design.limits.marginal_band = 0.2;
+    design.solver = {1e-10, 1200.0, 50000};
+
+    check_same(round_trip(design), design);
+}
+
+TEST_CASE("round trip of a standard atmosphere with gas overrides and a pressure trigger") {
+    ds::Design design = example_design();
+    design.body.preset = "earth";
+    design.body.body = *ds::body_preset("earth");
+    design.site.elevation_m = 250.0;
+    design.atmosphere = {};
+    design.atmosphere.model = ds::AtmosphereModel::standard;
+    design.atmosphere.gas_constant_J_kgK = 287.0;
+    design.atmosphere.gamma = 1.4;
+    design.parachute.trigger = ds::TriggerKind::dynamic_pressure;
+    design.parachute.trigger_value = 700.0;
+    design.terminal = {ds::TerminalMethod::tethered, 225.0, 1.8, 0.75};
+    check_same(round_trip(design), design);
+}
+
+TEST_CASE("the written document follows the contract's key order and object forms") {
+    ds::Design design = example_design();
+    design.aeroshell.diameter_m.reset();
+    design.aeroshell.size_for_ballistic_coefficient_kg_m2 = 60.0;
+    design.parachute.diameter_m.reset();
+    design.parachute.size_for_velocity_m_s = 70.0;
+    design.parachute.at_height_above_site_m = 2000.0;
+    const nlohmann::ordered_json document = ds::design_to_json(design);
+
+    std::vector<std::string> keys;
+    for (const auto& item : document.items())
+        keys.push_back(item.key());
+    const std::vector<std::string> expected{
+        "format",    "version", "name",      "body",     "atmosphere", "site",  "entry",
+        "aeroshell", "mass",    "parachute", "terminal", "limits",     "solver"};
+    CHECK(keys == expected);
+    CHECK(document["format"] == "descent-sizer/design");
+    CHECK(document["version"] == 1);
+    CHECK(document["body"] == "mars");
+    CHECK(document["aeroshell"]["diameter_m"] ==
+          nlohmann::ordered_json{{"size_for_ballistic_coefficient_kg_m2", 60.0}});
+    CHECK(document["parachute"]["diameter_m"] ==
+          nlohmann::ordered_json{{"size_for_velocity_m_s", 70.0},
+                                 {"at_height_above_site_m", 2000.0}});
+    CHECK(document["parachute"]["deploy_mach"] == 1.8);
+    CHECK(document["limits"].size() == ds::limit_fields().size());
+    CHECK(document["limits"]["peak_heat_flux_max_W_cm2"] == ds::Limits{}.peak_heat_flux_max_W_cm2);
+}
+
+TEST_CASE("write_design gives two-space indented JSON ending in a newline") {
+    const std::string text = ds::write_design(example_design());
+    CHECK(text.starts_with("{\n  \"format\": \"descent-sizer/design\",\n  \"version\": 1,\n"));
+    CHECK(text.ends_with("}\n"));
+}
+
+TEST_CASE("every shipped sample reads, and reads back the same after writing") {
+    int samples = 0;
+    for (const auto& entry : std::filesystem::directory_iterator(DESCENT_SIZER_SAMPLES_DIR)) {
+        if (entry.path().extension() != ".json")
+            continue;
+        ++samples;
+        CAPTURE(entry.path().string());
+        const auto result = ds::read_design_file(entry.path());
+        std::string errors;
+        for (const auto& error : result.errors)
+            errors += error.text() + "\n";
+        INFO(errors);
+        REQUIRE(result.ok());
+        check_same(round_trip(*result.design), *result.design);
+    }
+    CHECK(samples >= 1);
+}

@@ -1,1 +1,203 @@
-// placeholder: being written
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <limits>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "results/writer.hpp"
+
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+/// Results with one of each list entry and a distinct value in every field.
+ds::Results sample_results() {
+    ds::Results r;
+    r.converged = true;
+    r.entry.mass_kg = 560.0;
+    r.entry.diameter_m = 2.6;
+    r.entry.nose_radius_m = 0.65;
+    r.entry.drag_coefficient = 1.65;
+    r.entry.drag_coefficient_source = "design";
+    r.entry.ballistic_coefficient_kg_m2 = 64.1;
+    r.entry.peak_deceleration_g = 9.5;
+    r.entry.peak_deceleration_altitude_m = 31000.0;
+    r.entry.peak_heat_flux_W_cm2 = 45.0;
+    r.entry.peak_heat_flux_altitude_m = 42000.0;
+    r.entry.heat_load_J_cm2 = 2900.0;
+    r.entry.peak_radiative_heat_flux_W_cm2 = 0.4;
+    r.entry.radiative_heat_load_J_cm2 = 12.0;
+    r.entry.peak_dynamic_pressure_Pa = 8100.0;
+    r.entry.peak_dynamic_pressure_altitude_m = 29000.0;
+    r.entry.heat_shield_mass_fraction = 0.09;
+    r.entry.heat_shield_tps_kg = 50.4;
+    r.parachute.deployed = true;
+    r.parachute.deploy_time_s = 250.0;
+    r.parachute.deploy_altitude_m = 9000.0;
+    r.parachute.deploy_mach = 1.8;
+    r.parachute.deploy_dynamic_pressure_Pa = 520.0;
+    r.parachute.deploy_velocity_m_s = 410.0;
+    r.parachute.diameter_m = 12.0;
+    r.parachute.drag_coefficient = 0.55;
+    r.parachute.opening_load_N = 41000.0;
+    r.terminal.method = "retro";
+    r.terminal.ignition_altitude_m = 1500.0;
+    r.terminal.ignition_velocity_m_s = 80.0;
+    r.terminal.delta_v_m_s = 110.0;
+    r.terminal.gravity_loss_m_s = 28.0;
+    r.terminal.propellant_kg = 30.0;
+    r.terminal.burn_time_s = 22.0;
+    r.timeline.events = {{"parachute deploy", 250.0, 9000.0, 410.0}};
+    r.timeline.margin_s = 95.0;
+    r.mass.entry_kg = 560.0;
+    r.mass.landed_kg = 380.0;
+    r.mass.items = {{"heat shield", 60.0}};
+    r.checks = {{"peak_deceleration", ds::CheckStatus::marginal, 14.0, 15.0, "g",
+                 "peak deceleration 14 g is within 10% of the 15 g limit", "limits"}};
+    r.history = {{1.0, 120000.0, 2000.0, 5590.0, -13.1, 28.0, 0.5, 0.01, 0.2, 0.0}};
+    r.notes = {"no winds"};
+    return r;
+}
+
+}  // namespace
+
+TEST_CASE("the results document has every key of design-file.md's results contract") {
+    const Json document = ds::results_to_json(sample_results());
+    const std::vector<std::string> contract_keys{"/format",
+                                                 "/version",
+                                                 "/converged",
+                                                 "/entry/mass_kg",
+                                                 "/entry/diameter_m",
+                                                 "/entry/drag_coefficient",
+                                                 "/entry/ballistic_coefficient_kg_m2",
+                                                 "/entry/peak_deceleration_g",
+                                                 "/entry/peak_deceleration_altitude_m",
+                                                 "/entry/peak_heat_flux_W_cm2",
+                                                 "/entry/peak_heat_flux_altitude_m",
+                                                 "/entry/heat_load_J_cm2",
+                                                 "/entry/peak_dynamic_pressure_Pa",
+                                                 "/parachute/deploy_time_s",
+                                                 "/parachute/deploy_altitude_m",
+                                                 "/parachute/deploy_mach",
+                                                 "/parachute/deploy_dynamic_pressure_Pa",
+                                                 "/parachute/deploy_velocity_m_s",
+                                                 "/parachute/diameter_m",
+                                                 "/parachute/opening_load_N",
+                                                 "/terminal/method",
+                                                 "/terminal/ignition_altitude_m",
+                                                 "/terminal/ignition_velocity_m_s",
+                                                 "/terminal/delta_v_m_s",
+                                                 "/terminal/gravity_loss_m_s",
+                                                 "/terminal/propellant_kg",
+                                                 "/terminal/burn_time_s",
+                                                 "/timeline/events/0/name",
+                                                 "/timeline/events/0/time_s",
+                                                 "/timeline/events/0/altitude_m",
+                                                 "/timeline/events/0/velocity_m_s",
+                                                 "/timeline/margin_s",
+                                                 "/mass/entry_kg",
+                                                 "/mass/landed_kg",
+                                                 "/mass/items/0/name",
+                                                 "/mass/items/0/mass_kg",
+                                                 "/checks/0/id",
+                                                 "/checks/0/status",
+                                                 "/checks/0/value",
+                                                 "/checks/0/limit",
+                                                 "/checks/0/message"};
+    for (const auto& key : contract_keys) {
+        CAPTURE(key);
+        CHECK(document.contains(Json::json_pointer(key)));
+    }
+    CHECK(document["format"] == "descent-sizer/results");
+    CHECK(document["version"] == 1);
+    CHECK(document["converged"] == true);
+}
+
+TEST_CASE("the results document writes each field's value under its own key") {
+    const Json document = ds::results_to_json(sample_results());
+    CHECK(document["entry"]["ballistic_coefficient_kg_m2"] == 64.1);
+    CHECK(document["entry"]["drag_coefficient_source"] == "design");
+    CHECK(document["entry"]["peak_radiative_heat_flux_W_cm2"] == 0.4);
+    CHECK(document["entry"]["heat_shield_tps_kg"] == 50.4);
+    CHECK(document["parachute"]["deployed"] == true);
+    CHECK(document["parachute"]["opening_load_N"] == 41000.0);
+    CHECK(document["terminal"]["method"] == "retro");
+    CHECK(document["terminal"]["propellant_kg"] == 30.0);
+    CHECK(document["timeline"]["events"][0]["name"] == "parachute deploy");
+    CHECK(document["timeline"]["margin_s"] == 95.0);
+    CHECK(document["mass"]["landed_kg"] == 380.0);
+    CHECK(document["mass"]["items"][0]["mass_kg"] == 60.0);
+    const Json& check = document["checks"][0];
+    CHECK(check["id"] == "peak_deceleration");
+    CHECK(check["status"] == "marginal");
+    CHECK(check["value"] == 14.0);
+    CHECK(check["limit"] == 15.0);
+    CHECK(check["unit"] == "g");
+    CHECK(check["source"] == "limits");
+    CHECK(document["notes"] == Json::array({"no winds"}));
+}
+
+TEST_CASE("absent figures and non-finite numbers are written as null") {
+    ds::Results results;  // nothing computed: every optional empty
+    results.entry.peak_heat_flux_W_cm2 = std::numeric_limits<double>::quiet_NaN();
+    results.entry.heat_load_J_cm2 = std::numeric_limits<double>::infinity();
+    results.checks = {{"closure", ds::CheckStatus::fail, std::nan(""), 1.0, "", "", ""}};
+    const Json document = ds::results_to_json(results);
+
+    for (const char* key :
+         {"/parachute/deploy_time_s", "/parachute/deploy_altitude_m", "/parachute/deploy_mach",
+          "/parachute/deploy_dynamic_pressure_Pa", "/parachute/deploy_velocity_m_s",
+          "/parachute/diameter_m", "/parachute/drag_coefficient", "/parachute/opening_load_N",
+          "/terminal/ignition_altitude_m", "/terminal/delta_v_m_s", "/terminal/propellant_kg",
+          "/terminal/burn_time_s", "/timeline/margin_s", "/mass/landed_kg",
+          "/entry/peak_radiative_heat_flux_W_cm2", "/entry/radiative_heat_load_J_cm2",
+          "/entry/peak_heat_flux_W_cm2", "/entry/heat_load_J_cm2", "/checks/0/value"}) {
+        CAPTURE(key);
+        REQUIRE(document.contains(Json::json_pointer(key)));
+        CHECK(document[Json::json_pointer(key)].is_null());
+    }
+    CHECK(document["checks"][0]["limit"] == 1.0);
+    CHECK(document["checks"][0]["status"] == "fail");
+    CHECK(document["converged"] == false);
+    CHECK(document["timeline"]["events"] == Json::array());
+    CHECK(document["mass"]["items"] == Json::array());
+    CHECK(ds::write_results(results).find("NaN") == std::string::npos);
+}
+
+TEST_CASE("check statuses are named pass, marginal and fail") {
+    CHECK(ds::to_string(ds::CheckStatus::pass) == "pass");
+    CHECK(ds::to_string(ds::CheckStatus::marginal) == "marginal");
+    CHECK(ds::to_string(ds::CheckStatus::fail) == "fail");
+}
+
+TEST_CASE("the trajectory history is written only when asked for") {
+    const ds::Results results = sample_results();
+    CHECK_FALSE(ds::results_to_json(results).contains("history"));
+
+    const Json document = ds::results_to_json(results, {.include_history = true});
+    REQUIRE(document["history"].size() == 1);
+    const Json& sample = document["history"][0];
+    std::vector<std::string> keys;
+    for (const auto& item : sample.items())
+        keys.push_back(item.key());
+    const std::vector<std::string> expected{"time_s",
+                                            "altitude_m",
+                                            "downrange_m",
+                                            "velocity_m_s",
+                                            "flight_path_angle_deg",
+                                            "mach",
+                                            "dynamic_pressure_Pa",
+                                            "deceleration_g",
+                                            "heat_flux_W_cm2",
+                                            "radiative_heat_flux_W_cm2"};
+    CHECK(keys == expected);
+    CHECK(sample["altitude_m"] == 120000.0);
+    CHECK(sample["flight_path_angle_deg"] == -13.1);
+
+    const std::string text = ds::write_results(results, {.include_history = true});
+    CHECK(text.ends_with("}\n"));
+    CHECK(Json::parse(text) == document);
+}
