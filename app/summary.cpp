@@ -89,38 +89,76 @@ std::string format_summary(const Design& design, const Results& results) {
     row(out, "heat-shield TPS mass fraction", e.heat_shield_mass_fraction * 100.0, "%", 2);
     row(out, "heat-shield TPS mass estimate", e.heat_shield_tps_kg, "kg", 1);
 
+    if (results.decelerator) {
+        const DeceleratorResults& d = *results.decelerator;
+        heading(out, "Inflatable decelerator");
+        text_row(out, "deployed", d.deployed ? "yes" : "no");
+        row(out, "diameter", d.diameter_m, "m", 2);
+        row(out, "mass", d.mass_kg, "kg", 1);
+        row(out, "deploy altitude", d.deploy_altitude_m, "m", 0);
+        row(out, "deploy Mach", d.deploy_mach, "", 2);
+        row(out, "deploy dynamic pressure", d.deploy_dynamic_pressure_Pa, "Pa", 0);
+    }
+
     const ParachuteResults& p = results.parachute;
     heading(out, "Parachute");
     text_row(out, "deployed", p.deployed ? "yes" : "no");
     row(out, "diameter", p.diameter_m, "m", 2);
-    row(out, "drag coefficient", p.drag_coefficient, "", 3);
+    row(out, "drag coefficient (subsonic)", p.drag_coefficient, "", 3);
+    row(out, "drag coefficient at deploy", p.drag_coefficient_at_deploy, "", 3);
+    row(out, "mass", p.mass_kg, "kg", 1);
     row(out, "deploy time", p.deploy_time_s, "s", 2);
     row(out, "deploy altitude", p.deploy_altitude_m, "m", 0);
     row(out, "deploy Mach", p.deploy_mach, "", 3);
     row(out, "deploy dynamic pressure", p.deploy_dynamic_pressure_Pa, "Pa", 1);
     row(out, "deploy velocity", p.deploy_velocity_m_s, "m/s", 1);
     row(out, "opening load", p.opening_load_N, "N", 0);
+    row(out, "inflation time", p.inflation_time_s, "s", 2);
+    row(out, "heat-shield jettison time", p.heat_shield_jettison_time_s, "s", 1);
+    row(out, "descent velocity under canopy", p.descent_velocity_m_s, "m/s", 1);
 
     const TerminalResults& t = results.terminal;
     heading(out, "Terminal descent");
     text_row(out, "method", t.method);
     row(out, "ignition altitude", t.ignition_altitude_m, "m", 0);
-    row(out, "delta-v", t.delta_v_m_s, "m/s", 1);
-    row(out, "gravity loss", t.gravity_loss_m_s, "m/s", 1);
-    row(out, "propellant", t.propellant_kg, "kg", 1);
+    row(out, "ignition velocity", t.ignition_velocity_m_s, "m/s", 1);
+    row(out, "thrust", t.thrust_N, "N", 0);
     row(out, "burn time", t.burn_time_s, "s", 1);
+    row(out, "delta-v (ideal)", t.delta_v_m_s, "m/s", 1);
+    row(out, "gravity loss", t.gravity_loss_m_s, "m/s", 1);
+    row(out, "propellant burned", t.burned_propellant_kg, "kg", 1);
+    row(out, "propellant loaded", t.propellant_kg, "kg", 1);
+    row(out, "touchdown velocity", t.touchdown_velocity_m_s, "m/s", 2);
+    if (t.impact_velocity_m_s) {
+        row(out, "airbag impact velocity", t.impact_velocity_m_s, "m/s", 1);
+        row(out, "airbag impact energy", t.impact_energy_J, "J", 0);
+    }
+    if (t.hover_time_s) row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
 
     heading(out, "Timeline");
     for (const TimelineEvent& ev : results.timeline.events) {
         fmt::format_to(it, "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s\n", ev.time_s, ev.name,
                        ev.altitude_m, ev.velocity_m_s);
     }
+    row(out, "time from deploy to the burn", results.timeline.available_s, "s", 1);
+    row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
     row(out, "timeline margin", results.timeline.margin_s, "s", 1);
+    row(out, "highest feasible site elevation", results.capability.max_site_elevation_m, "m", 0);
 
-    heading(out, "Mass");
-    for (const MassItem& item : results.mass.items) row(out, item.name, item.mass_kg, "kg", 1);
+    heading(out, fmt::format("Mass budget ({})", results.mass.mode));
+    fmt::format_to(it, "  {:<40} {:<14} {:>10} {:>7} {:>10}\n", "item", "group", "basic kg",
+                   "growth", "kg");
+    for (const MassItem& item : results.mass.items) {
+        fmt::format_to(it, "  {:<40} {:<14} {:>10.1f} {:>6.0f}% {:>10.1f}\n", item.name,
+                       item.group, item.basic_kg, item.growth_fraction * 100.0, item.mass_kg);
+    }
     row(out, "entry mass", results.mass.entry_kg, "kg", 1);
     row(out, "landed mass", results.mass.landed_kg, "kg", 1);
+    if (results.mass.closure) {
+        const MassClosure& c = *results.mass.closure;
+        fmt::format_to(it, "  closure: {} in {} iterations, residual {:.3f} kg\n",
+                       c.converged ? "converged" : "NOT converged", c.iterations, c.residual_kg);
+    }
 
     out += "\n";
     for (const std::string& note : results.notes) fmt::format_to(it, "Note: {}\n", note);

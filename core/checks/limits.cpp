@@ -16,6 +16,10 @@ std::span<const LimitField> limit_fields() {
         LimitField{"peak_deceleration_max_g", &Limits::peak_deceleration_max_g, "g"},
         LimitField{"peak_heat_flux_max_W_cm2", &Limits::peak_heat_flux_max_W_cm2, "W/cm^2"},
         LimitField{"site_elevation_max_m", &Limits::site_elevation_max_m, "m"},
+        LimitField{"landed_mass_max_kg", &Limits::landed_mass_max_kg, "kg"},
+        LimitField{"touchdown_velocity_max_m_s", &Limits::touchdown_velocity_max_m_s, "m/s"},
+        LimitField{"airbag_impact_velocity_max_m_s", &Limits::airbag_impact_velocity_max_m_s, "m/s"},
+        LimitField{"timeline_margin_min_s", &Limits::timeline_margin_min_s, "s"},
         LimitField{"marginal_band", &Limits::marginal_band, ""},
     };
     return fields;

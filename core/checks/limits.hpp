@@ -30,6 +30,16 @@ struct Limits {
     double peak_heat_flux_max_W_cm2 = 200.0;
     /// Heritage landing sites lie below about -1 km on the reference (Braun and Manning 2007).
     double site_elevation_max_m = -1000.0;
+    /// Heritage landed mass for Mars soft landing about 0.6 t (Braun and Manning 2007).
+    double landed_mass_max_kg = 600.0;
+    /// Legged touchdown (retro) or canopy touchdown (none): 3 m/s is our default for landing
+    /// legs (common practice: set it to the lander's qualified value).
+    double touchdown_velocity_max_m_s = 3.0;
+    /// Airbag impact velocity the bags are qualified for; 25 m/s is our default (from memory,
+    /// common practice: set it to the bag's test data).
+    double airbag_impact_velocity_max_m_s = 25.0;
+    /// Timeline margin below this is marginal; below zero fails (common practice).
+    double timeline_margin_min_s = 10.0;
     /// A physics check within this fraction of its limit is "marginal" (common practice).
     double marginal_band = 0.10;
 };

@@ -61,6 +61,27 @@ Check half_angle_check(double half_angle_deg, double heritage_deg, const std::st
     return c;
 }
 
+/// Negative margin fails (the sequence cannot complete); under the limit is marginal.
+Check timeline_check(double margin_s, double limit_s, double needed_s) {
+    Check c{"timeline_margin", CheckStatus::pass, margin_s, limit_s, "s", "",
+            "sequence times of the design; marginal below the limit (common practice)"};
+    if (margin_s < 0.0) {
+        c.status = CheckStatus::fail;
+        c.message = fmt::format(
+            "the sequence after parachute deploy needs {:.1f} s but the descent leaves {:.1f} s "
+            "less than that: deploy higher, jettison sooner or land lower",
+            needed_s, -margin_s);
+    } else if (margin_s < limit_s) {
+        c.status = CheckStatus::marginal;
+        c.message = fmt::format("timeline margin {:.1f} s is below the {:.4g} s wanted", margin_s,
+                                limit_s);
+    } else {
+        c.message = fmt::format("timeline margin {:.1f} s after the {:.1f} s the sequence needs",
+                                margin_s, needed_s);
+    }
+    return c;
+}
+
 }  // namespace
 
 Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band) {
@@ -102,6 +123,16 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
         checks.push_back(check_at_most({"site_elevation", "landing site elevation", "m",
                                         Severity::envelope, heritage},
                                        design.site.elevation_m, lim.site_elevation_max_m, band));
+        if (results.mass.landed_kg) {
+            Check landed = check_at_most({"landed_mass", "landed mass", "kg", Severity::envelope,
+                                          heritage},
+                                         *results.mass.landed_kg, lim.landed_mass_max_kg, band);
+            if (landed.status != CheckStatus::pass) {
+                landed.message += "; a heavier lander needs supersonic retro-propulsion, larger "
+                                  "decelerators and an entry from orbit";
+            }
+            checks.push_back(landed);
+        }
     }
     if (results.parachute.deployed) {
         const std::string window{deploy_window_source};
@@ -131,6 +162,25 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
          "the heat-shield material's qualified heat flux (default 200 W/cm^2: common practice, "
          "set your material's)"},
         peak_total_flux, lim.peak_heat_flux_max_W_cm2, band));
+    const TerminalResults& terminal = results.terminal;
+    if (terminal.touchdown_velocity_m_s && terminal.method != "tethered") {
+        checks.push_back(check_at_most(
+            {"touchdown_velocity", "touchdown velocity", "m/s", Severity::physics,
+             "the lander's qualified touchdown speed (default 3 m/s: common practice, set your "
+             "own)"},
+            *terminal.touchdown_velocity_m_s, lim.touchdown_velocity_max_m_s, band));
+    }
+    if (terminal.impact_velocity_m_s) {
+        checks.push_back(check_at_most(
+            {"airbag_impact_velocity", "airbag impact velocity", "m/s", Severity::physics,
+             "the airbags' qualified impact speed (default 25 m/s: from memory, common "
+             "practice, set your own)"},
+            *terminal.impact_velocity_m_s, lim.airbag_impact_velocity_max_m_s, band));
+    }
+    if (results.timeline.margin_s) {
+        checks.push_back(timeline_check(*results.timeline.margin_s, lim.timeline_margin_min_s,
+                                        results.timeline.needed_s.value_or(0.0)));
+    }
     return checks;
 }
 

@@ -17,6 +17,17 @@ constexpr Names<TerminalMethod, 4> terminal_methods{{{TerminalMethod::retro, "re
                                                      {TerminalMethod::tethered, "tethered"},
                                                      {TerminalMethod::none, "none"}}};
 
+constexpr Names<MassGroup, 4> mass_groups{{{MassGroup::heat_shield, "heat shield"},
+                                            {MassGroup::backshell, "backshell"},
+                                            {MassGroup::descent_stage, "descent stage"},
+                                            {MassGroup::payload, "payload"}}};
+constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
+                                         {Maturity::layout, "layout"},
+                                         {Maturity::pre_release, "pre-release"},
+                                         {Maturity::released, "released"},
+                                         {Maturity::existing, "existing"},
+                                         {Maturity::actual, "actual"}}};
+
 template <class Enum, std::size_t Count>
 std::string_view name_of(const Names<Enum, Count>& names, Enum value) {
     for (const auto& [e, name] : names) {
@@ -43,5 +54,12 @@ std::optional<AtmosphereModel> atmosphere_model_from(std::string_view name) {
 std::optional<TerminalMethod> terminal_method_from(std::string_view name) {
     return value_of(terminal_methods, name);
 }
+
+std::string_view to_string(MassGroup group) { return name_of(mass_groups, group); }
+std::string_view to_string(Maturity maturity) { return name_of(maturities, maturity); }
+std::optional<MassGroup> mass_group_from(std::string_view name) {
+    return value_of(mass_groups, name);
+}
+std::optional<Maturity> maturity_from(std::string_view name) { return value_of(maturities, name); }
 
 }  // namespace ds

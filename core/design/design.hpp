@@ -66,9 +66,33 @@ struct AeroshellDesign {
     std::optional<double> drag_coefficient;  ///< empty: modified Newtonian theory
 };
 
+/// When an item leaves the vehicle: what the mass budget groups it by.
+enum class MassGroup {
+    heat_shield,    ///< dropped at heat-shield jettison
+    backshell,      ///< dropped at backshell separation (with the parachute)
+    descent_stage,  ///< carries the payload down; lands with it (retro, none) or not
+    payload,        ///< what is landed
+};
+
+/// Design maturity of a mass item: sets its growth allowance (AIAA S-120; see
+/// core/mass/growth.hpp).
+enum class Maturity { estimated, layout, pre_release, released, existing, actual };
+
+struct MassItemDesign {
+    std::string name;
+    double mass_kg = 0.0;  ///< basic mass, without growth allowance
+    MassGroup group = MassGroup::payload;
+    Maturity maturity = Maturity::estimated;
+};
+
 struct MassDesign {
-    std::optional<double> entry_kg;  ///< fixes the entry mass (analysis)
-    double heat_shield_kg = 0.0;     ///< dropped at heat-shield jettison
+    /// Fixes the entry mass (analysis). Without it the budget is closed by iteration from the
+    /// items and the estimates (sizing).
+    std::optional<double> entry_kg;
+    /// Dropped at heat-shield jettison; estimated (TPS from the heat load plus structure) when
+    /// absent.
+    std::optional<double> heat_shield_kg;
+    std::vector<MassItemDesign> items;
 };
 
 enum class TriggerKind { mach, dynamic_pressure, altitude };
@@ -81,6 +105,26 @@ struct ParachuteDesign {
     std::optional<double> drag_coefficient;  ///< empty: the type's nominal value
     TriggerKind trigger = TriggerKind::mach;
     double trigger_value = 0.0;  ///< Mach, Pa or m, by trigger
+    std::optional<double> mass_kg;  ///< canopy, lines, riser and mortar; estimated when absent
+};
+
+/// An optional supersonic inflatable decelerator, flown between the entry and the parachute.
+struct DeceleratorDesign {
+    double diameter_m = 0.0;
+    double drag_coefficient = 0.0;
+    TriggerKind trigger = TriggerKind::mach;  ///< when it inflates, crossed downward
+    double trigger_value = 0.0;
+    std::optional<double> mass_kg;  ///< estimated when absent
+};
+
+/// The events between parachute deploy and the terminal burn, and the time each needs.
+struct SequenceDesign {
+    /// Heat-shield jettison after deploy: a delay, or the dynamic pressure falling below a value.
+    /// Neither given: the delay's default.
+    std::optional<double> heat_shield_jettison_delay_s;
+    std::optional<double> heat_shield_jettison_dynamic_pressure_Pa;
+    double ground_sensing_lock_s = 15.0;  ///< after jettison, before separation may happen
+    double separation_coast_s = 2.0;      ///< free fall from backshell separation to ignition
 };
 
 enum class TerminalMethod { retro, airbag, tethered, none };
@@ -88,8 +132,15 @@ enum class TerminalMethod { retro, airbag, tethered, none };
 struct TerminalDesign {
     TerminalMethod method = TerminalMethod::retro;
     double isp_s = 0.0;
-    double thrust_to_weight = 0.0;
+    double thrust_to_weight = 0.0;  ///< full thrust over the stage's weight at ignition
+    /// Velocity at the end of the burn: touchdown (retro), release (airbag), lowering (tethered).
     double touchdown_velocity_m_s = 0.0;
+    double throttle = 1.0;  ///< fraction of full thrust flown during the burn
+    double propellant_reserve_fraction = 0.10;   ///< unburned reserve over burned propellant
+    double propellant_residual_fraction = 0.03;  ///< trapped residual over loaded propellant
+    double release_height_m = 12.0;  ///< airbag: the burn ends here above the site
+    double tether_length_m = 7.5;    ///< tethered: hover height above the site while lowering
+    double fly_away_s = 10.0;        ///< tethered: seconds of hover thrust after the cut
 };
 
 /// Numerical settings of the trajectory integration.
@@ -104,6 +155,10 @@ std::string_view to_string(AtmosphereModel model);
 std::string_view to_string(TerminalMethod method);
 std::optional<AtmosphereModel> atmosphere_model_from(std::string_view name);
 std::optional<TerminalMethod> terminal_method_from(std::string_view name);
+std::string_view to_string(MassGroup group);
+std::string_view to_string(Maturity maturity);
+std::optional<MassGroup> mass_group_from(std::string_view name);
+std::optional<Maturity> maturity_from(std::string_view name);
 
 struct Design {
     int version = design_format_version;
@@ -114,7 +169,9 @@ struct Design {
     EntryDesign entry;
     AeroshellDesign aeroshell;
     MassDesign mass;
+    std::optional<DeceleratorDesign> decelerator;
     ParachuteDesign parachute;
+    SequenceDesign sequence;
     TerminalDesign terminal;
     Limits limits;
     SolverDesign solver;

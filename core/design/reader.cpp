@@ -7,6 +7,7 @@
 #include <fstream>
 #include <iterator>
 #include <limits>
+#include <span>
 #include <sstream>
 #include <utility>
 
@@ -256,6 +257,12 @@ constexpr std::array atmosphere_models{AtmosphereModel::exponential, AtmosphereM
 constexpr std::array terminal_methods{TerminalMethod::retro, TerminalMethod::airbag,
                                       TerminalMethod::tethered, TerminalMethod::none};
 
+constexpr std::array mass_groups{MassGroup::heat_shield, MassGroup::backshell,
+                                 MassGroup::descent_stage, MassGroup::payload};
+
+constexpr std::array maturities{Maturity::estimated, Maturity::layout,   Maturity::pre_release,
+                                Maturity::released,  Maturity::existing, Maturity::actual};
+
 /// A key that belongs to one atmosphere model only.
 struct ModelKey {
     std::string_view key;
@@ -276,11 +283,85 @@ struct Trigger {
     Range range;
 };
 
-constexpr std::array parachute_triggers{
+/// The deploy triggers of a parachute or a decelerator; a stage takes exactly one.
+constexpr std::array deploy_triggers{
     Trigger{"deploy_mach", TriggerKind::mach, positive},
     Trigger{"deploy_dynamic_pressure_Pa", TriggerKind::dynamic_pressure, positive},
     Trigger{"deploy_altitude_m", TriggerKind::altitude, any_finite},
 };
+
+/// Reads the one deploy trigger of a parachute or a decelerator into kind and value.
+void read_deploy_trigger(Fields& f, TriggerKind& kind, double& value) {
+    std::vector<std::string_view> given;
+    for (const auto& trigger : deploy_triggers) {
+        if (f.has(trigger.key))
+            given.push_back(trigger.key);
+    }
+    for (const auto& trigger : deploy_triggers) {
+        if (auto v = f.optional_number(trigger.key, trigger.range); v && given.size() == 1) {
+            kind = trigger.kind;
+            value = *v;
+        }
+    }
+    if (given.empty()) {
+        f.report_here(
+            "needs one deploy trigger: deploy_mach, deploy_dynamic_pressure_Pa or "
+            "deploy_altitude_m");
+    } else if (given.size() > 1) {
+        f.report_here(fmt::format("takes one deploy trigger, got {}", fmt::join(given, ", ")));
+    }
+}
+
+constexpr std::array powered_methods{TerminalMethod::retro, TerminalMethod::airbag,
+                                     TerminalMethod::tethered};
+constexpr std::array airbag_method{TerminalMethod::airbag};
+constexpr std::array tethered_method{TerminalMethod::tethered};
+
+/// A terminal key that belongs to some methods only: required for them or with a default.
+struct TerminalKey {
+    std::string_view key;
+    double TerminalDesign::*member;
+    Range range;
+    std::span<const TerminalMethod> methods;
+    Need need;  ///< for the methods it belongs to
+};
+
+constexpr Range fraction_of_one{{}, 0.0, 1.0, {}};  // [0, 1)
+
+// touchdown_velocity_m_s belongs to every method and is read between the two tables, in the
+// order the writer gives the keys.
+constexpr std::array engine_keys{
+    TerminalKey{"isp_s", &TerminalDesign::isp_s, positive, powered_methods, Need::required},
+    TerminalKey{"thrust_to_weight", &TerminalDesign::thrust_to_weight, greater_than_one,
+                powered_methods, Need::required},
+};
+
+constexpr std::array burn_keys{
+    TerminalKey{"throttle", &TerminalDesign::throttle, Range{0.0, {}, {}, 1.0}, powered_methods,
+                Need::optional},
+    TerminalKey{"propellant_reserve_fraction", &TerminalDesign::propellant_reserve_fraction,
+                fraction_of_one, powered_methods, Need::optional},
+    TerminalKey{"propellant_residual_fraction", &TerminalDesign::propellant_residual_fraction,
+                fraction_of_one, powered_methods, Need::optional},
+    TerminalKey{"release_height_m", &TerminalDesign::release_height_m, non_negative, airbag_method,
+                Need::optional},
+    TerminalKey{"tether_length_m", &TerminalDesign::tether_length_m, positive, tethered_method,
+                Need::optional},
+    TerminalKey{"fly_away_s", &TerminalDesign::fly_away_s, non_negative, tethered_method,
+                Need::optional},
+};
+
+/// "method \"airbag\"" or "methods \"retro\", \"airbag\" and \"tethered\"".
+std::string method_names(std::span<const TerminalMethod> methods) {
+    std::vector<std::string> quoted;
+    for (const auto method : methods)
+        quoted.push_back(fmt::format("\"{}\"", to_string(method)));
+    if (quoted.size() == 1)
+        return "method " + quoted.front();
+    const std::string last = quoted.back();
+    quoted.pop_back();
+    return fmt::format("methods {} and {}", fmt::join(quoted, ", "), last);
+}
 
 // Bounds of the numerical settings (our choice): tighter than 1e-14 is below double round-off
 // for a trajectory; looser than 1e-3 no longer resolves the peaks the checks look at.
@@ -324,8 +405,12 @@ public:
             read_aeroshell(*aeroshell);
         if (auto mass = top.object("mass"))
             read_mass(*mass);
+        if (auto decelerator = top.object("decelerator", Need::optional))
+            read_decelerator(*decelerator);
         if (auto parachute = top.object("parachute"))
             read_parachute(*parachute);
+        if (auto sequence = top.object("sequence", Need::optional))
+            read_sequence(*sequence);
         if (auto terminal = top.object("terminal"))
             read_terminal(*terminal);
         if (auto limits = top.object("limits", Need::optional))
@@ -627,11 +712,6 @@ private:
     void read_mass(Fields& f) {
         MassDesign& mass = design_.mass;
         mass.entry_kg = f.optional_number("entry_kg", positive);
-        if (!f.has("entry_kg")) {
-            f.report("entry_kg",
-                     "required: sizing without a fixed entry mass (mass budget "
-                     "closure) is not available yet");
-        }
         if (auto v = f.optional_number("heat_shield_kg", non_negative)) {
             mass.heat_shield_kg = *v;
             if (mass.entry_kg && *v >= *mass.entry_kg) {
@@ -640,6 +720,68 @@ private:
                                      *mass.entry_kg, *v));
             }
         }
+        const Json* items = f.value("items", Need::optional);
+        if (items)
+            read_mass_items(*items, f.place_of("items"));
+        // Without a fixed entry mass the budget is closed from the items (sizing). Items that
+        // are not an array have their own error already.
+        if (!f.has("entry_kg") && mass.items.empty() && (!items || items->is_array())) {
+            f.report("items", "needed to size the budget when mass.entry_kg is not given");
+        }
+        f.report_unknown();
+    }
+
+    void read_mass_items(const Json& items, const Place& place) {
+        if (!items.is_array()) {
+            issues_->add(place,
+                         fmt::format("must be an array of items, got {}", items.type_name()));
+            return;
+        }
+        for (std::size_t i = 0; i < items.size(); ++i) {
+            const Place item_place = place.element(i);
+            if (!items[i].is_object()) {
+                issues_->add(item_place,
+                             fmt::format("must be an object, got {}", items[i].type_name()));
+                continue;
+            }
+            Fields f(items[i], item_place, *issues_);
+            MassItemDesign item;
+            if (auto name = f.string("name")) {
+                if (name->empty())
+                    f.report("name", "must not be empty");
+                item.name = *name;
+            }
+            if (auto v = f.number("mass_kg", non_negative))
+                item.mass_kg = *v;
+            if (auto name = f.string("group")) {
+                if (auto group = mass_group_from(*name)) {
+                    item.group = *group;
+                } else {
+                    f.report("group", fmt::format("unknown group \"{}\"; expected one of: {}",
+                                                  *name, names_of(mass_groups)));
+                }
+            }
+            if (auto name = f.string("maturity", Need::optional)) {
+                if (auto maturity = maturity_from(*name)) {
+                    item.maturity = *maturity;
+                } else {
+                    f.report("maturity", fmt::format("unknown maturity \"{}\"; expected one of: {}",
+                                                     *name, names_of(maturities)));
+                }
+            }
+            f.report_unknown();
+            design_.mass.items.push_back(std::move(item));
+        }
+    }
+
+    void read_decelerator(Fields& f) {
+        DeceleratorDesign& decelerator = design_.decelerator.emplace();
+        if (auto v = f.number("diameter_m", positive))
+            decelerator.diameter_m = *v;
+        if (auto v = f.number("drag_coefficient", positive))
+            decelerator.drag_coefficient = *v;
+        read_deploy_trigger(f, decelerator.trigger, decelerator.trigger_value);
+        decelerator.mass_kg = f.optional_number("mass_kg", positive);
         f.report_unknown();
     }
 
@@ -648,7 +790,8 @@ private:
         if (auto type = f.string("type")) {
             if (!canopy_type(*type)) {
                 std::vector<std::string_view> names;
-                for (const CanopyType& known : canopy_types()) names.push_back(known.name);
+                for (const CanopyType& known : canopy_types())
+                    names.push_back(known.name);
                 f.report("type", fmt::format("unknown type \"{}\"; expected one of: {}", *type,
                                              fmt::join(names, ", ")));
             } else {
@@ -673,25 +816,27 @@ private:
             }
         }
         parachute.drag_coefficient = f.optional_number("drag_coefficient", positive);
+        read_deploy_trigger(f, parachute.trigger, parachute.trigger_value);
+        parachute.mass_kg = f.optional_number("mass_kg", positive);
+        f.report_unknown();
+    }
 
-        std::vector<std::string_view> given;
-        for (const auto& trigger : parachute_triggers) {
-            if (f.has(trigger.key))
-                given.push_back(trigger.key);
-        }
-        for (const auto& trigger : parachute_triggers) {
-            if (auto v = f.optional_number(trigger.key, trigger.range); v && given.size() == 1) {
-                parachute.trigger = trigger.kind;
-                parachute.trigger_value = *v;
-            }
-        }
-        if (given.empty()) {
+    void read_sequence(Fields& f) {
+        SequenceDesign& sequence = design_.sequence;
+        sequence.heat_shield_jettison_delay_s =
+            f.optional_number("heat_shield_jettison_delay_s", non_negative);
+        sequence.heat_shield_jettison_dynamic_pressure_Pa =
+            f.optional_number("heat_shield_jettison_dynamic_pressure_Pa", positive);
+        if (f.has("heat_shield_jettison_delay_s") &&
+            f.has("heat_shield_jettison_dynamic_pressure_Pa")) {
             f.report_here(
-                "needs one deploy trigger: deploy_mach, deploy_dynamic_pressure_Pa or "
-                "deploy_altitude_m");
-        } else if (given.size() > 1) {
-            f.report_here(fmt::format("takes one deploy trigger, got {}", fmt::join(given, ", ")));
+                "takes heat_shield_jettison_delay_s or heat_shield_jettison_dynamic_pressure_Pa, "
+                "not both");
         }
+        if (auto v = f.optional_number("ground_sensing_lock_s", non_negative))
+            sequence.ground_sensing_lock_s = *v;
+        if (auto v = f.optional_number("separation_coast_s", non_negative))
+            sequence.separation_coast_s = *v;
         f.report_unknown();
     }
 
@@ -707,17 +852,31 @@ private:
                                                names_of(terminal_methods)));
             }
         }
-        // A powered descent cannot be sized without its engine and its touchdown speed.
-        const Need engine = method == TerminalMethod::retro ? Need::required : Need::optional;
-        const Range touchdown = method == TerminalMethod::retro ? positive : non_negative;
-        if (auto v = f.number("isp_s", positive, engine))
-            terminal.isp_s = *v;
-        if (auto v = f.number("thrust_to_weight", greater_than_one, engine)) {
-            terminal.thrust_to_weight = *v;
-        }
-        if (auto v = f.number("touchdown_velocity_m_s", touchdown, engine)) {
+        // Without a known method, only the values are judged: the method error says enough.
+        const auto read_key = [&](const TerminalKey& key) {
+            const bool belongs = !method || std::find(key.methods.begin(), key.methods.end(),
+                                                      *method) != key.methods.end();
+            if (!belongs && f.has(key.key)) {
+                f.value(key.key, Need::optional);
+                f.report(key.key, fmt::format("only for {}", method_names(key.methods)));
+                return;
+            }
+            const Need need = belongs && method ? key.need : Need::optional;
+            if (auto v = f.number(key.key, key.range, need))
+                terminal.*key.member = *v;
+        };
+        for (const auto& key : engine_keys)
+            read_key(key);
+        // Every method but "none" flies an engine: it cannot be sized without the speed the
+        // burn ends at. Landing on the canopy ("none"), the speed is optional.
+        const bool powered = method && *method != TerminalMethod::none;
+        const Range touchdown = method == TerminalMethod::none ? non_negative : positive;
+        if (auto v = f.number("touchdown_velocity_m_s", touchdown,
+                              powered ? Need::required : Need::optional)) {
             terminal.touchdown_velocity_m_s = *v;
         }
+        for (const auto& key : burn_keys)
+            read_key(key);
         f.report_unknown();
     }
 

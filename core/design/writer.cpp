@@ -1,6 +1,7 @@
 #include "design/writer.hpp"
 
 #include <cmath>
+#include <optional>
 #include <string_view>
 
 namespace ds {
@@ -116,7 +117,26 @@ Json aeroshell_to_json(const AeroshellDesign& aeroshell) {
 Json mass_to_json(const MassDesign& mass) {
     Json out;
     put_if(out, "entry_kg", mass.entry_kg);
-    out["heat_shield_kg"] = number(mass.heat_shield_kg);
+    put_if(out, "heat_shield_kg", mass.heat_shield_kg);
+    Json items = Json::array();
+    for (const auto& item : mass.items) {
+        Json entry;
+        entry["name"] = item.name;
+        entry["mass_kg"] = number(item.mass_kg);
+        entry["group"] = to_string(item.group);
+        entry["maturity"] = to_string(item.maturity);
+        items.push_back(std::move(entry));
+    }
+    out["items"] = std::move(items);
+    return out;
+}
+
+Json decelerator_to_json(const DeceleratorDesign& decelerator) {
+    Json out;
+    out["diameter_m"] = number(decelerator.diameter_m);
+    out["drag_coefficient"] = number(decelerator.drag_coefficient);
+    out[std::string(key_of(decelerator.trigger))] = number(decelerator.trigger_value);
+    put_if(out, "mass_kg", decelerator.mass_kg);
     return out;
 }
 
@@ -133,20 +153,42 @@ Json parachute_to_json(const ParachuteDesign& parachute) {
     }
     put_if(out, "drag_coefficient", parachute.drag_coefficient);
     out[std::string(key_of(parachute.trigger))] = number(parachute.trigger_value);
+    put_if(out, "mass_kg", parachute.mass_kg);
+    return out;
+}
+
+Json sequence_to_json(const SequenceDesign& sequence) {
+    Json out;
+    put_if(out, "heat_shield_jettison_delay_s", sequence.heat_shield_jettison_delay_s);
+    put_if(out, "heat_shield_jettison_dynamic_pressure_Pa",
+           sequence.heat_shield_jettison_dynamic_pressure_Pa);
+    out["ground_sensing_lock_s"] = number(sequence.ground_sensing_lock_s);
+    out["separation_coast_s"] = number(sequence.separation_coast_s);
     return out;
 }
 
 Json terminal_to_json(const TerminalDesign& terminal) {
     Json out;
     out["method"] = to_string(terminal.method);
-    // Only a powered descent must carry its engine; the other methods leave zeros unsaid.
-    const bool retro = terminal.method == TerminalMethod::retro;
-    if (retro || terminal.isp_s != 0.0)
+    // Each method carries the keys it flies with, and only those: the reader refuses the others.
+    const TerminalMethod method = terminal.method;
+    const bool powered = method != TerminalMethod::none;
+    if (powered) {
         out["isp_s"] = number(terminal.isp_s);
-    if (retro || terminal.thrust_to_weight != 0.0) {
         out["thrust_to_weight"] = number(terminal.thrust_to_weight);
     }
     out["touchdown_velocity_m_s"] = number(terminal.touchdown_velocity_m_s);
+    if (powered) {
+        out["throttle"] = number(terminal.throttle);
+        out["propellant_reserve_fraction"] = number(terminal.propellant_reserve_fraction);
+        out["propellant_residual_fraction"] = number(terminal.propellant_residual_fraction);
+    }
+    if (method == TerminalMethod::airbag)
+        out["release_height_m"] = number(terminal.release_height_m);
+    if (method == TerminalMethod::tethered) {
+        out["tether_length_m"] = number(terminal.tether_length_m);
+        out["fly_away_s"] = number(terminal.fly_away_s);
+    }
     return out;
 }
 
@@ -179,7 +221,10 @@ nlohmann::ordered_json design_to_json(const Design& design) {
     out["entry"] = entry_to_json(design.entry);
     out["aeroshell"] = aeroshell_to_json(design.aeroshell);
     out["mass"] = mass_to_json(design.mass);
+    if (design.decelerator)
+        out["decelerator"] = decelerator_to_json(*design.decelerator);
     out["parachute"] = parachute_to_json(design.parachute);
+    out["sequence"] = sequence_to_json(design.sequence);
     out["terminal"] = terminal_to_json(design.terminal);
     out["limits"] = limits_to_json(design.limits);
     out["solver"] = solver_to_json(design.solver);

@@ -20,7 +20,7 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     c.speed_of_sound_m_s = air.speed_of_sound_m_s;
     c.mach = velocity / air.speed_of_sound_m_s;
     c.dynamic_pressure_Pa = 0.5 * air.density_kg_m3 * velocity * velocity;
-    c.drag_N = c.dynamic_pressure_Pa * stage.drag_coefficient * stage.reference_area_m2;
+    c.drag_N = c.dynamic_pressure_Pa * stage.drag_area_m2(c.mach);
     c.lift_N = stage.lift_to_drag * c.drag_N;
     c.gravity_m_s2 = model.body.gravity_m_s2(altitude);
     c.deceleration_g = std::hypot(c.drag_N, c.lift_N) / mass / standard_gravity_m_s2;

@@ -53,7 +53,7 @@ IntegratorSettings<flight_state_size> flight_integrator_settings(double relative
 PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
                        const FlightState& y0, double t_max,
                        const IntegratorSettings<flight_state_size>& settings,
-                       std::vector<TrajectorySample>* history) {
+                       PhaseRecording recording) {
     const Stage& stage = phase.stage;
     const auto rhs = [&](double, const FlightState& y) { return flight_derivative(model, stage, y); };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
@@ -83,10 +83,15 @@ PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
     }
 
     const auto on_step = [&](double t, const FlightState& y) {
-        if (history) history->push_back(trajectory_sample(t, flight_conditions(model, stage, y), y));
+        if (recording.history) {
+            recording.history->push_back(
+                trajectory_sample(t, flight_conditions(model, stage, y), y));
+        }
     };
     const IntegrationOutcome<flight_state_size> run = integrate_dormand_prince<flight_state_size>(
-        rhs, t0, y0, t_max, events, settings, on_step);
+        rhs, t0, y0, t_max, events, settings, on_step,
+        recording.dense ? &recording.dense->steps() : nullptr);
+    if (recording.dense) recording.dense->set_end_time(run.t);
 
     PhaseOutcome out;
     out.reason = run.reason;

@@ -4,6 +4,7 @@
 #include <string>
 #include <vector>
 
+#include "flight/dense_trajectory.hpp"
 #include "flight/flight_model.hpp"
 #include "results/results.hpp"
 
@@ -62,12 +63,17 @@ struct PhaseOutcome {
     std::size_t evaluations = 0;
 };
 
+/// What a flight keeps besides its outcome, when asked.
+struct PhaseRecording {
+    std::vector<TrajectorySample>* history = nullptr;  ///< a sample per accepted step
+    DenseTrajectory* dense = nullptr;                  ///< the continuous extension
+};
+
 /// Flies one phase from (t0, y0) until a trigger, or until t_max or the step budget runs out.
-/// Appends every accepted step to history when one is given.
 PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
                        const FlightState& y0, double t_max,
                        const IntegratorSettings<flight_state_size>& settings,
-                       std::vector<TrajectorySample>* history = nullptr);
+                       PhaseRecording recording = {});
 
 /// The tolerances we fly with: relative as given, absolute scaled to each state's magnitude.
 IntegratorSettings<flight_state_size> flight_integrator_settings(double relative_tolerance,

@@ -1,16 +1,39 @@
 #pragma once
 
+#include <span>
+#include <vector>
+
 namespace ds {
 
-/// What is flying during one phase: its aerodynamics, heating geometry and thrust.
+/// A drag coefficient's ratio to its nominal value at a Mach number.
+struct MachPoint {
+    double mach = 0.0;
+    double factor = 1.0;
+};
+
+/// One thing that makes drag: an aeroshell, a canopy, an inflatable decelerator.
+struct DragDevice {
+    double area_m2 = 0.0;           ///< reference area A in drag = q Cd A
+    double drag_coefficient = 0.0;  ///< nominal Cd
+    /// Cd / nominal against Mach, linear between points and held flat outside them; empty for
+    /// a constant Cd. The table must outlive the device (the catalogues' tables are static).
+    std::span<const MachPoint> mach_factor;
+
+    double drag_coefficient_at(double mach) const;
+    double drag_area_m2(double mach) const { return drag_coefficient_at(mach) * area_m2; }
+};
+
+/// What is flying during one phase: its drag devices, lift, heating geometry and thrust.
 struct Stage {
-    double reference_area_m2 = 0.0;  ///< A in drag = 0.5 rho V^2 Cd A
-    double drag_coefficient = 0.0;
-    double lift_to_drag = 0.0;
+    std::vector<DragDevice> drag_devices;
+    double lift_to_drag = 0.0;  ///< lift over the total drag
     double bank_angle_rad = 0.0;
     double nose_radius_m = 0.0;  ///< 0: no stagnation heating is computed for this stage
     double thrust_N = 0.0;       ///< along the velocity vector, braking
     double specific_impulse_s = 0.0;
+
+    /// Sum of Cd A over the devices at a Mach number, m^2.
+    double drag_area_m2(double mach) const;
 };
 
 }  // namespace ds

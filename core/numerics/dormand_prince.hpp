@@ -65,6 +65,21 @@ struct IntegrationOutcome {
     std::size_t evaluations = 0;
 };
 
+/// The continuous extension of one accepted step (Hairer's DOPRI5 dense output, fourth
+/// order), valid for t in [t0, t0 + h].
+template <int N>
+struct DenseStep {
+    double t0 = 0.0;
+    double h = 0.0;
+    Vector<N> r1, r2, r3, r4, r5;
+
+    Vector<N> operator()(double t) const {
+        const double theta = (t - t0) / h;
+        const double theta1 = 1.0 - theta;
+        return r1 + theta * (r2 + theta1 * (r3 + theta * (r4 + theta1 * r5)));
+    }
+};
+
 namespace detail {
 
 /// Dormand and Prince, "A family of embedded Runge-Kutta formulae", J. Comp. Appl. Math. 6
@@ -90,20 +105,6 @@ struct DormandPrinceTableau {
                             d6 = -1453857185.0 / 822651844.0, d7 = 69997945.0 / 29380423.0;
 };
 
-/// The continuous extension of one accepted step, valid for t in [t0, t0 + h].
-template <int N>
-struct DenseStep {
-    double t0 = 0.0;
-    double h = 0.0;
-    Vector<N> r1, r2, r3, r4, r5;
-
-    Vector<N> operator()(double t) const {
-        const double theta = (t - t0) / h;
-        const double theta1 = 1.0 - theta;
-        return r1 + theta * (r2 + theta1 * (r3 + theta * (r4 + theta1 * r5)));
-    }
-};
-
 inline bool crosses(double before, double after, EventDirection direction) {
     const bool rising = before < 0.0 && after >= 0.0;
     const bool falling = before > 0.0 && after <= 0.0;
@@ -119,13 +120,15 @@ inline bool crosses(double before, double after, EventDirection direction) {
 
 /// Integrates y' = rhs(t, y) from t0 to t_end with the Dormand-Prince 5(4) pair, adaptive step
 /// size on a mixed absolute/relative error norm, locating events on the dense output with
-/// TOMS 748 (Boost.Math). After every accepted step `on_step(t, y)` is called. The one
+/// TOMS 748 (Boost.Math). After every accepted step `on_step(t, y)` is called; with
+/// `dense_record`, every accepted step's continuous extension is appended to it. The one
 /// integrator of the project: every flight phase is a call of it with its own rhs and events.
 template <int N, class Rhs, class OnStep>
 IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vector<N>& y0,
                                                double t_end, std::span<const Event<N>> events,
                                                const IntegratorSettings<N>& settings,
-                                               OnStep&& on_step) {
+                                               OnStep&& on_step,
+                                               std::vector<DenseStep<N>>* dense_record = nullptr) {
     using T = detail::DormandPrinceTableau;
     // Step control constants of Hairer's DOPRI5 (common practice).
     constexpr double safety = 0.9;
@@ -196,10 +199,11 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         // Accepted: build the continuous extension, then look for events inside the step.
         const Vector<N> ydiff = y_new - y;
         const Vector<N> bspl = h * k1 - ydiff;
-        const detail::DenseStep<N> dense{
+        const DenseStep<N> dense{
             t, h, y, ydiff, bspl, ydiff - h * k7 - bspl,
             h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 + T::d6 * k6 + T::d7 * k7)};
         const double t_new = last ? t_end : t + h;
+        if (dense_record) dense_record->push_back(dense);
 
         std::vector<EventHit<N>> hits;
         std::vector<double> g_after(events.size());

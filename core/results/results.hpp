@@ -44,8 +44,25 @@ struct ParachuteResults {
     std::optional<double> deploy_dynamic_pressure_Pa;
     std::optional<double> deploy_velocity_m_s;
     std::optional<double> diameter_m;
-    std::optional<double> drag_coefficient;
+    std::optional<double> drag_coefficient;  ///< nominal (subsonic), referred to pi D^2 / 4
+    std::optional<double> drag_coefficient_at_deploy;  ///< at the deploy Mach
     std::optional<double> opening_load_N;
+    std::optional<double> inflation_time_s;
+    std::optional<double> mass_kg;
+    std::optional<double> heat_shield_jettison_time_s;
+    /// Descent rate under the canopy at backshell separation, or at the ground for "none".
+    std::optional<double> descent_velocity_m_s;
+};
+
+/// The supersonic inflatable decelerator, when the design has one.
+struct DeceleratorResults {
+    bool deployed = false;
+    std::optional<double> deploy_time_s;
+    std::optional<double> deploy_altitude_m;
+    std::optional<double> deploy_mach;
+    std::optional<double> deploy_dynamic_pressure_Pa;
+    double diameter_m = 0.0;
+    double mass_kg = 0.0;
 };
 
 struct TerminalResults {
@@ -54,8 +71,15 @@ struct TerminalResults {
     std::optional<double> ignition_velocity_m_s;
     std::optional<double> delta_v_m_s;
     std::optional<double> gravity_loss_m_s;
-    std::optional<double> propellant_kg;
+    std::optional<double> propellant_kg;  ///< loaded: burned plus reserve and residual
     std::optional<double> burn_time_s;
+    std::optional<double> ignition_time_s;
+    std::optional<double> thrust_N;
+    std::optional<double> burned_propellant_kg;
+    std::optional<double> touchdown_velocity_m_s;  ///< at the ground (retro, none)
+    std::optional<double> impact_velocity_m_s;     ///< airbag: after the free fall
+    std::optional<double> impact_energy_J;         ///< airbag
+    std::optional<double> hover_time_s;            ///< tethered: lowering plus fly-away
 };
 
 struct TimelineEvent {
@@ -67,18 +91,40 @@ struct TimelineEvent {
 
 struct Timeline {
     std::vector<TimelineEvent> events;  ///< in time order
+    /// Time between parachute deploy and the terminal burn, less what the sequence needs.
     std::optional<double> margin_s;
+    std::optional<double> available_s;
+    std::optional<double> needed_s;
 };
 
 struct MassItem {
     std::string name;
-    double mass_kg = 0.0;
+    double mass_kg = 0.0;  ///< with growth allowance: what flies
+    double basic_kg = 0.0;
+    double growth_fraction = 0.0;
+    std::string group;     ///< when it leaves: "heat shield", "backshell", "descent stage", "payload"
+    std::string maturity;  ///< "estimated", "layout", ... "actual"
+    std::string source;    ///< "design", or the relation it was estimated from
+};
+
+struct MassClosure {
+    bool converged = false;
+    int iterations = 0;
+    double residual_kg = 0.0;  ///< entry mass in, less entry mass out, at the last iteration
 };
 
 struct MassResults {
+    std::string mode;  ///< "analysis" (entry mass fixed) or "sizing" (closed by iteration)
     double entry_kg = 0.0;
     std::optional<double> landed_kg;
     std::vector<MassItem> items;
+    std::optional<MassClosure> closure;  ///< sizing mode only
+};
+
+/// What the design could still do.
+struct Capability {
+    /// The highest site elevation at which the timeline margin is still zero or more.
+    std::optional<double> max_site_elevation_m;
 };
 
 /// One point of the flown trajectory, for plots and the sheet.
@@ -99,10 +145,12 @@ struct Results {
     int version = results_format_version;
     bool converged = false;
     EntryResults entry;
+    std::optional<DeceleratorResults> decelerator;
     ParachuteResults parachute;
     TerminalResults terminal;
     Timeline timeline;
     MassResults mass;
+    Capability capability;
     std::vector<Check> checks;  ///< failing first, then marginal, then passing
     std::vector<TrajectorySample> history;
     std::vector<std::string> notes;  ///< what the results do not cover, in words

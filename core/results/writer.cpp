@@ -1,6 +1,7 @@
 #include "results/writer.hpp"
 
 #include <cmath>
+#include <optional>
 
 namespace ds {
 namespace {
@@ -50,7 +51,27 @@ Json parachute_to_json(const ParachuteResults& parachute) {
     out["deploy_velocity_m_s"] = number(parachute.deploy_velocity_m_s);
     out["diameter_m"] = number(parachute.diameter_m);
     out["drag_coefficient"] = number(parachute.drag_coefficient);
+    out["drag_coefficient_at_deploy"] = number(parachute.drag_coefficient_at_deploy);
     out["opening_load_N"] = number(parachute.opening_load_N);
+    out["inflation_time_s"] = number(parachute.inflation_time_s);
+    out["mass_kg"] = number(parachute.mass_kg);
+    out["heat_shield_jettison_time_s"] = number(parachute.heat_shield_jettison_time_s);
+    out["descent_velocity_m_s"] = number(parachute.descent_velocity_m_s);
+    return out;
+}
+
+/// The decelerator, or null for a design without one.
+Json decelerator_to_json(const std::optional<DeceleratorResults>& decelerator) {
+    if (!decelerator)
+        return nullptr;
+    Json out;
+    out["deployed"] = decelerator->deployed;
+    out["deploy_time_s"] = number(decelerator->deploy_time_s);
+    out["deploy_altitude_m"] = number(decelerator->deploy_altitude_m);
+    out["deploy_mach"] = number(decelerator->deploy_mach);
+    out["deploy_dynamic_pressure_Pa"] = number(decelerator->deploy_dynamic_pressure_Pa);
+    out["diameter_m"] = number(decelerator->diameter_m);
+    out["mass_kg"] = number(decelerator->mass_kg);
     return out;
 }
 
@@ -63,6 +84,13 @@ Json terminal_to_json(const TerminalResults& terminal) {
     out["gravity_loss_m_s"] = number(terminal.gravity_loss_m_s);
     out["propellant_kg"] = number(terminal.propellant_kg);
     out["burn_time_s"] = number(terminal.burn_time_s);
+    out["ignition_time_s"] = number(terminal.ignition_time_s);
+    out["thrust_N"] = number(terminal.thrust_N);
+    out["burned_propellant_kg"] = number(terminal.burned_propellant_kg);
+    out["touchdown_velocity_m_s"] = number(terminal.touchdown_velocity_m_s);
+    out["impact_velocity_m_s"] = number(terminal.impact_velocity_m_s);
+    out["impact_energy_J"] = number(terminal.impact_energy_J);
+    out["hover_time_s"] = number(terminal.hover_time_s);
     return out;
 }
 
@@ -79,6 +107,19 @@ Json timeline_to_json(const Timeline& timeline) {
     Json out;
     out["events"] = std::move(events);
     out["margin_s"] = number(timeline.margin_s);
+    out["available_s"] = number(timeline.available_s);
+    out["needed_s"] = number(timeline.needed_s);
+    return out;
+}
+
+/// The closure of a sized budget, or null for a fixed entry mass.
+Json closure_to_json(const std::optional<MassClosure>& closure) {
+    if (!closure)
+        return nullptr;
+    Json out;
+    out["converged"] = closure->converged;
+    out["iterations"] = closure->iterations;
+    out["residual_kg"] = number(closure->residual_kg);
     return out;
 }
 
@@ -88,12 +129,25 @@ Json mass_to_json(const MassResults& mass) {
         Json entry;
         entry["name"] = item.name;
         entry["mass_kg"] = number(item.mass_kg);
+        entry["basic_kg"] = number(item.basic_kg);
+        entry["growth_fraction"] = number(item.growth_fraction);
+        entry["group"] = item.group;
+        entry["maturity"] = item.maturity;
+        entry["source"] = item.source;
         items.push_back(std::move(entry));
     }
     Json out;
+    out["mode"] = mass.mode;
     out["entry_kg"] = number(mass.entry_kg);
     out["landed_kg"] = number(mass.landed_kg);
     out["items"] = std::move(items);
+    out["closure"] = closure_to_json(mass.closure);
+    return out;
+}
+
+Json capability_to_json(const Capability& capability) {
+    Json out;
+    out["max_site_elevation_m"] = number(capability.max_site_elevation_m);
     return out;
 }
 
@@ -140,10 +194,12 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
     out["version"] = results_format_version;
     out["converged"] = results.converged;
     out["entry"] = entry_to_json(results.entry);
+    out["decelerator"] = decelerator_to_json(results.decelerator);
     out["parachute"] = parachute_to_json(results.parachute);
     out["terminal"] = terminal_to_json(results.terminal);
     out["timeline"] = timeline_to_json(results.timeline);
     out["mass"] = mass_to_json(results.mass);
+    out["capability"] = capability_to_json(results.capability);
     out["checks"] = checks_to_json(results.checks);
     out["notes"] = results.notes;
     if (options.include_history)

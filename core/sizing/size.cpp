@@ -2,121 +2,94 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <memory>
-#include <stdexcept>
+#include <numeric>
 
+#include <boost/math/tools/toms748_solve.hpp>
 #include <fmt/format.h>
 
 #include "aeroshell/sphere_cone.hpp"
 #include "checks/rule_set.hpp"
 #include "constants.hpp"
-#include "flight/phase.hpp"
 #include "heating/heat_shield_mass.hpp"
-#include "parachute/canopy.hpp"
 #include "sizing/environment.hpp"
+#include "sizing/evaluation.hpp"
 
 namespace ds {
 namespace {
 
 constexpr double per_cm2 = 1e-4;  // W/m^2 to W/cm^2, J/m^2 to J/cm^2
 
-struct ResolvedAeroshell {
-    double diameter_m = 0.0;  ///< 0 when a sizing request has no solution
-    double drag_coefficient = 0.0;
-    std::string drag_coefficient_source;
+// Mass closure: to 0.1 kg, within 50 iterations, and a mass beyond 1000 t has diverged.
+constexpr double closure_tolerance_kg = 0.1;
+constexpr int closure_max_iterations = 50;
+constexpr double closure_diverged_kg = 1e6;
+// First guess of the entry mass: the itemised masses over a typical itemised share of it.
+constexpr double first_guess_itemised_share = 0.6;
+// The highest feasible site elevation is found to half a metre.
+constexpr double capability_tolerance_m = 0.5;
+
+struct Closure {
+    Evaluation evaluation;
+    MassClosure report;
 };
 
-ResolvedAeroshell resolve_aeroshell(const Design& design, double mass_kg) {
-    const AeroshellDesign& a = design.aeroshell;
-    const double half_angle = degrees_to_radians(a.half_angle_deg);
-    const double gamma = design_gamma(design);
-    const auto drag_coefficient_of = [&](double diameter_m) {
-        if (a.drag_coefficient) return *a.drag_coefficient;
-        return modified_newtonian_sphere_cone_drag_coefficient(
-            half_angle, a.nose_radius_m / (0.5 * diameter_m), gamma);
+/// Closes the budget: finds the entry mass m with m = budget(m), by the secant method on
+/// r(m) = budget(m) - m, started with one fixed-point step.
+Closure close_budget(const Design& design, const FlightModel& model, const Atmosphere& atmosphere) {
+    double itemised = 0.0;
+    for (const MassItemDesign& item : design.mass.items) itemised += item.mass_kg;
+    double m0 = itemised / first_guess_itemised_share;
+    Closure c{evaluate(design, model, atmosphere, m0), {}};
+    double r0 = c.evaluation.budget_kg() - m0;
+    double m1 = c.evaluation.budget_kg();
+    for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
+        c.report.iterations = iteration;
+        if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg) break;
+        c.evaluation = evaluate(design, model, atmosphere, m1);
+        const double r1 = c.evaluation.budget_kg() - m1;
+        c.report.residual_kg = r1;
+        if (std::abs(r1) < closure_tolerance_kg) {
+            c.report.converged = true;
+            break;
+        }
+        const double slope = (r1 - r0) / (m1 - m0);
+        const double next = slope != 0.0 && std::isfinite(slope) ? m1 - r1 / slope : m1 + r1;
+        m0 = m1;
+        r0 = r1;
+        m1 = next;
+    }
+    return c;
+}
+
+/// The highest site elevation with a timeline margin of zero or more, on the evaluation's own
+/// descent (the masses held at their closed values).
+std::optional<double> max_site_elevation(const Design& design, const FlightModel& model,
+                                         const Evaluation& e) {
+    if (!e.descent || !e.descent->jettisoned || !e.descent->reached_floor) return std::nullopt;
+    const auto margin_at = [&](double site) {
+        const auto m = timeline_margin(design, model, e, site);
+        return m ? m->margin_s : -std::numeric_limits<double>::infinity();
     };
-    ResolvedAeroshell out;
-    out.drag_coefficient_source = a.drag_coefficient ? "design" : "modified Newtonian";
-    out.diameter_m = a.diameter_m ? *a.diameter_m
-                                  : diameter_for_ballistic_coefficient(
-                                        mass_kg, *a.size_for_ballistic_coefficient_kg_m2,
-                                        2.0 * a.nose_radius_m, drag_coefficient_of);
-    if (out.diameter_m > 0.0) out.drag_coefficient = drag_coefficient_of(out.diameter_m);
-    return out;
+    const double low = design.site.elevation_m - descent_floor_below_site_m + capability_tolerance_m;
+    const double high = e.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
+    if (!(high > low)) return std::nullopt;
+    const double margin_low = margin_at(low);
+    const double margin_high = margin_at(high);
+    if (!(margin_low >= 0.0)) return std::nullopt;
+    if (margin_high >= 0.0) return high;
+    std::uintmax_t iterations = 60;
+    const auto close = [](double a, double b) { return b - a <= capability_tolerance_m; };
+    return boost::math::tools::toms748_solve(margin_at, low, high, margin_low, margin_high, close,
+                                             iterations)
+        .first;
 }
 
-Trigger parachute_trigger(const ParachuteDesign& p) {
-    switch (p.trigger) {
-        case TriggerKind::mach:
-            return {"parachute deploy", FlightQuantity::mach, p.trigger_value,
-                    EventDirection::falling};
-        case TriggerKind::dynamic_pressure:
-            return {"parachute deploy", FlightQuantity::dynamic_pressure, p.trigger_value,
-                    EventDirection::falling};
-        case TriggerKind::altitude:
-            return {"parachute deploy", FlightQuantity::altitude, p.trigger_value,
-                    EventDirection::falling};
-    }
-    throw std::invalid_argument("parachute: unknown trigger");
-}
-
-std::string describe_trigger(const ParachuteDesign& p) {
-    switch (p.trigger) {
-        case TriggerKind::mach: return fmt::format("Mach {:.3g}", p.trigger_value);
-        case TriggerKind::dynamic_pressure:
-            return fmt::format("dynamic pressure {:.4g} Pa", p.trigger_value);
-        case TriggerKind::altitude: return fmt::format("altitude {:.6g} m", p.trigger_value);
-    }
-    return {};
-}
-
-// Indices of the entry phase's ends and peaks, in the order entry_phase lists them.
-enum EntryEnd : std::size_t { deploy_end, ground_end, exit_end };
-enum EntryPeak : std::size_t {
-    dynamic_pressure_peak, deceleration_peak, heat_flux_peak, radiative_peak
-};
-
-Phase entry_phase(const Design& design, const ResolvedAeroshell& aeroshell) {
-    Phase phase;
-    phase.name = "entry";
-    phase.stage.reference_area_m2 = frontal_area_m2(aeroshell.diameter_m);
-    phase.stage.drag_coefficient = aeroshell.drag_coefficient;
-    phase.stage.lift_to_drag = design.entry.lift_to_drag;
-    phase.stage.bank_angle_rad = degrees_to_radians(design.entry.bank_angle_deg);
-    phase.stage.nose_radius_m = design.aeroshell.nose_radius_m;
-    phase.ends = {parachute_trigger(design.parachute),
-                  {"ground impact", FlightQuantity::altitude, design.site.elevation_m,
-                   EventDirection::falling},
-                  {"atmospheric exit", FlightQuantity::altitude,
-                   design.entry.interface_altitude_m, EventDirection::rising}};
-    phase.peaks = {{"peak dynamic pressure", FlightQuantity::dynamic_pressure},
-                   {"peak deceleration", FlightQuantity::deceleration},
-                   {"peak heat flux", FlightQuantity::heat_flux},
-                   {"peak radiative heat flux", FlightQuantity::radiative_heat_flux}};
-    return phase;
-}
-
-/// The highest value of a peak's quantity over the phase: its located local maxima, and the
-/// phase's two ends (a quantity may still be rising when the phase ends).
-struct Highest {
-    double value = 0.0;
-    double time_s = 0.0;
-    FlightState y;
-};
-
-Highest highest(const FlightModel& model, const Phase& phase, std::size_t peak,
-                const PhaseOutcome& flown, double t0, const FlightState& y0) {
-    const FlightQuantity q = phase.peaks[peak].quantity;
-    const auto value_at = [&](const FlightState& y) {
-        return flight_quantity(q, flight_conditions(model, phase.stage, y), y);
-    };
-    Highest best{value_at(y0), t0, y0};
-    const double at_end = value_at(flown.y);
-    if (at_end > best.value) best = {at_end, flown.time_s, flown.y};
-    for (const PeakHit& hit : flown.peaks) {
-        if (hit.peak == peak && hit.value > best.value) best = {hit.value, hit.time_s, hit.y};
-    }
-    return best;
+Check flight_check(std::string id, CheckStatus status, double value, double limit,
+                   std::string unit, std::string message, std::string source) {
+    return {std::move(id), status, value, limit, std::move(unit), std::move(message),
+            std::move(source)};
 }
 
 std::string_view stop_reason_text(StopReason reason) {
@@ -131,184 +104,344 @@ std::string_view stop_reason_text(StopReason reason) {
     return "";
 }
 
-Check flight_check(std::string id, CheckStatus status, double value, double limit,
-                   std::string unit, std::string message, std::string source) {
-    return {std::move(id), status, value, limit, std::move(unit), std::move(message),
-            std::move(source)};
+TimelineEvent event_at(std::string name, double t, const FlightState& y) {
+    return {std::move(name), t, y[StateIndex::altitude], y[StateIndex::velocity]};
+}
+
+void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) {
+    const EntryFlight& f = e.entry;
+    entry.mass_kg = e.entry_kg;
+    entry.diameter_m = e.aeroshell.diameter_m;
+    entry.nose_radius_m = design.aeroshell.nose_radius_m;
+    entry.drag_coefficient = e.aeroshell.drag_coefficient;
+    entry.drag_coefficient_source = e.aeroshell.drag_coefficient_source;
+    if (e.aeroshell.diameter_m <= 0.0) return;
+    entry.ballistic_coefficient_kg_m2 = ballistic_coefficient_kg_m2(
+        e.entry_kg, e.aeroshell.drag_coefficient, frontal_area_m2(e.aeroshell.diameter_m));
+    const auto altitude = [](const PeakValue& p) { return p.y[StateIndex::altitude]; };
+    entry.peak_dynamic_pressure_Pa = f.dynamic_pressure.value;
+    entry.peak_dynamic_pressure_altitude_m = altitude(f.dynamic_pressure);
+    entry.peak_deceleration_g = f.deceleration.value;
+    entry.peak_deceleration_altitude_m = altitude(f.deceleration);
+    entry.peak_heat_flux_W_cm2 = f.heat_flux.value * per_cm2;
+    entry.peak_heat_flux_altitude_m = altitude(f.heat_flux);
+    entry.heat_load_J_cm2 = f.end_state[StateIndex::convective_heat_load] * per_cm2;
+    if (!design.body.body.gas.radiative_correlation.empty()) {
+        entry.peak_radiative_heat_flux_W_cm2 = f.radiative_heat_flux.value * per_cm2;
+        entry.radiative_heat_load_J_cm2 = f.end_state[StateIndex::radiative_heat_load] * per_cm2;
+    }
+    entry.heat_shield_mass_fraction = heat_shield_mass_fraction(e.total_heat_load_J_cm2);
+    entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
+}
+
+void fill_parachute(const Evaluation& e, const Design& design, ParachuteResults& p) {
+    p.drag_coefficient = e.canopy_drag_coefficient;
+    p.diameter_m = e.canopy_diameter_m;
+    for (const MassItem& item : e.budget.items()) {
+        if (item.name.rfind("parachute", 0) == 0) p.mass_kg = item.mass_kg;
+    }
+    p.deployed = e.entry.end == EntryEnd::deployed;
+    if (!p.deployed) return;
+    const FlightConditions& c = e.entry.end_conditions;
+    const double v = e.entry.end_state[StateIndex::velocity];
+    p.deploy_time_s = e.entry.end_time_s;
+    p.deploy_altitude_m = e.entry.end_state[StateIndex::altitude];
+    p.deploy_mach = c.mach;
+    p.deploy_dynamic_pressure_Pa = c.dynamic_pressure_Pa;
+    p.deploy_velocity_m_s = v;
+    const DragDevice canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
+    p.drag_coefficient_at_deploy = canopy.drag_coefficient_at(c.mach);
+    p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach,
+                                      e.canopy_diameter_m, e.canopy_drag_coefficient);
+    p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, v);
+    if (e.descent && e.descent->jettisoned) p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
+    if (e.burn) {
+        p.descent_velocity_m_s = e.burn->separation_state[StateIndex::velocity];
+    } else if (e.touchdown_velocity_m_s) {
+        p.descent_velocity_m_s = e.touchdown_velocity_m_s;
+    }
+    (void)design;
+}
+
+void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t) {
+    t.method = std::string(to_string(design.terminal.method));
+    t.touchdown_velocity_m_s = e.touchdown_velocity_m_s;
+    t.impact_velocity_m_s = e.impact_velocity_m_s;
+    t.impact_energy_J = e.impact_energy_J;
+    t.hover_time_s = e.hover_time_s;
+    if (!e.burn) return;
+    const BurnSolution& b = *e.burn;
+    t.ignition_time_s = b.ignition_time_s;
+    t.ignition_altitude_m = b.ignition_state[StateIndex::altitude];
+    t.ignition_velocity_m_s = b.ignition_state[StateIndex::velocity];
+    t.delta_v_m_s = b.ideal_delta_v_m_s;
+    t.gravity_loss_m_s = b.gravity_loss_m_s;
+    t.burn_time_s = b.burn_time_s;
+    t.thrust_N = e.burn_request->thrust_N;
+    t.burned_propellant_kg = e.burned_kg;
+    t.propellant_kg = e.loaded_propellant_kg;
+}
+
+void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline) {
+    std::vector<TimelineEvent>& events = timeline.events;
+    const EntryFlight& f = e.entry;
+    events.push_back(event_at("entry interface", 0.0, f.start));
+    if (e.aeroshell.diameter_m <= 0.0) return;
+    if (f.decelerator_deployed) {
+        events.push_back(event_at("decelerator deploy", f.decelerator_time_s, f.decelerator_state));
+    }
+    events.push_back(event_at("peak heat flux", f.heat_flux.time_s, f.heat_flux.y));
+    events.push_back(event_at("peak deceleration", f.deceleration.time_s, f.deceleration.y));
+    events.push_back(event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
+    switch (f.end) {
+        case EntryEnd::deployed:
+            events.push_back(event_at("parachute deploy", f.end_time_s, f.end_state));
+            break;
+        case EntryEnd::ground:
+            events.push_back(event_at("ground impact", f.end_time_s, f.end_state));
+            break;
+        case EntryEnd::skip_out:
+            events.push_back(event_at("atmospheric exit", f.end_time_s, f.end_state));
+            break;
+        case EntryEnd::stopped:
+            events.push_back(event_at("integration stopped", f.end_time_s, f.end_state));
+            break;
+    }
+    if (e.descent && e.descent->jettisoned) {
+        events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
+                                  e.descent->jettison_state));
+    }
+    const double site = design.site.elevation_m;
+    const auto at_site = [&](std::string name, double t, double v) {
+        return TimelineEvent{std::move(name), t, site, v};
+    };
+    if (e.burn) {
+        const BurnSolution& b = *e.burn;
+        events.push_back(event_at("backshell separation", b.separation_time_s, b.separation_state));
+        events.push_back(event_at("ignition", b.ignition_time_s, b.ignition_state));
+        switch (design.terminal.method) {
+            case TerminalMethod::retro:
+                events.push_back(event_at("touchdown", b.end_time_s, b.end_state));
+                break;
+            case TerminalMethod::airbag:
+                events.push_back(event_at("release", b.end_time_s, b.end_state));
+                if (e.touchdown_time_s && e.impact_velocity_m_s) {
+                    events.push_back(at_site("airbag impact", *e.touchdown_time_s, *e.impact_velocity_m_s));
+                }
+                break;
+            case TerminalMethod::tethered:
+                events.push_back(event_at("hover and lowering", b.end_time_s, b.end_state));
+                if (e.touchdown_time_s) {
+                    events.push_back(at_site("payload touchdown", *e.touchdown_time_s, 0.0));
+                }
+                break;
+            case TerminalMethod::none: break;
+        }
+    } else if (e.touchdown_time_s && e.touchdown_velocity_m_s) {
+        events.push_back(at_site("touchdown", *e.touchdown_time_s, *e.touchdown_velocity_m_s));
+    }
+    std::stable_sort(events.begin(), events.end(),
+                     [](const TimelineEvent& a, const TimelineEvent& b) { return a.time_s < b.time_s; });
+}
+
+/// Checks that come from the flight and the closure themselves, not from a limit.
+std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
+                                 const std::optional<MassClosure>& closure) {
+    std::vector<Check> checks;
+    const double mass = e.entry_kg;
+    if (design.aeroshell.size_for_ballistic_coefficient_kg_m2) {
+        const double target = *design.aeroshell.size_for_ballistic_coefficient_kg_m2;
+        checks.push_back(
+            e.aeroshell.diameter_m > 0.0
+                ? flight_check("aeroshell_sizing", CheckStatus::pass, target, target, "kg/m^2",
+                               fmt::format("aeroshell sized to {:.4g} m for a ballistic "
+                                           "coefficient of {:.4g} kg/m^2",
+                                           e.aeroshell.diameter_m, target),
+                               "sizing request")
+                : flight_check("aeroshell_sizing", CheckStatus::fail, 0.0, target, "kg/m^2",
+                               fmt::format("no aeroshell diameter between the nose diameter and "
+                                           "100 m gives a ballistic coefficient of {:.4g} kg/m^2 "
+                                           "at {:.4g} kg",
+                                           target, mass),
+                               "sizing request"));
+        if (e.aeroshell.diameter_m <= 0.0) return checks;
+    }
+    if (!design.parachute.diameter_m && e.canopy_diameter_m <= 0.0) {
+        checks.push_back(flight_check(
+            "parachute_sizing", CheckStatus::fail, 0.0, *design.parachute.size_for_velocity_m_s,
+            "m/s", "the vehicle under the canopy already descends slower than the requested speed: "
+                   "no canopy is needed, or the request is wrong",
+            "sizing request"));
+    }
+
+    const EntryFlight& f = e.entry;
+    const std::string trigger =
+        describe_trigger(design.parachute.trigger, design.parachute.trigger_value);
+    const double v_end = f.end_state[StateIndex::velocity];
+    const double h_end = f.end_state[StateIndex::altitude];
+    switch (f.end) {
+        case EntryEnd::deployed:
+            checks.push_back(flight_check(
+                "parachute_trigger", CheckStatus::pass, h_end - design.site.elevation_m, 0.0, "m",
+                fmt::format("parachute trigger ({}) reached {:.0f} m above the site, {:.1f} s "
+                            "after entry",
+                            trigger, h_end - design.site.elevation_m, f.end_time_s),
+                "design trigger"));
+            break;
+        case EntryEnd::ground:
+            checks.push_back(flight_check(
+                "parachute_trigger", CheckStatus::fail, 0.0, 0.0, "m",
+                fmt::format("the vehicle reaches the ground at {:.1f} m/s (Mach {:.2f}), {:.1f} s "
+                            "after entry, before the parachute trigger ({})",
+                            v_end, f.end_conditions.mach, f.end_time_s, trigger),
+                "design trigger"));
+            break;
+        case EntryEnd::skip_out:
+            checks.push_back(flight_check(
+                "parachute_trigger", CheckStatus::fail, h_end - design.site.elevation_m, 0.0, "m",
+                fmt::format("the vehicle skips out of the atmosphere at {:.0f} m/s, {:.1f} s after "
+                            "entry, before the parachute trigger ({}): steepen the entry or "
+                            "reduce the lift",
+                            v_end, f.end_time_s, trigger),
+                "design trigger"));
+            break;
+        case EntryEnd::stopped:
+            checks.push_back(flight_check(
+                "trajectory", CheckStatus::fail, f.end_time_s, design.solver.max_time_s, "s",
+                fmt::format("the flight stopped at {:.1f} s, {:.0f} m, {:.1f} m/s: {}",
+                            f.end_time_s, h_end, v_end, stop_reason_text(f.stop_reason)),
+                "solver settings"));
+            break;
+    }
+    if (e.descent && !e.descent->reached_floor && e.descent->stop_reason != StopReason::terminal_event) {
+        checks.push_back(flight_check(
+            "trajectory", CheckStatus::fail, 0.0, design.solver.max_time_s, "s",
+            fmt::format("the descent under the canopy stopped: {}",
+                        stop_reason_text(e.descent->stop_reason)),
+            "solver settings"));
+    }
+    if (e.descent && !e.descent->jettisoned) {
+        checks.push_back(flight_check(
+            "heat_shield_jettison", CheckStatus::fail, 0.0, 0.0, "",
+            "the heat shield is never jettisoned before the ground: shorten the jettison delay or "
+            "raise its dynamic pressure",
+            "design sequence"));
+    }
+    if (e.burn && !e.burn->stops_in_time) {
+        checks.push_back(flight_check(
+            "terminal_burn", CheckStatus::fail, e.burn->end_state[StateIndex::velocity],
+            design.terminal.touchdown_velocity_m_s, "m/s",
+            fmt::format("even separating at parachute deploy, the burn cannot bring the lander to "
+                        "{:.2g} m/s in time: it reaches the ground at {:.1f} m/s; more thrust or "
+                        "an earlier, higher deploy is needed",
+                        design.terminal.touchdown_velocity_m_s,
+                        e.burn->end_state[StateIndex::velocity]),
+            "terminal descent"));
+    }
+    if (closure) {
+        checks.push_back(
+            closure->converged
+                ? flight_check("mass_closure", CheckStatus::pass, closure->residual_kg,
+                               closure_tolerance_kg, "kg",
+                               fmt::format("mass budget closed at {:.1f} kg in {} iterations",
+                                           mass, closure->iterations),
+                               "closure to 0.1 kg")
+                : flight_check("mass_closure", CheckStatus::fail, closure->residual_kg,
+                               closure_tolerance_kg, "kg",
+                               fmt::format("the mass budget does not close: after {} iterations "
+                                           "the entry mass is {:.4g} kg and the budget adds up "
+                                           "to {:.4g} kg (propellant or estimates growing "
+                                           "faster than the mass they serve)",
+                                           closure->iterations, mass, e.budget_kg()),
+                               "closure to 0.1 kg"));
+    } else {
+        const double unallocated = e.entry_kg - (e.budget_kg() - [&] {
+            for (const MassItem& item : e.budget.items()) {
+                if (item.name.rfind("unallocated", 0) == 0) return item.mass_kg;
+            }
+            return 0.0;
+        }());
+        checks.push_back(flight_check(
+            "mass_allocation", unallocated < 0.0 ? CheckStatus::fail : CheckStatus::pass,
+            unallocated, 0.0, "kg",
+            unallocated < 0.0
+                ? fmt::format("the items and estimates add up to {:.1f} kg more than the fixed "
+                              "entry mass of {:.1f} kg",
+                              -unallocated, mass)
+                : fmt::format("{:.1f} kg of the fixed entry mass of {:.1f} kg is not itemised or "
+                              "estimated",
+                              unallocated, mass),
+            "entry mass fixed by the design"));
+    }
+    return checks;
 }
 
 }  // namespace
 
 Results size_design(const Design& design) {
-    Results results;
-    const double mass = *design.mass.entry_kg;
     const std::unique_ptr<Atmosphere> atmosphere = make_atmosphere(design);
     const FlightModel model{design.body.body, *atmosphere};
-    std::vector<Check> flight_checks;
 
-    const ResolvedAeroshell aeroshell = resolve_aeroshell(design, mass);
-    EntryResults& entry = results.entry;
-    entry.mass_kg = mass;
-    entry.nose_radius_m = design.aeroshell.nose_radius_m;
-    entry.drag_coefficient_source = aeroshell.drag_coefficient_source;
-    results.terminal.method = std::string(to_string(design.terminal.method));
-    results.mass.entry_kg = mass;
-    results.mass.items = {{"heat shield", design.mass.heat_shield_kg},
-                          {"rest of the entry vehicle", mass - design.mass.heat_shield_kg}};
+    Results results;
+    std::optional<MassClosure> closure;
+    Evaluation e;
+    if (design.mass.entry_kg) {
+        e = evaluate(design, model, *atmosphere, *design.mass.entry_kg);
+        results.mass.mode = "analysis";
+    } else {
+        Closure closed = close_budget(design, model, *atmosphere);
+        e = std::move(closed.evaluation);
+        closure = closed.report;
+        results.mass.mode = "sizing";
+        results.mass.closure = closed.report;
+    }
 
-    if (design.aeroshell.size_for_ballistic_coefficient_kg_m2) {
-        const double target = *design.aeroshell.size_for_ballistic_coefficient_kg_m2;
-        if (aeroshell.diameter_m <= 0.0) {
-            flight_checks.push_back(flight_check(
-                "aeroshell_sizing", CheckStatus::fail, 0.0, target, "kg/m^2",
-                fmt::format("no aeroshell diameter between the nose diameter and 100 m gives a "
-                            "ballistic coefficient of {:.4g} kg/m^2 at {:.4g} kg",
-                            target, mass),
-                "sizing request"));
-            order_checks(flight_checks);
-            results.checks = std::move(flight_checks);
-            results.converged = false;
-            return results;
+    fill_entry(e, design, results.entry);
+    if (design.decelerator) {
+        DeceleratorResults d;
+        d.diameter_m = design.decelerator->diameter_m;
+        for (const MassItem& item : e.budget.items()) {
+            if (item.name == "inflatable decelerator") d.mass_kg = item.mass_kg;
         }
-        flight_checks.push_back(flight_check(
-            "aeroshell_sizing", CheckStatus::pass, target, target, "kg/m^2",
-            fmt::format("aeroshell sized to {:.4g} m for a ballistic coefficient of {:.4g} kg/m^2",
-                        aeroshell.diameter_m, target),
-            "sizing request"));
+        d.deployed = e.entry.decelerator_deployed;
+        if (d.deployed) {
+            d.deploy_time_s = e.entry.decelerator_time_s;
+            d.deploy_altitude_m = e.entry.decelerator_state[StateIndex::altitude];
+            d.deploy_mach = e.entry.decelerator_conditions.mach;
+            d.deploy_dynamic_pressure_Pa = e.entry.decelerator_conditions.dynamic_pressure_Pa;
+        }
+        results.decelerator = d;
     }
-    entry.diameter_m = aeroshell.diameter_m;
-    entry.drag_coefficient = aeroshell.drag_coefficient;
-    entry.ballistic_coefficient_kg_m2 = ballistic_coefficient_kg_m2(
-        mass, aeroshell.drag_coefficient, frontal_area_m2(aeroshell.diameter_m));
-
-    // Fly the entry phase from the interface to the parachute trigger.
-    const Phase phase = entry_phase(design, aeroshell);
-    FlightState y0;
-    y0 << design.entry.interface_altitude_m, 0.0, design.entry.velocity_m_s,
-        degrees_to_radians(design.entry.flight_path_angle_deg), mass, 0.0, 0.0;
-    const auto settings = flight_integrator_settings(
-        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
-    const PhaseOutcome flown =
-        fly_phase(model, phase, 0.0, y0, design.solver.max_time_s, settings, &results.history);
-
-    const auto altitude_of = [](const Highest& h) { return h.y[StateIndex::altitude]; };
-    const Highest q_max = highest(model, phase, dynamic_pressure_peak, flown, 0.0, y0);
-    const Highest a_max = highest(model, phase, deceleration_peak, flown, 0.0, y0);
-    const Highest heat_max = highest(model, phase, heat_flux_peak, flown, 0.0, y0);
-    entry.peak_dynamic_pressure_Pa = q_max.value;
-    entry.peak_dynamic_pressure_altitude_m = altitude_of(q_max);
-    entry.peak_deceleration_g = a_max.value;
-    entry.peak_deceleration_altitude_m = altitude_of(a_max);
-    entry.peak_heat_flux_W_cm2 = heat_max.value * per_cm2;
-    entry.peak_heat_flux_altitude_m = altitude_of(heat_max);
-    entry.heat_load_J_cm2 = flown.y[StateIndex::convective_heat_load] * per_cm2;
-    double total_heat_load_J_cm2 = entry.heat_load_J_cm2;
-    if (!design.body.body.gas.radiative_correlation.empty()) {
-        const Highest rad_max = highest(model, phase, radiative_peak, flown, 0.0, y0);
-        entry.peak_radiative_heat_flux_W_cm2 = rad_max.value * per_cm2;
-        entry.radiative_heat_load_J_cm2 = flown.y[StateIndex::radiative_heat_load] * per_cm2;
-        total_heat_load_J_cm2 += *entry.radiative_heat_load_J_cm2;
+    fill_parachute(e, design, results.parachute);
+    fill_terminal(e, design, results.terminal);
+    fill_timeline(e, design, results.timeline);
+    if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {
+        results.timeline.margin_s = margin->margin_s;
+        results.timeline.available_s = margin->available_s;
+        results.timeline.needed_s = margin->needed_s;
     }
-    entry.heat_shield_mass_fraction = heat_shield_mass_fraction(total_heat_load_J_cm2);
-    entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * mass;
+    results.mass.entry_kg = e.entry_kg;
+    results.mass.items = e.budget.items();
+    if (e.descent) results.mass.landed_kg = e.landed_kg;
+    results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
+    results.history = std::move(e.history);
 
-    // Timeline: the interface, the peaks, and how the phase ended.
-    std::vector<TimelineEvent>& events = results.timeline.events;
-    const auto event_at = [](std::string name, double t, const FlightState& y) {
-        return TimelineEvent{std::move(name), t, y[StateIndex::altitude], y[StateIndex::velocity]};
-    };
-    events.push_back(event_at("entry interface", 0.0, y0));
-    events.push_back(event_at("peak heat flux", heat_max.time_s, heat_max.y));
-    events.push_back(event_at("peak deceleration", a_max.time_s, a_max.y));
-    events.push_back(event_at("peak dynamic pressure", q_max.time_s, q_max.y));
-
-    const FlightConditions at_end = flight_conditions(model, phase.stage, flown.y);
-    const double end_altitude = flown.y[StateIndex::altitude];
-    const double end_velocity = flown.y[StateIndex::velocity];
-    const bool completed = flown.reason == StopReason::terminal_event;
-    if (completed) {
-        events.push_back(event_at(phase.ends[*flown.ended_by].name, flown.time_s, flown.y));
-        flight_checks.push_back(flight_check(
-            "trajectory", CheckStatus::pass, static_cast<double>(flown.steps),
-            static_cast<double>(design.solver.max_steps), "steps",
-            fmt::format("entry flown in {} steps to {}", flown.steps,
-                        phase.ends[*flown.ended_by].name),
-            "solver settings"));
-    } else {
-        events.push_back(event_at("integration stopped", flown.time_s, flown.y));
-        flight_checks.push_back(flight_check(
-            "trajectory", CheckStatus::fail, flown.time_s, design.solver.max_time_s, "s",
-            fmt::format("the flight stopped at {:.1f} s, {:.0f} m, {:.1f} m/s: {}", flown.time_s,
-                        end_altitude, end_velocity, stop_reason_text(flown.reason)),
-            "solver settings"));
-    }
-    std::stable_sort(events.begin(), events.end(),
-                     [](const TimelineEvent& a, const TimelineEvent& b) { return a.time_s < b.time_s; });
-
-    // The parachute: deploy conditions, size and opening load.
-    ParachuteResults& chute = results.parachute;
-    const CanopyType canopy = *canopy_type(design.parachute.type);
-    const double chute_cd = design.parachute.drag_coefficient.value_or(canopy.drag_coefficient);
-    chute.drag_coefficient = chute_cd;
-    const std::string trigger_text = describe_trigger(design.parachute);
-    const double height_above_site = end_altitude - design.site.elevation_m;
-    chute.deployed = completed && flown.ended_by == deploy_end;
-    if (design.parachute.diameter_m) {
-        chute.diameter_m = *design.parachute.diameter_m;
-    } else {
-        // Terminal-velocity balance under the canopy alone at the requested height, with the
-        // heat shield gone: m g = 0.5 rho V^2 Cd pi D^2 / 4.
-        const double h = design.site.elevation_m + *design.parachute.at_height_above_site_m;
-        const double v = *design.parachute.size_for_velocity_m_s;
-        const double suspended = mass - design.mass.heat_shield_kg;
-        const double rho = atmosphere->at(h).density_kg_m3;
-        chute.diameter_m = std::sqrt(8.0 * suspended * design.body.body.gravity_m_s2(h) /
-                                     (pi * rho * chute_cd * v * v));
-    }
-    if (chute.deployed) {
-        chute.deploy_time_s = flown.time_s;
-        chute.deploy_altitude_m = end_altitude;
-        chute.deploy_mach = at_end.mach;
-        chute.deploy_dynamic_pressure_Pa = at_end.dynamic_pressure_Pa;
-        chute.deploy_velocity_m_s = end_velocity;
-        // Peak opening force = opening load factor x q x Cd x A (Knacke, NWC TP 6575).
-        chute.opening_load_N = canopy.opening_load_factor * at_end.dynamic_pressure_Pa * chute_cd *
-                               frontal_area_m2(*chute.diameter_m);
-        flight_checks.push_back(flight_check(
-            "parachute_trigger", CheckStatus::pass, height_above_site, 0.0, "m",
-            fmt::format("parachute trigger ({}) reached {:.0f} m above the site, {:.1f} s after "
-                        "entry",
-                        trigger_text, height_above_site, flown.time_s),
-            "design trigger"));
-    } else if (completed && flown.ended_by == ground_end) {
-        flight_checks.push_back(flight_check(
-            "parachute_trigger", CheckStatus::fail, 0.0, 0.0, "m",
-            fmt::format("the vehicle reaches the ground at {:.1f} m/s (Mach {:.2f}), {:.1f} s "
-                        "after entry, before the parachute trigger ({})",
-                        end_velocity, at_end.mach, flown.time_s, trigger_text),
-            "design trigger"));
-    } else if (completed && flown.ended_by == exit_end) {
-        flight_checks.push_back(flight_check(
-            "parachute_trigger", CheckStatus::fail, height_above_site, 0.0, "m",
-            fmt::format("the vehicle skips out of the atmosphere at {:.0f} m/s, {:.1f} s after "
-                        "entry, before the parachute trigger ({}): steepen the entry or reduce "
-                        "the lift",
-                        end_velocity, flown.time_s, trigger_text),
-            "design trigger"));
-    }
-
-    results.notes.push_back(
-        "This version flies the entry phase to the parachute trigger. Descent under the "
-        "parachute, terminal descent, the timeline margin and mass closure are not modelled yet.");
     results.notes.push_back(
         "Conceptual sizing estimates: confirm them by detailed analysis and test under the "
         "mission's own standards and review.");
+    results.notes.push_back(
+        "Mass estimates marked \"estimate\" are rules of thumb: replace them with itemised "
+        "masses as the design matures.");
 
-    std::vector<Check> checks = limit_checks(design, results);
-    checks.insert(checks.begin(), flight_checks.begin(), flight_checks.end());
+    std::vector<Check> checks = flight_checks(e, design, closure);
+    if (e.aeroshell.diameter_m > 0.0) {
+        std::vector<Check> limits = limit_checks(design, results);
+        checks.insert(checks.end(), limits.begin(), limits.end());
+    }
     order_checks(checks);
     results.checks = std::move(checks);
-    results.converged = completed;
+    const bool flown = e.aeroshell.diameter_m > 0.0 && e.entry.end != EntryEnd::stopped;
+    results.converged = flown && (!closure || closure->converged);
     return results;
 }
 

@@ -153,7 +153,19 @@ TEST_CASE("the design example of design-file.md reads with the values it states"
     CHECK(d.terminal.isp_s == 220.0);
     CHECK(d.terminal.thrust_to_weight == 2.5);
     CHECK(d.terminal.touchdown_velocity_m_s == 2.0);
-    // Absent sections keep their defaults.
+    // Absent sections and keys keep their defaults.
+    CHECK(d.mass.items.empty());
+    CHECK_FALSE(d.parachute.mass_kg.has_value());
+    CHECK_FALSE(d.decelerator.has_value());
+    CHECK_FALSE(d.sequence.heat_shield_jettison_delay_s.has_value());
+    CHECK_FALSE(d.sequence.heat_shield_jettison_dynamic_pressure_Pa.has_value());
+    CHECK(d.sequence.ground_sensing_lock_s == ds::SequenceDesign{}.ground_sensing_lock_s);
+    CHECK(d.sequence.separation_coast_s == ds::SequenceDesign{}.separation_coast_s);
+    CHECK(d.terminal.throttle == ds::TerminalDesign{}.throttle);
+    CHECK(d.terminal.propellant_reserve_fraction ==
+          ds::TerminalDesign{}.propellant_reserve_fraction);
+    CHECK(d.terminal.propellant_residual_fraction ==
+          ds::TerminalDesign{}.propellant_residual_fraction);
     CHECK(d.limits.peak_deceleration_max_g == ds::Limits{}.peak_deceleration_max_g);
     CHECK(d.solver.max_steps == ds::SolverDesign{}.max_steps);
 }
@@ -172,7 +184,7 @@ TEST_CASE("optional keys left out take the defaults of the design structs") {
     CHECK(result.design->entry.bank_angle_deg == 0.0);
     CHECK(result.design->aeroshell.half_angle_deg == 70.0);
     CHECK_FALSE(result.design->aeroshell.drag_coefficient.has_value());
-    CHECK(result.design->mass.heat_shield_kg == 0.0);
+    CHECK_FALSE(result.design->mass.heat_shield_kg.has_value());
     CHECK_FALSE(result.design->parachute.drag_coefficient.has_value());
 }
 
@@ -224,6 +236,22 @@ TEST_CASE("numbers outside their range name the rule and the value") {
         {"/terminal/thrust_to_weight", 1.0, "terminal.thrust_to_weight", "greater than 1"},
         {"/terminal/touchdown_velocity_m_s", 0, "terminal.touchdown_velocity_m_s",
          "must be positive"},
+        {"/terminal/throttle", 0, "terminal.throttle",
+         "must be greater than 0 and at most 1, got 0"},
+        {"/terminal/throttle", 1.1, "terminal.throttle", "at most 1, got 1.1"},
+        {"/terminal/propellant_reserve_fraction", 1, "terminal.propellant_reserve_fraction",
+         "must be at least 0 and less than 1, got 1"},
+        {"/terminal/propellant_residual_fraction", -0.01, "terminal.propellant_residual_fraction",
+         "must be at least 0 and less than 1, got -0.01"},
+        {"/parachute/mass_kg", 0, "parachute.mass_kg", "must be positive, got 0"},
+        {"/sequence/heat_shield_jettison_delay_s", -1, "sequence.heat_shield_jettison_delay_s",
+         "must not be negative, got -1"},
+        {"/sequence/heat_shield_jettison_dynamic_pressure_Pa", 0,
+         "sequence.heat_shield_jettison_dynamic_pressure_Pa", "must be positive, got 0"},
+        {"/sequence/ground_sensing_lock_s", -2, "sequence.ground_sensing_lock_s",
+         "must not be negative, got -2"},
+        {"/sequence/separation_coast_s", -0.5, "sequence.separation_coast_s",
+         "must not be negative, got -0.5"},
         {"/version", 0, "version", "must be at least 1, got 0"},
         {"/solver/relative_tolerance", 1e-2, "solver.relative_tolerance",
          "must be at least 1e-14 and at most 0.001, got 0.01"},
@@ -524,16 +552,98 @@ TEST_CASE("the nose radius is at most half the aeroshell diameter") {
     CHECK(read(with(baseline(), "/aeroshell/nose_radius_m", 1.3)).ok());
 }
 
-TEST_CASE("the entry mass is required, and the heat shield is lighter than it") {
-    const auto result = read(without(baseline(), "/mass/entry_kg"));
-    REQUIRE(result.errors.size() == 1);
-    CHECK(result.errors[0].text() ==
-          "mass.entry_kg: required: sizing without a fixed entry mass (mass budget closure) is "
-          "not available yet");
-
+TEST_CASE("the heat shield is lighter than a given entry mass, and may be left out") {
     const auto heavy = read(with(baseline(), "/mass/heat_shield_kg", 560));
+    REQUIRE(heavy.errors.size() == 1);
     CHECK(has_error(heavy, "mass.heat_shield_kg",
                     "must be less than the entry mass (560 kg), got 560"));
+
+    const auto absent = read(without(baseline(), "/mass/heat_shield_kg"));
+    REQUIRE(absent.ok());
+    CHECK_FALSE(absent.design->mass.heat_shield_kg.has_value());
+}
+
+TEST_CASE("without an entry mass the budget needs items to size from") {
+    const auto bare = read(without(baseline(), "/mass/entry_kg"));
+    REQUIRE(bare.errors.size() == 1);
+    CHECK(bare.errors[0].text() ==
+          "mass.items: needed to size the budget when mass.entry_kg is not given");
+
+    const auto empty =
+        read(with(without(baseline(), "/mass/entry_kg"), "/mass/items", Json::array()));
+    REQUIRE(empty.errors.size() == 1);
+    CHECK(has_error(empty, "mass.items", "needed to size the budget"));
+
+    // With a fixed entry mass, items are optional.
+    const auto fixed = read(with(baseline(), "/mass/items", Json::array()));
+    CHECK(fixed.ok());
+}
+
+TEST_CASE("mass items read their name, basic mass, group and maturity") {
+    const Json items = Json::array({
+        {{"name", "lander structure"},
+         {"mass_kg", 85.5},
+         {"group", "descent stage"},
+         {"maturity", "layout"}},
+        {{"name", "science package"}, {"mass_kg", 40}, {"group", "payload"}},
+        {{"name", "backshell"},
+         {"mass_kg", 0},
+         {"group", "backshell"},
+         {"maturity", "pre-release"}},
+    });
+    Json document = without(baseline(), "/mass/entry_kg");
+    document = with(document, "/mass/items", items);
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    const ds::MassDesign& mass = result.design->mass;
+    CHECK_FALSE(mass.entry_kg.has_value());
+    CHECK(mass.heat_shield_kg == 60.0);  // no entry mass to compare it with
+    REQUIRE(mass.items.size() == 3);
+    CHECK(mass.items[0].name == "lander structure");
+    CHECK(mass.items[0].mass_kg == 85.5);
+    CHECK(mass.items[0].group == ds::MassGroup::descent_stage);
+    CHECK(mass.items[0].maturity == ds::Maturity::layout);
+    CHECK(mass.items[1].group == ds::MassGroup::payload);
+    CHECK(mass.items[1].maturity == ds::Maturity::estimated);  // the default
+    CHECK(mass.items[2].mass_kg == 0.0);
+    CHECK(mass.items[2].group == ds::MassGroup::backshell);
+    CHECK(mass.items[2].maturity == ds::Maturity::pre_release);
+}
+
+TEST_CASE("mass item errors name the item's index and list the accepted names") {
+    const Json items = Json::array({
+        {{"name", "ok"}, {"mass_kg", 10}, {"group", "payload"}},
+        {{"name", ""}, {"mass_kg", -3}, {"group", "payload"}},
+        {{"name", "mast"}, {"mass_kg", 5}, {"group", "cruise stage"}, {"maturity", "guessed"}},
+        {{"name", "bolts"}, {"mass_kg", 1}, {"colour", "grey"}},
+        "wheel",
+    });
+    const auto result = read(with(baseline(), "/mass/items", items));
+    INFO(error_list(result));
+    REQUIRE(result.errors.size() == 7);
+    CHECK(has_error(result, "mass.items[1].name", "must not be empty"));
+    CHECK(has_error(result, "mass.items[1].mass_kg", "must not be negative, got -3"));
+    CHECK(has_error(result, "mass.items[2].group",
+                    "unknown group \"cruise stage\"; expected one of: heat shield, backshell, "
+                    "descent stage, payload"));
+    CHECK(has_error(result, "mass.items[2].maturity",
+                    "unknown maturity \"guessed\"; expected one of: estimated, layout, "
+                    "pre-release, released, existing, actual"));
+    CHECK(has_error(result, "mass.items[3].colour", "unknown key"));
+    CHECK(has_error(result, "mass.items[3].group", "missing"));
+    CHECK(has_error(result, "mass.items[4]", "must be an object, got string"));
+
+    const auto object = read(with(baseline(), "/mass/items", {{"name", "x"}}));
+    REQUIRE(object.errors.size() == 1);
+    CHECK(has_error(object, "mass.items", "must be an array of items, got object"));
+}
+
+TEST_CASE("a parachute may state its own mass") {
+    const auto result = read(with(baseline(), "/parachute/mass_kg", 14.5));
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    CHECK(result.design->parachute.mass_kg == 14.5);
 }
 
 TEST_CASE("the parachute takes exactly one deploy trigger, and a known type") {
@@ -562,29 +672,176 @@ TEST_CASE("the parachute takes exactly one deploy trigger, and a known type") {
                     "unknown type \"cross\"; expected one of: disk-gap-band, ringsail"));
 }
 
-TEST_CASE("a retro terminal needs its engine; the other methods do not") {
-    Json document = without(baseline(), "/terminal/isp_s");
-    document = without(document, "/terminal/thrust_to_weight");
-    const auto retro = read(document);
-    CHECK(retro.errors.size() == 2);
-    CHECK(has_error(retro, "terminal.isp_s", "missing"));
-    CHECK(has_error(retro, "terminal.thrust_to_weight", "missing"));
+TEST_CASE("retro, airbag and tethered terminals need their engine and end speed; none does not") {
+    for (const char* method : {"retro", "airbag", "tethered"}) {
+        CAPTURE(method);
+        Json document = with(baseline(), "/terminal", {{"method", method}});
+        const auto result = read(document);
+        INFO(error_list(result));
+        REQUIRE(result.errors.size() == 3);
+        CHECK(result.errors[0].text() == "terminal.isp_s: missing");
+        CHECK(result.errors[1].text() == "terminal.thrust_to_weight: missing");
+        CHECK(result.errors[2].text() == "terminal.touchdown_velocity_m_s: missing");
+    }
 
-    Json airbag = with(document, "/terminal/method", "airbag");
-    airbag = without(airbag, "/terminal/touchdown_velocity_m_s");
+    const auto none = read(with(baseline(), "/terminal", {{"method", "none"}}));
+    INFO(error_list(none));
+    REQUIRE(none.ok());
+    CHECK(none.design->terminal.method == ds::TerminalMethod::none);
+    CHECK(none.design->terminal.isp_s == 0.0);
+    CHECK(none.design->terminal.touchdown_velocity_m_s == 0.0);
+
+    const auto stopped = read(with(with(baseline(), "/terminal/method", "tethered"),
+                                   "/terminal/touchdown_velocity_m_s", 0));
+    CHECK(has_error(stopped, "terminal.touchdown_velocity_m_s", "must be positive, got 0"));
+
+    const auto unknown = read(with(baseline(), "/terminal/method", "legs"));
+    REQUIRE(unknown.errors.size() == 1);
+    CHECK(has_error(unknown, "terminal.method",
+                    "unknown method \"legs\"; expected one of: retro, airbag, tethered, none"));
+}
+
+TEST_CASE("a powered terminal reads its throttle and propellant allowances") {
+    Json document = with(baseline(), "/terminal/throttle", 0.8);
+    document = with(document, "/terminal/propellant_reserve_fraction", 0.15);
+    document = with(document, "/terminal/propellant_residual_fraction", 0.0);
+    const auto result = read(document);
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    const ds::TerminalDesign& terminal = result.design->terminal;
+    CHECK(terminal.throttle == 0.8);
+    CHECK(terminal.propellant_reserve_fraction == 0.15);
+    CHECK(terminal.propellant_residual_fraction == 0.0);
+    // Keys of the other methods keep their defaults.
+    CHECK(terminal.release_height_m == ds::TerminalDesign{}.release_height_m);
+    CHECK(terminal.tether_length_m == ds::TerminalDesign{}.tether_length_m);
+
+    CHECK(read(with(baseline(), "/terminal/throttle", 1.0)).ok());
+}
+
+TEST_CASE("an airbag reads its release height; a tethered stage its tether and fly-away") {
+    Json airbag = with(baseline(), "/terminal/method", "airbag");
+    airbag = with(airbag, "/terminal/release_height_m", 20);
     const auto bag = read(airbag);
     INFO(error_list(bag));
     REQUIRE(bag.ok());
     CHECK(bag.design->terminal.method == ds::TerminalMethod::airbag);
-    CHECK(bag.design->terminal.isp_s == 0.0);
+    CHECK(bag.design->terminal.release_height_m == 20.0);
+    CHECK(bag.design->terminal.isp_s == 220.0);
 
-    const auto stopped = read(with(with(baseline(), "/terminal/method", "tethered"),
-                                   "/terminal/touchdown_velocity_m_s", 0));
-    CHECK(stopped.ok());
+    Json tethered = with(baseline(), "/terminal/method", "tethered");
+    tethered = with(tethered, "/terminal/tether_length_m", 6.4);
+    tethered = with(tethered, "/terminal/fly_away_s", 0);
+    const auto tether = read(tethered);
+    INFO(error_list(tether));
+    REQUIRE(tether.ok());
+    CHECK(tether.design->terminal.tether_length_m == 6.4);
+    CHECK(tether.design->terminal.fly_away_s == 0.0);
 
-    const auto unknown = read(with(baseline(), "/terminal/method", "legs"));
-    CHECK(has_error(unknown, "terminal.method",
-                    "unknown method \"legs\"; expected one of: retro, airbag, tethered, none"));
+    CHECK(has_error(read(with(tethered, "/terminal/tether_length_m", 0)),
+                    "terminal.tether_length_m", "must be positive, got 0"));
+    CHECK(has_error(read(with(airbag, "/terminal/release_height_m", -1)),
+                    "terminal.release_height_m", "must not be negative, got -1"));
+}
+
+TEST_CASE("terminal keys of another method are errors naming the methods they belong to") {
+    const auto tether = read(with(baseline(), "/terminal/tether_length_m", 7));
+    REQUIRE(tether.errors.size() == 1);
+    CHECK(tether.errors[0].text() == "terminal.tether_length_m: only for method \"tethered\"");
+
+    Json tethered = with(baseline(), "/terminal/method", "tethered");
+    const auto release = read(with(tethered, "/terminal/release_height_m", 10));
+    REQUIRE(release.errors.size() == 1);
+    CHECK(release.errors[0].text() == "terminal.release_height_m: only for method \"airbag\"");
+
+    Json none =
+        with(baseline(), "/terminal", {{"method", "none"}, {"isp_s", 220}, {"throttle", 1}});
+    const auto engine = read(none);
+    REQUIRE(engine.errors.size() == 2);
+    CHECK(has_error(engine, "terminal.isp_s",
+                    "only for methods \"retro\", \"airbag\" and \"tethered\""));
+    CHECK(has_error(engine, "terminal.throttle",
+                    "only for methods \"retro\", \"airbag\" and \"tethered\""));
+}
+
+TEST_CASE("a decelerator reads its size, drag, trigger and mass") {
+    const Json decelerator{
+        {"diameter_m", 6.0}, {"drag_coefficient", 1.3}, {"deploy_mach", 3.5}, {"mass_kg", 55}};
+    const auto result = read(with(baseline(), "/decelerator", decelerator));
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    REQUIRE(result.design->decelerator.has_value());
+    const ds::DeceleratorDesign& d = *result.design->decelerator;
+    CHECK(d.diameter_m == 6.0);
+    CHECK(d.drag_coefficient == 1.3);
+    CHECK(d.trigger == ds::TriggerKind::mach);
+    CHECK(d.trigger_value == 3.5);
+    CHECK(d.mass_kg == 55.0);
+
+    const auto pressure = read(with(
+        baseline(), "/decelerator",
+        {{"diameter_m", 6.0}, {"drag_coefficient", 1.3}, {"deploy_dynamic_pressure_Pa", 2500}}));
+    REQUIRE(pressure.ok());
+    CHECK(pressure.design->decelerator->trigger == ds::TriggerKind::dynamic_pressure);
+    CHECK(pressure.design->decelerator->trigger_value == 2500.0);
+    CHECK_FALSE(pressure.design->decelerator->mass_kg.has_value());
+}
+
+TEST_CASE("a decelerator takes one deploy trigger by the parachute's rule, and its keys") {
+    const auto none =
+        read(with(baseline(), "/decelerator", {{"diameter_m", 6.0}, {"drag_coefficient", 1.3}}));
+    REQUIRE(none.errors.size() == 1);
+    CHECK(none.errors[0].text() ==
+          "decelerator: needs one deploy trigger: deploy_mach, deploy_dynamic_pressure_Pa or "
+          "deploy_altitude_m");
+
+    const auto two = read(with(baseline(), "/decelerator",
+                               {{"diameter_m", 6.0},
+                                {"drag_coefficient", 1.3},
+                                {"deploy_mach", 3.0},
+                                {"deploy_altitude_m", 15000}}));
+    REQUIRE(two.errors.size() == 1);
+    CHECK(has_error(two, "decelerator",
+                    "takes one deploy trigger, got deploy_mach, deploy_altitude_m"));
+
+    const auto bare =
+        read(with(baseline(), "/decelerator", {{"deploy_mach", 3.0}, {"mass_kg", 0}}));
+    INFO(error_list(bare));
+    REQUIRE(bare.errors.size() == 3);
+    CHECK(has_error(bare, "decelerator.mass_kg", "must be positive, got 0"));
+    CHECK(has_error(bare, "decelerator.diameter_m", "missing"));
+    CHECK(has_error(bare, "decelerator.drag_coefficient", "missing"));
+}
+
+TEST_CASE("the sequence reads its timings, and one heat-shield jettison rule at most") {
+    const Json sequence{{"heat_shield_jettison_dynamic_pressure_Pa", 300},
+                        {"ground_sensing_lock_s", 20},
+                        {"separation_coast_s", 1.5}};
+    const auto result = read(with(baseline(), "/sequence", sequence));
+    INFO(error_list(result));
+    REQUIRE(result.ok());
+    const ds::SequenceDesign& s = result.design->sequence;
+    CHECK_FALSE(s.heat_shield_jettison_delay_s.has_value());
+    CHECK(s.heat_shield_jettison_dynamic_pressure_Pa == 300.0);
+    CHECK(s.ground_sensing_lock_s == 20.0);
+    CHECK(s.separation_coast_s == 1.5);
+
+    const auto delay = read(with(baseline(), "/sequence", {{"heat_shield_jettison_delay_s", 0}}));
+    REQUIRE(delay.ok());
+    CHECK(delay.design->sequence.heat_shield_jettison_delay_s == 0.0);
+    CHECK(delay.design->sequence.ground_sensing_lock_s ==
+          ds::SequenceDesign{}.ground_sensing_lock_s);
+
+    const auto both = read(with(
+        baseline(), "/sequence",
+        {{"heat_shield_jettison_delay_s", 20}, {"heat_shield_jettison_dynamic_pressure_Pa", 300}}));
+    REQUIRE(both.errors.size() == 1);
+    CHECK(both.errors[0].text() ==
+          "sequence: takes heat_shield_jettison_delay_s or "
+          "heat_shield_jettison_dynamic_pressure_Pa, not both");
+
+    const auto unknown = read(with(baseline(), "/sequence", {{"backshell_delay_s", 3}}));
+    CHECK(has_error(unknown, "sequence.backshell_delay_s", "unknown key"));
 }
 
 TEST_CASE("the entry interface must be above the landing site") {

@@ -1,6 +1,8 @@
 #include <doctest/doctest.h>
 
+#include <algorithm>
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -37,7 +39,10 @@ ds::Design example_design() {
     d.parachute.drag_coefficient = 0.55;
     d.parachute.trigger = ds::TriggerKind::mach;
     d.parachute.trigger_value = 1.8;
-    d.terminal = {ds::TerminalMethod::retro, 220.0, 2.5, 2.0};
+    d.terminal.method = ds::TerminalMethod::retro;
+    d.terminal.isp_s = 220.0;
+    d.terminal.thrust_to_weight = 2.5;
+    d.terminal.touchdown_velocity_m_s = 2.0;
     return d;
 }
 
@@ -87,6 +92,23 @@ void check_same(const ds::Design& a, const ds::Design& b) {
 
     CHECK(a.mass.entry_kg == b.mass.entry_kg);
     CHECK(a.mass.heat_shield_kg == b.mass.heat_shield_kg);
+    REQUIRE(a.mass.items.size() == b.mass.items.size());
+    for (std::size_t i = 0; i < a.mass.items.size(); ++i) {
+        CAPTURE(i);
+        CHECK(a.mass.items[i].name == b.mass.items[i].name);
+        CHECK(a.mass.items[i].mass_kg == b.mass.items[i].mass_kg);
+        CHECK(a.mass.items[i].group == b.mass.items[i].group);
+        CHECK(a.mass.items[i].maturity == b.mass.items[i].maturity);
+    }
+
+    REQUIRE(a.decelerator.has_value() == b.decelerator.has_value());
+    if (a.decelerator) {
+        CHECK(a.decelerator->diameter_m == b.decelerator->diameter_m);
+        CHECK(a.decelerator->drag_coefficient == b.decelerator->drag_coefficient);
+        CHECK(a.decelerator->trigger == b.decelerator->trigger);
+        CHECK(a.decelerator->trigger_value == b.decelerator->trigger_value);
+        CHECK(a.decelerator->mass_kg == b.decelerator->mass_kg);
+    }
 
     CHECK(a.parachute.type == b.parachute.type);
     CHECK(a.parachute.diameter_m == b.parachute.diameter_m);
@@ -95,11 +117,24 @@ void check_same(const ds::Design& a, const ds::Design& b) {
     CHECK(a.parachute.drag_coefficient == b.parachute.drag_coefficient);
     CHECK(a.parachute.trigger == b.parachute.trigger);
     CHECK(a.parachute.trigger_value == b.parachute.trigger_value);
+    CHECK(a.parachute.mass_kg == b.parachute.mass_kg);
+
+    CHECK(a.sequence.heat_shield_jettison_delay_s == b.sequence.heat_shield_jettison_delay_s);
+    CHECK(a.sequence.heat_shield_jettison_dynamic_pressure_Pa ==
+          b.sequence.heat_shield_jettison_dynamic_pressure_Pa);
+    CHECK(a.sequence.ground_sensing_lock_s == b.sequence.ground_sensing_lock_s);
+    CHECK(a.sequence.separation_coast_s == b.sequence.separation_coast_s);
 
     CHECK(a.terminal.method == b.terminal.method);
     CHECK(a.terminal.isp_s == b.terminal.isp_s);
     CHECK(a.terminal.thrust_to_weight == b.terminal.thrust_to_weight);
     CHECK(a.terminal.touchdown_velocity_m_s == b.terminal.touchdown_velocity_m_s);
+    CHECK(a.terminal.throttle == b.terminal.throttle);
+    CHECK(a.terminal.propellant_reserve_fraction == b.terminal.propellant_reserve_fraction);
+    CHECK(a.terminal.propellant_residual_fraction == b.terminal.propellant_residual_fraction);
+    CHECK(a.terminal.release_height_m == b.terminal.release_height_m);
+    CHECK(a.terminal.tether_length_m == b.terminal.tether_length_m);
+    CHECK(a.terminal.fly_away_s == b.terminal.fly_away_s);
 
     for (const auto& field : ds::limit_fields()) {
         CAPTURE(field.key);
@@ -148,7 +183,10 @@ TEST_CASE("round trip of a custom body, table rows, sizing requests and changed 
     design.parachute.drag_coefficient.reset();
     design.parachute.trigger = ds::TriggerKind::altitude;
     design.parachute.trigger_value = 9000.0;
-    design.terminal = {ds::TerminalMethod::airbag, 0.0, 0.0, 12.0};
+    design.terminal.method = ds::TerminalMethod::airbag;
+    design.terminal.isp_s = 230.0;
+    design.terminal.thrust_to_weight = 3.0;
+    design.terminal.touchdown_velocity_m_s = 12.0;
     design.limits.peak_deceleration_max_g = 11.5;
     design.limits.marginal_band = 0.2;
     design.solver = {1e-10, 1200.0, 50000};
@@ -167,8 +205,92 @@ TEST_CASE("round trip of a standard atmosphere with gas overrides and a pressure
     design.atmosphere.gamma = 1.4;
     design.parachute.trigger = ds::TriggerKind::dynamic_pressure;
     design.parachute.trigger_value = 700.0;
-    design.terminal = {ds::TerminalMethod::tethered, 225.0, 1.8, 0.75};
+    design.terminal.method = ds::TerminalMethod::tethered;
+    design.terminal.isp_s = 225.0;
+    design.terminal.thrust_to_weight = 1.8;
+    design.terminal.touchdown_velocity_m_s = 0.75;
     check_same(round_trip(design), design);
+}
+
+TEST_CASE("round trip of a sized mass budget, a decelerator, a sequence and terminal extras") {
+    ds::Design design = example_design();
+    design.mass.entry_kg.reset();
+    design.mass.heat_shield_kg.reset();
+    design.mass.items = {
+        {"lander structure", 85.5, ds::MassGroup::descent_stage, ds::Maturity::layout},
+        {"science package", 40.25, ds::MassGroup::payload, ds::Maturity::estimated},
+        {"backshell", 31.0, ds::MassGroup::backshell, ds::Maturity::pre_release},
+        {"heat shield", 48.0, ds::MassGroup::heat_shield, ds::Maturity::released},
+        {"landing radar", 4.5, ds::MassGroup::descent_stage, ds::Maturity::existing},
+        {"camera", 0.0, ds::MassGroup::payload, ds::Maturity::actual},
+    };
+    design.decelerator = ds::DeceleratorDesign{6.0, 1.3, ds::TriggerKind::altitude, 18000.0, 55.0};
+    design.parachute.mass_kg = 14.5;
+    design.sequence.heat_shield_jettison_dynamic_pressure_Pa = 320.0;
+    design.sequence.ground_sensing_lock_s = 22.0;
+    design.sequence.separation_coast_s = 1.25;
+    design.terminal.throttle = 0.85;
+    design.terminal.propellant_reserve_fraction = 0.2;
+    design.terminal.propellant_residual_fraction = 0.0;
+    check_same(round_trip(design), design);
+
+    // The other jettison rule, and a decelerator without a stated mass.
+    design.sequence.heat_shield_jettison_dynamic_pressure_Pa.reset();
+    design.sequence.heat_shield_jettison_delay_s = 12.0;
+    design.decelerator->mass_kg.reset();
+    design.decelerator->trigger = ds::TriggerKind::mach;
+    design.decelerator->trigger_value = 3.2;
+    check_same(round_trip(design), design);
+}
+
+TEST_CASE("round trip of each method's own terminal keys") {
+    ds::Design airbag = example_design();
+    airbag.terminal.method = ds::TerminalMethod::airbag;
+    airbag.terminal.touchdown_velocity_m_s = 15.0;
+    airbag.terminal.release_height_m = 20.0;
+    airbag.terminal.throttle = 0.9;
+    check_same(round_trip(airbag), airbag);
+
+    ds::Design tethered = example_design();
+    tethered.terminal.method = ds::TerminalMethod::tethered;
+    tethered.terminal.touchdown_velocity_m_s = 0.75;
+    tethered.terminal.tether_length_m = 6.4;
+    tethered.terminal.fly_away_s = 0.0;
+    check_same(round_trip(tethered), tethered);
+
+    ds::Design none = example_design();
+    none.terminal = {};
+    none.terminal.method = ds::TerminalMethod::none;
+    check_same(round_trip(none), none);
+}
+
+TEST_CASE("the terminal is written with the keys of its method only") {
+    const auto keys_of = [](ds::TerminalMethod method) {
+        ds::Design design = example_design();
+        design.terminal.method = method;
+        const nlohmann::ordered_json document = ds::design_to_json(design);
+        std::vector<std::string> keys;
+        for (const auto& item : document["terminal"].items())
+            keys.push_back(item.key());
+        return keys;
+    };
+    const std::vector<std::string> powered{"method",
+                                           "isp_s",
+                                           "thrust_to_weight",
+                                           "touchdown_velocity_m_s",
+                                           "throttle",
+                                           "propellant_reserve_fraction",
+                                           "propellant_residual_fraction"};
+    CHECK(keys_of(ds::TerminalMethod::retro) == powered);
+    std::vector<std::string> airbag = powered;
+    airbag.push_back("release_height_m");
+    CHECK(keys_of(ds::TerminalMethod::airbag) == airbag);
+    std::vector<std::string> tethered = powered;
+    tethered.push_back("tether_length_m");
+    tethered.push_back("fly_away_s");
+    CHECK(keys_of(ds::TerminalMethod::tethered) == tethered);
+    CHECK(keys_of(ds::TerminalMethod::none) ==
+          std::vector<std::string>{"method", "touchdown_velocity_m_s"});
 }
 
 TEST_CASE("the written document follows the contract's key order and object forms") {
@@ -184,8 +306,8 @@ TEST_CASE("the written document follows the contract's key order and object form
     for (const auto& item : document.items())
         keys.push_back(item.key());
     const std::vector<std::string> expected{
-        "format",    "version", "name",      "body",     "atmosphere", "site",  "entry",
-        "aeroshell", "mass",    "parachute", "terminal", "limits",     "solver"};
+        "format",    "version", "name",      "body",     "atmosphere", "site",   "entry",
+        "aeroshell", "mass",    "parachute", "sequence", "terminal",   "limits", "solver"};
     CHECK(keys == expected);
     CHECK(document["format"] == "descent-sizer/design");
     CHECK(document["version"] == 1);
@@ -198,6 +320,38 @@ TEST_CASE("the written document follows the contract's key order and object form
     CHECK(document["parachute"]["deploy_mach"] == 1.8);
     CHECK(document["limits"].size() == ds::limit_fields().size());
     CHECK(document["limits"]["peak_heat_flux_max_W_cm2"] == ds::Limits{}.peak_heat_flux_max_W_cm2);
+    // Keys with defaults are written; optional ones only when given.
+    CHECK(document["mass"]["items"] == nlohmann::ordered_json::array());
+    CHECK(document["mass"]["heat_shield_kg"] == 60.0);
+    CHECK_FALSE(document["parachute"].contains("mass_kg"));
+    CHECK(document["sequence"] ==
+          nlohmann::ordered_json{{"ground_sensing_lock_s", 15.0}, {"separation_coast_s", 2.0}});
+}
+
+TEST_CASE("a decelerator, item groups and maturities are written under the document's names") {
+    ds::Design design = example_design();
+    design.mass.heat_shield_kg.reset();
+    design.mass.items = {{"mast", 3.5, ds::MassGroup::descent_stage, ds::Maturity::pre_release}};
+    design.decelerator =
+        ds::DeceleratorDesign{6.0, 1.3, ds::TriggerKind::dynamic_pressure, 2500.0, std::nullopt};
+    const nlohmann::ordered_json document = ds::design_to_json(design);
+
+    CHECK_FALSE(document["mass"].contains("heat_shield_kg"));
+    CHECK(document["mass"]["items"][0] == nlohmann::ordered_json{{"name", "mast"},
+                                                                 {"mass_kg", 3.5},
+                                                                 {"group", "descent stage"},
+                                                                 {"maturity", "pre-release"}});
+    CHECK(document["decelerator"] ==
+          nlohmann::ordered_json{{"diameter_m", 6.0},
+                                 {"drag_coefficient", 1.3},
+                                 {"deploy_dynamic_pressure_Pa", 2500.0}});
+    std::vector<std::string> keys;
+    for (const auto& item : document.items())
+        keys.push_back(item.key());
+    const auto mass = std::find(keys.begin(), keys.end(), "mass");
+    REQUIRE(mass != keys.end());
+    CHECK(*(mass + 1) == "decelerator");
+    CHECK(*(mass + 2) == "parachute");
 }
 
 TEST_CASE("write_design gives two-space indented JSON ending in a newline") {

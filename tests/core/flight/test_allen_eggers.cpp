@@ -31,8 +31,7 @@ struct AllenEggersFlight {
 
     AllenEggersFlight() {
         const double mass = 500.0;
-        phase.stage.drag_coefficient = 1.0;
-        phase.stage.reference_area_m2 = mass / beta;
+        phase.stage.drag_devices = {{mass / beta, 1.0, {}}};
         phase.stage.nose_radius_m = 0.5;
         phase.ends = {{"ground", ds::FlightQuantity::altitude, 10000.0,
                        ds::EventDirection::falling}};
@@ -43,7 +42,7 @@ struct AllenEggersFlight {
             mass, 0.0, 0.0;
         const ds::FlightModel model{body, atmosphere};
         outcome = ds::fly_phase(model, phase, 0.0, y0, 1000.0,
-                                ds::flight_integrator_settings(1e-10, 100000), &history);
+                                ds::flight_integrator_settings(1e-10, 100000), {&history});
     }
 };
 
@@ -122,7 +121,7 @@ TEST_CASE("peak deceleration does not depend on the ballistic coefficient (NACA 
 
     ds::Body body = heavy.body;
     ds::Phase light = heavy.phase;
-    light.stage.reference_area_m2 *= 3.0;
+    light.stage.drag_devices.front().area_m2 *= 3.0;
     ds::FlightState y0;
     y0 << interface_altitude, 0.0, entry_velocity, ds::degrees_to_radians(entry_angle_deg), 500.0,
         0.0, 0.0;

@@ -43,8 +43,7 @@ Scenario lifting_mars_entry() {
                {},
                {},
                1.8};
-    s.stage.reference_area_m2 = M_PI * 4.0 * 4.0 / 4.0;
-    s.stage.drag_coefficient = 1.68;
+    s.stage.drag_devices = {{M_PI * 4.0 * 4.0 / 4.0, 1.68, {}}};
     s.stage.lift_to_drag = 0.22;
     s.stage.bank_angle_rad = ds::degrees_to_radians(40.0);
     s.stage.nose_radius_m = 1.0;

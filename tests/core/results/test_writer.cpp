@@ -43,6 +43,12 @@ ds::Results sample_results() {
     r.parachute.diameter_m = 12.0;
     r.parachute.drag_coefficient = 0.55;
     r.parachute.opening_load_N = 41000.0;
+    r.parachute.drag_coefficient_at_deploy = 0.62;
+    r.parachute.inflation_time_s = 0.9;
+    r.parachute.mass_kg = 14.5;
+    r.parachute.heat_shield_jettison_time_s = 270.0;
+    r.parachute.descent_velocity_m_s = 62.0;
+    r.decelerator = ds::DeceleratorResults{true, 180.0, 21000.0, 3.4, 2100.0, 6.0, 55.0};
     r.terminal.method = "retro";
     r.terminal.ignition_altitude_m = 1500.0;
     r.terminal.ignition_velocity_m_s = 80.0;
@@ -50,11 +56,23 @@ ds::Results sample_results() {
     r.terminal.gravity_loss_m_s = 28.0;
     r.terminal.propellant_kg = 30.0;
     r.terminal.burn_time_s = 22.0;
+    r.terminal.ignition_time_s = 380.0;
+    r.terminal.thrust_N = 5200.0;
+    r.terminal.burned_propellant_kg = 26.5;
+    r.terminal.touchdown_velocity_m_s = 2.0;
+    r.terminal.impact_velocity_m_s = 16.5;
+    r.terminal.impact_energy_J = 51000.0;
+    r.terminal.hover_time_s = 14.0;
     r.timeline.events = {{"parachute deploy", 250.0, 9000.0, 410.0}};
     r.timeline.margin_s = 95.0;
+    r.timeline.available_s = 130.0;
+    r.timeline.needed_s = 35.0;
+    r.mass.mode = "sizing";
     r.mass.entry_kg = 560.0;
     r.mass.landed_kg = 380.0;
-    r.mass.items = {{"heat shield", 60.0}};
+    r.mass.items = {{"heat shield", 60.0, 52.0, 0.15, "heat shield", "layout", "design"}};
+    r.mass.closure = ds::MassClosure{true, 7, 0.004};
+    r.capability.max_site_elevation_m = 1250.0;
     r.checks = {{"peak_deceleration", ds::CheckStatus::marginal, 14.0, 15.0, "g",
                  "peak deceleration 14 g is within 10% of the 15 g limit", "limits"}};
     r.history = {{1.0, 120000.0, 2000.0, 5590.0, -13.1, 28.0, 0.5, 0.01, 0.2, 0.0}};
@@ -140,6 +158,67 @@ TEST_CASE("the results document writes each field's value under its own key") {
     CHECK(document["notes"] == Json::array({"no winds"}));
 }
 
+TEST_CASE("the decelerator, the chain's new figures and the capability are written by value") {
+    const Json document = ds::results_to_json(sample_results());
+    CHECK(document["decelerator"] == Json{{"deployed", true},
+                                          {"deploy_time_s", 180.0},
+                                          {"deploy_altitude_m", 21000.0},
+                                          {"deploy_mach", 3.4},
+                                          {"deploy_dynamic_pressure_Pa", 2100.0},
+                                          {"diameter_m", 6.0},
+                                          {"mass_kg", 55.0}});
+    const Json& parachute = document["parachute"];
+    CHECK(parachute["drag_coefficient_at_deploy"] == 0.62);
+    CHECK(parachute["inflation_time_s"] == 0.9);
+    CHECK(parachute["mass_kg"] == 14.5);
+    CHECK(parachute["heat_shield_jettison_time_s"] == 270.0);
+    CHECK(parachute["descent_velocity_m_s"] == 62.0);
+    const Json& terminal = document["terminal"];
+    CHECK(terminal["ignition_time_s"] == 380.0);
+    CHECK(terminal["thrust_N"] == 5200.0);
+    CHECK(terminal["burned_propellant_kg"] == 26.5);
+    CHECK(terminal["touchdown_velocity_m_s"] == 2.0);
+    CHECK(terminal["impact_velocity_m_s"] == 16.5);
+    CHECK(terminal["impact_energy_J"] == 51000.0);
+    CHECK(terminal["hover_time_s"] == 14.0);
+    CHECK(document["timeline"]["available_s"] == 130.0);
+    CHECK(document["timeline"]["needed_s"] == 35.0);
+    CHECK(document["capability"] == Json{{"max_site_elevation_m", 1250.0}});
+}
+
+TEST_CASE("the mass budget is written with its mode, item details and closure") {
+    const Json document = ds::results_to_json(sample_results());
+    const Json& mass = document["mass"];
+    CHECK(mass["mode"] == "sizing");
+    CHECK(mass["items"][0] == Json{{"name", "heat shield"},
+                                   {"mass_kg", 60.0},
+                                   {"basic_kg", 52.0},
+                                   {"growth_fraction", 0.15},
+                                   {"group", "heat shield"},
+                                   {"maturity", "layout"},
+                                   {"source", "design"}});
+    CHECK(mass["closure"] == Json{{"converged", true}, {"iterations", 7}, {"residual_kg", 0.004}});
+
+    ds::Results analysis = sample_results();
+    analysis.mass.mode = "analysis";
+    analysis.mass.closure.reset();
+    const Json fixed = ds::results_to_json(analysis)["mass"];
+    CHECK(fixed["mode"] == "analysis");
+    REQUIRE(fixed.contains("closure"));
+    CHECK(fixed["closure"].is_null());
+}
+
+TEST_CASE("the results sections come in the order of the flight") {
+    const Json document = ds::results_to_json(sample_results());
+    std::vector<std::string> keys;
+    for (const auto& item : document.items())
+        keys.push_back(item.key());
+    const std::vector<std::string> expected{"format",      "version",    "converged", "entry",
+                                            "decelerator", "parachute",  "terminal",  "timeline",
+                                            "mass",        "capability", "checks",    "notes"};
+    CHECK(keys == expected);
+}
+
 TEST_CASE("absent figures and non-finite numbers are written as null") {
     ds::Results results;  // nothing computed: every optional empty
     results.entry.peak_heat_flux_W_cm2 = std::numeric_limits<double>::quiet_NaN();
@@ -147,14 +226,42 @@ TEST_CASE("absent figures and non-finite numbers are written as null") {
     results.checks = {{"closure", ds::CheckStatus::fail, std::nan(""), 1.0, "", "", ""}};
     const Json document = ds::results_to_json(results);
 
-    for (const char* key :
-         {"/parachute/deploy_time_s", "/parachute/deploy_altitude_m", "/parachute/deploy_mach",
-          "/parachute/deploy_dynamic_pressure_Pa", "/parachute/deploy_velocity_m_s",
-          "/parachute/diameter_m", "/parachute/drag_coefficient", "/parachute/opening_load_N",
-          "/terminal/ignition_altitude_m", "/terminal/delta_v_m_s", "/terminal/propellant_kg",
-          "/terminal/burn_time_s", "/timeline/margin_s", "/mass/landed_kg",
-          "/entry/peak_radiative_heat_flux_W_cm2", "/entry/radiative_heat_load_J_cm2",
-          "/entry/peak_heat_flux_W_cm2", "/entry/heat_load_J_cm2", "/checks/0/value"}) {
+    for (const char* key : {"/parachute/deploy_time_s",
+                            "/parachute/deploy_altitude_m",
+                            "/parachute/deploy_mach",
+                            "/parachute/deploy_dynamic_pressure_Pa",
+                            "/parachute/deploy_velocity_m_s",
+                            "/parachute/diameter_m",
+                            "/parachute/drag_coefficient",
+                            "/parachute/opening_load_N",
+                            "/terminal/ignition_altitude_m",
+                            "/terminal/delta_v_m_s",
+                            "/terminal/propellant_kg",
+                            "/terminal/burn_time_s",
+                            "/timeline/margin_s",
+                            "/mass/landed_kg",
+                            "/parachute/drag_coefficient_at_deploy",
+                            "/parachute/inflation_time_s",
+                            "/parachute/mass_kg",
+                            "/parachute/heat_shield_jettison_time_s",
+                            "/parachute/descent_velocity_m_s",
+                            "/terminal/ignition_time_s",
+                            "/terminal/thrust_N",
+                            "/terminal/burned_propellant_kg",
+                            "/terminal/touchdown_velocity_m_s",
+                            "/terminal/impact_velocity_m_s",
+                            "/terminal/impact_energy_J",
+                            "/terminal/hover_time_s",
+                            "/timeline/available_s",
+                            "/timeline/needed_s",
+                            "/decelerator",
+                            "/mass/closure",
+                            "/capability/max_site_elevation_m",
+                            "/entry/peak_radiative_heat_flux_W_cm2",
+                            "/entry/radiative_heat_load_J_cm2",
+                            "/entry/peak_heat_flux_W_cm2",
+                            "/entry/heat_load_J_cm2",
+                            "/checks/0/value"}) {
         CAPTURE(key);
         REQUIRE(document.contains(Json::json_pointer(key)));
         CHECK(document[Json::json_pointer(key)].is_null());

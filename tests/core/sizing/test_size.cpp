@@ -38,7 +38,9 @@ TEST_CASE("every sample flies from the interface to its parachute trigger") {
         CHECK(r.entry.peak_heat_flux_W_cm2 > 1.0);
         CHECK(r.entry.heat_load_J_cm2 > 100.0);
         CHECK(r.timeline.events.front().name == "entry interface");
-        CHECK(r.timeline.events.back().name == "parachute deploy");
+        CHECK(std::any_of(r.timeline.events.begin(), r.timeline.events.end(),
+                          [](const auto& e) { return e.name == "parachute deploy"; }));
+        CHECK(r.timeline.events.back().name.find("touchdown") != std::string::npos);
         CHECK(std::is_sorted(r.timeline.events.begin(), r.timeline.events.end(),
                              [](const auto& a, const auto& b) { return a.time_s < b.time_s; }));
         REQUIRE(find_check(r, "parachute_trigger"));
@@ -71,9 +73,11 @@ TEST_CASE("the deploy state is consistent: dynamic pressure is 0.5 rho V^2 at th
     const double rho = atmosphere->at(*r.parachute.deploy_altitude_m).density_kg_m3;
     const double v = *r.parachute.deploy_velocity_m_s;
     CHECK(*r.parachute.deploy_dynamic_pressure_Pa == doctest::Approx(0.5 * rho * v * v).epsilon(1e-9));
-    // Opening load = 1.3 q Cd A for a disk-gap-band (Knacke, NWC TP 6575; from memory).
+    // Opening load = 1.3 q Cd(Mach) A for a disk-gap-band (Knacke, NWC TP 6575; from memory),
+    // with Cd at Mach 1.8 0.81 of the subsonic 0.55 (our table).
+    CHECK(*r.parachute.drag_coefficient_at_deploy == doctest::Approx(0.55 * 0.81).epsilon(1e-9));
     CHECK(*r.parachute.opening_load_N ==
-          doctest::Approx(1.3 * *r.parachute.deploy_dynamic_pressure_Pa * 0.55 *
+          doctest::Approx(1.3 * *r.parachute.deploy_dynamic_pressure_Pa * 0.55 * 0.81 *
                           ds::frontal_area_m2(12.0))
               .epsilon(1e-9));
 }
@@ -93,8 +97,12 @@ TEST_CASE("a parachute sized for a velocity holds it at the requested height by 
     REQUIRE(r.parachute.diameter_m);
     const auto atmosphere = ds::make_atmosphere(d);
     const double rho = atmosphere->at(d.site.elevation_m).density_kg_m3;
-    const double drag = 0.5 * rho * 6.0 * 6.0 * *r.parachute.drag_coefficient *
-                        ds::frontal_area_m2(*r.parachute.diameter_m);
+    // The canopy and the capsule under it (Cd 0.8 on its frontal area) hold 6 m/s; the capsule
+    // lands with its heat shield gone (none here: heat_shield_kg 0).
+    const double drag_area = *r.parachute.drag_coefficient *
+                                 ds::frontal_area_m2(*r.parachute.diameter_m) +
+                             0.8 * ds::frontal_area_m2(0.9);
+    const double drag = 0.5 * rho * 6.0 * 6.0 * drag_area;
     CHECK(drag == doctest::Approx(48.0 * d.body.body.gravity_m_s2(d.site.elevation_m)).epsilon(1e-9));
 }
 

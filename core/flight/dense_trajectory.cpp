@@ -1,0 +1,37 @@
+#include "flight/dense_trajectory.hpp"
+
+#include <algorithm>
+#include <cstdint>
+
+#include <boost/math/tools/toms748_solve.hpp>
+
+namespace ds {
+
+FlightState DenseTrajectory::state_at(double t) const {
+    const auto after = std::upper_bound(
+        steps_.begin(), steps_.end(), t,
+        [](double time, const DenseStep<flight_state_size>& step) { return time < step.t0; });
+    const auto& step = after == steps_.begin() ? steps_.front() : *(after - 1);
+    return step(std::min(t, step.t0 + step.h));
+}
+
+std::optional<double> DenseTrajectory::time_descending_through(double altitude_m) const {
+    constexpr double time_tolerance_s = 1e-7;
+    for (const auto& step : steps_) {
+        const double t_end = std::min(step.t0 + step.h, end_time_);
+        const double above = step(step.t0)[StateIndex::altitude] - altitude_m;
+        const double below = step(t_end)[StateIndex::altitude] - altitude_m;
+        if (!(above > 0.0 && below <= 0.0)) {
+            if (t_end >= end_time_) break;
+            continue;
+        }
+        const auto g = [&](double t) { return step(t)[StateIndex::altitude] - altitude_m; };
+        std::uintmax_t iterations = 100;
+        const auto close = [&](double a, double b) { return b - a <= time_tolerance_s; };
+        return boost::math::tools::toms748_solve(g, step.t0, t_end, above, below, close, iterations)
+            .second;
+    }
+    return std::nullopt;
+}
+
+}  // namespace ds

@@ -1,0 +1,66 @@
+#include "sizing/descent_flight.hpp"
+
+namespace ds {
+namespace {
+
+/// Default heat-shield jettison delay after parachute deploy, when the design gives neither a
+/// delay nor a dynamic pressure (common practice: some 20 s, once the canopy has slowed the
+/// vehicle to subsonic speed).
+constexpr double default_jettison_delay_s = 20.0;
+
+}  // namespace
+
+DescentFlight fly_descent(const Design& design, const FlightModel& model, const DescentPlan& plan,
+                          double deploy_time_s, const FlightState& deploy_state) {
+    DescentFlight out;
+    out.deploy_time_s = deploy_time_s;
+    const auto settings = flight_integrator_settings(
+        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    const double t_budget = design.solver.max_time_s;
+    const Trigger floor{"floor", FlightQuantity::altitude, plan.floor_altitude_m,
+                        EventDirection::falling};
+
+    Phase under_canopy;
+    under_canopy.name = "parachute";
+    under_canopy.stage.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
+    under_canopy.ends = {floor};
+    const PhaseRecording recording{&out.samples, &out.record};
+
+    // With the heat shield: until the jettison delay runs out, or the dynamic pressure falls
+    // through the design's jettison value.
+    const SequenceDesign& seq = design.sequence;
+    double t_end = t_budget;
+    if (seq.heat_shield_jettison_dynamic_pressure_Pa) {
+        under_canopy.ends.push_back({"heat-shield jettison", FlightQuantity::dynamic_pressure,
+                                     *seq.heat_shield_jettison_dynamic_pressure_Pa,
+                                     EventDirection::falling});
+    } else {
+        t_end = std::min(t_budget,
+                         deploy_time_s + seq.heat_shield_jettison_delay_s.value_or(default_jettison_delay_s));
+    }
+    const PhaseOutcome first =
+        fly_phase(model, under_canopy, deploy_time_s, deploy_state, t_end, settings, recording);
+    const bool floor_first = first.ended_by == std::size_t{0};
+    const bool jettison_event = first.reason == StopReason::terminal_event && !floor_first;
+    const bool jettison_delay = first.reason == StopReason::reached_end && t_end < t_budget;
+    if (!(jettison_event || jettison_delay)) {
+        out.reached_floor = floor_first;
+        out.stop_reason = first.reason;
+        return out;
+    }
+    out.jettisoned = true;
+    out.jettison_time_s = first.time_s;
+    out.jettison_state = first.y;
+
+    // Without it, down to the floor.
+    FlightState y = first.y;
+    y[StateIndex::mass] -= plan.jettison_mass_kg;
+    under_canopy.ends = {floor};
+    const PhaseOutcome second =
+        fly_phase(model, under_canopy, first.time_s, y, t_budget, settings, recording);
+    out.reached_floor = second.reason == StopReason::terminal_event;
+    out.stop_reason = second.reason;
+    return out;
+}
+
+}  // namespace ds

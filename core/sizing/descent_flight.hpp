@@ -1,0 +1,34 @@
+#pragma once
+
+#include <vector>
+
+#include "design/design.hpp"
+#include "flight/phase.hpp"
+
+namespace ds {
+
+/// What hangs under the canopy, and what it drops.
+struct DescentPlan {
+    DragDevice canopy;
+    double body_drag_area_m2 = 0.0;   ///< Cd A of the suspended vehicle
+    double jettison_mass_kg = 0.0;    ///< dropped at heat-shield jettison
+    double floor_altitude_m = 0.0;    ///< flown down to here (below the site, for trades)
+};
+
+/// The descent under the canopy from deploy: with the heat shield until its jettison, then
+/// without it, down to the floor altitude, kept as a dense trajectory for the terminal solver.
+struct DescentFlight {
+    double deploy_time_s = 0.0;
+    bool jettisoned = false;
+    double jettison_time_s = 0.0;
+    FlightState jettison_state;
+    bool reached_floor = false;
+    StopReason stop_reason = StopReason::terminal_event;  ///< why, when not reached_floor
+    DenseTrajectory record;
+    std::vector<TrajectorySample> samples;  ///< one per accepted step, deploy to floor
+};
+
+DescentFlight fly_descent(const Design& design, const FlightModel& model, const DescentPlan& plan,
+                          double deploy_time_s, const FlightState& deploy_state);
+
+}  // namespace ds

@@ -1,0 +1,170 @@
+#include "sizing/entry_flight.hpp"
+
+#include <fmt/format.h>
+
+#include "aeroshell/sphere_cone.hpp"
+#include "constants.hpp"
+#include "sizing/environment.hpp"
+
+namespace ds {
+namespace {
+
+// The peaks every entry-like phase locates, in this order.
+enum PeakIndex : std::size_t { dynamic_pressure_peak, deceleration_peak, heat_flux_peak, radiative_peak };
+
+std::vector<Peak> entry_peaks() {
+    return {{"peak dynamic pressure", FlightQuantity::dynamic_pressure},
+            {"peak deceleration", FlightQuantity::deceleration},
+            {"peak heat flux", FlightQuantity::heat_flux},
+            {"peak radiative heat flux", FlightQuantity::radiative_heat_flux}};
+}
+
+// Ends of an entry-like phase, in this order.
+enum EndIndex : std::size_t { trigger_end, ground_end, exit_end };
+
+/// Raises `best` to the phase's located maxima and its two ends (a quantity may still be
+/// rising when the phase ends).
+void raise_peak(PeakValue& best, const FlightModel& model, const Phase& phase, std::size_t peak,
+                double t0, const FlightState& y0, const PhaseOutcome& flown) {
+    const FlightQuantity q = phase.peaks[peak].quantity;
+    const auto consider = [&](double value, double t, const FlightState& y) {
+        if (value > best.value) best = {value, t, y};
+    };
+    const auto value_at = [&](const FlightState& y) {
+        return flight_quantity(q, flight_conditions(model, phase.stage, y), y);
+    };
+    consider(value_at(y0), t0, y0);
+    consider(value_at(flown.y), flown.time_s, flown.y);
+    for (const PeakHit& hit : flown.peaks) {
+        if (hit.peak == peak) consider(hit.value, hit.time_s, hit.y);
+    }
+}
+
+}  // namespace
+
+ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg) {
+    const AeroshellDesign& a = design.aeroshell;
+    const double half_angle = degrees_to_radians(a.half_angle_deg);
+    const double gamma = design_gamma(design);
+    const auto drag_coefficient_of = [&](double diameter_m) {
+        if (a.drag_coefficient) return *a.drag_coefficient;
+        return modified_newtonian_sphere_cone_drag_coefficient(
+            half_angle, a.nose_radius_m / (0.5 * diameter_m), gamma);
+    };
+    ResolvedAeroshell out;
+    out.drag_coefficient_source = a.drag_coefficient ? "design" : "modified Newtonian";
+    out.diameter_m = a.diameter_m ? *a.diameter_m
+                                  : diameter_for_ballistic_coefficient(
+                                        entry_mass_kg, *a.size_for_ballistic_coefficient_kg_m2,
+                                        2.0 * a.nose_radius_m, drag_coefficient_of);
+    if (out.diameter_m > 0.0) out.drag_coefficient = drag_coefficient_of(out.diameter_m);
+    return out;
+}
+
+Trigger deploy_trigger(std::string name, TriggerKind kind, double value) {
+    switch (kind) {
+        case TriggerKind::mach:
+            return {std::move(name), FlightQuantity::mach, value, EventDirection::falling};
+        case TriggerKind::dynamic_pressure:
+            return {std::move(name), FlightQuantity::dynamic_pressure, value,
+                    EventDirection::falling};
+        case TriggerKind::altitude:
+            return {std::move(name), FlightQuantity::altitude, value, EventDirection::falling};
+    }
+    return {};
+}
+
+std::string describe_trigger(TriggerKind kind, double value) {
+    switch (kind) {
+        case TriggerKind::mach: return fmt::format("Mach {:.3g}", value);
+        case TriggerKind::dynamic_pressure: return fmt::format("dynamic pressure {:.4g} Pa", value);
+        case TriggerKind::altitude: return fmt::format("altitude {:.6g} m", value);
+    }
+    return {};
+}
+
+Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell) {
+    Stage stage;
+    stage.drag_devices = {{frontal_area_m2(aeroshell.diameter_m), aeroshell.drag_coefficient, {}}};
+    stage.lift_to_drag = design.entry.lift_to_drag;
+    stage.bank_angle_rad = degrees_to_radians(design.entry.bank_angle_deg);
+    stage.nose_radius_m = design.aeroshell.nose_radius_m;
+    return stage;
+}
+
+EntryFlight fly_entry(const Design& design, const FlightModel& model,
+                      const ResolvedAeroshell& aeroshell, double entry_mass_kg,
+                      std::vector<TrajectorySample>* history) {
+    EntryFlight out;
+    out.aeroshell = aeroshell;
+    out.start << design.entry.interface_altitude_m, 0.0, design.entry.velocity_m_s,
+        degrees_to_radians(design.entry.flight_path_angle_deg), entry_mass_kg, 0.0, 0.0;
+    const auto settings = flight_integrator_settings(
+        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+
+    Phase phase;
+    phase.name = "entry";
+    phase.stage = entry_stage(design, aeroshell);
+    phase.peaks = entry_peaks();
+    const Trigger ground{"ground impact", FlightQuantity::altitude, design.site.elevation_m,
+                         EventDirection::falling};
+    const Trigger exit{"atmospheric exit", FlightQuantity::altitude,
+                       design.entry.interface_altitude_m, EventDirection::rising};
+    const Trigger chute = deploy_trigger("parachute deploy", design.parachute.trigger,
+                                         design.parachute.trigger_value);
+
+    // With a decelerator, the entry ends at its trigger and a second phase, with the
+    // decelerator's drag added, flies on to the parachute's.
+    std::vector<Phase> phases;
+    if (design.decelerator) {
+        const DeceleratorDesign& d = *design.decelerator;
+        phase.ends = {deploy_trigger("decelerator deploy", d.trigger, d.trigger_value), ground,
+                      exit};
+        phases.push_back(phase);
+        phase.name = "decelerator";
+        phase.stage.drag_devices.push_back({frontal_area_m2(d.diameter_m), d.drag_coefficient, {}});
+    }
+    phase.ends = {chute, ground, exit};
+    phases.push_back(phase);
+
+    double t = 0.0;
+    FlightState y = out.start;
+    for (std::size_t i = 0; i < phases.size(); ++i) {
+        const Phase& p = phases[i];
+        const PhaseOutcome flown = fly_phase(model, p, t, y, design.solver.max_time_s, settings,
+                                             {history, nullptr});
+        raise_peak(out.dynamic_pressure, model, p, dynamic_pressure_peak, t, y, flown);
+        raise_peak(out.deceleration, model, p, deceleration_peak, t, y, flown);
+        raise_peak(out.heat_flux, model, p, heat_flux_peak, t, y, flown);
+        raise_peak(out.radiative_heat_flux, model, p, radiative_peak, t, y, flown);
+        out.steps += flown.steps;
+        out.end_time_s = flown.time_s;
+        out.end_state = flown.y;
+        out.end_conditions = flight_conditions(model, p.stage, flown.y);
+        if (flown.reason != StopReason::terminal_event) {
+            out.end = EntryEnd::stopped;
+            out.stop_reason = flown.reason;
+            return out;
+        }
+        if (*flown.ended_by == ground_end) {
+            out.end = EntryEnd::ground;
+            return out;
+        }
+        if (*flown.ended_by == exit_end) {
+            out.end = EntryEnd::skip_out;
+            return out;
+        }
+        if (i + 1 < phases.size()) {
+            out.decelerator_deployed = true;
+            out.decelerator_time_s = flown.time_s;
+            out.decelerator_state = flown.y;
+            out.decelerator_conditions = out.end_conditions;
+        }
+        t = flown.time_s;
+        y = flown.y;
+    }
+    out.end = EntryEnd::deployed;
+    return out;
+}
+
+}  // namespace ds

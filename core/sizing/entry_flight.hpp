@@ -1,0 +1,62 @@
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "design/design.hpp"
+#include "flight/phase.hpp"
+
+namespace ds {
+
+/// The aeroshell as flown: its diameter (given, or sized for a ballistic coefficient) and Cd.
+struct ResolvedAeroshell {
+    double diameter_m = 0.0;  ///< 0 when a sizing request has no solution
+    double drag_coefficient = 0.0;
+    std::string drag_coefficient_source;  ///< "design" or "modified Newtonian"
+};
+
+ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg);
+
+/// The largest value of a quantity over a flight, where it happened.
+struct PeakValue {
+    double value = 0.0;
+    double time_s = 0.0;
+    FlightState y;
+};
+
+/// How the flight from the interface to the parachute trigger went.
+enum class EntryEnd { deployed, ground, skip_out, stopped };
+
+/// The entry, and the inflatable decelerator phase when the design has one.
+struct EntryFlight {
+    ResolvedAeroshell aeroshell;
+    FlightState start;
+    EntryEnd end = EntryEnd::stopped;
+    StopReason stop_reason = StopReason::reached_end;  ///< why, when `stopped`
+    std::size_t steps = 0;
+    double end_time_s = 0.0;
+    FlightState end_state;  ///< at the parachute trigger when deployed
+    FlightConditions end_conditions;
+    PeakValue dynamic_pressure, deceleration, heat_flux, radiative_heat_flux;
+    // The decelerator, when flown.
+    bool decelerator_deployed = false;
+    double decelerator_time_s = 0.0;
+    FlightState decelerator_state;
+    FlightConditions decelerator_conditions;
+};
+
+/// The stage of the entry vehicle: the aeroshell, with its lift and nose.
+Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell);
+
+/// Flies from the entry interface to the parachute trigger (through the decelerator phase when
+/// the design has one). Needs a resolved aeroshell with a diameter.
+EntryFlight fly_entry(const Design& design, const FlightModel& model,
+                      const ResolvedAeroshell& aeroshell, double entry_mass_kg,
+                      std::vector<TrajectorySample>* history);
+
+/// The design's trigger as a phase end, and in words ("Mach 1.8").
+Trigger deploy_trigger(std::string name, TriggerKind kind, double value);
+std::string describe_trigger(TriggerKind kind, double value);
+
+}  // namespace ds

@@ -1,0 +1,290 @@
+#include "sizing/evaluation.hpp"
+
+#include <cmath>
+
+#include <fmt/format.h>
+
+#include "aeroshell/sphere_cone.hpp"
+#include "constants.hpp"
+#include "heating/heat_shield_mass.hpp"
+#include "mass/estimates.hpp"
+#include "mass/growth.hpp"
+
+namespace ds {
+namespace {
+
+constexpr double per_cm2 = 1e-4;  // J/m^2 to J/cm^2
+
+/// Loaded propellant from burned: the reserve rides unburned, the residual is trapped.
+double loaded_propellant(const TerminalDesign& t, double burned_kg) {
+    return burned_kg * (1.0 + t.propellant_reserve_fraction) /
+           (1.0 - t.propellant_residual_fraction);
+}
+
+/// Propellant for hovering t seconds at thrust = weight: m0 (1 - exp(-g t / (Isp g0))),
+/// the rocket equation with delta-v = g t.
+double hover_propellant_kg(double mass_kg, double gravity_m_s2, double seconds, double isp_s) {
+    return mass_kg * (1.0 - std::exp(-gravity_m_s2 * seconds / (isp_s * standard_gravity_m_s2)));
+}
+
+void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_m2) {
+    MassBudget& b = e.budget;
+    const bool heat_shield_itemised = b.has_design_items(MassGroup::heat_shield);
+    const bool backshell_itemised = b.has_design_items(MassGroup::backshell);
+    if (design.mass.heat_shield_kg) {
+        b.add_given("heat shield", *design.mass.heat_shield_kg, MassGroup::heat_shield);
+    } else if (!heat_shield_itemised) {
+        b.add_estimate("heat-shield TPS",
+                       heat_shield_mass_fraction(e.total_heat_load_J_cm2) * e.entry_kg,
+                       MassGroup::heat_shield,
+                       "mass fraction of the heat load, Laub and Venkatapathy 2003 (from memory)");
+        b.add_estimate("heat-shield structure",
+                       MassEstimates::heat_shield_structure_kg_m2 * aeroshell_area_m2,
+                       MassGroup::heat_shield, estimate_source);
+    }
+    if (design.decelerator) {
+        const DeceleratorDesign& d = *design.decelerator;
+        if (d.mass_kg) {
+            b.add_given("inflatable decelerator", *d.mass_kg, MassGroup::heat_shield);
+        } else {
+            b.add_estimate("inflatable decelerator",
+                           MassEstimates::inflatable_decelerator_kg_m2 * frontal_area_m2(d.diameter_m),
+                           MassGroup::heat_shield, estimate_source);
+        }
+    }
+    if (!backshell_itemised) {
+        b.add_estimate("backshell", MassEstimates::backshell_kg_m2 * aeroshell_area_m2,
+                       MassGroup::backshell, estimate_source);
+    }
+}
+
+void size_canopy(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
+                 Evaluation& e, double body_drag_area_m2) {
+    const ParachuteDesign& p = design.parachute;
+    e.canopy = *canopy_type(p.type);
+    e.canopy_drag_coefficient = p.drag_coefficient.value_or(e.canopy.drag_coefficient);
+    if (p.diameter_m) {
+        e.canopy_diameter_m = *p.diameter_m;
+    } else {
+        // Terminal-velocity balance at the requested height, heat shield gone, with the drag
+        // of the body under the canopy.
+        const double h = design.site.elevation_m + *p.at_height_above_site_m;
+        const double suspended = e.entry_kg - e.budget.group_kg(MassGroup::heat_shield);
+        e.canopy_diameter_m = canopy_diameter_for_velocity(
+            suspended, model.body.gravity_m_s2(h), atmosphere.at(h).density_kg_m3,
+            *p.size_for_velocity_m_s, e.canopy_drag_coefficient, body_drag_area_m2);
+    }
+    const std::string name = fmt::format("parachute ({})", p.type);
+    if (p.mass_kg) {
+        e.budget.add_given(name, *p.mass_kg, MassGroup::backshell);
+    } else {
+        e.budget.add_estimate(name, canopy_mass_kg(e.canopy, e.canopy_diameter_m),
+                              MassGroup::backshell,
+                              fmt::format("{:.2f} kg/m^2 of nominal area (common practice, from "
+                                          "memory)",
+                                          e.canopy.areal_mass_kg_m2));
+    }
+}
+
+/// The burn, hover and fly-away of the methods that fire engines; fills the propellant and
+/// the propulsion estimates into the budget.
+void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluation& e) {
+    const TerminalDesign& t = design.terminal;
+    const double site = design.site.elevation_m;
+    const double g_site = model.body.gravity_m_s2(site);
+    e.full_thrust_N = t.thrust_to_weight * e.lander_kg * g_site;
+    BurnRequest request;
+    request.site_elevation_m = site;
+    request.end_height_above_site_m = t.method == TerminalMethod::airbag     ? t.release_height_m
+                                      : t.method == TerminalMethod::tethered ? t.tether_length_m
+                                                                             : 0.0;
+    request.end_velocity_m_s = t.touchdown_velocity_m_s;
+    request.lander_mass_kg = e.lander_kg;
+    request.thrust_N = t.throttle * e.full_thrust_N;
+    request.specific_impulse_s = t.isp_s;
+    request.coast_s = design.sequence.separation_coast_s;
+    const auto settings = flight_integrator_settings(
+        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    std::vector<TrajectorySample> burn_samples;
+    const BurnSolution burn =
+        solve_terminal_burn(model, e.descent->record, request, settings, &burn_samples);
+    e.burn_request = request;
+    e.burn = burn;
+
+    // The descent under the canopy up to separation, then the lander.
+    for (const TrajectorySample& s : e.descent->samples) {
+        if (s.time_s < burn.separation_time_s) e.history.push_back(s);
+    }
+    e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());
+
+    const double end_height = burn.end_state[StateIndex::altitude] - site;
+    const double end_velocity = burn.end_state[StateIndex::velocity];
+    double burned = burn.burned_kg;
+    double descent_items = e.budget.group_kg(MassGroup::descent_stage);
+    double tanks = 0.0;
+    const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
+    switch (t.method) {
+        case TerminalMethod::retro:
+            e.touchdown_time_s = burn.end_time_s;
+            e.touchdown_velocity_m_s = end_velocity;
+            break;
+        case TerminalMethod::airbag: {
+            // Cut free at the end of the burn: free fall to the ground.
+            const double v = std::sqrt(end_velocity * end_velocity + 2.0 * g_site * end_height);
+            e.impact_velocity_m_s = v;
+            e.touchdown_time_s = burn.end_time_s + (v - end_velocity) / g_site;
+            break;
+        }
+        case TerminalMethod::tethered: {
+            // Hover while the payload is lowered at the end velocity, cut, fly away. The stage
+            // that flies away (its items, tanks, engines and unburned propellant) depends on
+            // the propellant loaded, so a few passes settle it.
+            const double lowering_s = end_height / end_velocity;
+            const double after_burn = burn.end_state[StateIndex::mass];
+            const double hover_burned =
+                hover_propellant_kg(after_burn, g_site, lowering_s, t.isp_s);
+            double fly_away_burned = 0.0;
+            constexpr int passes = 4;
+            for (int i = 0; i < passes; ++i) {
+                const double loaded = loaded_propellant(t, burn.burned_kg + hover_burned + fly_away_burned);
+                tanks = MassEstimates::tank_fraction * loaded;
+                const double stage = descent_items +
+                                     (tanks + engines) * (1.0 + growth_allowance(Maturity::estimated)) +
+                                     (loaded - burn.burned_kg - hover_burned);
+                fly_away_burned = hover_propellant_kg(stage, g_site, t.fly_away_s, t.isp_s);
+            }
+            burned += hover_burned + fly_away_burned;
+            e.hover_time_s = lowering_s + t.fly_away_s;
+            e.touchdown_time_s = burn.end_time_s + lowering_s;
+            e.touchdown_velocity_m_s = end_velocity;
+            break;
+        }
+        case TerminalMethod::none: break;
+    }
+    e.burned_kg = burned;
+    e.loaded_propellant_kg = loaded_propellant(t, burned);
+    tanks = MassEstimates::tank_fraction * e.loaded_propellant_kg;
+    e.budget.add_computed(
+        "propellant (loaded)", e.loaded_propellant_kg, MassGroup::descent_stage,
+        fmt::format("rocket equation: {:.1f} kg burned, {:.0f} % reserve, {:.0f} % residual",
+                    burned, 100.0 * t.propellant_reserve_fraction,
+                    100.0 * t.propellant_residual_fraction));
+    e.budget.add_estimate("propellant tanks", tanks, MassGroup::descent_stage,
+                          fmt::format("{:.0f} % of loaded propellant ({})",
+                                      100.0 * MassEstimates::tank_fraction, estimate_source));
+    e.budget.add_estimate("engines and feed system", engines, MassGroup::descent_stage,
+                          fmt::format("{} kg per N of full thrust ({})",
+                                      MassEstimates::engine_kg_per_N, estimate_source));
+}
+
+}  // namespace
+
+Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
+                    double entry_kg) {
+    Evaluation e;
+    e.entry_kg = entry_kg;
+    e.aeroshell = resolve_aeroshell(design, entry_kg);
+    for (const MassItemDesign& item : design.mass.items) e.budget.add_design_item(item);
+    if (e.aeroshell.diameter_m <= 0.0) return e;
+
+    e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
+    e.total_heat_load_J_cm2 = (e.entry.end_state[StateIndex::convective_heat_load] +
+                               e.entry.end_state[StateIndex::radiative_heat_load]) *
+                              per_cm2;
+    const double area = frontal_area_m2(e.aeroshell.diameter_m);
+    const double body_drag_area = MassEstimates::suspended_body_drag_coefficient * area;
+    add_drop_masses(design, e, area);
+    size_canopy(design, model, atmosphere, e, body_drag_area);
+    e.lander_kg = entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
+                  e.budget.group_kg(MassGroup::backshell);
+
+    const bool fires_engines = design.terminal.method != TerminalMethod::none;
+    if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0) {
+        DescentPlan plan;
+        plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
+        plan.body_drag_area_m2 = body_drag_area;
+        plan.jettison_mass_kg = e.budget.group_kg(MassGroup::heat_shield);
+        plan.floor_altitude_m = design.site.elevation_m - descent_floor_below_site_m;
+        e.descent = fly_descent(design, model, plan, e.entry.end_time_s, e.entry.end_state);
+        if (fires_engines && !e.descent->record.empty()) {
+            fly_terminal_burn(design, model, e);
+        } else if (!fires_engines) {
+            const auto t = e.descent->record.time_descending_through(design.site.elevation_m);
+            for (const TrajectorySample& s : e.descent->samples) {
+                if (!t || s.time_s <= *t) e.history.push_back(s);
+            }
+            if (t) {
+                e.touchdown_time_s = *t;
+                e.touchdown_velocity_m_s = e.descent->record.state_at(*t)[StateIndex::velocity];
+            }
+        }
+    }
+
+    // What reaches the ground: the whole lander less what it burned (retro, none), or what
+    // the descent stage lowers or drops (airbag, tethered), airbags included.
+    switch (design.terminal.method) {
+        case TerminalMethod::retro:
+        case TerminalMethod::none: e.landed_kg = e.lander_kg - e.burned_kg; break;
+        case TerminalMethod::airbag:
+        case TerminalMethod::tethered:
+            e.landed_kg = e.lander_kg - e.budget.group_kg(MassGroup::descent_stage);
+            break;
+    }
+    if (design.terminal.method == TerminalMethod::airbag) {
+        e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,
+                              MassGroup::payload,
+                              fmt::format("{:.0f} % of the landed mass ({})",
+                                          100.0 * MassEstimates::airbag_fraction,
+                                          estimate_source));
+        if (e.impact_velocity_m_s) {
+            e.impact_energy_J =
+                0.5 * e.landed_kg * *e.impact_velocity_m_s * *e.impact_velocity_m_s;
+        }
+    }
+    if (design.mass.entry_kg) {
+        e.budget.add_computed("unallocated (entry mass less the budget)",
+                              entry_kg - e.budget.total_kg(), MassGroup::payload,
+                              "entry mass fixed by the design");
+    }
+    return e;
+}
+
+std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
+                                              const Evaluation& e, double site_elevation_m) {
+    if (!e.descent || !e.descent->jettisoned) return std::nullopt;
+    const DescentFlight& d = *e.descent;
+    TimelineMargin m;
+    const double jettison_after_deploy = d.jettison_time_s - d.deploy_time_s;
+    if (!e.burn_request) {
+        const auto t = d.record.time_descending_through(site_elevation_m);
+        if (!t) return std::nullopt;
+        m.available_s = *t - d.deploy_time_s;
+        m.needed_s = jettison_after_deploy;
+        m.margin_s = m.available_s - m.needed_s;
+        return m;
+    }
+    m.needed_s = jettison_after_deploy + design.sequence.ground_sensing_lock_s +
+                 design.sequence.separation_coast_s;
+    BurnSolution burn = *e.burn;
+    if (site_elevation_m != e.burn_request->site_elevation_m) {
+        BurnRequest request = *e.burn_request;
+        request.site_elevation_m = site_elevation_m;
+        burn = solve_terminal_burn(
+            model, d.record, request,
+            flight_integrator_settings(design.solver.relative_tolerance,
+                                       static_cast<std::size_t>(design.solver.max_steps)));
+    }
+    m.available_s = burn.ignition_time_s - d.deploy_time_s;
+    m.margin_s = m.available_s - m.needed_s;
+    if (!burn.stops_in_time) {
+        // It cannot land there at all: count the excess speed against it, so the margin keeps
+        // falling as the site rises and a root-finder sees one crossing.
+        constexpr double seconds_per_m_s = 1.0;
+        m.margin_s = std::min(m.margin_s, 0.0) -
+                     seconds_per_m_s * (burn.end_state[StateIndex::velocity] -
+                                        e.burn_request->end_velocity_m_s);
+    }
+    return m;
+}
+
+}  // namespace ds

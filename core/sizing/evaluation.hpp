@@ -1,0 +1,69 @@
+#pragma once
+
+#include <optional>
+#include <vector>
+
+#include "mass/budget.hpp"
+#include "parachute/canopy.hpp"
+#include "sizing/descent_flight.hpp"
+#include "sizing/entry_flight.hpp"
+#include "sizing/terminal_burn.hpp"
+
+namespace ds {
+
+/// One flight of the whole design at one entry mass, with the mass budget it implies: the
+/// step the closure iterates, and what the results are made from.
+struct Evaluation {
+    double entry_kg = 0.0;
+    ResolvedAeroshell aeroshell;  ///< diameter 0: the sizing request has no solution
+    EntryFlight entry;
+    double total_heat_load_J_cm2 = 0.0;  ///< convective plus radiative
+
+    CanopyType canopy;
+    double canopy_drag_coefficient = 0.0;
+    double canopy_diameter_m = 0.0;  ///< 0: the sizing request has no solution
+
+    MassBudget budget;
+    double lander_kg = 0.0;  ///< what separates from the backshell
+    double landed_kg = 0.0;
+
+    std::optional<DescentFlight> descent;  ///< when the parachute deployed
+    double full_thrust_N = 0.0;
+    std::optional<BurnRequest> burn_request;
+    std::optional<BurnSolution> burn;
+    double burned_kg = 0.0;  ///< every burn, hover and fly-away included
+    double loaded_propellant_kg = 0.0;
+    std::optional<double> hover_time_s;          ///< tethered
+    std::optional<double> touchdown_time_s;      ///< at the ground (none), or the payload's
+    std::optional<double> touchdown_velocity_m_s;
+    std::optional<double> impact_velocity_m_s;   ///< airbag
+    std::optional<double> impact_energy_J;       ///< airbag
+
+    std::vector<TrajectorySample> history;
+
+    /// The entry mass the budget adds up to: what the closure drives to entry_kg.
+    double budget_kg() const { return budget.total_kg(); }
+};
+
+/// The descent under the canopy is flown this far below the site, so that the highest
+/// feasible site elevation can be found on the same flight (our choice).
+inline constexpr double descent_floor_below_site_m = 5000.0;
+
+/// Flies the design at an entry mass and builds its budget. In analysis mode (the design fixes
+/// the entry mass), what the budget leaves over is added as "unallocated".
+Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
+                    double entry_kg);
+
+/// The timeline margin of an evaluation at a site elevation: time from parachute deploy to the
+/// start of the terminal burn (the touchdown for "none"), less the time the sequence needs.
+/// Negative also when the lander cannot stop in time there. Uses the evaluation's own descent.
+struct TimelineMargin {
+    double available_s = 0.0;
+    double needed_s = 0.0;
+    double margin_s = 0.0;
+};
+std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
+                                              const Evaluation& evaluation,
+                                              double site_elevation_m);
+
+}  // namespace ds

@@ -1,0 +1,123 @@
+// The terminal-burn solver against the closed form of a constant-thrust vertical braking burn
+// (references: t_burn = v0 / (a - g), delta-v = v0 + g t_burn, gravity loss g t_burn) and the
+// Tsiolkovsky rocket equation.
+
+#include <cmath>
+
+#include <doctest/doctest.h>
+
+#include "atmosphere/exponential.hpp"
+#include "constants.hpp"
+#include "sizing/terminal_burn.hpp"
+
+namespace {
+
+// A flat, airless, non-rotating body with a uniform 3.7 m/s^2: a huge radius with
+// mu = g R^2 keeps g within 1e-5 over the few kilometres flown.
+constexpr double radius = 1e9;
+constexpr double g = 3.7;
+
+struct VerticalDrop {
+    ds::Body body{"flat", radius, g * radius * radius, 0.0, ds::Gas{188.9, 1.29, 1.9e-4, ""}};
+    ds::ExponentialAtmosphere vacuum{{1e-15, 11100.0, 210.0}, 188.9, 1.29};
+    ds::DenseTrajectory record;
+
+    VerticalDrop() {
+        // Falling straight down from 6 km at 60 m/s, no drag: a descent record to solve on.
+        ds::Phase fall;
+        fall.ends = {{"floor", ds::FlightQuantity::altitude, -1000.0,
+                      ds::EventDirection::falling}};
+        ds::FlightState y0;
+        y0 << 6000.0, 0.0, 60.0, -M_PI / 2.0, 500.0, 0.0, 0.0;
+        ds::fly_phase(model(), fall, 0.0, y0, 1000.0, settings(), {nullptr, &record});
+    }
+    ds::FlightModel model() const { return {body, vacuum}; }
+    static ds::IntegratorSettings<ds::flight_state_size> settings() {
+        return ds::flight_integrator_settings(1e-10, 100000);
+    }
+};
+
+ds::BurnRequest request(double thrust_acceleration, double isp) {
+    ds::BurnRequest r;
+    r.site_elevation_m = 0.0;
+    r.end_velocity_m_s = 2.0;
+    r.lander_mass_kg = 400.0;
+    r.thrust_N = thrust_acceleration * r.lander_mass_kg;
+    r.specific_impulse_s = isp;
+    r.coast_s = 0.0;
+    return r;
+}
+
+}  // namespace
+
+TEST_CASE("constant-thrust vertical burn: burn time v / (a - g) and gravity loss g t (closed form)") {
+    const VerticalDrop drop;
+    // An Isp of 1e12 s keeps the mass, so the thrust acceleration stays a = 9.25 m/s^2.
+    const double a = 2.5 * g;
+    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record,
+                                                       request(a, 1e12), drop.settings());
+    REQUIRE(b.stops_in_time);
+    const double v0 = b.ignition_state[ds::StateIndex::velocity];
+    const double t_burn = (v0 - 2.0) / (a - g);
+    CHECK(b.burn_time_s == doctest::Approx(t_burn).epsilon(1e-5));
+    CHECK(b.gravity_loss_m_s == doctest::Approx(g * t_burn).epsilon(1e-4));
+    CHECK(b.ideal_delta_v_m_s == doctest::Approx((v0 - 2.0) + g * t_burn).epsilon(1e-4));
+    // The burn covers (v0^2 - v^2) / (2 (a - g)) and ends at the site.
+    const double distance = (v0 * v0 - 4.0) / (2.0 * (a - g));
+    CHECK(b.ignition_state[ds::StateIndex::altitude] == doctest::Approx(distance).epsilon(1e-4));
+}
+
+TEST_CASE("the solved ignition lands at the touchdown velocity to 0.05 m/s at the site") {
+    const VerticalDrop drop;
+    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record,
+                                                       request(2.5 * g, 220.0), drop.settings());
+    REQUIRE(b.stops_in_time);
+    CHECK(std::abs(b.end_state[ds::StateIndex::velocity] - 2.0) < 0.05);
+    CHECK(std::abs(b.end_state[ds::StateIndex::altitude]) < 0.01);
+}
+
+TEST_CASE("propellant burned follows the Tsiolkovsky rocket equation") {
+    const VerticalDrop drop;
+    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record,
+                                                       request(2.5 * g, 220.0), drop.settings());
+    REQUIRE(b.stops_in_time);
+    // m0 - m1 = m0 (1 - exp(-dv / (Isp g0))).
+    CHECK(b.burned_kg ==
+          doctest::Approx(400.0 * (1.0 - std::exp(-b.ideal_delta_v_m_s / (220.0 * 9.80665))))
+              .epsilon(1e-9));
+    // And the burn time of a constant thrust is burned mass over the mass flow T / (Isp g0).
+    CHECK(b.burn_time_s ==
+          doctest::Approx(b.burned_kg / (2.5 * g * 400.0 / (220.0 * 9.80665))).epsilon(1e-6));
+}
+
+TEST_CASE("a coast between separation and ignition is flown in free fall") {
+    const VerticalDrop drop;
+    ds::BurnRequest r = request(2.5 * g, 220.0);
+    r.coast_s = 2.0;
+    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
+    REQUIRE(b.stops_in_time);
+    CHECK(b.ignition_time_s - b.separation_time_s == doctest::Approx(2.0).epsilon(1e-9));
+    CHECK(b.ignition_state[ds::StateIndex::velocity] -
+              b.separation_state[ds::StateIndex::velocity] ==
+          doctest::Approx(2.0 * g).epsilon(1e-5));
+}
+
+TEST_CASE("thrust below weight cannot stop the lander: the solver says so with the impact speed") {
+    const VerticalDrop drop;
+    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record,
+                                                       request(0.9 * g, 220.0), drop.settings());
+    CHECK_FALSE(b.stops_in_time);
+    CHECK(b.end_state[ds::StateIndex::velocity] > 60.0);
+    CHECK(std::abs(b.end_state[ds::StateIndex::altitude]) < 0.01);
+}
+
+TEST_CASE("a burn that must end above the site ends there (an airbag release height)") {
+    const VerticalDrop drop;
+    ds::BurnRequest r = request(2.5 * g, 220.0);
+    r.end_height_above_site_m = 12.0;
+    r.end_velocity_m_s = 0.5;
+    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
+    REQUIRE(b.stops_in_time);
+    CHECK(b.end_state[ds::StateIndex::altitude] == doctest::Approx(12.0).epsilon(1e-3));
+    CHECK(std::abs(b.end_state[ds::StateIndex::velocity] - 0.5) < 0.05);
+}
