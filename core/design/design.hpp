@@ -92,6 +92,9 @@ struct MassDesign {
     /// Dropped at heat-shield jettison; estimated (TPS from the heat load plus structure) when
     /// absent.
     std::optional<double> heat_shield_kg;
+    /// Backshell structure, its TPS and separation hardware, dropped at separation with the
+    /// parachute; estimated from the aeroshell's size when absent.
+    std::optional<double> backshell_kg;
     std::vector<MassItemDesign> items;
 };
 

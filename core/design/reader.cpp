@@ -720,6 +720,14 @@ private:
                                      *mass.entry_kg, *v));
             }
         }
+        if (auto v = f.optional_number("backshell_kg", non_negative)) {
+            mass.backshell_kg = *v;
+            if (mass.entry_kg && *v >= *mass.entry_kg) {
+                f.report("backshell_kg",
+                         fmt::format("must be less than the entry mass ({} kg), got {}",
+                                     *mass.entry_kg, *v));
+            }
+        }
         const Json* items = f.value("items", Need::optional);
         if (items)
             read_mass_items(*items, f.place_of("items"));

@@ -118,6 +118,7 @@ Json mass_to_json(const MassDesign& mass) {
     Json out;
     put_if(out, "entry_kg", mass.entry_kg);
     put_if(out, "heat_shield_kg", mass.heat_shield_kg);
+    put_if(out, "backshell_kg", mass.backshell_kg);
     Json items = Json::array();
     for (const auto& item : mass.items) {
         Json entry;

@@ -23,17 +23,14 @@ public:
 
     double total_kg() const;
     double group_kg(MassGroup group) const;
-    /// Whether the design itemised anything in this group.
-    bool has_design_items(MassGroup group) const;
 
     const std::vector<MassItem>& items() const { return items_; }
 
 private:
-    void add(MassItem item, MassGroup group, bool from_design);
+    void add(MassItem item, MassGroup group);
 
     std::vector<MassItem> items_;
     std::vector<MassGroup> groups_;
-    std::vector<bool> from_design_;
 };
 
 }  // namespace ds

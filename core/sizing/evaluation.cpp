@@ -28,12 +28,12 @@ double hover_propellant_kg(double mass_kg, double gravity_m_s2, double seconds, 
 }
 
 void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_m2) {
+    // A lump the design gives replaces its estimate; items of the design in the same group
+    // are equipment carried besides it.
     MassBudget& b = e.budget;
-    const bool heat_shield_itemised = b.has_design_items(MassGroup::heat_shield);
-    const bool backshell_itemised = b.has_design_items(MassGroup::backshell);
     if (design.mass.heat_shield_kg) {
         b.add_given("heat shield", *design.mass.heat_shield_kg, MassGroup::heat_shield);
-    } else if (!heat_shield_itemised) {
+    } else {
         b.add_estimate("heat-shield TPS",
                        heat_shield_mass_fraction(e.total_heat_load_J_cm2) * e.entry_kg,
                        MassGroup::heat_shield,
@@ -52,7 +52,9 @@ void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_
                            MassGroup::heat_shield, estimate_source);
         }
     }
-    if (!backshell_itemised) {
+    if (design.mass.backshell_kg) {
+        b.add_given("backshell", *design.mass.backshell_kg, MassGroup::backshell);
+    } else {
         b.add_estimate("backshell", MassEstimates::backshell_kg_m2 * aeroshell_area_m2,
                        MassGroup::backshell, estimate_source);
     }

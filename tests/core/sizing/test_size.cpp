@@ -86,9 +86,9 @@ TEST_CASE("an aeroshell sized for a ballistic coefficient meets it") {
     const ds::Design d = sample("lifting-rover-carrier");
     const ds::Results r = ds::size_design(d);
     CHECK(r.entry.ballistic_coefficient_kg_m2 == doctest::Approx(115.0).epsilon(1e-8));
-    // Constant Cd 1.68: D = sqrt(4 * 2900 / (pi * 1.68 * 115)) = 4.3722 m.
-    CHECK(r.entry.diameter_m == doctest::Approx(std::sqrt(4.0 * 2900.0 / (M_PI * 1.68 * 115.0)))
-                                    .epsilon(1e-8));
+    // Constant Cd 1.68: D = sqrt(4 m / (pi * 1.68 * 115)) at the closed entry mass m.
+    CHECK(r.entry.diameter_m ==
+          doctest::Approx(std::sqrt(4.0 * r.entry.mass_kg / (M_PI * 1.68 * 115.0))).epsilon(1e-8));
 }
 
 TEST_CASE("a parachute sized for a velocity holds it at the requested height by hand balance") {
