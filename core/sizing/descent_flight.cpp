@@ -8,22 +8,29 @@ namespace {
 /// vehicle to subsonic speed).
 constexpr double default_jettison_delay_s = 20.0;
 
+Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
+    Phase phase;
+    phase.name = "parachute";
+    phase.stage.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
+    phase.ends = {{"floor", FlightQuantity::altitude, floor_altitude_m, EventDirection::falling}};
+    return phase;
+}
+
+IntegratorSettings<flight_state_size> descent_settings(const Design& design) {
+    return flight_integrator_settings(design.solver.relative_tolerance,
+                                      static_cast<std::size_t>(design.solver.max_steps));
+}
+
 }  // namespace
 
 DescentFlight fly_descent(const Design& design, const FlightModel& model, const DescentPlan& plan,
                           double deploy_time_s, const FlightState& deploy_state) {
     DescentFlight out;
+    out.plan = plan;
     out.deploy_time_s = deploy_time_s;
-    const auto settings = flight_integrator_settings(
-        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    const auto settings = descent_settings(design);
     const double t_budget = design.solver.max_time_s;
-    const Trigger floor{"floor", FlightQuantity::altitude, plan.floor_altitude_m,
-                        EventDirection::falling};
-
-    Phase under_canopy;
-    under_canopy.name = "parachute";
-    under_canopy.stage.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
-    under_canopy.ends = {floor};
+    Phase under_canopy = under_canopy_phase(plan, plan.floor_altitude_m);
     const PhaseRecording recording{&out.samples, &out.record};
 
     // With the heat shield: until the jettison delay runs out, or the dynamic pressure falls
@@ -55,12 +62,27 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     // Without it, down to the floor.
     FlightState y = first.y;
     y[StateIndex::mass] -= plan.jettison_mass_kg;
-    under_canopy.ends = {floor};
+    under_canopy.ends.resize(1);  // the floor only
     const PhaseOutcome second =
         fly_phase(model, under_canopy, first.time_s, y, t_budget, settings, recording);
     out.reached_floor = second.reason == StopReason::terminal_event;
     out.stop_reason = second.reason;
     return out;
+}
+
+void extend_descent(const Design& design, const FlightModel& model, DescentFlight& descent,
+                    double floor_altitude_m) {
+    if (!descent.reached_floor || !descent.jettisoned || floor_altitude_m >= descent.plan.floor_altitude_m) {
+        return;
+    }
+    const double t = descent.record.end_time();
+    const FlightState y = descent.record.state_at(t);
+    descent.plan.floor_altitude_m = floor_altitude_m;
+    const PhaseOutcome more = fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m), t,
+                                        y, design.solver.max_time_s, descent_settings(design),
+                                        {&descent.samples, &descent.record});
+    descent.reached_floor = more.reason == StopReason::terminal_event;
+    descent.stop_reason = more.reason;
 }
 
 }  // namespace ds

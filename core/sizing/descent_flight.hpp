@@ -12,12 +12,13 @@ struct DescentPlan {
     DragDevice canopy;
     double body_drag_area_m2 = 0.0;   ///< Cd A of the suspended vehicle
     double jettison_mass_kg = 0.0;    ///< dropped at heat-shield jettison
-    double floor_altitude_m = 0.0;    ///< flown down to here (below the site, for trades)
+    double floor_altitude_m = 0.0;    ///< flown down to here
 };
 
 /// The descent under the canopy from deploy: with the heat shield until its jettison, then
 /// without it, down to the floor altitude, kept as a dense trajectory for the terminal solver.
 struct DescentFlight {
+    DescentPlan plan;
     double deploy_time_s = 0.0;
     bool jettisoned = false;
     double jettison_time_s = 0.0;
@@ -30,5 +31,10 @@ struct DescentFlight {
 
 DescentFlight fly_descent(const Design& design, const FlightModel& model, const DescentPlan& plan,
                           double deploy_time_s, const FlightState& deploy_state);
+
+/// Flies a descent that reached its floor on down to a lower one, extending its record (to
+/// look at sites below the design's). Does nothing to a descent that stopped short.
+void extend_descent(const Design& design, const FlightModel& model, DescentFlight& descent,
+                    double floor_altitude_m);
 
 }  // namespace ds

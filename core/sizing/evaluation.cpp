@@ -206,7 +206,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
         plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
         plan.body_drag_area_m2 = body_drag_area;
         plan.jettison_mass_kg = e.budget.group_kg(MassGroup::heat_shield);
-        plan.floor_altitude_m = design.site.elevation_m - descent_floor_below_site_m;
+        plan.floor_altitude_m = design.site.elevation_m;
         e.descent = fly_descent(design, model, plan, e.entry.end_time_s, e.entry.end_state);
         if (fires_engines && !e.descent->record.empty()) {
             fly_terminal_burn(design, model, e);
@@ -269,8 +269,12 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
                  design.sequence.separation_coast_s;
     BurnSolution burn = *e.burn;
     if (site_elevation_m != e.burn_request->site_elevation_m) {
+        // A millisecond on the separation moves the margin by a millisecond: plenty for a
+        // site elevation found to half a metre.
+        constexpr double trade_tolerance_s = 1e-3;
         BurnRequest request = *e.burn_request;
         request.site_elevation_m = site_elevation_m;
+        request.separation_time_tolerance_s = trade_tolerance_s;
         burn = solve_terminal_burn(
             model, d.record, request,
             flight_integrator_settings(design.solver.relative_tolerance,

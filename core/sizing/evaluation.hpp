@@ -45,9 +45,9 @@ struct Evaluation {
     double budget_kg() const { return budget.total_kg(); }
 };
 
-/// The descent under the canopy is flown this far below the site, so that the highest
-/// feasible site elevation can be found on the same flight (our choice).
-inline constexpr double descent_floor_below_site_m = 5000.0;
+/// When the design cannot land at its own site, the highest feasible site is looked for down
+/// to this far below it (our choice).
+inline constexpr double capability_depth_below_site_m = 5000.0;
 
 /// Flies the design at an entry mass and builds its budget. In analysis mode (the design fixes
 /// the entry mass), what the budget leaves over is added as "unallocated".

@@ -64,20 +64,35 @@ Closure close_budget(const Design& design, const FlightModel& model, const Atmos
 }
 
 /// The highest site elevation with a timeline margin of zero or more, on the evaluation's own
-/// descent (the masses held at their closed values).
+/// descent (the masses held at their closed values). The descent reaches the design's site;
+/// only when the design cannot land there is it flown further down to look below.
 std::optional<double> max_site_elevation(const Design& design, const FlightModel& model,
-                                         const Evaluation& e) {
-    if (!e.descent || !e.descent->jettisoned || !e.descent->reached_floor) return std::nullopt;
+                                         const Evaluation& evaluation) {
+    if (!evaluation.descent || !evaluation.descent->jettisoned ||
+        !evaluation.descent->reached_floor) {
+        return std::nullopt;
+    }
+    const Evaluation* e = &evaluation;
     const auto margin_at = [&](double site) {
-        const auto m = timeline_margin(design, model, e, site);
+        const auto m = timeline_margin(design, model, *e, site);
         return m ? m->margin_s : -std::numeric_limits<double>::infinity();
     };
-    const double low = design.site.elevation_m - descent_floor_below_site_m + capability_tolerance_m;
-    const double high = e.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
+    double low = design.site.elevation_m;
+    double margin_low = margin_at(low);
+    Evaluation deeper;
+    if (!(margin_low >= 0.0)) {
+        deeper = evaluation;
+        low = design.site.elevation_m - capability_depth_below_site_m;
+        extend_descent(design, model, *deeper.descent, low);
+        if (!deeper.descent->reached_floor) return std::nullopt;
+        e = &deeper;
+        margin_low = margin_at(low);
+        if (!(margin_low >= 0.0)) return std::nullopt;
+    }
+    const double high =
+        evaluation.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
     if (!(high > low)) return std::nullopt;
-    const double margin_low = margin_at(low);
     const double margin_high = margin_at(high);
-    if (!(margin_low >= 0.0)) return std::nullopt;
     if (margin_high >= 0.0) return high;
     std::uintmax_t iterations = 60;
     const auto close = [](double a, double b) { return b - a <= capability_tolerance_m; };

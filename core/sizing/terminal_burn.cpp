@@ -10,7 +10,6 @@
 namespace ds {
 namespace {
 
-constexpr double separation_time_tolerance_s = 1e-6;
 constexpr double flight_time_limit_s = 3600.0;
 constexpr double first_step_back_s = 2.0;  // search step back from the latest separation  // after separation: a burn never lasts this long
 
@@ -104,8 +103,8 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
         const double miss_early = miss_at(early);
         if (miss_early >= 0.0) {
             std::uintmax_t iterations = 100;
-            const auto close = [](double a, double b) {
-                return b - a <= separation_time_tolerance_s;
+            const auto close = [&](double a, double b) {
+                return b - a <= request.separation_time_tolerance_s;
             };
             // The earlier end of the bracket still stops in time.
             t_solution = boost::math::tools::toms748_solve(miss_at, early, late, miss_early,

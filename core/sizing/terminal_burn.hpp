@@ -15,6 +15,7 @@ struct BurnRequest {
     double thrust_N = 0.0;
     double specific_impulse_s = 0.0;
     double coast_s = 0.0;  ///< free fall from separation to ignition
+    double separation_time_tolerance_s = 1e-6;  ///< how closely the separation is solved
 };
 
 /// The solved burn. When no separation time along the descent lets the lander stop in time,
@@ -38,7 +39,7 @@ struct BurnSolution {
 
 /// Finds the latest separation time along the descent under the canopy at which a
 /// constant-thrust burn against the velocity, after the coast, ends at the requested velocity
-/// at the requested height above the site (TOMS 748 on the separation time, to 1e-6 s). With `history`, the
+/// at the requested height above the site (TOMS 748 on the separation time). With `history`, the
 /// solved coast and burn are appended to it.
 BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory& descent,
                                  const BurnRequest& request,
