@@ -1,0 +1,94 @@
+#include "commands.hpp"
+
+#include <cstdio>
+#include <exception>
+#include <string>
+
+#include <CLI/CLI.hpp>
+#include <fmt/format.h>
+
+#include "design/reader.hpp"
+#include "results/writer.hpp"
+#include "sizing/size.hpp"
+#include "summary.hpp"
+
+namespace ds {
+namespace {
+
+// Exit codes: 0 sized (even with failing checks), 2 a document that cannot be read,
+// 3 an internal error (a bug: please report it with the design).
+constexpr int exit_unreadable = 2;
+constexpr int exit_internal = 3;
+
+struct SizeOptions {
+    std::string design;
+    bool json = false;
+    bool history = false;
+};
+
+int runSize(const SizeOptions& options) {
+    const DesignReadResult read = read_design_file(options.design);
+    if (!read.ok()) {
+        for (const ReadError& error : read.errors) {
+            fmt::print(stderr, "{}: {}\n", options.design, error.text());
+        }
+        return exit_unreadable;
+    }
+    const Results results = size_design(*read.design);
+    if (options.json) {
+        fmt::print("{}", write_results(results, {options.history}));
+    } else {
+        fmt::print("{}", format_summary(*read.design, results));
+    }
+    return 0;
+}
+
+}  // namespace
+
+int runCommand(int argc, char** argv) {
+    CLI::App app{"Descent Sizer: conceptual sizing of a lander's entry, descent and landing system"};
+    app.set_version_flag("--version", std::string(DESCENT_SIZER_VERSION));
+    app.require_subcommand(1);
+    app.footer("Without a command, descent-sizer opens the window (where it is built with one).");
+
+    SizeOptions sizeOptions;
+    CLI::App* size = app.add_subcommand("size", "Size a design and print its summary or results");
+    size->add_option("design", sizeOptions.design, "Design document (JSON)")
+        ->required()
+        ->check(CLI::ExistingFile);
+    size->add_flag("--json", sizeOptions.json, "Print the results document instead of the summary");
+    size->add_flag("--history", sizeOptions.history, "With --json: include the trajectory samples");
+
+    std::string sheetDesign;
+    std::string sheetOutput;
+    CLI::App* sheet = app.add_subcommand(
+        "sheet", "Write the sizing sheet of a design: PDF, HTML, or the trajectory as CSV");
+    sheet->add_option("design", sheetDesign, "Design document (JSON)")
+        ->required()
+        ->check(CLI::ExistingFile);
+    sheet->add_option("-o,--output", sheetOutput, "Output file: .pdf, .html or .csv")->required();
+
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::ParseError& e) {
+        return app.exit(e);
+    }
+    try {
+        if (*size) return runSize(sizeOptions);
+        if (*sheet) {
+#ifdef DESCENT_SIZER_WITH_GUI
+            return writeSheetCommand(argc, argv, sheetDesign.c_str(), sheetOutput.c_str());
+#else
+            fmt::print(stderr, "the sizing sheet needs the window's libraries: build with "
+                               "-DDESCENT_SIZER_BUILD_GUI=ON\n");
+            return 1;
+#endif
+        }
+    } catch (const std::exception& e) {
+        fmt::print(stderr, "internal error: {}\n", e.what());
+        return exit_internal;
+    }
+    return 0;
+}
+
+}  // namespace ds

@@ -1,0 +1,118 @@
+#include <cstdio>
+#include <cstdlib>
+
+#include <QApplication>
+#include <QCommandLineParser>
+#include <QDateTime>
+#include <QEventLoop>
+#include <QTimer>
+#include <fmt/format.h>
+
+#include "commands.hpp"
+#include "design/reader.hpp"
+#include "main_window.hpp"
+#include "sheet/sizing_sheet.hpp"
+#include "sizing/size.hpp"
+#include "summary.hpp"
+
+namespace ds {
+namespace {
+
+constexpr int exit_unreadable = 2;
+// How long --screenshot waits for the first results before giving up.
+constexpr int screenshot_timeout_ms = 20000;
+// Time for the charts to settle after the results arrive, before the picture is taken.
+constexpr int screenshot_settle_ms = 300;
+
+bool hasDisplay() {
+    return std::getenv("DISPLAY") || std::getenv("WAYLAND_DISPLAY") ||
+           std::getenv("QT_QPA_PLATFORM");
+}
+
+void setIdentity() {
+    QCoreApplication::setOrganizationName("descent-sizer");
+    QCoreApplication::setApplicationName("Descent Sizer");
+    QCoreApplication::setApplicationVersion(DESCENT_SIZER_VERSION);
+}
+
+/// Without a display: the demo design sized to the terminal, and how to get the window.
+int sizeDemoToTerminal(const QString& file) {
+    const std::string path = file.isEmpty()
+                                 ? std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json"
+                                 : file.toStdString();
+    const DesignReadResult read = read_design_file(path);
+    if (!read.ok()) {
+        for (const ReadError& error : read.errors) fmt::print(stderr, "{}: {}\n", path, error.text());
+        return exit_unreadable;
+    }
+    fmt::print("No display: sizing {} in the terminal (run under a desktop for the window).\n\n",
+               path);
+    fmt::print("{}", format_summary(*read.design, size_design(*read.design)));
+    return 0;
+}
+
+}  // namespace
+
+int runWindow(int argc, char** argv) {
+    // Parse before a display is needed, so that a headless machine gets the terminal summary.
+    QString file;
+    QString screenshot;
+    for (int i = 1; i < argc; ++i) {
+        const QString arg = QString::fromLocal8Bit(argv[i]);
+        if (arg == "--screenshot" && i + 1 < argc) {
+            screenshot = QString::fromLocal8Bit(argv[++i]);
+        } else if (!arg.startsWith("-")) {
+            file = arg;
+        }
+    }
+    if (!hasDisplay() && screenshot.isEmpty()) return sizeDemoToTerminal(file);
+    if (!hasDisplay()) qputenv("QT_QPA_PLATFORM", "offscreen");
+
+    QApplication app(argc, argv);
+    setIdentity();
+    MainWindow window;
+    const bool opened = file.isEmpty() ? (window.newFromDemo(), true) : window.openFile(file, !screenshot.isEmpty());
+    if (!opened && !screenshot.isEmpty()) {
+        fmt::print(stderr, "cannot open {}\n", file.toStdString());
+        return exit_unreadable;
+    }
+    window.show();
+    if (screenshot.isEmpty()) return app.exec();
+
+    // --screenshot: wait for the results to be drawn, picture the whole window, leave.
+    QEventLoop loop;
+    QObject::connect(&window, &MainWindow::resultsShown, &loop, [&] {
+        QTimer::singleShot(screenshot_settle_ms, &loop, &QEventLoop::quit);
+    });
+    QTimer::singleShot(screenshot_timeout_ms, &loop, &QEventLoop::quit);
+    loop.exec();
+    if (!window.grab().save(screenshot)) {
+        fmt::print(stderr, "cannot write {}\n", screenshot.toStdString());
+        return 1;
+    }
+    return 0;
+}
+
+int writeSheetCommand(int argc, char** argv, const char* designPath, const char* output) {
+    const DesignReadResult read = read_design_file(designPath);
+    if (!read.ok()) {
+        for (const ReadError& error : read.errors) {
+            fmt::print(stderr, "{}: {}\n", designPath, error.text());
+        }
+        return exit_unreadable;
+    }
+    if (!hasDisplay()) qputenv("QT_QPA_PLATFORM", "offscreen");
+    QApplication app(argc, argv);
+    setIdentity();
+    const Results results = size_design(*read.design);
+    const SheetContext context{QStringLiteral(DESCENT_SIZER_VERSION), QDateTime::currentDateTime(),
+                               QString::fromLocal8Bit(designPath)};
+    QString error;
+    if (!writeSheet(QString::fromLocal8Bit(output), *read.design, results, context, &error)) {
+        fmt::print(stderr, "{}\n", error.toStdString());
+        return 1;
+    }
+    return 0;
+}
+
+}  // namespace ds

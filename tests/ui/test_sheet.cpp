@@ -1,0 +1,421 @@
+// The sizing sheet (HTML, CSV, PDF) and the result charts it draws, on the small ballistic
+// station sample: 560 kg at entry, a 60 kg heat shield given by the design, a retro landing.
+
+#include <algorithm>
+#include <cmath>
+#include <filesystem>
+#include <memory>
+#include <numeric>
+
+#include <QAreaSeries>
+#include <QBarCategoryAxis>
+#include <QBarSet>
+#include <QChart>
+#include <QChartView>
+#include <QFile>
+#include <QLineSeries>
+#include <QPointer>
+#include <QRegularExpression>
+#include <QSet>
+#include <QStackedBarSeries>
+#include <QTemporaryDir>
+#include <QTest>
+
+#include "design/reader.hpp"
+#include "sheet/sizing_sheet.hpp"
+#include "sizing/size.hpp"
+#include "views/charts.hpp"
+
+using namespace ds;
+
+namespace {
+
+const QStringList sectionHeadings = {"Design",      "Caution",  "Inputs", "Key figures",
+                                     "Mass budget", "Timeline", "Checks", "Charts"};
+
+const QStringList csvColumns = {"time_s",
+                                "altitude_m",
+                                "downrange_m",
+                                "velocity_m_s",
+                                "flight_path_angle_deg",
+                                "mach",
+                                "dynamic_pressure_Pa",
+                                "deceleration_g",
+                                "heat_flux_W_cm2",
+                                "radiative_heat_flux_W_cm2"};
+
+/// A quantity of the history at a time, by linear interpolation between samples.
+double interpolate(const Results& results, double time_s, double TrajectorySample::*quantity) {
+    const auto& h = results.history;
+    for (std::size_t i = 1; i < h.size(); ++i) {
+        if (h[i].time_s >= time_s) {
+            const double f = (time_s - h[i - 1].time_s) / (h[i].time_s - h[i - 1].time_s);
+            return h[i - 1].*quantity + f * (h[i].*quantity - h[i - 1].*quantity);
+        }
+    }
+    return h.back().*quantity;
+}
+
+int countOf(const QString& text, const QString& what) {
+    return static_cast<int>(text.count(what));
+}
+
+QStackedBarSeries* stackedBars(QChart* chart) {
+    for (QAbstractSeries* series : chart->series()) {
+        if (auto* bars = qobject_cast<QStackedBarSeries*>(series))
+            return bars;
+    }
+    return nullptr;
+}
+
+QBarSet* barSet(QStackedBarSeries* series, const QString& label) {
+    for (QBarSet* set : series->barSets()) {
+        if (set->label() == label)
+            return set;
+    }
+    return nullptr;
+}
+
+}  // namespace
+
+class TestSheet : public QObject {
+    Q_OBJECT
+
+private:
+    Design m_design;
+    Results m_results;
+    SheetContext m_context;
+
+private slots:
+    void initTestCase() {
+        const auto read = read_design_file(std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR) /
+                                           "small-ballistic-station.json");
+        QVERIFY2(read.ok(), read.errors.empty() ? "" : read.errors.front().text().c_str());
+        m_design = *read.design;
+        m_results = size_design(m_design);
+        QVERIFY(m_results.converged);
+        QVERIFY(m_results.history.size() > 10);
+        QVERIFY(!m_results.checks.empty());
+        m_context.toolVersion = QStringLiteral("0.1.0-test");
+        m_context.date = QDateTime(QDate(2024, 5, 17), QTime(9, 30));
+        m_context.designFile = QStringLiteral("samples/small-ballistic-station.json");
+    }
+
+    void htmlHasEverySectionInTheOrderGiven() {
+        const QString html = sheetHtml(m_design, m_results, m_context);
+        QVERIFY(html.startsWith(QStringLiteral("<!DOCTYPE html>")));
+        qsizetype previous = -1;
+        for (const QString& heading : sectionHeadings) {
+            const qsizetype at = html.indexOf(QStringLiteral("<h2>%1</h2>").arg(heading));
+            QVERIFY2(at >= 0, qPrintable(heading));
+            QVERIFY2(at > previous, qPrintable(heading + " is out of order"));
+            previous = at;
+        }
+        QCOMPARE(countOf(html, QStringLiteral("<h2>")), sectionHeadings.size());
+    }
+
+    void htmlCarriesTitleContextCautionNotesAndEveryCheck() {
+        const QString html = sheetHtml(m_design, m_results, m_context);
+        QVERIFY(html.contains(QStringLiteral(
+            "<h1>Sizing sheet: Small ballistic science station (demo scenario)</h1>")));
+        QVERIFY(html.contains(QStringLiteral("2024-05-17 09:30")));
+        QVERIFY(html.contains(QStringLiteral("Descent Sizer 0.1.0-test")));
+        QVERIFY(html.contains(QStringLiteral("samples/small-ballistic-station.json")));
+        QVERIFY(html.contains(sheetCaution().toHtmlEscaped()));
+        QVERIFY(sheetCaution().startsWith(QStringLiteral("Conceptual sizing estimates")));
+        for (const std::string& note : m_results.notes)
+            QVERIFY(html.contains(QString::fromStdString(note).toHtmlEscaped()));
+        for (const Check& check : m_results.checks)
+            QVERIFY2(html.contains(QStringLiteral("<td class=\"key\">%1</td>")
+                                       .arg(QString::fromStdString(check.id))),
+                     check.id.c_str());
+        // The 560 kg entry and 60 kg heat shield of the sample are in the mass budget.
+        QVERIFY(html.contains(QStringLiteral("<td class=\"num\">560.0</td>")));
+        QVERIFY(html.contains(QStringLiteral("<td class=\"num\">60.0</td>")));
+        QCOMPARE(countOf(html, QStringLiteral("src=\"data:image/png;base64,")), 4);
+    }
+
+    void inputsTakeTheirUnitFromTheKeySuffix() {
+        const QString html = sheetHtml(m_design, m_results, m_context);
+        const auto row = [](const char* key, const char* value, const char* unit) {
+            return QStringLiteral("<tr><td>%1</td><td class=\"num\">%2</td><td>%3</td></tr>")
+                .arg(QLatin1String(key), QLatin1String(value), QLatin1String(unit));
+        };
+        QVERIFY(html.contains(row("entry.velocity", "5600", "m/s")));
+        QVERIFY(html.contains(row("entry.flight_path_angle", "-13", "deg")));
+        QVERIFY(html.contains(row("atmosphere.surface_density", "0.02", "kg/m^3")));
+        QVERIFY(html.contains(row("atmosphere.scale_height", "11100", "m")));
+        QVERIFY(html.contains(row("atmosphere.temperature", "210", "K")));
+        QVERIFY(html.contains(row("terminal.isp", "220", "s")));
+        QVERIFY(html.contains(row("limits.deploy_dynamic_pressure_max", "850", "Pa")));
+        QVERIFY(html.contains(row("limits.peak_heat_flux_max", "200", "W/cm^2")));
+        QVERIFY(html.contains(row("limits.ballistic_coefficient_max", "150", "kg/m^2")));
+        QVERIFY(html.contains(row("limits.peak_deceleration_max", "15", "g")));
+        QVERIFY(html.contains(row("parachute.deploy_mach", "1.8", "")));
+        QVERIFY(html.contains(QStringLiteral("<tr><td>body</td><td>mars</td><td></td></tr>")));
+    }
+
+    void htmlEscapesTheDesignName() {
+        Design design = m_design;
+        design.name = "Probe <b>A</b> & \"B\"";
+        const QString html = sheetHtml(design, m_results, m_context);
+        QVERIFY(html.contains(QStringLiteral("Probe &lt;b&gt;A&lt;/b&gt; &amp; &quot;B&quot;")));
+        QVERIFY(!html.contains(QStringLiteral("<b>A</b>")));
+    }
+
+    void htmlFileReadsBackWithEveryElementClosed() {
+        QTemporaryDir dir;
+        QVERIFY(dir.isValid());
+        const QString path = dir.filePath(QStringLiteral("sheet.HTML"));
+        QString error;
+        QVERIFY2(writeSheet(path, m_design, m_results, m_context, &error), qPrintable(error));
+        QFile file(path);
+        QVERIFY(file.open(QIODevice::ReadOnly));
+        const QString html = QString::fromUtf8(file.readAll());
+        QVERIFY(html.startsWith(QStringLiteral("<!DOCTYPE html>")));
+        QVERIFY(html.trimmed().endsWith(QStringLiteral("</html>")));
+        for (const char* element :
+             {"section", "table", "tr", "ul", "p", "h1", "h2", "body", "head"}) {
+            const QString name = QLatin1String(element);
+            const QRegularExpression open(QStringLiteral("<%1[ >]").arg(name));
+            QCOMPARE(countOf(html, QStringLiteral("</%1>").arg(name)),
+                     static_cast<int>(html.count(open)));
+        }
+        QCOMPARE(countOf(html, QStringLiteral("<section>")), sectionHeadings.size());
+    }
+
+    void csvHasTenNumericColumnsAndOneRowPerSample() {
+        QTemporaryDir dir;
+        QVERIFY(dir.isValid());
+        const QString path = dir.filePath(QStringLiteral("history.csv"));
+        QString error;
+        QVERIFY2(writeSheet(path, m_design, m_results, m_context, &error), qPrintable(error));
+        QFile file(path);
+        QVERIFY(file.open(QIODevice::ReadOnly));
+        const QStringList lines =
+            QString::fromUtf8(file.readAll()).split(QLatin1Char('\n'), Qt::SkipEmptyParts);
+        QCOMPARE(lines.front().split(QLatin1Char(',')), csvColumns);
+        QCOMPARE(lines.size() - 1, static_cast<qsizetype>(m_results.history.size()));
+        for (qsizetype i = 1; i < lines.size(); ++i) {
+            const QStringList fields = lines[i].split(QLatin1Char(','));
+            QCOMPARE(fields.size(), csvColumns.size());
+            for (const QString& field : fields) {
+                bool ok = false;
+                field.toDouble(&ok);
+                QVERIFY2(ok, qPrintable(lines[i]));
+            }
+        }
+        // The sample enters at 125 km; nine significant digits give the last time back to 1e-8.
+        QCOMPARE(lines[1].split(QLatin1Char(','))[1].toDouble(), 125000.0);
+        const double lastTime = lines.back().split(QLatin1Char(','))[0].toDouble();
+        QVERIFY(std::abs(lastTime - m_results.history.back().time_s) <=
+                1e-8 * m_results.history.back().time_s);
+    }
+
+    void pdfIsWrittenWithSeveralPages() {
+        QTemporaryDir dir;
+        QVERIFY(dir.isValid());
+        const QString path = dir.filePath(QStringLiteral("sheet.pdf"));
+        QString error;
+        QVERIFY2(writeSheet(path, m_design, m_results, m_context, &error), qPrintable(error));
+        QFile file(path);
+        QVERIFY(file.open(QIODevice::ReadOnly));
+        const QByteArray pdf = file.readAll();
+        QVERIFY(pdf.startsWith("%PDF-"));
+        QVERIFY2(pdf.size() > 10 * 1024, QByteArray::number(pdf.size()).constData());
+        const QRegularExpression pageObject(QStringLiteral("/Type\\s*/Page[^s]"));
+        const auto pages = QString::fromLatin1(pdf).count(pageObject);
+        QVERIFY2(pages > 1, QByteArray::number(pages).constData());
+    }
+
+    void unknownExtensionIsRefusedAndWritesNothing() {
+        QTemporaryDir dir;
+        QVERIFY(dir.isValid());
+        const QString path = dir.filePath(QStringLiteral("sheet.xyz"));
+        QString error;
+        QVERIFY(!writeSheet(path, m_design, m_results, m_context, &error));
+        QCOMPARE(error, QStringLiteral("unknown sheet format '.xyz': use .pdf, .html or .csv"));
+        QVERIFY(!QFile::exists(path));
+        QVERIFY(!writeSheet(dir.filePath(QStringLiteral("sheet")), m_design, m_results, m_context,
+                            &error));
+        QCOMPARE(error, QStringLiteral("the file name has no extension: use .pdf, .html or .csv"));
+    }
+
+    void unwritableFolderIsReported() {
+        QTemporaryDir dir;
+        QVERIFY(dir.isValid());
+        const QString path = dir.filePath(QStringLiteral("missing/folder/sheet.csv"));
+        QString error;
+        QVERIFY(!writeSheet(path, m_design, m_results, m_context, &error));
+        QVERIFY2(error.startsWith(QStringLiteral("cannot write '")), qPrintable(error));
+    }
+
+    void everyChartHasSeriesAndRendersAtTheRequestedSize() {
+        std::unique_ptr<QChart> charts[] = {
+            std::unique_ptr<QChart>(altitudeVelocityChart(m_results, &m_results)),
+            std::unique_ptr<QChart>(loadsChart(m_results, nullptr)),
+            std::unique_ptr<QChart>(machPressureChart(m_design, m_results, nullptr)),
+            std::unique_ptr<QChart>(massWaterfallChart(m_results)),
+        };
+        for (const auto& chart : charts) {
+            QVERIFY(!chart->title().isEmpty());
+            QVERIFY2(!chart->series().isEmpty(), qPrintable(chart->title()));
+            const QImage image = renderChart(chart.get(), QSize(900, 500));
+            QVERIFY(!image.isNull());
+            QCOMPARE(image.size(), QSize(900, 500));
+            // Drawn, not blank: lines, labels and antialiasing give many colours.
+            QSet<QRgb> colours;
+            for (int y = 0; y < image.height(); y += 5) {
+                for (int x = 0; x < image.width(); x += 5)
+                    colours.insert(image.pixel(x, y));
+            }
+            QVERIFY2(colours.size() > 10, qPrintable(chart->title()));
+        }
+    }
+
+    void altitudeVelocityChartDrawsTheWholeHistory() {
+        std::unique_ptr<QChart> chart(altitudeVelocityChart(m_results, nullptr));
+        QLineSeries* trajectory = nullptr;
+        for (QAbstractSeries* series : chart->series()) {
+            if (series->type() == QAbstractSeries::SeriesTypeLine)
+                trajectory = static_cast<QLineSeries*>(series);
+        }
+        QVERIFY(trajectory);
+        QCOMPARE(trajectory->count(), static_cast<int>(m_results.history.size()));
+        // First point: 5600 m/s at 125 km (the sample's entry interface).
+        QCOMPARE(trajectory->at(0), QPointF(5600.0, 125.0));
+    }
+
+    void deployWindowOpensAtMach2Point1AndClosesAt250Pa() {
+        // The sample's deploy (Mach 1.8, about 537 Pa) lies inside the default window of Mach
+        // 2.1 and 250-850 Pa; falling through it, the Mach limit is met first (q is below
+        // 850 Pa by then) and the window shuts when q falls through 250 Pa.
+        std::unique_ptr<QChart> chart(machPressureChart(m_design, m_results, nullptr));
+        QAreaSeries* band = nullptr;
+        for (QAbstractSeries* series : chart->series()) {
+            if (auto* area = qobject_cast<QAreaSeries*>(series))
+                band = area;
+        }
+        QVERIFY(band);
+        const QList<QPointF> outline = band->upperSeries()->points();
+        QCOMPARE(outline.size(), 4);  // one interval: up, across, down
+        const double opens = outline[0].x();
+        const double closes = outline[3].x();
+        const double deploy = *m_results.parachute.deploy_time_s;
+        QVERIFY(opens < deploy && deploy < closes);
+        const Limits& limits = m_design.limits;
+        QVERIFY(std::abs(interpolate(m_results, opens, &TrajectorySample::mach) -
+                         limits.deploy_mach_max) < 1e-6);
+        const double qOpen = interpolate(m_results, opens, &TrajectorySample::dynamic_pressure_Pa);
+        QVERIFY(qOpen > limits.deploy_dynamic_pressure_min_Pa &&
+                qOpen < limits.deploy_dynamic_pressure_max_Pa);
+        QVERIFY(std::abs(interpolate(m_results, closes, &TrajectorySample::dynamic_pressure_Pa) -
+                         limits.deploy_dynamic_pressure_min_Pa) < 1e-6);
+    }
+
+    void waterfallOfTheStationDropsHeatShieldBackshellAndBurnedPropellant() {
+        std::unique_ptr<QChart> chart(massWaterfallChart(m_results));
+        QStackedBarSeries* series = stackedBars(chart.get());
+        QVERIFY(series);
+        QBarSet* onBoard = barSet(series, QStringLiteral("mass on board"));
+        QBarSet* dropped = barSet(series, QStringLiteral("mass dropped"));
+        QVERIFY(onBoard && dropped);
+        // Entry, heat-shield jettison, backshell separation, propellant burned, landed.
+        QCOMPARE(onBoard->count(), 5);
+        QCOMPARE(onBoard->at(0), 560.0);
+        QCOMPARE(dropped->at(1), 60.0);  // the design's heat shield, flown without growth
+        QCOMPARE(dropped->at(3), *m_results.terminal.burned_propellant_kg);
+        QCOMPARE(onBoard->at(4), *m_results.mass.landed_kg);
+    }
+
+    void waterfallStepsAddUpToTheLandedMass_data() {
+        QTest::addColumn<QString>("sample");
+        QTest::addColumn<int>("bars");
+        // retro: entry, heat shield, backshell, propellant burned, landed
+        QTest::newRow("retro") << QStringLiteral("small-ballistic-station.json") << 5;
+        // tethered: the same and the descent stage flying away
+        QTest::newRow("tethered") << QStringLiteral("lifting-rover-carrier.json") << 6;
+        // none: the capsule keeps its heat shield and burns nothing; the backshell goes
+        QTest::newRow("none") << QStringLiteral("earth-return-capsule.json") << 3;
+    }
+
+    void waterfallStepsAddUpToTheLandedMass() {
+        QFETCH(QString, sample);
+        QFETCH(int, bars);
+        const auto read = read_design_file(std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR) /
+                                           sample.toStdString());
+        QVERIFY(read.ok());
+        const Results results = size_design(*read.design);
+        QVERIFY(results.mass.landed_kg);
+        std::unique_ptr<QChart> chart(massWaterfallChart(results));
+        QStackedBarSeries* series = stackedBars(chart.get());
+        QVERIFY(series);
+        QBarSet* base = barSet(series, QStringLiteral("base"));
+        QBarSet* onBoard = barSet(series, QStringLiteral("mass on board"));
+        QBarSet* dropped = barSet(series, QStringLiteral("mass dropped"));
+        QVERIFY(base && onBoard && dropped);
+        QCOMPARE(onBoard->count(), bars);
+        const int last = onBoard->count() - 1;
+        QCOMPARE(onBoard->at(0), results.mass.entry_kg);
+        double level = onBoard->at(0);
+        double drops = 0.0;
+        for (int i = 1; i < last; ++i) {
+            QCOMPARE(onBoard->at(i), 0.0);
+            QVERIFY(dropped->at(i) > 0.0);
+            // Each step floats from the level before it down to the level after it.
+            QVERIFY(std::abs(base->at(i) + dropped->at(i) - level) < 1e-9);
+            level = base->at(i);
+            drops += dropped->at(i);
+        }
+        QCOMPARE(onBoard->at(last), *results.mass.landed_kg);
+        // The steps come from the budget's items, the landed mass from the flight.
+        QVERIFY2(std::abs(onBoard->at(0) - drops - onBoard->at(last)) < 0.5,
+                 qPrintable(QStringLiteral("%1 - %2 != %3")
+                                .arg(onBoard->at(0))
+                                .arg(drops)
+                                .arg(onBoard->at(last))));
+    }
+
+    void emptyResultsGiveTitledEmptyCharts() {
+        const Results empty;
+        std::unique_ptr<QChart> charts[] = {
+            std::unique_ptr<QChart>(altitudeVelocityChart(empty, nullptr)),
+            std::unique_ptr<QChart>(loadsChart(empty, &m_results)),
+            std::unique_ptr<QChart>(machPressureChart(m_design, empty, nullptr)),
+            std::unique_ptr<QChart>(massWaterfallChart(empty)),
+        };
+        for (const auto& chart : charts) {
+            QVERIFY(!chart->title().isEmpty());
+            QVERIFY(chart->series().isEmpty());
+            QCOMPARE(renderChart(chart.get(), QSize(400, 300)).size(), QSize(400, 300));
+        }
+        // The sheet of results without a flight is still a whole document.
+        const QString html = sheetHtml(m_design, empty, m_context);
+        QCOMPARE(countOf(html, QStringLiteral("<section>")), sectionHeadings.size());
+        QCOMPARE(historyCsv(empty).count(QLatin1Char('\n')), 1);
+    }
+
+    void chartsViewDeletesTheChartsItReplaces() {
+        ChartsView view;
+        view.resize(900, 700);
+        const QList<QChartView*> views = view.findChildren<QChartView*>();
+        QCOMPARE(views.size(), 4);
+        QList<QPointer<QChart>> before;
+        for (QChartView* chartView : views)
+            before << QPointer<QChart>(chartView->chart());
+        view.setResults(m_design, m_results, nullptr);
+        for (const QPointer<QChart>& chart : before)
+            QVERIFY(chart.isNull());
+        for (QChartView* chartView : views) {
+            QVERIFY(chartView->chart());
+            QVERIFY(!chartView->chart()->series().isEmpty());
+        }
+        // A chart shown in the window can be drawn for the sheet and stays shown.
+        QChart* shown = views.front()->chart();
+        QCOMPARE(renderChart(shown, QSize(600, 400)).size(), QSize(600, 400));
+        QCOMPARE(shown->scene(), views.front()->scene());
+    }
+};
+
+QTEST_MAIN(TestSheet)
+#include "test_sheet.moc"

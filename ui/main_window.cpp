@@ -1,0 +1,263 @@
+#include "main_window.hpp"
+
+#include <QAction>
+#include <QCloseEvent>
+#include <QDateTime>
+#include <QFile>
+#include <QFileDialog>
+#include <QFileInfo>
+#include <QLabel>
+#include <QMenuBar>
+#include <QMessageBox>
+#include <QSplitter>
+#include <QStatusBar>
+#include <QTabWidget>
+#include <QUndoStack>
+
+#include "model/design_document.hpp"
+#include "model/sizing_runner.hpp"
+#include "sheet/sizing_sheet.hpp"
+#include "views/charts.hpp"
+#include "views/checks_view.hpp"
+#include "views/design_form.hpp"
+#include "views/figures_view.hpp"
+
+namespace ds {
+namespace {
+
+constexpr const char* demoResource = ":/samples/small-ballistic-station.json";
+constexpr const char* designFilter = "Descent Sizer designs (*.json)";
+// Wide enough for the longest label and a number with its unit.
+constexpr int formMinimumWidth = 440;
+
+}  // namespace
+
+MainWindow::MainWindow(QWidget* parent)
+    : QMainWindow(parent),
+      m_document(new DesignDocument(this)),
+      m_runner(new SizingRunner(this)) {
+    m_form = new DesignForm(m_document, this);
+    m_figures = new FiguresView(this);
+    m_checks = new ChecksView(this);
+    m_charts = new ChartsView(this);
+
+    auto* tables = new QTabWidget(this);
+    tables->addTab(m_figures, tr("Key figures"));
+    tables->addTab(m_checks, tr("Checks"));
+    auto* results = new QSplitter(Qt::Vertical, this);
+    results->addWidget(tables);
+    results->addWidget(m_charts);
+    results->setStretchFactor(0, 2);
+    results->setStretchFactor(1, 3);
+    auto* main = new QSplitter(Qt::Horizontal, this);
+    main->addWidget(m_form);
+    main->addWidget(results);
+    main->setStretchFactor(0, 0);
+    main->setStretchFactor(1, 1);
+    m_form->setMinimumWidth(formMinimumWidth);
+    main->setSizes({formMinimumWidth, 1100});
+    setCentralWidget(main);
+
+    m_status = new QLabel(this);
+    statusBar()->addWidget(m_status, 1);
+    statusBar()->addPermanentWidget(new QLabel(
+        tr("Conceptual estimates: confirm by detailed analysis and test."), this));
+
+    buildMenus();
+    connect(m_document, &DesignDocument::changed, this, &MainWindow::documentChanged);
+    connect(m_document, &DesignDocument::fileStateChanged, this, &MainWindow::updateTitle);
+    connect(m_runner, &SizingRunner::resultsReady, this, &MainWindow::showResults);
+    connect(m_checks, &ChecksView::fieldRequested, this,
+            [this](const QString& pointer) { m_form->focusField(pointer.toStdString()); });
+
+    resize(1500, 950);
+    if (!m_settings.windowGeometry().isEmpty()) restoreGeometry(m_settings.windowGeometry());
+    if (!m_settings.windowState().isEmpty()) restoreState(m_settings.windowState());
+    updateTitle();
+}
+
+void MainWindow::buildMenus() {
+    QMenu* file = menuBar()->addMenu(tr("&File"));
+    file->addAction(tr("&New from demo"), QKeySequence::New, this, [this] {
+        if (confirmDiscard()) newFromDemo();
+    });
+    file->addAction(tr("&Open..."), QKeySequence::Open, this, [this] {
+        if (!confirmDiscard()) return;
+        const QString path = QFileDialog::getOpenFileName(this, tr("Open design"),
+                                                          m_settings.lastDirectory(), tr(designFilter));
+        if (!path.isEmpty()) openFile(path);
+    });
+    m_recentMenu = file->addMenu(tr("Open &recent"));
+    file->addSeparator();
+    file->addAction(tr("&Save"), QKeySequence::Save, this, [this] { save(); });
+    file->addAction(tr("Save &as..."), QKeySequence::SaveAs, this, [this] {
+        const QString path = chooseSaveFile();
+        if (!path.isEmpty()) saveAs(path);
+    });
+    file->addAction(tr("&Export sheet..."), QKeySequence(tr("Ctrl+E")), this, [this] {
+        const QString path = QFileDialog::getSaveFileName(
+            this, tr("Export sizing sheet"), m_settings.lastDirectory(),
+            tr("PDF (*.pdf);;HTML (*.html);;Trajectory CSV (*.csv)"));
+        if (path.isEmpty()) return;
+        QString error;
+        if (!exportSheet(path, &error)) QMessageBox::warning(this, tr("Export sheet"), error);
+    });
+    file->addSeparator();
+    file->addAction(tr("&Quit"), QKeySequence::Quit, this, &QWidget::close);
+
+    QMenu* edit = menuBar()->addMenu(tr("&Edit"));
+    QAction* undo = m_document->undoStack()->createUndoAction(this, tr("&Undo"));
+    undo->setShortcut(QKeySequence::Undo);
+    QAction* redo = m_document->undoStack()->createRedoAction(this, tr("&Redo"));
+    redo->setShortcut(QKeySequence::Redo);
+    edit->addAction(undo);
+    edit->addAction(redo);
+
+    QMenu* trade = menuBar()->addMenu(tr("&Baseline"));
+    trade->addAction(tr("&Pin current results as baseline"), QKeySequence(tr("Ctrl+B")), this,
+                     &MainWindow::pinBaseline);
+    trade->addAction(tr("&Clear baseline"), this, &MainWindow::clearBaseline);
+    updateRecentMenu();
+}
+
+void MainWindow::newFromDemo() {
+    QFile demo(demoResource);
+    demo.open(QIODevice::ReadOnly);
+    const QByteArray bytes = demo.readAll();
+    DesignDocument::Json json = DesignDocument::Json::parse(bytes.constData(),
+                                                            bytes.constData() + bytes.size());
+    m_document->reset(std::move(json), QString());
+}
+
+bool MainWindow::openFile(const QString& path, bool quiet) {
+    QString error;
+    if (!m_document->open(path, &error)) {
+        if (!quiet) QMessageBox::warning(this, tr("Open design"), error);
+        return false;
+    }
+    m_settings.addRecentFile(m_document->filePath());
+    m_settings.setLastDirectory(QFileInfo(path).absolutePath());
+    updateRecentMenu();
+    return true;
+}
+
+bool MainWindow::save() {
+    if (m_document->filePath().isEmpty()) {
+        const QString path = chooseSaveFile();
+        return !path.isEmpty() && saveAs(path);
+    }
+    return saveAs(m_document->filePath());
+}
+
+bool MainWindow::saveAs(const QString& path) {
+    QString error;
+    if (!m_document->saveAs(path, &error)) {
+        QMessageBox::warning(this, tr("Save design"), error);
+        return false;
+    }
+    m_settings.addRecentFile(m_document->filePath());
+    m_settings.setLastDirectory(QFileInfo(path).absolutePath());
+    updateRecentMenu();
+    return true;
+}
+
+QString MainWindow::chooseSaveFile() {
+    QString path = QFileDialog::getSaveFileName(this, tr("Save design"), m_settings.lastDirectory(),
+                                                tr(designFilter));
+    if (!path.isEmpty() && QFileInfo(path).suffix().isEmpty()) path += ".json";
+    return path;
+}
+
+bool MainWindow::exportSheet(const QString& path, QString* error) {
+    if (!m_runner->hasResults()) {
+        *error = tr("There are no results to export yet.");
+        return false;
+    }
+    const SheetContext context{QStringLiteral(DESCENT_SIZER_VERSION), QDateTime::currentDateTime(),
+                               m_document->filePath()};
+    return writeSheet(path, m_runner->design(), m_runner->results(), context, error);
+}
+
+void MainWindow::pinBaseline() {
+    if (!m_runner->hasResults()) return;
+    m_baseline = m_runner->results();
+    showResults();
+}
+
+void MainWindow::clearBaseline() {
+    m_baseline.reset();
+    if (m_runner->hasResults()) showResults();
+}
+
+void MainWindow::documentChanged() {
+    if (const auto& design = m_document->design()) {
+        m_runner->request(*design);
+        m_status->setText(tr("Sizing..."));
+    } else {
+        m_status->setText(tr("The design has errors: the results shown are of the last valid design."));
+    }
+    updateTitle();
+}
+
+void MainWindow::showResults() {
+    const Results& r = m_runner->results();
+    const Results* baseline = m_baseline ? &*m_baseline : nullptr;
+    m_figures->setResults(r, baseline);
+    m_checks->setResults(r);
+    m_charts->setResults(m_runner->design(), r, baseline);
+    m_lastEditToRedrawMs = m_runner->lastLatencyMs();
+    int failing = 0;
+    int marginal = 0;
+    for (const Check& c : r.checks) {
+        failing += c.status == CheckStatus::fail;
+        marginal += c.status == CheckStatus::marginal;
+    }
+    if (m_document->design()) {
+        m_status->setText(tr("%1: %2 failing, %3 marginal of %4 checks%5")
+                              .arg(r.converged ? tr("Sized") : tr("NOT sized"))
+                              .arg(failing)
+                              .arg(marginal)
+                              .arg(r.checks.size())
+                              .arg(m_baseline ? tr("; differences from the pinned baseline") : QString()));
+    }
+    emit resultsShown();
+}
+
+void MainWindow::updateTitle() {
+    const QString name = m_document->filePath().isEmpty() ? tr("Untitled design")
+                                                          : QFileInfo(m_document->filePath()).fileName();
+    setWindowTitle(tr("%1[*] - Descent Sizer").arg(name));
+    setWindowModified(m_document->isModified());
+}
+
+void MainWindow::updateRecentMenu() {
+    if (!m_recentMenu) return;
+    m_recentMenu->clear();
+    for (const QString& path : m_settings.recentFiles()) {
+        m_recentMenu->addAction(QFileInfo(path).fileName(), this, [this, path] {
+            if (confirmDiscard()) openFile(path);
+        })->setToolTip(path);
+    }
+    m_recentMenu->setEnabled(!m_settings.recentFiles().isEmpty());
+}
+
+bool MainWindow::confirmDiscard() {
+    if (!m_document->isModified()) return true;
+    const auto answer = QMessageBox::question(
+        this, tr("Unsaved changes"), tr("The design has unsaved changes. Save them first?"),
+        QMessageBox::Save | QMessageBox::Discard | QMessageBox::Cancel, QMessageBox::Save);
+    if (answer == QMessageBox::Cancel) return false;
+    if (answer == QMessageBox::Save) return save();
+    return true;
+}
+
+void MainWindow::closeEvent(QCloseEvent* event) {
+    if (!confirmDiscard()) {
+        event->ignore();
+        return;
+    }
+    m_settings.setWindow(saveGeometry(), saveState());
+    event->accept();
+}
+
+}  // namespace ds

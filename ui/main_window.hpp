@@ -1,0 +1,81 @@
+#pragma once
+
+#include <optional>
+
+#include <QMainWindow>
+
+#include "results/results.hpp"
+#include "settings.hpp"
+
+QT_BEGIN_NAMESPACE
+class QLabel;
+class QMenu;
+QT_END_NAMESPACE
+
+namespace ds {
+
+class ChartsView;
+class ChecksView;
+class DesignDocument;
+class DesignForm;
+class FiguresView;
+class SizingRunner;
+
+/// The window: wires the design document, the forms, the sizing runner and the result views
+/// together, and holds the file and baseline commands. It computes nothing itself.
+class MainWindow : public QMainWindow {
+    Q_OBJECT
+public:
+    explicit MainWindow(QWidget* parent = nullptr);
+
+    /// Opens a design file; on failure says why in a message box (unless quiet) and keeps the
+    /// current design.
+    bool openFile(const QString& path, bool quiet = false);
+    /// Starts a new, unsaved design from the bundled demo.
+    void newFromDemo();
+
+    DesignDocument* document() const { return m_document; }
+    DesignForm* form() const { return m_form; }
+    SizingRunner* runner() const { return m_runner; }
+    FiguresView* figures() const { return m_figures; }
+    ChecksView* checks() const { return m_checks; }
+    bool hasBaseline() const { return m_baseline.has_value(); }
+    /// Milliseconds from the edit to the redrawn views, for the last results shown.
+    qint64 lastEditToRedrawMs() const { return m_lastEditToRedrawMs; }
+
+    void pinBaseline();
+    void clearBaseline();
+    bool save();
+    bool saveAs(const QString& path);
+    bool exportSheet(const QString& path, QString* error);
+
+signals:
+    /// The views show new results.
+    void resultsShown();
+
+protected:
+    void closeEvent(QCloseEvent* event) override;
+
+private:
+    void buildMenus();
+    void showResults();
+    void documentChanged();
+    void updateTitle();
+    void updateRecentMenu();
+    bool confirmDiscard();
+    QString chooseSaveFile();
+
+    DesignDocument* m_document;
+    SizingRunner* m_runner;
+    DesignForm* m_form;
+    FiguresView* m_figures;
+    ChecksView* m_checks;
+    ChartsView* m_charts;
+    QLabel* m_status;
+    QMenu* m_recentMenu = nullptr;
+    std::optional<Results> m_baseline;
+    Settings m_settings;
+    qint64 m_lastEditToRedrawMs = 0;
+};
+
+}  // namespace ds

@@ -1,0 +1,166 @@
+#include "model/design_document.hpp"
+
+#include <QDir>
+#include <QFile>
+#include <QFileInfo>
+#include <QSaveFile>
+#include <QUndoCommand>
+#include <QUndoStack>
+
+#include "design/writer.hpp"
+
+namespace ds {
+
+/// One edit: the values it set, and what they were before.
+class DesignEditCommand : public QUndoCommand {
+public:
+    using Values = std::vector<std::pair<std::string, DesignDocument::Json>>;
+
+    DesignEditCommand(DesignDocument* document, Values after, const QString& text)
+        : QUndoCommand(text), m_document(document), m_after(std::move(after)) {
+        for (const auto& [pointer, value] : m_after) {
+            (void)value;
+            m_before.emplace_back(pointer, document->value(pointer));
+        }
+    }
+
+    void redo() override { m_document->apply(m_after); }
+    void undo() override {
+        // Restored in reverse, so a pointer set twice ends at its first value.
+        m_document->apply(Values(m_before.rbegin(), m_before.rend()));
+    }
+
+private:
+    DesignDocument* m_document;
+    Values m_after;
+    Values m_before;
+};
+
+DesignDocument::DesignDocument(QObject* parent) : QObject(parent), m_undo(new QUndoStack(this)) {
+    connect(m_undo, &QUndoStack::cleanChanged, this, &DesignDocument::fileStateChanged);
+}
+
+DesignDocument::Json DesignDocument::value(const std::string& pointer) const {
+    const Json::json_pointer p(pointer);
+    return m_json.contains(p) ? m_json.at(p) : Json();
+}
+
+bool DesignDocument::isModified() const { return !m_undo->isClean(); }
+
+void DesignDocument::reset(Json json, const QString& filePath) {
+    m_json = std::move(json);
+    m_filePath = filePath;
+    m_undo->clear();
+    reread();
+    emit changed();
+    emit fileStateChanged();
+}
+
+bool DesignDocument::open(const QString& path, QString* error) {
+    QFile file(path);
+    if (!file.open(QIODevice::ReadOnly)) {
+        *error = tr("Cannot open %1: %2").arg(path, file.errorString());
+        return false;
+    }
+    const QByteArray bytes = file.readAll();
+    Json json;
+    try {
+        json = Json::parse(bytes.constData(), bytes.constData() + bytes.size());
+    } catch (const Json::parse_error&) {
+        // The reader words the message with line and column.
+        const DesignReadResult read = read_design(std::string_view(bytes.constData(), bytes.size()));
+        *error = tr("%1 is not a design document:\n%2")
+                     .arg(path, read.errors.empty()
+                                    ? QString()
+                                    : QString::fromStdString(read.errors.front().text()));
+        return false;
+    }
+    if (json.is_object() && json.contains("version") && json["version"].is_number_integer() &&
+        json["version"].get<int>() > design_format_version) {
+        *error = tr("%1 was written by a newer version of Descent Sizer (design version %2); this "
+                    "version reads version %3. The file was left untouched.")
+                     .arg(path)
+                     .arg(json["version"].get<int>())
+                     .arg(design_format_version);
+        return false;
+    }
+    if (!json.is_object()) {
+        *error = tr("%1 is not a design document: it is not a JSON object").arg(path);
+        return false;
+    }
+    reset(std::move(json), QFileInfo(path).absoluteFilePath());
+    return true;
+}
+
+bool DesignDocument::saveAs(const QString& path, QString* error) {
+    QSaveFile file(path);
+    if (!file.open(QIODevice::WriteOnly)) {
+        *error = tr("Cannot write %1: %2").arg(path, file.errorString());
+        return false;
+    }
+    const std::string text = m_json.dump(2) + "\n";
+    file.write(text.data(), static_cast<qint64>(text.size()));
+    if (!file.commit()) {
+        *error = tr("Cannot write %1: %2").arg(path, file.errorString());
+        return false;
+    }
+    const bool renamed = QFileInfo(path).absoluteFilePath() != m_filePath;
+    m_filePath = QFileInfo(path).absoluteFilePath();
+    m_undo->setClean();
+    if (renamed) reread();  // relative paths inside (a CSV atmosphere) now resolve elsewhere
+    emit fileStateChanged();
+    return true;
+}
+
+void DesignDocument::setValue(const std::string& pointer, const Json& value,
+                              const QString& description) {
+    setValues({{pointer, value}}, description);
+}
+
+void DesignDocument::setValues(const std::vector<std::pair<std::string, Json>>& values,
+                               const QString& description) {
+    m_undo->push(new DesignEditCommand(this, values, description));
+}
+
+void DesignDocument::apply(const std::vector<std::pair<std::string, Json>>& values) {
+    for (const auto& [pointer, value] : values) {
+        const Json::json_pointer p(pointer);
+        if (value.is_null()) {
+            if (m_json.contains(p)) m_json.at(p.parent_pointer()).erase(p.back());
+        } else {
+            m_json[p] = value;
+        }
+    }
+    reread();
+    emit changed();
+}
+
+void DesignDocument::reread() {
+    const std::filesystem::path base =
+        m_filePath.isEmpty() ? std::filesystem::path()
+                             : std::filesystem::path(QFileInfo(m_filePath).absolutePath().toStdString());
+    DesignReadResult read = read_design(m_json.dump(), base);
+    m_design = std::move(read.design);
+    m_errors = std::move(read.errors);
+}
+
+std::string pointerToPath(const std::string& pointer) {
+    std::string path;
+    std::size_t start = 1;
+    while (start <= pointer.size()) {
+        const std::size_t end = std::min(pointer.find('/', start), pointer.size());
+        const std::string token = pointer.substr(start, end - start);
+        const bool index = !token.empty() &&
+                           token.find_first_not_of("0123456789") == std::string::npos;
+        if (index) {
+            path += "[" + token + "]";
+        } else {
+            if (!path.empty()) path += ".";
+            path += token;
+        }
+        start = end + 1;
+    }
+    return path;
+}
+
+}  // namespace ds

@@ -1,0 +1,23 @@
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "results/results.hpp"
+
+namespace ds {
+
+/// One figure of the compact table the window and the sizing sheet show.
+struct KeyFigure {
+    std::string id;     ///< stable name, for baselines and tests ("peak_deceleration")
+    std::string label;  ///< "peak deceleration"
+    std::optional<double> value;
+    std::string unit;   ///< "g", "kg/m^2", "" for none
+    int decimals = 1;
+};
+
+/// The key figures of a result, in the order they are shown.
+std::vector<KeyFigure> keyFigures(const Results& results);
+
+}  // namespace ds

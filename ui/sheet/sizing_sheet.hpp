@@ -1,0 +1,34 @@
+#pragma once
+
+#include <QDateTime>
+#include <QString>
+
+#include "design/design.hpp"
+#include "results/results.hpp"
+
+namespace ds {
+
+/// What a sheet says about where it came from.
+struct SheetContext {
+    QString toolVersion;
+    QDateTime date;
+    QString designFile;  ///< may be empty for an unsaved design
+};
+
+/// The caution printed on every sheet.
+QString sheetCaution();
+
+/// The sizing sheet as one HTML document: title, design name, date, tool version, the caution,
+/// the inputs with units, the key figures, the mass budget with growth allowances, the
+/// timeline, every check, and the charts (PNG images embedded as data).
+QString sheetHtml(const Design& design, const Results& results, const SheetContext& context);
+
+/// The trajectory history as CSV, one row per sample, a header naming each column with its unit.
+QString historyCsv(const Results& results);
+
+/// Writes the sheet by the file's extension: .pdf, .html or .csv. Atomic: the file is written
+/// whole or not at all. Returns false with the reason in `error`.
+bool writeSheet(const QString& path, const Design& design, const Results& results,
+                const SheetContext& context, QString* error);
+
+}  // namespace ds

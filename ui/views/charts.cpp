@@ -1,0 +1,642 @@
+#include "views/charts.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <functional>
+#include <limits>
+#include <memory>
+#include <utility>
+#include <vector>
+
+#include <QAreaSeries>
+#include <QBarCategoryAxis>
+#include <QBarSet>
+#include <QChart>
+#include <QChartView>
+#include <QGraphicsLayout>
+#include <QGraphicsRectItem>
+#include <QGraphicsScene>
+#include <QGraphicsSimpleTextItem>
+#include <QGridLayout>
+#include <QLegendMarker>
+#include <QLineSeries>
+#include <QPainter>
+#include <QScatterSeries>
+#include <QStackedBarSeries>
+#include <QValueAxis>
+
+namespace ds {
+namespace {
+
+// The charts' own look: ink on white, one colour per quantity, the baseline in grey.
+const QColor primaryInk(0x1f, 0x4e, 0x79);    // the left-axis quantity
+const QColor secondaryInk(0xa0, 0x3a, 0x13);  // the right-axis quantity
+const QColor baselineInk(0x80, 0x80, 0x80);
+const QColor eventInk(0x20, 0x20, 0x20);
+const QColor windowFill(0x3c, 0x9d, 0x5d, 60);  // translucent: the lines stay readable
+const QColor totalFill(0x1f, 0x4e, 0x79);
+const QColor droppedFill(0xc8, 0x8a, 0x3a);
+
+constexpr double resultLineWidth = 2.0;
+constexpr double baselineLineWidth = 1.5;
+constexpr double eventMarkerSize = 8.0;
+constexpr double metresPerKilometre = 1000.0;
+constexpr double pascalsPerKilopascal = 1000.0;
+constexpr int targetTickIntervals = 5;
+constexpr double keyFontScale = 0.9;
+constexpr double keyPadding = 4.0;
+constexpr double keyOffset = 8.0;
+constexpr double keyZValue = 100.0;  // above the series
+/// An axis end rounded out to a tick may leave this fraction of the span empty, no more.
+constexpr double roundingWasteFraction = 0.1;
+constexpr double axisPadFraction = 0.02;
+/// Events closer than this fraction of both axis spans share one marker and label.
+constexpr double eventMergeFraction = 0.02;
+
+/// A waterfall step lighter than this is left out: it would show as "-0.0 kg".
+constexpr double negligibleKg = 0.05;
+
+/// The label of the invisible bars the waterfall's steps stand on.
+const QString waterfallBaseLabel = QStringLiteral("base");
+
+QChart* newChart(const QString& title) {
+    auto* chart = new QChart;
+    chart->setTheme(QChart::ChartThemeLight);
+    chart->setAnimationOptions(QChart::NoAnimation);
+    chart->setBackgroundBrush(Qt::white);
+    chart->setBackgroundRoundness(0.0);
+    chart->setDropShadowEnabled(false);
+    chart->setTitle(title);
+    QFont titleFont = chart->titleFont();
+    titleFont.setBold(true);
+    titleFont.setPointSizeF(titleFont.pointSizeF() * 1.1);
+    chart->setTitleFont(titleFont);
+    chart->legend()->setAlignment(Qt::AlignBottom);
+    return chart;
+}
+
+QPen resultPen(const QColor& colour) {
+    QPen pen(colour);
+    pen.setWidthF(resultLineWidth);
+    return pen;
+}
+
+QPen baselinePen(Qt::PenStyle style = Qt::DashLine) {
+    QPen pen(baselineInk);
+    pen.setWidthF(baselineLineWidth);
+    pen.setStyle(style);
+    return pen;
+}
+
+/// A value axis on one side of the chart, its labels in the colour of what it measures.
+QValueAxis* addValueAxis(QChart* chart, const QString& title, Qt::Alignment side,
+                         const QColor& colour = Qt::black) {
+    auto* axis = new QValueAxis;
+    axis->setTitleText(title);
+    axis->setLabelFormat(QStringLiteral("%g"));
+    axis->setLabelsColor(colour);
+    QBrush titleBrush(colour);
+    axis->setTitleBrush(titleBrush);
+    // One grid, the left axis's: a second would not line up with it.
+    axis->setGridLineVisible(side != Qt::AlignRight);
+    chart->addAxis(axis, side);
+    return axis;
+}
+
+/// A tick interval of 1, 2 or 5 times a power of ten giving about `ticks` intervals over span.
+double niceInterval(double span, int ticks) {
+    const double raw = span / ticks;
+    const double decade = std::pow(10.0, std::floor(std::log10(raw)));
+    for (const double step : {1.0, 2.0, 5.0}) {
+        if (step * decade >= raw)
+            return step * decade;
+    }
+    return 10.0 * decade;
+}
+
+/// Sets an axis to hold [low, high], ticks on round values from zero. An end is rounded out
+/// to a tick only when that wastes little of the plot; otherwise it gets a small pad.
+void setNiceRange(QValueAxis* axis, double low, double high) {
+    if (!std::isfinite(low) || !std::isfinite(high)) {  // nothing finite to show
+        low = 0.0;
+        high = 1.0;
+    }
+    if (!(high > low)) {
+        low -= 0.5;
+        high += 0.5;
+    }
+    const double span = high - low;
+    const double interval = niceInterval(span, targetTickIntervals);
+    const double roundedLow = std::floor(low / interval) * interval;
+    const double roundedHigh = std::ceil(high / interval) * interval;
+    const double pad = axisPadFraction * span;
+    axis->setRange(low - roundedLow <= roundingWasteFraction * span ? roundedLow : low - pad,
+                   roundedHigh - high <= roundingWasteFraction * span ? roundedHigh : high + pad);
+    axis->setTickType(QValueAxis::TicksDynamic);
+    axis->setTickAnchor(0.0);
+    axis->setTickInterval(interval);
+}
+
+void attach(QChart* chart, QAbstractSeries* series, QAbstractAxis* x, QAbstractAxis* y) {
+    chart->addSeries(series);
+    series->attachAxis(x);
+    series->attachAxis(y);
+}
+
+void hideFromLegend(QChart* chart, QAbstractSeries* series) {
+    for (QLegendMarker* marker : chart->legend()->markers(series))
+        marker->setVisible(false);
+}
+
+/// A line through the history, one point per sample.
+QLineSeries* historySeries(const std::vector<TrajectorySample>& history, const QString& name,
+                           const QPen& pen,
+                           const std::function<QPointF(const TrajectorySample&)>& point) {
+    auto* series = new QLineSeries;
+    series->setName(name);
+    series->setPen(pen);
+    QList<QPointF> points;
+    points.reserve(static_cast<qsizetype>(history.size()));
+    for (const TrajectorySample& sample : history)
+        points.append(point(sample));
+    series->replace(points);
+    return series;
+}
+
+/// The smallest and largest of a quantity over the results and the baseline.
+struct Span {
+    double low = std::numeric_limits<double>::infinity();
+    double high = -std::numeric_limits<double>::infinity();
+
+    void include(double value) {
+        if (!std::isfinite(value))
+            return;
+        low = std::min(low, value);
+        high = std::max(high, value);
+    }
+};
+
+Span spanOf(const Results& results, const Results* baseline,
+            const std::function<double(const TrajectorySample&)>& quantity) {
+    Span span;
+    for (const TrajectorySample& sample : results.history)
+        span.include(quantity(sample));
+    if (baseline) {
+        for (const TrajectorySample& sample : baseline->history)
+            span.include(quantity(sample));
+    }
+    return span;
+}
+
+/// A single marked point with its label written beside it; kept out of the legend.
+QScatterSeries* eventMarker(const QString& label, QPointF point) {
+    auto* marker = new QScatterSeries;
+    marker->setName(label);
+    marker->setMarkerShape(QScatterSeries::MarkerShapeCircle);
+    marker->setMarkerSize(eventMarkerSize);
+    marker->setColor(Qt::white);
+    marker->setBorderColor(eventInk);
+    marker->append(point);
+    // A format without placeholders ("@xPoint") is written as it is: the event's own label.
+    QString format = label;
+    marker->setPointLabelsFormat(format.replace(QLatin1Char('@'), QStringLiteral("at ")));
+    marker->setPointLabelsVisible(true);
+    marker->setPointLabelsColor(eventInk);
+    marker->setPointLabelsClipping(false);
+    return marker;
+}
+
+/// A boxed key in the plot's top-left corner, following the plot area when it moves.
+void addKey(QChart* chart, const QString& text) {
+    auto* box = new QGraphicsRectItem(chart);
+    auto* label = new QGraphicsSimpleTextItem(text, box);
+    QFont font = label->font();
+    font.setPointSizeF(font.pointSizeF() * keyFontScale);
+    label->setFont(font);
+    label->setBrush(eventInk);
+    label->setPos(keyPadding, keyPadding);
+    box->setRect(label->boundingRect().adjusted(0.0, 0.0, 2.0 * keyPadding, 2.0 * keyPadding));
+    box->setBrush(Qt::white);
+    box->setPen(QPen(baselineInk, 0.0));
+    box->setZValue(keyZValue);
+    const auto place = [box](const QRectF& plotArea) {
+        box->setPos(plotArea.topLeft() + QPointF(keyOffset, keyOffset));
+    };
+    place(chart->plotArea());
+    QObject::connect(chart, &QChart::plotAreaChanged, chart, place);
+}
+
+/// A chart with nothing to draw, its title saying why.
+QChart* emptyChart(const QString& title, const QString& reason = QStringLiteral("no trajectory")) {
+    QChart* chart = newChart(QStringLiteral("%1 (%2)").arg(title, reason));
+    chart->legend()->hide();
+    return chart;
+}
+
+/// The time intervals over which the history lies inside the deploy window, with the
+/// crossings placed by linear interpolation between samples.
+std::vector<std::pair<double, double>> deployWindowIntervals(
+    const std::vector<TrajectorySample>& history, const Limits& limits) {
+    std::vector<std::pair<double, double>> intervals;
+    for (std::size_t i = 1; i < history.size(); ++i) {
+        const TrajectorySample& a = history[i - 1];
+        const TrajectorySample& b = history[i];
+        // Each condition is linear in s in [0, 1] along the segment; intersect their s-ranges.
+        double sLow = 0.0;
+        double sHigh = 1.0;
+        const auto keep = [&](double from, double to, double bound, bool atMost) {
+            const double slope = to - from;
+            if (slope == 0.0) {
+                const bool inside = atMost ? from <= bound : from >= bound;
+                if (!inside)
+                    sHigh = -1.0;
+                return;
+            }
+            const double s = (bound - from) / slope;
+            if (atMost == (slope > 0.0))
+                sHigh = std::min(sHigh, s);
+            else
+                sLow = std::max(sLow, s);
+        };
+        keep(a.mach, b.mach, limits.deploy_mach_max, true);
+        keep(a.dynamic_pressure_Pa, b.dynamic_pressure_Pa, limits.deploy_dynamic_pressure_min_Pa,
+             false);
+        keep(a.dynamic_pressure_Pa, b.dynamic_pressure_Pa, limits.deploy_dynamic_pressure_max_Pa,
+             true);
+        if (sLow > sHigh)
+            continue;
+        const double dt = b.time_s - a.time_s;
+        const double start = a.time_s + sLow * dt;
+        const double end = a.time_s + sHigh * dt;
+        if (!intervals.empty() && start <= intervals.back().second)
+            intervals.back().second = std::max(intervals.back().second, end);
+        else
+            intervals.emplace_back(start, end);
+    }
+    return intervals;
+}
+
+QString kgText(double value) {
+    return QString::number(value, 'f', 1);
+}
+
+}  // namespace
+
+QChart* altitudeVelocityChart(const Results& results, const Results* baseline) {
+    const QString title = QStringLiteral("Altitude against velocity");
+    if (results.history.empty())
+        return emptyChart(title);
+
+    QChart* chart = newChart(title);
+    QValueAxis* velocityAxis =
+        addValueAxis(chart, QStringLiteral("velocity (m/s)"), Qt::AlignBottom);
+    QValueAxis* altitudeAxis = addValueAxis(chart, QStringLiteral("altitude (km)"), Qt::AlignLeft);
+    const Span velocity =
+        spanOf(results, baseline, [](const TrajectorySample& s) { return s.velocity_m_s; });
+    const Span altitude = spanOf(results, baseline, [](const TrajectorySample& s) {
+        return s.altitude_m / metresPerKilometre;
+    });
+    setNiceRange(velocityAxis, std::min(0.0, velocity.low), velocity.high);
+    setNiceRange(altitudeAxis, std::min(0.0, altitude.low), altitude.high);
+
+    const auto point = [](const TrajectorySample& s) {
+        return QPointF(s.velocity_m_s, s.altitude_m / metresPerKilometre);
+    };
+    if (baseline && !baseline->history.empty())
+        attach(chart,
+               historySeries(baseline->history, QStringLiteral("baseline"), baselinePen(), point),
+               velocityAxis, altitudeAxis);
+    attach(
+        chart,
+        historySeries(results.history, QStringLiteral("trajectory"), resultPen(primaryInk), point),
+        velocityAxis, altitudeAxis);
+
+    // Each event is marked by its number, the key in the corner that an entry never reaches
+    // (slow and high). Events that fall on one spot (peak dynamic pressure and peak
+    // deceleration, the last seconds before touchdown) share a marker.
+    const double velocityTolerance =
+        eventMergeFraction * (velocityAxis->max() - velocityAxis->min());
+    const double altitudeTolerance =
+        eventMergeFraction * (altitudeAxis->max() - altitudeAxis->min());
+    std::vector<std::pair<QStringList, QPointF>> marks;
+    QStringList key;
+    int number = 0;
+    for (const TimelineEvent& event : results.timeline.events) {
+        const QString label = QString::number(++number);
+        key << QStringLiteral("%1  %2").arg(label, QString::fromStdString(event.name));
+        const QPointF at(event.velocity_m_s, event.altitude_m / metresPerKilometre);
+        const auto near = std::find_if(marks.begin(), marks.end(), [&](const auto& mark) {
+            return std::abs(mark.second.x() - at.x()) <= velocityTolerance &&
+                   std::abs(mark.second.y() - at.y()) <= altitudeTolerance;
+        });
+        if (near != marks.end())
+            near->first << label;
+        else
+            marks.emplace_back(QStringList{label}, at);
+    }
+    for (const auto& [labels, at] : marks) {
+        QScatterSeries* marker = eventMarker(labels.join(QStringLiteral(",")), at);
+        attach(chart, marker, velocityAxis, altitudeAxis);
+        hideFromLegend(chart, marker);
+    }
+    if (!key.isEmpty())
+        addKey(chart, key.join(QLatin1Char('\n')));
+    return chart;
+}
+
+QChart* loadsChart(const Results& results, const Results* baseline) {
+    const QString title = QStringLiteral("Deceleration and heat flux against time");
+    if (results.history.empty())
+        return emptyChart(title);
+
+    QChart* chart = newChart(title);
+    QValueAxis* timeAxis = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
+    QValueAxis* loadAxis =
+        addValueAxis(chart, QStringLiteral("deceleration (g)"), Qt::AlignLeft, primaryInk);
+    QValueAxis* heatAxis =
+        addValueAxis(chart, QStringLiteral("heat flux (W/cm²)"), Qt::AlignRight, secondaryInk);
+
+    const bool radiative =
+        std::any_of(results.history.begin(), results.history.end(),
+                    [](const TrajectorySample& s) { return s.radiative_heat_flux_W_cm2 > 0.0; });
+    const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
+    const Span load =
+        spanOf(results, baseline, [](const TrajectorySample& s) { return s.deceleration_g; });
+    const Span heat = spanOf(results, baseline, [](const TrajectorySample& s) {
+        return std::max(s.heat_flux_W_cm2, s.radiative_heat_flux_W_cm2);
+    });
+    setNiceRange(timeAxis, std::min(0.0, time.low), time.high);
+    setNiceRange(loadAxis, 0.0, load.high);
+    setNiceRange(heatAxis, 0.0, heat.high);
+
+    const auto deceleration = [](const TrajectorySample& s) {
+        return QPointF(s.time_s, s.deceleration_g);
+    };
+    const auto convective = [](const TrajectorySample& s) {
+        return QPointF(s.time_s, s.heat_flux_W_cm2);
+    };
+    if (baseline && !baseline->history.empty()) {
+        attach(chart,
+               historySeries(baseline->history, QStringLiteral("baseline deceleration"),
+                             baselinePen(Qt::DashLine), deceleration),
+               timeAxis, loadAxis);
+        attach(chart,
+               historySeries(baseline->history, QStringLiteral("baseline heat flux"),
+                             baselinePen(Qt::DashDotLine), convective),
+               timeAxis, heatAxis);
+    }
+    attach(chart,
+           historySeries(results.history, QStringLiteral("deceleration"), resultPen(primaryInk),
+                         deceleration),
+           timeAxis, loadAxis);
+    attach(chart,
+           historySeries(results.history, QStringLiteral("convective heat flux"),
+                         resultPen(secondaryInk), convective),
+           timeAxis, heatAxis);
+    if (radiative) {
+        QPen pen = resultPen(secondaryInk);
+        pen.setStyle(Qt::DotLine);
+        attach(chart,
+               historySeries(results.history, QStringLiteral("radiative heat flux"), pen,
+                             [](const TrajectorySample& s) {
+                                 return QPointF(s.time_s, s.radiative_heat_flux_W_cm2);
+                             }),
+               timeAxis, heatAxis);
+    }
+    return chart;
+}
+
+QChart* machPressureChart(const Design& design, const Results& results, const Results* baseline) {
+    const QString title = QStringLiteral("Mach number and dynamic pressure against time");
+    if (results.history.empty())
+        return emptyChart(title);
+
+    QChart* chart = newChart(title);
+    QValueAxis* timeAxis = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
+    QValueAxis* machAxis =
+        addValueAxis(chart, QStringLiteral("Mach number"), Qt::AlignLeft, primaryInk);
+    QValueAxis* pressureAxis =
+        addValueAxis(chart, QStringLiteral("dynamic pressure (kPa)"), Qt::AlignRight, secondaryInk);
+    const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
+    const Span mach = spanOf(results, baseline, [](const TrajectorySample& s) { return s.mach; });
+    const Span pressure = spanOf(results, baseline, [](const TrajectorySample& s) {
+        return s.dynamic_pressure_Pa / pascalsPerKilopascal;
+    });
+    setNiceRange(timeAxis, std::min(0.0, time.low), time.high);
+    setNiceRange(machAxis, 0.0, mach.high);
+    setNiceRange(pressureAxis, 0.0, pressure.high);
+
+    // The deploy window, shaded over the full height: a step outline on the Mach axis.
+    const Limits& limits = design.limits;
+    const auto intervals = deployWindowIntervals(results.history, limits);
+    if (!intervals.empty()) {
+        auto* band = new QAreaSeries;
+        auto* outline = new QLineSeries(band);
+        const double bottom = machAxis->min();
+        const double top = machAxis->max();
+        for (const auto& [start, end] : intervals) {
+            outline->append(start, bottom);
+            outline->append(start, top);
+            outline->append(end, top);
+            outline->append(end, bottom);
+        }
+        band->setUpperSeries(outline);
+        band->setName(QStringLiteral("deploy window (Mach ≤ %1, %2–%3 Pa)")
+                          .arg(limits.deploy_mach_max)
+                          .arg(limits.deploy_dynamic_pressure_min_Pa)
+                          .arg(limits.deploy_dynamic_pressure_max_Pa));
+        band->setBrush(windowFill);
+        band->setPen(Qt::NoPen);
+        attach(chart, band, timeAxis, machAxis);
+    }
+
+    const auto machPoint = [](const TrajectorySample& s) { return QPointF(s.time_s, s.mach); };
+    const auto pressurePoint = [](const TrajectorySample& s) {
+        return QPointF(s.time_s, s.dynamic_pressure_Pa / pascalsPerKilopascal);
+    };
+    if (baseline && !baseline->history.empty()) {
+        attach(chart,
+               historySeries(baseline->history, QStringLiteral("baseline Mach"),
+                             baselinePen(Qt::DashLine), machPoint),
+               timeAxis, machAxis);
+        attach(chart,
+               historySeries(baseline->history, QStringLiteral("baseline pressure"),
+                             baselinePen(Qt::DashDotLine), pressurePoint),
+               timeAxis, pressureAxis);
+    }
+    attach(chart,
+           historySeries(results.history, QStringLiteral("Mach number"), resultPen(primaryInk),
+                         machPoint),
+           timeAxis, machAxis);
+    attach(chart,
+           historySeries(results.history, QStringLiteral("dynamic pressure"),
+                         resultPen(secondaryInk), pressurePoint),
+           timeAxis, pressureAxis);
+
+    const ParachuteResults& parachute = results.parachute;
+    if (parachute.deployed && parachute.deploy_time_s && parachute.deploy_mach) {
+        QScatterSeries* marker =
+            eventMarker(QStringLiteral("parachute deploy"),
+                        QPointF(*parachute.deploy_time_s, *parachute.deploy_mach));
+        attach(chart, marker, timeAxis, machAxis);
+        hideFromLegend(chart, marker);
+    }
+    if (results.decelerator && results.decelerator->deployed &&
+        results.decelerator->deploy_time_s && results.decelerator->deploy_mach) {
+        QScatterSeries* marker = eventMarker(
+            QStringLiteral("decelerator inflation"),
+            QPointF(*results.decelerator->deploy_time_s, *results.decelerator->deploy_mach));
+        attach(chart, marker, timeAxis, machAxis);
+        hideFromLegend(chart, marker);
+    }
+    return chart;
+}
+
+QChart* massWaterfallChart(const Results& results) {
+    const QString title = QStringLiteral("Mass from entry to landing");
+    const MassResults& mass = results.mass;
+    if (!(mass.entry_kg > 0.0))
+        return emptyChart(title, QStringLiteral("no mass budget"));
+
+    const auto groupKg = [&](const char* group) {
+        double sum = 0.0;
+        for (const MassItem& item : mass.items) {
+            if (item.group == group)
+                sum += item.mass_kg;
+        }
+        return sum;
+    };
+    // What leaves the vehicle, in the order it leaves.
+    std::vector<std::pair<QString, double>> drops;
+    drops.emplace_back(QStringLiteral("heat-shield<br>jettison"), groupKg("heat shield"));
+    drops.emplace_back(QStringLiteral("backshell<br>separation"), groupKg("backshell"));
+    const double burned = results.terminal.burned_propellant_kg.value_or(0.0);
+    if (results.terminal.burned_propellant_kg)
+        drops.emplace_back(QStringLiteral("propellant<br>burned"), burned);
+    // The descent stage's loaded propellant is in its group: what burned has gone already.
+    const std::string& method = results.terminal.method;
+    if (method == "airbag" || method == "tethered")
+        drops.emplace_back(QStringLiteral("descent<br>stage"), groupKg("descent stage") - burned);
+
+    QStringList categories;
+    QList<qreal> base;
+    QList<qreal> totals;
+    QList<qreal> dropped;
+    const auto addBar = [&](const QString& category, double baseKg, double totalKg,
+                            double droppedKg) {
+        categories << category;
+        base << baseKg;
+        totals << totalKg;
+        dropped << droppedKg;
+    };
+    addBar(QStringLiteral("entry<br><br>%1 kg").arg(kgText(mass.entry_kg)), 0.0, mass.entry_kg,
+           0.0);
+    double level = mass.entry_kg;
+    for (const auto& [name, kgDropped] : drops) {
+        if (std::abs(kgDropped) < negligibleKg)
+            continue;  // a design that keeps its heat shield, a stage without propellant
+        level -= kgDropped;
+        addBar(QStringLiteral("%1<br>−%2 kg").arg(name, kgText(kgDropped)), level, 0.0, kgDropped);
+    }
+    if (mass.landed_kg)
+        addBar(QStringLiteral("landed<br><br>%1 kg").arg(kgText(*mass.landed_kg)), 0.0,
+               *mass.landed_kg, 0.0);
+
+    auto* baseSet = new QBarSet(waterfallBaseLabel);
+    baseSet->append(base);
+    baseSet->setColor(Qt::transparent);
+    baseSet->setBorderColor(Qt::transparent);
+    auto* totalSet = new QBarSet(QStringLiteral("mass on board"));
+    totalSet->append(totals);
+    totalSet->setColor(totalFill);
+    totalSet->setBorderColor(totalFill);
+    auto* droppedSet = new QBarSet(QStringLiteral("mass dropped"));
+    droppedSet->append(dropped);
+    droppedSet->setColor(droppedFill);
+    droppedSet->setBorderColor(droppedFill);
+
+    auto* series = new QStackedBarSeries;
+    series->append(baseSet);
+    series->append(totalSet);
+    series->append(droppedSet);
+    series->setBarWidth(0.6);
+
+    QChart* chart =
+        newChart(mass.landed_kg ? title : title + QStringLiteral(" (landing not reached)"));
+    auto* categoryAxis = new QBarCategoryAxis;
+    categoryAxis->append(categories);
+    chart->addAxis(categoryAxis, Qt::AlignBottom);
+    QValueAxis* massAxis = addValueAxis(chart, QStringLiteral("mass (kg)"), Qt::AlignLeft);
+    setNiceRange(massAxis, 0.0, std::max(mass.entry_kg, mass.landed_kg.value_or(0.0)));
+    attach(chart, series, categoryAxis, massAxis);
+    for (QLegendMarker* marker : chart->legend()->markers(series)) {
+        if (marker->label() == waterfallBaseLabel)
+            marker->setVisible(false);
+    }
+    return chart;
+}
+
+QImage renderChart(QChart* chart, QSize size) {
+    QImage image(size, QImage::Format_ARGB32_Premultiplied);
+    image.fill(Qt::white);
+    if (!chart || size.isEmpty())
+        return image;
+
+    // Borrow the chart for an offscreen scene, then give it back to wherever it was shown.
+    QGraphicsScene* shownIn = chart->scene();
+    const QRectF shownGeometry = chart->geometry();
+    {
+        QGraphicsScene scene;
+        scene.addItem(chart);
+        const QRectF area(QPointF(0.0, 0.0), QSizeF(size));
+        chart->setGeometry(area);
+        scene.setSceneRect(area);
+        if (chart->layout())
+            chart->layout()->activate();
+        QPainter painter(&image);
+        painter.setRenderHint(QPainter::Antialiasing);
+        painter.setRenderHint(QPainter::TextAntialiasing);
+        scene.render(&painter, QRectF(image.rect()), area);
+        painter.end();
+        scene.removeItem(chart);
+    }
+    if (shownIn) {
+        shownIn->addItem(chart);
+        chart->setGeometry(shownGeometry);
+    }
+    return image;
+}
+
+ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
+    const auto makeView = [this](const QString& title) {
+        auto* view = new QChartView(emptyChart(title, QStringLiteral("not sized yet")), this);
+        view->setRenderHint(QPainter::Antialiasing);
+        view->setMinimumSize(320, 240);
+        return view;
+    };
+    m_altitudeVelocity = makeView(QStringLiteral("Altitude against velocity"));
+    m_loads = makeView(QStringLiteral("Deceleration and heat flux against time"));
+    m_machPressure = makeView(QStringLiteral("Mach number and dynamic pressure against time"));
+    m_mass = makeView(QStringLiteral("Mass from entry to landing"));
+
+    auto* grid = new QGridLayout(this);
+    grid->setContentsMargins(0, 0, 0, 0);
+    grid->addWidget(m_altitudeVelocity, 0, 0);
+    grid->addWidget(m_loads, 0, 1);
+    grid->addWidget(m_machPressure, 1, 0);
+    grid->addWidget(m_mass, 1, 1);
+}
+
+void ChartsView::setResults(const Design& design, const Results& results, const Results* baseline) {
+    // QChartView::setChart releases the previous chart without deleting it.
+    const auto replace = [](QChartView* view, QChart* chart) {
+        std::unique_ptr<QChart> previous(view->chart());
+        view->setChart(chart);
+    };
+    replace(m_altitudeVelocity, altitudeVelocityChart(results, baseline));
+    replace(m_loads, loadsChart(results, baseline));
+    replace(m_machPressure, machPressureChart(design, results, baseline));
+    replace(m_mass, massWaterfallChart(results));
+}
+
+}  // namespace ds

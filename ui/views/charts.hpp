@@ -1,0 +1,43 @@
+#pragma once
+
+#include <QImage>
+#include <QSize>
+#include <QWidget>
+
+#include "design/design.hpp"
+#include "results/results.hpp"
+
+QT_BEGIN_NAMESPACE
+class QChart;
+class QChartView;
+QT_END_NAMESPACE
+
+namespace ds {
+
+/// The result charts, built the same way for the window and the sizing sheet. Each takes the
+/// results and, when the user pinned one, a baseline drawn dashed behind them. The caller owns
+/// the chart returned.
+QChart* altitudeVelocityChart(const Results& results, const Results* baseline);
+QChart* loadsChart(const Results& results, const Results* baseline);
+QChart* machPressureChart(const Design& design, const Results& results, const Results* baseline);
+QChart* massWaterfallChart(const Results& results);
+
+/// A chart drawn into an image of the given size (for the sheet and screenshots).
+QImage renderChart(QChart* chart, QSize size);
+
+/// The four charts in a grid; setResults replaces them.
+class ChartsView : public QWidget {
+    Q_OBJECT
+public:
+    explicit ChartsView(QWidget* parent = nullptr);
+
+    void setResults(const Design& design, const Results& results, const Results* baseline);
+
+private:
+    QChartView* m_altitudeVelocity;
+    QChartView* m_loads;
+    QChartView* m_machPressure;
+    QChartView* m_mass;
+};
+
+}  // namespace ds

@@ -1,0 +1,101 @@
+#include "views/checks_view.hpp"
+
+#include <map>
+
+#include <QBrush>
+#include <QColor>
+#include <QHeaderView>
+
+namespace ds {
+namespace {
+
+// Status colours: a muted red, amber and green that read on white and in print (our choice).
+QColor statusColour(CheckStatus status) {
+    switch (status) {
+        case CheckStatus::fail: return QColor(0xf4, 0xc7, 0xc3);
+        case CheckStatus::marginal: return QColor(0xfc, 0xe8, 0xb2);
+        case CheckStatus::pass: return QColor(0xd9, 0xea, 0xd3);
+    }
+    return {};
+}
+
+QString statusText(CheckStatus status) {
+    switch (status) {
+        case CheckStatus::fail: return QObject::tr("FAIL");
+        case CheckStatus::marginal: return QObject::tr("marginal");
+        case CheckStatus::pass: return QObject::tr("pass");
+    }
+    return {};
+}
+
+}  // namespace
+
+ChecksView::ChecksView(QWidget* parent) : QTableWidget(0, 6, parent) {
+    setHorizontalHeaderLabels({tr("Status"), tr("Check"), tr("Value"), tr("Limit"), tr("Why"),
+                               tr("Limit from")});
+    horizontalHeader()->setSectionResizeMode(4, QHeaderView::Stretch);
+    verticalHeader()->setVisible(false);
+    setEditTriggers(QAbstractItemView::NoEditTriggers);
+    setSelectionBehavior(QAbstractItemView::SelectRows);
+    setWordWrap(true);
+    connect(this, &QTableWidget::cellActivated, this, [this](int row, int) {
+        const QTableWidgetItem* id = item(row, 1);
+        if (!id) return;
+        const std::string field = fieldForCheck(id->text().toStdString());
+        if (!field.empty()) emit fieldRequested(QString::fromStdString(field));
+    });
+    connect(this, &QTableWidget::cellClicked, this, &QTableWidget::cellActivated);
+}
+
+void ChecksView::setResults(const Results& results) {
+    setRowCount(static_cast<int>(results.checks.size()));
+    for (std::size_t i = 0; i < results.checks.size(); ++i) {
+        const Check& c = results.checks[i];
+        const int row = static_cast<int>(i);
+        const QString unit = c.unit.empty() ? QString() : " " + QString::fromStdString(c.unit);
+        const QStringList cells{statusText(c.status), QString::fromStdString(c.id),
+                                QString::number(c.value, 'g', 5) + unit,
+                                QString::number(c.limit, 'g', 5) + unit,
+                                QString::fromStdString(c.message), QString::fromStdString(c.source)};
+        for (int column = 0; column < cells.size(); ++column) {
+            auto* cell = new QTableWidgetItem(cells[column]);
+            if (column == 0) cell->setBackground(QBrush(statusColour(c.status)));
+            cell->setToolTip(cells[4] + "\n" + tr("Limit from: %1").arg(cells[5]));
+            setItem(row, column, cell);
+        }
+    }
+    resizeColumnToContents(0);
+    resizeColumnToContents(1);
+    resizeRowsToContents();
+}
+
+std::string ChecksView::fieldForCheck(const std::string& checkId) {
+    static const std::map<std::string, std::string> fields{
+        {"aeroshell_sizing", "/aeroshell/diameter_m/size_for_ballistic_coefficient_kg_m2"},
+        {"aeroshell_diameter", "/aeroshell/diameter_m"},
+        {"ballistic_coefficient", "/aeroshell/diameter_m"},
+        {"aeroshell_half_angle", "/aeroshell/half_angle_deg"},
+        {"parachute_diameter", "/parachute/diameter_m"},
+        {"parachute_sizing", "/parachute/diameter_m/size_for_velocity_m_s"},
+        {"parachute_trigger", "/parachute/deploy_mach"},
+        {"deploy_mach", "/parachute/deploy_mach"},
+        {"deploy_dynamic_pressure_high", "/parachute/deploy_mach"},
+        {"deploy_dynamic_pressure_low", "/parachute/deploy_mach"},
+        {"peak_deceleration", "/entry/flight_path_angle_deg"},
+        {"peak_heat_flux", "/aeroshell/nose_radius_m"},
+        {"site_elevation", "/site/elevation_m"},
+        {"landed_mass", "/mass/items"},
+        {"mass_closure", "/mass/items"},
+        {"mass_allocation", "/mass/entry_kg"},
+        {"touchdown_velocity", "/terminal/touchdown_velocity_m_s"},
+        {"airbag_impact_velocity", "/terminal/release_height_m"},
+        {"terminal_burn", "/terminal/thrust_to_weight"},
+        {"timeline_margin", "/sequence/ground_sensing_lock_s"},
+        {"heat_shield_jettison", "/sequence/heat_shield_jettison_delay_s"},
+        {"trajectory", "/entry/flight_path_angle_deg"},
+    };
+    const auto it = fields.find(checkId);
+    return it == fields.end() ? std::string() : it->second;
+}
+
+}  // namespace ds

@@ -1,0 +1,19 @@
+#pragma once
+
+#include <QTableWidget>
+
+#include "results/results.hpp"
+
+namespace ds {
+
+/// The key figures in a compact table: value, unit, and, when a baseline is pinned, the
+/// difference from it.
+class FiguresView : public QTableWidget {
+    Q_OBJECT
+public:
+    explicit FiguresView(QWidget* parent = nullptr);
+
+    void setResults(const Results& results, const Results* baseline);
+};
+
+}  // namespace ds
