@@ -11,7 +11,6 @@
 #include <QMessageBox>
 #include <QSplitter>
 #include <QStatusBar>
-#include <QTabWidget>
 #include <QUndoStack>
 
 #include "model/design_document.hpp"
@@ -29,6 +28,8 @@ constexpr const char* demoResource = ":/samples/small-ballistic-station.json";
 constexpr const char* designFilter = "Descent Sizer designs (*.json)";
 // Wide enough for the longest label and a number with its unit.
 constexpr int formMinimumWidth = 440;
+// Room for about ten rows of figures and checks above the charts.
+constexpr int tablesHeight = 300;
 
 }  // namespace
 
@@ -41,14 +42,18 @@ MainWindow::MainWindow(QWidget* parent)
     m_checks = new ChecksView(this);
     m_charts = new ChartsView(this);
 
-    auto* tables = new QTabWidget(this);
-    tables->addTab(m_figures, tr("Key figures"));
-    tables->addTab(m_checks, tr("Checks"));
+    // Figures and checks side by side above the charts: a trade reads across all three.
+    auto* tables = new QSplitter(Qt::Horizontal, this);
+    tables->addWidget(m_figures);
+    tables->addWidget(m_checks);
+    tables->setStretchFactor(0, 2);
+    tables->setStretchFactor(1, 3);
     auto* results = new QSplitter(Qt::Vertical, this);
     results->addWidget(tables);
     results->addWidget(m_charts);
-    results->setStretchFactor(0, 2);
-    results->setStretchFactor(1, 3);
+    results->setStretchFactor(0, 0);
+    results->setStretchFactor(1, 1);
+    results->setSizes({tablesHeight, 700});
     auto* main = new QSplitter(Qt::Horizontal, this);
     main->addWidget(m_form);
     main->addWidget(results);

@@ -565,6 +565,7 @@ QChart* massWaterfallChart(const Results& results) {
         newChart(mass.landed_kg ? title : title + QStringLiteral(" (landing not reached)"));
     auto* categoryAxis = new QBarCategoryAxis;
     categoryAxis->append(categories);
+    categoryAxis->setTruncateLabels(false);  // the steps' names and masses are the point
     chart->addAxis(categoryAxis, Qt::AlignBottom);
     QValueAxis* massAxis = addValueAxis(chart, QStringLiteral("mass (kg)"), Qt::AlignLeft);
     setNiceRange(massAxis, 0.0, std::max(mass.entry_kg, mass.landed_kg.value_or(0.0)));

@@ -37,7 +37,10 @@ ChecksView::ChecksView(QWidget* parent) : QTableWidget(0, 6, parent) {
     verticalHeader()->setVisible(false);
     setEditTriggers(QAbstractItemView::NoEditTriggers);
     setSelectionBehavior(QAbstractItemView::SelectRows);
-    setWordWrap(true);
+    // One line a check; the whole reason and the limit's source are in the tooltip.
+    setWordWrap(false);
+    setTextElideMode(Qt::ElideRight);
+    setColumnHidden(5, true);
     connect(this, &QTableWidget::cellActivated, this, [this](int row, int) {
         const QTableWidgetItem* id = item(row, 1);
         if (!id) return;
@@ -64,9 +67,7 @@ void ChecksView::setResults(const Results& results) {
             setItem(row, column, cell);
         }
     }
-    resizeColumnToContents(0);
-    resizeColumnToContents(1);
-    resizeRowsToContents();
+    for (int column : {0, 1, 2, 3}) resizeColumnToContents(column);
 }
 
 std::string ChecksView::fieldForCheck(const std::string& checkId) {
