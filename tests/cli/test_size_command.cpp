@@ -142,3 +142,36 @@ TEST_CASE("a missing design file is refused with a non-zero exit") {
     CHECK(r.exit_code != 0);
     CHECK_FALSE(r.err.empty());
 }
+
+#ifdef DESCENT_SIZER_WITH_GUI
+TEST_CASE("sheet writes the sizing sheet as HTML, CSV and PDF by the file's extension") {
+    const fs::path dir = fs::temp_directory_path() / "descent-sizer-cli-sheet";
+    fs::create_directories(dir);
+    for (const char* name : {"sheet.html", "sheet.csv", "sheet.pdf"}) {
+        CAPTURE(name);
+        const fs::path out = dir / name;
+        fs::remove(out);
+        const Run r = run("sheet " + sample("small-ballistic-station") + " -o '" + out.string() + "'");
+        CHECK(r.exit_code == 0);
+        REQUIRE(fs::exists(out));
+        const std::string text = slurp(out);
+        if (out.extension() == ".html") {
+            CHECK(text.find("Sizing sheet: Small ballistic science station") != std::string::npos);
+            CHECK(text.find("Conceptual sizing estimates") != std::string::npos);
+        } else if (out.extension() == ".csv") {
+            CHECK(text.rfind("time_s,altitude_m,", 0) == 0);
+        } else {
+            CHECK(text.rfind("%PDF-", 0) == 0);
+        }
+    }
+}
+
+TEST_CASE("sheet refuses an unknown format and writes nothing") {
+    const fs::path out = fs::temp_directory_path() / "descent-sizer-cli-sheet.xyz";
+    fs::remove(out);
+    const Run r = run("sheet " + sample("small-ballistic-station") + " -o '" + out.string() + "'");
+    CHECK(r.exit_code != 0);
+    CHECK(r.err.find("unknown sheet format") != std::string::npos);
+    CHECK_FALSE(fs::exists(out));
+}
+#endif

@@ -7,9 +7,9 @@
 namespace ds {
 namespace {
 
-/// Long enough to fold a burst of keystrokes or spin-box steps into one sizing, short enough
-/// to feel live (our choice).
-constexpr int default_debounce_ms = 30;
+/// Long enough to fold a burst of edits (an undo of several, a pasted table) into one sizing,
+/// short enough to feel live; fields commit on Enter, not on each keystroke (our choice).
+constexpr int default_debounce_ms = 10;
 
 }  // namespace
 
