@@ -122,7 +122,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     const double end_height = burn.end_state[StateIndex::altitude] - site;
     const double end_velocity = burn.end_state[StateIndex::velocity];
     double burned = burn.burned_kg;
-    double descent_items = e.budget.group_kg(MassGroup::descent_stage);
+    const double descent_items = e.budget.group_kg(MassGroup::descent_stage);
     double tanks = 0.0;
     const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
     switch (t.method) {
@@ -244,9 +244,9 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
         }
     }
     if (design.mass.entry_kg) {
-        e.budget.add_computed("unallocated (entry mass less the budget)",
-                              entry_kg - e.budget.total_kg(), MassGroup::payload,
-                              "entry mass fixed by the design");
+        e.unallocated_kg = entry_kg - e.budget.total_kg();
+        e.budget.add_computed("unallocated (entry mass less the budget)", *e.unallocated_kg,
+                              MassGroup::payload, "entry mass fixed by the design");
     }
     return e;
 }

@@ -26,6 +26,9 @@ struct Evaluation {
     MassBudget budget;
     double lander_kg = 0.0;  ///< what separates from the backshell
     double landed_kg = 0.0;
+    /// Analysis mode: the fixed entry mass less everything itemised or estimated (negative
+    /// when the budget does not fit in it).
+    std::optional<double> unallocated_kg;
 
     std::optional<DescentFlight> descent;  ///< when the parachute deployed
     double full_thrust_N = 0.0;

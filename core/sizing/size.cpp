@@ -4,14 +4,12 @@
 #include <cmath>
 #include <cstdint>
 #include <memory>
-#include <numeric>
 
 #include <boost/math/tools/toms748_solve.hpp>
 #include <fmt/format.h>
 
 #include "aeroshell/sphere_cone.hpp"
 #include "checks/rule_set.hpp"
-#include "constants.hpp"
 #include "heating/heat_shield_mass.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
@@ -149,7 +147,7 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
 }
 
-void fill_parachute(const Evaluation& e, const Design& design, ParachuteResults& p) {
+void fill_parachute(const Evaluation& e, ParachuteResults& p) {
     p.drag_coefficient = e.canopy_drag_coefficient;
     p.diameter_m = e.canopy_diameter_m;
     for (const MassItem& item : e.budget.items()) {
@@ -175,7 +173,6 @@ void fill_parachute(const Evaluation& e, const Design& design, ParachuteResults&
     } else if (e.touchdown_velocity_m_s) {
         p.descent_velocity_m_s = e.touchdown_velocity_m_s;
     }
-    (void)design;
 }
 
 void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t) {
@@ -369,13 +366,8 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
                                            "faster than the mass they serve)",
                                            closure->iterations, mass, e.budget_kg()),
                                "closure to 0.1 kg"));
-    } else {
-        const double unallocated = e.entry_kg - (e.budget_kg() - [&] {
-            for (const MassItem& item : e.budget.items()) {
-                if (item.name.rfind("unallocated", 0) == 0) return item.mass_kg;
-            }
-            return 0.0;
-        }());
+    } else if (e.unallocated_kg) {
+        const double unallocated = *e.unallocated_kg;
         checks.push_back(flight_check(
             "mass_allocation", unallocated < 0.0 ? CheckStatus::fail : CheckStatus::pass,
             unallocated, 0.0, "kg",
@@ -427,7 +419,7 @@ Results size_design(const Design& design) {
         }
         results.decelerator = d;
     }
-    fill_parachute(e, design, results.parachute);
+    fill_parachute(e, results.parachute);
     fill_terminal(e, design, results.terminal);
     fill_timeline(e, design, results.timeline);
     if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {

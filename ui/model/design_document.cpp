@@ -1,13 +1,11 @@
 #include "model/design_document.hpp"
 
-#include <QDir>
 #include <QFile>
 #include <QFileInfo>
 #include <QSaveFile>
 #include <QUndoCommand>
 #include <QUndoStack>
 
-#include "design/writer.hpp"
 
 namespace ds {
 
