@@ -21,7 +21,7 @@
 #include <QUrl>
 
 #include "design/writer.hpp"
-#include "model/key_figures.hpp"
+#include "results/key_figures.hpp"
 #include "views/charts.hpp"
 
 namespace ds {

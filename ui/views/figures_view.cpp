@@ -2,7 +2,7 @@
 
 #include <QHeaderView>
 
-#include "model/key_figures.hpp"
+#include "results/key_figures.hpp"
 
 namespace ds {
 namespace {

@@ -8,7 +8,8 @@
 
 namespace ds {
 
-/// One figure of the compact table the window and the sizing sheet show.
+/// One figure of the compact table the window and the sizing sheet show, and of the rows of
+/// trade studies.
 struct KeyFigure {
     std::string id;     ///< stable name, for baselines and tests ("peak_deceleration")
     std::string label;  ///< "peak deceleration"

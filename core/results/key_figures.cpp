@@ -1,4 +1,4 @@
-#include "model/key_figures.hpp"
+#include "results/key_figures.hpp"
 
 namespace ds {
 
