@@ -2,7 +2,7 @@
 
 namespace ds {
 
-std::vector<KeyFigure> keyFigures(const Results& r) {
+std::vector<KeyFigure> key_figures(const Results& r) {
     return {
         {"entry_mass", "entry mass", r.mass.entry_kg, "kg", 1},
         {"landed_mass", "landed mass", r.mass.landed_kg, "kg", 1},

@@ -19,6 +19,6 @@ struct KeyFigure {
 };
 
 /// The key figures of a result, in the order they are shown.
-std::vector<KeyFigure> keyFigures(const Results& results);
+std::vector<KeyFigure> key_figures(const Results& results);
 
 }  // namespace ds

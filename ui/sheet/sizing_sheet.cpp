@@ -280,7 +280,7 @@ QString inputsSection(const Design& design) {
 
 QString keyFiguresSection(const Results& results) {
     HtmlTable table({QStringLiteral("figure"), QStringLiteral("value"), QStringLiteral("unit")});
-    for (const KeyFigure& figure : keyFigures(results)) {
+    for (const KeyFigure& figure : key_figures(results)) {
         table.addRow({{QString::fromStdString(figure.label), {}},
                       {formatFixed(figure.value, figure.decimals), numberCell},
                       {QString::fromStdString(figure.unit), {}}});

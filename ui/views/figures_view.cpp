@@ -21,8 +21,8 @@ FiguresView::FiguresView(QWidget* parent) : QTableWidget(0, 4, parent) {
 }
 
 void FiguresView::setResults(const Results& results, const Results* baseline) {
-    const std::vector<KeyFigure> figures = keyFigures(results);
-    const std::vector<KeyFigure> before = baseline ? keyFigures(*baseline) : std::vector<KeyFigure>{};
+    const std::vector<KeyFigure> figures = key_figures(results);
+    const std::vector<KeyFigure> before = baseline ? key_figures(*baseline) : std::vector<KeyFigure>{};
     setRowCount(static_cast<int>(figures.size()));
     setColumnHidden(3, baseline == nullptr);
     for (std::size_t i = 0; i < figures.size(); ++i) {
