@@ -11,6 +11,7 @@
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
 #include "summary.hpp"
+#include "trade_commands.hpp"
 
 namespace ds {
 namespace {
@@ -68,12 +69,15 @@ int runCommand(int argc, char** argv) {
         ->check(CLI::ExistingFile);
     sheet->add_option("-o,--output", sheetOutput, "Output file: .pdf, .html or .csv")->required();
 
+    const auto runTrade = addTradeCommands(app);
+
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
         return app.exit(e);
     }
     try {
+        if (const int code = runTrade(); code >= 0) return code;
         if (*size) return runSize(sizeOptions);
         if (*sheet) {
 #ifdef DESCENT_SIZER_WITH_GUI

@@ -163,6 +163,18 @@ std::string_view to_string(Maturity maturity);
 std::optional<MassGroup> mass_group_from(std::string_view name);
 std::optional<Maturity> maturity_from(std::string_view name);
 
+enum class DistributionKind { normal, uniform };
+
+/// A key of the design drawn at random in a dispersion campaign: normal about the design's own
+/// value with a standard deviation, or uniform between two values.
+struct DispersionDesign {
+    std::string key;  ///< a numeric key's path, "entry.flight_path_angle_deg"
+    DistributionKind distribution = DistributionKind::normal;
+    double sigma = 0.0;  ///< normal
+    double min = 0.0;    ///< uniform
+    double max = 0.0;    ///< uniform
+};
+
 struct Design {
     int version = design_format_version;
     std::string name;
@@ -178,6 +190,7 @@ struct Design {
     TerminalDesign terminal;
     Limits limits;
     SolverDesign solver;
+    std::vector<DispersionDesign> dispersions;
 };
 
 }  // namespace ds

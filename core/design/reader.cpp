@@ -417,6 +417,8 @@ public:
             read_limits(*limits);
         if (auto solver = top.object("solver", Need::optional))
             read_solver(*solver);
+        if (const Json* dispersions = top.value("dispersions", Need::optional))
+            read_dispersions(*dispersions, top.place_of("dispersions"));
         top.report_unknown();
 
         check_custom_body_gas();
@@ -782,6 +784,46 @@ private:
         }
     }
 
+    void read_dispersions(const Json& list, const Place& place) {
+        if (!list.is_array()) {
+            issues_->add(place, fmt::format("must be an array, got {}", list.type_name()));
+            return;
+        }
+        for (std::size_t i = 0; i < list.size(); ++i) {
+            const Place entry_place = place.element(i);
+            if (!list[i].is_object()) {
+                issues_->add(entry_place,
+                             fmt::format("must be an object, got {}", list[i].type_name()));
+                continue;
+            }
+            Fields f(list[i], entry_place, *issues_);
+            DispersionDesign d;
+            if (auto key = f.string("key")) d.key = *key;
+            if (auto kind = f.string("distribution")) {
+                if (*kind == "normal") {
+                    d.distribution = DistributionKind::normal;
+                    if (auto v = f.number("sigma", positive)) d.sigma = *v;
+                } else if (*kind == "uniform") {
+                    d.distribution = DistributionKind::uniform;
+                    const auto low = f.number("min", any_finite);
+                    const auto high = f.number("max", any_finite);
+                    if (low && high && !(*low < *high)) {
+                        f.report("max", fmt::format("must be greater than min ({}), got {}",
+                                                    *low, *high));
+                    }
+                    d.min = low.value_or(0.0);
+                    d.max = high.value_or(0.0);
+                } else {
+                    f.report("distribution", fmt::format("unknown distribution \"{}\"; expected "
+                                                         "one of: normal, uniform",
+                                                         *kind));
+                }
+            }
+            f.report_unknown();
+            design_.dispersions.push_back(std::move(d));
+        }
+    }
+
     void read_decelerator(Fields& f) {
         DeceleratorDesign& decelerator = design_.decelerator.emplace();
         if (auto v = f.number("diameter_m", positive))
@@ -1088,6 +1130,16 @@ std::string parse_message(const Json::exception& error, std::string_view text) {
     return message;
 }
 
+/// The design of a parsed document, or every issue found in it (with those found before).
+DesignReadResult read_parsed(const Json& document, const std::filesystem::path& base_directory,
+                             Issues& issues) {
+    DesignReader reader(base_directory, issues);
+    Design design = reader.read(document);
+    if (!issues.empty())
+        return {std::nullopt, issues.in_document_order()};
+    return {std::move(design), {}};
+}
+
 }  // namespace
 
 DesignReadResult read_design(std::string_view json_text,
@@ -1104,11 +1156,13 @@ DesignReadResult read_design(std::string_view json_text,
         return {std::nullopt, {ReadError{{}, parse_message(error, json_text)}}};
     }
 
-    DesignReader reader(base_directory, issues);
-    Design design = reader.read(document);
-    if (!issues.empty())
-        return {std::nullopt, issues.in_document_order()};
-    return {std::move(design), {}};
+    return read_parsed(document, base_directory, issues);
+}
+
+DesignReadResult read_design_document(const nlohmann::ordered_json& document,
+                                      const std::filesystem::path& base_directory) {
+    Issues issues;
+    return read_parsed(document, base_directory, issues);
 }
 
 DesignReadResult read_design_file(const std::filesystem::path& file) {

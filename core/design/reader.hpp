@@ -6,6 +6,8 @@
 #include <string_view>
 #include <vector>
 
+#include <nlohmann/json.hpp>
+
 #include "design/design.hpp"
 
 namespace ds {
@@ -33,6 +35,11 @@ struct DesignReadResult {
 /// A table atmosphere's "csv_file" is resolved against base_directory.
 DesignReadResult read_design(std::string_view json_text,
                              const std::filesystem::path& base_directory = {});
+
+/// Reads a design from a document already parsed (a trade study's variant of a design): the
+/// same checks, without the text's own (syntax, duplicate keys).
+DesignReadResult read_design_document(const nlohmann::ordered_json& document,
+                                      const std::filesystem::path& base_directory = {});
 
 /// Reads a design file; its folder is the base for relative paths inside it.
 DesignReadResult read_design_file(const std::filesystem::path& file);

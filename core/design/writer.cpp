@@ -229,6 +229,23 @@ nlohmann::ordered_json design_to_json(const Design& design) {
     out["terminal"] = terminal_to_json(design.terminal);
     out["limits"] = limits_to_json(design.limits);
     out["solver"] = solver_to_json(design.solver);
+    if (!design.dispersions.empty()) {
+        Json list = Json::array();
+        for (const DispersionDesign& d : design.dispersions) {
+            Json entry;
+            entry["key"] = d.key;
+            if (d.distribution == DistributionKind::normal) {
+                entry["distribution"] = "normal";
+                entry["sigma"] = number(d.sigma);
+            } else {
+                entry["distribution"] = "uniform";
+                entry["min"] = number(d.min);
+                entry["max"] = number(d.max);
+            }
+            list.push_back(entry);
+        }
+        out["dispersions"] = list;
+    }
     return out;
 }
 

@@ -31,9 +31,16 @@ void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_
     // A lump the design gives replaces its estimate; items of the design in the same group
     // are equipment carried besides it.
     MassBudget& b = e.budget;
-    if (design.mass.heat_shield_kg) {
-        b.add_given("heat shield", *design.mass.heat_shield_kg, MassGroup::heat_shield);
-    } else {
+    const auto lump = [&](const auto& add) {
+        const double before = b.total_kg();
+        add();
+        return b.total_kg() - before;
+    };
+    e.heat_shield_kg = lump([&] {
+        if (design.mass.heat_shield_kg) {
+            b.add_given("heat shield", *design.mass.heat_shield_kg, MassGroup::heat_shield);
+            return;
+        }
         b.add_estimate("heat-shield TPS",
                        heat_shield_mass_fraction(e.total_heat_load_J_cm2) * e.entry_kg,
                        MassGroup::heat_shield,
@@ -41,23 +48,28 @@ void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_
         b.add_estimate("heat-shield structure",
                        MassEstimates::heat_shield_structure_kg_m2 * aeroshell_area_m2,
                        MassGroup::heat_shield, estimate_source);
-    }
+    });
     if (design.decelerator) {
         const DeceleratorDesign& d = *design.decelerator;
-        if (d.mass_kg) {
-            b.add_given("inflatable decelerator", *d.mass_kg, MassGroup::heat_shield);
+        e.decelerator_kg = lump([&] {
+            if (d.mass_kg) {
+                b.add_given("inflatable decelerator", *d.mass_kg, MassGroup::heat_shield);
+            } else {
+                b.add_estimate("inflatable decelerator",
+                               MassEstimates::inflatable_decelerator_kg_m2 *
+                                   frontal_area_m2(d.diameter_m),
+                               MassGroup::heat_shield, estimate_source);
+            }
+        });
+    }
+    e.backshell_kg = lump([&] {
+        if (design.mass.backshell_kg) {
+            b.add_given("backshell", *design.mass.backshell_kg, MassGroup::backshell);
         } else {
-            b.add_estimate("inflatable decelerator",
-                           MassEstimates::inflatable_decelerator_kg_m2 * frontal_area_m2(d.diameter_m),
-                           MassGroup::heat_shield, estimate_source);
+            b.add_estimate("backshell", MassEstimates::backshell_kg_m2 * aeroshell_area_m2,
+                           MassGroup::backshell, estimate_source);
         }
-    }
-    if (design.mass.backshell_kg) {
-        b.add_given("backshell", *design.mass.backshell_kg, MassGroup::backshell);
-    } else {
-        b.add_estimate("backshell", MassEstimates::backshell_kg_m2 * aeroshell_area_m2,
-                       MassGroup::backshell, estimate_source);
-    }
+    });
 }
 
 void size_canopy(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
@@ -77,6 +89,7 @@ void size_canopy(const Design& design, const FlightModel& model, const Atmospher
             *p.size_for_velocity_m_s, e.canopy_drag_coefficient, body_drag_area_m2);
     }
     const std::string name = fmt::format("parachute ({})", p.type);
+    const double before = e.budget.total_kg();
     if (p.mass_kg) {
         e.budget.add_given(name, *p.mass_kg, MassGroup::backshell);
     } else {
@@ -86,6 +99,7 @@ void size_canopy(const Design& design, const FlightModel& model, const Atmospher
                                           "memory)",
                                           e.canopy.areal_mass_kg_m2));
     }
+    e.parachute_kg = e.budget.total_kg() - before;
 }
 
 /// The burn, hover and fly-away of the methods that fire engines; fills the propellant and

@@ -24,6 +24,12 @@ struct Evaluation {
     double canopy_diameter_m = 0.0;  ///< 0: the sizing request has no solution
 
     MassBudget budget;
+    // The lumps of the budget as flown (given, or estimated with growth), besides the design's
+    // own items in the same groups: what freezing the vehicle fixes.
+    double heat_shield_kg = 0.0;
+    double decelerator_kg = 0.0;
+    double backshell_kg = 0.0;
+    double parachute_kg = 0.0;
     double lander_kg = 0.0;  ///< what separates from the backshell
     double landed_kg = 0.0;
     /// Analysis mode: the fixed entry mass less everything itemised or estimated (negative

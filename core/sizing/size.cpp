@@ -150,9 +150,7 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
 void fill_parachute(const Evaluation& e, ParachuteResults& p) {
     p.drag_coefficient = e.canopy_drag_coefficient;
     p.diameter_m = e.canopy_diameter_m;
-    for (const MassItem& item : e.budget.items()) {
-        if (item.name.rfind("parachute", 0) == 0) p.mass_kg = item.mass_kg;
-    }
+    p.mass_kg = e.parachute_kg;
     p.deployed = e.entry.end == EntryEnd::deployed;
     if (!p.deployed) return;
     const FlightConditions& c = e.entry.end_conditions;
@@ -383,33 +381,54 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
     return checks;
 }
 
+/// The evaluation at the design's entry mass: the fixed one, or the closed one.
+Closure sized_evaluation(const Design& design, const FlightModel& model,
+                         const Atmosphere& atmosphere) {
+    if (design.mass.entry_kg) return {evaluate(design, model, atmosphere, *design.mass.entry_kg), {}};
+    return close_budget(design, model, atmosphere);
+}
+
 }  // namespace
 
-Results size_design(const Design& design) {
+Design freeze_design(const Design& design) {
+    const std::unique_ptr<Atmosphere> atmosphere = make_atmosphere(design);
+    const FlightModel model{design.body.body, *atmosphere};
+    const Evaluation e = sized_evaluation(design, model, *atmosphere).evaluation;
+    Design frozen = design;
+    frozen.mass.entry_kg = e.entry_kg;
+    frozen.mass.heat_shield_kg = e.heat_shield_kg;
+    frozen.mass.backshell_kg = e.backshell_kg;
+    frozen.parachute.mass_kg = e.parachute_kg;
+    if (frozen.decelerator) frozen.decelerator->mass_kg = e.decelerator_kg;
+    if (e.aeroshell.diameter_m > 0.0) {
+        frozen.aeroshell.diameter_m = e.aeroshell.diameter_m;
+        frozen.aeroshell.size_for_ballistic_coefficient_kg_m2.reset();
+    }
+    if (e.canopy_diameter_m > 0.0) {
+        frozen.parachute.diameter_m = e.canopy_diameter_m;
+        frozen.parachute.size_for_velocity_m_s.reset();
+        frozen.parachute.at_height_above_site_m.reset();
+    }
+    return frozen;
+}
+
+Results size_design(const Design& design, SizingOptions options) {
     const std::unique_ptr<Atmosphere> atmosphere = make_atmosphere(design);
     const FlightModel model{design.body.body, *atmosphere};
 
     Results results;
-    std::optional<MassClosure> closure;
-    Evaluation e;
-    if (design.mass.entry_kg) {
-        e = evaluate(design, model, *atmosphere, *design.mass.entry_kg);
-        results.mass.mode = "analysis";
-    } else {
-        Closure closed = close_budget(design, model, *atmosphere);
-        e = std::move(closed.evaluation);
-        closure = closed.report;
-        results.mass.mode = "sizing";
-        results.mass.closure = closed.report;
-    }
+    Closure sized = sized_evaluation(design, model, *atmosphere);
+    Evaluation& e = sized.evaluation;
+    const std::optional<MassClosure> closure =
+        design.mass.entry_kg ? std::nullopt : std::optional<MassClosure>(sized.report);
+    results.mass.mode = closure ? "sizing" : "analysis";
+    results.mass.closure = closure;
 
     fill_entry(e, design, results.entry);
     if (design.decelerator) {
         DeceleratorResults d;
         d.diameter_m = design.decelerator->diameter_m;
-        for (const MassItem& item : e.budget.items()) {
-            if (item.name == "inflatable decelerator") d.mass_kg = item.mass_kg;
-        }
+        d.mass_kg = e.decelerator_kg;
         d.deployed = e.entry.decelerator_deployed;
         if (d.deployed) {
             d.deploy_time_s = e.entry.decelerator_time_s;
@@ -430,8 +449,10 @@ Results size_design(const Design& design) {
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
     if (e.descent) results.mass.landed_kg = e.landed_kg;
-    results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
-    results.history = std::move(e.history);
+    if (options.capability) {
+        results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
+    }
+    if (options.history) results.history = std::move(e.history);
 
     results.notes.push_back(
         "Conceptual sizing estimates: confirm them by detailed analysis and test under the "

@@ -5,9 +5,21 @@
 
 namespace ds {
 
+/// What a sizing computes besides the sizing itself; trade studies that fly thousands of
+/// cases turn off what they do not read.
+struct SizingOptions {
+    bool capability = true;  ///< the highest feasible site elevation (a root-finding)
+    bool history = true;     ///< the trajectory samples
+};
+
 /// Sizes a design read by read_design: flies it, estimates what it can, and checks it.
 /// Never throws for a design that was read: a design that cannot be flown comes back with
 /// `converged` false or failing checks that say why, with numbers.
-Results size_design(const Design& design);
+Results size_design(const Design& design, SizingOptions options = {});
+
+/// The design as the vehicle it sizes to: the entry mass, the heat-shield, backshell,
+/// parachute and decelerator masses and every sized diameter fixed at their sized values, so
+/// that flying it again under other conditions (a dispersion) flies the same vehicle.
+Design freeze_design(const Design& design);
 
 }  // namespace ds

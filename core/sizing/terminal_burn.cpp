@@ -53,7 +53,10 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     const PhaseOutcome burned = fly_phase(model, burn, coasted.time_s, coasted.y,
                                           coasted.time_s + flight_time_limit_s, settings,
                                           {history, nullptr});
-    a.reached_velocity = burned.ended_by == std::size_t{0};
+    // Reaching the ground at the end velocity or slower is reaching it too: the two events
+    // can fall within the event tolerance of each other when the solution is exact.
+    a.reached_velocity = burned.ended_by == std::size_t{0} ||
+                         burned.y[StateIndex::velocity] <= r.end_velocity_m_s;
     b.end_time_s = burned.time_s;
     b.end_state = burned.y;
     b.burn_time_s = burned.time_s - coasted.time_s;

@@ -1,0 +1,47 @@
+#pragma once
+
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <utility>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "design/reader.hpp"
+
+namespace ds {
+
+/// A design as its document, whose numeric keys can be set by their path
+/// ("aeroshell.diameter_m", "mass.items[0].mass_kg"): the one way sweeps, dispersions and
+/// sensitivities make their cases. Each case goes through the strict reader, so it is exactly
+/// the design a user would have written, and a value the reader refuses is that case's error.
+class DesignVariants {
+public:
+    DesignVariants(nlohmann::ordered_json document, std::filesystem::path base_directory);
+
+    /// The document of a design (as the writer gives it back).
+    static DesignVariants of(const Design& design, std::filesystem::path base_directory = {});
+
+    const nlohmann::ordered_json& document() const { return document_; }
+
+    /// The number at a key, or empty when the key is absent or not a number.
+    std::optional<double> value(std::string_view key) const;
+
+    /// The design with the keys set to the values (absent keys are added).
+    DesignReadResult with(const std::vector<std::pair<std::string, double>>& values) const;
+
+    /// Every numeric key of the document, in document order, less the format's own
+    /// (version), the limits and the solver settings: the inputs of a sensitivity study.
+    std::vector<std::string> numeric_keys() const;
+
+private:
+    nlohmann::ordered_json document_;
+    std::filesystem::path base_directory_;
+};
+
+/// "/mass/items/0/mass_kg" for "mass.items[0].mass_kg".
+std::string key_to_pointer(std::string_view key);
+
+}  // namespace ds

@@ -1,0 +1,288 @@
+#include "trade/dispersion.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <numeric>
+#include <random>
+#include <tuple>
+
+#include <fmt/format.h>
+
+#include "constants.hpp"
+#include "results/key_figures.hpp"
+#include "sizing/size.hpp"
+#include "trade/design_variants.hpp"
+#include "trade/parallel.hpp"
+
+namespace ds {
+namespace {
+
+/// SplitMix64 (Steele, Lea and Flood, OOPSLA 2014): spreads (seed, index) into a well-mixed
+/// 64-bit seed for the case's own generator.
+std::uint64_t split_mix(std::uint64_t x) {
+    x += 0x9E3779B97F4A7C15ULL;
+    x = (x ^ (x >> 30)) * 0xBF58476D1CE4E5B9ULL;
+    x = (x ^ (x >> 27)) * 0x94D049BB133111EBULL;
+    return x ^ (x >> 31);
+}
+
+/// A uniform draw in (0, 1) from a 64-bit generator, its top 53 bits.
+double unit_uniform(std::mt19937_64& engine) {
+    return (static_cast<double>(engine() >> 11) + 0.5) * (1.0 / 9007199254740992.0);
+}
+
+/// A standard normal draw by Box-Muller, written here so the numbers do not depend on the
+/// standard library's distribution implementation.
+double standard_normal(std::mt19937_64& engine) {
+    const double u1 = unit_uniform(engine);
+    const double u2 = unit_uniform(engine);
+    return std::sqrt(-2.0 * std::log(u1)) * std::cos(2.0 * pi * u2);
+}
+
+bool same_dispersions(const std::vector<DispersionDesign>& a, const std::vector<DispersionDesign>& b) {
+    if (a.size() != b.size()) return false;
+    for (std::size_t i = 0; i < a.size(); ++i) {
+        if (a[i].key != b[i].key || a[i].distribution != b[i].distribution ||
+            a[i].sigma != b[i].sigma || a[i].min != b[i].min || a[i].max != b[i].max) {
+            return false;
+        }
+    }
+    return true;
+}
+
+}  // namespace
+
+std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
+    const Design& design, const std::filesystem::path& base_directory,
+    const DispersionSettings& settings) {
+    const DesignVariants variants = DesignVariants::of(freeze_design(design), base_directory);
+    std::vector<double> nominal;
+    for (const DispersionDesign& d : design.dispersions) {
+        const auto value = variants.value(d.key);
+        if (!value) return {std::nullopt, fmt::format("dispersions: {} is not a number of the design", d.key)};
+        nominal.push_back(*value);
+    }
+
+    DispersionCampaign campaign;
+    campaign.seed = settings.seed;
+    campaign.runs = settings.runs;
+    campaign.shard_index = settings.shard_index;
+    campaign.shard_count = std::max<std::size_t>(settings.shard_count, 1);
+    campaign.dispersions = design.dispersions;
+    for (const KeyFigure& f : key_figures(Results{})) {
+        campaign.figure_ids.push_back(f.id);
+        campaign.figure_units.push_back(f.unit);
+    }
+    std::vector<std::size_t> indices;
+    for (std::size_t i = campaign.shard_index; i < settings.runs; i += campaign.shard_count) {
+        indices.push_back(i);
+    }
+    campaign.cases.resize(indices.size());
+
+    parallel_for(indices.size(), settings.threads, settings.progress, [&](std::size_t k) {
+        DispersedCase& c = campaign.cases[k];
+        c.index = indices[k];
+        std::mt19937_64 engine(split_mix(settings.seed ^ split_mix(c.index)));
+        std::vector<std::pair<std::string, double>> values;
+        for (std::size_t j = 0; j < design.dispersions.size(); ++j) {
+            const DispersionDesign& d = design.dispersions[j];
+            const double draw = d.distribution == DistributionKind::normal
+                                    ? nominal[j] + d.sigma * standard_normal(engine)
+                                    : d.min + (d.max - d.min) * unit_uniform(engine);
+            c.draws.push_back(draw);
+            values.emplace_back(d.key, draw);
+        }
+        const DesignReadResult read = variants.with(values);
+        if (!read.ok()) {
+            c.error = read.errors.front().text();
+            return;
+        }
+        const Results r = size_design(*read.design, {false, false});
+        for (const KeyFigure& f : key_figures(r)) c.figures.push_back(f.value);
+        for (const Check& check : r.checks) {
+            if (check.status == CheckStatus::fail) c.failed_checks.push_back(check.id);
+        }
+        c.success = c.failed_checks.empty();
+    });
+    return {std::move(campaign), {}};
+}
+
+std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
+    const std::vector<DispersionCampaign>& parts) {
+    if (parts.empty()) return {std::nullopt, "nothing to merge"};
+    DispersionCampaign merged = parts.front();
+    merged.shard_index = 0;
+    merged.shard_count = 1;
+    merged.cases.clear();
+    for (const DispersionCampaign& part : parts) {
+        if (part.seed != merged.seed || part.runs != merged.runs ||
+            !same_dispersions(part.dispersions, merged.dispersions) ||
+            part.figure_ids != merged.figure_ids) {
+            return {std::nullopt, "the parts are not shards of one campaign (seed, runs, "
+                                  "dispersions or figures differ)"};
+        }
+        merged.cases.insert(merged.cases.end(), part.cases.begin(), part.cases.end());
+    }
+    std::sort(merged.cases.begin(), merged.cases.end(),
+              [](const DispersedCase& a, const DispersedCase& b) { return a.index < b.index; });
+    for (std::size_t i = 0; i < merged.cases.size(); ++i) {
+        if (merged.cases[i].index != i) {
+            return {std::nullopt, fmt::format("case {} is {} in the parts", i,
+                                              i < merged.cases[i].index ? "missing" : "repeated")};
+        }
+    }
+    if (merged.cases.size() != merged.runs) {
+        return {std::nullopt, fmt::format("the parts hold {} of the {} cases",
+                                          merged.cases.size(), merged.runs)};
+    }
+    return {std::move(merged), {}};
+}
+
+std::pair<double, double> wilson_interval(std::size_t successes, std::size_t trials, double z) {
+    if (trials == 0) return {0.0, 1.0};
+    const double n = static_cast<double>(trials);
+    const double p = static_cast<double>(successes) / n;
+    const double z2 = z * z;
+    const double centre = (p + z2 / (2.0 * n)) / (1.0 + z2 / n);
+    const double half = z / (1.0 + z2 / n) * std::sqrt(p * (1.0 - p) / n + z2 / (4.0 * n * n));
+    return {centre - half, centre + half};
+}
+
+double quantile(const std::vector<double>& sorted, double q) {
+    if (sorted.empty()) return 0.0;
+    const double h = (static_cast<double>(sorted.size()) - 1.0) * q;
+    const auto lo = static_cast<std::size_t>(std::floor(h));
+    const std::size_t hi = std::min(lo + 1, sorted.size() - 1);
+    return sorted[lo] + (h - static_cast<double>(lo)) * (sorted[hi] - sorted[lo]);
+}
+
+DispersionSummary summarize(const DispersionCampaign& campaign) {
+    DispersionSummary s;
+    s.runs = campaign.cases.size();
+    std::map<std::string, std::size_t> failures;
+    for (const DispersedCase& c : campaign.cases) {
+        s.successes += c.success ? 1 : 0;
+        for (const std::string& id : c.failed_checks) ++failures[id];
+        if (!c.error.empty()) ++failures["design_unreadable"];
+    }
+    s.success_probability = s.runs ? static_cast<double>(s.successes) / static_cast<double>(s.runs) : 0.0;
+    std::tie(s.wilson_low, s.wilson_high) = wilson_interval(s.successes, s.runs);
+    for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
+        std::vector<double> values;
+        for (const DispersedCase& c : campaign.cases) {
+            if (f < c.figures.size() && c.figures[f]) values.push_back(*c.figures[f]);
+        }
+        FigureStatistics st{campaign.figure_ids[f], campaign.figure_units[f], values.size()};
+        if (!values.empty()) {
+            std::sort(values.begin(), values.end());
+            const double n = static_cast<double>(values.size());
+            st.mean = std::accumulate(values.begin(), values.end(), 0.0) / n;
+            double squares = 0.0;
+            for (const double v : values) squares += (v - st.mean) * (v - st.mean);
+            st.standard_deviation = values.size() > 1 ? std::sqrt(squares / (n - 1.0)) : 0.0;
+            st.p01 = quantile(values, 0.01);
+            st.p50 = quantile(values, 0.50);
+            st.p99 = quantile(values, 0.99);
+        }
+        s.figures.push_back(st);
+    }
+    s.failing_checks.assign(failures.begin(), failures.end());
+    std::stable_sort(s.failing_checks.begin(), s.failing_checks.end(),
+                     [](const auto& a, const auto& b) { return a.second > b.second; });
+    return s;
+}
+
+nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
+    nlohmann::ordered_json out;
+    out["format"] = "descent-sizer/dispersions";
+    out["version"] = 1;
+    out["seed"] = c.seed;
+    out["runs"] = c.runs;
+    out["shard"] = {{"index", c.shard_index}, {"count", c.shard_count}};
+    nlohmann::ordered_json dispersions = nlohmann::ordered_json::array();
+    for (const DispersionDesign& d : c.dispersions) {
+        dispersions.push_back({{"key", d.key},
+                               {"distribution", d.distribution == DistributionKind::normal ? "normal" : "uniform"},
+                               {"sigma", d.sigma},
+                               {"min", d.min},
+                               {"max", d.max}});
+    }
+    out["dispersions"] = dispersions;
+    out["figures"] = c.figure_ids;
+    out["units"] = c.figure_units;
+    nlohmann::ordered_json cases = nlohmann::ordered_json::array();
+    for (const DispersedCase& k : c.cases) {
+        nlohmann::ordered_json figures = nlohmann::ordered_json::array();
+        for (const auto& f : k.figures) figures.push_back(f && std::isfinite(*f) ? nlohmann::ordered_json(*f) : nlohmann::ordered_json());
+        cases.push_back({{"index", k.index},
+                         {"draws", k.draws},
+                         {"figures", figures},
+                         {"success", k.success},
+                         {"failed_checks", k.failed_checks},
+                         {"error", k.error}});
+    }
+    out["cases"] = cases;
+    return out;
+}
+
+std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& j,
+                                                     std::string* error) {
+    try {
+        if (j.at("format") != "descent-sizer/dispersions") {
+            *error = "not a dispersion campaign (format)";
+            return std::nullopt;
+        }
+        DispersionCampaign c;
+        c.seed = j.at("seed").get<std::uint64_t>();
+        c.runs = j.at("runs").get<std::size_t>();
+        c.shard_index = j.at("shard").at("index").get<std::size_t>();
+        c.shard_count = j.at("shard").at("count").get<std::size_t>();
+        for (const auto& d : j.at("dispersions")) {
+            c.dispersions.push_back({d.at("key").get<std::string>(),
+                                     d.at("distribution") == "normal" ? DistributionKind::normal
+                                                                      : DistributionKind::uniform,
+                                     d.at("sigma").get<double>(), d.at("min").get<double>(),
+                                     d.at("max").get<double>()});
+        }
+        c.figure_ids = j.at("figures").get<std::vector<std::string>>();
+        c.figure_units = j.at("units").get<std::vector<std::string>>();
+        for (const auto& k : j.at("cases")) {
+            DispersedCase dc;
+            dc.index = k.at("index").get<std::size_t>();
+            dc.draws = k.at("draws").get<std::vector<double>>();
+            for (const auto& f : k.at("figures")) {
+                dc.figures.push_back(f.is_number() ? std::optional<double>(f.get<double>()) : std::nullopt);
+            }
+            dc.success = k.at("success").get<bool>();
+            dc.failed_checks = k.at("failed_checks").get<std::vector<std::string>>();
+            dc.error = k.at("error").get<std::string>();
+            c.cases.push_back(std::move(dc));
+        }
+        return c;
+    } catch (const nlohmann::ordered_json::exception& e) {
+        *error = fmt::format("not a dispersion campaign: {}", e.what());
+        return std::nullopt;
+    }
+}
+
+nlohmann::ordered_json summary_to_json(const DispersionSummary& s) {
+    nlohmann::ordered_json out;
+    out["runs"] = s.runs;
+    out["successes"] = s.successes;
+    out["success_probability"] = s.success_probability;
+    out["success_interval_95"] = {s.wilson_low, s.wilson_high};
+    nlohmann::ordered_json figures = nlohmann::ordered_json::object();
+    for (const FigureStatistics& f : s.figures) {
+        figures[f.id] = {{"unit", f.unit}, {"count", f.count}, {"mean", f.mean},
+                         {"standard_deviation", f.standard_deviation}, {"p01", f.p01},
+                         {"p50", f.p50}, {"p99", f.p99}};
+    }
+    out["figures"] = figures;
+    nlohmann::ordered_json failing = nlohmann::ordered_json::array();
+    for (const auto& [id, count] : s.failing_checks) failing.push_back({{"id", id}, {"count", count}});
+    out["failing_checks"] = failing;
+    return out;
+}
+
+}  // namespace ds

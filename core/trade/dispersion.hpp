@@ -1,0 +1,97 @@
+#pragma once
+
+#include <cstdint>
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "design/design.hpp"
+#include "progress.hpp"
+
+namespace ds {
+
+/// How a dispersion campaign runs: how many cases, from which seed, which slice of them.
+struct DispersionSettings {
+    std::size_t runs = 0;
+    std::uint64_t seed = 0;
+    std::size_t shard_index = 0;  ///< this run flies cases i with i % shard_count == shard_index
+    std::size_t shard_count = 1;
+    unsigned threads = 0;  ///< 0: one per core
+    Progress* progress = nullptr;
+};
+
+/// One dispersed case: its draws and what it gave.
+struct DispersedCase {
+    std::size_t index = 0;
+    std::vector<double> draws;  ///< one per dispersion, in the design's order
+    std::vector<std::optional<double>> figures;  ///< one per key figure of the campaign
+    bool success = false;  ///< read, and no check failed
+    std::vector<std::string> failed_checks;
+    std::string error;  ///< the reader's, when the drawn design could not be read
+};
+
+/// A campaign, or a shard of one: enough to merge shards and to summarise.
+struct DispersionCampaign {
+    std::uint64_t seed = 0;
+    std::size_t runs = 0;
+    std::size_t shard_index = 0;
+    std::size_t shard_count = 1;
+    std::vector<DispersionDesign> dispersions;
+    std::vector<std::string> figure_ids;
+    std::vector<std::string> figure_units;
+    std::vector<DispersedCase> cases;  ///< by index
+};
+
+/// Flies the design's dispersions: the nominal vehicle is frozen (freeze_design) and flown
+/// `runs` times with its dispersed keys drawn from a generator seeded per case from the seed and
+/// the case's index, so the same seed gives the same numbers whatever the threads or shards.
+/// Returns the campaign, or, when a dispersion names a key the design has no number at, that
+/// error.
+std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
+    const Design& design, const std::filesystem::path& base_directory,
+    const DispersionSettings& settings);
+
+/// The shards of one campaign put back together: the same seed, runs and dispersions, every
+/// case once. Returns the campaign or why the parts do not belong together.
+std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
+    const std::vector<DispersionCampaign>& parts);
+
+struct FigureStatistics {
+    std::string id;
+    std::string unit;
+    std::size_t count = 0;  ///< cases that produced the figure
+    double mean = 0.0;
+    double standard_deviation = 0.0;  ///< sample (n - 1)
+    double p01 = 0.0, p50 = 0.0, p99 = 0.0;
+};
+
+struct DispersionSummary {
+    std::size_t runs = 0;
+    std::size_t successes = 0;
+    double success_probability = 0.0;
+    double wilson_low = 0.0, wilson_high = 0.0;  ///< 95 % interval
+    std::vector<FigureStatistics> figures;
+    std::vector<std::pair<std::string, std::size_t>> failing_checks;  ///< most frequent first
+};
+
+DispersionSummary summarize(const DispersionCampaign& campaign);
+
+/// Wilson score interval of a proportion (Wilson, J. American Statistical Association 22,
+/// 1927): 95 % with the default z.
+std::pair<double, double> wilson_interval(std::size_t successes, std::size_t trials,
+                                          double z = 1.959963984540054);
+
+/// The q-quantile of sorted values, linear between order statistics (Hyndman and Fan's
+/// type 7, the common default).
+double quantile(const std::vector<double>& sorted, double q);
+
+nlohmann::ordered_json campaign_to_json(const DispersionCampaign& campaign);
+std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& json,
+                                                     std::string* error);
+nlohmann::ordered_json summary_to_json(const DispersionSummary& summary);
+
+}  // namespace ds

@@ -1,0 +1,43 @@
+#pragma once
+
+#include <algorithm>
+#include <atomic>
+#include <cstddef>
+#include <thread>
+#include <vector>
+
+#include "progress.hpp"
+
+namespace ds {
+
+/// Runs work(i) for every i in [0, count) on `threads` threads (0: one per core), each case
+/// independent of which thread runs it, so results are the same for any thread count. Stops
+/// handing out cases once progress says cancelled; returns whether every case ran.
+template <class Work>
+bool parallel_for(std::size_t count, unsigned threads, Progress* progress, Work&& work) {
+    if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
+    threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(count, 1)));
+    std::atomic<std::size_t> next{0};
+    std::atomic<std::size_t> done{0};
+    std::atomic<bool> stopped{false};
+    const auto run = [&] {
+        for (;;) {
+            if (progress && progress->cancelled()) {
+                stopped = true;
+                return;
+            }
+            const std::size_t i = next.fetch_add(1);
+            if (i >= count) return;
+            work(i);
+            const std::size_t finished = done.fetch_add(1) + 1;
+            if (progress) progress->report(static_cast<double>(finished) / static_cast<double>(count));
+        }
+    };
+    std::vector<std::thread> pool;
+    for (unsigned t = 1; t < threads; ++t) pool.emplace_back(run);
+    run();
+    for (std::thread& thread : pool) thread.join();
+    return !stopped && done == count;
+}
+
+}  // namespace ds

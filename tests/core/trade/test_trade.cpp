@@ -1,0 +1,215 @@
+// Sweeps, dispersions and sensitivities: statistics against hand computations and known
+// distributions, reproducibility across threads and shards, and closed-form sensitivities.
+
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+#include <doctest/doctest.h>
+
+#include "design/reader.hpp"
+#include "results/key_figures.hpp"
+#include "sizing/size.hpp"
+#include "trade/dispersion.hpp"
+#include "trade/sensitivity.hpp"
+#include "trade/sweep.hpp"
+
+namespace {
+
+ds::Design sample(const std::string& name) {
+    const ds::DesignReadResult read =
+        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
+    REQUIRE(read.ok());
+    return *read.design;
+}
+
+std::size_t figure_index(const std::string& id) {
+    const auto figures = ds::key_figures(ds::Results{});
+    for (std::size_t i = 0; i < figures.size(); ++i) {
+        if (figures[i].id == id) return i;
+    }
+    FAIL("no figure " << id);
+    return 0;
+}
+
+const ds::FigureStatistics& stats(const ds::DispersionSummary& s, const std::string& id) {
+    return s.figures[figure_index(id)];
+}
+
+}  // namespace
+
+TEST_CASE("Wilson 95 % interval of 8 successes in 10 is [0.4902, 0.9433] (hand-computed)") {
+    // Wilson (1927): centre (p + z^2/2n) / (1 + z^2/n), half-width
+    // z / (1 + z^2/n) sqrt(p (1 - p) / n + z^2 / 4n^2), with z = 1.96, computed by hand.
+    const auto [low, high] = ds::wilson_interval(8, 10);
+    CHECK(low == doctest::Approx(0.4902).epsilon(2e-4));
+    CHECK(high == doctest::Approx(0.9433).epsilon(2e-4));
+    // All successes: the upper end is 1, the lower end n / (n + z^2).
+    const auto [all_low, all_high] = ds::wilson_interval(100, 100);
+    CHECK(all_high == doctest::Approx(1.0).epsilon(1e-12));
+    CHECK(all_low == doctest::Approx(100.0 / (100.0 + 1.959963984540054 * 1.959963984540054)).epsilon(1e-12));
+}
+
+TEST_CASE("quantiles interpolate between order statistics (Hyndman and Fan type 7)") {
+    const std::vector<double> v{1.0, 2.0, 3.0, 4.0, 5.0};
+    CHECK(ds::quantile(v, 0.5) == 3.0);
+    CHECK(ds::quantile(v, 0.01) == doctest::Approx(1.04).epsilon(1e-12));
+    CHECK(ds::quantile(v, 0.99) == doctest::Approx(4.96).epsilon(1e-12));
+    CHECK(ds::quantile(v, 1.0) == 5.0);
+}
+
+TEST_CASE("the percentiles of a figure linear in a normal draw are those of the normal") {
+    // The ballistic coefficient m / (Cd A) is linear in the entry mass: with the mass drawn
+    // N(560, 3^2), beta is N(beta0, (3 beta0 / 560)^2) and its 1 % and 99 % points lie
+    // 2.3263 sigma from the mean (standard normal table).
+    ds::Design d = sample("small-ballistic-station");
+    d.dispersions = {{"mass.entry_kg", ds::DistributionKind::normal, 3.0, 0.0, 0.0}};
+    ds::DispersionSettings settings;
+    settings.runs = 2000;
+    settings.seed = 42;
+    const auto [campaign, error] = ds::run_dispersions(d, {}, settings);
+    REQUIRE(campaign);
+    const ds::DispersionSummary s = ds::summarize(*campaign);
+    const double beta0 = ds::size_design(d).entry.ballistic_coefficient_kg_m2;
+    const double sigma = 3.0 * beta0 / 560.0;
+    const ds::FigureStatistics& beta = stats(s, "ballistic_coefficient");
+    CHECK(beta.count == 2000);
+    // Tolerances: four standard errors of each estimate at n = 2000.
+    CHECK(std::abs(beta.mean - beta0) < 4.0 * sigma / std::sqrt(2000.0));
+    CHECK(beta.standard_deviation == doctest::Approx(sigma).epsilon(4.0 * std::sqrt(0.5 / 2000.0)));
+    CHECK(std::abs(beta.p50 - beta0) < 0.12 * sigma);
+    CHECK(std::abs(beta.p01 - (beta0 - 2.3263 * sigma)) < 0.35 * sigma);
+    CHECK(std::abs(beta.p99 - (beta0 + 2.3263 * sigma)) < 0.35 * sigma);
+}
+
+TEST_CASE("the same seed gives the same numbers to the last digit whatever the thread count") {
+    const ds::Design d = sample("small-ballistic-station");
+    ds::DispersionSettings settings;
+    settings.runs = 120;
+    settings.seed = 9;
+    settings.threads = 1;
+    const auto one = ds::run_dispersions(d, {}, settings).first;
+    settings.threads = 2;
+    const auto two = ds::run_dispersions(d, {}, settings).first;
+    REQUIRE(one);
+    REQUIRE(two);
+    REQUIRE(one->cases.size() == two->cases.size());
+    for (std::size_t i = 0; i < one->cases.size(); ++i) {
+        CHECK(one->cases[i].draws == two->cases[i].draws);
+        CHECK(one->cases[i].figures == two->cases[i].figures);
+    }
+    settings.seed = 10;
+    const auto other = ds::run_dispersions(d, {}, settings).first;
+    CHECK(other->cases[0].draws != one->cases[0].draws);
+}
+
+TEST_CASE("shards merged give the same campaign and summary as one run") {
+    const ds::Design d = sample("small-ballistic-station");
+    ds::DispersionSettings settings;
+    settings.runs = 90;
+    settings.seed = 3;
+    const auto whole = ds::run_dispersions(d, {}, settings).first;
+    std::vector<ds::DispersionCampaign> parts;
+    for (std::size_t i = 0; i < 3; ++i) {
+        settings.shard_index = i;
+        settings.shard_count = 3;
+        // Through JSON, as the merge command reads them.
+        std::string error;
+        const auto part = ds::run_dispersions(d, {}, settings).first;
+        parts.push_back(*ds::campaign_from_json(ds::campaign_to_json(*part), &error));
+        CHECK(parts.back().cases.size() == 30);
+    }
+    const auto [merged, error] = ds::merge_campaigns(parts);
+    REQUIRE(merged);
+    REQUIRE(merged->cases.size() == whole->cases.size());
+    for (std::size_t i = 0; i < merged->cases.size(); ++i) {
+        CHECK(merged->cases[i].draws == whole->cases[i].draws);
+        CHECK(merged->cases[i].figures == whole->cases[i].figures);
+    }
+    CHECK(ds::summary_to_json(ds::summarize(*merged)) == ds::summary_to_json(ds::summarize(*whole)));
+    // A missing shard is refused, saying which case is missing.
+    parts.pop_back();
+    const auto [incomplete, why] = ds::merge_campaigns(parts);
+    CHECK_FALSE(incomplete);
+    CHECK(why.find("missing") != std::string::npos);
+}
+
+TEST_CASE("a dispersion of a key the design has no number at is refused with the key") {
+    ds::Design d = sample("small-ballistic-station");
+    d.dispersions = {{"entry.no_such_key", ds::DistributionKind::normal, 1.0, 0.0, 0.0}};
+    ds::DispersionSettings settings;
+    settings.runs = 5;
+    const auto [campaign, error] = ds::run_dispersions(d, {}, settings);
+    CHECK_FALSE(campaign);
+    CHECK(error.find("entry.no_such_key") != std::string::npos);
+}
+
+TEST_CASE("a sized design is frozen into the vehicle it sizes to") {
+    const ds::Design d = sample("lifting-rover-carrier");
+    const ds::Results sized = ds::size_design(d);
+    const ds::Design frozen = ds::freeze_design(d);
+    REQUIRE(frozen.mass.entry_kg);
+    CHECK(*frozen.mass.entry_kg == doctest::Approx(sized.mass.entry_kg).epsilon(1e-12));
+    CHECK(*frozen.aeroshell.diameter_m == doctest::Approx(sized.entry.diameter_m).epsilon(1e-12));
+    const ds::Results again = ds::size_design(frozen);
+    CHECK(*again.mass.landed_kg == doctest::Approx(*sized.mass.landed_kg).epsilon(1e-3));
+    CHECK(*again.terminal.propellant_kg == doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-3));
+}
+
+TEST_CASE("a sweep of the aeroshell diameter: beta falls and the deploy altitude rises (trend)") {
+    const ds::DesignVariants variants = ds::DesignVariants::of(sample("small-ballistic-station"));
+    const auto cases = ds::run_sweep(variants, {{"aeroshell.diameter_m", 2.2, 3.4, 5}});
+    REQUIRE(cases.size() == 5);
+    for (std::size_t i = 1; i < cases.size(); ++i) {
+        REQUIRE(cases[i].results);
+        CHECK(cases[i].inputs[0] > cases[i - 1].inputs[0]);
+        CHECK(cases[i].results->entry.ballistic_coefficient_kg_m2 <
+              cases[i - 1].results->entry.ballistic_coefficient_kg_m2);
+        CHECK(*cases[i].results->parachute.deploy_altitude_m >
+              *cases[i - 1].results->parachute.deploy_altitude_m);
+    }
+}
+
+TEST_CASE("a two-key sweep is a grid, the first key varying slowest; a refused case says why") {
+    const ds::DesignVariants variants = ds::DesignVariants::of(sample("small-ballistic-station"));
+    const auto cases = ds::run_sweep(variants, {{"aeroshell.diameter_m", 2.4, 2.8, 2},
+                                                {"entry.flight_path_angle_deg", -14.0, -12.0, 3}});
+    REQUIRE(cases.size() == 6);
+    CHECK(cases[0].inputs == std::vector<double>{2.4, -14.0});
+    CHECK(cases[2].inputs == std::vector<double>{2.4, -12.0});
+    CHECK(cases[3].inputs == std::vector<double>{2.8, -14.0});
+    const auto refused = ds::run_sweep(variants, {{"aeroshell.diameter_m", -1.0, 1.0, 2}});
+    CHECK_FALSE(refused[0].results);
+    CHECK(refused[0].error.find("aeroshell.diameter_m") != std::string::npos);
+}
+
+TEST_CASE("the sensitivity of beta to the diameter is -2 and to the mass +1, to 1e-6") {
+    // beta = m / (Cd pi D^2 / 4) with a given Cd: d ln beta / d ln D = -2, d ln beta / d ln m = 1.
+    ds::Design d = sample("small-ballistic-station");
+    d.aeroshell.drag_coefficient = 1.65;
+    d.dispersions.clear();
+    const ds::DesignVariants variants = ds::DesignVariants::of(d);
+    const ds::SensitivityTable table =
+        ds::sensitivities(variants, {"aeroshell.diameter_m", "mass.entry_kg"});
+    const auto beta = static_cast<Eigen::Index>(figure_index("ballistic_coefficient"));
+    CHECK(table.normalized(beta, 0) == doctest::Approx(-2.0).epsilon(1e-6));
+    CHECK(table.normalized(beta, 1) == doctest::Approx(1.0).epsilon(1e-6));
+    const auto ranked = table.ranked(static_cast<std::size_t>(beta));
+    REQUIRE(ranked.size() == 2);
+    CHECK(ranked.front().first == "aeroshell.diameter_m");
+}
+
+TEST_CASE("design variants: key paths, numeric keys and values") {
+    CHECK(ds::key_to_pointer("mass.items[2].mass_kg") == "/mass/items/2/mass_kg");
+    const ds::DesignVariants variants = ds::DesignVariants::of(sample("small-ballistic-station"));
+    CHECK(variants.value("entry.velocity_m_s") == 5600.0);
+    CHECK_FALSE(variants.value("entry.nothing"));
+    const auto keys = variants.numeric_keys();
+    CHECK(std::find(keys.begin(), keys.end(), "aeroshell.diameter_m") != keys.end());
+    CHECK(std::none_of(keys.begin(), keys.end(), [](const std::string& k) {
+        return k.rfind("limits.", 0) == 0 || k.rfind("solver.", 0) == 0 || k == "version";
+    }));
+    const ds::DesignReadResult changed = variants.with({{"entry.velocity_m_s", 6000.0}});
+    REQUIRE(changed.ok());
+    CHECK(changed.design->entry.velocity_m_s == 6000.0);
+}
