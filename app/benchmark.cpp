@@ -8,6 +8,7 @@
 #include <algorithm>
 #include <chrono>
 #include <filesystem>
+#include <thread>
 #include <string>
 #include <vector>
 
@@ -17,6 +18,7 @@
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "trade/dispersion.hpp"
 
 namespace {
 
@@ -70,6 +72,35 @@ int main(int argc, char** argv) {
         const Timing whole = measure([&] { (void)ds::size_design(design); }, repetitions);
         fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", "", "sizing",
                    whole.median_ms, whole.p10_ms, whole.p90_ms, "");
+    }
+
+    // Dispersions: 10,000 dispersed flights of the first sample with dispersions, on one thread
+    // and on every core, for the speed and the scaling.
+    for (const auto& file : files) {
+        const ds::DesignReadResult read = ds::read_design_file(file);
+        if (!read.ok() || read.design->dispersions.empty()) continue;
+        constexpr std::size_t runs = 10000;
+        const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
+        double one_thread_s = 0.0;
+        for (const unsigned threads : {1u, cores}) {
+            ds::DispersionSettings settings;
+            settings.runs = runs;
+            settings.seed = 1;
+            settings.threads = threads;
+            const auto start = std::chrono::steady_clock::now();
+            const auto campaign = ds::run_dispersions(*read.design, file.parent_path(), settings).first;
+            const double seconds =
+                std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+            if (threads == 1) one_thread_s = seconds;
+            fmt::print("{}: {} dispersed flights (interface to touchdown) on {} thread(s): {:.2f} s"
+                       "{}\n",
+                       file.stem().string(), campaign ? campaign->cases.size() : 0, threads,
+                       seconds,
+                       threads > 1 ? fmt::format(", {:.0f} % of linear scaling",
+                                                 100.0 * one_thread_s / (seconds * threads))
+                                   : std::string());
+        }
+        break;
     }
     return 0;
 }
