@@ -817,6 +817,10 @@ private:
                     f.report("distribution", fmt::format("unknown distribution \"{}\"; expected "
                                                          "one of: normal, uniform",
                                                          *kind));
+                    // Its parameters are not judged against a distribution we do not know.
+                    for (const char* parameter : {"sigma", "min", "max"}) {
+                        f.value(parameter, Need::optional);
+                    }
                 }
             }
             f.report_unknown();
@@ -1103,6 +1107,36 @@ private:
     std::vector<Frame> frames_;
 };
 
+// A design nests five levels deep (document, mass, items, an item, a value). Far deeper nesting
+// is no design, and would cost the duplicate-key check time and memory that grow with the square
+// of the depth (each level holds its path), so it is refused before parsing (our bound).
+constexpr std::size_t max_nesting_depth = 64;
+
+/// Whether arrays and objects nest deeper than the limit anywhere in the text (strings skipped).
+bool nested_deeper_than(std::string_view text, std::size_t limit) {
+    std::size_t depth = 0;
+    bool in_string = false;
+    bool escaped = false;
+    for (const char c : text) {
+        if (in_string) {
+            if (escaped)
+                escaped = false;
+            else if (c == '\\')
+                escaped = true;
+            else if (c == '"')
+                in_string = false;
+        } else if (c == '"') {
+            in_string = true;
+        } else if (c == '[' || c == '{') {
+            if (++depth > limit)
+                return true;
+        } else if ((c == ']' || c == '}') && depth > 0) {
+            --depth;
+        }
+    }
+    return false;
+}
+
 /// "line L, column C: what" for a JSON syntax error.
 std::string parse_message(const Json::exception& error, std::string_view text) {
     const std::string what = error.what();
@@ -1144,6 +1178,12 @@ DesignReadResult read_parsed(const Json& document, const std::filesystem::path& 
 
 DesignReadResult read_design(std::string_view json_text,
                              const std::filesystem::path& base_directory) {
+    if (nested_deeper_than(json_text, max_nesting_depth)) {
+        return {std::nullopt,
+                {ReadError{{}, fmt::format("arrays and objects nest more than {} levels deep: "
+                                           "not a design document",
+                                           max_nesting_depth)}}};
+    }
     Issues issues;
     DuplicateKeys duplicates(issues);
     Json document;

@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <fstream>
 #include <string>
 
 #include <doctest/doctest.h>
@@ -212,4 +213,22 @@ TEST_CASE("design variants: key paths, numeric keys and values") {
     const ds::DesignReadResult changed = variants.with({{"entry.velocity_m_s", 6000.0}});
     REQUIRE(changed.ok());
     CHECK(changed.design->entry.velocity_m_s == 6000.0);
+}
+
+TEST_CASE("the reader takes dispersions and names what is wrong in one") {
+    std::ifstream in(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json");
+    nlohmann::ordered_json doc = nlohmann::ordered_json::parse(in);
+    const ds::DesignReadResult ok = ds::read_design(doc.dump());
+    REQUIRE(ok.ok());
+    REQUIRE(ok.design->dispersions.size() == 4);
+    CHECK(ok.design->dispersions[2].distribution == ds::DistributionKind::uniform);
+    CHECK(ok.design->dispersions[2].max == 1.15);
+
+    doc["dispersions"][0]["distribution"] = "lognormal";
+    doc["dispersions"][2]["max"] = 0.5;
+    const ds::DesignReadResult bad = ds::read_design(doc.dump());
+    REQUIRE_FALSE(bad.ok());
+    REQUIRE(bad.errors.size() == 2);
+    CHECK(bad.errors[0].path == "dispersions[0].distribution");
+    CHECK(bad.errors[1].path == "dispersions[2].max");
 }
