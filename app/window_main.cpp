@@ -77,7 +77,10 @@ int runWindow(int argc, char** argv) {
         return exit_unreadable;
     }
     window.show();
-    if (screenshot.isEmpty()) return app.exec();
+    if (screenshot.isEmpty()) {
+        window.offerRecovery();  // work a crashed session left; never for a screenshot
+        return app.exec();
+    }
 
     // --screenshot: wait for the results to be drawn, picture the whole window, leave.
     QEventLoop loop;

@@ -3,16 +3,20 @@
 #include <QAction>
 #include <QCloseEvent>
 #include <QDateTime>
+#include <QDir>
 #include <QFile>
 #include <QFileDialog>
 #include <QFileInfo>
 #include <QLabel>
+#include <QLocale>
 #include <QMenuBar>
 #include <QMessageBox>
+#include <QPushButton>
 #include <QSplitter>
 #include <QStatusBar>
 #include <QUndoStack>
 
+#include "model/autosave.hpp"
 #include "model/design_document.hpp"
 #include "model/sizing_runner.hpp"
 #include "sheet/sizing_sheet.hpp"
@@ -30,13 +34,17 @@ constexpr const char* designFilter = "Descent Sizer designs (*.json)";
 constexpr int formMinimumWidth = 440;
 // Room for about ten rows of figures and checks above the charts.
 constexpr int tablesHeight = 300;
+// How long a note about the file (an autosave that failed, a file written again) stays shown.
+constexpr int fileNoteMs = 15000;
 
 }  // namespace
 
 MainWindow::MainWindow(QWidget* parent)
     : QMainWindow(parent),
       m_document(new DesignDocument(this)),
-      m_runner(new SizingRunner(this)) {
+      m_runner(new SizingRunner(this)),
+      m_autosave(new Autosave(m_document, Autosave::defaultFolder(), this)) {
+    m_autosave->setInterval(m_settings.autosaveIntervalMs());
     m_form = new DesignForm(m_document, this);
     m_figures = new FiguresView(this);
     m_checks = new ChecksView(this);
@@ -72,6 +80,10 @@ MainWindow::MainWindow(QWidget* parent)
     connect(m_document, &DesignDocument::changed, this, &MainWindow::documentChanged);
     connect(m_document, &DesignDocument::fileStateChanged, this, &MainWindow::updateTitle);
     connect(m_runner, &SizingRunner::resultsReady, this, &MainWindow::showResults);
+    connect(m_autosave, &Autosave::failed, this, [this](const QString& error) {
+        statusBar()->showMessage(
+            tr("Autosave failed: %1. Save the design to keep the edits.").arg(error), fileNoteMs);
+    });
     connect(m_checks, &ChecksView::fieldRequested, this,
             [this](const QString& pointer) { m_form->focusField(pointer.toStdString()); });
 
@@ -134,6 +146,55 @@ void MainWindow::newFromDemo() {
     m_document->reset(std::move(json), QString());
 }
 
+bool MainWindow::offerRecovery() {
+    if (m_document->isModified()) return false;  // never replace work in progress
+    for (const RecoveredWork& work : Autosave::leftoverWork(m_autosave->folder())) {
+        const RecoveryChoice choice =
+            m_recoveryPrompt ? m_recoveryPrompt(work) : askAboutRecovery(work);
+        if (choice == RecoveryChoice::discard) Autosave::remove(work);
+        if (choice != RecoveryChoice::recover) continue;
+        DesignDocument::Json json;
+        QString error;
+        if (!Autosave::read(work, &json, &error)) {
+            statusBar()->showMessage(tr("Cannot recover: %1").arg(error), fileNoteMs);
+            continue;
+        }
+        m_document->restore(std::move(json), work.originalPath);
+        m_autosave->adopt(work);
+        if (!work.originalPath.isEmpty()) m_settings.addRecentFile(m_document->filePath());
+        updateRecentMenu();
+        return true;
+    }
+    return false;
+}
+
+RecoveryChoice MainWindow::askAboutRecovery(const RecoveredWork& work) {
+    const QString at = QLocale().toString(work.savedAt.toLocalTime(), QLocale::LongFormat);
+    QString text;
+    if (work.originalPath.isEmpty()) {
+        text = tr("An untitled design was left with unsaved changes, autosaved %1.").arg(at);
+    } else {
+        const QString path = QDir::toNativeSeparators(work.originalPath);
+        text = tr("%1 was left with unsaved changes, autosaved %2.\n\nRecovered, it opens as "
+                  "modified and Save writes it to %3.")
+                   .arg(QFileInfo(work.originalPath).fileName(), at, path);
+        if (QFileInfo(work.originalPath).lastModified() > work.savedAt) {
+            text += tr("\n\nThat file was saved after this autosave: saving the recovered design "
+                       "would replace the later version.");
+        }
+    }
+    QMessageBox box(QMessageBox::Question, tr("Recover unsaved work"), text, QMessageBox::NoButton,
+                    this);
+    QPushButton* recover = box.addButton(tr("&Recover"), QMessageBox::AcceptRole);
+    QPushButton* discard = box.addButton(tr("&Discard"), QMessageBox::DestructiveRole);
+    box.addButton(tr("Ask &later"), QMessageBox::RejectRole);
+    box.setDefaultButton(recover);
+    box.exec();
+    if (box.clickedButton() == recover) return RecoveryChoice::recover;
+    if (box.clickedButton() == discard) return RecoveryChoice::discard;
+    return RecoveryChoice::later;
+}
+
 bool MainWindow::openFile(const QString& path, bool quiet) {
     QString error;
     if (!m_document->open(path, &error)) {
@@ -155,10 +216,18 @@ bool MainWindow::save() {
 }
 
 bool MainWindow::saveAs(const QString& path) {
+    const bool wasRemoved = QFileInfo(path).absoluteFilePath() == m_document->filePath() &&
+                            !QFileInfo::exists(path);
     QString error;
     if (!m_document->saveAs(path, &error)) {
         QMessageBox::warning(this, tr("Save design"), error);
         return false;
+    }
+    if (wasRemoved) {
+        statusBar()->showMessage(
+            tr("%1 had been removed or moved while open; it was written again.")
+                .arg(QDir::toNativeSeparators(m_document->filePath())),
+            fileNoteMs);
     }
     m_settings.addRecentFile(m_document->filePath());
     m_settings.setLastDirectory(QFileInfo(path).absolutePath());
@@ -261,6 +330,8 @@ void MainWindow::closeEvent(QCloseEvent* event) {
         event->ignore();
         return;
     }
+    // Saved, clean or discarded: the recovery files have nothing left to keep.
+    m_autosave->discard();
     m_settings.setWindow(saveGeometry(), saveState());
     event->accept();
 }

@@ -1,5 +1,6 @@
 #pragma once
 
+#include <functional>
 #include <optional>
 
 #include <QMainWindow>
@@ -14,12 +15,17 @@ QT_END_NAMESPACE
 
 namespace ds {
 
+class Autosave;
 class ChartsView;
 class ChecksView;
 class DesignDocument;
 class DesignForm;
 class FiguresView;
 class SizingRunner;
+struct RecoveredWork;
+
+/// What to do with work a session left unsaved: open it, delete it, or ask at the next start.
+enum class RecoveryChoice { recover, discard, later };
 
 /// The window: wires the design document, the forms, the sizing runner and the result views
 /// together, and holds the file and baseline commands. It computes nothing itself.
@@ -34,9 +40,18 @@ public:
     /// Starts a new, unsaved design from the bundled demo.
     void newFromDemo();
 
+    /// Offers the work of sessions that ended without saving (newest first), one question
+    /// each, until one is recovered: it opens as modified, with its original path. Called once
+    /// the window is up; does nothing while the current design has unsaved edits.
+    bool offerRecovery();
+    /// Replaces the recovery question (a message box) with a function, for tests.
+    using RecoveryPrompt = std::function<RecoveryChoice(const RecoveredWork&)>;
+    void setRecoveryPrompt(RecoveryPrompt prompt) { m_recoveryPrompt = std::move(prompt); }
+
     DesignDocument* document() const { return m_document; }
     DesignForm* form() const { return m_form; }
     SizingRunner* runner() const { return m_runner; }
+    Autosave* autosave() const { return m_autosave; }
     FiguresView* figures() const { return m_figures; }
     ChecksView* checks() const { return m_checks; }
     bool hasBaseline() const { return m_baseline.has_value(); }
@@ -63,10 +78,12 @@ private:
     void updateTitle();
     void updateRecentMenu();
     bool confirmDiscard();
+    RecoveryChoice askAboutRecovery(const RecoveredWork& work);
     QString chooseSaveFile();
 
     DesignDocument* m_document;
     SizingRunner* m_runner;
+    Autosave* m_autosave;
     DesignForm* m_form;
     FiguresView* m_figures;
     ChecksView* m_checks;
@@ -75,6 +92,7 @@ private:
     QMenu* m_recentMenu = nullptr;
     std::optional<Results> m_baseline;
     Settings m_settings;
+    RecoveryPrompt m_recoveryPrompt;
     qint64 m_lastEditToRedrawMs = 0;
 };
 

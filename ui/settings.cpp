@@ -1,6 +1,10 @@
 #include "settings.hpp"
 
+#include <algorithm>
+
 #include <QSettings>
+
+#include "model/autosave.hpp"
 
 namespace ds {
 namespace {
@@ -9,6 +13,10 @@ constexpr const char* recentKey = "files/recent";
 constexpr const char* directoryKey = "files/lastDirectory";
 constexpr const char* geometryKey = "window/geometry";
 constexpr const char* stateKey = "window/state";
+constexpr const char* autosaveKey = "files/autosaveIntervalSeconds";
+constexpr int defaultAutosaveSeconds = Autosave::defaultIntervalMs / 1000;
+// A floor, so a mistyped setting cannot make writing compete with typing (common practice).
+constexpr int minimumAutosaveSeconds = 5;
 
 }  // namespace
 
@@ -18,6 +26,8 @@ Settings::Settings() {
     m_lastDirectory = stored.value(directoryKey).toString();
     m_windowGeometry = stored.value(geometryKey).toByteArray();
     m_windowState = stored.value(stateKey).toByteArray();
+    m_autosaveIntervalSeconds =
+        std::max(stored.value(autosaveKey, defaultAutosaveSeconds).toInt(), minimumAutosaveSeconds);
 }
 
 void Settings::addRecentFile(const QString& path) {
@@ -44,6 +54,7 @@ void Settings::save() const {
     stored.setValue(directoryKey, m_lastDirectory);
     stored.setValue(geometryKey, m_windowGeometry);
     stored.setValue(stateKey, m_windowState);
+    stored.setValue(autosaveKey, m_autosaveIntervalSeconds);
 }
 
 }  // namespace ds

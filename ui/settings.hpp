@@ -25,6 +25,10 @@ public:
     QString lastDirectory() const { return m_lastDirectory; }
     void setLastDirectory(const QString& directory);
 
+    /// How often unsaved edits are written to the recovery folder: every minute unless the
+    /// settings file says otherwise (files/autosaveIntervalSeconds).
+    int autosaveIntervalMs() const { return m_autosaveIntervalSeconds * 1000; }
+
 private:
     void save() const;
 
@@ -32,6 +36,7 @@ private:
     QByteArray m_windowGeometry;
     QByteArray m_windowState;
     QString m_lastDirectory;
+    int m_autosaveIntervalSeconds;
 };
 
 }  // namespace ds

@@ -1,5 +1,6 @@
 #include "model/design_document.hpp"
 
+#include <QDir>
 #include <QFile>
 #include <QFileInfo>
 #include <QSaveFile>
@@ -54,6 +55,11 @@ void DesignDocument::reset(Json json, const QString& filePath) {
     emit fileStateChanged();
 }
 
+void DesignDocument::restore(Json json, const QString& filePath) {
+    reset(std::move(json), filePath.isEmpty() ? QString() : QFileInfo(filePath).absoluteFilePath());
+    m_undo->resetClean();  // no edit to undo, yet not what the file holds
+}
+
 bool DesignDocument::open(const QString& path, QString* error) {
     QFile file(path);
     if (!file.open(QIODevice::ReadOnly)) {
@@ -91,22 +97,28 @@ bool DesignDocument::open(const QString& path, QString* error) {
 }
 
 bool DesignDocument::saveAs(const QString& path, QString* error) {
-    QSaveFile file(path);
-    if (!file.open(QIODevice::WriteOnly)) {
-        *error = tr("Cannot write %1: %2").arg(path, file.errorString());
+    const auto failed = [&](const QSaveFile& file) {
+        *error = tr("Cannot save the design to %1: %2.\nNothing was written; the design is still "
+                    "open with its changes.")
+                     .arg(QDir::toNativeSeparators(path), file.errorString());
         return false;
-    }
+    };
+    // QSaveFile writes a temporary file beside the target and renames it over the target on
+    // commit: a failure at any step (no such folder, no permission, a full disk) leaves the old
+    // file whole.
+    QSaveFile file(path);
+    if (!file.open(QIODevice::WriteOnly)) return failed(file);
     const std::string text = m_json.dump(2) + "\n";
     file.write(text.data(), static_cast<qint64>(text.size()));
-    if (!file.commit()) {
-        *error = tr("Cannot write %1: %2").arg(path, file.errorString());
-        return false;
-    }
+    if (!file.commit()) return failed(file);
     const bool renamed = QFileInfo(path).absoluteFilePath() != m_filePath;
     m_filePath = QFileInfo(path).absoluteFilePath();
     m_undo->setClean();
-    if (renamed) reread();  // relative paths inside (a CSV atmosphere) now resolve elsewhere
     emit fileStateChanged();
+    if (renamed) {  // relative paths inside (a CSV atmosphere) now resolve elsewhere
+        reread();
+        emit changed();
+    }
     return true;
 }
 

@@ -42,10 +42,14 @@ public:
 
     /// Replaces the whole document (new, demo, open), clearing the undo history.
     void reset(Json json, const QString& filePath);
+    /// Replaces the whole document with recovered work: like reset, but modified, so that
+    /// Save writes it to filePath (where it came from; empty for an untitled design).
+    void restore(Json json, const QString& filePath);
     /// Reads a design file. A file that is not JSON, or written by a newer version, is refused
-    /// with the reason and the document is left as it was.
+    /// with the reason; the file is only read and the document is left as it was.
     bool open(const QString& path, QString* error);
-    /// Writes the document atomically (a temporary file renamed over the old one).
+    /// Writes the document atomically (a temporary file renamed over the old one). On failure
+    /// nothing is written, the old file is as it was and the document stays modified.
     bool saveAs(const QString& path, QString* error);
 
     /// Sets (or, with a null value, removes) the value at a JSON pointer, as one undoable edit.
