@@ -39,6 +39,8 @@ constexpr double earth_a_coefficient = 1.072e6, earth_a_velocity_exponent = -1.8
 constexpr double watts_per_cm2_to_per_m2 = 1e4;
 
 double interpolate(std::span<const Point> table, double velocity_m_s) {
+    // NaN compares false with every entry: without this the search below runs off the table.
+    if (std::isnan(velocity_m_s)) return velocity_m_s;
     if (velocity_m_s < table.front().velocity_m_s) return 0.0;
     if (velocity_m_s >= table.back().velocity_m_s) return table.back().f;
     const auto upper = std::upper_bound(

@@ -43,6 +43,15 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
         return a;
     }
 
+    // Already at or below the end velocity: nothing to burn. The burn's end (the velocity
+    // falling through the target) would never come, and thrust would stop the lander and lift it.
+    if (coasted.y[StateIndex::velocity] <= r.end_velocity_m_s) {
+        a.reached_velocity = true;
+        b.end_time_s = coasted.time_s;
+        b.end_state = coasted.y;
+        return a;
+    }
+
     Phase burn;
     burn.name = "terminal burn";
     burn.stage.thrust_N = r.thrust_N;

@@ -1,0 +1,172 @@
+// Inputs the fuzzer (tests/fuzz) found to crash, hang or exhaust memory, each kept as a case
+// here and as a file in tests/fuzz/corpus/. Each case states what the input must give now.
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <string>
+
+#include <doctest/doctest.h>
+
+#include "design/reader.hpp"
+#include "flight/stage.hpp"
+#include "heating/tauber_sutton.hpp"
+#include "parachute/canopy.hpp"
+#include "results/writer.hpp"
+#include "sizing/size.hpp"
+
+namespace {
+
+constexpr double not_a_number = std::numeric_limits<double>::quiet_NaN();
+
+/// A document nested `depth` arrays deep under "name", the rest of it irrelevant.
+std::string nested(std::size_t depth) {
+    return "{\"name\": " + std::string(depth, '[') + std::string(depth, ']') + "}";
+}
+
+}  // namespace
+
+TEST_CASE("a NaN velocity gives a NaN radiative heat flux, not a read past the f(V) table") {
+    // Found as corpus/error-tiny-numbers.json: a 1e-300 m scale height makes the density
+    // infinite below the reference, the velocity NaN, and the table search ran off its end.
+    // The value was NaN before too: the read past the table is what the sanitize preset's
+    // AddressSanitizer reports (global-buffer-overflow) without the fix.
+    CHECK(std::isnan(ds::tauber_sutton_heat_flux_W_m2("mars", 1e-4, 0.5, not_a_number)));
+    CHECK(std::isnan(ds::tauber_sutton_heat_flux_W_m2("earth", 1e-4, 0.5, not_a_number)));
+    // Away from NaN nothing changed: zero below the table, positive on it.
+    CHECK(ds::tauber_sutton_heat_flux_W_m2("mars", 1e-4, 0.5, 5000.0) == 0.0);
+    CHECK(ds::tauber_sutton_heat_flux_W_m2("mars", 1e-4, 0.5, 7000.0) > 0.0);
+}
+
+TEST_CASE("a NaN Mach gives a NaN canopy drag coefficient, not a read past the Mach table") {
+    // The same search as above, on the canopy's Cd-against-Mach table (found by reading).
+    const auto dgb = ds::canopy_type("disk-gap-band");
+    REQUIRE(dgb);
+    const ds::DragDevice canopy = ds::canopy_device(*dgb, 12.0, 0.55);
+    REQUIRE_FALSE(canopy.mach_factor.empty());
+    CHECK(std::isnan(canopy.drag_coefficient_at(not_a_number)));
+    CHECK(std::isfinite(canopy.drag_coefficient_at(1.5)));
+}
+
+TEST_CASE("a document nested more than 64 levels deep is refused with one error, before parsing") {
+    // Found as a timeout: the duplicate-key check holds a path per level, so time and memory
+    // grew with the square of the depth (8000 levels took 8 s; 64 KiB of '[' would need GBs).
+    for (const std::size_t depth : {std::size_t{65}, std::size_t{30000}}) {
+        CAPTURE(depth);
+        const ds::DesignReadResult read = ds::read_design(nested(depth));
+        CHECK_FALSE(read.ok());
+        REQUIRE(read.errors.size() == 1);
+        CHECK(read.errors.front().path == "");
+        CHECK(read.errors.front().text() ==
+              "arrays and objects nest more than 64 levels deep: not a design document");
+    }
+}
+
+TEST_CASE("nesting up to 64 levels, and brackets inside strings, are read as before") {
+    // 64 levels: parsed, so the errors are the document's own (the first: "format" missing).
+    const ds::DesignReadResult deep = ds::read_design(nested(63));
+    REQUIRE_FALSE(deep.errors.empty());
+    CHECK(deep.errors.front().text().find("nest more than") == std::string::npos);
+    // Brackets in a string are text, not nesting.
+    const ds::DesignReadResult text =
+        ds::read_design("{\"name\": \"" + std::string(100, '[') + "\\\"" + "\"}");
+    REQUIRE_FALSE(text.errors.empty());
+    CHECK(text.errors.front().text().find("nest more than") == std::string::npos);
+}
+
+TEST_CASE("a lander already slower than its burn's end velocity does not burn, and never climbs") {
+    // Found as a slow input (and by the property test): the descent under the canopy runs out
+    // of its 250 s budget at 7.7 km, where the lander falls at 76-84 m/s, below the 90 m/s the
+    // burn is to end at. The burn's end (the velocity falling through 90 m/s) never came: the
+    // engine stopped the lander, lifted it for an hour of thrust and the budget diverged.
+    const std::string design = R"({
+      "format": "descent-sizer/design", "version": 1, "name": "slow burn", "body": "mars",
+      "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
+                      "scale_height_m": 11100, "temperature_K": 210 },
+      "site": { "elevation_m": -1500 },
+      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
+                 "flight_path_angle_deg": -13.0 },
+      "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65 },
+      "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+      "parachute": { "type": "disk-gap-band", "diameter_m": 12.0, "drag_coefficient": 0.55,
+                     "deploy_mach": 1.8 },
+      "terminal": { "method": "retro", "isp_s": 220, "thrust_to_weight": 2.5,
+                    "touchdown_velocity_m_s": 90.0 },
+      "solver": { "max_time_s": 250 }
+    })";
+    const ds::DesignReadResult read = ds::read_design(design);
+    REQUIRE(read.ok());
+    const ds::Results r = ds::size_design(*read.design);
+    REQUIRE(r.terminal.ignition_velocity_m_s);
+    CHECK(*r.terminal.ignition_velocity_m_s < 90.0);
+    CHECK(r.terminal.burn_time_s == 0.0);
+    CHECK(r.terminal.burned_propellant_kg == 0.0);
+    CHECK(r.terminal.propellant_kg == 0.0);
+    REQUIRE(r.terminal.touchdown_velocity_m_s);
+    CHECK(*r.terminal.touchdown_velocity_m_s == doctest::Approx(*r.terminal.ignition_velocity_m_s));
+    // The flight that ran out of its budget says so.
+    const bool trajectory_fails =
+        std::any_of(r.checks.begin(), r.checks.end(), [](const ds::Check& c) {
+            return c.id == "trajectory" && c.status == ds::CheckStatus::fail;
+        });
+    CHECK(trajectory_fails);
+}
+
+TEST_CASE("a capsule under a canopy sized for 2 m/s lands at 2 m/s after an hour's descent") {
+    // Found as a timeout of the fuzzer (corpus/regression-two-metres-per-second.json): 3400 s
+    // under a 20 m canopy give 7800 history samples, and the fuzzer's reading back of their
+    // 3 MB of JSON under the sanitizers took over a second. The sizing itself takes 0.15 s
+    // (Release); the fuzzer now walks the history in memory.
+    const std::string design = R"({
+      "format": "descent-sizer/design", "version": 1, "name": "slow canopy", "body": "earth",
+      "atmosphere": { "model": "standard" },
+      "site": { "elevation_m": 2600 },
+      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 11200,
+                 "flight_path_angle_deg": -8.5 },
+      "aeroshell": { "diameter_m": 0.9, "half_angle_deg": 60, "nose_radius_m": 0.23 },
+      "mass": { "entry_kg": 48, "heat_shield_kg": 0 },
+      "parachute": { "type": "ringsail",
+                     "diameter_m": { "size_for_velocity_m_s": 2.0, "at_height_above_site_m": 0 },
+                     "deploy_altitude_m": 10000 },
+      "terminal": { "method": "none" }
+    })";
+    const ds::DesignReadResult read = ds::read_design(design);
+    REQUIRE(read.ok());
+    const ds::Results r = ds::size_design(*read.design);
+    CHECK(r.converged);
+    // The canopy is sized for 2 m/s at the site, counting the drag of what hangs under it.
+    REQUIRE(r.terminal.touchdown_velocity_m_s);
+    CHECK(*r.terminal.touchdown_velocity_m_s == doctest::Approx(2.0).epsilon(0.01));
+    REQUIRE(r.parachute.diameter_m);
+    CHECK(*r.parachute.diameter_m > 10.0);
+}
+
+TEST_CASE("a stiff descent under a 10 km canopy stops at the step budget and says so") {
+    // A slow input (corpus/regression-stiff-descent.json): the reader takes any flight-time
+    // budget, and under a canopy kilometres wide the descent is stiff, so the step budget is what
+    // bounds the work (200000 steps, about 1 s per flight in Release). Kept small here.
+    const std::string design = R"({
+      "format": "descent-sizer/design", "version": 1, "name": "stiff", "body": "mars",
+      "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
+                      "scale_height_m": 11100, "temperature_K": 210 },
+      "site": { "elevation_m": -1500 },
+      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
+                 "flight_path_angle_deg": -13.0 },
+      "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65 },
+      "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+      "parachute": { "type": "disk-gap-band", "diameter_m": 10000.0, "mass_kg": 20,
+                     "deploy_mach": 1.8 },
+      "terminal": { "method": "none" },
+      "solver": { "max_time_s": 1e12, "max_steps": 2000 }
+    })";
+    const ds::DesignReadResult read = ds::read_design(design);
+    REQUIRE(read.ok());
+    const ds::Results r = ds::size_design(*read.design);
+    CHECK(r.parachute.deployed);
+    const auto trajectory = std::find_if(r.checks.begin(), r.checks.end(),
+                                         [](const ds::Check& c) { return c.id == "trajectory"; });
+    REQUIRE(trajectory != r.checks.end());
+    CHECK(trajectory->status == ds::CheckStatus::fail);
+    CHECK(trajectory->message ==
+          "the descent under the canopy stopped: the integration step budget ran out");
+}
