@@ -5,7 +5,7 @@ set -eu
 
 packages="cmake ninja-build g++ pkg-config
 libeigen3-dev libfmt-dev nlohmann-json3-dev libboost-dev libcli11-dev doctest-dev
-qt6-base-dev libqt6charts6-dev qt6-qpa-plugins fonts-dejavu-core"
+qt6-base-dev libqt6opengl6-dev qt6-charts-dev qt6-qpa-plugins fonts-dejavu-core"
 
 missing=""
 for p in $packages; do
