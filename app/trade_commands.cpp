@@ -16,6 +16,7 @@
 #include "trade/dispersion.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
+#include "trade/trade_csv.hpp"
 
 namespace ds {
 namespace {
@@ -80,6 +81,8 @@ int printSweep(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>&
                 row["error"] = c.error;
                 row["worst_status"] = "fail";
                 row["worst_check"] = "design";
+                row["feasibility_margin"] = nullptr;
+                row["margin_check"] = "design";
             } else {
                 const Json r = results_to_json(*c.results);
                 for (const char* section : {"entry", "parachute", "terminal", "mass", "capability"}) {
@@ -89,35 +92,20 @@ int printSweep(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>&
                 const WorstCheck worst = worst_check(*c.results);
                 row["worst_status"] = statusName(worst.status);
                 row["worst_check"] = worst.id;
+                const FeasibilityMargin margin = feasibility_margin(*c.results);
+                row["feasibility_margin"] = margin.margin ? Json(*margin.margin) : Json();
+                row["margin_check"] = margin.id;
             }
             rows.push_back(row);
         }
         fmt::print("{}\n", Json{{"rows", rows}}.dump(2));
         return 0;
     }
-    const std::vector<KeyFigure> header = key_figures(Results{});
     if (csv) {
-        std::string line;
-        for (const SweepAxis& a : axes) line += a.key + ",";
-        for (const KeyFigure& f : header) line += f.id + ",";
-        fmt::print("{}worst_status,worst_check\n", line);
-        for (const SweepCase& c : cases) {
-            line.clear();
-            for (const double v : c.inputs) line += fmt::format("{:.9g},", v);
-            if (c.results) {
-                for (const KeyFigure& f : key_figures(*c.results)) {
-                    line += f.value ? fmt::format("{:.9g},", *f.value) : std::string(",");
-                }
-                const WorstCheck w = worst_check(*c.results);
-                line += fmt::format("{},{}", statusName(w.status), w.id);
-            } else {
-                for (std::size_t i = 0; i < header.size(); ++i) line += ",";
-                line += "fail,design";
-            }
-            fmt::print("{}\n", line);
-        }
+        fmt::print("{}", sweep_csv(axes, cases));
         return 0;
     }
+    const std::vector<KeyFigure> header = key_figures(Results{});
     // A readable table of the figures a trade is usually about.
     const std::vector<std::string> shown{"ballistic_coefficient", "peak_deceleration",
                                          "peak_heat_flux",        "deploy_mach",
@@ -205,16 +193,19 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     disperse->add_option("--shard", o->shard, "I/N: run the I-th of N slices (for a batch array)");
     disperse->add_option("--threads", o->threads, "Threads (default: one per core)");
     disperse->add_flag("--json", o->json, "The summary and every case as JSON (what merge reads)");
+    disperse->add_flag("--csv", o->csv, "Every case as CSV: its draws, key figures and failed checks");
 
     CLI::App* merge = app.add_subcommand("merge", "Combine the --json outputs of disperse shards");
     merge->add_option("parts", o->parts, "Shard outputs")->required()->check(CLI::ExistingFile);
     merge->add_flag("--json", o->json, "The merged summary and cases as JSON");
+    merge->add_flag("--csv", o->csv, "The merged cases as CSV");
 
     CLI::App* sensitivity = app.add_subcommand(
         "sensitivity", "Normalised sensitivity of each key figure to each numeric input");
     sensitivity->add_option("design", o->design, "Design document")->required()->check(CLI::ExistingFile);
     sensitivity->add_option("--inputs", o->inputs, "Keys to vary (default: every number)")->delimiter(',');
     sensitivity->add_flag("--json", o->json, "The matrix as JSON");
+    sensitivity->add_flag("--csv", o->csv, "The matrix as CSV, a row per figure");
     sensitivity->add_option("--threads", o->threads, "Threads (default: one per core)");
 
     return [=]() -> int {
@@ -259,6 +250,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
             if (o->json) {
                 fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
                                         {"campaign", campaign_to_json(*campaign)}}.dump(1));
+            } else if (o->csv) {
+                fmt::print("{}", campaign_csv(*campaign));
             } else {
                 if (settings.shard_count > 1) {
                     fmt::print("shard {}/{} of the campaign (merge the --json outputs for the "
@@ -295,6 +288,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
             if (o->json) {
                 fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
                                         {"campaign", campaign_to_json(*merged)}}.dump(1));
+            } else if (o->csv) {
+                fmt::print("{}", campaign_csv(*merged));
             } else {
                 printSummary(summary);
             }
@@ -317,6 +312,10 @@ std::function<int()> addTradeCommands(CLI::App& app) {
                                         {"inputs", table.inputs},
                                         {"figures", table.figures},
                                         {"normalized", matrix}}.dump(2));
+                return 0;
+            }
+            if (o->csv) {
+                fmt::print("{}", sensitivity_csv(table));
                 return 0;
             }
             fmt::print("Normalised sensitivities d(ln figure)/d(ln input), central differences "

@@ -1,5 +1,6 @@
 #pragma once
 
+#include <optional>
 #include <string>
 #include <string_view>
 
@@ -18,6 +19,10 @@ struct Check {
     std::string unit;
     std::string message;  ///< in words a person understands, with the numbers
     std::string source;   ///< where the limit comes from
+    /// How far the value lies inside the limit whose crossing fails the check, as a fraction
+    /// of that limit: positive inside, negative past it, zero on it. Only checks that fail past
+    /// a limit have one (not the heritage envelope, not a trigger that was never reached).
+    std::optional<double> margin;
 };
 
 }  // namespace ds

@@ -21,7 +21,8 @@ std::string number(double value, std::string_view unit) {
 /// `beyond` is how far value lies past the limit as a fraction of it (positive = past it).
 Check judge(const LimitRule& rule, double value, double limit, double beyond, double band,
             std::string_view past_word, std::string_view within_word) {
-    Check c{rule.id, CheckStatus::pass, value, limit, rule.unit, "", rule.source};
+    Check c{rule.id, CheckStatus::pass, value, limit, rule.unit, "", rule.source, {}};
+    if (rule.severity == Severity::physics) c.margin = -beyond;
     const std::string v = number(value, rule.unit);
     const std::string l = number(limit, rule.unit);
     if (beyond > 0.0) {
@@ -48,7 +49,7 @@ double relative_excess(double value, double limit) {
 Check half_angle_check(double half_angle_deg, double heritage_deg, const std::string& source) {
     constexpr double same_angle_deg = 0.5;  // a heritage shape to within half a degree
     Check c{"aeroshell_half_angle", CheckStatus::pass, half_angle_deg, heritage_deg, "deg", "",
-            source};
+            source, {}};
     if (std::abs(half_angle_deg - heritage_deg) > same_angle_deg) {
         c.status = CheckStatus::marginal;
         c.message = fmt::format(
@@ -64,7 +65,9 @@ Check half_angle_check(double half_angle_deg, double heritage_deg, const std::st
 /// Negative margin fails (the sequence cannot complete); under the limit is marginal.
 Check timeline_check(double margin_s, double limit_s, double needed_s) {
     Check c{"timeline_margin", CheckStatus::pass, margin_s, limit_s, "s", "",
-            "sequence times of the design; marginal below the limit (common practice)"};
+            "sequence times of the design; marginal below the limit (common practice)",
+            // A sequence fails at zero margin: measured against the margin wanted.
+            margin_s / (limit_s > 0.0 ? limit_s : 1.0)};
     if (margin_s < 0.0) {
         c.status = CheckStatus::fail;
         c.message = fmt::format(
@@ -90,7 +93,7 @@ Check check_at_most(const LimitRule& rule, double value, double limit, double ma
 }
 
 Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band) {
-    return judge(rule, value, limit, relative_excess(limit, value), marginal_band, "below",
+    return judge(rule, value, limit, -relative_excess(value, limit), marginal_band, "below",
                  "above");
 }
 

@@ -102,7 +102,7 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
 Check flight_check(std::string id, CheckStatus status, double value, double limit,
                    std::string unit, std::string message, std::string source) {
     return {std::move(id), status, value, limit, std::move(unit), std::move(message),
-            std::move(source)};
+            std::move(source), std::nullopt};
 }
 
 std::string_view stop_reason_text(StopReason reason) {

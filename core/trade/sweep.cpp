@@ -23,6 +23,18 @@ WorstCheck worst_check(const Results& results) {
     return worst;
 }
 
+FeasibilityMargin feasibility_margin(const Results& results) {
+    FeasibilityMargin tightest;
+    for (const Check& c : results.checks) {
+        if (!c.margin) {
+            if (c.status == CheckStatus::fail) return {std::nullopt, c.id};
+            continue;
+        }
+        if (!tightest.margin || *c.margin < *tightest.margin) tightest = {c.margin, c.id};
+    }
+    return tightest;
+}
+
 std::vector<SweepCase> run_sweep(const DesignVariants& design, const std::vector<SweepAxis>& axes,
                                  unsigned threads, Progress* progress) {
     if (axes.empty() || axes.size() > 2) throw std::invalid_argument("a sweep varies one or two keys");

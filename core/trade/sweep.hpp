@@ -35,6 +35,16 @@ struct WorstCheck {
 };
 WorstCheck worst_check(const Results& results);
 
+/// How far a result lies inside the limits that fail it: the smallest margin (Check::margin)
+/// and the check that has it. A failed check without a margin (a trigger never reached, a
+/// flight that stopped) leaves the margin empty and names that check: infeasible, by an
+/// amount nobody can say. This is what a feasibility map colours, its zero the boundary.
+struct FeasibilityMargin {
+    std::optional<double> margin;
+    std::string id;
+};
+FeasibilityMargin feasibility_margin(const Results& results);
+
 /// A line (one axis) or a grid (two axes, the first varying slowest) of sizings.
 std::vector<SweepCase> run_sweep(const DesignVariants& design, const std::vector<SweepAxis>& axes,
                                  unsigned threads = 0, Progress* progress = nullptr);

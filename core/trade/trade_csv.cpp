@@ -1,0 +1,133 @@
+#include "trade/trade_csv.hpp"
+
+#include <cmath>
+#include <optional>
+
+#include <fmt/format.h>
+#include <fmt/ranges.h>
+
+#include "results/key_figures.hpp"
+
+namespace ds {
+namespace {
+
+/// A text field, quoted when it holds a comma, a quote or a line break (RFC 4180).
+std::string field(const std::string& text) {
+    if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
+    std::string quoted = "\"";
+    for (const char c : text) {
+        if (c == '"') quoted += '"';
+        quoted += c;
+    }
+    return quoted + '"';
+}
+
+std::string field(double value) { return std::isfinite(value) ? fmt::format("{:.9g}", value) : ""; }
+
+std::string field(const std::optional<double>& value) { return value ? field(*value) : ""; }
+
+/// Fields joined by commas, ended by a line break.
+class Row {
+public:
+    template <class T>
+    Row& operator<<(const T& value) {
+        if (m_started) m_text += ',';
+        m_started = true;
+        m_text += field(value);
+        return *this;
+    }
+    std::string line() const { return m_text + "\n"; }
+
+private:
+    std::string m_text;
+    bool m_started = false;
+};
+
+}  // namespace
+
+std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>& cases) {
+    const std::vector<KeyFigure> figures = key_figures(Results{});
+    Row head;
+    for (const SweepAxis& a : axes) head << a.key;
+    for (const KeyFigure& f : figures) head << f.id;
+    head << std::string("worst_status") << std::string("worst_check")
+         << std::string("feasibility_margin") << std::string("margin_check");
+    std::string out = head.line();
+    for (const SweepCase& c : cases) {
+        Row row;
+        for (const double v : c.inputs) row << v;
+        if (c.results) {
+            for (const KeyFigure& f : key_figures(*c.results)) row << f.value;
+            const WorstCheck worst = worst_check(*c.results);
+            const FeasibilityMargin margin = feasibility_margin(*c.results);
+            row << std::string(to_string(worst.status)) << worst.id << margin.margin << margin.id;
+        } else {
+            for (std::size_t i = 0; i < figures.size(); ++i) row << std::optional<double>{};
+            row << std::string("fail") << std::string("design") << std::optional<double>{}
+                << std::string("design");
+        }
+        out += row.line();
+    }
+    return out;
+}
+
+std::string campaign_csv(const DispersionCampaign& campaign) {
+    Row head;
+    head << std::string("case");
+    for (const DispersionDesign& d : campaign.dispersions) head << d.key;
+    for (const std::string& id : campaign.figure_ids) head << id;
+    head << std::string("success") << std::string("failed_checks");
+    std::string out = head.line();
+    for (const DispersedCase& c : campaign.cases) {
+        Row row;
+        row << std::to_string(c.index);
+        for (std::size_t d = 0; d < campaign.dispersions.size(); ++d) {
+            row << (d < c.draws.size() ? std::optional<double>(c.draws[d]) : std::nullopt);
+        }
+        for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
+            row << (f < c.figures.size() ? c.figures[f] : std::nullopt);
+        }
+        std::vector<std::string> failed = c.failed_checks;
+        if (!c.error.empty()) failed.emplace_back("design");
+        row << std::string(c.success ? "true" : "false") << fmt::format("{}", fmt::join(failed, ";"));
+        out += row.line();
+    }
+    return out;
+}
+
+std::string summary_csv(const DispersionSummary& summary) {
+    Row head;
+    for (const char* name : {"figure", "unit", "count", "mean", "standard_deviation", "p01", "p50", "p99"}) {
+        head << std::string(name);
+    }
+    std::string out = head.line();
+    for (const FigureStatistics& f : summary.figures) {
+        Row row;
+        row << f.id << f.unit << std::to_string(f.count);
+        if (f.count > 0) {
+            row << f.mean << f.standard_deviation << f.p01 << f.p50 << f.p99;
+        } else {
+            for (int i = 0; i < 5; ++i) row << std::optional<double>{};
+        }
+        out += row.line();
+    }
+    return out;
+}
+
+std::string sensitivity_csv(const SensitivityTable& table) {
+    Row head;
+    head << std::string("figure");
+    for (const std::string& input : table.inputs) head << input;
+    std::string out = head.line();
+    for (std::size_t f = 0; f < table.figures.size(); ++f) {
+        Row row;
+        row << table.figures[f];
+        for (std::size_t i = 0; i < table.inputs.size(); ++i) {
+            row << table.normalized(static_cast<Eigen::Index>(f), static_cast<Eigen::Index>(i));
+        }
+        out += row.line();
+    }
+    return out;
+}
+
+}  // namespace ds

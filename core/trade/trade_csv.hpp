@@ -1,0 +1,30 @@
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "trade/dispersion.hpp"
+#include "trade/sensitivity.hpp"
+#include "trade/sweep.hpp"
+
+namespace ds {
+
+/// Trade results as CSV (RFC 4180: a header row, commas, text quoted when it needs it, "."
+/// decimals, numbers to 9 significant digits, an empty field where there is no number). The
+/// command line and the window write the same files.
+
+/// One row per case: the varied keys, the key figures, the worst check's status and id, the
+/// feasibility margin and the check that sets it.
+std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>& cases);
+
+/// One row per dispersed case: its index, the drawn value of each dispersed key, the key
+/// figures, whether it succeeded and the checks that failed (separated by ";").
+std::string campaign_csv(const DispersionCampaign& campaign);
+
+/// One row per key figure: count, mean, standard deviation and the 1st, 50th, 99th percentiles.
+std::string summary_csv(const DispersionSummary& summary);
+
+/// One row per key figure, one column per input: d ln F / d ln x.
+std::string sensitivity_csv(const SensitivityTable& table);
+
+}  // namespace ds
