@@ -14,6 +14,7 @@
 #include <QPushButton>
 #include <QSplitter>
 #include <QStatusBar>
+#include <QTabWidget>
 #include <QUndoStack>
 
 #include "model/autosave.hpp"
@@ -24,6 +25,7 @@
 #include "views/checks_view.hpp"
 #include "views/design_form.hpp"
 #include "views/figures_view.hpp"
+#include "views/trade_view.hpp"
 
 namespace ds {
 namespace {
@@ -49,6 +51,7 @@ MainWindow::MainWindow(QWidget* parent)
     m_figures = new FiguresView(this);
     m_checks = new ChecksView(this);
     m_charts = new ChartsView(this);
+    m_trades = new TradeView(m_document, this);
 
     // Figures and checks side by side above the charts: a trade reads across all three.
     auto* tables = new QSplitter(Qt::Horizontal, this);
@@ -56,9 +59,13 @@ MainWindow::MainWindow(QWidget* parent)
     tables->addWidget(m_checks);
     tables->setStretchFactor(0, 2);
     tables->setStretchFactor(1, 3);
+    // The flight of the design and its trade studies share the space below the tables.
+    m_views = new QTabWidget(this);
+    m_views->addTab(m_charts, tr("&Flight"));
+    m_views->addTab(m_trades, tr("&Trade study"));
     auto* results = new QSplitter(Qt::Vertical, this);
     results->addWidget(tables);
-    results->addWidget(m_charts);
+    results->addWidget(m_views);
     results->setStretchFactor(0, 0);
     results->setStretchFactor(1, 1);
     results->setSizes({tablesHeight, 700});
@@ -134,6 +141,15 @@ void MainWindow::buildMenus() {
     trade->addAction(tr("&Pin current results as baseline"), QKeySequence(tr("Ctrl+B")), this,
                      &MainWindow::pinBaseline);
     trade->addAction(tr("&Clear baseline"), this, &MainWindow::clearBaseline);
+
+    QMenu* study = menuBar()->addMenu(tr("&Study"));
+    study->addAction(tr("Show the &trade study"), QKeySequence(tr("Ctrl+T")), this,
+                     [this] { m_views->setCurrentWidget(m_trades); });
+    study->addAction(tr("&Run the trade study"), QKeySequence(tr("Ctrl+R")), this, [this] {
+        m_views->setCurrentWidget(m_trades);
+        m_trades->run();
+    });
+    study->addAction(tr("&Cancel the trade study"), m_trades, &TradeView::cancel);
     updateRecentMenu();
 }
 
@@ -248,7 +264,8 @@ bool MainWindow::exportSheet(const QString& path, QString* error) {
         return false;
     }
     const SheetContext context{QStringLiteral(DESCENT_SIZER_VERSION), QDateTime::currentDateTime(),
-                               m_document->filePath()};
+                               m_document->filePath(), m_trades->currentOutcome(),
+                               m_trades->figure()};
     return writeSheet(path, m_runner->design(), m_runner->results(), context, error);
 }
 

@@ -11,6 +11,7 @@
 QT_BEGIN_NAMESPACE
 class QLabel;
 class QMenu;
+class QTabWidget;
 QT_END_NAMESPACE
 
 namespace ds {
@@ -22,6 +23,7 @@ class DesignDocument;
 class DesignForm;
 class FiguresView;
 class SizingRunner;
+class TradeView;
 struct RecoveredWork;
 
 /// What to do with work a session left unsaved: open it, delete it, or ask at the next start.
@@ -54,6 +56,7 @@ public:
     Autosave* autosave() const { return m_autosave; }
     FiguresView* figures() const { return m_figures; }
     ChecksView* checks() const { return m_checks; }
+    TradeView* trades() const { return m_trades; }
     bool hasBaseline() const { return m_baseline.has_value(); }
     /// Milliseconds from the edit to the redrawn views, for the last results shown.
     qint64 lastEditToRedrawMs() const { return m_lastEditToRedrawMs; }
@@ -88,6 +91,8 @@ private:
     FiguresView* m_figures;
     ChecksView* m_checks;
     ChartsView* m_charts;
+    TradeView* m_trades;
+    QTabWidget* m_views;
     QLabel* m_status;
     QMenu* m_recentMenu = nullptr;
     std::optional<Results> m_baseline;

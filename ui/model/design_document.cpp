@@ -145,11 +145,13 @@ void DesignDocument::apply(const std::vector<std::pair<std::string, Json>>& valu
     emit changed();
 }
 
+std::filesystem::path DesignDocument::baseDirectory() const {
+    return m_filePath.isEmpty() ? std::filesystem::path()
+                                : std::filesystem::path(QFileInfo(m_filePath).absolutePath().toStdString());
+}
+
 void DesignDocument::reread() {
-    const std::filesystem::path base =
-        m_filePath.isEmpty() ? std::filesystem::path()
-                             : std::filesystem::path(QFileInfo(m_filePath).absolutePath().toStdString());
-    DesignReadResult read = read_design(m_json.dump(), base);
+    DesignReadResult read = read_design_document(m_json, baseDirectory());
     m_design = std::move(read.design);
     m_errors = std::move(read.errors);
 }

@@ -1,5 +1,6 @@
 #pragma once
 
+#include <filesystem>
 #include <optional>
 #include <string>
 #include <vector>
@@ -37,6 +38,8 @@ public:
     const std::vector<ReadError>& errors() const { return m_errors; }
 
     QString filePath() const { return m_filePath; }
+    /// Where the design's relative paths (a table atmosphere) start: the file's folder.
+    std::filesystem::path baseDirectory() const;
     bool isModified() const;
     QUndoStack* undoStack() const { return m_undo; }
 

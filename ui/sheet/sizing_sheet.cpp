@@ -22,7 +22,9 @@
 
 #include "design/writer.hpp"
 #include "results/key_figures.hpp"
+#include "model/trade_runner.hpp"
 #include "views/charts.hpp"
+#include "views/trade_charts.hpp"
 
 namespace ds {
 namespace {
@@ -379,13 +381,15 @@ QString checksSection(const Results& results) {
     return section(QStringLiteral("Checks"), table.html());
 }
 
-/// One chart of the sheet, drawn.
+/// One chart of the sheet, drawn, and whether it belongs to the trade study.
 struct SheetChart {
     QString title;
     QImage image;
+    bool trade = false;
 };
 
-std::vector<SheetChart> sheetCharts(const Design& design, const Results& results) {
+std::vector<SheetChart> sheetCharts(const Design& design, const Results& results,
+                                    const SheetContext& context) {
     std::vector<std::unique_ptr<QChart>> charts;
     charts.emplace_back(altitudeVelocityChart(results, nullptr));
     charts.emplace_back(loadsChart(results, nullptr));
@@ -394,6 +398,28 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
     std::vector<SheetChart> drawn;
     for (const auto& chart : charts)
         drawn.push_back({chart->title(), renderChart(chart.get(), sheetChartSize)});
+    if (const TradeOutcome* trade = context.trade) {
+        const auto add = [&](QChart* chart) {
+            const std::unique_ptr<QChart> owned(chart);
+            drawn.push_back({chart->title(), renderChart(chart, sheetChartSize), true});
+        };
+        switch (trade->request.kind) {
+            case TradeKind::sweep:
+                if (trade->request.axes.size() == 2)
+                    drawn.push_back({QStringLiteral("Feasibility map"),
+                                     renderFeasibilityMap(*trade, sheetChartSize), true});
+                else
+                    add(sweepLineChart(*trade, context.tradeFigure));
+                break;
+            case TradeKind::dispersions:
+                add(dispersionHistogramChart(*trade, context.tradeFigure));
+                add(deployScatterChart(*trade));
+                break;
+            case TradeKind::sensitivities:
+                add(sensitivityChart(*trade, context.tradeFigure));
+                break;
+        }
+    }
     return drawn;
 }
 
@@ -401,17 +427,147 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
 /// resource name for the PDF's text document.
 using ImageSource = std::function<QString(std::size_t index, const QImage& image)>;
 
-QString chartsSection(const std::vector<SheetChart>& charts, const ImageSource& source, int width) {
+/// The charts of the flight or of the trade study, as images.
+QString chartImages(const std::vector<SheetChart>& charts, bool trade, const ImageSource& source,
+                    int width) {
     const int height = width * sheetChartSize.height() / sheetChartSize.width();
     QString body;
     for (std::size_t i = 0; i < charts.size(); ++i) {
+        if (charts[i].trade != trade)
+            continue;
         body += QStringLiteral("<p><img src=\"%1\" width=\"%2\" height=\"%3\" alt=\"%4\"></p>\n")
                     .arg(source(i, charts[i].image).toHtmlEscaped())
                     .arg(width)
                     .arg(height)
                     .arg(escaped(charts[i].title));
     }
-    return section(QStringLiteral("Charts"), body);
+    return body;
+}
+
+/// The rows of a sweep: the varied values, the figure shown, the worst check and the margin.
+QString sweepTable(const TradeOutcome& trade, const std::string& figureId) {
+    const std::vector<KeyFigure> header = key_figures(Results{});
+    std::size_t figure = 0;
+    while (figure + 1 < header.size() && header[figure].id != figureId)
+        ++figure;
+    QStringList headings;
+    for (const SweepAxis& axis : trade.request.axes)
+        headings << QString::fromStdString(axis.key);
+    headings << QStringLiteral("%1 (%2)").arg(QString::fromStdString(header[figure].label),
+                                              QString::fromStdString(header[figure].unit))
+             << QStringLiteral("worst check") << QStringLiteral("feasibility margin (%)");
+    HtmlTable table(headings);
+    for (const SweepCase& c : trade.sweep) {
+        std::vector<std::pair<QString, QString>> cells;
+        for (const double v : c.inputs)
+            cells.push_back({formatValue(v), numberCell});
+        if (!c.results) {
+            cells.push_back({QStringLiteral("—"), numberCell});
+            cells.push_back({QStringLiteral("cannot be read: %1").arg(QString::fromStdString(c.error)),
+                             QStringLiteral("fail")});
+            cells.push_back({QStringLiteral("—"), numberCell});
+        } else {
+            const KeyFigure value = key_figures(*c.results)[figure];
+            const WorstCheck worst = worst_check(*c.results);
+            const FeasibilityMargin margin = feasibility_margin(*c.results);
+            const QString status = QString::fromUtf8(to_string(worst.status));
+            cells.push_back({formatFixed(value.value, value.decimals), numberCell});
+            cells.push_back({worst.id.empty() ? status
+                                              : QStringLiteral("%1: %2").arg(status, QString::fromStdString(worst.id)),
+                             status});
+            cells.push_back({margin.margin ? QString::number(*margin.margin * 100.0, 'f', 1)
+                                           : QStringLiteral("none (%1)").arg(QString::fromStdString(margin.id)),
+                             numberCell});
+        }
+        table.addRow(cells);
+    }
+    return table.html();
+}
+
+QString dispersionTables(const TradeOutcome& trade) {
+    const DispersionSummary& s = trade.summary;
+    QString body = paragraph(
+        QStringLiteral("Success probability %1 % (%2 of %3 cases with no failing check); 95 % "
+                       "interval %4 to %5 % (Wilson score interval).")
+            .arg(s.success_probability * 100.0, 0, 'f', 2)
+            .arg(s.successes)
+            .arg(s.runs)
+            .arg(s.wilson_low * 100.0, 0, 'f', 2)
+            .arg(s.wilson_high * 100.0, 0, 'f', 2));
+    QStringList dispersed;
+    for (const DispersionDesign& d : trade.design.dispersions) {
+        dispersed << (d.distribution == DistributionKind::normal
+                          ? QStringLiteral("%1: normal, sigma %2").arg(QString::fromStdString(d.key), formatValue(d.sigma))
+                          : QStringLiteral("%1: uniform, %2 to %3")
+                                .arg(QString::fromStdString(d.key), formatValue(d.min), formatValue(d.max)));
+    }
+    body += paragraph(QStringLiteral("Dispersed inputs: %1.").arg(dispersed.join(QStringLiteral("; "))));
+    HtmlTable table({QStringLiteral("figure"), QStringLiteral("unit"), QStringLiteral("cases"),
+                     QStringLiteral("mean"), QStringLiteral("std dev"), QStringLiteral("1st pct"),
+                     QStringLiteral("median"), QStringLiteral("99th pct")});
+    for (const FigureStatistics& f : s.figures) {
+        if (f.count == 0)
+            continue;
+        table.addRow({{QString::fromStdString(f.id), keyCell},
+                      {QString::fromStdString(f.unit), {}},
+                      {QString::number(f.count), numberCell},
+                      {formatValue(f.mean), numberCell},
+                      {formatValue(f.standard_deviation), numberCell},
+                      {formatValue(f.p01), numberCell},
+                      {formatValue(f.p50), numberCell},
+                      {formatValue(f.p99), numberCell}});
+    }
+    body += table.html();
+    if (!s.failing_checks.empty()) {
+        HtmlTable failing({QStringLiteral("failing check"), QStringLiteral("cases"), QStringLiteral("share (%)")});
+        for (const auto& [id, count] : s.failing_checks) {
+            failing.addRow({{QString::fromStdString(id), keyCell},
+                            {QString::number(count), numberCell},
+                            {QString::number(100.0 * static_cast<double>(count) / static_cast<double>(s.runs), 'f', 2),
+                             numberCell}});
+        }
+        body += failing.html();
+    }
+    return body;
+}
+
+QString sensitivityTable(const TradeOutcome& trade) {
+    constexpr std::size_t drivers = 3;
+    const SensitivityTable& table = *trade.sensitivities;
+    HtmlTable html({QStringLiteral("figure"), QStringLiteral("strongest drivers, d ln(figure) / d ln(input)")});
+    for (std::size_t f = 0; f < table.figures.size(); ++f) {
+        const auto ranked = table.ranked(f);
+        QStringList text;
+        for (std::size_t k = 0; k < ranked.size() && k < drivers; ++k)
+            text << QStringLiteral("%1 %2").arg(QString::fromStdString(ranked[k].first))
+                        .arg(ranked[k].second, 0, 'f', 3);
+        html.addRow({{QString::fromStdString(table.figures[f]), keyCell},
+                     {text.isEmpty() ? QStringLiteral("—") : text.join(QStringLiteral("; ")), {}}});
+    }
+    return html.html();
+}
+
+/// The trade study of the design, when the window ran one: what it varied, its charts and its
+/// numbers. A long sweep's rows are left to its CSV export.
+QString tradeSection(const SheetContext& context, const std::vector<SheetChart>& charts,
+                     const ImageSource& source, int width) {
+    constexpr std::size_t mostSweepRows = 60;
+    const TradeOutcome& trade = *context.trade;
+    QString body = paragraph(QStringLiteral("%1, run in %2 s.")
+                                 .arg(trade.description())
+                                 .arg(trade.seconds, 0, 'f', 2));
+    body += chartImages(charts, true, source, width);
+    switch (trade.request.kind) {
+        case TradeKind::sweep:
+            body += trade.sweep.size() <= mostSweepRows
+                        ? sweepTable(trade, context.tradeFigure)
+                        : paragraph(QStringLiteral("%1 cases: their rows are in the study's CSV export.")
+                                        .arg(trade.sweep.size()));
+            break;
+        case TradeKind::dispersions: body += dispersionTables(trade); break;
+        case TradeKind::sensitivities: body += sensitivityTable(trade); break;
+    }
+    return section(QStringLiteral("Trade study"), body);
 }
 
 QString composeSheet(const Design& design, const Results& results, const SheetContext& context,
@@ -440,7 +596,9 @@ QString composeSheet(const Design& design, const Results& results, const SheetCo
     html += massSection(results);
     html += timelineSection(design, results);
     html += checksSection(results);
-    html += chartsSection(charts, source, chartWidth);
+    html += section(QStringLiteral("Charts"), chartImages(charts, false, source, chartWidth));
+    if (context.trade)
+        html += tradeSection(context, charts, source, chartWidth);
     html += QStringLiteral("</body>\n</html>\n");
     return html;
 }
@@ -504,7 +662,7 @@ bool writePdf(QIODevice& device, const Design& design, const Results& results,
         document.addResource(QTextDocument::ImageResource, QUrl(name), image);
         return name;
     };
-    document.setHtml(composeSheet(design, results, context, sheetCharts(design, results), resource,
+    document.setHtml(composeSheet(design, results, context, sheetCharts(design, results, context), resource,
                                   pdfChartWidth));
     const QSizeF page(writer.width(), writer.height() - pdfFooterHeight);
     document.setPageSize(page);
@@ -539,7 +697,7 @@ QString sheetCaution() {
 
 QString sheetHtml(const Design& design, const Results& results, const SheetContext& context) {
     const ImageSource embedded = [](std::size_t, const QImage& image) { return dataUri(image); };
-    return composeSheet(design, results, context, sheetCharts(design, results), embedded,
+    return composeSheet(design, results, context, sheetCharts(design, results, context), embedded,
                         sheetChartSize.width());
 }
 

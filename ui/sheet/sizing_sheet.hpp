@@ -1,5 +1,7 @@
 #pragma once
 
+#include <string>
+
 #include <QDateTime>
 #include <QString>
 
@@ -8,11 +10,17 @@
 
 namespace ds {
 
+struct TradeOutcome;
+
 /// What a sheet says about where it came from.
 struct SheetContext {
     QString toolVersion;
     QDateTime date;
     QString designFile;  ///< may be empty for an unsaved design
+    /// A trade study of this design to include, when one was run; not owned.
+    const TradeOutcome* trade = nullptr;
+    /// The key figure the trade study's charts show ("peak_deceleration").
+    std::string tradeFigure = "peak_deceleration";
 };
 
 /// The caution printed on every sheet.
@@ -20,7 +28,8 @@ QString sheetCaution();
 
 /// The sizing sheet as one HTML document: title, design name, date, tool version, the caution,
 /// the inputs with units, the key figures, the mass budget with growth allowances, the
-/// timeline, every check, and the charts (PNG images embedded as data).
+/// timeline, every check, the charts (PNG images embedded as data), and the trade study when
+/// the context has one.
 QString sheetHtml(const Design& design, const Results& results, const SheetContext& context);
 
 /// The trajectory history as CSV, one row per sample, a header naming each column with its unit.

@@ -25,31 +25,17 @@
 #include <QStackedBarSeries>
 #include <QValueAxis>
 
+#include "views/chart_style.hpp"
+
 namespace ds {
 namespace {
 
-// The charts' own look: ink on white, one colour per quantity, the baseline in grey.
-const QColor primaryInk(0x1f, 0x4e, 0x79);    // the left-axis quantity
-const QColor secondaryInk(0xa0, 0x3a, 0x13);  // the right-axis quantity
-const QColor baselineInk(0x80, 0x80, 0x80);
-const QColor eventInk(0x20, 0x20, 0x20);
-const QColor windowFill(0x3c, 0x9d, 0x5d, 60);  // translucent: the lines stay readable
 const QColor totalFill(0x1f, 0x4e, 0x79);
 const QColor droppedFill(0xc8, 0x8a, 0x3a);
 
-constexpr double resultLineWidth = 2.0;
-constexpr double baselineLineWidth = 1.5;
 constexpr double eventMarkerSize = 8.0;
 constexpr double metresPerKilometre = 1000.0;
 constexpr double pascalsPerKilopascal = 1000.0;
-constexpr int targetTickIntervals = 5;
-constexpr double keyFontScale = 0.9;
-constexpr double keyPadding = 4.0;
-constexpr double keyOffset = 8.0;
-constexpr double keyZValue = 100.0;  // above the series
-/// An axis end rounded out to a tick may leave this fraction of the span empty, no more.
-constexpr double roundingWasteFraction = 0.1;
-constexpr double axisPadFraction = 0.02;
 /// Events closer than this fraction of both axis spans share one marker and label.
 constexpr double eventMergeFraction = 0.02;
 
@@ -58,95 +44,6 @@ constexpr double negligibleKg = 0.05;
 
 /// The label of the invisible bars the waterfall's steps stand on.
 const QString waterfallBaseLabel = QStringLiteral("base");
-
-QChart* newChart(const QString& title) {
-    auto* chart = new QChart;
-    chart->setTheme(QChart::ChartThemeLight);
-    chart->setAnimationOptions(QChart::NoAnimation);
-    chart->setBackgroundBrush(Qt::white);
-    chart->setBackgroundRoundness(0.0);
-    chart->setDropShadowEnabled(false);
-    chart->setTitle(title);
-    QFont titleFont = chart->titleFont();
-    titleFont.setBold(true);
-    titleFont.setPointSizeF(titleFont.pointSizeF() * 1.1);
-    chart->setTitleFont(titleFont);
-    chart->legend()->setAlignment(Qt::AlignBottom);
-    return chart;
-}
-
-QPen resultPen(const QColor& colour) {
-    QPen pen(colour);
-    pen.setWidthF(resultLineWidth);
-    return pen;
-}
-
-QPen baselinePen(Qt::PenStyle style = Qt::DashLine) {
-    QPen pen(baselineInk);
-    pen.setWidthF(baselineLineWidth);
-    pen.setStyle(style);
-    return pen;
-}
-
-/// A value axis on one side of the chart, its labels in the colour of what it measures.
-QValueAxis* addValueAxis(QChart* chart, const QString& title, Qt::Alignment side,
-                         const QColor& colour = Qt::black) {
-    auto* axis = new QValueAxis;
-    axis->setTitleText(title);
-    axis->setLabelFormat(QStringLiteral("%g"));
-    axis->setLabelsColor(colour);
-    QBrush titleBrush(colour);
-    axis->setTitleBrush(titleBrush);
-    // One grid, the left axis's: a second would not line up with it.
-    axis->setGridLineVisible(side != Qt::AlignRight);
-    chart->addAxis(axis, side);
-    return axis;
-}
-
-/// A tick interval of 1, 2 or 5 times a power of ten giving about `ticks` intervals over span.
-double niceInterval(double span, int ticks) {
-    const double raw = span / ticks;
-    const double decade = std::pow(10.0, std::floor(std::log10(raw)));
-    for (const double step : {1.0, 2.0, 5.0}) {
-        if (step * decade >= raw)
-            return step * decade;
-    }
-    return 10.0 * decade;
-}
-
-/// Sets an axis to hold [low, high], ticks on round values from zero. An end is rounded out
-/// to a tick only when that wastes little of the plot; otherwise it gets a small pad.
-void setNiceRange(QValueAxis* axis, double low, double high) {
-    if (!std::isfinite(low) || !std::isfinite(high)) {  // nothing finite to show
-        low = 0.0;
-        high = 1.0;
-    }
-    if (!(high > low)) {
-        low -= 0.5;
-        high += 0.5;
-    }
-    const double span = high - low;
-    const double interval = niceInterval(span, targetTickIntervals);
-    const double roundedLow = std::floor(low / interval) * interval;
-    const double roundedHigh = std::ceil(high / interval) * interval;
-    const double pad = axisPadFraction * span;
-    axis->setRange(low - roundedLow <= roundingWasteFraction * span ? roundedLow : low - pad,
-                   roundedHigh - high <= roundingWasteFraction * span ? roundedHigh : high + pad);
-    axis->setTickType(QValueAxis::TicksDynamic);
-    axis->setTickAnchor(0.0);
-    axis->setTickInterval(interval);
-}
-
-void attach(QChart* chart, QAbstractSeries* series, QAbstractAxis* x, QAbstractAxis* y) {
-    chart->addSeries(series);
-    series->attachAxis(x);
-    series->attachAxis(y);
-}
-
-void hideFromLegend(QChart* chart, QAbstractSeries* series) {
-    for (QLegendMarker* marker : chart->legend()->markers(series))
-        marker->setVisible(false);
-}
 
 /// A line through the history, one point per sample.
 QLineSeries* historySeries(const std::vector<TrajectorySample>& history, const QString& name,
@@ -163,19 +60,6 @@ QLineSeries* historySeries(const std::vector<TrajectorySample>& history, const Q
     return series;
 }
 
-/// The smallest and largest of a quantity over the results and the baseline.
-struct Span {
-    double low = std::numeric_limits<double>::infinity();
-    double high = -std::numeric_limits<double>::infinity();
-
-    void include(double value) {
-        if (!std::isfinite(value))
-            return;
-        low = std::min(low, value);
-        high = std::max(high, value);
-    }
-};
-
 Span spanOf(const Results& results, const Results* baseline,
             const std::function<double(const TrajectorySample&)>& quantity) {
     Span span;
@@ -186,6 +70,25 @@ Span spanOf(const Results& results, const Results* baseline,
             span.include(quantity(sample));
     }
     return span;
+}
+
+/// One quantity of the baseline against time, on its own axis.
+struct BaselineCurve {
+    QString name;
+    std::function<QPointF(const TrajectorySample&)> point;
+    QValueAxis* axis;
+};
+
+/// The baseline of a two-axis chart: the left quantity dashed, the right dash-dotted.
+void attachBaselinePair(QChart* chart, const Results* baseline, const BaselineCurve& left,
+                        const BaselineCurve& right, QValueAxis* timeAxis) {
+    if (!baseline || baseline->history.empty())
+        return;
+    attach(chart, historySeries(baseline->history, left.name, baselinePen(Qt::DashLine), left.point),
+           timeAxis, left.axis);
+    attach(chart,
+           historySeries(baseline->history, right.name, baselinePen(Qt::DashDotLine), right.point),
+           timeAxis, right.axis);
 }
 
 /// A single marked point with its label written beside it; kept out of the legend.
@@ -204,33 +107,6 @@ QScatterSeries* eventMarker(const QString& label, QPointF point) {
     marker->setPointLabelsColor(eventInk);
     marker->setPointLabelsClipping(false);
     return marker;
-}
-
-/// A boxed key in the plot's top-left corner, following the plot area when it moves.
-void addKey(QChart* chart, const QString& text) {
-    auto* box = new QGraphicsRectItem(chart);
-    auto* label = new QGraphicsSimpleTextItem(text, box);
-    QFont font = label->font();
-    font.setPointSizeF(font.pointSizeF() * keyFontScale);
-    label->setFont(font);
-    label->setBrush(eventInk);
-    label->setPos(keyPadding, keyPadding);
-    box->setRect(label->boundingRect().adjusted(0.0, 0.0, 2.0 * keyPadding, 2.0 * keyPadding));
-    box->setBrush(Qt::white);
-    box->setPen(QPen(baselineInk, 0.0));
-    box->setZValue(keyZValue);
-    const auto place = [box](const QRectF& plotArea) {
-        box->setPos(plotArea.topLeft() + QPointF(keyOffset, keyOffset));
-    };
-    place(chart->plotArea());
-    QObject::connect(chart, &QChart::plotAreaChanged, chart, place);
-}
-
-/// A chart with nothing to draw, its title saying why.
-QChart* emptyChart(const QString& title, const QString& reason = QStringLiteral("no trajectory")) {
-    QChart* chart = newChart(QStringLiteral("%1 (%2)").arg(title, reason));
-    chart->legend()->hide();
-    return chart;
 }
 
 /// The time intervals over which the history lies inside the deploy window, with the
@@ -375,16 +251,8 @@ QChart* loadsChart(const Results& results, const Results* baseline) {
     const auto convective = [](const TrajectorySample& s) {
         return QPointF(s.time_s, s.heat_flux_W_cm2);
     };
-    if (baseline && !baseline->history.empty()) {
-        attach(chart,
-               historySeries(baseline->history, QStringLiteral("baseline deceleration"),
-                             baselinePen(Qt::DashLine), deceleration),
-               timeAxis, loadAxis);
-        attach(chart,
-               historySeries(baseline->history, QStringLiteral("baseline heat flux"),
-                             baselinePen(Qt::DashDotLine), convective),
-               timeAxis, heatAxis);
-    }
+    attachBaselinePair(chart, baseline, {QStringLiteral("baseline deceleration"), deceleration, loadAxis},
+                       {QStringLiteral("baseline heat flux"), convective, heatAxis}, timeAxis);
     attach(chart,
            historySeries(results.history, QStringLiteral("deceleration"), resultPen(primaryInk),
                          deceleration),
@@ -454,16 +322,8 @@ QChart* machPressureChart(const Design& design, const Results& results, const Re
     const auto pressurePoint = [](const TrajectorySample& s) {
         return QPointF(s.time_s, s.dynamic_pressure_Pa / pascalsPerKilopascal);
     };
-    if (baseline && !baseline->history.empty()) {
-        attach(chart,
-               historySeries(baseline->history, QStringLiteral("baseline Mach"),
-                             baselinePen(Qt::DashLine), machPoint),
-               timeAxis, machAxis);
-        attach(chart,
-               historySeries(baseline->history, QStringLiteral("baseline pressure"),
-                             baselinePen(Qt::DashDotLine), pressurePoint),
-               timeAxis, pressureAxis);
-    }
+    attachBaselinePair(chart, baseline, {QStringLiteral("baseline Mach"), machPoint, machAxis},
+                       {QStringLiteral("baseline pressure"), pressurePoint, pressureAxis}, timeAxis);
     attach(chart,
            historySeries(results.history, QStringLiteral("Mach number"), resultPen(primaryInk),
                          machPoint),

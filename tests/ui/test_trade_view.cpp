@@ -1,0 +1,264 @@
+// The trade study page as a user drives it, under the offscreen platform: each study runs on
+// worker threads and shows its plot, the window's numbers are the core's, a cancel answers at
+// once, the study exports to CSV and goes into the sizing sheet, and an edit makes it stale.
+
+#include <fstream>
+
+#include <QChart>
+#include <QChartView>
+#include <QElapsedTimer>
+#include <QFile>
+#include <QImage>
+#include <QLineSeries>
+#include <QPushButton>
+#include <QScatterSeries>
+#include <QSignalSpy>
+#include <QTabWidget>
+#include <QTemporaryDir>
+#include <QTest>
+
+#include "design/reader.hpp"
+#include "main_window.hpp"
+#include "model/design_document.hpp"
+#include "model/trade_runner.hpp"
+#include "trade/contour.hpp"
+#include "trade/design_variants.hpp"
+#include "trade/dispersion.hpp"
+#include "views/trade_charts.hpp"
+#include "views/trade_view.hpp"
+
+using namespace ds;
+
+namespace {
+
+const QString sample = QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/small-ballistic-station.json");
+
+bool waitForStudy(TradeView* view) {
+    QSignalSpy shown(view, &TradeView::studyShown);
+    return shown.wait(60000);
+}
+
+/// The window's tab at its usual size, saved when DESCENT_SIZER_SCREENSHOTS names a folder
+/// (to look at the plots as a user would; nothing is asserted of the files).
+void keepScreenshot(MainWindow& window, const QString& name) {
+    const QByteArray folder = qgetenv("DESCENT_SIZER_SCREENSHOTS");
+    if (folder.isEmpty()) return;
+    window.resize(1500, 950);
+    window.findChild<QTabWidget*>()->setCurrentWidget(window.trades());
+    window.show();
+    QTest::qWait(50);
+    window.grab().save(QString::fromLocal8Bit(folder) + QLatin1Char('/') + name);
+}
+
+int pointsIn(const QChart* chart, const QString& seriesName) {
+    for (QAbstractSeries* s : chart->series()) {
+        if (s->name() == seriesName) {
+            if (auto* xy = qobject_cast<QXYSeries*>(s)) return static_cast<int>(xy->count());
+        }
+    }
+    return -1;
+}
+
+}  // namespace
+
+class TradeViewTest : public QObject {
+    Q_OBJECT
+private slots:
+    void oneKeySweepPlotsTheFigureAndTheMargin() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        trades->setSweep({{"aeroshell.diameter_m", 2.2, 3.4, 7}});
+        trades->setFigure("ballistic_coefficient");
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+        const TradeOutcome* outcome = trades->currentOutcome();
+        QVERIFY(outcome);
+        QCOMPARE(outcome->sweep.size(), std::size_t(7));
+        // Ballistic coefficient m / (Cd A) falls as the diameter grows, case by case.
+        for (std::size_t i = 1; i < outcome->sweep.size(); ++i) {
+            QVERIFY(outcome->sweep[i].results->entry.ballistic_coefficient_kg_m2 <
+                    outcome->sweep[i - 1].results->entry.ballistic_coefficient_kg_m2);
+        }
+        auto* view = trades->findChild<QChartView*>("sweepLine");
+        QVERIFY(view);
+        QCOMPARE(pointsIn(view->chart(), QStringLiteral("ballistic coefficient")), 7);
+        QCOMPARE(pointsIn(view->chart(), QStringLiteral("feasibility margin")), 7);
+        keepScreenshot(window, "trade-line.png");
+    }
+
+    void twoKeyMapColoursBothSidesAndDrawsTheBoundary() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        // Over these ranges the small station fails steep (deceleration) and narrow
+        // (deploy pressure) and passes in between: the map must show both and the line.
+        trades->setSweep({{"aeroshell.diameter_m", 1.8, 3.6, 10},
+                          {"entry.flight_path_angle_deg", -19.0, -11.0, 9}});
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+        const TradeOutcome* outcome = trades->currentOutcome();
+        QVERIFY(outcome);
+        QCOMPARE(outcome->sweep.size(), std::size_t(90));
+        int feasible = 0;
+        int infeasible = 0;
+        std::vector<double> margins;
+        for (const SweepCase& c : outcome->sweep) {
+            const auto m = feasibility_margin(*c.results).margin;
+            margins.push_back(m ? *m : std::nan(""));
+            if (m && *m >= 0.0) ++feasible;
+            if (!m || *m < 0.0) ++infeasible;
+        }
+        QVERIFY(feasible > 0);
+        QVERIFY(infeasible > 0);
+        std::vector<double> x, y;
+        for (int i = 0; i < 10; ++i) x.push_back(outcome->request.axes[0].value(i));
+        for (int j = 0; j < 9; ++j) y.push_back(outcome->request.axes[1].value(j));
+        QVERIFY(!zero_contour(x, y, margins).empty());
+
+        // The picture: some cells green (feasible), some red (not), and black boundary ink.
+        const QImage map = renderFeasibilityMap(*outcome, QSize(900, 500));
+        keepScreenshot(window, "trade-map.png");
+        if (!qEnvironmentVariableIsEmpty("DESCENT_SIZER_SCREENSHOTS"))
+            map.save(qEnvironmentVariable("DESCENT_SIZER_SCREENSHOTS") + "/trade-map-image.png");
+        int green = 0, red = 0, black = 0;
+        for (int py = 40; py < 440; py += 4) {
+            for (int px = 80; px < 750; px += 4) {
+                const QColor c = map.pixelColor(px, py);
+                if (c.green() > c.red() + 20) ++green;
+                if (c.red() > c.green() + 20) ++red;
+                if (c.red() < 40 && c.green() < 40 && c.blue() < 40) ++black;
+            }
+        }
+        QVERIFY(green > 50);
+        QVERIFY(red > 50);
+        QVERIFY(black > 10);
+    }
+
+    void dispersionsInTheWindowAreTheCommandLinesNumbers() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        trades->setDispersions(300, 11);
+        trades->setFigure("peak_heat_flux");
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+        const TradeOutcome* outcome = trades->currentOutcome();
+        QVERIFY(outcome && outcome->campaign);
+
+        // The same seed in the core (what `descent-sizer disperse` runs), on one thread.
+        const DesignReadResult read = read_design_file(sample.toStdString());
+        QVERIFY(read.ok());
+        DispersionSettings settings;
+        settings.runs = 300;
+        settings.seed = 11;
+        settings.threads = 1;
+        auto [campaign, error] =
+            run_dispersions(*read.design, std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), settings);
+        QVERIFY(campaign);
+        const DispersionSummary direct = summarize(*campaign);
+        QCOMPARE(outcome->summary.successes, direct.successes);
+        for (std::size_t f = 0; f < direct.figures.size(); ++f) {
+            QCOMPARE(outcome->summary.figures[f].mean, direct.figures[f].mean);  // to the last digit
+            QCOMPARE(outcome->summary.figures[f].p99, direct.figures[f].p99);
+        }
+        // The deploy scatter holds every case that deployed, split by success.
+        std::unique_ptr<QChart> scatter(deployScatterChart(*outcome));
+        int deployed = 0;
+        for (const DispersedCase& c : outcome->campaign->cases) deployed += c.figures[7].has_value();
+        const int shown = std::max(0, pointsIn(scatter.get(), "succeeded")) +
+                          std::max(0, pointsIn(scatter.get(), "a check failed"));
+        QCOMPARE(shown, deployed);
+        keepScreenshot(window, "trade-dispersions.png");
+    }
+
+    void cancelReturnsTheWindowAtOnce() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        trades->setDispersions(1000000, 3);  // minutes of work
+        QVERIFY(trades->run());
+        QTest::qWait(200);
+        QVERIFY(trades->runner()->isRunning());
+        QElapsedTimer clock;
+        clock.start();
+        trades->cancel();
+        const qint64 cancelMs = clock.elapsed();
+        QVERIFY(!trades->runner()->isRunning());
+        QVERIFY2(cancelMs < 50, qPrintable(QString("cancel took %1 ms").arg(cancelMs)));
+        QVERIFY(trades->findChild<QPushButton*>()->isEnabled());  // Run, the first button
+        // A new study runs and finishes while the cancelled one winds down.
+        trades->setSweep({{"entry.velocity_m_s", 5500.0, 6000.0, 3}});
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+        QCOMPARE(trades->currentOutcome()->sweep.size(), std::size_t(3));
+    }
+
+    void sensitivitiesMatchTheClosedForm() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        trades->setSensitivities();
+        trades->setFigure("ballistic_coefficient");
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+        const SensitivityTable& table = *trades->currentOutcome()->sensitivities;
+        const auto input = std::find(table.inputs.begin(), table.inputs.end(), "mass.entry_kg");
+        const auto figure = std::find(table.figures.begin(), table.figures.end(), "ballistic_coefficient");
+        QVERIFY(input != table.inputs.end() && figure != table.figures.end());
+        // beta = m / (Cd A), Cd and A independent of the mass: d ln beta / d ln m = +1 exactly.
+        const double s = table.normalized(figure - table.figures.begin(), input - table.inputs.begin());
+        QVERIFY2(std::abs(s - 1.0) < 1e-6, qPrintable(QString::number(s, 'g', 12)));
+        // The whole matrix is the core's, to the last digit (NaN where undefined).
+        std::ifstream in(sample.toStdString());
+        const SensitivityTable direct = sensitivities(
+            DesignVariants(nlohmann::ordered_json::parse(in), DESCENT_SIZER_SAMPLES_DIR), {}, 1);
+        QCOMPARE(direct.inputs, table.inputs);
+        for (Eigen::Index f = 0; f < direct.normalized.rows(); ++f) {
+            for (Eigen::Index i = 0; i < direct.normalized.cols(); ++i) {
+                const double a = direct.normalized(f, i);
+                const double b = table.normalized(f, i);
+                QVERIFY((std::isnan(a) && std::isnan(b)) || a == b);
+            }
+        }
+        keepScreenshot(window, "trade-sensitivities.png");
+    }
+
+    void exportsCsvAndFillsTheSheetUntilTheDesignChanges() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        trades->setSweep({{"entry.flight_path_angle_deg", -16.0, -10.0, 4}});
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+
+        QTemporaryDir dir;
+        QString error;
+        const QString csv = dir.filePath("sweep.csv");
+        QVERIFY2(trades->exportCsv(csv, &error), qPrintable(error));
+        QFile file(csv);
+        QVERIFY(file.open(QIODevice::ReadOnly));
+        const QList<QByteArray> lines = file.readAll().trimmed().split('\n');
+        QCOMPARE(lines.size(), 5);  // the header and four cases
+        QVERIFY(lines[0].startsWith("entry.flight_path_angle_deg,"));
+
+        const QString sheet = dir.filePath("sheet.html");
+        QVERIFY(QTest::qWaitFor([&] { return window.exportSheet(sheet, &error); }, 10000));
+        QFile html(sheet);
+        QVERIFY(html.open(QIODevice::ReadOnly));
+        const QString text = QString::fromUtf8(html.readAll());
+        QVERIFY(text.contains("<h2>Trade study</h2>"));
+        QVERIFY(text.contains("Sweep of entry.flight_path_angle_deg from -16 to -10 (4 values)"));
+
+        // An edit makes the study stale: it leaves the sheet until it is run again.
+        window.document()->setValue("/entry/velocity_m_s", 5900.0, "velocity");
+        QVERIFY(!trades->currentOutcome());
+        QVERIFY(window.exportSheet(sheet, &error));
+        QFile again(sheet);
+        QVERIFY(again.open(QIODevice::ReadOnly));
+        QVERIFY(!QString::fromUtf8(again.readAll()).contains("<h2>Trade study</h2>"));
+    }
+};
+
+QTEST_MAIN(TradeViewTest)
+#include "test_trade_view.moc"

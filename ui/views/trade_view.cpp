@@ -1,0 +1,459 @@
+#include "views/trade_view.hpp"
+
+#include <cmath>
+#include <limits>
+#include <memory>
+
+#include <QChart>
+#include <QChartView>
+#include <QComboBox>
+#include <QDoubleValidator>
+#include <QFileDialog>
+#include <QGridLayout>
+#include <QHBoxLayout>
+#include <QLabel>
+#include <QLineEdit>
+#include <QLocale>
+#include <QMessageBox>
+#include <QProgressBar>
+#include <QPushButton>
+#include <QSaveFile>
+#include <QSpinBox>
+#include <QStackedWidget>
+#include <QVBoxLayout>
+
+#include "model/design_document.hpp"
+#include "model/trade_runner.hpp"
+#include "results/key_figures.hpp"
+#include "trade/design_variants.hpp"
+#include "views/trade_charts.hpp"
+
+namespace ds {
+namespace {
+
+enum Page { introPage, linePage, mapPage, dispersionPage, sensitivityPage };
+enum KindIndex { oneKeyIndex, twoKeyIndex, dispersionIndex, sensitivityIndex };
+
+// Defaults: a line fine enough to show a trend, a grid coarse enough to run in about a second
+// (225 sizings), a campaign big enough for percentiles (our choices).
+constexpr int defaultLineCount = 21;
+constexpr int defaultGridCount = 15;
+constexpr int mostSweepValues = 201;
+constexpr int defaultRuns = 1000;
+constexpr int mostRuns = 1000000;
+/// A key's suggested sweep: its value less and more this fraction.
+constexpr double suggestedSpread = 0.2;
+constexpr int progressSteps = 1000;
+constexpr double percent = 100.0;
+/// The failing checks the summary names.
+constexpr std::size_t summaryChecks = 5;
+
+const char* const defaultFigure = "peak_deceleration";
+
+QString text(const std::string& s) { return QString::fromStdString(s); }
+
+QString distributionText(const DispersionDesign& d) {
+    return d.distribution == DistributionKind::normal
+               ? QStringLiteral("%1 normal, σ %2").arg(text(d.key)).arg(d.sigma)
+               : QStringLiteral("%1 uniform, %2 to %3").arg(text(d.key)).arg(d.min).arg(d.max);
+}
+
+QChartView* chartView(QWidget* parent) {
+    auto* view = new QChartView(new QChart, parent);
+    view->setRenderHint(QPainter::Antialiasing);
+    view->setMinimumSize(320, 260);
+    return view;
+}
+
+}  // namespace
+
+TradeView::TradeView(DesignDocument* document, QWidget* parent)
+    : QWidget(parent), m_document(document), m_runner(new TradeRunner(this)) {
+    m_kind = new QComboBox(this);
+    m_kind->addItems({tr("Sweep one input"), tr("Sweep two inputs (feasibility map)"),
+                      tr("Dispersions (Monte Carlo)"), tr("Sensitivities")});
+    m_figure = new QComboBox(this);
+    for (const KeyFigure& f : key_figures(Results{})) {
+        m_figure->addItem(text(f.label), text(f.id));
+    }
+    m_figure->setCurrentIndex(m_figure->findData(QString::fromLatin1(defaultFigure)));
+    m_run = new QPushButton(tr("&Run"), this);
+    m_cancel = new QPushButton(tr("Cancel"), this);
+    m_cancel->setEnabled(false);
+    m_export = new QPushButton(tr("Export CSV..."), this);
+    m_export->setEnabled(false);
+    m_progress = new QProgressBar(this);
+    m_progress->setRange(0, progressSteps);
+    m_progress->setValue(0);
+
+    auto* top = new QHBoxLayout;
+    top->addWidget(new QLabel(tr("Study:"), this));
+    top->addWidget(m_kind);
+    top->addSpacing(12);
+    top->addWidget(new QLabel(tr("Figure:"), this));
+    top->addWidget(m_figure);
+    top->addSpacing(12);
+    top->addWidget(m_run);
+    top->addWidget(m_cancel);
+    top->addWidget(m_progress, 1);
+    top->addWidget(m_export);
+
+    m_axes[0] = addAxisRow(tr("Vary"), 0);
+    m_axes[1] = addAxisRow(tr("and"), 1);
+
+    m_dispersionRow = new QWidget(this);
+    auto* dispersion = new QHBoxLayout(m_dispersionRow);
+    dispersion->setContentsMargins(0, 0, 0, 0);
+    m_runs = new QSpinBox(m_dispersionRow);
+    m_runs->setRange(10, mostRuns);
+    m_runs->setSingleStep(1000);
+    m_runs->setValue(defaultRuns);
+    m_seed = new QSpinBox(m_dispersionRow);
+    m_seed->setRange(0, std::numeric_limits<int>::max());
+    m_seed->setValue(1);
+    m_dispersionList = new QLabel(m_dispersionRow);
+    m_dispersionList->setWordWrap(true);
+    dispersion->addWidget(new QLabel(tr("Cases"), m_dispersionRow));
+    dispersion->addWidget(m_runs);
+    dispersion->addWidget(new QLabel(tr("Seed"), m_dispersionRow));
+    dispersion->addWidget(m_seed);
+    dispersion->addSpacing(12);
+    dispersion->addWidget(m_dispersionList, 1);
+
+    m_status = new QLabel(this);
+    m_status->setWordWrap(true);
+
+    m_pages = new QStackedWidget(this);
+    auto* intro = new QLabel(
+        tr("Choose a study and press Run. A sweep sizes the design over one or two inputs; "
+           "dispersions fly the design's declared dispersions; sensitivities rank what drives "
+           "each key figure. Studies run on the design as it is when Run is pressed."),
+        this);
+    intro->setWordWrap(true);
+    intro->setAlignment(Qt::AlignCenter);
+    m_line = chartView(this);
+    m_line->setObjectName(QStringLiteral("sweepLine"));
+    m_map = new FeasibilityMap(this);
+    auto* dispersionResults = new QWidget(this);
+    m_summary = new QLabel(dispersionResults);
+    m_summary->setWordWrap(true);
+    m_summary->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    m_histogram = chartView(dispersionResults);
+    m_scatter = chartView(dispersionResults);
+    auto* dispersionGrid = new QGridLayout(dispersionResults);
+    dispersionGrid->setContentsMargins(0, 0, 0, 0);
+    dispersionGrid->addWidget(m_summary, 0, 0, 1, 2);
+    dispersionGrid->addWidget(m_histogram, 1, 0);
+    dispersionGrid->addWidget(m_scatter, 1, 1);
+    dispersionGrid->setRowStretch(1, 1);
+    m_sensitivity = chartView(this);
+    m_pages->insertWidget(introPage, intro);
+    m_pages->insertWidget(linePage, m_line);
+    m_pages->insertWidget(mapPage, m_map);
+    m_pages->insertWidget(dispersionPage, dispersionResults);
+    m_pages->insertWidget(sensitivityPage, m_sensitivity);
+
+    auto* layout = new QVBoxLayout(this);
+    layout->addLayout(top);
+    layout->addWidget(m_axes[0].row);
+    layout->addWidget(m_axes[1].row);
+    layout->addWidget(m_dispersionRow);
+    layout->addWidget(m_status);
+    layout->addWidget(m_pages, 1);
+
+    connect(m_kind, &QComboBox::currentIndexChanged, this, &TradeView::kindChanged);
+    connect(m_figure, &QComboBox::currentIndexChanged, this, [this] {
+        if (m_runner->outcome()) showOutcome();
+    });
+    connect(m_run, &QPushButton::clicked, this, &TradeView::run);
+    connect(m_cancel, &QPushButton::clicked, this, &TradeView::cancel);
+    connect(m_export, &QPushButton::clicked, this, [this] {
+        const QString path = QFileDialog::getSaveFileName(this, tr("Export trade study"), QString(),
+                                                          tr("CSV (*.csv)"));
+        if (path.isEmpty()) return;
+        QString error;
+        if (!exportCsv(path, &error)) QMessageBox::warning(this, tr("Export trade study"), error);
+    });
+    connect(m_runner, &TradeRunner::progressed, this, [this](double fraction) {
+        m_progress->setValue(static_cast<int>(std::lround(fraction * progressSteps)));
+    });
+    connect(m_runner, &TradeRunner::finished, this, &TradeView::studyFinished);
+    connect(m_runner, &TradeRunner::cancelled, this, [this] {
+        m_run->setEnabled(true);
+        m_cancel->setEnabled(false);
+        m_progress->setValue(0);
+        m_status->setText(tr("Cancelled: the cases under way finish in the background and are "
+                             "dropped."));
+    });
+    connect(m_document, &DesignDocument::changed, this, &TradeView::documentChanged);
+
+    documentChanged();
+    kindChanged();
+}
+
+TradeView::AxisControls TradeView::addAxisRow(const QString& label, int index) {
+    AxisControls axis;
+    axis.row = new QWidget(this);
+    auto* layout = new QHBoxLayout(axis.row);
+    layout->setContentsMargins(0, 0, 0, 0);
+    axis.key = new QComboBox(axis.row);
+    axis.key->setEditable(true);
+    axis.key->setInsertPolicy(QComboBox::NoInsert);
+    axis.key->setMinimumContentsLength(28);
+    axis.key->setToolTip(tr("A numeric key of the design, as the design file names it"));
+    const auto number = [&axis] {
+        auto* edit = new QLineEdit(axis.row);
+        auto* validator = new QDoubleValidator(edit);
+        validator->setLocale(QLocale::c());
+        edit->setValidator(validator);
+        edit->setMaximumWidth(110);
+        return edit;
+    };
+    axis.from = number();
+    axis.to = number();
+    axis.count = new QSpinBox(axis.row);
+    axis.count->setRange(2, mostSweepValues);
+    layout->addWidget(new QLabel(label, axis.row));
+    layout->addWidget(axis.key, 1);
+    layout->addWidget(new QLabel(tr("from"), axis.row));
+    layout->addWidget(axis.from);
+    layout->addWidget(new QLabel(tr("to"), axis.row));
+    layout->addWidget(axis.to);
+    layout->addWidget(new QLabel(tr("in"), axis.row));
+    layout->addWidget(axis.count);
+    layout->addWidget(new QLabel(tr("values"), axis.row));
+    // Choosing a key suggests a range around its value; typed ranges are kept.
+    connect(axis.key, &QComboBox::activated, this, [this, index] { suggestRange(m_axes[index]); });
+    return axis;
+}
+
+void TradeView::refreshKeys() {
+    const std::vector<std::string> keys =
+        DesignVariants(m_document->json(), m_document->baseDirectory()).numeric_keys();
+    QStringList names;
+    for (const std::string& key : keys) names << text(key);
+    for (AxisControls& axis : m_axes) {
+        const QString current = axis.key->currentText();
+        const QSignalBlocker block(axis.key);
+        axis.key->clear();
+        axis.key->addItems(names);
+        axis.key->setCurrentText(current);
+    }
+}
+
+void TradeView::suggestRange(AxisControls& axis) {
+    const auto value =
+        DesignVariants(m_document->json(), m_document->baseDirectory()).value(axis.key->currentText().toStdString());
+    if (!value) return;
+    const double spread = std::abs(*value) * suggestedSpread;
+    const double low = *value - (spread > 0.0 ? spread : 1.0);
+    const double high = *value + (spread > 0.0 ? spread : 1.0);
+    axis.from->setText(QLocale::c().toString(low, 'g', 6));
+    axis.to->setText(QLocale::c().toString(high, 'g', 6));
+}
+
+void TradeView::kindChanged() {
+    const int kind = m_kind->currentIndex();
+    const bool sweep = kind == oneKeyIndex || kind == twoKeyIndex;
+    m_axes[0].row->setVisible(sweep);
+    m_axes[1].row->setVisible(kind == twoKeyIndex);
+    for (AxisControls& axis : m_axes) {
+        axis.count->setValue(kind == twoKeyIndex ? defaultGridCount : defaultLineCount);
+    }
+    m_dispersionRow->setVisible(kind == dispersionIndex);
+    m_figure->setEnabled(kind != twoKeyIndex);
+}
+
+void TradeView::documentChanged() {
+    refreshKeys();
+    for (AxisControls& axis : m_axes) {
+        if (axis.from->text().isEmpty()) suggestRange(axis);
+    }
+    const auto& design = m_document->design();
+    if (design && !design->dispersions.empty()) {
+        QStringList list;
+        for (const DispersionDesign& d : design->dispersions) list << distributionText(d);
+        m_dispersionList->setText(tr("Dispersed: %1").arg(list.join(QStringLiteral("; "))));
+    } else {
+        m_dispersionList->setText(tr("The design declares no dispersions: add them under "
+                                     "\"dispersions\" in the design file (see the README)."));
+    }
+    if (m_runner->outcome() && !m_stale) {
+        m_stale = true;
+        m_status->setText(tr("The design has changed since this study ran: run it again to "
+                             "update it. Until then it stays out of the sizing sheet."));
+    }
+}
+
+void TradeView::setSweep(const std::vector<SweepAxis>& axes) {
+    m_kind->setCurrentIndex(axes.size() == 2 ? twoKeyIndex : oneKeyIndex);
+    for (std::size_t i = 0; i < axes.size() && i < 2; ++i) {
+        m_axes[i].key->setCurrentText(text(axes[i].key));
+        m_axes[i].from->setText(QLocale::c().toString(axes[i].from, 'g', 10));
+        m_axes[i].to->setText(QLocale::c().toString(axes[i].to, 'g', 10));
+        m_axes[i].count->setValue(axes[i].count);
+    }
+}
+
+void TradeView::setDispersions(std::size_t runs, std::uint64_t seed) {
+    m_kind->setCurrentIndex(dispersionIndex);
+    m_runs->setValue(static_cast<int>(runs));
+    m_seed->setValue(static_cast<int>(seed));
+}
+
+void TradeView::setSensitivities() { m_kind->setCurrentIndex(sensitivityIndex); }
+
+void TradeView::setFigure(const std::string& id) {
+    m_figure->setCurrentIndex(m_figure->findData(text(id)));
+}
+
+std::string TradeView::figure() const { return m_figure->currentData().toString().toStdString(); }
+
+bool TradeView::run() {
+    const auto& design = m_document->design();
+    if (!design) {
+        m_status->setText(tr("The design has errors: correct them before a trade study."));
+        return false;
+    }
+    TradeRequest request;
+    const int kind = m_kind->currentIndex();
+    if (kind == oneKeyIndex || kind == twoKeyIndex) {
+        request.kind = TradeKind::sweep;
+        const DesignVariants variants(m_document->json(), m_document->baseDirectory());
+        for (int i = 0; i < (kind == twoKeyIndex ? 2 : 1); ++i) {
+            const AxisControls& axis = m_axes[i];
+            SweepAxis a;
+            a.key = axis.key->currentText().trimmed().toStdString();
+            bool fromOk = false;
+            bool toOk = false;
+            a.from = QLocale::c().toDouble(axis.from->text(), &fromOk);
+            a.to = QLocale::c().toDouble(axis.to->text(), &toOk);
+            a.count = axis.count->value();
+            if (!variants.value(a.key)) {
+                m_status->setText(tr("'%1' is not a number of the design: choose one of the listed "
+                                     "keys.").arg(text(a.key)));
+                return false;
+            }
+            if (!fromOk || !toOk) {
+                m_status->setText(tr("Give the range of %1 as two numbers.").arg(text(a.key)));
+                return false;
+            }
+            request.axes.push_back(a);
+        }
+        if (request.axes.size() == 2 && request.axes[0].key == request.axes[1].key) {
+            m_status->setText(tr("A feasibility map varies two different keys."));
+            return false;
+        }
+    } else if (kind == dispersionIndex) {
+        if (design->dispersions.empty()) {
+            m_status->setText(m_dispersionList->text());
+            return false;
+        }
+        request.kind = TradeKind::dispersions;
+        request.runs = static_cast<std::size_t>(m_runs->value());
+        request.seed = static_cast<std::uint64_t>(m_seed->value());
+    } else {
+        request.kind = TradeKind::sensitivities;
+    }
+    m_runner->start(request, m_document->json(), *design, m_document->baseDirectory());
+    m_run->setEnabled(false);
+    m_cancel->setEnabled(true);
+    m_status->setText(tr("Running..."));
+    return true;
+}
+
+void TradeView::cancel() { m_runner->cancel(); }
+
+const TradeOutcome* TradeView::currentOutcome() const {
+    const auto& outcome = m_runner->outcome();
+    return outcome && outcome->error.empty() && !m_stale ? &*outcome : nullptr;
+}
+
+void TradeView::studyFinished() {
+    m_run->setEnabled(true);
+    m_cancel->setEnabled(false);
+    m_stale = false;
+    const TradeOutcome& outcome = *m_runner->outcome();
+    if (!outcome.error.empty()) {
+        m_status->setText(tr("The study cannot run: %1").arg(text(outcome.error)));
+        m_export->setEnabled(false);
+        m_pages->setCurrentIndex(introPage);
+        return;
+    }
+    std::size_t cases = outcome.sweep.size();
+    if (outcome.campaign) cases = outcome.campaign->cases.size();
+    if (outcome.sensitivities) cases = 4 * outcome.sensitivities->inputs.size() + 1;
+    m_status->setText(tr("%1: %2 sizings in %3 s.")
+                          .arg(outcome.description())
+                          .arg(cases)
+                          .arg(outcome.seconds, 0, 'f', 2));
+    m_export->setEnabled(true);
+    showOutcome();
+    emit studyShown();
+}
+
+void TradeView::replaceChart(QChartView* view, QChart* chart) {
+    std::unique_ptr<QChart> previous(view->chart());  // setChart does not delete it
+    view->setChart(chart);
+}
+
+void TradeView::showOutcome() {
+    const TradeOutcome& outcome = *m_runner->outcome();
+    if (!outcome.error.empty()) return;
+    switch (outcome.request.kind) {
+        case TradeKind::sweep:
+            if (outcome.request.axes.size() == 2) {
+                m_map->setOutcome(&outcome);
+                m_pages->setCurrentIndex(mapPage);
+            } else {
+                replaceChart(m_line, sweepLineChart(outcome, figure()));
+                m_pages->setCurrentIndex(linePage);
+            }
+            break;
+        case TradeKind::dispersions: {
+            const DispersionSummary& s = outcome.summary;
+            QString summary = tr("<b>Success probability %1 %</b> (%2 of %3 cases with no failing "
+                                 "check); 95 % interval %4 to %5 % (Wilson).")
+                                  .arg(s.success_probability * percent, 0, 'f', 2)
+                                  .arg(s.successes)
+                                  .arg(s.runs)
+                                  .arg(s.wilson_low * percent, 0, 'f', 2)
+                                  .arg(s.wilson_high * percent, 0, 'f', 2);
+            if (!s.failing_checks.empty()) {
+                QStringList failing;
+                for (std::size_t i = 0; i < s.failing_checks.size() && i < summaryChecks; ++i) {
+                    failing << tr("%1 (%2 cases)")
+                                   .arg(text(s.failing_checks[i].first))
+                                   .arg(s.failing_checks[i].second);
+                }
+                summary += tr(" Failing most often: %1.").arg(failing.join(QStringLiteral(", ")));
+            }
+            m_summary->setText(summary);
+            replaceChart(m_histogram, dispersionHistogramChart(outcome, figure()));
+            replaceChart(m_scatter, deployScatterChart(outcome));
+            m_pages->setCurrentIndex(dispersionPage);
+            break;
+        }
+        case TradeKind::sensitivities:
+            replaceChart(m_sensitivity, sensitivityChart(outcome, figure()));
+            m_pages->setCurrentIndex(sensitivityPage);
+            break;
+    }
+}
+
+bool TradeView::exportCsv(const QString& path, QString* error) const {
+    const auto& outcome = m_runner->outcome();
+    if (!outcome || !outcome->error.empty()) {
+        *error = tr("There is no trade study to export yet.");
+        return false;
+    }
+    QSaveFile file(path);
+    const QByteArray bytes = QByteArray::fromStdString(outcome->csv());
+    if (!file.open(QIODevice::WriteOnly) || file.write(bytes) != bytes.size() || !file.commit()) {
+        *error = tr("cannot write '%1': %2").arg(path, file.errorString());
+        return false;
+    }
+    return true;
+}
+
+}  // namespace ds

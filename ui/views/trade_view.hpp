@@ -1,0 +1,103 @@
+#pragma once
+
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include <QWidget>
+
+#include "trade/sweep.hpp"
+
+QT_BEGIN_NAMESPACE
+class QChart;
+class QChartView;
+class QComboBox;
+class QLabel;
+class QLineEdit;
+class QProgressBar;
+class QPushButton;
+class QSpinBox;
+class QStackedWidget;
+QT_END_NAMESPACE
+
+namespace ds {
+
+class DesignDocument;
+class FeasibilityMap;
+class TradeRunner;
+struct TradeOutcome;
+
+/// The trade study page: choose a sweep of one or two keys, the design's dispersions or the
+/// sensitivities, run it on worker threads with a progress bar and a cancel that answers at
+/// once, and read it as a line plot, a feasibility map, histograms with the deploy scatter,
+/// or ranked sensitivities. Studies run on the design as it is when Run is pressed; an edit
+/// afterwards marks the study as out of date.
+class TradeView : public QWidget {
+    Q_OBJECT
+public:
+    explicit TradeView(DesignDocument* document, QWidget* parent = nullptr);
+
+    TradeRunner* runner() const { return m_runner; }
+    /// The study shown, when one ran and the design has not changed since (for the sheet).
+    const TradeOutcome* currentOutcome() const;
+
+    /// Set the controls as a user would, then run() (for tests and scripted use).
+    void setSweep(const std::vector<SweepAxis>& axes);
+    void setDispersions(std::size_t runs, std::uint64_t seed);
+    void setSensitivities();
+    void setFigure(const std::string& id);
+    /// The key figure the plots show ("peak_deceleration").
+    std::string figure() const;
+    /// Starts the study the controls describe; false, with the reason shown, when it cannot.
+    bool run();
+    void cancel();
+
+    /// Writes the study shown as CSV (trade/trade_csv.hpp).
+    bool exportCsv(const QString& path, QString* error) const;
+
+signals:
+    /// A study finished and is shown.
+    void studyShown();
+
+private:
+    struct AxisControls {
+        QComboBox* key;
+        QLineEdit* from;
+        QLineEdit* to;
+        QSpinBox* count;
+        QWidget* row;
+    };
+    AxisControls addAxisRow(const QString& label, int index);
+    void refreshKeys();
+    void suggestRange(AxisControls& axis);
+    void kindChanged();
+    void documentChanged();
+    void studyFinished();
+    void showOutcome();
+    void replaceChart(QChartView* view, QChart* chart);
+
+    DesignDocument* m_document;
+    TradeRunner* m_runner;
+    QComboBox* m_kind;
+    QComboBox* m_figure;
+    AxisControls m_axes[2];
+    QWidget* m_dispersionRow;
+    QSpinBox* m_runs;
+    QSpinBox* m_seed;
+    QLabel* m_dispersionList;
+    QPushButton* m_run;
+    QPushButton* m_cancel;
+    QPushButton* m_export;
+    QProgressBar* m_progress;
+    QLabel* m_status;
+    QStackedWidget* m_pages;
+    QChartView* m_line;
+    FeasibilityMap* m_map;
+    QLabel* m_summary;
+    QChartView* m_histogram;
+    QChartView* m_scatter;
+    QChartView* m_sensitivity;
+    bool m_stale = false;
+};
+
+}  // namespace ds
