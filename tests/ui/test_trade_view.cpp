@@ -14,6 +14,8 @@
 #include <QScatterSeries>
 #include <QSignalSpy>
 #include <QTabWidget>
+#include <QTableWidget>
+#include <QUndoStack>
 #include <QTemporaryDir>
 #include <QTest>
 
@@ -24,6 +26,7 @@
 #include "trade/contour.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/dispersion.hpp"
+#include "views/dispersion_table.hpp"
 #include "views/trade_charts.hpp"
 #include "views/trade_view.hpp"
 
@@ -170,6 +173,39 @@ private slots:
                           std::max(0, pointsIn(scatter.get(), "a check failed"));
         QCOMPARE(shown, deployed);
         keepScreenshot(window, "trade-dispersions.png");
+    }
+
+    void dispersionTableEditsTheDocumentWithUndo() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        auto* editor = window.trades()->findChild<DispersionTable*>();
+        QVERIFY(editor);
+        QTableWidget* table = editor->table();
+        QCOMPARE(table->rowCount(), 4);  // the sample's four
+        QCOMPARE(table->item(0, 0)->text(), QString("entry.flight_path_angle_deg"));
+        QCOMPARE(table->item(0, 2)->text(), QString("0.25"));
+
+        table->item(0, 2)->setText("0.5");
+        QCOMPARE(window.document()->value("/dispersions/0/sigma").get<double>(), 0.5);
+        QVERIFY(window.document()->design());
+        QCOMPARE(window.document()->design()->dispersions[0].sigma, 0.5);
+        window.document()->undoStack()->undo();
+        QCOMPARE(table->item(0, 2)->text(), QString("0.25"));
+
+        // A text where a number goes reaches the reader, which refuses it at its key.
+        table->item(0, 2)->setText("wide");
+        QVERIFY(!window.document()->design());
+        window.document()->undoStack()->undo();
+        QVERIFY(window.document()->design());
+
+        QPushButton* add = nullptr;
+        for (QPushButton* b : editor->findChildren<QPushButton*>()) {
+            if (b->text() == "Add") add = b;
+        }
+        QVERIFY(add);
+        add->click();
+        QCOMPARE(table->rowCount(), 5);
+        QCOMPARE(window.document()->design()->dispersions.size(), std::size_t(5));
     }
 
     void cancelReturnsTheWindowAtOnce() {

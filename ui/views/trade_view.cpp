@@ -26,6 +26,7 @@
 #include "model/trade_runner.hpp"
 #include "results/key_figures.hpp"
 #include "trade/design_variants.hpp"
+#include "views/dispersion_table.hpp"
 #include "views/trade_charts.hpp"
 
 namespace ds {
@@ -44,6 +45,8 @@ constexpr int mostRuns = 1000000;
 /// A key's suggested sweep: its value less and more this fraction.
 constexpr double suggestedSpread = 0.2;
 constexpr int progressSteps = 1000;
+/// Room for about four dispersions; more scroll.
+constexpr int dispersionTableHeight = 150;
 constexpr double percent = 100.0;
 /// The failing checks the summary names.
 constexpr std::size_t summaryChecks = 5;
@@ -51,12 +54,6 @@ constexpr std::size_t summaryChecks = 5;
 const char* const defaultFigure = "peak_deceleration";
 
 QString text(const std::string& s) { return QString::fromStdString(s); }
-
-QString distributionText(const DispersionDesign& d) {
-    return d.distribution == DistributionKind::normal
-               ? QStringLiteral("%1 normal, σ %2").arg(text(d.key)).arg(d.sigma)
-               : QStringLiteral("%1 uniform, %2 to %3").arg(text(d.key)).arg(d.min).arg(d.max);
-}
 
 QChartView* chartView(QWidget* parent) {
     auto* view = new QChartView(new QChart, parent);
@@ -102,7 +99,7 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     m_axes[1] = addAxisRow(tr("and"), 1);
 
     m_dispersionRow = new QWidget(this);
-    auto* dispersion = new QHBoxLayout(m_dispersionRow);
+    auto* dispersion = new QGridLayout(m_dispersionRow);
     dispersion->setContentsMargins(0, 0, 0, 0);
     m_runs = new QSpinBox(m_dispersionRow);
     m_runs->setRange(10, mostRuns);
@@ -111,14 +108,16 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     m_seed = new QSpinBox(m_dispersionRow);
     m_seed->setRange(0, std::numeric_limits<int>::max());
     m_seed->setValue(1);
-    m_dispersionList = new QLabel(m_dispersionRow);
-    m_dispersionList->setWordWrap(true);
-    dispersion->addWidget(new QLabel(tr("Cases"), m_dispersionRow));
-    dispersion->addWidget(m_runs);
-    dispersion->addWidget(new QLabel(tr("Seed"), m_dispersionRow));
-    dispersion->addWidget(m_seed);
-    dispersion->addSpacing(12);
-    dispersion->addWidget(m_dispersionList, 1);
+    m_seed->setToolTip(tr("The same seed gives the same numbers, whatever the threads"));
+    m_dispersions = new DispersionTable(document, m_dispersionRow);
+    m_dispersions->setMaximumHeight(dispersionTableHeight);
+    dispersion->addWidget(new QLabel(tr("Cases"), m_dispersionRow), 0, 0);
+    dispersion->addWidget(m_runs, 0, 1);
+    dispersion->addWidget(new QLabel(tr("Seed"), m_dispersionRow), 1, 0);
+    dispersion->addWidget(m_seed, 1, 1);
+    dispersion->addWidget(m_dispersions, 0, 2, 3, 1);
+    dispersion->setColumnStretch(2, 1);
+    dispersion->setRowStretch(2, 1);
 
     m_status = new QLabel(this);
     m_status->setWordWrap(true);
@@ -269,15 +268,6 @@ void TradeView::documentChanged() {
     for (AxisControls& axis : m_axes) {
         if (axis.from->text().isEmpty()) suggestRange(axis);
     }
-    const auto& design = m_document->design();
-    if (design && !design->dispersions.empty()) {
-        QStringList list;
-        for (const DispersionDesign& d : design->dispersions) list << distributionText(d);
-        m_dispersionList->setText(tr("Dispersed: %1").arg(list.join(QStringLiteral("; "))));
-    } else {
-        m_dispersionList->setText(tr("The design declares no dispersions: add them under "
-                                     "\"dispersions\" in the design file (see the README)."));
-    }
     if (m_runner->outcome() && !m_stale) {
         m_stale = true;
         m_status->setText(tr("The design has changed since this study ran: run it again to "
@@ -346,7 +336,8 @@ bool TradeView::run() {
         }
     } else if (kind == dispersionIndex) {
         if (design->dispersions.empty()) {
-            m_status->setText(m_dispersionList->text());
+            m_status->setText(tr("The design declares no dispersions: add the dispersed keys to "
+                                 "the table first."));
             return false;
         }
         request.kind = TradeKind::dispersions;

@@ -23,6 +23,7 @@ QT_END_NAMESPACE
 namespace ds {
 
 class DesignDocument;
+class DispersionTable;
 class FeasibilityMap;
 class TradeRunner;
 struct TradeOutcome;
@@ -84,7 +85,7 @@ private:
     QWidget* m_dispersionRow;
     QSpinBox* m_runs;
     QSpinBox* m_seed;
-    QLabel* m_dispersionList;
+    DispersionTable* m_dispersions;
     QPushButton* m_run;
     QPushButton* m_cancel;
     QPushButton* m_export;
