@@ -60,12 +60,16 @@ PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
         return flight_quantity(q, flight_conditions(model, stage, y), y);
     };
 
+    const auto descending = [](double, const FlightState& y) {
+        return y[StateIndex::flight_path_angle] < 0.0;
+    };
     std::vector<Event<flight_state_size>> events;
     for (const Trigger& trigger : phase.ends) {
         events.push_back({[&, trigger](double, const FlightState& y) {
                               return quantity(trigger.quantity, y) - trigger.value;
                           },
                           trigger.direction, true});
+        if (trigger.descending_only) events.back().counts = descending;
     }
     // A peak is where the logarithmic rate of its quantity falls through zero. The rate is a
     // central difference along the flow, y +- dt y', so every quantity, whatever its model,

@@ -24,12 +24,14 @@ enum class FlightQuantity {
 double flight_quantity(FlightQuantity quantity, const FlightConditions& conditions,
                        const FlightState& y);
 
-/// Ends a phase when a quantity crosses a value in the given direction.
+/// Ends a phase when a quantity crosses a value in the given direction (and, when asked, only
+/// while the flight descends).
 struct Trigger {
     std::string name;
     FlightQuantity quantity = FlightQuantity::altitude;
     double value = 0.0;
     EventDirection direction = EventDirection::falling;
+    bool descending_only = false;  ///< a crossing counts only at a negative flight-path angle
 };
 
 /// A quantity whose local maxima are located during a phase.

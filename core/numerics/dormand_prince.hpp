@@ -37,6 +37,8 @@ struct Event {
     std::function<double(double, const Vector<N>&)> function;
     EventDirection direction = EventDirection::any;
     bool terminal = false;
+    /// When given, a crossing counts only if this holds at it; the others pass unreported.
+    std::function<bool(double, const Vector<N>&)> counts{};
 };
 
 template <int N>
@@ -220,7 +222,9 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
                                                                    g_after[i], close_enough,
                                                                    iterations)
                                      .second;
-            hits.push_back({i, t_hit, dense(t_hit)});
+            const Vector<N> y_hit = dense(t_hit);
+            if (events[i].counts && !events[i].counts(t_hit, y_hit)) continue;
+            hits.push_back({i, t_hit, y_hit});
         }
         std::sort(hits.begin(), hits.end(),
                   [](const EventHit<N>& a, const EventHit<N>& b) { return a.t < b.t; });

@@ -66,8 +66,11 @@ Trigger deploy_trigger(std::string name, TriggerKind kind, double value) {
         case TriggerKind::mach:
             return {std::move(name), FlightQuantity::mach, value, EventDirection::falling};
         case TriggerKind::dynamic_pressure:
+            // The dynamic pressure also falls on a climb (a skip, a lofted path), at any speed:
+            // only its fall in descending flight is the slowing down a deploy waits for. (A Mach
+            // number falls only as the vehicle slows, and an altitude only in descent.)
             return {std::move(name), FlightQuantity::dynamic_pressure, value,
-                    EventDirection::falling};
+                    EventDirection::falling, true};
         case TriggerKind::altitude:
             return {std::move(name), FlightQuantity::altitude, value, EventDirection::falling};
     }

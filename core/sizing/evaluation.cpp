@@ -193,6 +193,19 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
                                       MassEstimates::engine_kg_per_N, estimate_source));
 }
 
+/// The descent under the canopy to the ground, with no burn: the method "none" touches down
+/// on its canopy; a design with no lander (drop_mass) only keeps the descent's history.
+void descend_on_canopy(const Design& design, Evaluation& e) {
+    const auto t = e.descent->record.time_descending_through(design.site.elevation_m);
+    for (const TrajectorySample& s : e.descent->samples) {
+        if (!t || s.time_s <= *t) e.history.push_back(s);
+    }
+    if (t && design.terminal.method == TerminalMethod::none) {
+        e.touchdown_time_s = *t;
+        e.touchdown_velocity_m_s = e.descent->record.state_at(*t)[StateIndex::velocity];
+    }
+}
+
 }  // namespace
 
 Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
@@ -213,26 +226,24 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     size_canopy(design, model, atmosphere, e, body_drag_area);
     e.lander_kg = entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
                   e.budget.group_kg(MassGroup::backshell);
+    // Parts that weigh as much as the vehicle leave nothing to land: no thrust, propellant or
+    // landed mass is made from a lander of zero mass or less (the drop_mass check says why).
+    // The vehicle still hangs under its canopy, unless the heat shield alone outweighs it.
+    const bool has_lander = e.lander_kg > 0.0;
+    const bool under_canopy = entry_kg > e.budget.group_kg(MassGroup::heat_shield);
 
     const bool fires_engines = design.terminal.method != TerminalMethod::none;
-    if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0) {
+    if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0 && under_canopy) {
         DescentPlan plan;
         plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
         plan.body_drag_area_m2 = body_drag_area;
         plan.jettison_mass_kg = e.budget.group_kg(MassGroup::heat_shield);
         plan.floor_altitude_m = design.site.elevation_m;
         e.descent = fly_descent(design, model, plan, e.entry.end_time_s, e.entry.end_state);
-        if (fires_engines && !e.descent->record.empty()) {
-            fly_terminal_burn(design, model, e);
-        } else if (!fires_engines) {
-            const auto t = e.descent->record.time_descending_through(design.site.elevation_m);
-            for (const TrajectorySample& s : e.descent->samples) {
-                if (!t || s.time_s <= *t) e.history.push_back(s);
-            }
-            if (t) {
-                e.touchdown_time_s = *t;
-                e.touchdown_velocity_m_s = e.descent->record.state_at(*t)[StateIndex::velocity];
-            }
+        if (fires_engines && has_lander) {
+            if (!e.descent->record.empty()) fly_terminal_burn(design, model, e);
+        } else {
+            descend_on_canopy(design, e);
         }
     }
 
@@ -246,6 +257,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
             e.landed_kg = e.lander_kg - e.budget.group_kg(MassGroup::descent_stage);
             break;
     }
+    if (!has_lander) e.landed_kg = 0.0;
     if (design.terminal.method == TerminalMethod::airbag) {
         e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,
                               MassGroup::payload,
@@ -268,6 +280,9 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
                                               const Evaluation& e, double site_elevation_m) {
     if (!e.descent || !e.descent->jettisoned) return std::nullopt;
+    const bool fires_engines = design.terminal.method != TerminalMethod::none;
+    // No burn to time against: no lander (drop_mass), or no descent record to burn on.
+    if (fires_engines && !e.burn_request) return std::nullopt;
     const DescentFlight& d = *e.descent;
     TimelineMargin m;
     const double jettison_after_deploy = d.jettison_time_s - d.deploy_time_s;

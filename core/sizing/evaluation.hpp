@@ -30,7 +30,7 @@ struct Evaluation {
     double decelerator_kg = 0.0;
     double backshell_kg = 0.0;
     double parachute_kg = 0.0;
-    double lander_kg = 0.0;  ///< what separates from the backshell
+    double lander_kg = 0.0;  ///< what separates from the backshell; 0 or less: nothing lands
     double landed_kg = 0.0;
     /// Analysis mode: the fixed entry mass less everything itemised or estimated (negative
     /// when the budget does not fit in it).

@@ -121,6 +121,31 @@ TimelineEvent event_at(std::string name, double t, const FlightState& y) {
     return {std::move(name), t, y[StateIndex::altitude], y[StateIndex::velocity]};
 }
 
+/// The descent under the canopy stopped short of the ground: a time or step budget ran out,
+/// or the integration failed (what the "trajectory" check reports).
+bool descent_stopped(const Evaluation& e) {
+    return e.descent && !e.descent->reached_floor &&
+           e.descent->stop_reason != StopReason::terminal_event;
+}
+
+/// The terminal burn ends where the descent stopped, not at its target: the lander separated
+/// at the end of the stopped descent because the descent goes no further, so where the burn
+/// ends is no touchdown (nor release, nor hover).
+bool terminal_cut_short(const Evaluation& e) {
+    return descent_stopped(e) && e.burn &&
+           e.burn->separation_time_s >= e.descent->record.end_time();
+}
+
+/// The heat shield leaves before the lander does: jettisoned no later than the backshell
+/// separation (or the touchdown, without one). A jettison that would come later is not
+/// reached: the lander has gone with the heat shield still on.
+bool jettison_reached(const Evaluation& e) {
+    if (!e.descent || !e.descent->jettisoned) return false;
+    const double lander_leaves = e.burn ? e.burn->separation_time_s
+                                        : e.touchdown_time_s.value_or(e.descent->jettison_time_s);
+    return e.descent->jettison_time_s <= lander_leaves;
+}
+
 void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) {
     const EntryFlight& f = e.entry;
     entry.mass_kg = e.entry_kg;
@@ -165,7 +190,7 @@ void fill_parachute(const Evaluation& e, ParachuteResults& p) {
     p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach,
                                       e.canopy_diameter_m, e.canopy_drag_coefficient);
     p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, v);
-    if (e.descent && e.descent->jettisoned) p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
+    if (jettison_reached(e)) p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
     if (e.burn) {
         p.descent_velocity_m_s = e.burn->separation_state[StateIndex::velocity];
     } else if (e.touchdown_velocity_m_s) {
@@ -190,6 +215,34 @@ void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t
     t.thrust_N = e.burn_request->thrust_N;
     t.burned_propellant_kg = e.burned_kg;
     t.propellant_kg = e.loaded_propellant_kg;
+}
+
+/// The events that end a terminal burn, by method: at its target, or at the ground.
+void push_terminal_events(const Evaluation& e, const Design& design,
+                          std::vector<TimelineEvent>& events) {
+    const BurnSolution& b = *e.burn;
+    const auto at_site = [&](std::string name, double t, double v) {
+        return TimelineEvent{std::move(name), t, design.site.elevation_m, v};
+    };
+    switch (design.terminal.method) {
+        case TerminalMethod::retro:
+            events.push_back(event_at("touchdown", b.end_time_s, b.end_state));
+            break;
+        case TerminalMethod::airbag:
+            events.push_back(event_at("release", b.end_time_s, b.end_state));
+            if (e.touchdown_time_s && e.impact_velocity_m_s) {
+                events.push_back(
+                    at_site("airbag impact", *e.touchdown_time_s, *e.impact_velocity_m_s));
+            }
+            break;
+        case TerminalMethod::tethered:
+            events.push_back(event_at("hover and lowering", b.end_time_s, b.end_state));
+            if (e.touchdown_time_s) {
+                events.push_back(at_site("payload touchdown", *e.touchdown_time_s, 0.0));
+            }
+            break;
+        case TerminalMethod::none: break;
+    }
 }
 
 void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline) {
@@ -217,41 +270,67 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
             events.push_back(event_at("integration stopped", f.end_time_s, f.end_state));
             break;
     }
-    if (e.descent && e.descent->jettisoned) {
+    if (jettison_reached(e)) {
         events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
                                   e.descent->jettison_state));
     }
-    const double site = design.site.elevation_m;
-    const auto at_site = [&](std::string name, double t, double v) {
-        return TimelineEvent{std::move(name), t, site, v};
-    };
     if (e.burn) {
         const BurnSolution& b = *e.burn;
         events.push_back(event_at("backshell separation", b.separation_time_s, b.separation_state));
         events.push_back(event_at("ignition", b.ignition_time_s, b.ignition_state));
-        switch (design.terminal.method) {
-            case TerminalMethod::retro:
-                events.push_back(event_at("touchdown", b.end_time_s, b.end_state));
-                break;
-            case TerminalMethod::airbag:
-                events.push_back(event_at("release", b.end_time_s, b.end_state));
-                if (e.touchdown_time_s && e.impact_velocity_m_s) {
-                    events.push_back(at_site("airbag impact", *e.touchdown_time_s, *e.impact_velocity_m_s));
-                }
-                break;
-            case TerminalMethod::tethered:
-                events.push_back(event_at("hover and lowering", b.end_time_s, b.end_state));
-                if (e.touchdown_time_s) {
-                    events.push_back(at_site("payload touchdown", *e.touchdown_time_s, 0.0));
-                }
-                break;
-            case TerminalMethod::none: break;
+        if (terminal_cut_short(e)) {
+            events.push_back(event_at("descent stopped", b.end_time_s, b.end_state));
+        } else {
+            push_terminal_events(e, design, events);
         }
     } else if (e.touchdown_time_s && e.touchdown_velocity_m_s) {
-        events.push_back(at_site("touchdown", *e.touchdown_time_s, *e.touchdown_velocity_m_s));
+        events.push_back({"touchdown", *e.touchdown_time_s, design.site.elevation_m,
+                          *e.touchdown_velocity_m_s});
+    } else if (descent_stopped(e) && !e.descent->record.empty()) {
+        const double t = e.descent->record.end_time();
+        events.push_back(event_at("descent stopped", t, e.descent->record.state_at(t)));
     }
     std::stable_sort(events.begin(), events.end(),
                      [](const TimelineEvent& a, const TimelineEvent& b) { return a.time_s < b.time_s; });
+}
+
+/// The heat shield's jettison, when it does not come before the lander leaves: never in the
+/// descent flown, or only after the backshell separation.
+Check jettison_check(const Evaluation& e) {
+    const DescentFlight& d = *e.descent;
+    const std::string advice = "shorten the jettison delay or raise its dynamic pressure";
+    if (!d.jettisoned) {
+        return flight_check("heat_shield_jettison", CheckStatus::fail, 0.0, 0.0, "",
+                            fmt::format("the heat shield is never jettisoned before {}: {}",
+                                        descent_stopped(e) ? "the descent under the canopy stops"
+                                                           : "the ground",
+                                        advice),
+                            "design sequence");
+    }
+    // Jettisoned but not reached: only a backshell separation comes before it.
+    const double jettison = d.jettison_time_s - d.deploy_time_s;
+    const double separation = e.burn->separation_time_s - d.deploy_time_s;
+    return flight_check(
+        "heat_shield_jettison", CheckStatus::fail, jettison, separation, "s",
+        fmt::format("the heat shield would be jettisoned {:.1f} s after parachute deploy, but the "
+                    "lander separates from the backshell at {:.1f} s: the jettison is not "
+                    "reached, and the lander would leave with the heat shield still on while its "
+                    "mass and burn assume it gone; {}",
+                    jettison, separation, advice),
+        "design sequence");
+}
+
+/// Parts dropped before landing that weigh as much as the vehicle leave nothing to land.
+Check drop_mass_check(const Evaluation& e) {
+    const double dropped = e.entry_kg - e.lander_kg;
+    return flight_check(
+        "drop_mass", CheckStatus::fail, dropped, e.entry_kg, "kg",
+        fmt::format("the masses dropped before landing ({:.1f} kg: heat shield, backshell, "
+                    "parachute{}) {} the entry mass ({:.1f} kg): nothing is left to land, and "
+                    "no landed mass, thrust or propellant is computed",
+                    dropped, e.decelerator_kg > 0.0 ? ", decelerator" : "",
+                    dropped > e.entry_kg ? "exceed" : "equal", e.entry_kg),
+        "mass budget");
 }
 
 /// Checks that come from the flight and the closure themselves, not from a limit.
@@ -283,6 +362,8 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
                    "no canopy is needed, or the request is wrong",
             "sizing request"));
     }
+
+    if (e.lander_kg <= 0.0) checks.push_back(drop_mass_check(e));
 
     const EntryFlight& f = e.entry;
     const std::string trigger =
@@ -330,13 +411,7 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
                         stop_reason_text(e.descent->stop_reason)),
             "solver settings"));
     }
-    if (e.descent && !e.descent->jettisoned) {
-        checks.push_back(flight_check(
-            "heat_shield_jettison", CheckStatus::fail, 0.0, 0.0, "",
-            "the heat shield is never jettisoned before the ground: shorten the jettison delay or "
-            "raise its dynamic pressure",
-            "design sequence"));
-    }
+    if (e.descent && !jettison_reached(e)) checks.push_back(jettison_check(e));
     if (e.burn && !e.burn->stops_in_time) {
         checks.push_back(flight_check(
             "terminal_burn", CheckStatus::fail, e.burn->end_state[StateIndex::velocity],
@@ -448,7 +523,7 @@ Results size_design(const Design& design, SizingOptions options) {
     }
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
-    if (e.descent) results.mass.landed_kg = e.landed_kg;
+    if (e.descent && e.lander_kg > 0.0) results.mass.landed_kg = e.landed_kg;
     if (options.capability) {
         results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
     }

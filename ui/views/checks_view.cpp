@@ -93,6 +93,7 @@ std::string ChecksView::fieldForCheck(const std::string& checkId) {
         {"terminal_burn", "/terminal/thrust_to_weight"},
         {"timeline_margin", "/sequence/ground_sensing_lock_s"},
         {"heat_shield_jettison", "/sequence/heat_shield_jettison_delay_s"},
+        {"drop_mass", "/parachute/mass_kg"},
         {"trajectory", "/entry/flight_path_angle_deg"},
     };
     const auto it = fields.find(checkId);

@@ -170,3 +170,41 @@ TEST_CASE("a stiff descent under a 10 km canopy stops at the step budget and say
     CHECK(trajectory->message ==
           "the descent under the canopy stopped: the integration step budget ran out");
 }
+
+TEST_CASE("a 10 km canopy that outweighs the vehicle fails drop_mass, with no negative thrust") {
+    // In the corpus as corpus/regression-giant-canopy-negative-mass.json: the canopy's estimate
+    // is 18500 t on a 2.1 t vehicle, and the lander's mass, thrust (-1.3e8 N) and propellant
+    // (-2.1e7 kg) came out negative. Held to the fuzzer's 5000 steps a phase.
+    const std::string design = R"({
+      "format": "descent-sizer/design", "version": 1, "name": "giant canopy", "body": "mars",
+      "atmosphere": { "model": "standard" },
+      "site": { "elevation_m": -2500 },
+      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5900,
+                 "flight_path_angle_deg": -15.2, "lift_to_drag": 0.22, "bank_angle_deg": 45.0 },
+      "aeroshell": { "diameter_m": { "size_for_ballistic_coefficient_kg_m2": 115 },
+                     "half_angle_deg": 70, "nose_radius_m": 1.1, "drag_coefficient": 1.68 },
+      "mass": { "items": [
+        { "name": "rover", "mass_kg": 900, "group": "payload", "maturity": "layout" },
+        { "name": "descent stage structure", "mass_kg": 240, "group": "descent stage",
+          "maturity": "estimated" } ] },
+      "parachute": { "type": "disk-gap-band", "diameter_m": 10000.0, "deploy_mach": 1.9 },
+      "terminal": { "method": "tethered", "isp_s": 225, "thrust_to_weight": 2.2,
+                    "touchdown_velocity_m_s": 0.75 },
+      "solver": { "max_time_s": 1e12, "max_steps": 5000 }
+    })";
+    const ds::DesignReadResult read = ds::read_design(design);
+    REQUIRE(read.ok());
+    const ds::Results r = ds::size_design(*read.design);
+    const auto drop_mass = std::find_if(r.checks.begin(), r.checks.end(),
+                                        [](const ds::Check& c) { return c.id == "drop_mass"; });
+    REQUIRE(drop_mass != r.checks.end());
+    CHECK(drop_mass->status == ds::CheckStatus::fail);
+    CHECK(drop_mass->value > 1000.0 * drop_mass->limit);
+    CHECK_FALSE(r.terminal.thrust_N);
+    CHECK_FALSE(r.terminal.propellant_kg);
+    CHECK_FALSE(r.mass.landed_kg);
+    for (const ds::MassItem& item : r.mass.items) {
+        CAPTURE(item.name);
+        CHECK(item.mass_kg >= 0.0);
+    }
+}

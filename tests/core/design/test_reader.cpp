@@ -257,7 +257,9 @@ TEST_CASE("numbers outside their range name the rule and the value") {
          "must be at least 1e-14 and at most 0.001, got 0.01"},
         {"/solver/max_time_s", -1, "solver.max_time_s", "must be positive"},
         {"/solver/max_steps", 0, "solver.max_steps",
-         "must be greater than 0 and at most 2147483647, got 0"},
+         "must be greater than 0 and at most 1000000, got 0"},
+        {"/solver/max_steps", 1000001, "solver.max_steps",
+         "must be greater than 0 and at most 1000000, got 1000001"},
         {"/limits/marginal_band", 1.5, "limits.marginal_band", "less than 1"},
     };
     for (const auto& c : cases) {
@@ -849,6 +851,18 @@ TEST_CASE("the entry interface must be above the landing site") {
     REQUIRE(result.errors.size() == 1);
     CHECK(has_error(result, "entry.interface_altitude_m",
                     "must be above the site elevation (130000 m), got 125000"));
+}
+
+TEST_CASE("the step budget is capped at a million steps a phase") {
+    // Regression: up to 2^31 - 1 steps were taken, and a stiff design took 24 s and 2.7 GB.
+    const auto cap = read(with(baseline(), "/solver", {{"max_steps", 1000000}}));
+    INFO(error_list(cap));
+    REQUIRE(cap.ok());
+    CHECK(cap.design->solver.max_steps == 1000000);
+    const auto int_max = read(with(baseline(), "/solver", {{"max_steps", 2147483647}}));
+    CHECK_FALSE(int_max.ok());
+    CHECK(has_error(int_max, "solver.max_steps",
+                    "must be greater than 0 and at most 1000000, got 2147483647"));
 }
 
 TEST_CASE("limits and solver settings override the defaults key by key") {

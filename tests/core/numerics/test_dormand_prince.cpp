@@ -93,6 +93,25 @@ TEST_CASE("event direction: a rising crossing is skipped by a falling-only event
     CHECK(std::abs(out.events[2].t - 5.0 * M_PI / 2.0) < 1e-6);
 }
 
+TEST_CASE("an event's condition: a crossing where it does not hold passes unreported") {
+    // x = cos t falls through 0.5 at pi/3 and at 2 pi + pi/3. Counted only after t = 2 pi, the
+    // terminal event fires at the second crossing, located to within 1e-6 s.
+    std::vector<Event<2>> events{
+        {[](double, const Vector<2>& y) { return y[0] - 0.5; }, EventDirection::falling, true}};
+    events[0].counts = [](double t, const Vector<2>&) { return t > 2.0 * M_PI; };
+    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 10.0,
+                                                     events, tight(), ignore_step);
+    REQUIRE(out.reason == StopReason::terminal_event);
+    REQUIRE(out.events.size() == 1);
+    CHECK(std::abs(out.t - (2.0 * M_PI + M_PI / 3.0)) < 1e-6);
+    CHECK(out.y[0] == doctest::Approx(0.5).epsilon(1e-6));
+    // Without the condition the first crossing ends it.
+    events[0].counts = nullptr;
+    const auto plain = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 10.0,
+                                                       events, tight(), ignore_step);
+    CHECK(std::abs(plain.t - M_PI / 3.0) < 1e-6);
+}
+
 TEST_CASE("dense output between steps is accurate to 1e-6 (cos t sampled at a peak event)") {
     // The maximum of -v = sin t is at pi/2: located from v' = -x crossing zero.
     const std::vector<Event<2>> events{

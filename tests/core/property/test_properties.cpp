@@ -46,6 +46,9 @@ constexpr double energy_rise_tolerance_fraction = 1e-7;
 // altitude is far above what it moves (our bounds).
 constexpr double event_time_tolerance_s = 1e-6;
 constexpr double altitude_tolerance_m = 1e-3;
+// A touchdown is at the site: the burn's end is solved to 1e-6 s of separation time, a few
+// hundredths of a millimetre at descent speeds; 1 cm is our bound.
+constexpr double touchdown_altitude_tolerance_m = 0.01;
 // The generator must produce real descents, not only vehicles that hit the ground (our bound).
 constexpr double min_deployed_fraction = 0.5;
 
@@ -373,6 +376,18 @@ TEST_CASE("2000 random designs around the small station keep the sizing's invari
         if (r.mass.landed_kg) {
             CHECK(*r.mass.landed_kg <= r.mass.entry_kg);
         }
+        // No mass, thrust or propellant below zero: only what a fixed entry mass leaves over may
+        // be negative, and the landed mass of a budget that does not fit (its check fails).
+        for (const ds::MassItem& item : r.mass.items) {
+            CAPTURE(item.name);
+            if (item.name.find("unallocated") == std::string::npos)
+                CHECK(item.mass_kg >= 0.0);
+        }
+        if (r.mass.landed_kg.value_or(0.0) < 0.0) {
+            CHECK((failed(r, "mass_allocation") || failed(r, "mass_closure")));
+        }
+        CHECK(r.terminal.thrust_N.value_or(0.0) >= 0.0);
+        CHECK(r.terminal.propellant_kg.value_or(0.0) >= 0.0);
         if (r.converged) {
             double sum = 0.0;
             for (const ds::MassItem& item : r.mass.items)
@@ -395,6 +410,7 @@ TEST_CASE("2000 random designs around the small station keep the sizing's invari
         CHECK(before("decelerator deploy", "parachute deploy"));
         CHECK(before("parachute deploy", "heat-shield jettison"));
         CHECK(before("parachute deploy", "backshell separation"));
+        CHECK(before("heat-shield jettison", "backshell separation"));
         CHECK(before("backshell separation", "ignition"));
         CHECK(before("ignition", "touchdown"));
         CHECK(before("ignition", "release"));
@@ -417,6 +433,11 @@ TEST_CASE("2000 random designs around the small station keep the sizing's invari
                 CHECK(e->altitude_m <= previous + altitude_tolerance_m);
                 previous = e->altitude_m;
             }
+        }
+        // A touchdown is at the site; a descent that stopped above it has none.
+        if (const ds::TimelineEvent* touchdown = find_event(r, "touchdown")) {
+            CHECK(std::abs(touchdown->altitude_m - d.site.elevation_m) <
+                  touchdown_altitude_tolerance_m);
         }
         for (const ds::TimelineEvent& e : events) {
             if (e.name == "parachute deploy" || e.name == "ground impact" ||

@@ -252,3 +252,105 @@ TEST_CASE("a landed mass over the heritage 0.6 t is marginal, naming the technol
     CHECK(c->status == ds::CheckStatus::marginal);
     CHECK(c->message.find("supersonic retro-propulsion") != std::string::npos);
 }
+
+TEST_CASE("a jettison due after the backshell separation is not reached, nor listed after it") {
+    // Regression: with a negative timeline margin the jettison was listed after the separation,
+    // while the lander's mass and burn had left the heat shield behind.
+    ds::Design d = sample("small-ballistic-station");
+    d.terminal.thrust_to_weight = 1.5;  // a long burn: the lander separates 177 s after deploy
+    d.sequence.heat_shield_jettison_delay_s = 190.0;
+    const ds::Results r = ds::size_design(d);
+    const ds::TimelineEvent* deploy = find_event(r, "parachute deploy");
+    const ds::TimelineEvent* separation = find_event(r, "backshell separation");
+    REQUIRE(deploy);
+    REQUIRE(separation);
+    const double separation_after_deploy = separation->time_s - deploy->time_s;
+    CHECK(separation_after_deploy < 190.0 - 1.0);
+    CHECK_FALSE(find_event(r, "heat-shield jettison"));
+    CHECK_FALSE(r.parachute.heat_shield_jettison_time_s);
+    const ds::Check* c = find_check(r, "heat_shield_jettison");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->message.find("not reached") != std::string::npos);
+    // The jettison's delay against the separation, both after deploy: the delay ends the phase
+    // exactly, so both differ from the timeline only by round-off (1e-9 s).
+    CHECK(std::abs(c->value - 190.0) < 1e-9);
+    CHECK(std::abs(c->limit - separation_after_deploy) < 1e-9);
+    REQUIRE(r.timeline.margin_s);
+    CHECK(*r.timeline.margin_s < 0.0);
+
+    // Jettisoned 150 s after deploy, before the separation, it is listed where it happens.
+    d.sequence.heat_shield_jettison_delay_s = 150.0;
+    const ds::Results early = ds::size_design(d);
+    const ds::TimelineEvent* jettison = find_event(early, "heat-shield jettison");
+    REQUIRE(jettison);
+    CHECK(std::abs(jettison->time_s - (deploy->time_s + 150.0)) < 1e-9);
+    REQUIRE(find_event(early, "backshell separation"));
+    CHECK(jettison->time_s < find_event(early, "backshell separation")->time_s);
+    CHECK_FALSE(find_check(early, "heat_shield_jettison"));
+}
+
+TEST_CASE("parts heavier than the vehicle fail drop_mass, with no negative thrust or propellant") {
+    // Regression: a 600 kg canopy on the 560 kg station gave the lander a negative mass, and
+    // with it a negative thrust and propellant; only the mass allocation said anything.
+    ds::Design d = sample("small-ballistic-station");
+    d.parachute.mass_kg = 600.0;
+    const ds::Results r = ds::size_design(d);
+    const ds::Check* c = find_check(r, "drop_mass");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    // Dropped: the heat shield, the backshell (an estimate) and the canopy; the sum is exact up
+    // to round-off.
+    const double dropped = item_kg(r, "heat shield") + item_kg(r, "backshell") +
+                           item_kg(r, "parachute (disk-gap-band)");
+    CHECK(dropped > 560.0);
+    CHECK(c->value == doctest::Approx(dropped).epsilon(1e-12));
+    CHECK(c->limit == 560.0);
+    CHECK(c->message.find("exceed the entry mass (560.0 kg)") != std::string::npos);
+    CHECK_FALSE(r.terminal.thrust_N);
+    CHECK_FALSE(r.terminal.propellant_kg);
+    CHECK_FALSE(r.terminal.ignition_time_s);
+    CHECK_FALSE(r.mass.landed_kg);
+    for (const ds::MassItem& item : r.mass.items) {
+        CAPTURE(item.name);
+        if (item.name.find("unallocated") == std::string::npos) CHECK(item.mass_kg >= 0.0);
+    }
+    // The vehicle (560 - 60 kg after the jettison) still hangs under its canopy; nothing lands.
+    CHECK(r.parachute.deployed);
+    CHECK(find_event(r, "heat-shield jettison"));
+    CHECK_FALSE(find_event(r, "touchdown"));
+    CHECK_FALSE(r.timeline.margin_s);
+}
+
+TEST_CASE("a descent out of its time budget ends in \"descent stopped\", never a touchdown") {
+    // Regression: the descent under the canopy stops at 250 s, kilometres up; the lander
+    // separated there, and where its burn ended was listed as the touchdown (or release).
+    ds::Design d = sample("small-ballistic-station");
+    d.solver.max_time_s = 250.0;
+    for (const ds::TerminalMethod method :
+         {ds::TerminalMethod::retro, ds::TerminalMethod::airbag, ds::TerminalMethod::tethered}) {
+        const std::string name(ds::to_string(method));
+        CAPTURE(name);
+        d.terminal.method = method;
+        const ds::Results r = ds::size_design(d);
+        REQUIRE(find_check(r, "trajectory"));
+        CHECK(find_check(r, "trajectory")->status == ds::CheckStatus::fail);
+        for (const char* ground : {"touchdown", "release", "hover and lowering", "airbag impact",
+                                   "payload touchdown"}) {
+            CAPTURE(ground);
+            CHECK_FALSE(find_event(r, ground));
+        }
+        const ds::TimelineEvent& last = r.timeline.events.back();
+        CHECK(last.name == "descent stopped");
+        CHECK(last.altitude_m > d.site.elevation_m + 1000.0);
+        // The lander separated at the end of the stopped descent, the budget's 250 s.
+        REQUIRE(find_event(r, "backshell separation"));
+        CHECK(std::abs(find_event(r, "backshell separation")->time_s - 250.0) < 1e-9);
+    }
+    // Without a burn, the timeline now ends where the descent stopped.
+    d.terminal.method = ds::TerminalMethod::none;
+    const ds::Results none = ds::size_design(d);
+    CHECK(none.timeline.events.back().name == "descent stopped");
+    CHECK(std::abs(none.timeline.events.back().time_s - 250.0) < 1e-9);
+    CHECK(none.timeline.events.back().altitude_m > d.site.elevation_m + 1000.0);
+}

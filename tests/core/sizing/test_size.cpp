@@ -132,6 +132,42 @@ TEST_CASE("a shallow lifting entry that skips out fails and says so") {
     CHECK(c->message.find("skips out") != std::string::npos);
 }
 
+TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on a skip's climb") {
+    // Regression: the dynamic pressure also falls on the climb out of a skip, and the trigger
+    // fired there, deploying the canopy at Mach 24.9 with the path 5 deg above the horizon.
+    ds::Design d = sample("small-ballistic-station");
+    d.entry.flight_path_angle_deg = -10.0;
+    d.entry.lift_to_drag = 0.6;
+    d.entry.velocity_m_s = 6500.0;
+    d.parachute.trigger = ds::TriggerKind::dynamic_pressure;
+    d.parachute.trigger_value = 250.0;
+    const ds::Results r = ds::size_design(d);
+    // The dynamic pressure rose through 250 Pa (to some 840 Pa) and fell back through it.
+    CHECK(r.entry.peak_dynamic_pressure_Pa > 2.0 * 250.0);
+    CHECK_FALSE(r.parachute.deployed);
+    const ds::Check* c = find_check(r, "parachute_trigger");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->message.find("skips out") != std::string::npos);
+    // The entry ends at the interface altitude, located to 1e-7 s (well under 1 cm here).
+    CHECK(r.timeline.events.back().name == "atmospheric exit");
+    CHECK(std::abs(r.timeline.events.back().altitude_m - 125000.0) < 0.01);
+}
+
+TEST_CASE("a dynamic-pressure trigger in descending flight deploys at its value, to 1e-6") {
+    ds::Design d = sample("small-ballistic-station");
+    d.parachute.trigger = ds::TriggerKind::dynamic_pressure;
+    d.parachute.trigger_value = 600.0;
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.parachute.deployed);
+    CHECK(*r.parachute.deploy_dynamic_pressure_Pa == doctest::Approx(600.0).epsilon(1e-6));
+    const auto deploy = std::find_if(r.history.begin(), r.history.end(), [&](const auto& s) {
+        return s.time_s == *r.parachute.deploy_time_s;
+    });
+    REQUIRE(deploy != r.history.end());
+    CHECK(deploy->flight_path_angle_deg < 0.0);
+}
+
 TEST_CASE("an exhausted step budget is a failing check and an unconverged result, not a hang") {
     ds::Design d = sample("small-ballistic-station");
     d.solver.max_steps = 10;
