@@ -144,6 +144,11 @@ struct TerminalDesign {
     double release_height_m = 12.0;  ///< airbag: the burn ends here above the site
     double tether_length_m = 7.5;    ///< tethered: hover height above the site while lowering
     double fly_away_s = 10.0;        ///< tethered: seconds of hover thrust after the cut
+    /// A built vehicle's hardware, given instead of derived: the full thrust (instead of the
+    /// thrust-to-weight times the weight) and the propellant loaded (instead of the burn's
+    /// need with its reserve and residual). A dispersion flies the nominal vehicle with both.
+    std::optional<double> thrust_N;
+    std::optional<double> propellant_loaded_kg;
 };
 
 /// Numerical settings of the trajectory integration.

@@ -350,6 +350,16 @@ constexpr std::array burn_keys{
                 Need::optional},
 };
 
+/// Hardware a design may give instead of deriving it, for the methods that fire engines.
+struct GivenHardwareKey {
+    std::string_view key;
+    std::optional<double> TerminalDesign::*member;
+};
+constexpr std::array given_hardware_keys{
+    GivenHardwareKey{"thrust_N", &TerminalDesign::thrust_N},
+    GivenHardwareKey{"propellant_loaded_kg", &TerminalDesign::propellant_loaded_kg},
+};
+
 /// "method \"airbag\"" or "methods \"retro\", \"airbag\" and \"tethered\"".
 std::string method_names(std::span<const TerminalMethod> methods) {
     std::vector<std::string> quoted;
@@ -934,6 +944,14 @@ private:
         }
         for (const auto& key : burn_keys)
             read_key(key);
+        for (const auto& [key, member] : given_hardware_keys) {
+            if (method && !powered && f.has(key)) {
+                f.value(key, Need::optional);
+                f.report(key, fmt::format("only for {}", method_names(powered_methods)));
+                continue;
+            }
+            if (auto v = f.optional_number(key, positive)) terminal.*member = *v;
+        }
         f.report_unknown();
     }
 

@@ -190,6 +190,9 @@ Json terminal_to_json(const TerminalDesign& terminal) {
         out["tether_length_m"] = number(terminal.tether_length_m);
         out["fly_away_s"] = number(terminal.fly_away_s);
     }
+    if (powered && terminal.thrust_N) out["thrust_N"] = number(*terminal.thrust_N);
+    if (powered && terminal.propellant_loaded_kg)
+        out["propellant_loaded_kg"] = number(*terminal.propellant_loaded_kg);
     return out;
 }
 

@@ -19,6 +19,7 @@ std::vector<KeyFigure> key_figures(const Results& r) {
          "Pa", 0},
         {"parachute_diameter", "parachute diameter", r.parachute.diameter_m, "m", 2},
         {"propellant", "propellant (loaded)", r.terminal.propellant_kg, "kg", 1},
+        {"burned_propellant", "propellant burned", r.terminal.burned_propellant_kg, "kg", 1},
         {"timeline_margin", "timeline margin", r.timeline.margin_s, "s", 1},
         {"max_site_elevation", "highest feasible site elevation",
          r.capability.max_site_elevation_m, "m", 0},

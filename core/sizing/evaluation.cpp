@@ -108,7 +108,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     const TerminalDesign& t = design.terminal;
     const double site = design.site.elevation_m;
     const double g_site = model.body.gravity_m_s2(site);
-    e.full_thrust_N = t.thrust_to_weight * e.lander_kg * g_site;
+    e.full_thrust_N = t.thrust_N.value_or(t.thrust_to_weight * e.lander_kg * g_site);
     BurnRequest request;
     request.site_elevation_m = site;
     request.end_height_above_site_m = t.method == TerminalMethod::airbag     ? t.release_height_m
@@ -162,7 +162,8 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
             double fly_away_burned = 0.0;
             constexpr int passes = 4;
             for (int i = 0; i < passes; ++i) {
-                const double loaded = loaded_propellant(t, burn.burned_kg + hover_burned + fly_away_burned);
+                const double loaded = t.propellant_loaded_kg.value_or(
+                    loaded_propellant(t, burn.burned_kg + hover_burned + fly_away_burned));
                 tanks = MassEstimates::tank_fraction * loaded;
                 const double stage = descent_items +
                                      (tanks + engines) * (1.0 + growth_allowance(Maturity::estimated)) +
@@ -178,19 +179,22 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
         case TerminalMethod::none: break;
     }
     e.burned_kg = burned;
-    e.loaded_propellant_kg = loaded_propellant(t, burned);
+    e.loaded_propellant_kg = t.propellant_loaded_kg.value_or(loaded_propellant(t, burned));
     tanks = MassEstimates::tank_fraction * e.loaded_propellant_kg;
     e.budget.add_computed(
         "propellant (loaded)", e.loaded_propellant_kg, MassGroup::descent_stage,
-        fmt::format("rocket equation: {:.1f} kg burned, {:.0f} % reserve, {:.0f} % residual",
-                    burned, 100.0 * t.propellant_reserve_fraction,
-                    100.0 * t.propellant_residual_fraction));
+        t.propellant_loaded_kg
+            ? fmt::format("given by the design; {:.1f} kg burned", burned)
+            : fmt::format("rocket equation: {:.1f} kg burned, {:.0f} % reserve, {:.0f} % residual",
+                          burned, 100.0 * t.propellant_reserve_fraction,
+                          100.0 * t.propellant_residual_fraction));
     e.budget.add_estimate("propellant tanks", tanks, MassGroup::descent_stage,
                           fmt::format("{:.0f} % of loaded propellant ({})",
                                       100.0 * MassEstimates::tank_fraction, estimate_source));
     e.budget.add_estimate("engines and feed system", engines, MassGroup::descent_stage,
-                          fmt::format("{} kg per N of full thrust ({})",
-                                      MassEstimates::engine_kg_per_N, estimate_source));
+                          fmt::format("{} kg per N of {} full thrust ({})",
+                                      MassEstimates::engine_kg_per_N,
+                                      t.thrust_N ? "the given" : "the", estimate_source));
 }
 
 /// The descent under the canopy to the ground, with no burn: the method "none" touches down

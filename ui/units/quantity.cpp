@@ -100,6 +100,11 @@ constexpr std::array angular_rate_units{
     Unit{"deg/s", degree_rad},
     Unit{"rpm", 2.0 * std::numbers::pi / 60.0},
 };
+constexpr std::array force_units{
+    Unit{"N", 1.0},
+    Unit{"kN", 1e3},
+    Unit{"lbf", pound_force_N},
+};
 constexpr std::array dimensionless_units{Unit{"", 1.0}};
 
 /// Other spellings users type, mapped to a symbol of the tables above.
@@ -117,7 +122,7 @@ constexpr std::array all_dimensions{
     Dimension::velocity,      Dimension::angle,       Dimension::pressure,
     Dimension::density,       Dimension::temperature, Dimension::time,
     Dimension::area_density,  Dimension::heat_flux,   Dimension::acceleration,
-    Dimension::angular_rate,
+    Dimension::angular_rate,  Dimension::force,
 };
 
 /// "a length", as the messages name a dimension.
@@ -149,6 +154,8 @@ std::string_view describe(Dimension dimension) {
             return "an acceleration";
         case Dimension::angular_rate:
             return "an angular rate";
+        case Dimension::force:
+            return "a force";
     }
     return "a quantity";
 }
@@ -249,6 +256,8 @@ std::span<const Unit> unitsOf(Dimension dimension) {
             return acceleration_units;
         case Dimension::angular_rate:
             return angular_rate_units;
+        case Dimension::force:
+            return force_units;
     }
     return dimensionless_units;
 }

@@ -22,6 +22,7 @@ enum class Dimension {
     heat_flux,     ///< W/cm^2
     acceleration,  ///< g (standard gravities), as the limits use it
     angular_rate,  ///< rad/s
+    force,         ///< N
 };
 
 /// A unit a user may type after a number, with its factor to the dimension's SI unit.

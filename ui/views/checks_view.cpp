@@ -94,6 +94,7 @@ std::string ChecksView::fieldForCheck(const std::string& checkId) {
         {"timeline_margin", "/sequence/ground_sensing_lock_s"},
         {"heat_shield_jettison", "/sequence/heat_shield_jettison_delay_s"},
         {"drop_mass", "/parachute/mass_kg"},
+        {"propellant_load", "/terminal/propellant_reserve_fraction"},
         {"trajectory", "/entry/flight_path_angle_deg"},
     };
     const auto it = fields.find(checkId);

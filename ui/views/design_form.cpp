@@ -36,7 +36,8 @@ const std::vector<Json> trigger_defaults{1.8, 500.0, 10000.0};
 // Terminal keys that only some methods take.
 const std::vector<std::string> engine_keys{"isp_s", "thrust_to_weight", "throttle",
                                            "propellant_reserve_fraction",
-                                           "propellant_residual_fraction"};
+                                           "propellant_residual_fraction", "thrust_N",
+                                           "propellant_loaded_kg"};
 
 Dimension dimensionOfUnit(std::string_view unit) {
     if (unit == "kg/m^2") return Dimension::area_density;
@@ -346,7 +347,8 @@ void DesignForm::buildTerminal() {
             keep("thrust_to_weight", engines, 2.5);
             keep("touchdown_velocity_m_s", true, engines ? 2.0 : 8.0);
             for (const char* key : {"throttle", "propellant_reserve_fraction",
-                                    "propellant_residual_fraction"}) {
+                                    "propellant_residual_fraction", "thrust_N",
+                                    "propellant_loaded_kg"}) {
                 keep(key, engines, Json());
             }
             keep("release_height_m", method == "airbag", Json());
@@ -366,6 +368,10 @@ void DesignForm::buildTerminal() {
               Dimension::dimensionless, {0.0, 1.0, false, true, 0.05, 0.15}, true, "0.1");
     addNumber(form, tr("Propellant residual"), "/terminal/propellant_residual_fraction",
               Dimension::dimensionless, {0.0, 1.0, false, true, 0.02, 0.05}, true, "0.03");
+    addNumber(form, tr("Full thrust (built)"), "/terminal/thrust_N", Dimension::force,
+              positive(2000, 20000), true, "from thrust-to-weight");
+    addNumber(form, tr("Propellant loaded (built)"), "/terminal/propellant_loaded_kg",
+              Dimension::mass, positive(20, 300), true, "from the burn");
     addNumber(form, tr("Release height"), "/terminal/release_height_m", Dimension::length,
               atLeastZero(10, 20), true, "12 m");
     addNumber(form, tr("Tether length"), "/terminal/tether_length_m", Dimension::length,

@@ -152,9 +152,62 @@ TEST_CASE("a sized design is frozen into the vehicle it sizes to") {
     REQUIRE(frozen.mass.entry_kg);
     CHECK(*frozen.mass.entry_kg == doctest::Approx(sized.mass.entry_kg).epsilon(1e-12));
     CHECK(*frozen.aeroshell.diameter_m == doctest::Approx(sized.entry.diameter_m).epsilon(1e-12));
+    // The engines and tanks are built too: the nominal flight of the frozen vehicle is the
+    // sized one, with the whole budget allocated and the load covering the burn by its reserve.
+    REQUIRE(frozen.terminal.thrust_N);
+    REQUIRE(frozen.terminal.propellant_loaded_kg);
+    CHECK(*frozen.terminal.propellant_loaded_kg == doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-12));
     const ds::Results again = ds::size_design(frozen);
     CHECK(*again.mass.landed_kg == doctest::Approx(*sized.mass.landed_kg).epsilon(1e-3));
-    CHECK(*again.terminal.propellant_kg == doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-3));
+    CHECK(*again.terminal.propellant_kg == doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-12));
+    for (const ds::Check& c : again.checks) {
+        CHECK_MESSAGE(c.status != ds::CheckStatus::fail, c.id);
+        if (c.id == "propellant_load") {
+            // Burned b, loaded b (1 + r) / (1 - s): usable b (1 + r), margin r / (1 + r).
+            const double r = d.terminal.propellant_reserve_fraction;
+            CHECK(*c.margin == doctest::Approx(r / (1.0 + r)).epsilon(1e-3));
+        }
+    }
+}
+
+TEST_CASE("a dispersed sized vehicle flies its built load: only a burn past it fails") {
+    // The rover carrier closes its budget with the propellant its nominal burn needs. Dispersed,
+    // each flight burns more or less of that fixed load; none may fail the budget itself.
+    const ds::Design d = sample("lifting-rover-carrier");
+    ds::DispersionSettings settings;
+    settings.runs = 200;
+    settings.seed = 5;
+    const auto [campaign, error] = ds::run_dispersions(d, DESCENT_SIZER_SAMPLES_DIR, settings);
+    REQUIRE(campaign);
+    const ds::DispersionSummary s = ds::summarize(*campaign);
+    for (const auto& [id, count] : s.failing_checks) {
+        CHECK_MESSAGE(id != "mass_allocation", count);
+    }
+    // The load is one number for every case (built hardware), the burn varies.
+    const auto& propellant = s.figures[figure_index("propellant")];
+    CHECK(propellant.standard_deviation == doctest::Approx(0.0).scale(1.0).epsilon(1e-9));
+}
+
+TEST_CASE("a given thrust and load replace the derived ones; a load short of the burn fails") {
+    ds::Design d = sample("small-ballistic-station");
+    const ds::Results derived = ds::size_design(d, {false, false});
+    REQUIRE(derived.terminal.thrust_N);
+    // A fifth more thrust than thrust-to-weight gives, and a 10 kg load.
+    d.terminal.thrust_N = 1.2 * *derived.terminal.thrust_N;
+    d.terminal.propellant_loaded_kg = 10.0;
+    const ds::Results given = ds::size_design(d, {false, false});
+    CHECK(*given.terminal.thrust_N == doctest::Approx(1.2 * *derived.terminal.thrust_N).epsilon(1e-12));
+    CHECK(*given.terminal.propellant_kg == doctest::Approx(10.0).epsilon(1e-12));
+    const ds::Check* load = nullptr;
+    for (const ds::Check& c : given.checks) {
+        if (c.id == "propellant_load") load = &c;
+    }
+    REQUIRE(load);
+    // Usable: 10 kg less the 3 % residual, short of the burn (about 17 kg here).
+    CHECK(load->limit == doctest::Approx(9.7).epsilon(1e-12));
+    CHECK(load->value > 9.7);
+    CHECK(load->status == ds::CheckStatus::fail);
+    CHECK(*load->margin == doctest::Approx((9.7 - load->value) / 9.7).epsilon(1e-12));
 }
 
 TEST_CASE("a sweep of the aeroshell diameter: beta falls and the deploy altitude rises (trend)") {
