@@ -8,6 +8,7 @@
 #include <cstring>
 #include <string_view>
 
+#include "allocator.hpp"
 #include "commands.hpp"
 
 namespace {
@@ -21,6 +22,7 @@ bool isCommand(std::string_view word) {
 }  // namespace
 
 int main(int argc, char** argv) {
+    ds::tuneAllocator();
     if (argc > 1 && isCommand(argv[1])) return ds::runCommand(argc, argv);
 #ifdef DESCENT_SIZER_WITH_GUI
     return ds::runWindow(argc, argv);

@@ -33,9 +33,11 @@ bool parallel_for(std::size_t count, unsigned threads, Progress* progress, Work&
             if (progress) progress->report(static_cast<double>(finished) / static_cast<double>(count));
         }
     };
+    // Every case runs on a thread of the pool, the caller only waits: the caller's allocator
+    // arena (the main one, for a program's main thread) was measured 25 % slower on the
+    // flights' allocations than a thread's own, which made one thread look slower than it is.
     std::vector<std::thread> pool;
-    for (unsigned t = 1; t < threads; ++t) pool.emplace_back(run);
-    run();
+    for (unsigned t = 0; t < threads; ++t) pool.emplace_back(run);
     for (std::thread& thread : pool) thread.join();
     return !stopped && done == count;
 }
