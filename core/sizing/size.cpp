@@ -200,10 +200,14 @@ void fill_parachute(const Evaluation& e, ParachuteResults& p) {
 
 void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t) {
     t.method = std::string(to_string(design.terminal.method));
-    t.touchdown_velocity_m_s = e.touchdown_velocity_m_s;
-    t.impact_velocity_m_s = e.impact_velocity_m_s;
-    t.impact_energy_J = e.impact_energy_J;
-    t.hover_time_s = e.hover_time_s;
+    // A burn the descent's budget cut short never reached its end: no touchdown, impact or
+    // hover figures to hold against their limits (the trajectory check says why).
+    if (!terminal_cut_short(e)) {
+        t.touchdown_velocity_m_s = e.touchdown_velocity_m_s;
+        t.impact_velocity_m_s = e.impact_velocity_m_s;
+        t.impact_energy_J = e.impact_energy_J;
+        t.hover_time_s = e.hover_time_s;
+    }
     if (!e.burn) return;
     const BurnSolution& b = *e.burn;
     t.ignition_time_s = b.ignition_time_s;
