@@ -58,8 +58,10 @@ DispersionTable::DispersionTable(DesignDocument* document, QWidget* parent)
 }
 
 void DispersionTable::load() {
-    m_loading = true;
     const DesignDocument::Json list = m_document->value(dispersionsPointer);
+    if (m_shown && list == *m_shown) return;  // an edit elsewhere in the design
+    m_shown = list;
+    m_loading = true;
     const int rows = list.is_array() ? static_cast<int>(list.size()) : 0;
     m_table->setRowCount(rows);
     for (int row = 0; row < rows; ++row) {

@@ -1,6 +1,9 @@
 #pragma once
 
+#include <optional>
+
 #include <QWidget>
+#include <nlohmann/json.hpp>
 
 QT_BEGIN_NAMESPACE
 class QTableWidget;
@@ -28,6 +31,7 @@ private:
 
     DesignDocument* m_document;
     QTableWidget* m_table;
+    std::optional<nlohmann::ordered_json> m_shown;  ///< the dispersions the table shows
     bool m_loading = false;
 };
 

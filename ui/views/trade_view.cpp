@@ -231,6 +231,8 @@ void TradeView::refreshKeys() {
         DesignVariants(m_document->json(), m_document->baseDirectory()).numeric_keys();
     QStringList names;
     for (const std::string& key : keys) names << text(key);
+    if (names == m_keyNames) return;  // most edits change values, not keys
+    m_keyNames = names;
     for (AxisControls& axis : m_axes) {
         const QString current = axis.key->currentText();
         const QSignalBlocker block(axis.key);

@@ -4,6 +4,7 @@
 #include <string>
 #include <vector>
 
+#include <QStringList>
 #include <QWidget>
 
 #include "trade/sweep.hpp"
@@ -98,6 +99,7 @@ private:
     QChartView* m_histogram;
     QChartView* m_scatter;
     QChartView* m_sensitivity;
+    QStringList m_keyNames;
     bool m_stale = false;
 };
 
