@@ -33,6 +33,8 @@ constexpr double percent = 100.0;
 /// Histogram bins: the square root of the cases, within these bounds (common practice).
 constexpr int fewestBins = 5;
 constexpr int mostBins = 50;
+/// Relative spread below which a dispersed figure counts as constant.
+constexpr double constantFigureSpread = 1e-9;
 /// The inputs a sensitivity chart shows, the strongest first.
 constexpr std::size_t sensitivityBars = 12;
 /// A normalised sensitivity below this is no dependence at all: the five-point differences'
@@ -353,7 +355,9 @@ QChart* dispersionHistogramChart(const TradeOutcome& outcome, const std::string&
     const auto [lowIt, highIt] = std::minmax_element(values.begin(), values.end());
     double low = *lowIt;
     double high = *highIt;
-    if (!(high > low)) {
+    // A figure the dispersions do not move (a trigger Mach, a sized diameter) differs only by
+    // round-off: one bar around its value, not bins a billionth wide.
+    if (!(high - low > constantFigureSpread * std::max(1.0, std::abs(low)))) {
         const double pad = std::max(std::abs(low) * 0.01, 1e-6);
         low -= pad;
         high += pad;
