@@ -17,8 +17,11 @@ FlightState DenseTrajectory::state_at(double t) const {
 
 std::optional<double> DenseTrajectory::time_descending_through(double altitude_m) const {
     constexpr double time_tolerance_s = 1e-7;
-    for (const auto& step : steps_) {
-        const double t_end = std::min(step.t0 + step.h, end_time_);
+    for (std::size_t i = 0; i < steps_.size(); ++i) {
+        const auto& step = steps_[i];
+        // A step that an event cut short ends where the next one starts.
+        const double next = i + 1 < steps_.size() ? steps_[i + 1].t0 : end_time_;
+        const double t_end = std::min({step.t0 + step.h, next, end_time_});
         const double above = step(step.t0)[StateIndex::altitude] - altitude_m;
         const double below = step(t_end)[StateIndex::altitude] - altitude_m;
         if (!(above > 0.0 && below <= 0.0)) {

@@ -39,4 +39,36 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
 /// scaled by cos(bank). Thrust acts against the velocity.
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y);
 
+/// How far a flight is from settled, as the larger of |dv/dt| / g and |d gamma/dt| v / g of
+/// flight_derivative: near the equilibrium of a vehicle under its canopy these are, to first
+/// order, the speed's relative excess over its equilibrium times two and the flight-path
+/// angle's offset from its equilibrium in radians.
+double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y);
+
+/// Speed and flight-path angle of a stage without thrust or lift in quasi-steady descent.
+struct Equilibrium {
+    double velocity_m_s = 0.0;
+    double flight_path_angle_rad = 0.0;
+};
+
+/// The quasi-steady descent of a stage without thrust or lift, such as a vehicle settled under
+/// its canopy: the speed and the flight-path angle sit on their equilibrium at the altitude
+/// and mass, the one where drag balances gravity less the centrifugal term plus what keeps the
+/// speed following its equilibrium as the air thickens (the first-order term of the slow
+/// manifold, so the model's error is of the order of the square of the deceleration in g),
+/// and where gravity turns the path as fast as the Coriolis term turns it back.
+Equilibrium quasi_steady_equilibrium(const FlightModel& model, const Stage& stage,
+                                     const FlightState& y);
+
+/// The state with its speed and flight-path angle replaced by the quasi-steady equilibrium.
+FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y);
+
+/// The equations of the quasi-steady descent: altitude, downrange and heat loads as in
+/// flight_derivative; speed and flight-path angle change at the slope of their equilibrium in
+/// altitude times the sink rate, so a state on the equilibrium stays on it; the mass is held
+/// (no thrust). Free of the fast modes, so the integrator takes steps of the descent's own
+/// time scale.
+FlightState quasi_steady_derivative(const FlightModel& model, const Stage& stage,
+                                    const FlightState& y);
+
 }  // namespace ds

@@ -1,6 +1,8 @@
 #include "flight/phase.hpp"
 
+#include <algorithm>
 #include <cmath>
+#include <optional>
 
 #include "constants.hpp"
 
@@ -50,14 +52,70 @@ IntegratorSettings<flight_state_size> flight_integrator_settings(double relative
     return s;
 }
 
-PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
-                       const FlightState& y0, double t_max,
-                       const IntegratorSettings<flight_state_size>& settings,
-                       PhaseRecording recording) {
+namespace {
+
+/// Which equations fly a stretch of a phase.
+enum class Equations { full, quasi_steady };
+
+/// A flight has settled when its fast rates (unsettled_rate) and the deceleration of the
+/// quasi-steady model have both fallen below this, in g. The speed is then within some 5e-4 of
+/// its equilibrium and the path within 1e-3 rad of its own, and the quasi-steady model, whose
+/// error goes as the square of that deceleration, is good to about 1e-6 in speed, near the full
+/// equations' own error at the default tolerance. Above it the fast modes are less than a
+/// thousand times faster than the descent itself, and stiffness costs the full equations
+/// little (our choice).
+constexpr double settle_rate_g = 1e-3;
+/// It unsettles when the quasi-steady deceleration rises past this, in g: twice the settling
+/// value, so that the two changes cannot chase each other (our choice).
+constexpr double unsettle_rate_g = 2e-3;
+
+double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
+                   const FlightState& y) {
+    return flight_quantity(q, flight_conditions(model, stage, y), y);
+}
+
+/// The deceleration of the quasi-steady model, in g.
+double quasi_steady_rate(const FlightModel& model, const Stage& stage, const FlightState& y) {
+    return std::abs(quasi_steady_derivative(model, stage, y)[StateIndex::velocity]) /
+           model.body.gravity_m_s2(y[StateIndex::altitude]);
+}
+
+/// Negative once settled: of the sign of the larger of the two rates less settle_rate_g (the
+/// quasi-steady one is computed only when the fast rates are below it).
+double settling(const FlightModel& model, const Stage& stage, const FlightState& y) {
+    const double fast = unsettled_rate(model, stage, y);
+    if (!(fast < settle_rate_g)) return fast - settle_rate_g;
+    return std::max(fast, quasi_steady_rate(model, stage, y)) - settle_rate_g;
+}
+
+/// The event that says a stretch's equations should change: settled on the full equations,
+/// unsettled on the quasi-steady ones.
+Event<flight_state_size> change_of_equations(const FlightModel& model, const Stage& stage,
+                                             Equations equations) {
+    if (equations == Equations::full) {
+        return {
+            [&model, &stage](double, const FlightState& y) { return settling(model, stage, y); },
+            EventDirection::falling, true};
+    }
+    return {[&model, &stage](double, const FlightState& y) {
+                return quasi_steady_rate(model, stage, y) - unsettle_rate_g;
+            },
+            EventDirection::rising, true};
+}
+
+/// Flies a phase on one set of equations until a trigger, t_max or the step budget, or (with
+/// `may_change`) until its equations should change: that event comes after the peaks.
+IntegrationOutcome<flight_state_size> fly_stretch(
+    const FlightModel& model, const Phase& phase, Equations equations, bool may_change, double t0,
+    const FlightState& y0, double t_max, const IntegratorSettings<flight_state_size>& settings,
+    PhaseRecording recording) {
     const Stage& stage = phase.stage;
-    const auto rhs = [&](double, const FlightState& y) { return flight_derivative(model, stage, y); };
+    const auto rhs = [&](double, const FlightState& y) {
+        return equations == Equations::full ? flight_derivative(model, stage, y)
+                                            : quasi_steady_derivative(model, stage, y);
+    };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
-        return flight_quantity(q, flight_conditions(model, stage, y), y);
+        return quantity_at(model, stage, q, y);
     };
 
     const auto descending = [](double, const FlightState& y) {
@@ -85,6 +143,7 @@ PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
                           },
                           EventDirection::falling, false});
     }
+    if (may_change) events.push_back(change_of_equations(model, stage, equations));
 
     const auto on_step = [&](double t, const FlightState& y) {
         if (recording.history) {
@@ -96,22 +155,85 @@ PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
         rhs, t0, y0, t_max, events, settings, on_step,
         recording.dense ? &recording.dense->steps() : nullptr);
     if (recording.dense) recording.dense->set_end_time(run.t);
+    return run;
+}
 
-    PhaseOutcome out;
+/// The trigger, if any, that moving the state onto the equilibrium carries it across: the
+/// full equations would have crossed it in the transient that the move skips.
+std::optional<std::size_t> trigger_skipped(const FlightModel& model, const Phase& phase,
+                                           const FlightState& from, const FlightState& to) {
+    for (std::size_t i = 0; i < phase.ends.size(); ++i) {
+        const Trigger& trigger = phase.ends[i];
+        const double before =
+            quantity_at(model, phase.stage, trigger.quantity, from) - trigger.value;
+        const double after = quantity_at(model, phase.stage, trigger.quantity, to) - trigger.value;
+        const bool counts = !trigger.descending_only || to[StateIndex::flight_path_angle] < 0.0;
+        if (counts && detail::crosses(before, after, trigger.direction)) return i;
+    }
+    return std::nullopt;
+}
+
+/// Moves the outcome's state onto the equilibrium. True when that carries it across a trigger,
+/// which then ends the phase there.
+bool settle(const FlightModel& model, const Phase& phase, PhaseOutcome& out) {
+    const FlightState settled = onto_equilibrium(model, phase.stage, out.y);
+    out.ended_by = trigger_skipped(model, phase, out.y, settled);
+    out.y = settled;
+    if (!out.ended_by) return false;
+    out.reason = StopReason::terminal_event;
+    return true;
+}
+
+/// Adds a stretch to the phase's outcome: its steps, peaks, trigger and where it ended. True
+/// when it ended on a change of equations.
+bool add_stretch(const FlightModel& model, const Phase& phase, Equations equations,
+                 const IntegrationOutcome<flight_state_size>& run, PhaseOutcome& out) {
     out.reason = run.reason;
     out.time_s = run.t;
     out.y = run.y;
-    out.steps = run.accepted_steps;
-    out.evaluations = run.evaluations;
+    out.steps += run.accepted_steps;
+    out.evaluations += run.evaluations;
+    if (equations == Equations::quasi_steady) out.quasi_steady_steps += run.accepted_steps;
+    bool changed = false;
     for (const EventHit<flight_state_size>& hit : run.events) {
         if (hit.index < phase.ends.size()) {
             out.ended_by = hit.index;
             continue;
         }
         const std::size_t p = hit.index - phase.ends.size();
-        out.peaks.push_back({p, hit.t, quantity(phase.peaks[p].quantity, hit.y), hit.y});
+        if (p == phase.peaks.size()) {
+            changed = true;
+            continue;
+        }
+        out.peaks.push_back(
+            {p, hit.t, quantity_at(model, phase.stage, phase.peaks[p].quantity, hit.y), hit.y});
     }
-    return out;
+    return changed;
+}
+
+}  // namespace
+
+PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
+                       const FlightState& y0, double t_max,
+                       const IntegratorSettings<flight_state_size>& settings,
+                       PhaseRecording recording) {
+    const Stage& stage = phase.stage;
+    const bool may_settle =
+        phase.quasi_steady_when_settled && stage.thrust_N == 0.0 && stage.lift_to_drag == 0.0;
+    Equations equations =
+        may_settle && settling(model, stage, y0) < 0.0 ? Equations::quasi_steady : Equations::full;
+    PhaseOutcome out;
+    out.time_s = t0;
+    out.y = y0;
+    for (;;) {
+        if (equations == Equations::quasi_steady && settle(model, phase, out)) return out;
+        IntegratorSettings<flight_state_size> budget = settings;
+        budget.max_steps -= out.steps;
+        const IntegrationOutcome<flight_state_size> run = fly_stretch(
+            model, phase, equations, may_settle, out.time_s, out.y, t_max, budget, recording);
+        if (!add_stretch(model, phase, equations, run, out)) return out;
+        equations = equations == Equations::full ? Equations::quasi_steady : Equations::full;
+    }
 }
 
 }  // namespace ds

@@ -46,6 +46,10 @@ struct Phase {
     Stage stage;
     std::vector<Trigger> ends;
     std::vector<Peak> peaks;
+    /// Once the flight has settled onto its equilibrium, fly on the quasi-steady equations
+    /// (quasi_steady_derivative) until it unsettles; for a stage without thrust or lift only,
+    /// ignored otherwise. See fly_phase.
+    bool quasi_steady_when_settled = false;
 };
 
 struct PeakHit {
@@ -62,6 +66,7 @@ struct PhaseOutcome {
     FlightState y;
     std::vector<PeakHit> peaks;  ///< every local maximum, in time order
     std::size_t steps = 0;
+    std::size_t quasi_steady_steps = 0;  ///< of `steps`, on the quasi-steady equations
     std::size_t evaluations = 0;
 };
 
@@ -72,6 +77,12 @@ struct PhaseRecording {
 };
 
 /// Flies one phase from (t0, y0) until a trigger, or until t_max or the step budget runs out.
+/// A phase that may fly quasi-steady does so from where it has settled: where its fast rates
+/// (unsettled_rate) and the quasi-steady deceleration have both fallen below 1e-3 g; it goes
+/// back to the full equations where that deceleration rises past 2e-3 g. At the change to the
+/// quasi-steady equations the state is moved onto the equilibrium; a trigger that the move
+/// carries it across ends the phase there. The recording and the outcome cover the whole
+/// phase whatever equations flew it.
 PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
                        const FlightState& y0, double t_max,
                        const IntegratorSettings<flight_state_size>& settings,

@@ -13,6 +13,7 @@ Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
     phase.name = "parachute";
     phase.stage.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
     phase.ends = {{"floor", FlightQuantity::altitude, floor_altitude_m, EventDirection::falling}};
+    phase.quasi_steady_when_settled = plan.quasi_steady;
     return phase;
 }
 
@@ -47,6 +48,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     }
     const PhaseOutcome first =
         fly_phase(model, under_canopy, deploy_time_s, deploy_state, t_end, settings, recording);
+    out.quasi_steady_steps = first.quasi_steady_steps;
     const bool floor_first = first.ended_by == std::size_t{0};
     const bool jettison_event = first.reason == StopReason::terminal_event && !floor_first;
     const bool jettison_delay = first.reason == StopReason::reached_end && t_end < t_budget;
@@ -65,6 +67,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     under_canopy.ends.resize(1);  // the floor only
     const PhaseOutcome second =
         fly_phase(model, under_canopy, first.time_s, y, t_budget, settings, recording);
+    out.quasi_steady_steps += second.quasi_steady_steps;
     out.reached_floor = second.reason == StopReason::terminal_event;
     out.stop_reason = second.reason;
     return out;
@@ -81,6 +84,7 @@ void extend_descent(const Design& design, const FlightModel& model, DescentFligh
     const PhaseOutcome more = fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m), t,
                                         y, design.solver.max_time_s, descent_settings(design),
                                         {&descent.samples, &descent.record});
+    descent.quasi_steady_steps += more.quasi_steady_steps;
     descent.reached_floor = more.reason == StopReason::terminal_event;
     descent.stop_reason = more.reason;
 }

@@ -13,6 +13,9 @@ struct DescentPlan {
     double body_drag_area_m2 = 0.0;   ///< Cd A of the suspended vehicle
     double jettison_mass_kg = 0.0;    ///< dropped at heat-shield jettison
     double floor_altitude_m = 0.0;    ///< flown down to here
+    /// Fly the settled descent on the quasi-steady equations (Phase::quasi_steady_when_settled);
+    /// false flies the full equations throughout, to check the one against the other.
+    bool quasi_steady = true;
 };
 
 /// The descent under the canopy from deploy: with the heat shield until its jettison, then
@@ -25,6 +28,7 @@ struct DescentFlight {
     FlightState jettison_state;
     bool reached_floor = false;
     StopReason stop_reason = StopReason::terminal_event;  ///< why, when not reached_floor
+    std::size_t quasi_steady_steps = 0;  ///< of the record's steps, on the quasi-steady equations
     DenseTrajectory record;
     std::vector<TrajectorySample> samples;  ///< one per accepted step, deploy to floor
 };

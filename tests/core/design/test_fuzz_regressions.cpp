@@ -146,7 +146,10 @@ TEST_CASE("a capsule under a canopy sized for 2 m/s lands at 2 m/s after an hour
 TEST_CASE("a stiff descent under a 10 km canopy stops at the step budget and says so") {
     // A slow input (corpus/regression-stiff-descent.json): the reader takes any flight-time
     // budget, and under a canopy kilometres wide the descent is stiff, so the step budget is what
-    // bounds the work (200000 steps, about 1 s per flight in Release). Kept small here.
+    // bounds the work (200000 steps, about 1 s per flight in Release). Kept small here. Once
+    // settled the descent now flies quasi-steady and lands in some 120 steps (see
+    // sizing/test_quasi_steady_descent.cpp), so the budget is set below the some 105 steps of
+    // the canopy's opening transient and above the entry's 44.
     const std::string design = R"({
       "format": "descent-sizer/design", "version": 1, "name": "stiff", "body": "mars",
       "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
@@ -159,7 +162,7 @@ TEST_CASE("a stiff descent under a 10 km canopy stops at the step budget and say
       "parachute": { "type": "disk-gap-band", "diameter_m": 10000.0, "mass_kg": 20,
                      "deploy_mach": 1.8 },
       "terminal": { "method": "none" },
-      "solver": { "max_time_s": 1e12, "max_steps": 2000 }
+      "solver": { "max_time_s": 1e12, "max_steps": 60 }
     })";
     const ds::DesignReadResult read = ds::read_design(design);
     REQUIRE(read.ok());
