@@ -6,6 +6,8 @@
 
 #include <QChart>
 #include <QChartView>
+#include <QComboBox>
+#include <QLineEdit>
 #include <QElapsedTimer>
 #include <QFile>
 #include <QImage>
@@ -67,6 +69,24 @@ int pointsIn(const QChart* chart, const QString& seriesName) {
 class TradeViewTest : public QObject {
     Q_OBJECT
 private slots:
+    void aNewPageOffersTheUsualTradeWithARangeAroundTheDesign() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        const auto keys = window.trades()->findChildren<QComboBox*>();
+        QStringList shown;
+        for (QComboBox* box : keys) {
+            if (box->isEditable()) shown << box->currentText();
+        }
+        QCOMPARE(shown, QStringList({"aeroshell.diameter_m", "entry.flight_path_angle_deg"}));
+        // The small station's 2.6 m, less and more a fifth.
+        QStringList ranges;
+        for (QLineEdit* edit : window.trades()->findChildren<QLineEdit*>()) {
+            if (!qobject_cast<QComboBox*>(edit->parent())) ranges << edit->text();
+        }
+        QVERIFY(ranges.contains("2.08"));
+        QVERIFY(ranges.contains("3.12"));
+    }
+
     void oneKeySweepPlotsTheFigureAndTheMargin() {
         MainWindow window;
         QVERIFY(window.openFile(sample, true));

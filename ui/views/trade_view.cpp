@@ -1,6 +1,7 @@
 #include "views/trade_view.hpp"
 
 #include <cmath>
+#include <iterator>
 #include <limits>
 #include <memory>
 
@@ -52,6 +53,7 @@ constexpr double percent = 100.0;
 constexpr std::size_t summaryChecks = 5;
 
 const char* const defaultFigure = "peak_deceleration";
+const char* const defaultKeys[] = {"aeroshell.diameter_m", "entry.flight_path_angle_deg"};
 
 QString text(const std::string& s) { return QString::fromStdString(s); }
 
@@ -233,8 +235,13 @@ void TradeView::refreshKeys() {
     for (const std::string& key : keys) names << text(key);
     if (names == m_keyNames) return;  // most edits change values, not keys
     m_keyNames = names;
-    for (AxisControls& axis : m_axes) {
-        const QString current = axis.key->currentText();
+    for (std::size_t i = 0; i < std::size(m_axes); ++i) {
+        AxisControls& axis = m_axes[i];
+        QString current = axis.key->currentText();
+        // A new page starts on the usual first trade: size against entry steepness.
+        if (current.isEmpty() && names.contains(QString::fromLatin1(defaultKeys[i]))) {
+            current = QString::fromLatin1(defaultKeys[i]);
+        }
         const QSignalBlocker block(axis.key);
         axis.key->clear();
         axis.key->addItems(names);
