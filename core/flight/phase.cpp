@@ -69,6 +69,9 @@ constexpr double settle_rate_g = 1e-3;
 /// value, so that the two changes cannot chase each other (our choice).
 constexpr double unsettle_rate_g = 2e-3;
 
+/// A trigger that counts only in descending flight asks this of the state at its crossing.
+bool descending(const FlightState& y) { return y[StateIndex::flight_path_angle] < 0.0; }
+
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
     return flight_quantity(q, flight_conditions(model, stage, y), y);
@@ -118,16 +121,15 @@ IntegrationOutcome<flight_state_size> fly_stretch(
         return quantity_at(model, stage, q, y);
     };
 
-    const auto descending = [](double, const FlightState& y) {
-        return y[StateIndex::flight_path_angle] < 0.0;
-    };
     std::vector<Event<flight_state_size>> events;
     for (const Trigger& trigger : phase.ends) {
         events.push_back({[&, trigger](double, const FlightState& y) {
                               return quantity(trigger.quantity, y) - trigger.value;
                           },
                           trigger.direction, true});
-        if (trigger.descending_only) events.back().counts = descending;
+        if (trigger.descending_only) {
+            events.back().counts = [](double, const FlightState& y) { return descending(y); };
+        }
     }
     // A peak is where the logarithmic rate of its quantity falls through zero. The rate is a
     // central difference along the flow, y +- dt y', so every quantity, whatever its model,
@@ -167,7 +169,7 @@ std::optional<std::size_t> trigger_skipped(const FlightModel& model, const Phase
         const double before =
             quantity_at(model, phase.stage, trigger.quantity, from) - trigger.value;
         const double after = quantity_at(model, phase.stage, trigger.quantity, to) - trigger.value;
-        const bool counts = !trigger.descending_only || to[StateIndex::flight_path_angle] < 0.0;
+        const bool counts = !trigger.descending_only || descending(to);
         if (counts && detail::crosses(before, after, trigger.direction)) return i;
     }
     return std::nullopt;

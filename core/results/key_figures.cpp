@@ -26,4 +26,12 @@ std::vector<KeyFigure> key_figures(const Results& r) {
     };
 }
 
+std::optional<std::size_t> key_figure_index(std::string_view id) {
+    const std::vector<KeyFigure> figures = key_figures(Results{});
+    for (std::size_t i = 0; i < figures.size(); ++i) {
+        if (figures[i].id == id) return i;
+    }
+    return std::nullopt;
+}
+
 }  // namespace ds

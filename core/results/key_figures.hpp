@@ -2,6 +2,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "results/results.hpp"
@@ -20,5 +21,8 @@ struct KeyFigure {
 
 /// The key figures of a result, in the order they are shown.
 std::vector<KeyFigure> key_figures(const Results& results);
+
+/// Where the figure of this id stands among the key figures, if it is one.
+std::optional<std::size_t> key_figure_index(std::string_view id);
 
 }  // namespace ds

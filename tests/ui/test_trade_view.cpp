@@ -22,6 +22,7 @@
 #include <QTest>
 
 #include "design/reader.hpp"
+#include "results/key_figures.hpp"
 #include "main_window.hpp"
 #include "model/design_document.hpp"
 #include "model/trade_runner.hpp"
@@ -188,7 +189,8 @@ private slots:
         // The deploy scatter holds every case that deployed, split by success.
         std::unique_ptr<QChart> scatter(deployScatterChart(*outcome));
         int deployed = 0;
-        for (const DispersedCase& c : outcome->campaign->cases) deployed += c.figures[7].has_value();
+        const std::size_t deployMach = *key_figure_index("deploy_mach");
+        for (const DispersedCase& c : outcome->campaign->cases) deployed += c.figures[deployMach].has_value();
         const int shown = std::max(0, pointsIn(scatter.get(), "succeeded")) +
                           std::max(0, pointsIn(scatter.get(), "a check failed"));
         QCOMPARE(shown, deployed);

@@ -9,11 +9,11 @@
 #include <QJsonDocument>
 #include <QJsonObject>
 #include <QLockFile>
-#include <QSaveFile>
 #include <QStandardPaths>
 #include <QTimer>
 #include <QUuid>
 
+#include "model/atomic_file.hpp"
 #include "model/design_document.hpp"
 
 namespace ds {
@@ -40,20 +40,6 @@ QString lockPath(const QString& folder, const QString& session) {
 
 QString metaPathFor(const QString& documentFile) {
     return documentFile.left(documentFile.size() - int(qstrlen(designSuffix))) + metaSuffix;
-}
-
-bool writeAtomically(const QString& path, const QByteArray& bytes, QString* error) {
-    QSaveFile file(path);
-    if (!file.open(QIODevice::WriteOnly)) {
-        *error = QObject::tr("Cannot write %1: %2").arg(path, file.errorString());
-        return false;
-    }
-    file.write(bytes);
-    if (!file.commit()) {
-        *error = QObject::tr("Cannot write %1: %2").arg(path, file.errorString());
-        return false;
-    }
-    return true;
 }
 
 }  // namespace
@@ -151,8 +137,8 @@ bool Autosave::write(QString* error) {
     meta["original_path"] = m_document->filePath();
     meta["saved_at"] = QDateTime::currentDateTimeUtc().toString(Qt::ISODateWithMs);
     // The design first: a design without its .meta is still offered (as untitled).
-    if (!writeAtomically(base + designSuffix, QByteArray::fromStdString(text), &reason) ||
-        !writeAtomically(base + metaSuffix, QJsonDocument(meta).toJson(), &reason)) {
+    if (!writeFileAtomically(base + designSuffix, QByteArray::fromStdString(text), &reason) ||
+        !writeFileAtomically(base + metaSuffix, QJsonDocument(meta).toJson(), &reason)) {
         return fail();
     }
     if (!m_writtenBase.isEmpty() && m_writtenBase != base) {

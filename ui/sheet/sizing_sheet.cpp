@@ -16,12 +16,12 @@
 #include <QPageSize>
 #include <QPainter>
 #include <QPdfWriter>
-#include <QSaveFile>
 #include <QTextDocument>
 #include <QUrl>
 
 #include "design/writer.hpp"
 #include "results/key_figures.hpp"
+#include "model/atomic_file.hpp"
 #include "model/trade_runner.hpp"
 #include "views/charts.hpp"
 #include "views/trade_charts.hpp"
@@ -447,9 +447,7 @@ QString chartImages(const std::vector<SheetChart>& charts, bool trade, const Ima
 /// The rows of a sweep: the varied values, the figure shown, the worst check and the margin.
 QString sweepTable(const TradeOutcome& trade, const std::string& figureId) {
     const std::vector<KeyFigure> header = key_figures(Results{});
-    std::size_t figure = 0;
-    while (figure + 1 < header.size() && header[figure].id != figureId)
-        ++figure;
+    const std::size_t figure = key_figure_index(figureId).value_or(header.size() - 1);
     QStringList headings;
     for (const SweepAxis& axis : trade.request.axes)
         headings << QString::fromStdString(axis.key);
@@ -613,34 +611,6 @@ QString dataUri(const QImage& image) {
 
 // ---- Files -----------------------------------------------------------------------------
 
-/// Writes a file whole or not at all: `write` fills the device, then the file replaces any
-/// old one.
-bool writeAtomically(const QString& path, const std::function<bool(QIODevice&)>& write,
-                     QString* error) {
-    QSaveFile file(path);
-    if (!file.open(QIODevice::WriteOnly)) {
-        if (error)
-            *error = QStringLiteral("cannot write '%1': %2").arg(path, file.errorString());
-        return false;
-    }
-    if (!write(file)) {
-        file.cancelWriting();
-        if (error)
-            *error = QStringLiteral("cannot write '%1': %2").arg(path, file.errorString());
-        return false;
-    }
-    if (!file.commit()) {
-        if (error)
-            *error = QStringLiteral("cannot write '%1': %2").arg(path, file.errorString());
-        return false;
-    }
-    return true;
-}
-
-bool writeBytes(QIODevice& device, const QByteArray& bytes) {
-    return device.write(bytes) == bytes.size();
-}
-
 /// The sheet as a PDF on A4: the same HTML laid out by a text document, the charts given to
 /// it as resources, a page number at the foot of every page.
 bool writePdf(QIODevice& device, const Design& design, const Results& results,
@@ -731,17 +701,13 @@ bool writeSheet(const QString& path, const Design& design, const Results& result
     const QString given = QFileInfo(path).suffix();
     const QString suffix = given.toLower();
     if (suffix == QLatin1String("html") || suffix == QLatin1String("htm")) {
-        const QByteArray bytes = sheetHtml(design, results, context).toUtf8();
-        return writeAtomically(
-            path, [&](QIODevice& device) { return writeBytes(device, bytes); }, error);
+        return writeFileAtomically(path, sheetHtml(design, results, context).toUtf8(), error);
     }
     if (suffix == QLatin1String("csv")) {
-        const QByteArray bytes = historyCsv(results).toUtf8();
-        return writeAtomically(
-            path, [&](QIODevice& device) { return writeBytes(device, bytes); }, error);
+        return writeFileAtomically(path, historyCsv(results).toUtf8(), error);
     }
     if (suffix == QLatin1String("pdf")) {
-        return writeAtomically(
+        return writeFileAtomically(
             path, [&](QIODevice& device) { return writePdf(device, design, results, context); },
             error);
     }

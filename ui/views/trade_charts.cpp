@@ -58,14 +58,10 @@ struct FigureInfo {
 };
 
 std::optional<FigureInfo> figureInfo(const std::string& id) {
-    const std::vector<KeyFigure> figures = key_figures(Results{});
-    for (std::size_t i = 0; i < figures.size(); ++i) {
-        if (figures[i].id == id) {
-            return FigureInfo{i, QString::fromStdString(figures[i].label),
-                              QString::fromStdString(figures[i].unit)};
-        }
-    }
-    return std::nullopt;
+    const std::optional<std::size_t> index = key_figure_index(id);
+    if (!index) return std::nullopt;
+    const KeyFigure figure = key_figures(Results{})[*index];
+    return FigureInfo{*index, QString::fromStdString(figure.label), QString::fromStdString(figure.unit)};
 }
 
 /// "Peak heat flux" for "peak heat flux": titles start with a capital.

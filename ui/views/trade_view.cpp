@@ -18,11 +18,11 @@
 #include <QMessageBox>
 #include <QProgressBar>
 #include <QPushButton>
-#include <QSaveFile>
 #include <QSpinBox>
 #include <QStackedWidget>
 #include <QVBoxLayout>
 
+#include "model/atomic_file.hpp"
 #include "model/design_document.hpp"
 #include "model/trade_runner.hpp"
 #include "results/key_figures.hpp"
@@ -380,13 +380,11 @@ void TradeView::studyFinished() {
         m_pages->setCurrentIndex(introPage);
         return;
     }
-    std::size_t cases = outcome.sweep.size();
-    if (outcome.campaign) cases = outcome.campaign->cases.size();
-    if (outcome.sensitivities) cases = 4 * outcome.sensitivities->inputs.size() + 1;
-    m_status->setText(tr("%1: %2 sizings in %3 s.")
-                          .arg(outcome.description())
-                          .arg(cases)
-                          .arg(outcome.seconds, 0, 'f', 2));
+    QString size = tr("%1 sizings").arg(outcome.sweep.size());
+    if (outcome.campaign) size = tr("%1 sizings").arg(outcome.campaign->cases.size());
+    if (outcome.sensitivities) size = tr("%1 inputs").arg(outcome.sensitivities->inputs.size());
+    m_status->setText(
+        tr("%1: %2 in %3 s.").arg(outcome.description(), size).arg(outcome.seconds, 0, 'f', 2));
     m_export->setEnabled(true);
     showOutcome();
     emit studyShown();
@@ -447,13 +445,7 @@ bool TradeView::exportCsv(const QString& path, QString* error) const {
         *error = tr("There is no trade study to export yet.");
         return false;
     }
-    QSaveFile file(path);
-    const QByteArray bytes = QByteArray::fromStdString(outcome->csv());
-    if (!file.open(QIODevice::WriteOnly) || file.write(bytes) != bytes.size() || !file.commit()) {
-        *error = tr("cannot write '%1': %2").arg(path, file.errorString());
-        return false;
-    }
-    return true;
+    return writeFileAtomically(path, QByteArray::fromStdString(outcome->csv()), error);
 }
 
 }  // namespace ds

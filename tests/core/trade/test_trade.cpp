@@ -25,12 +25,9 @@ ds::Design sample(const std::string& name) {
 }
 
 std::size_t figure_index(const std::string& id) {
-    const auto figures = ds::key_figures(ds::Results{});
-    for (std::size_t i = 0; i < figures.size(); ++i) {
-        if (figures[i].id == id) return i;
-    }
-    FAIL("no figure " << id);
-    return 0;
+    const auto index = ds::key_figure_index(id);
+    if (!index) FAIL("no figure " << id);
+    return index.value_or(0);
 }
 
 const ds::FigureStatistics& stats(const ds::DispersionSummary& s, const std::string& id) {
