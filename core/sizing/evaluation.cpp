@@ -122,13 +122,12 @@ BurnRequest burn_request(const Design& design, double g_site, Evaluation& e) {
 }
 
 /// The history: the descent under the canopy up to separation, then the lander.
-void record_burn_history(const Evaluation& e, const BurnSolution& burn,
-                         const std::vector<TrajectorySample>& burn_samples,
-                         std::vector<TrajectorySample>& history) {
+void record_burn_history(const BurnSolution& burn,
+                         const std::vector<TrajectorySample>& burn_samples, Evaluation& e) {
     for (const TrajectorySample& s : e.descent->samples) {
-        if (s.time_s < burn.separation_time_s) history.push_back(s);
+        if (s.time_s < burn.separation_time_s) e.history.push_back(s);
     }
-    history.insert(history.end(), burn_samples.begin(), burn_samples.end());
+    e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());
 }
 
 /// Tethered: hover while the payload is lowered at the end velocity, cut, fly away. The stage
@@ -220,7 +219,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
         solve_terminal_burn(model, e.descent->record, request, settings, &burn_samples);
     e.burn_request = request;
     e.burn = burn;
-    record_burn_history(e, burn, burn_samples, e.history);
+    record_burn_history(burn, burn_samples, e);
 
     const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
     const double burned = finish_terminal_descent(design.terminal, burn, site, g_site, engines, e);
