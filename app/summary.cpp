@@ -1,6 +1,7 @@
 #include "summary.hpp"
 
 #include <algorithm>
+#include <iterator>
 #include <optional>
 #include <string_view>
 
@@ -44,10 +45,7 @@ std::string_view status_tag(CheckStatus status) {
     return "";
 }
 
-}  // namespace
-
-std::string format_summary(const Design& design, const Results& results) {
-    std::string out;
+void write_header(std::string& out, const Design& design, const Results& results) {
     auto it = std::back_inserter(out);
     fmt::format_to(it, "Descent Sizer: {}\n", design.name.empty() ? "(unnamed design)" : design.name);
     fmt::format_to(it, "body {}, site elevation {:.0f} m, entry {:.0f} m/s at {:.2f} deg from "
@@ -63,19 +61,23 @@ std::string format_summary(const Design& design, const Results& results) {
     fmt::format_to(it, "{}: {} failing, {} marginal, {} checks\n",
                    results.converged ? "sized" : "NOT SIZED", failing, marginal,
                    results.checks.size());
+}
 
+void write_checks(std::string& out, const std::vector<Check>& checks) {
     heading(out, "Checks (failing first)");
-    for (const Check& c : results.checks) {
-        fmt::format_to(it, "  {:<9} {:<30} {}\n", status_tag(c.status), c.id, c.message);
+    for (const Check& c : checks) {
+        fmt::format_to(std::back_inserter(out), "  {:<9} {:<30} {}\n", status_tag(c.status), c.id,
+                       c.message);
     }
+}
 
-    const EntryResults& e = results.entry;
+void write_entry(std::string& out, const EntryResults& e) {
     heading(out, "Entry");
     row(out, "entry mass", e.mass_kg, "kg", 1);
     row(out, "aeroshell diameter", e.diameter_m, "m", 3);
     row(out, "nose radius", e.nose_radius_m, "m", 3);
-    fmt::format_to(it, "  {:<{}} {:>12.4f} ({})\n", "drag coefficient", label_width,
-                   e.drag_coefficient, e.drag_coefficient_source);
+    fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12.4f} ({})\n", "drag coefficient",
+                   label_width, e.drag_coefficient, to_string(e.drag_coefficient_source));
     row(out, "ballistic coefficient", e.ballistic_coefficient_kg_m2, "kg/m^2", 1);
     row(out, "peak deceleration", e.peak_deceleration_g, "g", 2);
     row(out, "  at altitude", e.peak_deceleration_altitude_m, "m", 0);
@@ -88,19 +90,19 @@ std::string format_summary(const Design& design, const Results& results) {
     row(out, "  at altitude", e.peak_dynamic_pressure_altitude_m, "m", 0);
     row(out, "heat-shield TPS mass fraction", e.heat_shield_mass_fraction * 100.0, "%", 2);
     row(out, "heat-shield TPS mass estimate", e.heat_shield_tps_kg, "kg", 1);
+}
 
-    if (results.decelerator) {
-        const DeceleratorResults& d = *results.decelerator;
-        heading(out, "Inflatable decelerator");
-        text_row(out, "deployed", d.deployed ? "yes" : "no");
-        row(out, "diameter", d.diameter_m, "m", 2);
-        row(out, "mass", d.mass_kg, "kg", 1);
-        row(out, "deploy altitude", d.deploy_altitude_m, "m", 0);
-        row(out, "deploy Mach", d.deploy_mach, "", 2);
-        row(out, "deploy dynamic pressure", d.deploy_dynamic_pressure_Pa, "Pa", 0);
-    }
+void write_decelerator(std::string& out, const DeceleratorResults& d) {
+    heading(out, "Inflatable decelerator");
+    text_row(out, "deployed", d.deployed ? "yes" : "no");
+    row(out, "diameter", d.diameter_m, "m", 2);
+    row(out, "mass", d.mass_kg, "kg", 1);
+    row(out, "deploy altitude", d.deploy_altitude_m, "m", 0);
+    row(out, "deploy Mach", d.deploy_mach, "", 2);
+    row(out, "deploy dynamic pressure", d.deploy_dynamic_pressure_Pa, "Pa", 0);
+}
 
-    const ParachuteResults& p = results.parachute;
+void write_parachute(std::string& out, const ParachuteResults& p) {
     heading(out, "Parachute");
     text_row(out, "deployed", p.deployed ? "yes" : "no");
     row(out, "diameter", p.diameter_m, "m", 2);
@@ -116,10 +118,11 @@ std::string format_summary(const Design& design, const Results& results) {
     row(out, "inflation time", p.inflation_time_s, "s", 2);
     row(out, "heat-shield jettison time", p.heat_shield_jettison_time_s, "s", 1);
     row(out, "descent velocity under canopy", p.descent_velocity_m_s, "m/s", 1);
+}
 
-    const TerminalResults& t = results.terminal;
+void write_terminal(std::string& out, const TerminalResults& t) {
     heading(out, "Terminal descent");
-    text_row(out, "method", t.method);
+    text_row(out, "method", to_string(t.method));
     row(out, "ignition altitude", t.ignition_altitude_m, "m", 0);
     row(out, "ignition velocity", t.ignition_velocity_m_s, "m/s", 1);
     row(out, "thrust", t.thrust_N, "N", 0);
@@ -134,34 +137,54 @@ std::string format_summary(const Design& design, const Results& results) {
         row(out, "airbag impact energy", t.impact_energy_J, "J", 0);
     }
     if (t.hover_time_s) row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
+}
 
+void write_timeline(std::string& out, const Results& results) {
     heading(out, "Timeline");
     for (const TimelineEvent& ev : results.timeline.events) {
-        fmt::format_to(it, "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s\n", ev.time_s, ev.name,
-                       ev.altitude_m, ev.velocity_m_s);
+        fmt::format_to(std::back_inserter(out), "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s\n",
+                       ev.time_s, ev.name, ev.altitude_m, ev.velocity_m_s);
     }
     row(out, "time from deploy to the burn", results.timeline.available_s, "s", 1);
     row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
     row(out, "timeline margin", results.timeline.margin_s, "s", 1);
     row(out, "highest feasible site elevation", results.capability.max_site_elevation_m, "m", 0);
+}
 
-    heading(out, fmt::format("Mass budget ({})", results.mass.mode));
+void write_mass(std::string& out, const MassResults& mass) {
+    auto it = std::back_inserter(out);
+    heading(out, fmt::format("Mass budget ({})", to_string(mass.mode)));
     fmt::format_to(it, "  {:<40} {:<14} {:>10} {:>7} {:>10}\n", "item", "group", "basic kg",
                    "growth", "kg");
-    for (const MassItem& item : results.mass.items) {
+    for (const MassItem& item : mass.items) {
         fmt::format_to(it, "  {:<40} {:<14} {:>10.1f} {:>6.0f}% {:>10.1f}\n", item.name,
-                       item.group, item.basic_kg, item.growth_fraction * 100.0, item.mass_kg);
+                       to_string(item.group), item.basic_kg, item.growth_fraction * 100.0,
+                       item.mass_kg);
     }
-    row(out, "entry mass", results.mass.entry_kg, "kg", 1);
-    row(out, "landed mass", results.mass.landed_kg, "kg", 1);
-    if (results.mass.closure) {
-        const MassClosure& c = *results.mass.closure;
+    row(out, "entry mass", mass.entry_kg, "kg", 1);
+    row(out, "landed mass", mass.landed_kg, "kg", 1);
+    if (mass.closure) {
+        const MassClosure& c = *mass.closure;
         fmt::format_to(it, "  closure: {} in {} iterations, residual {:.3f} kg\n",
                        c.converged ? "converged" : "NOT converged", c.iterations, c.residual_kg);
     }
+}
 
+}  // namespace
+
+std::string format_summary(const Design& design, const Results& results) {
+    std::string out;
+    write_header(out, design, results);
+    write_checks(out, results.checks);
+    write_entry(out, results.entry);
+    if (results.decelerator) write_decelerator(out, *results.decelerator);
+    write_parachute(out, results.parachute);
+    write_terminal(out, results.terminal);
+    write_timeline(out, results);
+    write_mass(out, results.mass);
     out += "\n";
-    for (const std::string& note : results.notes) fmt::format_to(it, "Note: {}\n", note);
+    for (const std::string& note : results.notes)
+        fmt::format_to(std::back_inserter(out), "Note: {}\n", note);
     return out;
 }
 

@@ -15,6 +15,7 @@
 #include "results/writer.hpp"
 #include "trade/dispersion.hpp"
 #include "trade/sensitivity.hpp"
+#include "trade/success_probability.hpp"
 #include "trade/sweep.hpp"
 #include "trade/trade_csv.hpp"
 
@@ -138,9 +139,7 @@ int printSweep(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>&
 }
 
 void printSummary(const DispersionSummary& s) {
-    fmt::print("{} runs, {} succeeded (no failing check): probability {:.4f}, 95 % interval "
-               "[{:.4f}, {:.4f}] (Wilson)\n\n",
-               s.runs, s.successes, s.success_probability, s.wilson_low, s.wilson_high);
+    fmt::print("{}\n\n", success_probability_sentence(s));
     fmt::print("{:<26} {:>8} {:>12} {:>12} {:>12} {:>12} {:>12}\n", "figure", "unit", "mean",
                "std dev", "p01", "p50", "p99");
     for (const FigureStatistics& f : s.figures) {

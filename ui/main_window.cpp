@@ -20,6 +20,7 @@
 #include "model/autosave.hpp"
 #include "model/design_document.hpp"
 #include "model/sizing_runner.hpp"
+#include "results/caution.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "views/charts.hpp"
 #include "views/checks_view.hpp"
@@ -80,8 +81,10 @@ MainWindow::MainWindow(QWidget* parent)
 
     m_status = new QLabel(this);
     statusBar()->addWidget(m_status, 1);
-    statusBar()->addPermanentWidget(new QLabel(
-        tr("Conceptual estimates: confirm by detailed analysis and test."), this));
+    statusBar()->addPermanentWidget(
+        new QLabel(QString::fromUtf8(conceptual_caution.data(),
+                                     static_cast<qsizetype>(conceptual_caution.size())),
+                   this));
 
     buildMenus();
     connect(m_document, &DesignDocument::changed, this, &MainWindow::documentChanged);

@@ -4,7 +4,7 @@
 #include <vector>
 
 #include "atmosphere/atmosphere.hpp"
-#include "design/design.hpp"
+#include "atmosphere/table_row.hpp"
 
 namespace ds {
 

@@ -6,7 +6,7 @@
 
 #include "atmosphere/table.hpp"
 #include "constants.hpp"
-#include "design/design.hpp"
+#include "atmosphere/table_row.hpp"
 
 namespace ds {
 namespace {

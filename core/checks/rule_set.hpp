@@ -4,10 +4,11 @@
 #include <vector>
 
 #include "checks/check.hpp"
-#include "design/design.hpp"
-#include "results/results.hpp"
 
 namespace ds {
+
+/// The rules that judge a figure against a limit. Which figures meet which limits is the
+/// sizing's business (sizing/limit_checks.hpp): this layer knows neither designs nor results.
 
 /// What crossing a limit means. Leaving the heritage envelope is "marginal" (it needs new
 /// technology, not new physics); crossing a physical limit is "fail", and coming within the
@@ -27,9 +28,6 @@ struct LimitRule {
 Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band);
 /// Checks value >= limit.
 Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band);
-
-/// Every limit check that applies to these results, against the design's limits.
-std::vector<Check> limit_checks(const Design& design, const Results& results);
 
 /// Orders checks failing first, then marginal, then passing, keeping their order otherwise.
 void order_checks(std::vector<Check>& checks);

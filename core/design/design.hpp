@@ -5,8 +5,11 @@
 #include <string_view>
 #include <vector>
 
+#include "atmosphere/table_row.hpp"
 #include "body/body.hpp"
 #include "checks/limits.hpp"
+#include "mass/group.hpp"
+#include "mass/maturity.hpp"
 
 namespace ds {
 
@@ -21,12 +24,6 @@ inline constexpr int design_format_version = 1;
 struct BodyDesign {
     std::string preset;  ///< "mars", "earth", ...; empty for a custom body
     Body body;           ///< the preset's values, or the custom body
-};
-
-struct AtmosphereRow {
-    double altitude_m = 0.0;
-    double density_kg_m3 = 0.0;
-    double temperature_K = 0.0;
 };
 
 enum class AtmosphereModel { exponential, table, standard };
@@ -65,18 +62,6 @@ struct AeroshellDesign {
     double nose_radius_m = 0.0;
     std::optional<double> drag_coefficient;  ///< empty: modified Newtonian theory
 };
-
-/// When an item leaves the vehicle: what the mass budget groups it by.
-enum class MassGroup {
-    heat_shield,    ///< dropped at heat-shield jettison
-    backshell,      ///< dropped at backshell separation (with the parachute)
-    descent_stage,  ///< carries the payload down; lands with it (retro, none) or not
-    payload,        ///< what is landed
-};
-
-/// Design maturity of a mass item: sets its growth allowance (AIAA S-120; see
-/// core/mass/growth.hpp).
-enum class Maturity { estimated, layout, pre_release, released, existing, actual };
 
 struct MassItemDesign {
     std::string name;

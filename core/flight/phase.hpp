@@ -6,7 +6,7 @@
 
 #include "flight/dense_trajectory.hpp"
 #include "flight/flight_model.hpp"
-#include "results/results.hpp"
+#include "flight/trajectory_sample.hpp"
 
 namespace ds {
 

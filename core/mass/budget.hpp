@@ -3,8 +3,9 @@
 #include <string>
 #include <vector>
 
-#include "design/design.hpp"
-#include "results/results.hpp"
+#include "mass/group.hpp"
+#include "mass/item.hpp"
+#include "mass/maturity.hpp"
 
 namespace ds {
 
@@ -13,7 +14,7 @@ namespace ds {
 class MassBudget {
 public:
     /// An item of the design: its maturity sets its growth allowance.
-    void add_design_item(const MassItemDesign& item);
+    void add_item(std::string name, double basic_kg, MassGroup group, Maturity maturity);
     /// A mass the design fixes as a lump (heat_shield_kg, parachute.mass_kg): no growth.
     void add_given(std::string name, double mass_kg, MassGroup group);
     /// An estimate from a relation: grows as an "estimated" item.
@@ -27,10 +28,9 @@ public:
     const std::vector<MassItem>& items() const { return items_; }
 
 private:
-    void add(MassItem item, MassGroup group);
+    void add(MassItem item);
 
     std::vector<MassItem> items_;
-    std::vector<MassGroup> groups_;
 };
 
 }  // namespace ds

@@ -1,6 +1,6 @@
 #pragma once
 
-#include "design/design.hpp"
+#include "mass/maturity.hpp"
 
 namespace ds {
 

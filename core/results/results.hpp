@@ -6,22 +6,33 @@
 #include <vector>
 
 #include "checks/check.hpp"
+#include "design/design.hpp"
+#include "flight/trajectory_sample.hpp"
+#include "mass/item.hpp"
 
 namespace ds {
 
 /// The results document (design-file.md, version 1) as plain values, SI units throughout.
-/// An empty optional is a figure this design did not produce (written as null).
+/// An empty optional is a figure this design did not produce (written as null). Enumerations
+/// stay enumerations here; `to_string` gives each one's document name, one table per enum (the
+/// design's enums keep theirs in design.cpp, the results' own in results.cpp).
 
 /// The document's "format" and "version" keys.
 inline constexpr std::string_view results_format_id = "descent-sizer/results";
 inline constexpr int results_format_version = 1;
+
+/// Where the entry's drag coefficient comes from.
+enum class DragCoefficientSource {
+    design,              ///< "design": aeroshell.drag_coefficient
+    modified_newtonian,  ///< "modified Newtonian": the sphere-cone's hypersonic Cd
+};
 
 struct EntryResults {
     double mass_kg = 0.0;
     double diameter_m = 0.0;
     double nose_radius_m = 0.0;
     double drag_coefficient = 0.0;
-    std::string drag_coefficient_source;  ///< "design" or "modified Newtonian"
+    DragCoefficientSource drag_coefficient_source = DragCoefficientSource::design;
     double ballistic_coefficient_kg_m2 = 0.0;
     double peak_deceleration_g = 0.0;
     double peak_deceleration_altitude_m = 0.0;
@@ -66,7 +77,7 @@ struct DeceleratorResults {
 };
 
 struct TerminalResults {
-    std::string method;
+    TerminalMethod method = TerminalMethod::retro;
     std::optional<double> ignition_altitude_m;
     std::optional<double> ignition_velocity_m_s;
     std::optional<double> delta_v_m_s;
@@ -97,15 +108,8 @@ struct Timeline {
     std::optional<double> needed_s;
 };
 
-struct MassItem {
-    std::string name;
-    double mass_kg = 0.0;  ///< with growth allowance: what flies
-    double basic_kg = 0.0;
-    double growth_fraction = 0.0;
-    std::string group;     ///< when it leaves: "heat shield", "backshell", "descent stage", "payload"
-    std::string maturity;  ///< "estimated", "layout", ... "actual"
-    std::string source;    ///< "design", or the relation it was estimated from
-};
+/// The document's "maturity" of an item: its maturity's name, or "given" or "computed".
+std::string_view maturity_name(const MassItem& item);
 
 struct MassClosure {
     bool converged = false;
@@ -113,8 +117,14 @@ struct MassClosure {
     double residual_kg = 0.0;  ///< entry mass in, less entry mass out, at the last iteration
 };
 
+/// How the entry mass was found.
+enum class MassMode {
+    analysis,  ///< fixed by the design
+    sizing,    ///< the budget closed by iteration
+};
+
 struct MassResults {
-    std::string mode;  ///< "analysis" (entry mass fixed) or "sizing" (closed by iteration)
+    MassMode mode = MassMode::analysis;
     double entry_kg = 0.0;
     std::optional<double> landed_kg;
     std::vector<MassItem> items;
@@ -125,20 +135,6 @@ struct MassResults {
 struct Capability {
     /// The highest site elevation at which the timeline margin is still zero or more.
     std::optional<double> max_site_elevation_m;
-};
-
-/// One point of the flown trajectory, for plots and the sheet.
-struct TrajectorySample {
-    double time_s = 0.0;
-    double altitude_m = 0.0;
-    double downrange_m = 0.0;
-    double velocity_m_s = 0.0;
-    double flight_path_angle_deg = 0.0;
-    double mach = 0.0;
-    double dynamic_pressure_Pa = 0.0;
-    double deceleration_g = 0.0;
-    double heat_flux_W_cm2 = 0.0;  ///< convective
-    double radiative_heat_flux_W_cm2 = 0.0;
 };
 
 struct Results {
@@ -155,5 +151,10 @@ struct Results {
     std::vector<TrajectorySample> history;
     std::vector<std::string> notes;  ///< what the results do not cover, in words
 };
+
+/// The document's names of the results' enumerations.
+std::string_view to_string(DragCoefficientSource source);
+std::string_view to_string(GrowthBasis basis);
+std::string_view to_string(MassMode mode);
 
 }  // namespace ds

@@ -3,6 +3,8 @@
 #include <cmath>
 #include <optional>
 
+#include "results/history_columns.hpp"
+
 namespace ds {
 namespace {
 
@@ -25,7 +27,7 @@ Json entry_to_json(const EntryResults& entry) {
     out["diameter_m"] = number(entry.diameter_m);
     out["nose_radius_m"] = number(entry.nose_radius_m);
     out["drag_coefficient"] = number(entry.drag_coefficient);
-    out["drag_coefficient_source"] = entry.drag_coefficient_source;
+    out["drag_coefficient_source"] = to_string(entry.drag_coefficient_source);
     out["ballistic_coefficient_kg_m2"] = number(entry.ballistic_coefficient_kg_m2);
     out["peak_deceleration_g"] = number(entry.peak_deceleration_g);
     out["peak_deceleration_altitude_m"] = number(entry.peak_deceleration_altitude_m);
@@ -77,7 +79,7 @@ Json decelerator_to_json(const std::optional<DeceleratorResults>& decelerator) {
 
 Json terminal_to_json(const TerminalResults& terminal) {
     Json out;
-    out["method"] = terminal.method;
+    out["method"] = to_string(terminal.method);
     out["ignition_altitude_m"] = number(terminal.ignition_altitude_m);
     out["ignition_velocity_m_s"] = number(terminal.ignition_velocity_m_s);
     out["delta_v_m_s"] = number(terminal.delta_v_m_s);
@@ -131,13 +133,13 @@ Json mass_to_json(const MassResults& mass) {
         entry["mass_kg"] = number(item.mass_kg);
         entry["basic_kg"] = number(item.basic_kg);
         entry["growth_fraction"] = number(item.growth_fraction);
-        entry["group"] = item.group;
-        entry["maturity"] = item.maturity;
+        entry["group"] = to_string(item.group);
+        entry["maturity"] = maturity_name(item);
         entry["source"] = item.source;
         items.push_back(std::move(entry));
     }
     Json out;
-    out["mode"] = mass.mode;
+    out["mode"] = to_string(mass.mode);
     out["entry_kg"] = number(mass.entry_kg);
     out["landed_kg"] = number(mass.landed_kg);
     out["items"] = std::move(items);
@@ -172,16 +174,8 @@ Json history_to_json(const std::vector<TrajectorySample>& history) {
     Json out = Json::array();
     for (const auto& sample : history) {
         Json item;
-        item["time_s"] = number(sample.time_s);
-        item["altitude_m"] = number(sample.altitude_m);
-        item["downrange_m"] = number(sample.downrange_m);
-        item["velocity_m_s"] = number(sample.velocity_m_s);
-        item["flight_path_angle_deg"] = number(sample.flight_path_angle_deg);
-        item["mach"] = number(sample.mach);
-        item["dynamic_pressure_Pa"] = number(sample.dynamic_pressure_Pa);
-        item["deceleration_g"] = number(sample.deceleration_g);
-        item["heat_flux_W_cm2"] = number(sample.heat_flux_W_cm2);
-        item["radiative_heat_flux_W_cm2"] = number(sample.radiative_heat_flux_W_cm2);
+        for (const HistoryColumn& column : history_columns)
+            item[column.key] = number(sample.*column.value);
         out.push_back(std::move(item));
     }
     return out;

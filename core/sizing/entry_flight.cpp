@@ -52,7 +52,8 @@ ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg) 
             half_angle, a.nose_radius_m / (0.5 * diameter_m), gamma);
     };
     ResolvedAeroshell out;
-    out.drag_coefficient_source = a.drag_coefficient ? "design" : "modified Newtonian";
+    out.drag_coefficient_source = a.drag_coefficient ? DragCoefficientSource::design
+                                                     : DragCoefficientSource::modified_newtonian;
     out.diameter_m = a.diameter_m ? *a.diameter_m
                                   : diameter_for_ballistic_coefficient(
                                         entry_mass_kg, *a.size_for_ballistic_coefficient_kg_m2,

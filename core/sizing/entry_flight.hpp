@@ -6,6 +6,7 @@
 
 #include "design/design.hpp"
 #include "flight/phase.hpp"
+#include "results/results.hpp"
 
 namespace ds {
 
@@ -13,7 +14,7 @@ namespace ds {
 struct ResolvedAeroshell {
     double diameter_m = 0.0;  ///< 0 when a sizing request has no solution
     double drag_coefficient = 0.0;
-    std::string drag_coefficient_source;  ///< "design" or "modified Newtonian"
+    DragCoefficientSource drag_coefficient_source = DragCoefficientSource::design;
 };
 
 ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg);

@@ -9,6 +9,7 @@
 #include "heating/heat_shield_mass.hpp"
 #include "mass/estimates.hpp"
 #include "mass/growth.hpp"
+#include "sizing/landed_mass.hpp"
 
 namespace ds {
 namespace {
@@ -102,15 +103,13 @@ void size_canopy(const Design& design, const FlightModel& model, const Atmospher
     e.parachute_kg = e.budget.total_kg() - before;
 }
 
-/// The burn, hover and fly-away of the methods that fire engines; fills the propellant and
-/// the propulsion estimates into the budget.
-void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluation& e) {
+/// The burn the lander flies: full thrust as given, or thrust-to-weight at the site times the
+/// lander's weight there (sets the evaluation's full thrust).
+BurnRequest burn_request(const Design& design, double g_site, Evaluation& e) {
     const TerminalDesign& t = design.terminal;
-    const double site = design.site.elevation_m;
-    const double g_site = model.body.gravity_m_s2(site);
     e.full_thrust_N = t.thrust_N.value_or(t.thrust_to_weight * e.lander_kg * g_site);
     BurnRequest request;
-    request.site_elevation_m = site;
+    request.site_elevation_m = design.site.elevation_m;
     request.end_height_above_site_m = t.method == TerminalMethod::airbag     ? t.release_height_m
                                       : t.method == TerminalMethod::tethered ? t.tether_length_m
                                                                              : 0.0;
@@ -119,26 +118,52 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     request.thrust_N = t.throttle * e.full_thrust_N;
     request.specific_impulse_s = t.isp_s;
     request.coast_s = design.sequence.separation_coast_s;
-    const auto settings = flight_integrator_settings(
-        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
-    std::vector<TrajectorySample> burn_samples;
-    const BurnSolution burn =
-        solve_terminal_burn(model, e.descent->record, request, settings, &burn_samples);
-    e.burn_request = request;
-    e.burn = burn;
+    return request;
+}
 
-    // The descent under the canopy up to separation, then the lander.
+/// The history: the descent under the canopy up to separation, then the lander.
+void record_burn_history(const BurnSolution& burn,
+                         const std::vector<TrajectorySample>& burn_samples, Evaluation& e) {
     for (const TrajectorySample& s : e.descent->samples) {
         if (s.time_s < burn.separation_time_s) e.history.push_back(s);
     }
     e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());
+}
 
+/// Tethered: hover while the payload is lowered at the end velocity, cut, fly away. The stage
+/// that flies away (its items, tanks, engines and unburned propellant) depends on the
+/// propellant loaded, so a few passes settle it. Returns the propellant the hover and the
+/// fly-away burn; sets the hover time and the payload's touchdown.
+double hover_and_fly_away(const TerminalDesign& t, const BurnSolution& burn, double g_site,
+                          double end_height, double end_velocity, double descent_items,
+                          double engines, Evaluation& e) {
+    const double lowering_s = end_height / end_velocity;
+    const double after_burn = burn.end_state[StateIndex::mass];
+    const double hover_burned = hover_propellant_kg(after_burn, g_site, lowering_s, t.isp_s);
+    double fly_away_burned = 0.0;
+    constexpr int passes = 4;
+    for (int i = 0; i < passes; ++i) {
+        const double loaded = t.propellant_loaded_kg.value_or(
+            loaded_propellant(t, burn.burned_kg + hover_burned + fly_away_burned));
+        const double tanks = MassEstimates::tank_fraction * loaded;
+        const double stage = descent_items +
+                             (tanks + engines) * (1.0 + growth_allowance(Maturity::estimated)) +
+                             (loaded - burn.burned_kg - hover_burned);
+        fly_away_burned = hover_propellant_kg(stage, g_site, t.fly_away_s, t.isp_s);
+    }
+    e.hover_time_s = lowering_s + t.fly_away_s;
+    e.touchdown_time_s = burn.end_time_s + lowering_s;
+    e.touchdown_velocity_m_s = end_velocity;
+    return hover_burned + fly_away_burned;
+}
+
+/// What follows the burn's end, by method: touchdown (retro), the airbag's free fall, or the
+/// tethered hover. Returns the propellant burned in all.
+double finish_terminal_descent(const TerminalDesign& t, const BurnSolution& burn, double site,
+                               double g_site, double engines, Evaluation& e) {
     const double end_height = burn.end_state[StateIndex::altitude] - site;
     const double end_velocity = burn.end_state[StateIndex::velocity];
     double burned = burn.burned_kg;
-    const double descent_items = e.budget.group_kg(MassGroup::descent_stage);
-    double tanks = 0.0;
-    const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
     switch (t.method) {
         case TerminalMethod::retro:
             e.touchdown_time_s = burn.end_time_s;
@@ -151,36 +176,20 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
             e.touchdown_time_s = burn.end_time_s + (v - end_velocity) / g_site;
             break;
         }
-        case TerminalMethod::tethered: {
-            // Hover while the payload is lowered at the end velocity, cut, fly away. The stage
-            // that flies away (its items, tanks, engines and unburned propellant) depends on
-            // the propellant loaded, so a few passes settle it.
-            const double lowering_s = end_height / end_velocity;
-            const double after_burn = burn.end_state[StateIndex::mass];
-            const double hover_burned =
-                hover_propellant_kg(after_burn, g_site, lowering_s, t.isp_s);
-            double fly_away_burned = 0.0;
-            constexpr int passes = 4;
-            for (int i = 0; i < passes; ++i) {
-                const double loaded = t.propellant_loaded_kg.value_or(
-                    loaded_propellant(t, burn.burned_kg + hover_burned + fly_away_burned));
-                tanks = MassEstimates::tank_fraction * loaded;
-                const double stage = descent_items +
-                                     (tanks + engines) * (1.0 + growth_allowance(Maturity::estimated)) +
-                                     (loaded - burn.burned_kg - hover_burned);
-                fly_away_burned = hover_propellant_kg(stage, g_site, t.fly_away_s, t.isp_s);
-            }
-            burned += hover_burned + fly_away_burned;
-            e.hover_time_s = lowering_s + t.fly_away_s;
-            e.touchdown_time_s = burn.end_time_s + lowering_s;
-            e.touchdown_velocity_m_s = end_velocity;
+        case TerminalMethod::tethered:
+            burned += hover_and_fly_away(t, burn, g_site, end_height, end_velocity,
+                                         e.budget.group_kg(MassGroup::descent_stage), engines, e);
             break;
-        }
         case TerminalMethod::none: break;
     }
+    return burned;
+}
+
+/// The propellant loaded, its tanks and the engines, into the budget's descent stage.
+void add_propulsion(const TerminalDesign& t, double burned, double engines, Evaluation& e) {
     e.burned_kg = burned;
     e.loaded_propellant_kg = t.propellant_loaded_kg.value_or(loaded_propellant(t, burned));
-    tanks = MassEstimates::tank_fraction * e.loaded_propellant_kg;
+    const double tanks = MassEstimates::tank_fraction * e.loaded_propellant_kg;
     e.budget.add_computed(
         "propellant (loaded)", e.loaded_propellant_kg, MassGroup::descent_stage,
         t.propellant_loaded_kg
@@ -195,6 +204,26 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
                           fmt::format("{} kg per N of {} full thrust ({})",
                                       MassEstimates::engine_kg_per_N,
                                       t.thrust_N ? "the given" : "the", estimate_source));
+}
+
+/// The burn, hover and fly-away of the methods that fire engines; fills the propellant and
+/// the propulsion estimates into the budget.
+void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluation& e) {
+    const double site = design.site.elevation_m;
+    const double g_site = model.body.gravity_m_s2(site);
+    const BurnRequest request = burn_request(design, g_site, e);
+    const auto settings = flight_integrator_settings(
+        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    std::vector<TrajectorySample> burn_samples;
+    const BurnSolution burn =
+        solve_terminal_burn(model, e.descent->record, request, settings, &burn_samples);
+    e.burn_request = request;
+    e.burn = burn;
+    record_burn_history(burn, burn_samples, e);
+
+    const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
+    const double burned = finish_terminal_descent(design.terminal, burn, site, g_site, engines, e);
+    add_propulsion(design.terminal, burned, engines, e);
 }
 
 /// The descent under the canopy to the ground, with no burn: the method "none" touches down
@@ -217,7 +246,8 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     Evaluation e;
     e.entry_kg = entry_kg;
     e.aeroshell = resolve_aeroshell(design, entry_kg);
-    for (const MassItemDesign& item : design.mass.items) e.budget.add_design_item(item);
+    for (const MassItemDesign& item : design.mass.items)
+        e.budget.add_item(item.name, item.mass_kg, item.group, item.maturity);
     if (e.aeroshell.diameter_m <= 0.0) return e;
 
     e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
@@ -251,17 +281,10 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
         }
     }
 
-    // What reaches the ground: the whole lander less what it burned (retro, none), or what
-    // the descent stage lowers or drops (airbag, tethered), airbags included.
-    switch (design.terminal.method) {
-        case TerminalMethod::retro:
-        case TerminalMethod::none: e.landed_kg = e.lander_kg - e.burned_kg; break;
-        case TerminalMethod::airbag:
-        case TerminalMethod::tethered:
-            e.landed_kg = e.lander_kg - e.budget.group_kg(MassGroup::descent_stage);
-            break;
-    }
-    if (!has_lander) e.landed_kg = 0.0;
+    // What reaches the ground (airbags, estimated below from it, included).
+    e.landed_kg = has_lander ? landed_mass_kg(design.terminal.method, e.lander_kg, e.burned_kg,
+                                              e.budget.group_kg(MassGroup::descent_stage))
+                             : 0.0;
     if (design.terminal.method == TerminalMethod::airbag) {
         e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,
                               MassGroup::payload,

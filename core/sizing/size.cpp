@@ -11,8 +11,10 @@
 #include "aeroshell/sphere_cone.hpp"
 #include "checks/rule_set.hpp"
 #include "heating/heat_shield_mass.hpp"
+#include "results/caution.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
+#include "sizing/limit_checks.hpp"
 
 namespace ds {
 namespace {
@@ -199,7 +201,7 @@ void fill_parachute(const Evaluation& e, ParachuteResults& p) {
 }
 
 void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t) {
-    t.method = std::string(to_string(design.terminal.method));
+    t.method = design.terminal.method;
     // A burn the descent's budget cut short never reached its end: no touchdown, impact or
     // hover figures to hold against their limits (the trajectory check says why).
     if (!terminal_cut_short(e)) {
@@ -355,11 +357,9 @@ Check propellant_load_check(const TerminalDesign& t, double burned_kg) {
     return c;
 }
 
-/// Checks that come from the flight and the closure themselves, not from a limit.
-std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
-                                 const std::optional<MassClosure>& closure) {
-    std::vector<Check> checks;
-    const double mass = e.entry_kg;
+/// The sizing requests of the design: an aeroshell sized for a ballistic coefficient, a canopy
+/// sized for a descent speed. Returns false when the aeroshell has no solution (nothing flew).
+bool sizing_request_checks(const Evaluation& e, const Design& design, std::vector<Check>& checks) {
     if (design.aeroshell.size_for_ballistic_coefficient_kg_m2) {
         const double target = *design.aeroshell.size_for_ballistic_coefficient_kg_m2;
         checks.push_back(
@@ -373,9 +373,9 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
                                fmt::format("no aeroshell diameter between the nose diameter and "
                                            "100 m gives a ballistic coefficient of {:.4g} kg/m^2 "
                                            "at {:.4g} kg",
-                                           target, mass),
+                                           target, e.entry_kg),
                                "sizing request"));
-        if (e.aeroshell.diameter_m <= 0.0) return checks;
+        if (e.aeroshell.diameter_m <= 0.0) return false;
     }
     if (!design.parachute.diameter_m && e.canopy_diameter_m <= 0.0) {
         checks.push_back(flight_check(
@@ -384,9 +384,11 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
                    "no canopy is needed, or the request is wrong",
             "sizing request"));
     }
+    return true;
+}
 
-    if (e.lander_kg <= 0.0) checks.push_back(drop_mass_check(e));
-
+/// How the entry ended: at the parachute trigger, or short of it (ground, skip-out, stopped).
+Check entry_end_check(const Evaluation& e, const Design& design) {
     const EntryFlight& f = e.entry;
     const std::string trigger =
         describe_trigger(design.parachute.trigger, design.parachute.trigger_value);
@@ -394,38 +396,39 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
     const double h_end = f.end_state[StateIndex::altitude];
     switch (f.end) {
         case EntryEnd::deployed:
-            checks.push_back(flight_check(
+            return flight_check(
                 "parachute_trigger", CheckStatus::pass, h_end - design.site.elevation_m, 0.0, "m",
                 fmt::format("parachute trigger ({}) reached {:.0f} m above the site, {:.1f} s "
                             "after entry",
                             trigger, h_end - design.site.elevation_m, f.end_time_s),
-                "design trigger"));
-            break;
+                "design trigger");
         case EntryEnd::ground:
-            checks.push_back(flight_check(
+            return flight_check(
                 "parachute_trigger", CheckStatus::fail, 0.0, 0.0, "m",
                 fmt::format("the vehicle reaches the ground at {:.1f} m/s (Mach {:.2f}), {:.1f} s "
                             "after entry, before the parachute trigger ({})",
                             v_end, f.end_conditions.mach, f.end_time_s, trigger),
-                "design trigger"));
-            break;
+                "design trigger");
         case EntryEnd::skip_out:
-            checks.push_back(flight_check(
+            return flight_check(
                 "parachute_trigger", CheckStatus::fail, h_end - design.site.elevation_m, 0.0, "m",
                 fmt::format("the vehicle skips out of the atmosphere at {:.0f} m/s, {:.1f} s after "
                             "entry, before the parachute trigger ({}): steepen the entry or "
                             "reduce the lift",
                             v_end, f.end_time_s, trigger),
-                "design trigger"));
-            break;
-        case EntryEnd::stopped:
-            checks.push_back(flight_check(
-                "trajectory", CheckStatus::fail, f.end_time_s, design.solver.max_time_s, "s",
-                fmt::format("the flight stopped at {:.1f} s, {:.0f} m, {:.1f} m/s: {}",
-                            f.end_time_s, h_end, v_end, stop_reason_text(f.stop_reason)),
-                "solver settings"));
-            break;
+                "design trigger");
+        case EntryEnd::stopped: break;
     }
+    return flight_check("trajectory", CheckStatus::fail, f.end_time_s, design.solver.max_time_s,
+                        "s",
+                        fmt::format("the flight stopped at {:.1f} s, {:.0f} m, {:.1f} m/s: {}",
+                                    f.end_time_s, h_end, v_end, stop_reason_text(f.stop_reason)),
+                        "solver settings");
+}
+
+/// What went wrong under the canopy and in the terminal burn: a descent that stopped, a
+/// jettison not reached, a burn that cannot stop in time, a load the burn exceeds.
+void descent_checks(const Evaluation& e, const Design& design, std::vector<Check>& checks) {
     if (e.descent && !e.descent->reached_floor && e.descent->stop_reason != StopReason::terminal_event) {
         checks.push_back(flight_check(
             "trajectory", CheckStatus::fail, 0.0, design.solver.max_time_s, "s",
@@ -448,39 +451,54 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
     if (design.terminal.propellant_loaded_kg && e.burned_kg > 0.0) {
         checks.push_back(propellant_load_check(design.terminal, e.burned_kg));
     }
+}
+
+/// The budget against the entry mass: closed by iteration (sizing), or within the fixed entry
+/// mass (analysis).
+std::optional<Check> budget_check(const Evaluation& e, const std::optional<MassClosure>& closure) {
+    const double mass = e.entry_kg;
     if (closure) {
-        checks.push_back(
-            closure->converged
-                ? flight_check("mass_closure", CheckStatus::pass, closure->residual_kg,
-                               closure_tolerance_kg, "kg",
-                               fmt::format("mass budget closed at {:.1f} kg in {} iterations",
-                                           mass, closure->iterations),
-                               "closure to 0.1 kg")
-                : flight_check("mass_closure", CheckStatus::fail, closure->residual_kg,
-                               closure_tolerance_kg, "kg",
-                               fmt::format("the mass budget does not close: after {} iterations "
-                                           "the entry mass is {:.4g} kg and the budget adds up "
-                                           "to {:.4g} kg (propellant or estimates growing "
-                                           "faster than the mass they serve)",
-                                           closure->iterations, mass, e.budget_kg()),
-                               "closure to 0.1 kg"));
-    } else if (e.unallocated_kg) {
-        const double unallocated = *e.unallocated_kg;
-        // Within the closure's tolerance is allocated: a frozen sized design (a dispersion's
-        // vehicle) carries its closure's last 0.1 kg as a rounding, not as an excess.
-        const bool over = unallocated < -closure_tolerance_kg;
-        checks.push_back(flight_check(
-            "mass_allocation", over ? CheckStatus::fail : CheckStatus::pass,
-            unallocated, 0.0, "kg",
-            over
-                ? fmt::format("the items and estimates add up to {:.1f} kg more than the fixed "
-                              "entry mass of {:.1f} kg",
-                              -unallocated, mass)
-                : fmt::format("{:.1f} kg of the fixed entry mass of {:.1f} kg is not itemised or "
-                              "estimated",
-                              unallocated, mass),
-            "entry mass fixed by the design"));
+        return closure->converged
+                   ? flight_check("mass_closure", CheckStatus::pass, closure->residual_kg,
+                                  closure_tolerance_kg, "kg",
+                                  fmt::format("mass budget closed at {:.1f} kg in {} iterations",
+                                              mass, closure->iterations),
+                                  "closure to 0.1 kg")
+                   : flight_check("mass_closure", CheckStatus::fail, closure->residual_kg,
+                                  closure_tolerance_kg, "kg",
+                                  fmt::format("the mass budget does not close: after {} "
+                                              "iterations the entry mass is {:.4g} kg and the "
+                                              "budget adds up to {:.4g} kg (propellant or "
+                                              "estimates growing faster than the mass they "
+                                              "serve)",
+                                              closure->iterations, mass, e.budget_kg()),
+                                  "closure to 0.1 kg");
     }
+    if (!e.unallocated_kg) return std::nullopt;
+    const double unallocated = *e.unallocated_kg;
+    // Within the closure's tolerance is allocated: a frozen sized design (a dispersion's
+    // vehicle) carries its closure's last 0.1 kg as a rounding, not as an excess.
+    const bool over = unallocated < -closure_tolerance_kg;
+    return flight_check(
+        "mass_allocation", over ? CheckStatus::fail : CheckStatus::pass, unallocated, 0.0, "kg",
+        over ? fmt::format("the items and estimates add up to {:.1f} kg more than the fixed "
+                           "entry mass of {:.1f} kg",
+                           -unallocated, mass)
+             : fmt::format("{:.1f} kg of the fixed entry mass of {:.1f} kg is not itemised or "
+                           "estimated",
+                           unallocated, mass),
+        "entry mass fixed by the design");
+}
+
+/// Checks that come from the flight and the closure themselves, not from a limit.
+std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
+                                 const std::optional<MassClosure>& closure) {
+    std::vector<Check> checks;
+    if (!sizing_request_checks(e, design, checks)) return checks;
+    if (e.lander_kg <= 0.0) checks.push_back(drop_mass_check(e));
+    checks.push_back(entry_end_check(e, design));
+    descent_checks(e, design, checks);
+    if (std::optional<Check> budget = budget_check(e, closure)) checks.push_back(std::move(*budget));
     return checks;
 }
 
@@ -527,7 +545,7 @@ Results size_design(const Design& design, SizingOptions options) {
     Evaluation& e = sized.evaluation;
     const std::optional<MassClosure> closure =
         design.mass.entry_kg ? std::nullopt : std::optional<MassClosure>(sized.report);
-    results.mass.mode = closure ? "sizing" : "analysis";
+    results.mass.mode = closure ? MassMode::sizing : MassMode::analysis;
     results.mass.closure = closure;
 
     fill_entry(e, design, results.entry);
@@ -560,9 +578,7 @@ Results size_design(const Design& design, SizingOptions options) {
     }
     if (options.history) results.history = std::move(e.history);
 
-    results.notes.push_back(
-        "Conceptual sizing estimates: confirm them by detailed analysis and test under the "
-        "mission's own standards and review.");
+    results.notes.emplace_back(conceptual_caution);
     results.notes.push_back(
         "Mass estimates marked \"estimate\" are rules of thumb: replace them with itemised "
         "masses as the design matures.");

@@ -22,6 +22,7 @@
 #include <QTest>
 
 #include "design/reader.hpp"
+#include "results/caution.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "sizing/size.hpp"
 #include "views/charts.hpp"
@@ -121,8 +122,11 @@ private slots:
         QVERIFY(html.contains(QStringLiteral("2024-05-17 09:30")));
         QVERIFY(html.contains(QStringLiteral("Descent Sizer 0.1.0-test")));
         QVERIFY(html.contains(QStringLiteral("samples/small-ballistic-station.json")));
-        QVERIFY(html.contains(sheetCaution().toHtmlEscaped()));
-        QVERIFY(sheetCaution().startsWith(QStringLiteral("Conceptual sizing estimates")));
+        // The caution once, as the sheet's caution paragraph; every other note in the list.
+        const QString caution = QString::fromStdString(std::string(conceptual_caution));
+        QVERIFY(caution.startsWith(QStringLiteral("Conceptual sizing estimates")));
+        QCOMPARE(countOf(html, caution.toHtmlEscaped()), 1);
+        QVERIFY(html.contains(QStringLiteral("<p class=\"caution\">%1</p>").arg(caution.toHtmlEscaped())));
         for (const std::string& note : m_results.notes)
             QVERIFY(html.contains(QString::fromStdString(note).toHtmlEscaped()));
         for (const Check& check : m_results.checks)

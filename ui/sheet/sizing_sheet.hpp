@@ -23,9 +23,6 @@ struct SheetContext {
     std::string tradeFigure = "peak_deceleration";
 };
 
-/// The caution printed on every sheet.
-QString sheetCaution();
-
 /// The sizing sheet as one HTML document: title, design name, date, tool version, the caution,
 /// the inputs with units, the key figures, the mass budget with growth allowances, the
 /// timeline, every check, the charts (PNG images embedded as data), and the trade study when

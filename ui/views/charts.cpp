@@ -25,6 +25,7 @@
 #include <QStackedBarSeries>
 #include <QValueAxis>
 
+#include "sizing/landed_mass.hpp"
 #include "views/chart_style.hpp"
 
 namespace ds {
@@ -158,10 +159,10 @@ QString kgText(double value) {
 
 }  // namespace
 
-QChart* altitudeVelocityChart(const Results& results, const Results* baseline) {
+std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Results* baseline) {
     const QString title = QStringLiteral("Altitude against velocity");
     if (results.history.empty())
-        return emptyChart(title);
+        return std::unique_ptr<QChart>(emptyChart(title));
 
     QChart* chart = newChart(title);
     QValueAxis* velocityAxis =
@@ -217,13 +218,13 @@ QChart* altitudeVelocityChart(const Results& results, const Results* baseline) {
     }
     if (!key.isEmpty())
         addKey(chart, key.join(QLatin1Char('\n')));
-    return chart;
+    return std::unique_ptr<QChart>(chart);
 }
 
-QChart* loadsChart(const Results& results, const Results* baseline) {
+std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline) {
     const QString title = QStringLiteral("Deceleration and heat flux against time");
     if (results.history.empty())
-        return emptyChart(title);
+        return std::unique_ptr<QChart>(emptyChart(title));
 
     QChart* chart = newChart(title);
     QValueAxis* timeAxis = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
@@ -271,13 +272,13 @@ QChart* loadsChart(const Results& results, const Results* baseline) {
                              }),
                timeAxis, heatAxis);
     }
-    return chart;
+    return std::unique_ptr<QChart>(chart);
 }
 
-QChart* machPressureChart(const Design& design, const Results& results, const Results* baseline) {
+std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results, const Results* baseline) {
     const QString title = QStringLiteral("Mach number and dynamic pressure against time");
     if (results.history.empty())
-        return emptyChart(title);
+        return std::unique_ptr<QChart>(emptyChart(title));
 
     QChart* chart = newChart(title);
     QValueAxis* timeAxis = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
@@ -349,16 +350,16 @@ QChart* machPressureChart(const Design& design, const Results& results, const Re
         attach(chart, marker, timeAxis, machAxis);
         hideFromLegend(chart, marker);
     }
-    return chart;
+    return std::unique_ptr<QChart>(chart);
 }
 
-QChart* massWaterfallChart(const Results& results) {
+std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
     const QString title = QStringLiteral("Mass from entry to landing");
     const MassResults& mass = results.mass;
     if (!(mass.entry_kg > 0.0))
-        return emptyChart(title, QStringLiteral("no mass budget"));
+        return std::unique_ptr<QChart>(emptyChart(title, QStringLiteral("no mass budget")));
 
-    const auto groupKg = [&](const char* group) {
+    const auto groupKg = [&](MassGroup group) {
         double sum = 0.0;
         for (const MassItem& item : mass.items) {
             if (item.group == group)
@@ -368,15 +369,15 @@ QChart* massWaterfallChart(const Results& results) {
     };
     // What leaves the vehicle, in the order it leaves.
     std::vector<std::pair<QString, double>> drops;
-    drops.emplace_back(QStringLiteral("heat-shield<br>jettison"), groupKg("heat shield"));
-    drops.emplace_back(QStringLiteral("backshell<br>separation"), groupKg("backshell"));
+    drops.emplace_back(QStringLiteral("heat-shield<br>jettison"), groupKg(MassGroup::heat_shield));
+    drops.emplace_back(QStringLiteral("backshell<br>separation"), groupKg(MassGroup::backshell));
     const double burned = results.terminal.burned_propellant_kg.value_or(0.0);
     if (results.terminal.burned_propellant_kg)
         drops.emplace_back(QStringLiteral("propellant<br>burned"), burned);
     // The descent stage's loaded propellant is in its group: what burned has gone already.
-    const std::string& method = results.terminal.method;
-    if (method == "airbag" || method == "tethered")
-        drops.emplace_back(QStringLiteral("descent<br>stage"), groupKg("descent stage") - burned);
+    if (!descent_stage_lands(results.terminal.method))
+        drops.emplace_back(QStringLiteral("descent<br>stage"),
+                           groupKg(MassGroup::descent_stage) - burned);
 
     QStringList categories;
     QList<qreal> base;
@@ -434,7 +435,7 @@ QChart* massWaterfallChart(const Results& results) {
         if (marker->label() == waterfallBaseLabel)
             marker->setVisible(false);
     }
-    return chart;
+    return std::unique_ptr<QChart>(chart);
 }
 
 QImage renderChart(QChart* chart, QSize size) {
@@ -490,9 +491,9 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
 
 void ChartsView::setResults(const Design& design, const Results& results, const Results* baseline) {
     // QChartView::setChart releases the previous chart without deleting it.
-    const auto replace = [](QChartView* view, QChart* chart) {
+    const auto replace = [](QChartView* view, std::unique_ptr<QChart> chart) {
         std::unique_ptr<QChart> previous(view->chart());
-        view->setChart(chart);
+        view->setChart(chart.release());  // the view's scene owns it from here
     };
     replace(m_altitudeVelocity, altitudeVelocityChart(results, baseline));
     replace(m_loads, loadsChart(results, baseline));

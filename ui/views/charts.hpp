@@ -1,5 +1,7 @@
 #pragma once
 
+#include <memory>
+
 #include <QImage>
 #include <QSize>
 #include <QWidget>
@@ -17,10 +19,11 @@ namespace ds {
 /// The result charts, built the same way for the window and the sizing sheet. Each takes the
 /// results and, when the user pinned one, a baseline drawn dashed behind them. The caller owns
 /// the chart returned.
-QChart* altitudeVelocityChart(const Results& results, const Results* baseline);
-QChart* loadsChart(const Results& results, const Results* baseline);
-QChart* machPressureChart(const Design& design, const Results& results, const Results* baseline);
-QChart* massWaterfallChart(const Results& results);
+std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Results* baseline);
+std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline);
+std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
+                                          const Results* baseline);
+std::unique_ptr<QChart> massWaterfallChart(const Results& results);
 
 /// A chart drawn into an image of the given size (for the sheet and screenshots).
 QImage renderChart(QChart* chart, QSize size);

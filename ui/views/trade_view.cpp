@@ -27,6 +27,7 @@
 #include "model/trade_runner.hpp"
 #include "results/key_figures.hpp"
 #include "trade/design_variants.hpp"
+#include "trade/success_probability.hpp"
 #include "views/dispersion_table.hpp"
 #include "views/trade_charts.hpp"
 
@@ -48,7 +49,6 @@ constexpr double suggestedSpread = 0.2;
 constexpr int progressSteps = 1000;
 /// Room for about four dispersions; more scroll.
 constexpr int dispersionTableHeight = 150;
-constexpr double percent = 100.0;
 /// The failing checks the summary names.
 constexpr std::size_t summaryChecks = 5;
 
@@ -410,13 +410,8 @@ void TradeView::showOutcome() {
             break;
         case TradeKind::dispersions: {
             const DispersionSummary& s = outcome.summary;
-            QString summary = tr("<b>Success probability %1 %</b> (%2 of %3 cases with no failing "
-                                 "check); 95 % interval %4 to %5 % (Wilson).")
-                                  .arg(s.success_probability * percent, 0, 'f', 2)
-                                  .arg(s.successes)
-                                  .arg(s.runs)
-                                  .arg(s.wilson_low * percent, 0, 'f', 2)
-                                  .arg(s.wilson_high * percent, 0, 'f', 2);
+            QString summary =
+                QString::fromStdString(success_probability_sentence(s)).toHtmlEscaped();
             if (!s.failing_checks.empty()) {
                 QStringList failing;
                 for (std::size_t i = 0; i < s.failing_checks.size() && i < summaryChecks; ++i) {

@@ -85,5 +85,12 @@ TEST_CASE("sizing for an unreachable ballistic coefficient returns 0") {
 TEST_CASE("the SphereCone bluntness is the nose radius over the base radius") {
     const ds::SphereCone shell{2.6, degrees_to_radians(70.0), 0.65};
     CHECK(shell.bluntness() == doctest::Approx(0.5).epsilon(1e-15));
-    CHECK(shell.frontal_area() == doctest::Approx(ds::frontal_area_m2(2.6)).epsilon(1e-15));
+}
+
+TEST_CASE("the SphereCone frontal area is pi D^2 / 4: 5.3093 m^2 at 2.6 m, 0.7854 m^2 at 1 m (by hand)") {
+    // pi * 2.6^2 / 4 = pi * 1.69 = 5.30929 m^2; pi / 4 = 0.785398 m^2.
+    CHECK(ds::SphereCone{2.6, degrees_to_radians(70.0), 0.65}.frontal_area() ==
+          doctest::Approx(5.30929).epsilon(1e-5));
+    CHECK(ds::SphereCone{1.0, degrees_to_radians(45.0), 0.1}.frontal_area() ==
+          doctest::Approx(0.785398).epsilon(1e-5));
 }

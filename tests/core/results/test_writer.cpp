@@ -21,7 +21,7 @@ ds::Results sample_results() {
     r.entry.diameter_m = 2.6;
     r.entry.nose_radius_m = 0.65;
     r.entry.drag_coefficient = 1.65;
-    r.entry.drag_coefficient_source = "design";
+    r.entry.drag_coefficient_source = ds::DragCoefficientSource::design;
     r.entry.ballistic_coefficient_kg_m2 = 64.1;
     r.entry.peak_deceleration_g = 9.5;
     r.entry.peak_deceleration_altitude_m = 31000.0;
@@ -49,7 +49,7 @@ ds::Results sample_results() {
     r.parachute.heat_shield_jettison_time_s = 270.0;
     r.parachute.descent_velocity_m_s = 62.0;
     r.decelerator = ds::DeceleratorResults{true, 180.0, 21000.0, 3.4, 2100.0, 6.0, 55.0};
-    r.terminal.method = "retro";
+    r.terminal.method = ds::TerminalMethod::retro;
     r.terminal.ignition_altitude_m = 1500.0;
     r.terminal.ignition_velocity_m_s = 80.0;
     r.terminal.delta_v_m_s = 110.0;
@@ -67,10 +67,11 @@ ds::Results sample_results() {
     r.timeline.margin_s = 95.0;
     r.timeline.available_s = 130.0;
     r.timeline.needed_s = 35.0;
-    r.mass.mode = "sizing";
+    r.mass.mode = ds::MassMode::sizing;
     r.mass.entry_kg = 560.0;
     r.mass.landed_kg = 380.0;
-    r.mass.items = {{"heat shield", 60.0, 52.0, 0.15, "heat shield", "layout", "design"}};
+    r.mass.items = {{"heat shield", 60.0, 52.0, 0.15, ds::MassGroup::heat_shield,
+                     ds::GrowthBasis::maturity, ds::Maturity::layout, "design"}};
     r.mass.closure = ds::MassClosure{true, 7, 0.004};
     r.capability.max_site_elevation_m = 1250.0;
     r.checks = {{"peak_deceleration", ds::CheckStatus::marginal, 14.0, 15.0, "g",
@@ -200,7 +201,7 @@ TEST_CASE("the mass budget is written with its mode, item details and closure") 
     CHECK(mass["closure"] == Json{{"converged", true}, {"iterations", 7}, {"residual_kg", 0.004}});
 
     ds::Results analysis = sample_results();
-    analysis.mass.mode = "analysis";
+    analysis.mass.mode = ds::MassMode::analysis;
     analysis.mass.closure.reset();
     const Json fixed = ds::results_to_json(analysis)["mass"];
     CHECK(fixed["mode"] == "analysis");

@@ -66,7 +66,7 @@ TEST_CASE("closure reproduces a hand-closed budget: items with growth plus the l
     REQUIRE(r.mass.closure);
     CHECK(r.mass.closure->converged);
     CHECK(r.mass.entry_kg == doctest::Approx(274.8).epsilon(0.1 / 274.8));
-    CHECK(r.mass.mode == "sizing");
+    CHECK(r.mass.mode == ds::MassMode::sizing);
     // Landed on the canopy: everything but the heat shield and the backshell group.
     CHECK(*r.mass.landed_kg == doctest::Approx(118.0 + 56.0).epsilon(1e-3));
 }
@@ -85,7 +85,7 @@ TEST_CASE("a closed budget adds up to the entry mass it was flown at, to 0.1 kg"
 
 TEST_CASE("in analysis mode the budget adds up to the fixed entry mass with what is unallocated") {
     const ds::Results r = ds::size_design(sample("small-ballistic-station"));
-    CHECK(r.mass.mode == "analysis");
+    CHECK(r.mass.mode == ds::MassMode::analysis);
     CHECK_FALSE(r.mass.closure);
     double sum = 0.0;
     for (const ds::MassItem& item : r.mass.items) sum += item.mass_kg;

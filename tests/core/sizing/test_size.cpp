@@ -60,7 +60,7 @@ TEST_CASE("the small station deploys at its trigger Mach, with the figures Allen
     CHECK(r.entry.peak_deceleration_g < allen_eggers_g);
     CHECK(r.entry.peak_deceleration_g > 0.5 * allen_eggers_g);
     // With Cd from modified Newtonian theory: 560 / (1.6607 * 5.309) = 63.5 kg/m^2.
-    CHECK(r.entry.drag_coefficient_source == "modified Newtonian");
+    CHECK(r.entry.drag_coefficient_source == ds::DragCoefficientSource::modified_newtonian);
     CHECK(r.entry.ballistic_coefficient_kg_m2 ==
           doctest::Approx(560.0 / (r.entry.drag_coefficient * ds::frontal_area_m2(2.6)))
               .epsilon(1e-12));

@@ -1,0 +1,19 @@
+#pragma once
+
+namespace ds {
+
+/// One point of the flown trajectory, for plots and the sheet.
+struct TrajectorySample {
+    double time_s = 0.0;
+    double altitude_m = 0.0;
+    double downrange_m = 0.0;
+    double velocity_m_s = 0.0;
+    double flight_path_angle_deg = 0.0;
+    double mach = 0.0;
+    double dynamic_pressure_Pa = 0.0;
+    double deceleration_g = 0.0;
+    double heat_flux_W_cm2 = 0.0;  ///< convective
+    double radiative_heat_flux_W_cm2 = 0.0;
+};
+
+}  // namespace ds

@@ -1,0 +1,20 @@
+#include "sizing/landed_mass.hpp"
+
+namespace ds {
+
+bool descent_stage_lands(TerminalMethod method) {
+    switch (method) {
+        case TerminalMethod::retro:
+        case TerminalMethod::none: return true;
+        case TerminalMethod::airbag:
+        case TerminalMethod::tethered: return false;
+    }
+    return true;
+}
+
+double landed_mass_kg(TerminalMethod method, double lander_kg, double burned_kg,
+                      double descent_stage_kg) {
+    return descent_stage_lands(method) ? lander_kg - burned_kg : lander_kg - descent_stage_kg;
+}
+
+}  // namespace ds

@@ -1,0 +1,18 @@
+#pragma once
+
+#include "design/design.hpp"
+
+namespace ds {
+
+/// Whether the descent stage reaches the ground with the payload: it does for `retro` and
+/// `none` (the lander touches down whole); `airbag` drops the payload from it and `tethered`
+/// lowers the payload and flies it away.
+bool descent_stage_lands(TerminalMethod method);
+
+/// What reaches the ground: the lander less the propellant it burned when its descent stage
+/// lands with it, or less the whole descent stage (items, tanks, engines and loaded propellant,
+/// airbags excepted) when it does not.
+double landed_mass_kg(TerminalMethod method, double lander_kg, double burned_kg,
+                      double descent_stage_kg);
+
+}  // namespace ds

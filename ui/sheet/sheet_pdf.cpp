@@ -1,0 +1,66 @@
+#include "sheet/sheet_pdf.hpp"
+
+#include <QAbstractTextDocumentLayout>
+#include <QPageLayout>
+#include <QPageSize>
+#include <QPainter>
+#include <QPdfWriter>
+#include <QTextDocument>
+#include <QUrl>
+
+namespace ds::sheet {
+namespace {
+
+/// Width the charts are shown at in the PDF, in its layout pixels (96 per inch): the A4 text
+/// width less a little.
+constexpr int pdfChartWidth = 660;
+/// The PDF is laid out at screen resolution so that pixel sizes mean the same as in the HTML.
+constexpr int pdfResolutionDpi = 96;
+constexpr double pdfMarginMm = 15.0;
+/// Room kept at the foot of each PDF page for the page number (layout pixels).
+constexpr double pdfFooterHeight = 24.0;
+
+}  // namespace
+
+bool writePagedPdf(QIODevice& device, const QString& title, const QString& creator,
+                   const PagedHtml& html) {
+    QPdfWriter writer(&device);
+    writer.setResolution(pdfResolutionDpi);
+    writer.setPageLayout(QPageLayout(QPageSize(QPageSize::A4), QPageLayout::Portrait,
+                                     QMarginsF(pdfMarginMm, pdfMarginMm, pdfMarginMm, pdfMarginMm),
+                                     QPageLayout::Millimeter));
+    writer.setTitle(title);
+    writer.setCreator(creator);
+
+    QTextDocument document;
+    document.documentLayout()->setPaintDevice(&writer);
+    const ImageSource resource = [&document](std::size_t index, const QImage& image) {
+        const QString name = QStringLiteral("chart%1.png").arg(index + 1);
+        document.addResource(QTextDocument::ImageResource, QUrl(name), image);
+        return name;
+    };
+    document.setHtml(html(resource, pdfChartWidth));
+    const QSizeF page(writer.width(), writer.height() - pdfFooterHeight);
+    document.setPageSize(page);
+
+    QPainter painter;
+    if (!painter.begin(&writer))
+        return false;
+    const int pages = document.pageCount();
+    for (int i = 0; i < pages; ++i) {
+        if (i > 0)
+            writer.newPage();
+        painter.save();
+        painter.translate(0.0, -i * page.height());
+        document.drawContents(&painter, QRectF(QPointF(0.0, i * page.height()), page));
+        painter.restore();
+        const QRectF foot(0.0, page.height(), page.width(), pdfFooterHeight);
+        painter.setPen(Qt::darkGray);
+        painter.drawText(foot, Qt::AlignRight | Qt::AlignBottom,
+                         QStringLiteral("%1 — page %2 of %3")
+                             .arg(title, QString::number(i + 1), QString::number(pages)));
+    }
+    return painter.end();
+}
+
+}  // namespace ds::sheet

@@ -1,0 +1,22 @@
+#pragma once
+
+#include <functional>
+
+#include <QIODevice>
+#include <QString>
+
+#include "sheet/sheet_charts.hpp"
+
+namespace ds::sheet {
+
+/// The HTML to lay out, given how its images are named and how wide charts are drawn.
+using PagedHtml = std::function<QString(const ImageSource& source, int chartWidth)>;
+
+/// Lays HTML out on A4 pages, at screen resolution so that pixel sizes mean what they mean in
+/// the HTML, with "<title> — page i of n" at the foot of every page: the sheet as a PDF. The
+/// images are handed to the layout as resources. Returns false when the device cannot be
+/// painted on.
+bool writePagedPdf(QIODevice& device, const QString& title, const QString& creator,
+                   const PagedHtml& html);
+
+}  // namespace ds::sheet

@@ -1,0 +1,254 @@
+#include "sheet/sheet_sections.hpp"
+
+#include <algorithm>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "design/writer.hpp"
+#include "results/caution.hpp"
+#include "results/key_figures.hpp"
+#include "sheet/sheet_format.hpp"
+
+namespace ds::sheet {
+namespace {
+
+/// The unit a design key's suffix carries (design-file.md: units are in the key names).
+struct UnitSuffix {
+    std::string_view suffix;
+    const char* unit;
+};
+
+constexpr UnitSuffix unitSuffixes[] = {
+    {"_m", "m"},           {"_kg", "kg"},       {"_m_s", "m/s"},
+    {"_deg", "deg"},       {"_Pa", "Pa"},       {"_kg_m3", "kg/m^3"},
+    {"_K", "K"},           {"_s", "s"},         {"_J_kgK", "J/(kg K)"},
+    {"_m3_s2", "m^3/s^2"}, {"_rad_s", "rad/s"}, {"_W_cm2", "W/cm^2"},
+    {"_kg_m2", "kg/m^2"},  {"_g", "g"},
+};
+
+/// The longest unit suffix a key ends with ("_m_s" before "_s"), or none.
+const UnitSuffix* unitSuffixOf(std::string_view key) {
+    const UnitSuffix* best = nullptr;
+    for (const UnitSuffix& entry : unitSuffixes) {
+        if (key.size() > entry.suffix.size() && key.ends_with(entry.suffix) &&
+            (!best || entry.suffix.size() > best->suffix.size()))
+            best = &entry;
+    }
+    return best;
+}
+
+struct InputRow {
+    QString key;
+    QString value;
+    QString unit;
+    bool numeric = false;
+};
+
+QString jsonValueText(const nlohmann::ordered_json& value) {
+    if (value.is_null())
+        return QStringLiteral("—");
+    if (value.is_boolean())
+        return value.get<bool>() ? QStringLiteral("true") : QStringLiteral("false");
+    if (value.is_number_integer())
+        return QString::number(value.get<long long>());
+    if (value.is_number())
+        return QString::number(value.get<double>(), 'g', 9);
+    if (value.is_string())
+        return QString::fromStdString(value.get<std::string>());
+    return QString::fromStdString(value.dump());
+}
+
+void flatten(const nlohmann::ordered_json& node, const std::string& path, const std::string& leaf,
+             std::vector<InputRow>& rows) {
+    if (node.is_object() && !node.empty()) {
+        for (const auto& [key, value] : node.items())
+            flatten(value, path.empty() ? key : path + "." + key, key, rows);
+        return;
+    }
+    if (node.is_array() && !node.empty()) {
+        for (std::size_t i = 0; i < node.size(); ++i)
+            flatten(node[i], path + "[" + std::to_string(i) + "]", leaf, rows);
+        return;
+    }
+    InputRow row;
+    std::string key = path;
+    if (const UnitSuffix* suffix = unitSuffixOf(leaf); suffix && path.ends_with(leaf)) {
+        key.resize(key.size() - suffix->suffix.size());
+        row.unit = QString::fromUtf8(suffix->unit);
+    }
+    row.key = QString::fromStdString(key);
+    row.numeric = node.is_number();
+    row.value =
+        (node.is_array() || node.is_object()) ? QStringLiteral("none") : jsonValueText(node);
+    rows.push_back(std::move(row));
+}
+
+std::vector<InputRow> inputRows(const Design& design) {
+    std::vector<InputRow> rows;
+    const nlohmann::ordered_json document = design_to_json(design);
+    for (const auto& [key, value] : document.items()) {
+        if (key == "format" || key == "version")
+            continue;
+        flatten(value, key, key, rows);
+    }
+    return rows;
+}
+
+}  // namespace
+
+QString designSection(const Design& design, const Results& results) {
+    const auto count = [&](CheckStatus status) {
+        return std::count_if(results.checks.begin(), results.checks.end(),
+                             [status](const Check& c) { return c.status == status; });
+    };
+    const QString body = design.body.preset.empty() ? QString::fromStdString(design.body.body.name)
+                                                    : QString::fromStdString(design.body.preset);
+    HtmlTable table({QStringLiteral("item"), QStringLiteral("value")});
+    table.addRow({{QStringLiteral("design"), {}}, {QString::fromStdString(design.name), {}}});
+    table.addRow({{QStringLiteral("body"), {}}, {body, {}}});
+    table.addRow({{QStringLiteral("atmosphere model"), {}},
+                  {QString::fromUtf8(to_string(design.atmosphere.model)), {}}});
+    table.addRow({{QStringLiteral("site elevation"), {}},
+                  {QStringLiteral("%1 m").arg(formatValue(design.site.elevation_m)), {}}});
+    table.addRow({{QStringLiteral("terminal descent"), {}},
+                  {QString::fromUtf8(to_string(design.terminal.method)), {}}});
+    table.addRow({{QStringLiteral("mass budget"), {}},
+                  {results.mass.mode == MassMode::sizing
+                       ? QStringLiteral("sizing: entry mass closed by iteration")
+                       : QStringLiteral("analysis: entry mass fixed by the design"),
+                   {}}});
+    table.addRow({{QStringLiteral("converged (flown, mass closed)"), {}},
+                  {results.converged ? QStringLiteral("yes") : QStringLiteral("no"), {}}});
+    table.addRow({{QStringLiteral("checks"), {}},
+                  {QStringLiteral("%1 failing, %2 marginal, %3 passing")
+                       .arg(count(CheckStatus::fail))
+                       .arg(count(CheckStatus::marginal))
+                       .arg(count(CheckStatus::pass)),
+                   {}}});
+    return section(QStringLiteral("Design"), table.html());
+}
+
+QString cautionSection(const Results& results) {
+    QString body = paragraph(QString::fromStdString(std::string(conceptual_caution)),
+                             QStringLiteral("caution"));
+    QString notes;
+    for (const std::string& note : results.notes) {
+        if (note != conceptual_caution)  // shown above
+            notes += QStringLiteral("<li>%1</li>\n").arg(escaped(note));
+    }
+    if (!notes.isEmpty())
+        body += QStringLiteral("<ul>\n%1</ul>\n").arg(notes);
+    return section(QStringLiteral("Caution"), body);
+}
+
+QString inputsSection(const Design& design) {
+    HtmlTable table({QStringLiteral("key"), QStringLiteral("value"), QStringLiteral("unit")});
+    for (const InputRow& row : inputRows(design))
+        table.addRow(
+            {{row.key, {}}, {row.value, row.numeric ? numberCell : QString()}, {row.unit, {}}});
+    return section(QStringLiteral("Inputs"), table.html());
+}
+
+QString keyFiguresSection(const Results& results) {
+    HtmlTable table({QStringLiteral("figure"), QStringLiteral("value"), QStringLiteral("unit")});
+    for (const KeyFigure& figure : key_figures(results)) {
+        table.addRow({{QString::fromStdString(figure.label), {}},
+                      {formatFixed(figure.value, figure.decimals), numberCell},
+                      {QString::fromStdString(figure.unit), {}}});
+    }
+    return section(QStringLiteral("Key figures"), table.html());
+}
+
+QString massSection(const Results& results) {
+    const MassResults& mass = results.mass;
+    HtmlTable table({QStringLiteral("item"), QStringLiteral("group"), QStringLiteral("maturity"),
+                     QStringLiteral("basic (kg)"), QStringLiteral("growth (%)"),
+                     QStringLiteral("mass (kg)"), QStringLiteral("source")});
+    for (const MassItem& item : mass.items) {
+        table.addRow({{QString::fromStdString(item.name), {}},
+                      {QString::fromUtf8(to_string(item.group)), {}},
+                      {QString::fromUtf8(maturity_name(item)), {}},
+                      {QString::number(item.basic_kg, 'f', 1), numberCell},
+                      {QString::number(100.0 * item.growth_fraction, 'f', 0), numberCell},
+                      {QString::number(item.mass_kg, 'f', 1), numberCell},
+                      {QString::fromStdString(item.source), {}}});
+    }
+    const QString total = QStringLiteral("total");
+    table.addRow({{QStringLiteral("entry mass"), {}},
+                  {},
+                  {},
+                  {},
+                  {},
+                  {QString::number(mass.entry_kg, 'f', 1), numberCell},
+                  {}},
+                 total);
+    table.addRow({{QStringLiteral("landed mass"), {}},
+                  {},
+                  {},
+                  {},
+                  {},
+                  {formatFixed(mass.landed_kg, 1), numberCell},
+                  {}},
+                 total);
+    QString body = table.html();
+    if (mass.closure) {
+        const MassClosure& closure = *mass.closure;
+        body += paragraph(
+            closure.converged
+                ? QStringLiteral("Mass closure: converged in %1 iterations, residual %2 kg.")
+                      .arg(closure.iterations)
+                      .arg(formatValue(closure.residual_kg))
+                : QStringLiteral("Mass closure: did not converge in %1 iterations, residual %2 kg.")
+                      .arg(closure.iterations)
+                      .arg(formatValue(closure.residual_kg)));
+    }
+    return section(QStringLiteral("Mass budget"), body);
+}
+
+QString timelineSection(const Design& design, const Results& results) {
+    HtmlTable table({QStringLiteral("#"), QStringLiteral("event"), QStringLiteral("time (s)"),
+                     QStringLiteral("altitude (m)"), QStringLiteral("height above site (m)"),
+                     QStringLiteral("velocity (m/s)")});
+    int number = 0;
+    for (const TimelineEvent& event : results.timeline.events) {
+        table.addRow(
+            {{QString::number(++number), numberCell},
+             {QString::fromStdString(event.name), {}},
+             {QString::number(event.time_s, 'f', 1), numberCell},
+             {QString::number(event.altitude_m, 'f', 0), numberCell},
+             {QString::number(event.altitude_m - design.site.elevation_m, 'f', 0), numberCell},
+             {QString::number(event.velocity_m_s, 'f', 1), numberCell}});
+    }
+    const Timeline& timeline = results.timeline;
+    QString body = table.html();
+    QString margin = QStringLiteral("Timeline margin: %1 s").arg(formatFixed(timeline.margin_s, 1));
+    if (timeline.available_s && timeline.needed_s)
+        margin += QStringLiteral(
+                      " (%1 s available between parachute deploy and the terminal "
+                      "phase, %2 s needed by the sequence)")
+                      .arg(formatFixed(timeline.available_s, 1), formatFixed(timeline.needed_s, 1));
+    body += paragraph(margin + QLatin1Char('.'));
+    body += paragraph(QStringLiteral("Highest feasible site elevation: %1 m.")
+                          .arg(formatFixed(results.capability.max_site_elevation_m, 0)));
+    return section(QStringLiteral("Timeline"), body);
+}
+
+QString checksSection(const Results& results) {
+    HtmlTable table({QStringLiteral("status"), QStringLiteral("id"), QStringLiteral("value"),
+                     QStringLiteral("limit"), QStringLiteral("unit"), QStringLiteral("message"),
+                     QStringLiteral("source")});
+    for (const Check& check : results.checks) {
+        const QString status = QString::fromUtf8(to_string(check.status));
+        table.addRow({{status, status},
+                      {QString::fromStdString(check.id), keyCell},
+                      {formatValue(check.value), numberCell},
+                      {formatValue(check.limit), numberCell},
+                      {QString::fromStdString(check.unit), {}},
+                      {QString::fromStdString(check.message), {}},
+                      {QString::fromStdString(check.source), {}}});
+    }
+    return section(QStringLiteral("Checks"), table.html());
+}
+
+}  // namespace ds::sheet

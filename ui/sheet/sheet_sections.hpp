@@ -1,0 +1,21 @@
+#pragma once
+
+#include <QString>
+
+#include "design/design.hpp"
+#include "results/results.hpp"
+
+namespace ds::sheet {
+
+/// The sheet's sections of the design and its results, each an HTML <section>.
+QString designSection(const Design& design, const Results& results);
+/// The caution every sheet carries, then the results' other notes.
+QString cautionSection(const Results& results);
+/// The design document flattened into key, value and unit (units from the keys' suffixes).
+QString inputsSection(const Design& design);
+QString keyFiguresSection(const Results& results);
+QString massSection(const Results& results);
+QString timelineSection(const Design& design, const Results& results);
+QString checksSection(const Results& results);
+
+}  // namespace ds::sheet

@@ -1,0 +1,130 @@
+#include "sheet/sheet_trade_section.hpp"
+
+#include <string>
+
+#include "model/trade_runner.hpp"
+#include "results/key_figures.hpp"
+#include "sheet/sheet_format.hpp"
+#include "trade/success_probability.hpp"
+
+namespace ds::sheet {
+namespace {
+
+/// The rows of a sweep: the varied values, the figure shown, the worst check and the margin.
+QString sweepTable(const TradeOutcome& trade, const std::string& figureId) {
+    const std::vector<KeyFigure> header = key_figures(Results{});
+    const std::size_t figure = key_figure_index(figureId).value_or(header.size() - 1);
+    QStringList headings;
+    for (const SweepAxis& axis : trade.request.axes)
+        headings << QString::fromStdString(axis.key);
+    headings << QStringLiteral("%1 (%2)").arg(QString::fromStdString(header[figure].label),
+                                              QString::fromStdString(header[figure].unit))
+             << QStringLiteral("worst check") << QStringLiteral("feasibility margin (%)");
+    HtmlTable table(headings);
+    for (const SweepCase& c : trade.sweep) {
+        std::vector<std::pair<QString, QString>> cells;
+        for (const double v : c.inputs)
+            cells.push_back({formatValue(v), numberCell});
+        if (!c.results) {
+            cells.push_back({QStringLiteral("—"), numberCell});
+            cells.push_back({QStringLiteral("cannot be read: %1").arg(QString::fromStdString(c.error)),
+                             QStringLiteral("fail")});
+            cells.push_back({QStringLiteral("—"), numberCell});
+        } else {
+            const KeyFigure value = key_figures(*c.results)[figure];
+            const WorstCheck worst = worst_check(*c.results);
+            const FeasibilityMargin margin = feasibility_margin(*c.results);
+            const QString status = QString::fromUtf8(to_string(worst.status));
+            cells.push_back({formatFixed(value.value, value.decimals), numberCell});
+            cells.push_back({worst.id.empty() ? status
+                                              : QStringLiteral("%1: %2").arg(status, QString::fromStdString(worst.id)),
+                             status});
+            cells.push_back({margin.margin ? QString::number(*margin.margin * 100.0, 'f', 1)
+                                           : QStringLiteral("none (%1)").arg(QString::fromStdString(margin.id)),
+                             numberCell});
+        }
+        table.addRow(cells);
+    }
+    return table.html();
+}
+
+QString dispersionTables(const TradeOutcome& trade) {
+    const DispersionSummary& s = trade.summary;
+    QString body = paragraph(QString::fromStdString(success_probability_sentence(s)));
+    QStringList dispersed;
+    for (const DispersionDesign& d : trade.design.dispersions) {
+        dispersed << (d.distribution == DistributionKind::normal
+                          ? QStringLiteral("%1: normal, sigma %2").arg(QString::fromStdString(d.key), formatValue(d.sigma))
+                          : QStringLiteral("%1: uniform, %2 to %3")
+                                .arg(QString::fromStdString(d.key), formatValue(d.min), formatValue(d.max)));
+    }
+    body += paragraph(QStringLiteral("Dispersed inputs: %1.").arg(dispersed.join(QStringLiteral("; "))));
+    HtmlTable table({QStringLiteral("figure"), QStringLiteral("unit"), QStringLiteral("cases"),
+                     QStringLiteral("mean"), QStringLiteral("std dev"), QStringLiteral("1st pct"),
+                     QStringLiteral("median"), QStringLiteral("99th pct")});
+    for (const FigureStatistics& f : s.figures) {
+        if (f.count == 0)
+            continue;
+        table.addRow({{QString::fromStdString(f.id), keyCell},
+                      {QString::fromStdString(f.unit), {}},
+                      {QString::number(f.count), numberCell},
+                      {formatValue(f.mean), numberCell},
+                      {formatValue(f.standard_deviation), numberCell},
+                      {formatValue(f.p01), numberCell},
+                      {formatValue(f.p50), numberCell},
+                      {formatValue(f.p99), numberCell}});
+    }
+    body += table.html();
+    if (!s.failing_checks.empty()) {
+        HtmlTable failing({QStringLiteral("failing check"), QStringLiteral("cases"), QStringLiteral("share (%)")});
+        for (const auto& [id, count] : s.failing_checks) {
+            failing.addRow({{QString::fromStdString(id), keyCell},
+                            {QString::number(count), numberCell},
+                            {QString::number(100.0 * static_cast<double>(count) / static_cast<double>(s.runs), 'f', 2),
+                             numberCell}});
+        }
+        body += failing.html();
+    }
+    return body;
+}
+
+QString sensitivityTable(const TradeOutcome& trade) {
+    constexpr std::size_t drivers = 3;
+    const SensitivityTable& table = *trade.sensitivities;
+    HtmlTable html({QStringLiteral("figure"), QStringLiteral("strongest drivers, d ln(figure) / d ln(input)")});
+    for (std::size_t f = 0; f < table.figures.size(); ++f) {
+        const auto ranked = table.ranked(f);
+        QStringList text;
+        for (std::size_t k = 0; k < ranked.size() && k < drivers; ++k)
+            text << QStringLiteral("%1 %2").arg(QString::fromStdString(ranked[k].first))
+                        .arg(ranked[k].second, 0, 'f', 3);
+        html.addRow({{QString::fromStdString(table.figures[f]), keyCell},
+                     {text.isEmpty() ? QStringLiteral("—") : text.join(QStringLiteral("; ")), {}}});
+    }
+    return html.html();
+}
+
+}  // namespace
+
+QString tradeSection(const SheetContext& context, const std::vector<SheetChart>& charts,
+                     const ImageSource& source, int width) {
+    constexpr std::size_t mostSweepRows = 60;
+    const TradeOutcome& trade = *context.trade;
+    QString body = paragraph(QStringLiteral("%1, run in %2 s.")
+                                 .arg(trade.description())
+                                 .arg(trade.seconds, 0, 'f', 2));
+    body += chartImages(charts, true, source, width);
+    switch (trade.request.kind) {
+        case TradeKind::sweep:
+            body += trade.sweep.size() <= mostSweepRows
+                        ? sweepTable(trade, context.tradeFigure)
+                        : paragraph(QStringLiteral("%1 cases: their rows are in the study's CSV export.")
+                                        .arg(trade.sweep.size()));
+            break;
+        case TradeKind::dispersions: body += dispersionTables(trade); break;
+        case TradeKind::sensitivities: body += sensitivityTable(trade); break;
+    }
+    return section(QStringLiteral("Trade study"), body);
+}
+
+}  // namespace ds::sheet
