@@ -21,12 +21,16 @@ inline constexpr int design_format_version = 1;
 struct BodyDesign {
     std::string preset;  ///< "mars", "earth", ...; empty for a custom body
     Body body;           ///< the preset's values, or the custom body
+
+    bool operator==(const BodyDesign&) const = default;
 };
 
 struct AtmosphereRow {
     double altitude_m = 0.0;
     double density_kg_m3 = 0.0;
     double temperature_K = 0.0;
+
+    bool operator==(const AtmosphereRow&) const = default;
 };
 
 enum class AtmosphereModel { exponential, table, standard };
@@ -44,10 +48,14 @@ struct AtmosphereDesign {
     std::optional<double> gas_constant_J_kgK;  ///< default: the body's gas
     std::optional<double> gamma;               ///< default: the body's gas
     double density_scale = 1.0;
+
+    bool operator==(const AtmosphereDesign&) const = default;
 };
 
 struct SiteDesign {
     double elevation_m = 0.0;
+
+    bool operator==(const SiteDesign&) const = default;
 };
 
 struct EntryDesign {
@@ -56,6 +64,8 @@ struct EntryDesign {
     double flight_path_angle_deg = 0.0;  ///< negative below the local horizontal
     double lift_to_drag = 0.0;
     double bank_angle_deg = 0.0;
+
+    bool operator==(const EntryDesign&) const = default;
 };
 
 struct AeroshellDesign {
@@ -64,6 +74,8 @@ struct AeroshellDesign {
     double half_angle_deg = 70.0;
     double nose_radius_m = 0.0;
     std::optional<double> drag_coefficient;  ///< empty: modified Newtonian theory
+
+    bool operator==(const AeroshellDesign&) const = default;
 };
 
 /// When an item leaves the vehicle: what the mass budget groups it by.
@@ -83,6 +95,8 @@ struct MassItemDesign {
     double mass_kg = 0.0;  ///< basic mass, without growth allowance
     MassGroup group = MassGroup::payload;
     Maturity maturity = Maturity::estimated;
+
+    bool operator==(const MassItemDesign&) const = default;
 };
 
 struct MassDesign {
@@ -96,6 +110,8 @@ struct MassDesign {
     /// parachute; estimated from the aeroshell's size when absent.
     std::optional<double> backshell_kg;
     std::vector<MassItemDesign> items;
+
+    bool operator==(const MassDesign&) const = default;
 };
 
 enum class TriggerKind { mach, dynamic_pressure, altitude };
@@ -109,6 +125,8 @@ struct ParachuteDesign {
     TriggerKind trigger = TriggerKind::mach;
     double trigger_value = 0.0;  ///< Mach, Pa or m, by trigger
     std::optional<double> mass_kg;  ///< canopy, lines, riser and mortar; estimated when absent
+
+    bool operator==(const ParachuteDesign&) const = default;
 };
 
 /// An optional supersonic inflatable decelerator, flown between the entry and the parachute.
@@ -118,16 +136,25 @@ struct DeceleratorDesign {
     TriggerKind trigger = TriggerKind::mach;  ///< when it inflates, crossed downward
     double trigger_value = 0.0;
     std::optional<double> mass_kg;  ///< estimated when absent
+
+    bool operator==(const DeceleratorDesign&) const = default;
 };
 
 /// The events between parachute deploy and the terminal burn, and the time each needs.
 struct SequenceDesign {
+    /// The heat-shield jettison delay after parachute deploy when the design gives neither a
+    /// delay nor a dynamic pressure (common practice: some 20 s, once the canopy has slowed the
+    /// vehicle to subsonic speed).
+    static constexpr double default_jettison_delay_s = 20.0;
+
     /// Heat-shield jettison after deploy: a delay, or the dynamic pressure falling below a value.
     /// Neither given: the delay's default.
     std::optional<double> heat_shield_jettison_delay_s;
     std::optional<double> heat_shield_jettison_dynamic_pressure_Pa;
     double ground_sensing_lock_s = 15.0;  ///< after jettison, before separation may happen
     double separation_coast_s = 2.0;      ///< free fall from backshell separation to ignition
+
+    bool operator==(const SequenceDesign&) const = default;
 };
 
 enum class TerminalMethod { retro, airbag, tethered, none };
@@ -149,6 +176,8 @@ struct TerminalDesign {
     /// need with its reserve and residual). A dispersion flies the nominal vehicle with both.
     std::optional<double> thrust_N;
     std::optional<double> propellant_loaded_kg;
+
+    bool operator==(const TerminalDesign&) const = default;
 };
 
 /// Numerical settings of the trajectory integration.
@@ -156,6 +185,8 @@ struct SolverDesign {
     double relative_tolerance = 1e-8;
     double max_time_s = 4000.0;  ///< flight-time budget
     int max_steps = 200000;      ///< step budget
+
+    bool operator==(const SolverDesign&) const = default;
 };
 
 /// The document's names for the enumerations, one table each for reading and writing.
@@ -167,6 +198,11 @@ std::string_view to_string(MassGroup group);
 std::string_view to_string(Maturity maturity);
 std::optional<MassGroup> mass_group_from(std::string_view name);
 std::optional<Maturity> maturity_from(std::string_view name);
+/// Every name of each table, in order, for choices and messages.
+std::vector<std::string_view> atmosphere_model_names();
+std::vector<std::string_view> terminal_method_names();
+std::vector<std::string_view> mass_group_names();
+std::vector<std::string_view> maturity_names();
 
 enum class DistributionKind { normal, uniform };
 
@@ -178,6 +214,8 @@ struct DispersionDesign {
     double sigma = 0.0;  ///< normal
     double min = 0.0;    ///< uniform
     double max = 0.0;    ///< uniform
+
+    bool operator==(const DispersionDesign&) const = default;
 };
 
 struct Design {
@@ -196,6 +234,8 @@ struct Design {
     Limits limits;
     SolverDesign solver;
     std::vector<DispersionDesign> dispersions;
+
+    bool operator==(const Design&) const = default;
 };
 
 }  // namespace ds
