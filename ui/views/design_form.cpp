@@ -229,9 +229,11 @@ QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
     return combo;
 }
 
-QComboBox* DesignForm::addShape(QFormLayout* form, const QString& label, const QStringList& shapes,
-                                std::function<int()> current, std::function<void(int)> select) {
+QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QString& label,
+                                const QStringList& shapes, std::function<int()> current,
+                                std::function<void(int)> select) {
     auto* combo = new QComboBox(this);
+    combo->setObjectName(name);
     combo->addItems(shapes);
     form->addRow(label, combo);
     m_shapes.push_back({combo, current, select});
@@ -291,7 +293,8 @@ void DesignForm::addPresence(QFormLayout* form, const SectionRow& section) {
     const std::string pointer = pointerOf(section);
     const QString label = words(section.label);
     addShape(
-        form, label, {words(section.absent_text), words(section.present_text)},
+        form, QString::fromStdString(pointer) + "#presence", label,
+        {words(section.absent_text), words(section.present_text)},
         [this, pointer] { return m_document->value(pointer).is_object() ? 1 : 0; },
         [this, pointer, label, &section](int shape) {
             const bool present = m_document->value(pointer).is_object();
@@ -316,7 +319,7 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
     QStringList shapes;
     for (const std::string_view name : names) shapes << displayText(selector, name);
     addShape(
-        form, words(label_of(selector)), shapes,
+        form, QString::fromStdString(pointer), words(label_of(selector)), shapes,
         [this, pointer, names] {
             const Json now = m_document->value(pointer);
             for (std::size_t i = 0; i < names.size(); ++i) {
@@ -329,7 +332,10 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
             const std::vector<const KeyRow*> keys = keys_of(selector.section);
             // A shape whose keys the form cannot fill (a table's rows) is chosen in the file.
             for (const KeyRow* key : keys) {
-                if (key->kind == KeyKind::by_hand && key->model && belongsTo(*key, name)) return;
+                if (key->kind == KeyKind::by_hand && key->model && belongsTo(*key, name)) {
+                    refresh();  // back to the document's shape
+                    return;
+                }
             }
             std::vector<std::pair<std::string, Json>> values{{pointer, std::string(name)}};
             for (const KeyRow* key : keys) {
@@ -352,7 +358,8 @@ void DesignForm::addGroup(QFormLayout* form, const KeyRow& first) {
     for (const KeyRow* key : members) shapes << words(key->shape_text);
     const KeyGroup* group = first.group;
     addShape(
-        form, words(group->label), shapes,
+        form, QString::fromStdString(key_to_pointer(first.section)) + "#" + fromView(group->name),
+        words(group->label), shapes,
         [this, members] {
             for (std::size_t i = 0; i < members.size(); ++i) {
                 if (!m_document->value(pointerOf(*members[i])).is_null()) return static_cast<int>(i);
@@ -379,7 +386,8 @@ void DesignForm::addNumberOrRequest(QFormLayout* form, const KeyRow& key) {
     const std::string pointer = pointerOf(key);
     const std::vector<const KeyRow*> request = requestOf(key);
     addShape(
-        form, words(label_of(key)), {words(key.shape_text), words(request.front()->shape_text)},
+        form, QString::fromStdString(pointer) + "#sizing", words(label_of(key)),
+        {words(key.shape_text), words(request.front()->shape_text)},
         [this, pointer] { return m_document->value(pointer).is_object() ? 1 : 0; },
         [this, pointer, request, &key](int shape) {
             const Json now = m_document->value(pointer);

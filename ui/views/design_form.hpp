@@ -67,8 +67,12 @@ private:
     QuantityEdit* addNumber(QFormLayout* form, const KeyRow& key);
     QComboBox* addChoice(QFormLayout* form, const QString& label, const std::string& pointer,
                          const std::vector<std::pair<QString, std::string>>& choices);
-    QComboBox* addShape(QFormLayout* form, const QString& label, const QStringList& shapes,
-                        std::function<int()> current, std::function<void(int)> select);
+    /// A choice between shapes, named for tests: the selector's pointer ("/terminal/method"),
+    /// or a part's pointer with what it chooses ("/parachute#deploy trigger",
+    /// "/aeroshell/diameter_m#sizing", "/decelerator#presence").
+    QComboBox* addShape(QFormLayout* form, const QString& name, const QString& label,
+                        const QStringList& shapes, std::function<int()> current,
+                        std::function<void(int)> select);
 
     /// The fields of one object of the document, row by row of the schema.
     void buildPart(QFormLayout* form, const SectionRow& section);
