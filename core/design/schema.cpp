@@ -234,6 +234,13 @@ const std::array sections{
                .trade_inputs = false},
 };
 
+/// A limit: defaulted, any finite value unless said otherwise.
+template <auto field>
+KeyRow limit(std::string_view key, std::string_view unit, ValueRange range = any_finite) {
+    return KeyRow{.section = "limits", .key = key, .need = KeyNeed::defaulted, .range = range,
+                  .unit = unit, .number = member<&Design::limits, field>};
+}
+
 // ---- The keys --------------------------------------------------------------------------------
 //
 // In the writer's order. Typical ranges and fallbacks are the window's suggestions (our
@@ -485,50 +492,22 @@ const std::array keys{
 
     // The limits: their defaults and sources are in core/checks/limits.hpp. The form labels
     // them by their keys.
-    KeyRow{.section = "limits", .key = "ballistic_coefficient_max_kg_m2",
-           .need = KeyNeed::defaulted, .range = any_finite, .unit = "kg/m^2",
-           .number = member<&Design::limits, &Limits::ballistic_coefficient_max_kg_m2>},
-    KeyRow{.section = "limits", .key = "aeroshell_diameter_max_m", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "m",
-           .number = member<&Design::limits, &Limits::aeroshell_diameter_max_m>},
-    KeyRow{.section = "limits", .key = "heritage_half_angle_deg", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "deg",
-           .number = member<&Design::limits, &Limits::heritage_half_angle_deg>},
-    KeyRow{.section = "limits", .key = "parachute_diameter_max_m", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "m",
-           .number = member<&Design::limits, &Limits::parachute_diameter_max_m>},
-    KeyRow{.section = "limits", .key = "deploy_mach_max", .need = KeyNeed::defaulted,
-           .range = any_finite, .number = member<&Design::limits, &Limits::deploy_mach_max>},
-    KeyRow{.section = "limits", .key = "deploy_dynamic_pressure_min_Pa",
-           .need = KeyNeed::defaulted, .range = any_finite, .unit = "Pa",
-           .number = member<&Design::limits, &Limits::deploy_dynamic_pressure_min_Pa>},
-    KeyRow{.section = "limits", .key = "deploy_dynamic_pressure_max_Pa",
-           .need = KeyNeed::defaulted, .range = any_finite, .unit = "Pa",
-           .number = member<&Design::limits, &Limits::deploy_dynamic_pressure_max_Pa>},
-    KeyRow{.section = "limits", .key = "peak_deceleration_max_g", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "g",
-           .number = member<&Design::limits, &Limits::peak_deceleration_max_g>},
-    KeyRow{.section = "limits", .key = "peak_heat_flux_max_W_cm2", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "W/cm^2",
-           .number = member<&Design::limits, &Limits::peak_heat_flux_max_W_cm2>},
-    KeyRow{.section = "limits", .key = "site_elevation_max_m", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "m",
-           .number = member<&Design::limits, &Limits::site_elevation_max_m>},
-    KeyRow{.section = "limits", .key = "landed_mass_max_kg", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "kg",
-           .number = member<&Design::limits, &Limits::landed_mass_max_kg>},
-    KeyRow{.section = "limits", .key = "touchdown_velocity_max_m_s", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "m/s",
-           .number = member<&Design::limits, &Limits::touchdown_velocity_max_m_s>},
-    KeyRow{.section = "limits", .key = "airbag_impact_velocity_max_m_s",
-           .need = KeyNeed::defaulted, .range = any_finite, .unit = "m/s",
-           .number = member<&Design::limits, &Limits::airbag_impact_velocity_max_m_s>},
-    KeyRow{.section = "limits", .key = "timeline_margin_min_s", .need = KeyNeed::defaulted,
-           .range = any_finite, .unit = "s",
-           .number = member<&Design::limits, &Limits::timeline_margin_min_s>},
+    limit<&Limits::ballistic_coefficient_max_kg_m2>("ballistic_coefficient_max_kg_m2", "kg/m^2"),
+    limit<&Limits::aeroshell_diameter_max_m>("aeroshell_diameter_max_m", "m"),
+    limit<&Limits::heritage_half_angle_deg>("heritage_half_angle_deg", "deg"),
+    limit<&Limits::parachute_diameter_max_m>("parachute_diameter_max_m", "m"),
+    limit<&Limits::deploy_mach_max>("deploy_mach_max", ""),
+    limit<&Limits::deploy_dynamic_pressure_min_Pa>("deploy_dynamic_pressure_min_Pa", "Pa"),
+    limit<&Limits::deploy_dynamic_pressure_max_Pa>("deploy_dynamic_pressure_max_Pa", "Pa"),
+    limit<&Limits::peak_deceleration_max_g>("peak_deceleration_max_g", "g"),
+    limit<&Limits::peak_heat_flux_max_W_cm2>("peak_heat_flux_max_W_cm2", "W/cm^2"),
+    limit<&Limits::site_elevation_max_m>("site_elevation_max_m", "m"),
+    limit<&Limits::landed_mass_max_kg>("landed_mass_max_kg", "kg"),
+    limit<&Limits::touchdown_velocity_max_m_s>("touchdown_velocity_max_m_s", "m/s"),
+    limit<&Limits::airbag_impact_velocity_max_m_s>("airbag_impact_velocity_max_m_s", "m/s"),
+    limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s"),
     // A marginal band is a fraction of the limit (our bound).
-    KeyRow{.section = "limits", .key = "marginal_band", .need = KeyNeed::defaulted,
-           .range = fraction_of_one, .number = member<&Design::limits, &Limits::marginal_band>},
+    limit<&Limits::marginal_band>("marginal_band", "", fraction_of_one),
 
     KeyRow{.section = "solver", .key = "relative_tolerance", .need = KeyNeed::defaulted,
            .range = {.at_least = relative_tolerance_min, .at_most = relative_tolerance_max},

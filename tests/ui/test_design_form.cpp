@@ -221,6 +221,12 @@ private slots:
             const std::string pointer = key_to_pointer(check.key);
             QVERIFY2(form.fieldFor(pointer), pointer.c_str());
         }
+        // A deploy check names the Mach trigger; a design deploying on dynamic pressure is taken
+        // to the trigger it gives.
+        form.show();
+        shape(form, "/parachute#deploy trigger")->setCurrentIndex(1);
+        QVERIFY(form.focusField("/parachute/deploy_mach"));
+        QTRY_VERIFY(form.fieldFor("/parachute/deploy_dynamic_pressure_Pa")->hasFocus());
     }
 };
 

@@ -585,6 +585,17 @@ QWidget* DesignForm::fieldFor(const std::string& pointer) const {
 
 bool DesignForm::focusField(const std::string& pointer) {
     QWidget* field = fieldFor(pointer);
+    if (field && !field->isVisibleTo(this)) {
+        // A key of a group the document gives another of (a check names the Mach trigger, the
+        // design deploys on dynamic pressure): the one it gives.
+        const KeyRow* key = find_key(pointer_to_key(pointer));
+        for (const NumberBinding& b : m_numbers) {
+            if (key && key->group && b.key->group == key->group && b.key->section == key->section &&
+                b.edit->isVisibleTo(this)) {
+                field = b.edit;
+            }
+        }
+    }
     if (!field || !field->isVisibleTo(this)) return false;
     for (QWidget* w = field->parentWidget(); w; w = w->parentWidget()) {
         if (auto* scroll = qobject_cast<QScrollArea*>(w)) {

@@ -35,7 +35,8 @@ class DesignForm : public QWidget {
 public:
     explicit DesignForm(DesignDocument* document, QWidget* parent = nullptr);
 
-    /// Shows and focuses the field of a key ("/entry/velocity_m_s"); false when there is none.
+    /// Shows and focuses the field of a key ("/entry/velocity_m_s"), or of the alternative of its
+    /// group that the document gives; false when there is none.
     bool focusField(const std::string& pointer);
     /// The field bound to a key, for tests.
     QWidget* fieldFor(const std::string& pointer) const;
