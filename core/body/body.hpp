@@ -15,6 +15,8 @@ struct Gas {
     double sutton_graves_k = 0.0;
     /// Which radiative-heating correlation applies, if any ("mars", "earth" or empty).
     std::string radiative_correlation;
+
+    bool operator==(const Gas&) const = default;
 };
 
 /// A spherical, optionally rotating body. Gravity is inverse-square: g = mu / r^2.
@@ -29,6 +31,8 @@ struct Body {
         const double r = radius_m + altitude_m;
         return mu_m3_s2 / (r * r);
     }
+
+    bool operator==(const Body&) const = default;
 };
 
 /// The built-in bodies: "mars", "earth", "venus", "titan". Empty when the name is unknown.

@@ -1,8 +1,5 @@
 #pragma once
 
-#include <string_view>
-#include <span>
-
 namespace ds {
 
 /// The limits the checks compare against. Defaults are the heritage envelope for a soft
@@ -42,17 +39,8 @@ struct Limits {
     double timeline_margin_min_s = 10.0;
     /// A physics check within this fraction of its limit is "marginal" (common practice).
     double marginal_band = 0.10;
-};
 
-/// One named field of Limits, so the reader, the writer, the checks and the window share one
-/// list of keys.
-struct LimitField {
-    std::string_view key;
-    double Limits::*member;
-    std::string_view unit;
+    bool operator==(const Limits&) const = default;
 };
-
-/// Every limit field, in the order they are written.
-std::span<const LimitField> limit_fields();
 
 }  // namespace ds

@@ -44,6 +44,14 @@ std::optional<Enum> value_of(const Names<Enum, Count>& names, std::string_view n
     return std::nullopt;
 }
 
+template <class Enum, std::size_t Count>
+std::vector<std::string_view> all_names(const Names<Enum, Count>& names) {
+    std::vector<std::string_view> all;
+    for (const auto& [e, name] : names)
+        all.push_back(name);
+    return all;
+}
+
 }  // namespace
 
 std::string_view to_string(AtmosphereModel model) { return name_of(atmosphere_models, model); }
@@ -61,5 +69,10 @@ std::optional<MassGroup> mass_group_from(std::string_view name) {
     return value_of(mass_groups, name);
 }
 std::optional<Maturity> maturity_from(std::string_view name) { return value_of(maturities, name); }
+
+std::vector<std::string_view> atmosphere_model_names() { return all_names(atmosphere_models); }
+std::vector<std::string_view> terminal_method_names() { return all_names(terminal_methods); }
+std::vector<std::string_view> mass_group_names() { return all_names(mass_groups); }
+std::vector<std::string_view> maturity_names() { return all_names(maturities); }
 
 }  // namespace ds

@@ -24,6 +24,8 @@ inline constexpr int design_format_version = 1;
 struct BodyDesign {
     std::string preset;  ///< "mars", "earth", ...; empty for a custom body
     Body body;           ///< the preset's values, or the custom body
+
+    bool operator==(const BodyDesign&) const = default;
 };
 
 enum class AtmosphereModel { exponential, table, standard };
@@ -41,10 +43,14 @@ struct AtmosphereDesign {
     std::optional<double> gas_constant_J_kgK;  ///< default: the body's gas
     std::optional<double> gamma;               ///< default: the body's gas
     double density_scale = 1.0;
+
+    bool operator==(const AtmosphereDesign&) const = default;
 };
 
 struct SiteDesign {
     double elevation_m = 0.0;
+
+    bool operator==(const SiteDesign&) const = default;
 };
 
 struct EntryDesign {
@@ -53,6 +59,8 @@ struct EntryDesign {
     double flight_path_angle_deg = 0.0;  ///< negative below the local horizontal
     double lift_to_drag = 0.0;
     double bank_angle_deg = 0.0;
+
+    bool operator==(const EntryDesign&) const = default;
 };
 
 struct AeroshellDesign {
@@ -61,6 +69,8 @@ struct AeroshellDesign {
     double half_angle_deg = 70.0;
     double nose_radius_m = 0.0;
     std::optional<double> drag_coefficient;  ///< empty: modified Newtonian theory
+
+    bool operator==(const AeroshellDesign&) const = default;
 };
 
 struct MassItemDesign {
@@ -68,6 +78,8 @@ struct MassItemDesign {
     double mass_kg = 0.0;  ///< basic mass, without growth allowance
     MassGroup group = MassGroup::payload;
     Maturity maturity = Maturity::estimated;
+
+    bool operator==(const MassItemDesign&) const = default;
 };
 
 struct MassDesign {
@@ -81,6 +93,8 @@ struct MassDesign {
     /// parachute; estimated from the aeroshell's size when absent.
     std::optional<double> backshell_kg;
     std::vector<MassItemDesign> items;
+
+    bool operator==(const MassDesign&) const = default;
 };
 
 enum class TriggerKind { mach, dynamic_pressure, altitude };
@@ -94,6 +108,8 @@ struct ParachuteDesign {
     TriggerKind trigger = TriggerKind::mach;
     double trigger_value = 0.0;  ///< Mach, Pa or m, by trigger
     std::optional<double> mass_kg;  ///< canopy, lines, riser and mortar; estimated when absent
+
+    bool operator==(const ParachuteDesign&) const = default;
 };
 
 /// An optional supersonic inflatable decelerator, flown between the entry and the parachute.
@@ -103,16 +119,25 @@ struct DeceleratorDesign {
     TriggerKind trigger = TriggerKind::mach;  ///< when it inflates, crossed downward
     double trigger_value = 0.0;
     std::optional<double> mass_kg;  ///< estimated when absent
+
+    bool operator==(const DeceleratorDesign&) const = default;
 };
 
 /// The events between parachute deploy and the terminal burn, and the time each needs.
 struct SequenceDesign {
+    /// The heat-shield jettison delay after parachute deploy when the design gives neither a
+    /// delay nor a dynamic pressure (common practice: some 20 s, once the canopy has slowed the
+    /// vehicle to subsonic speed).
+    static constexpr double default_jettison_delay_s = 20.0;
+
     /// Heat-shield jettison after deploy: a delay, or the dynamic pressure falling below a value.
     /// Neither given: the delay's default.
     std::optional<double> heat_shield_jettison_delay_s;
     std::optional<double> heat_shield_jettison_dynamic_pressure_Pa;
     double ground_sensing_lock_s = 15.0;  ///< after jettison, before separation may happen
     double separation_coast_s = 2.0;      ///< free fall from backshell separation to ignition
+
+    bool operator==(const SequenceDesign&) const = default;
 };
 
 enum class TerminalMethod { retro, airbag, tethered, none };
@@ -134,6 +159,8 @@ struct TerminalDesign {
     /// need with its reserve and residual). A dispersion flies the nominal vehicle with both.
     std::optional<double> thrust_N;
     std::optional<double> propellant_loaded_kg;
+
+    bool operator==(const TerminalDesign&) const = default;
 };
 
 /// Numerical settings of the trajectory integration.
@@ -141,6 +168,8 @@ struct SolverDesign {
     double relative_tolerance = 1e-8;
     double max_time_s = 4000.0;  ///< flight-time budget
     int max_steps = 200000;      ///< step budget
+
+    bool operator==(const SolverDesign&) const = default;
 };
 
 /// The document's names for the enumerations, one table each for reading and writing.
@@ -152,6 +181,11 @@ std::string_view to_string(MassGroup group);
 std::string_view to_string(Maturity maturity);
 std::optional<MassGroup> mass_group_from(std::string_view name);
 std::optional<Maturity> maturity_from(std::string_view name);
+/// Every name of each table, in order, for choices and messages.
+std::vector<std::string_view> atmosphere_model_names();
+std::vector<std::string_view> terminal_method_names();
+std::vector<std::string_view> mass_group_names();
+std::vector<std::string_view> maturity_names();
 
 enum class DistributionKind { normal, uniform };
 
@@ -163,6 +197,8 @@ struct DispersionDesign {
     double sigma = 0.0;  ///< normal
     double min = 0.0;    ///< uniform
     double max = 0.0;    ///< uniform
+
+    bool operator==(const DispersionDesign&) const = default;
 };
 
 struct Design {
@@ -181,6 +217,8 @@ struct Design {
     Limits limits;
     SolverDesign solver;
     std::vector<DispersionDesign> dispersions;
+
+    bool operator==(const Design&) const = default;
 };
 
 }  // namespace ds

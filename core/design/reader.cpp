@@ -15,6 +15,7 @@
 #include <nlohmann/json.hpp>
 
 #include "design/atmosphere_csv.hpp"
+#include "design/schema.hpp"
 #include "parachute/canopy.hpp"
 
 namespace ds {
@@ -77,36 +78,9 @@ private:
     std::vector<Found> found_;
 };
 
-/// The admissible values of a number. An absent bound does not apply.
-struct Range {
-    std::optional<double> above;     ///< exclusive lower bound
-    std::optional<double> at_least;  ///< inclusive lower bound
-    std::optional<double> below;     ///< exclusive upper bound
-    std::optional<double> at_most;   ///< inclusive upper bound
 
-    bool contains(double x) const {
-        return (!above || x > *above) && (!at_least || x >= *at_least) && (!below || x < *below) &&
-               (!at_most || x <= *at_most);
-    }
-
-    std::string requirement() const {
-        const bool no_upper = !below && !at_most;
-        if (above == 0.0 && !at_least && no_upper)
-            return "must be positive";
-        if (at_least == 0.0 && !above && no_upper)
-            return "must not be negative";
-        std::vector<std::string> parts;
-        if (above)
-            parts.push_back(fmt::format("greater than {}", *above));
-        if (at_least)
-            parts.push_back(fmt::format("at least {}", *at_least));
-        if (below)
-            parts.push_back(fmt::format("less than {}", *below));
-        if (at_most)
-            parts.push_back(fmt::format("at most {}", *at_most));
-        return fmt::format("must be {}", fmt::join(parts, " and "));
-    }
-};
+/// The admissible values of a number: the schema's ranges (core/design/schema.hpp).
+using Range = ValueRange;
 
 constexpr Range any_finite{};
 constexpr Range positive{0.0, {}, {}, {}};
@@ -154,6 +128,11 @@ public:
     }
 
     bool has(std::string_view key) const { return object_->contains(std::string(key)); }
+
+    /// Whether a key was asked for already.
+    bool asked(std::string_view key) const {
+        return std::find(read_.begin(), read_.end(), key) != read_.end();
+    }
 
     /// The value of a key, which now counts as known; null when absent ("missing" if required).
     const Json* value(std::string_view key, Need need) {
@@ -241,124 +220,6 @@ private:
     std::vector<std::string> read_;
 };
 
-/// The document's names of the enumerators, for messages ("expected one of: ...").
-template <typename Enum, std::size_t N>
-std::string names_of(const std::array<Enum, N>& values) {
-    std::vector<std::string_view> names;
-    for (const auto value : values)
-        names.push_back(to_string(value));
-    return fmt::format("{}", fmt::join(names, ", "));
-}
-
-constexpr std::array atmosphere_models{AtmosphereModel::exponential, AtmosphereModel::table,
-                                       AtmosphereModel::standard};
-
-constexpr std::array terminal_methods{TerminalMethod::retro, TerminalMethod::airbag,
-                                      TerminalMethod::tethered, TerminalMethod::none};
-
-constexpr std::array mass_groups{MassGroup::heat_shield, MassGroup::backshell,
-                                 MassGroup::descent_stage, MassGroup::payload};
-
-constexpr std::array maturities{Maturity::estimated, Maturity::layout,   Maturity::pre_release,
-                                Maturity::released,  Maturity::existing, Maturity::actual};
-
-/// A key that belongs to one atmosphere model only.
-struct ModelKey {
-    std::string_view key;
-    AtmosphereModel model;
-};
-
-constexpr std::array model_keys{
-    ModelKey{"surface_density_kg_m3", AtmosphereModel::exponential},
-    ModelKey{"scale_height_m", AtmosphereModel::exponential},
-    ModelKey{"temperature_K", AtmosphereModel::exponential},
-    ModelKey{"rows", AtmosphereModel::table},
-    ModelKey{"csv_file", AtmosphereModel::table},
-};
-
-struct Trigger {
-    std::string_view key;
-    TriggerKind kind;
-    Range range;
-};
-
-/// The deploy triggers of a parachute or a decelerator; a stage takes exactly one.
-constexpr std::array deploy_triggers{
-    Trigger{"deploy_mach", TriggerKind::mach, positive},
-    Trigger{"deploy_dynamic_pressure_Pa", TriggerKind::dynamic_pressure, positive},
-    Trigger{"deploy_altitude_m", TriggerKind::altitude, any_finite},
-};
-
-/// Reads the one deploy trigger of a parachute or a decelerator into kind and value.
-void read_deploy_trigger(Fields& f, TriggerKind& kind, double& value) {
-    std::vector<std::string_view> given;
-    for (const auto& trigger : deploy_triggers) {
-        if (f.has(trigger.key))
-            given.push_back(trigger.key);
-    }
-    for (const auto& trigger : deploy_triggers) {
-        if (auto v = f.optional_number(trigger.key, trigger.range); v && given.size() == 1) {
-            kind = trigger.kind;
-            value = *v;
-        }
-    }
-    if (given.empty()) {
-        f.report_here(
-            "needs one deploy trigger: deploy_mach, deploy_dynamic_pressure_Pa or "
-            "deploy_altitude_m");
-    } else if (given.size() > 1) {
-        f.report_here(fmt::format("takes one deploy trigger, got {}", fmt::join(given, ", ")));
-    }
-}
-
-constexpr std::array powered_methods{TerminalMethod::retro, TerminalMethod::airbag,
-                                     TerminalMethod::tethered};
-constexpr std::array airbag_method{TerminalMethod::airbag};
-constexpr std::array tethered_method{TerminalMethod::tethered};
-
-/// A terminal key that belongs to some methods only: required for them or with a default.
-struct TerminalKey {
-    std::string_view key;
-    double TerminalDesign::*member;
-    Range range;
-    std::span<const TerminalMethod> methods;
-    Need need;  ///< for the methods it belongs to
-};
-
-constexpr Range fraction_of_one{{}, 0.0, 1.0, {}};  // [0, 1)
-
-// touchdown_velocity_m_s belongs to every method and is read between the two tables, in the
-// order the writer gives the keys.
-constexpr std::array engine_keys{
-    TerminalKey{"isp_s", &TerminalDesign::isp_s, positive, powered_methods, Need::required},
-    TerminalKey{"thrust_to_weight", &TerminalDesign::thrust_to_weight, greater_than_one,
-                powered_methods, Need::required},
-};
-
-constexpr std::array burn_keys{
-    TerminalKey{"throttle", &TerminalDesign::throttle, Range{0.0, {}, {}, 1.0}, powered_methods,
-                Need::optional},
-    TerminalKey{"propellant_reserve_fraction", &TerminalDesign::propellant_reserve_fraction,
-                fraction_of_one, powered_methods, Need::optional},
-    TerminalKey{"propellant_residual_fraction", &TerminalDesign::propellant_residual_fraction,
-                fraction_of_one, powered_methods, Need::optional},
-    TerminalKey{"release_height_m", &TerminalDesign::release_height_m, non_negative, airbag_method,
-                Need::optional},
-    TerminalKey{"tether_length_m", &TerminalDesign::tether_length_m, positive, tethered_method,
-                Need::optional},
-    TerminalKey{"fly_away_s", &TerminalDesign::fly_away_s, non_negative, tethered_method,
-                Need::optional},
-};
-
-/// Hardware a design may give instead of deriving it, for the methods that fire engines.
-struct GivenHardwareKey {
-    std::string_view key;
-    std::optional<double> TerminalDesign::*member;
-};
-constexpr std::array given_hardware_keys{
-    GivenHardwareKey{"thrust_N", &TerminalDesign::thrust_N},
-    GivenHardwareKey{"propellant_loaded_kg", &TerminalDesign::propellant_loaded_kg},
-};
 
 /// "method \"airbag\"" or "methods \"retro\", \"airbag\" and \"tethered\"".
 std::string method_names(std::span<const TerminalMethod> methods) {
@@ -372,19 +233,10 @@ std::string method_names(std::span<const TerminalMethod> methods) {
     return fmt::format("methods {} and {}", fmt::join(quoted, ", "), last);
 }
 
-// Bounds of the numerical settings (our choice): tighter than 1e-14 is below double round-off
-// for a trajectory; looser than 1e-3 no longer resolves the peaks the checks look at.
-constexpr double relative_tolerance_min = 1e-14;
-constexpr double relative_tolerance_max = 1e-3;
-// The step budget bounds the work of each flight phase. A million steps, five times the
-// default, is our bound: a stiff descent that uses them all takes about 5 s and 450 MB
-// (Release); one allowed 2^31 - 1 took 24 s and 2.7 GB.
-constexpr double max_steps_max = 1'000'000;
 
-// Lift-to-drag ratios of entry vehicles stay well below this (our bound on a plausible input).
-constexpr double lift_to_drag_max = 5.0;
-
-/// Reads the sections of a parsed document into a Design, reporting every problem.
+/// Reads the sections of a parsed document into a Design, reporting every problem. Simple keys
+/// are read by walking the schema's rows of a section (core/design/schema.hpp); what spans
+/// keys or sections is read by hand.
 class DesignReader {
 public:
     DesignReader(std::filesystem::path base_directory, Issues& issues)
@@ -400,38 +252,9 @@ public:
         if (!read_header(top))
             return design_;
 
-        if (auto name = top.string("name"))
-            design_.name = *name;
-        if (const Json* body = top.value("body", Need::required)) {
-            read_body(*body, top.place_of("body"));
-        }
-        atmosphere_ = top.object("atmosphere");
-        if (atmosphere_)
-            read_atmosphere(*atmosphere_);
-        site_ = top.object("site");
-        if (site_)
-            read_site(*site_);
-        entry_ = top.object("entry");
-        if (entry_)
-            read_entry(*entry_);
-        if (auto aeroshell = top.object("aeroshell"))
-            read_aeroshell(*aeroshell);
-        if (auto mass = top.object("mass"))
-            read_mass(*mass);
-        if (auto decelerator = top.object("decelerator", Need::optional))
-            read_decelerator(*decelerator);
-        if (auto parachute = top.object("parachute"))
-            read_parachute(*parachute);
-        if (auto sequence = top.object("sequence", Need::optional))
-            read_sequence(*sequence);
-        if (auto terminal = top.object("terminal"))
-            read_terminal(*terminal);
-        if (auto limits = top.object("limits", Need::optional))
-            read_limits(*limits);
-        if (auto solver = top.object("solver", Need::optional))
-            read_solver(*solver);
-        if (const Json* dispersions = top.value("dispersions", Need::optional))
-            read_dispersions(*dispersions, top.place_of("dispersions"));
+        read_keys(top, {}, {});
+        for (const SectionRow& section : design_sections())
+            read_section(top, section);
         top.report_unknown();
 
         check_custom_body_gas();
@@ -442,6 +265,15 @@ public:
     }
 
 private:
+    /// The shape a section's document has chosen, as far as it is known: which atmosphere
+    /// model, which terminal method. Keys of another model or method are refused.
+    struct Selection {
+        std::optional<AtmosphereModel> model;
+        std::optional<TerminalMethod> method;
+        /// The terminal method is missing or unknown: every terminal key is judged as optional.
+        bool method_unknown = false;
+    };
+
     /// Format and version; false when the rest is not ours to read.
     bool read_header(Fields& top) {
         if (auto format = top.string("format"); format && *format != design_format_id) {
@@ -460,6 +292,206 @@ private:
             design_.version = static_cast<int>(*version);
         }
         return true;
+    }
+
+    void read_section(Fields& top, const SectionRow& section) {
+        const Need need = section.need == KeyNeed::required ? Need::required : Need::optional;
+        if (section.by_hand) {
+            if (const Json* value = top.value(section.name, need)) {
+                const Place place = top.place_of(section.name);
+                if (section.name == "body")
+                    read_body(*value, place);
+                else if (section.name == "dispersions")
+                    read_dispersions(*value, place);
+            }
+            return;
+        }
+        auto f = top.object(section.name, need);
+        if (!f)
+            return;
+        if (section.add)
+            section.add(design_);
+        if (section.name == "atmosphere") {
+            atmosphere_ = f;
+            read_atmosphere(*atmosphere_);
+        } else if (section.name == "terminal") {
+            read_terminal(*f);
+        } else {
+            read_keys(*f, section.name, {});
+            if (section.name == "aeroshell")
+                check_nose_radius(*f);
+            if (section.name == "mass")
+                read_mass(*f);
+            if (section.name == "site")
+                site_ = f;
+            if (section.name == "entry")
+                entry_ = f;
+            f->report_unknown();
+        }
+    }
+
+    /// Reads the schema's keys of a section that are not read yet, in the schema's order.
+    void read_keys(Fields& f, std::string_view section, const Selection& selection) {
+        std::vector<const KeyGroup*> groups_read;
+        for (const KeyRow* row : keys_of(section)) {
+            if (!row->parent.empty() || f.asked(row->key))
+                continue;
+            if (row->group) {
+                if (std::find(groups_read.begin(), groups_read.end(), row->group) ==
+                    groups_read.end()) {
+                    groups_read.push_back(row->group);
+                    read_group(f, section, *row->group, selection);
+                }
+                continue;
+            }
+            read_key(f, *row, selection);
+        }
+    }
+
+    /// Reads the alternatives of a group: their values, then whether one (or at most one)
+    /// was given.
+    void read_group(Fields& f, std::string_view section, const KeyGroup& group,
+                    const Selection& selection) {
+        std::vector<std::string_view> members;
+        std::vector<std::string_view> given;
+        for (const KeyRow* row : keys_of(section)) {
+            if (row->group != &group)
+                continue;
+            members.push_back(row->key);
+            if (f.has(row->key))
+                given.push_back(row->key);
+        }
+        for (const KeyRow* row : keys_of(section)) {
+            if (row->group == &group)
+                read_key(f, *row, selection);
+        }
+        if (group.required && given.empty()) {
+            f.report_here(fmt::format("needs one {}: {}", group.name, alternatives(members)));
+        } else if (given.size() > 1) {
+            f.report_here(group.required
+                              ? fmt::format("takes one {}, got {}", group.name,
+                                            fmt::join(given, ", "))
+                              : fmt::format("takes {}, not both", alternatives(members)));
+        }
+    }
+
+    /// "a, b or c".
+    static std::string alternatives(const std::vector<std::string_view>& keys) {
+        if (keys.size() < 2)
+            return fmt::format("{}", fmt::join(keys, ""));
+        return fmt::format("{} or {}", fmt::join(keys.begin(), keys.end() - 1, ", "),
+                           keys.back());
+    }
+
+    /// Reads one key by its row: refused if it belongs to another model or method, else
+    /// judged by its kind, need and range, and set in the design.
+    void read_key(Fields& f, const KeyRow& row, const Selection& selection) {
+        const std::string_view key = row.key;
+        if (row.model) {
+            // Without a known model the key cannot be judged: the model's error says enough.
+            if (!selection.model)
+                return;
+            if (*row.model != *selection.model) {
+                if (f.has(key)) {
+                    f.value(key, Need::optional);
+                    f.report(key, fmt::format("unknown key for the \"{}\" model (it belongs to "
+                                              "the \"{}\" model)",
+                                              to_string(*selection.model), to_string(*row.model)));
+                }
+                return;
+            }
+        }
+        const bool belongs = row.methods.empty() || selection.method_unknown ||
+                             (selection.method &&
+                              std::find(row.methods.begin(), row.methods.end(),
+                                        *selection.method) != row.methods.end());
+        if (!belongs) {
+            if (f.has(key)) {
+                f.value(key, Need::optional);
+                f.report(key, fmt::format("only for {}", method_names(row.methods)));
+            }
+            return;
+        }
+        KeyNeed need = row.need;
+        Range range = row.range;
+        if (row.on_canopy && selection.method == TerminalMethod::none) {
+            need = row.on_canopy->need;
+            range = row.on_canopy->range;
+        }
+        if (selection.method_unknown)
+            need = KeyNeed::optional;
+        const Need asked = need == KeyNeed::required ? Need::required : Need::optional;
+
+        switch (row.kind) {
+            case KeyKind::number:
+                if (auto v = f.number(key, range, asked))
+                    set_number(row, *v);
+                break;
+            case KeyKind::integer:
+                if (auto v = f.integer(key, range, asked))
+                    set_number(row, static_cast<double>(*v));
+                break;
+            case KeyKind::text:
+                if (auto v = f.string(key, asked)) {
+                    row.text.set(design_, *v);
+                    read_ok_.push_back(&row);
+                }
+                break;
+            case KeyKind::choice:
+                if (auto v = f.string(key, asked)) {
+                    if (row.text.set(design_, *v)) {
+                        read_ok_.push_back(&row);
+                    } else {
+                        f.report(key, fmt::format("unknown {} \"{}\"; expected one of: {}", key,
+                                                  *v, fmt::join(row.choices(), ", ")));
+                    }
+                }
+                break;
+            case KeyKind::number_or_request:
+                read_number_or_request(f, row, range, asked);
+                break;
+            case KeyKind::by_hand:
+                break;
+        }
+    }
+
+    void set_number(const KeyRow& row, double value) {
+        row.number.set(design_, value);
+        read_ok_.push_back(&row);
+    }
+
+    /// A number, or an object holding the sizing request's keys.
+    void read_number_or_request(Fields& f, const KeyRow& row, const Range& range, Need need) {
+        const Json* value = f.value(row.key, need);
+        if (!value)
+            return;
+        const Place place = f.place_of(row.key);
+        std::vector<const KeyRow*> request;
+        for (const KeyRow* key : keys_of(row.section)) {
+            if (key->parent == row.key)
+                request.push_back(key);
+        }
+        if (value->is_object()) {
+            Fields fields(*value, place, *issues_);
+            for (const KeyRow* key : request)
+                read_key(fields, *key, {});
+            fields.report_unknown();
+        } else if (value->is_number()) {
+            if (auto v = to_number(*value, place, range, *issues_))
+                set_number(row, *v);
+        } else {
+            std::vector<std::string> keys;
+            for (const KeyRow* key : request)
+                keys.push_back(fmt::format("\"{}\": ...", key->key));
+            issues_->add(place, fmt::format("must be a number or a sizing request {{{}}}, got {}",
+                                            fmt::join(keys, ", "), value->type_name()));
+        }
+    }
+
+    /// Whether a key was read and set (its path, "site.elevation_m").
+    bool read_ok(std::string_view path) const {
+        return std::any_of(read_ok_.begin(), read_ok_.end(),
+                           [&](const KeyRow* row) { return row->path() == path; });
     }
 
     void read_body(const Json& value, const Place& place) {
@@ -504,52 +536,17 @@ private:
     }
 
     void read_atmosphere(Fields& f) {
-        AtmosphereDesign& atmosphere = design_.atmosphere;
-        const auto model_name = f.string("model");
-        std::optional<AtmosphereModel> model;
-        if (model_name) {
-            model = atmosphere_model_from(*model_name);
-            if (!model) {
-                f.report("model", fmt::format("unknown model \"{}\"; expected one of: {}",
-                                              *model_name, names_of(atmosphere_models)));
-            }
-        }
-        if (auto v = f.optional_number("gas_constant_J_kgK", positive)) {
-            atmosphere.gas_constant_J_kgK = v;
-        }
-        if (auto v = f.optional_number("gamma", greater_than_one))
-            atmosphere.gamma = v;
-        if (auto v = f.optional_number("density_scale", positive))
-            atmosphere.density_scale = *v;
+        const KeyRow& model = *find_key("atmosphere.model");
+        read_key(f, model, {});
+        Selection selection;
+        if (read_ok(model.path()))
+            selection.model = design_.atmosphere.model;
+        read_keys(f, "atmosphere", selection);
         // Without a known model the other keys cannot be judged: the model error says enough.
-        if (!model)
+        if (!selection.model)
             return;
-        atmosphere.model = *model;
-
-        for (const auto& key : model_keys) {
-            if (key.model != *model && f.has(key.key)) {
-                f.value(key.key, Need::optional);
-                f.report(key.key, fmt::format("unknown key for the \"{}\" model (it belongs to "
-                                              "the \"{}\" model)",
-                                              *model_name, to_string(key.model)));
-            }
-        }
-        switch (*model) {
-            case AtmosphereModel::exponential:
-                if (auto v = f.number("surface_density_kg_m3", positive)) {
-                    atmosphere.surface_density_kg_m3 = *v;
-                }
-                if (auto v = f.number("scale_height_m", positive))
-                    atmosphere.scale_height_m = *v;
-                if (auto v = f.number("temperature_K", positive))
-                    atmosphere.temperature_K = *v;
-                break;
-            case AtmosphereModel::table:
-                read_table(f);
-                break;
-            case AtmosphereModel::standard:
-                break;
-        }
+        if (*selection.model == AtmosphereModel::table)
+            read_table(f);
         f.report_unknown();
     }
 
@@ -662,87 +659,40 @@ private:
         table_ok_ = issues_->count() == issues_before;
     }
 
-    void read_site(Fields& f) {
-        if (auto v = f.number("elevation_m", any_finite)) {
-            design_.site.elevation_m = *v;
-            site_elevation_ok_ = true;
-        }
+    void read_terminal(Fields& f) {
+        const KeyRow& method = *find_key("terminal.method");
+        read_key(f, method, {});
+        Selection selection;
+        // Without a known method, only the values are judged: the method error says enough.
+        if (read_ok(method.path()))
+            selection.method = design_.terminal.method;
+        selection.method_unknown = !selection.method;
+        read_keys(f, "terminal", selection);
         f.report_unknown();
     }
 
-    void read_entry(Fields& f) {
-        EntryDesign& entry = design_.entry;
-        if (auto v = f.number("interface_altitude_m", positive)) {
-            entry.interface_altitude_m = *v;
-            interface_altitude_ok_ = true;
+    void check_nose_radius(Fields& f) {
+        const AeroshellDesign& aeroshell = design_.aeroshell;
+        if (!read_ok("aeroshell.nose_radius_m") || !aeroshell.diameter_m)
+            return;
+        if (aeroshell.nose_radius_m > *aeroshell.diameter_m / 2.0) {
+            f.report("nose_radius_m",
+                     fmt::format("must be no more than half the diameter ({} m), got {}",
+                                 *aeroshell.diameter_m / 2.0, aeroshell.nose_radius_m));
         }
-        if (auto v = f.number("velocity_m_s", positive))
-            entry.velocity_m_s = *v;
-        if (auto v = f.number("flight_path_angle_deg", Range{-90.0, {}, 90.0, {}})) {
-            entry.flight_path_angle_deg = *v;
-        }
-        if (auto v = f.optional_number("lift_to_drag", Range{{}, 0.0, lift_to_drag_max, {}})) {
-            entry.lift_to_drag = *v;
-        }
-        if (auto v = f.optional_number("bank_angle_deg", Range{{}, -180.0, {}, 180.0})) {
-            entry.bank_angle_deg = *v;
-        }
-        f.report_unknown();
     }
 
-    void read_aeroshell(Fields& f) {
-        AeroshellDesign& aeroshell = design_.aeroshell;
-        if (const Json* diameter = f.value("diameter_m", Need::required)) {
-            const Place place = f.place_of("diameter_m");
-            if (diameter->is_object()) {
-                Fields request(*diameter, place, *issues_);
-                aeroshell.size_for_ballistic_coefficient_kg_m2 =
-                    request.number("size_for_ballistic_coefficient_kg_m2", positive);
-                request.report_unknown();
-            } else if (diameter->is_number()) {
-                aeroshell.diameter_m = to_number(*diameter, place, positive, *issues_);
-            } else {
-                issues_->add(place,
-                             fmt::format("must be a number or a sizing request "
-                                         "{{\"size_for_ballistic_coefficient_kg_m2\": ...}}, "
-                                         "got {}",
-                                         diameter->type_name()));
-            }
-        }
-        if (auto v = f.optional_number("half_angle_deg", Range{0.0, {}, 90.0, {}})) {
-            aeroshell.half_angle_deg = *v;
-        }
-        if (auto v = f.number("nose_radius_m", positive)) {
-            aeroshell.nose_radius_m = *v;
-            if (aeroshell.diameter_m && *v > *aeroshell.diameter_m / 2.0) {
-                f.report("nose_radius_m",
-                         fmt::format("must be no more than half the diameter ({} m), got {}",
-                                     *aeroshell.diameter_m / 2.0, *v));
-            }
-        }
-        aeroshell.drag_coefficient = f.optional_number("drag_coefficient", positive);
-        f.report_unknown();
-    }
-
+    /// The dropped masses against the entry mass, and the items.
     void read_mass(Fields& f) {
         MassDesign& mass = design_.mass;
-        mass.entry_kg = f.optional_number("entry_kg", positive);
-        if (auto v = f.optional_number("heat_shield_kg", non_negative)) {
-            mass.heat_shield_kg = *v;
-            if (mass.entry_kg && *v >= *mass.entry_kg) {
-                f.report("heat_shield_kg",
-                         fmt::format("must be less than the entry mass ({} kg), got {}",
-                                     *mass.entry_kg, *v));
+        const auto below_entry = [&](std::string_view key, const std::optional<double>& value) {
+            if (read_ok(fmt::format("mass.{}", key)) && mass.entry_kg && *value >= *mass.entry_kg) {
+                f.report(key, fmt::format("must be less than the entry mass ({} kg), got {}",
+                                          *mass.entry_kg, *value));
             }
-        }
-        if (auto v = f.optional_number("backshell_kg", non_negative)) {
-            mass.backshell_kg = *v;
-            if (mass.entry_kg && *v >= *mass.entry_kg) {
-                f.report("backshell_kg",
-                         fmt::format("must be less than the entry mass ({} kg), got {}",
-                                     *mass.entry_kg, *v));
-            }
-        }
+        };
+        below_entry("heat_shield_kg", mass.heat_shield_kg);
+        below_entry("backshell_kg", mass.backshell_kg);
         const Json* items = f.value("items", Need::optional);
         if (items)
             read_mass_items(*items, f.place_of("items"));
@@ -751,7 +701,6 @@ private:
         if (!f.has("entry_kg") && mass.items.empty() && (!items || items->is_array())) {
             f.report("items", "needed to size the budget when mass.entry_kg is not given");
         }
-        f.report_unknown();
     }
 
     void read_mass_items(const Json& items, const Place& place) {
@@ -781,7 +730,7 @@ private:
                     item.group = *group;
                 } else {
                     f.report("group", fmt::format("unknown group \"{}\"; expected one of: {}",
-                                                  *name, names_of(mass_groups)));
+                                                  *name, fmt::join(mass_group_names(), ", ")));
                 }
             }
             if (auto name = f.string("maturity", Need::optional)) {
@@ -789,7 +738,7 @@ private:
                     item.maturity = *maturity;
                 } else {
                     f.report("maturity", fmt::format("unknown maturity \"{}\"; expected one of: {}",
-                                                     *name, names_of(maturities)));
+                                                     *name, fmt::join(maturity_names(), ", ")));
                 }
             }
             f.report_unknown();
@@ -841,145 +790,6 @@ private:
         }
     }
 
-    void read_decelerator(Fields& f) {
-        DeceleratorDesign& decelerator = design_.decelerator.emplace();
-        if (auto v = f.number("diameter_m", positive))
-            decelerator.diameter_m = *v;
-        if (auto v = f.number("drag_coefficient", positive))
-            decelerator.drag_coefficient = *v;
-        read_deploy_trigger(f, decelerator.trigger, decelerator.trigger_value);
-        decelerator.mass_kg = f.optional_number("mass_kg", positive);
-        f.report_unknown();
-    }
-
-    void read_parachute(Fields& f) {
-        ParachuteDesign& parachute = design_.parachute;
-        if (auto type = f.string("type")) {
-            if (!canopy_type(*type)) {
-                std::vector<std::string_view> names;
-                for (const CanopyType& known : canopy_types())
-                    names.push_back(known.name);
-                f.report("type", fmt::format("unknown type \"{}\"; expected one of: {}", *type,
-                                             fmt::join(names, ", ")));
-            } else {
-                parachute.type = *type;
-            }
-        }
-        if (const Json* diameter = f.value("diameter_m", Need::required)) {
-            const Place place = f.place_of("diameter_m");
-            if (diameter->is_object()) {
-                Fields request(*diameter, place, *issues_);
-                parachute.size_for_velocity_m_s = request.number("size_for_velocity_m_s", positive);
-                parachute.at_height_above_site_m =
-                    request.number("at_height_above_site_m", non_negative);
-                request.report_unknown();
-            } else if (diameter->is_number()) {
-                parachute.diameter_m = to_number(*diameter, place, positive, *issues_);
-            } else {
-                issues_->add(place, fmt::format("must be a number or a sizing request "
-                                                "{{\"size_for_velocity_m_s\": ..., "
-                                                "\"at_height_above_site_m\": ...}}, got {}",
-                                                diameter->type_name()));
-            }
-        }
-        parachute.drag_coefficient = f.optional_number("drag_coefficient", positive);
-        read_deploy_trigger(f, parachute.trigger, parachute.trigger_value);
-        parachute.mass_kg = f.optional_number("mass_kg", positive);
-        f.report_unknown();
-    }
-
-    void read_sequence(Fields& f) {
-        SequenceDesign& sequence = design_.sequence;
-        sequence.heat_shield_jettison_delay_s =
-            f.optional_number("heat_shield_jettison_delay_s", non_negative);
-        sequence.heat_shield_jettison_dynamic_pressure_Pa =
-            f.optional_number("heat_shield_jettison_dynamic_pressure_Pa", positive);
-        if (f.has("heat_shield_jettison_delay_s") &&
-            f.has("heat_shield_jettison_dynamic_pressure_Pa")) {
-            f.report_here(
-                "takes heat_shield_jettison_delay_s or heat_shield_jettison_dynamic_pressure_Pa, "
-                "not both");
-        }
-        if (auto v = f.optional_number("ground_sensing_lock_s", non_negative))
-            sequence.ground_sensing_lock_s = *v;
-        if (auto v = f.optional_number("separation_coast_s", non_negative))
-            sequence.separation_coast_s = *v;
-        f.report_unknown();
-    }
-
-    void read_terminal(Fields& f) {
-        TerminalDesign& terminal = design_.terminal;
-        std::optional<TerminalMethod> method;
-        if (auto name = f.string("method")) {
-            method = terminal_method_from(*name);
-            if (method) {
-                terminal.method = *method;
-            } else {
-                f.report("method", fmt::format("unknown method \"{}\"; expected one of: {}", *name,
-                                               names_of(terminal_methods)));
-            }
-        }
-        // Without a known method, only the values are judged: the method error says enough.
-        const auto read_key = [&](const TerminalKey& key) {
-            const bool belongs = !method || std::find(key.methods.begin(), key.methods.end(),
-                                                      *method) != key.methods.end();
-            if (!belongs && f.has(key.key)) {
-                f.value(key.key, Need::optional);
-                f.report(key.key, fmt::format("only for {}", method_names(key.methods)));
-                return;
-            }
-            const Need need = belongs && method ? key.need : Need::optional;
-            if (auto v = f.number(key.key, key.range, need))
-                terminal.*key.member = *v;
-        };
-        for (const auto& key : engine_keys)
-            read_key(key);
-        // Every method but "none" flies an engine: it cannot be sized without the speed the
-        // burn ends at. Landing on the canopy ("none"), the speed is optional.
-        const bool powered = method && *method != TerminalMethod::none;
-        const Range touchdown = method == TerminalMethod::none ? non_negative : positive;
-        if (auto v = f.number("touchdown_velocity_m_s", touchdown,
-                              powered ? Need::required : Need::optional)) {
-            terminal.touchdown_velocity_m_s = *v;
-        }
-        for (const auto& key : burn_keys)
-            read_key(key);
-        for (const auto& [key, member] : given_hardware_keys) {
-            if (method && !powered && f.has(key)) {
-                f.value(key, Need::optional);
-                f.report(key, fmt::format("only for {}", method_names(powered_methods)));
-                continue;
-            }
-            if (auto v = f.optional_number(key, positive)) terminal.*member = *v;
-        }
-        f.report_unknown();
-    }
-
-    void read_limits(Fields& f) {
-        for (const auto& field : limit_fields()) {
-            // A marginal band is a fraction of the limit (our bound).
-            const Range range = field.key == "marginal_band" ? Range{{}, 0.0, 1.0, {}} : any_finite;
-            if (auto v = f.optional_number(field.key, range))
-                design_.limits.*field.member = *v;
-        }
-        f.report_unknown();
-    }
-
-    void read_solver(Fields& f) {
-        SolverDesign& solver = design_.solver;
-        const Range tolerance{{}, relative_tolerance_min, {}, relative_tolerance_max};
-        if (auto v = f.optional_number("relative_tolerance", tolerance)) {
-            solver.relative_tolerance = *v;
-        }
-        if (auto v = f.optional_number("max_time_s", positive))
-            solver.max_time_s = *v;
-        const Range steps{0.0, {}, {}, max_steps_max};
-        if (auto v = f.integer("max_steps", steps, Need::optional)) {
-            solver.max_steps = static_cast<int>(*v);
-        }
-        f.report_unknown();
-    }
-
     void check_custom_body_gas() {
         if (!custom_body_)
             return;
@@ -1012,7 +822,7 @@ private:
     }
 
     void check_interface_above_site() {
-        if (!site_elevation_ok_ || !interface_altitude_ok_)
+        if (!read_ok("site.elevation_m") || !read_ok("entry.interface_altitude_m"))
             return;
         const double site = design_.site.elevation_m;
         const double entry_interface = design_.entry.interface_altitude_m;
@@ -1025,7 +835,7 @@ private:
 
     /// A table must span the flight: from the site up to the entry interface.
     void check_table_coverage() {
-        if (!table_ok_ || !site_elevation_ok_ || !interface_altitude_ok_)
+        if (!table_ok_ || !read_ok("site.elevation_m") || !read_ok("entry.interface_altitude_m"))
             return;
         const auto& rows = design_.atmosphere.rows;
         const double low = rows.front().altitude_m;
@@ -1058,8 +868,8 @@ private:
     std::optional<Fields> entry_;
     bool table_ok_ = false;
     std::string_view table_key_;
-    bool site_elevation_ok_ = false;
-    bool interface_altitude_ok_ = false;
+    /// The keys read and set, for the checks that span two of them.
+    std::vector<const KeyRow*> read_ok_;
 };
 
 /// Reports keys given twice in one object while parsing: the parsed value keeps only one of

@@ -3,11 +3,6 @@
 namespace ds {
 namespace {
 
-/// Default heat-shield jettison delay after parachute deploy, when the design gives neither a
-/// delay nor a dynamic pressure (common practice: some 20 s, once the canopy has slowed the
-/// vehicle to subsonic speed).
-constexpr double default_jettison_delay_s = 20.0;
-
 Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
     Phase phase;
     phase.name = "parachute";
@@ -44,7 +39,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
                                      EventDirection::falling});
     } else {
         t_end = std::min(t_budget,
-                         deploy_time_s + seq.heat_shield_jettison_delay_s.value_or(default_jettison_delay_s));
+                         deploy_time_s + seq.heat_shield_jettison_delay_s.value_or(SequenceDesign::default_jettison_delay_s));
     }
     const PhaseOutcome first =
         fly_phase(model, under_canopy, deploy_time_s, deploy_state, t_end, settings, recording);

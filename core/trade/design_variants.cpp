@@ -1,20 +1,22 @@
 #include "trade/design_variants.hpp"
 
+#include "design/schema.hpp"
 #include "design/writer.hpp"
 
 namespace ds {
+namespace {
 
-std::string key_to_pointer(std::string_view key) {
-    std::string pointer = "/";
-    for (const char c : key) {
-        if (c == '.' || c == '[') {
-            pointer += '/';
-        } else if (c != ']') {
-            pointer += c;
-        }
-    }
-    return pointer;
+/// Whether the numbers under a top-level key are trade inputs: the schema says so for its
+/// sections (limits, solver and dispersions are not) and its top-level keys (version is not).
+bool trade_inputs_under(std::string_view top_key) {
+    if (const SectionRow* section = find_section(top_key))
+        return section->trade_inputs;
+    if (const KeyRow* row = find_key(top_key))
+        return row->trade_input;
+    return true;
 }
+
+}  // namespace
 
 DesignVariants::DesignVariants(nlohmann::ordered_json document,
                                std::filesystem::path base_directory)
@@ -54,10 +56,8 @@ std::vector<std::string> DesignVariants::numeric_keys() const {
             keys.push_back(path);
         } else if (node.is_object()) {
             for (auto it = node.begin(); it != node.end(); ++it) {
-                if (path.empty() && (it.key() == "version" || it.key() == "limits" ||
-                                     it.key() == "solver" || it.key() == "dispersions")) {
+                if (path.empty() && !trade_inputs_under(it.key()))
                     continue;
-                }
                 self(self, it.value(), path.empty() ? it.key() : path + "." + it.key());
             }
         } else if (node.is_array()) {

@@ -9,6 +9,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "design/key_path.hpp"
 #include "design/reader.hpp"
 
 namespace ds {
@@ -40,8 +41,5 @@ private:
     nlohmann::ordered_json document_;
     std::filesystem::path base_directory_;
 };
-
-/// "/mass/items/0/mass_kg" for "mass.items[0].mass_kg".
-std::string key_to_pointer(std::string_view key);
 
 }  // namespace ds

@@ -156,23 +156,4 @@ void DesignDocument::reread() {
     m_errors = std::move(read.errors);
 }
 
-std::string pointerToPath(const std::string& pointer) {
-    std::string path;
-    std::size_t start = 1;
-    while (start <= pointer.size()) {
-        const std::size_t end = std::min(pointer.find('/', start), pointer.size());
-        const std::string token = pointer.substr(start, end - start);
-        const bool index = !token.empty() &&
-                           token.find_first_not_of("0123456789") == std::string::npos;
-        if (index) {
-            path += "[" + token + "]";
-        } else {
-            if (!path.empty()) path += ".";
-            path += token;
-        }
-        start = end + 1;
-    }
-    return path;
-}
-
 }  // namespace ds

@@ -79,8 +79,4 @@ private:
     QUndoStack* m_undo;
 };
 
-/// "entry.velocity_m_s" for "/entry/velocity_m_s", "mass.items[2].name" for
-/// "/mass/items/2/name": the reader's way of naming a key.
-std::string pointerToPath(const std::string& pointer);
-
 }  // namespace ds

@@ -1,10 +1,11 @@
 #include "views/checks_view.hpp"
 
-#include <map>
-
 #include <QBrush>
 #include <QColor>
 #include <QHeaderView>
+
+#include "design/key_path.hpp"
+#include "design/schema.hpp"
 
 namespace ds {
 namespace {
@@ -71,34 +72,8 @@ void ChecksView::setResults(const Results& results) {
 }
 
 std::string ChecksView::fieldForCheck(const std::string& checkId) {
-    static const std::map<std::string, std::string> fields{
-        {"aeroshell_sizing", "/aeroshell/diameter_m/size_for_ballistic_coefficient_kg_m2"},
-        {"aeroshell_diameter", "/aeroshell/diameter_m"},
-        {"ballistic_coefficient", "/aeroshell/diameter_m"},
-        {"aeroshell_half_angle", "/aeroshell/half_angle_deg"},
-        {"parachute_diameter", "/parachute/diameter_m"},
-        {"parachute_sizing", "/parachute/diameter_m/size_for_velocity_m_s"},
-        {"parachute_trigger", "/parachute/deploy_mach"},
-        {"deploy_mach", "/parachute/deploy_mach"},
-        {"deploy_dynamic_pressure_high", "/parachute/deploy_mach"},
-        {"deploy_dynamic_pressure_low", "/parachute/deploy_mach"},
-        {"peak_deceleration", "/entry/flight_path_angle_deg"},
-        {"peak_heat_flux", "/aeroshell/nose_radius_m"},
-        {"site_elevation", "/site/elevation_m"},
-        {"landed_mass", "/mass/items"},
-        {"mass_closure", "/mass/items"},
-        {"mass_allocation", "/mass/entry_kg"},
-        {"touchdown_velocity", "/terminal/touchdown_velocity_m_s"},
-        {"airbag_impact_velocity", "/terminal/release_height_m"},
-        {"terminal_burn", "/terminal/thrust_to_weight"},
-        {"timeline_margin", "/sequence/ground_sensing_lock_s"},
-        {"heat_shield_jettison", "/sequence/heat_shield_jettison_delay_s"},
-        {"drop_mass", "/parachute/mass_kg"},
-        {"propellant_load", "/terminal/propellant_reserve_fraction"},
-        {"trajectory", "/entry/flight_path_angle_deg"},
-    };
-    const auto it = fields.find(checkId);
-    return it == fields.end() ? std::string() : it->second;
+    const std::string_view key = key_of_check(checkId);
+    return key.empty() ? std::string() : key_to_pointer(key);
 }
 
 }  // namespace ds

@@ -17,7 +17,8 @@ public:
 
     void setResults(const Results& results);
 
-    /// The design key (a JSON pointer) a check's figure depends on most directly.
+    /// The design key (a JSON pointer) a check's figure depends on most directly, from the
+    /// schema's check-to-key table (core/design/schema.hpp).
     static std::string fieldForCheck(const std::string& checkId);
 
 signals:

@@ -1,6 +1,7 @@
 #include "views/design_form.hpp"
 
 #include <QComboBox>
+#include <QCoreApplication>
 #include <QFormLayout>
 #include <QGroupBox>
 #include <QHBoxLayout>
@@ -12,8 +13,9 @@
 #include <QTableWidget>
 #include <QVBoxLayout>
 
-#include "checks/limits.hpp"
 #include "design/design.hpp"
+#include "design/key_path.hpp"
+#include "design/schema.hpp"
 #include "model/design_document.hpp"
 
 namespace ds {
@@ -21,35 +23,120 @@ namespace {
 
 using Json = DesignDocument::Json;
 
-QuantityRange positive(double low, double high) { return {0.0, std::nullopt, true, false, low, high}; }
-QuantityRange atLeastZero(double low, double high) { return {0.0, std::nullopt, false, false, low, high}; }
-QuantityRange between(double min, double max, double low, double high) {
-    return {min, max, false, false, low, high};
+/// The form's groups, in the order the vehicle meets them, and the document's objects each
+/// shows (in this order); within an object the fields follow the schema's rows.
+struct FormSection {
+    const char* title;
+    std::vector<std::string_view> parts;
+};
+const std::vector<FormSection> formSections{
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Body and landing site"), {"body", "site", "atmosphere"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Entry state"), {"entry"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Aeroshell"), {"aeroshell"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Drag devices"), {"parachute", "decelerator"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Terminal descent"), {"terminal"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Sequence after deploy"), {"sequence"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Mass budget"), {"mass"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Limits"), {"limits"}},
+};
+
+QString fromView(std::string_view s) { return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size())); }
+
+/// The schema's words (labels, shape texts), through the translator.
+QString words(std::string_view s) {
+    return QCoreApplication::translate("ds::DesignForm", std::string(s).c_str());
 }
-QuantityRange anyValue(double low, double high) { return {std::nullopt, std::nullopt, false, false, low, high}; }
 
-// The deploy trigger keys of the parachute and the decelerator, in the order of the shape combo.
-const std::vector<std::string> trigger_keys{"deploy_mach", "deploy_dynamic_pressure_Pa",
-                                            "deploy_altitude_m"};
-const std::vector<Json> trigger_defaults{1.8, 500.0, 10000.0};
+std::string pointerOf(const KeyRow& key) { return key_to_pointer(key.path()); }
 
-// Terminal keys that only some methods take.
-const std::vector<std::string> engine_keys{"isp_s", "thrust_to_weight", "throttle",
-                                           "propellant_reserve_fraction",
-                                           "propellant_residual_fraction", "thrust_N",
-                                           "propellant_loaded_kg"};
+/// "/decelerator" for an object of the document.
+std::string pointerOf(const SectionRow& section) { return key_to_pointer(section.name); }
 
+/// The dimension of a key's unit: the one whose document unit it is.
 Dimension dimensionOfUnit(std::string_view unit) {
-    if (unit == "kg/m^2") return Dimension::area_density;
-    if (unit == "m") return Dimension::length;
-    if (unit == "deg") return Dimension::angle;
-    if (unit == "Pa") return Dimension::pressure;
-    if (unit == "g") return Dimension::acceleration;
-    if (unit == "W/cm^2") return Dimension::heat_flux;
-    if (unit == "kg") return Dimension::mass;
-    if (unit == "m/s") return Dimension::velocity;
-    if (unit == "s") return Dimension::time;
+    for (int d = 0; d <= static_cast<int>(Dimension::force); ++d) {
+        if (siUnit(static_cast<Dimension>(d)) == unit) return static_cast<Dimension>(d);
+    }
     return Dimension::dimensionless;
+}
+
+/// The value a defaulted or optional key takes when left out, if it has one.
+std::optional<double> defaultOf(const KeyRow& key) {
+    if (key.default_value) return key.default_value;
+    if (key.need != KeyNeed::defaulted || !key.number.get) return std::nullopt;
+    static const Design defaults;
+    return key.number.get(defaults);
+}
+
+/// The field's bounds are the reader's (the looser of a terminal key's two), its typical range
+/// the schema's, or the default.
+QuantityRange quantityRange(const KeyRow& key) {
+    const ValueRange& r = key.on_canopy ? key.on_canopy->range : key.range;
+    QuantityRange range;
+    range.minimum = r.above ? r.above : r.at_least;
+    range.minimumExclusive = r.above.has_value();
+    range.maximum = r.below ? r.below : r.at_most;
+    range.maximumExclusive = r.below.has_value();
+    if (key.typical) {
+        range.typicalLow = key.typical->first;
+        range.typicalHigh = key.typical->second;
+    } else if (const auto fallback = defaultOf(key)) {
+        range.typicalLow = range.typicalHigh = *fallback;
+    }
+    return range;
+}
+
+/// What an empty field means: the schema's words, or the default with its unit.
+QString placeholderOf(const KeyRow& key) {
+    if (!key.placeholder.empty()) return words(key.placeholder);
+    const auto fallback = defaultOf(key);
+    if (!fallback) return {};
+    QString shown = QString::fromStdString(formatQuantity(*fallback));
+    if (!key.unit.empty()) shown += " " + fromView(key.unit);
+    return shown;
+}
+
+/// The group's keys in its object, in order.
+std::vector<const KeyRow*> membersOf(const KeyRow& first) {
+    std::vector<const KeyRow*> members;
+    for (const KeyRow* key : keys_of(first.section)) {
+        if (key->group == first.group) members.push_back(key);
+    }
+    return members;
+}
+
+/// The keys of a sizing request.
+std::vector<const KeyRow*> requestOf(const KeyRow& key) {
+    std::vector<const KeyRow*> request;
+    for (const KeyRow* k : keys_of(key.section)) {
+        if (k->parent == key.key) request.push_back(k);
+    }
+    return request;
+}
+
+/// A choice's names in the order the form offers them: its display texts' first.
+std::vector<std::string_view> offeredNames(const KeyRow& key) {
+    std::vector<std::string_view> names;
+    for (const ChoiceText& t : key.choice_texts) names.push_back(t.name);
+    for (const std::string_view name : key.choices()) {
+        if (std::find(names.begin(), names.end(), name) == names.end()) names.push_back(name);
+    }
+    return names;
+}
+
+QString displayText(const KeyRow& key, std::string_view name) {
+    for (const ChoiceText& t : key.choice_texts) {
+        if (t.name == name) return words(t.text);
+    }
+    return words(name);
+}
+
+/// Whether a key belongs to a value of its object's selector (the model or the method).
+bool belongsTo(const KeyRow& key, std::string_view name) {
+    if (key.model) return to_string(*key.model) == name;
+    if (key.methods.empty()) return true;
+    return std::any_of(key.methods.begin(), key.methods.end(),
+                       [&](TerminalMethod m) { return to_string(m) == name; });
 }
 
 }  // namespace
@@ -70,14 +157,10 @@ DesignForm::DesignForm(DesignDocument* document, QWidget* parent)
     scroll->setWidget(content);
     outer->addWidget(scroll);
 
-    buildBodyAndSite();
-    buildEntry();
-    buildAeroshell();
-    buildDragDevices();
-    buildTerminal();
-    buildSequence();
-    buildMass();
-    buildLimits();
+    for (const FormSection& group : formSections) {
+        QFormLayout* form = addSection(tr(group.title));
+        for (const std::string_view part : group.parts) buildPart(form, *find_section(part));
+    }
     m_sections->addStretch(1);
 
     connect(m_document, &DesignDocument::changed, this, &DesignForm::refresh);
@@ -92,20 +175,25 @@ QFormLayout* DesignForm::addSection(const QString& title) {
     return form;
 }
 
-QuantityEdit* DesignForm::addNumber(QFormLayout* form, const QString& label,
-                                    const std::string& pointer, Dimension dimension,
-                                    QuantityRange range, bool optional, const QString& placeholder) {
+QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
+    const std::string pointer = pointerOf(key);
+    const QString label = words(label_of(key));
+    // An optional key may be emptied; so may the first of a group that may be left out (its
+    // default applies).
+    const bool optional = key.group ? !key.group->required && membersOf(key).front() == &key
+                                    : key.need != KeyNeed::required;
     auto* row = new QWidget(this);
     auto* rowLayout = new QHBoxLayout(row);
     rowLayout->setContentsMargins(0, 0, 0, 0);
-    auto* edit = new QuantityEdit(dimension, range, row);
+    auto* edit = new QuantityEdit(dimensionOfUnit(key.unit), quantityRange(key), row);
     edit->setObjectName(QString::fromStdString(pointer));
+    const QString placeholder = optional ? placeholderOf(key) : QString();
     if (!placeholder.isEmpty()) edit->setPlaceholderText(placeholder);
     rowLayout->addWidget(edit);
     auto* caption = new QLabel(label, this);
     caption->setBuddy(edit);
     form->addRow(caption, row);
-    m_numbers.push_back({pointer, edit, optional, row});
+    m_numbers.push_back({pointer, edit, optional, row, &key});
     connect(edit, &QuantityEdit::valueEdited, this, [this, pointer, label](double value) {
         if (!m_refreshing) m_document->setValue(pointer, value, tr("Set %1").arg(label));
     });
@@ -128,8 +216,8 @@ QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
     auto* combo = new QComboBox(this);
     combo->setObjectName(QString::fromStdString(pointer));
     std::vector<std::string> values;
-    for (const auto& [text, value] : choices) {
-        combo->addItem(text);
+    for (const auto& [shown, value] : choices) {
+        combo->addItem(shown);
         values.push_back(value);
     }
     form->addRow(label, combo);
@@ -141,9 +229,11 @@ QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
     return combo;
 }
 
-QComboBox* DesignForm::addShape(QFormLayout* form, const QString& label, const QStringList& shapes,
-                                std::function<int()> current, std::function<void(int)> select) {
+QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QString& label,
+                                const QStringList& shapes, std::function<int()> current,
+                                std::function<void(int)> select) {
     auto* combo = new QComboBox(this);
+    combo->setObjectName(name);
     combo->addItems(shapes);
     form->addRow(label, combo);
     m_shapes.push_back({combo, current, select});
@@ -153,271 +243,169 @@ QComboBox* DesignForm::addShape(QFormLayout* form, const QString& label, const Q
     return combo;
 }
 
-void DesignForm::addTrigger(QFormLayout* form, const std::string& object) {
+void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
+    if (section.name == "body") {
+        // A preset by name; a custom body is edited in the file.
+        std::vector<std::pair<QString, std::string>> bodies;
+        for (const std::string& name : body_preset_names()) {
+            QString shown = QString::fromStdString(name);
+            if (!shown.isEmpty()) shown[0] = shown[0].toUpper();
+            bodies.emplace_back(tr(shown.toUtf8().constData()), name);
+        }
+        addChoice(form, tr("Body"), "/body", bodies);
+        return;
+    }
+    if (section.present) addPresence(form, section);
+    for (const KeyRow* key : keys_of(section.name)) {
+        if (!key->parent.empty()) continue;  // with their number
+        if (key->group) {
+            if (membersOf(*key).front() == key) addGroup(form, *key);
+            continue;
+        }
+        switch (key->kind) {
+            case KeyKind::number:
+            case KeyKind::integer:
+                addNumber(form, *key);
+                break;
+            case KeyKind::number_or_request:
+                addNumberOrRequest(form, *key);
+                break;
+            case KeyKind::choice:
+                if (!key->choice_texts.empty()) {
+                    addSelector(form, *key);
+                } else {
+                    std::vector<std::pair<QString, std::string>> choices;
+                    for (const std::string_view name : key->choices())
+                        choices.emplace_back(words(name), std::string(name));
+                    addChoice(form, words(label_of(*key)), pointerOf(*key), choices);
+                }
+                break;
+            case KeyKind::by_hand:
+                if (key->path() == "mass.items") buildItems(form);
+                break;
+            case KeyKind::text:
+                break;
+        }
+    }
+}
+
+void DesignForm::addPresence(QFormLayout* form, const SectionRow& section) {
+    const std::string pointer = pointerOf(section);
+    const QString label = words(section.label);
     addShape(
-        form, tr("Deploy when"), {tr("Mach falls to"), tr("dynamic pressure falls to"), tr("altitude falls to")},
-        [this, object] {
-            for (std::size_t i = 0; i < trigger_keys.size(); ++i) {
-                if (!m_document->value(object + "/" + trigger_keys[i]).is_null()) {
-                    return static_cast<int>(i);
+        form, QString::fromStdString(pointer) + "#presence", label,
+        {words(section.absent_text), words(section.present_text)},
+        [this, pointer] { return m_document->value(pointer).is_object() ? 1 : 0; },
+        [this, pointer, label, &section](int shape) {
+            const bool present = m_document->value(pointer).is_object();
+            if (shape == 1 && !present) {
+                // Its required keys, and the first of each group it needs, at their fallbacks.
+                Json part = Json::object();
+                for (const KeyRow* key : keys_of(section.name)) {
+                    const bool needed = key->group ? key->group->required && membersOf(*key).front() == key
+                                                   : key->need == KeyNeed::required;
+                    if (needed && key->fallback) part[std::string(key->key)] = *key->fallback;
+                }
+                m_document->setValue(pointer, part, tr("Add the %1").arg(label.toLower()));
+            } else if (shape == 0 && present) {
+                m_document->setValue(pointer, Json(), tr("Remove the %1").arg(label.toLower()));
+            }
+        });
+}
+
+void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
+    const std::string pointer = pointerOf(selector);
+    const std::vector<std::string_view> names = offeredNames(selector);
+    QStringList shapes;
+    for (const std::string_view name : names) shapes << displayText(selector, name);
+    addShape(
+        form, QString::fromStdString(pointer), words(label_of(selector)), shapes,
+        [this, pointer, names] {
+            const Json now = m_document->value(pointer);
+            for (std::size_t i = 0; i < names.size(); ++i) {
+                if (now == names[i]) return static_cast<int>(i);
+            }
+            return 0;
+        },
+        [this, pointer, names, &selector](int shape) {
+            const std::string_view name = names[static_cast<std::size_t>(shape)];
+            const std::vector<const KeyRow*> keys = keys_of(selector.section);
+            // A shape whose keys the form cannot fill (a table's rows) is chosen in the file.
+            for (const KeyRow* key : keys) {
+                if (key->kind == KeyKind::by_hand && key->model && belongsTo(*key, name)) {
+                    refresh();  // back to the document's shape
+                    return;
                 }
             }
+            std::vector<std::pair<std::string, Json>> values{{pointer, std::string(name)}};
+            for (const KeyRow* key : keys) {
+                if (key == &selector || !key->parent.empty()) continue;
+                const std::string at = pointerOf(*key);
+                const bool wanted = belongsTo(*key, name);
+                const bool there = !m_document->value(at).is_null();
+                const bool canopy = key->on_canopy && name == to_string(TerminalMethod::none);
+                const std::optional<double> fallback = canopy ? key->on_canopy->fallback : key->fallback;
+                if (!wanted && there) values.emplace_back(at, Json());
+                if (wanted && !there && fallback) values.emplace_back(at, *fallback);
+            }
+            m_document->setValues(values, tr("Change the %1 %2").arg(fromView(selector.section), fromView(selector.key)));
+        });
+}
+
+void DesignForm::addGroup(QFormLayout* form, const KeyRow& first) {
+    const std::vector<const KeyRow*> members = membersOf(first);
+    QStringList shapes;
+    for (const KeyRow* key : members) shapes << words(key->shape_text);
+    const KeyGroup* group = first.group;
+    addShape(
+        form, QString::fromStdString(key_to_pointer(first.section)) + "#" + fromView(group->name),
+        words(group->label), shapes,
+        [this, members] {
+            for (std::size_t i = 0; i < members.size(); ++i) {
+                if (!m_document->value(pointerOf(*members[i])).is_null()) return static_cast<int>(i);
+            }
             return 0;
         },
-        [this, object](int shape) {
+        [this, members, group](int shape) {
             std::vector<std::pair<std::string, Json>> values;
-            for (std::size_t i = 0; i < trigger_keys.size(); ++i) {
-                const std::string pointer = object + "/" + trigger_keys[i];
+            for (std::size_t i = 0; i < members.size(); ++i) {
+                const std::string pointer = pointerOf(*members[i]);
                 const bool chosen = static_cast<int>(i) == shape;
                 const Json now = m_document->value(pointer);
-                if (chosen && now.is_null()) values.emplace_back(pointer, trigger_defaults[i]);
                 if (!chosen && !now.is_null()) values.emplace_back(pointer, Json());
+                if (chosen && now.is_null() && members[i]->fallback) {
+                    values.emplace_back(pointer, *members[i]->fallback);
+                }
             }
-            if (!values.empty()) m_document->setValues(values, tr("Change the deploy trigger"));
+            if (!values.empty()) m_document->setValues(values, tr("Change the %1").arg(fromView(group->name)));
         });
-    addNumber(form, tr("Deploy Mach"), object + "/deploy_mach", Dimension::dimensionless,
-              positive(1.4, 2.1), false);
-    addNumber(form, tr("Deploy dynamic pressure"), object + "/deploy_dynamic_pressure_Pa",
-              Dimension::pressure, positive(250, 850), false);
-    addNumber(form, tr("Deploy altitude"), object + "/deploy_altitude_m", Dimension::length,
-              anyValue(5000, 15000), false);
+    for (const KeyRow* key : members) addNumber(form, *key);
 }
 
-void DesignForm::buildBodyAndSite() {
-    QFormLayout* form = addSection(tr("Body and landing site"));
-    addChoice(form, tr("Body"), "/body",
-              {{tr("Mars"), "mars"}, {tr("Earth"), "earth"}, {tr("Venus"), "venus"}, {tr("Titan"), "titan"}});
-    addNumber(form, tr("Site elevation"), "/site/elevation_m", Dimension::length,
-              anyValue(-4000, 0), false);
+void DesignForm::addNumberOrRequest(QFormLayout* form, const KeyRow& key) {
+    const std::string pointer = pointerOf(key);
+    const std::vector<const KeyRow*> request = requestOf(key);
     addShape(
-        form, tr("Atmosphere"), {tr("exponential"), tr("the body's standard model"), tr("table (edit in the file)")},
-        [this] {
-            const Json model = m_document->value("/atmosphere/model");
-            if (model == "standard") return 1;
-            if (model == "table") return 2;
-            return 0;
-        },
-        [this](int shape) {
-            if (shape == 2) return;  // a table comes from a file or the document
-            std::vector<std::pair<std::string, Json>> values;
-            const std::vector<std::pair<std::string, Json>> exponential{
-                {"/atmosphere/surface_density_kg_m3", 0.020},
-                {"/atmosphere/scale_height_m", 11100.0},
-                {"/atmosphere/temperature_K", 210.0}};
-            values.emplace_back("/atmosphere/model", shape == 0 ? "exponential" : "standard");
-            for (const auto& [pointer, fallback] : exponential) {
-                const Json now = m_document->value(pointer);
-                if (shape == 0 && now.is_null()) values.emplace_back(pointer, fallback);
-                if (shape == 1 && !now.is_null()) values.emplace_back(pointer, Json());
-            }
-            values.emplace_back("/atmosphere/rows", Json());
-            values.emplace_back("/atmosphere/csv_file", Json());
-            m_document->setValues(values, tr("Change the atmosphere model"));
-        });
-    addNumber(form, tr("Surface density"), "/atmosphere/surface_density_kg_m3", Dimension::density,
-              positive(0.010, 0.025), false);
-    addNumber(form, tr("Scale height"), "/atmosphere/scale_height_m", Dimension::length,
-              positive(7000, 12000), false);
-    addNumber(form, tr("Temperature"), "/atmosphere/temperature_K", Dimension::temperature,
-              positive(150, 300), false);
-    addNumber(form, tr("Density scale"), "/atmosphere/density_scale", Dimension::dimensionless,
-              positive(0.8, 1.2), true, "1");
-}
-
-void DesignForm::buildEntry() {
-    QFormLayout* form = addSection(tr("Entry state"));
-    addNumber(form, tr("Interface altitude"), "/entry/interface_altitude_m", Dimension::length,
-              positive(120000, 130000), false);
-    addNumber(form, tr("Velocity"), "/entry/velocity_m_s", Dimension::velocity,
-              positive(4500, 7500), false);
-    addNumber(form, tr("Flight-path angle"), "/entry/flight_path_angle_deg", Dimension::angle,
-              {-90.0, 90.0, true, true, -18, -10}, false);
-    addNumber(form, tr("Lift-to-drag ratio"), "/entry/lift_to_drag", Dimension::dimensionless,
-              {0.0, 5.0, false, true, 0, 0.3}, true, "0");
-    addNumber(form, tr("Bank angle"), "/entry/bank_angle_deg", Dimension::angle,
-              between(-180, 180, 0, 90), true, "0");
-}
-
-void DesignForm::buildAeroshell() {
-    QFormLayout* form = addSection(tr("Aeroshell"));
-    addShape(
-        form, tr("Diameter"), {tr("given"), tr("sized for a ballistic coefficient")},
-        [this] { return m_document->value("/aeroshell/diameter_m").is_object() ? 1 : 0; },
-        [this](int shape) {
-            const Json now = m_document->value("/aeroshell/diameter_m");
+        form, QString::fromStdString(pointer) + "#sizing", words(label_of(key)),
+        {words(key.shape_text), words(request.front()->shape_text)},
+        [this, pointer] { return m_document->value(pointer).is_object() ? 1 : 0; },
+        [this, pointer, request, &key](int shape) {
+            const Json now = m_document->value(pointer);
             if (shape == 1 && !now.is_object()) {
-                m_document->setValue("/aeroshell/diameter_m",
-                                     Json{{"size_for_ballistic_coefficient_kg_m2", 100.0}},
-                                     tr("Size the aeroshell"));
-            } else if (shape == 0 && now.is_object()) {
-                m_document->setValue("/aeroshell/diameter_m", 2.6, tr("Give the aeroshell diameter"));
+                Json sizing = Json::object();
+                for (const KeyRow* k : request) {
+                    if (k->fallback) sizing[std::string(k->key)] = *k->fallback;
+                }
+                m_document->setValue(pointer, sizing, tr("Size the %1").arg(fromView(key.section)));
+            } else if (shape == 0 && now.is_object() && key.fallback) {
+                m_document->setValue(pointer, *key.fallback, tr("Give the %1 %2").arg(fromView(key.section), fromView(key.key)));
             }
         });
-    addNumber(form, tr("Diameter"), "/aeroshell/diameter_m", Dimension::length,
-              positive(2.0, 4.6), false);
-    addNumber(form, tr("Target ballistic coefficient"),
-              "/aeroshell/diameter_m/size_for_ballistic_coefficient_kg_m2",
-              Dimension::area_density, positive(50, 150), false);
-    addNumber(form, tr("Cone half-angle"), "/aeroshell/half_angle_deg", Dimension::angle,
-              {0.0, 90.0, true, true, 45, 70}, true, "70");
-    addNumber(form, tr("Nose radius"), "/aeroshell/nose_radius_m", Dimension::length,
-              positive(0.3, 1.2), false);
-    addNumber(form, tr("Drag coefficient"), "/aeroshell/drag_coefficient", Dimension::dimensionless,
-              positive(1.5, 1.7), true, tr("modified Newtonian"));
+    addNumber(form, key);
+    for (const KeyRow* k : request) addNumber(form, *k);
 }
 
-void DesignForm::buildDragDevices() {
-    QFormLayout* form = addSection(tr("Drag devices"));
-    addChoice(form, tr("Parachute type"), "/parachute/type",
-              {{tr("disk-gap-band"), "disk-gap-band"}, {tr("ringsail"), "ringsail"}});
-    addShape(
-        form, tr("Parachute diameter"), {tr("given"), tr("sized for a descent speed")},
-        [this] { return m_document->value("/parachute/diameter_m").is_object() ? 1 : 0; },
-        [this](int shape) {
-            const Json now = m_document->value("/parachute/diameter_m");
-            if (shape == 1 && !now.is_object()) {
-                m_document->setValue("/parachute/diameter_m",
-                                     Json{{"size_for_velocity_m_s", 70.0},
-                                          {"at_height_above_site_m", 2000.0}},
-                                     tr("Size the parachute"));
-            } else if (shape == 0 && now.is_object()) {
-                m_document->setValue("/parachute/diameter_m", 12.0, tr("Give the parachute diameter"));
-            }
-        });
-    addNumber(form, tr("Nominal diameter"), "/parachute/diameter_m", Dimension::length,
-              positive(10, 30), false);
-    addNumber(form, tr("Descent speed wanted"), "/parachute/diameter_m/size_for_velocity_m_s",
-              Dimension::velocity, positive(50, 90), false);
-    addNumber(form, tr("  at height above the site"),
-              "/parachute/diameter_m/at_height_above_site_m", Dimension::length,
-              atLeastZero(1000, 3000), false);
-    addNumber(form, tr("Parachute drag coefficient"), "/parachute/drag_coefficient",
-              Dimension::dimensionless, positive(0.5, 0.9), true, tr("the type's nominal value"));
-    addTrigger(form, "/parachute");
-    addNumber(form, tr("Parachute mass"), "/parachute/mass_kg", Dimension::mass,
-              positive(10, 80), true, tr("estimated"));
-
-    addShape(
-        form, tr("Inflatable decelerator"), {tr("none"), tr("before the parachute")},
-        [this] { return m_document->value("/decelerator").is_object() ? 1 : 0; },
-        [this](int shape) {
-            const bool present = m_document->value("/decelerator").is_object();
-            if (shape == 1 && !present) {
-                m_document->setValue("/decelerator",
-                                     Json{{"diameter_m", 6.0}, {"drag_coefficient", 1.3},
-                                          {"deploy_mach", 3.0}},
-                                     tr("Add an inflatable decelerator"));
-            } else if (shape == 0 && present) {
-                m_document->setValue("/decelerator", Json(), tr("Remove the inflatable decelerator"));
-            }
-        });
-    addNumber(form, tr("Decelerator diameter"), "/decelerator/diameter_m", Dimension::length,
-              positive(5, 12), false);
-    addNumber(form, tr("Decelerator drag coefficient"), "/decelerator/drag_coefficient",
-              Dimension::dimensionless, positive(1.0, 1.5), false);
-    addNumber(form, tr("Decelerator deploy Mach"), "/decelerator/deploy_mach",
-              Dimension::dimensionless, positive(2.5, 4.0), false);
-    addNumber(form, tr("Decelerator mass"), "/decelerator/mass_kg", Dimension::mass,
-              positive(20, 150), true, tr("estimated"));
-}
-
-void DesignForm::buildTerminal() {
-    QFormLayout* form = addSection(tr("Terminal descent"));
-    const std::vector<std::string> methods{"retro", "airbag", "tethered", "none"};
-    addShape(
-        form, tr("Method"), {tr("retro-rockets to touchdown"), tr("airbags"), tr("tethered lowering"), tr("none (land on the canopy)")},
-        [this, methods] {
-            const Json method = m_document->value("/terminal/method");
-            for (std::size_t i = 0; i < methods.size(); ++i) {
-                if (method == methods[i]) return static_cast<int>(i);
-            }
-            return 0;
-        },
-        [this, methods](int shape) {
-            const std::string method = methods[static_cast<std::size_t>(shape)];
-            std::vector<std::pair<std::string, Json>> values{{"/terminal/method", method}};
-            const auto keep = [&](const std::string& key, bool wanted, const Json& fallback) {
-                const std::string pointer = "/terminal/" + key;
-                const Json now = m_document->value(pointer);
-                if (!wanted && !now.is_null()) values.emplace_back(pointer, Json());
-                if (wanted && now.is_null() && !fallback.is_null()) values.emplace_back(pointer, fallback);
-            };
-            const bool engines = method != "none";
-            keep("isp_s", engines, 220.0);
-            keep("thrust_to_weight", engines, 2.5);
-            keep("touchdown_velocity_m_s", true, engines ? 2.0 : 8.0);
-            for (const char* key : {"throttle", "propellant_reserve_fraction",
-                                    "propellant_residual_fraction", "thrust_N",
-                                    "propellant_loaded_kg"}) {
-                keep(key, engines, Json());
-            }
-            keep("release_height_m", method == "airbag", Json());
-            keep("tether_length_m", method == "tethered", Json());
-            keep("fly_away_s", method == "tethered", Json());
-            m_document->setValues(values, tr("Change the terminal method"));
-        });
-    addNumber(form, tr("Specific impulse"), "/terminal/isp_s", Dimension::time,
-              positive(210, 325), false);
-    addNumber(form, tr("Thrust-to-weight"), "/terminal/thrust_to_weight", Dimension::dimensionless,
-              {1.0, std::nullopt, true, false, 1.5, 3.0}, false);
-    addNumber(form, tr("End-of-burn speed"), "/terminal/touchdown_velocity_m_s", Dimension::velocity,
-              atLeastZero(0.5, 3.0), false);
-    addNumber(form, tr("Throttle"), "/terminal/throttle", Dimension::dimensionless,
-              {0.0, 1.0, true, false, 0.6, 1.0}, true, "1");
-    addNumber(form, tr("Propellant reserve"), "/terminal/propellant_reserve_fraction",
-              Dimension::dimensionless, {0.0, 1.0, false, true, 0.05, 0.15}, true, "0.1");
-    addNumber(form, tr("Propellant residual"), "/terminal/propellant_residual_fraction",
-              Dimension::dimensionless, {0.0, 1.0, false, true, 0.02, 0.05}, true, "0.03");
-    addNumber(form, tr("Full thrust (built)"), "/terminal/thrust_N", Dimension::force,
-              positive(2000, 20000), true, "from thrust-to-weight");
-    addNumber(form, tr("Propellant loaded (built)"), "/terminal/propellant_loaded_kg",
-              Dimension::mass, positive(20, 300), true, "from the burn");
-    addNumber(form, tr("Release height"), "/terminal/release_height_m", Dimension::length,
-              atLeastZero(10, 20), true, "12 m");
-    addNumber(form, tr("Tether length"), "/terminal/tether_length_m", Dimension::length,
-              positive(6, 10), true, "7.5 m");
-    addNumber(form, tr("Fly-away time"), "/terminal/fly_away_s", Dimension::time,
-              atLeastZero(5, 15), true, "10 s");
-}
-
-void DesignForm::buildSequence() {
-    QFormLayout* form = addSection(tr("Sequence after deploy"));
-    addShape(
-        form, tr("Heat-shield jettison"), {tr("after a delay"), tr("when dynamic pressure falls to")},
-        [this] {
-            return m_document->value("/sequence/heat_shield_jettison_dynamic_pressure_Pa").is_null() ? 0 : 1;
-        },
-        [this](int shape) {
-            const std::string delay = "/sequence/heat_shield_jettison_delay_s";
-            const std::string pressure = "/sequence/heat_shield_jettison_dynamic_pressure_Pa";
-            if (shape == 1) {
-                m_document->setValues({{delay, Json()}, {pressure, 100.0}},
-                                      tr("Jettison the heat shield on dynamic pressure"));
-            } else {
-                m_document->setValues({{pressure, Json()}, {delay, 20.0}},
-                                      tr("Jettison the heat shield after a delay"));
-            }
-        });
-    addNumber(form, tr("Jettison delay"), "/sequence/heat_shield_jettison_delay_s", Dimension::time,
-              atLeastZero(15, 25), true, "20 s");
-    addNumber(form, tr("Jettison dynamic pressure"),
-              "/sequence/heat_shield_jettison_dynamic_pressure_Pa", Dimension::pressure,
-              positive(50, 200), false);
-    addNumber(form, tr("Ground-sensing lock"), "/sequence/ground_sensing_lock_s", Dimension::time,
-              atLeastZero(10, 30), true, "15 s");
-    addNumber(form, tr("Separation coast"), "/sequence/separation_coast_s", Dimension::time,
-              atLeastZero(1, 3), true, "2 s");
-}
-
-void DesignForm::buildMass() {
-    QFormLayout* form = addSection(tr("Mass budget"));
-    addNumber(form, tr("Entry mass"), "/mass/entry_kg", Dimension::mass, positive(300, 3500), true,
-              tr("closed from the items"));
-    addNumber(form, tr("Heat shield"), "/mass/heat_shield_kg", Dimension::mass,
-              atLeastZero(40, 400), true, tr("estimated"));
-    addNumber(form, tr("Backshell"), "/mass/backshell_kg", Dimension::mass, atLeastZero(30, 300),
-              true, tr("estimated"));
-
+void DesignForm::buildItems(QFormLayout* form) {
     m_items = new QTableWidget(0, 4, this);
     m_items->setObjectName("/mass/items");
     m_items->setHorizontalHeaderLabels({tr("Item"), tr("Basic mass (kg)"), tr("Group"), tr("Maturity")});
@@ -437,8 +425,8 @@ void DesignForm::buildMass() {
     connect(add, &QPushButton::clicked, this, [this] {
         Json items = m_document->value("/mass/items");
         if (!items.is_array()) items = Json::array();
-        items.push_back({{"name", "new item"}, {"mass_kg", 10.0}, {"group", "payload"},
-                         {"maturity", "estimated"}});
+        items.push_back({{"name", "new item"}, {"mass_kg", 10.0}, {"group", to_string(MassGroup::payload)},
+                         {"maturity", to_string(Maturity::estimated)}});
         m_document->setValue("/mass/items", items, tr("Add a mass item"));
     });
     connect(remove, &QPushButton::clicked, this, [this] {
@@ -453,18 +441,33 @@ void DesignForm::buildMass() {
     });
 }
 
-void DesignForm::buildLimits() {
-    QFormLayout* form = addSection(tr("Limits"));
-    const Limits defaults;
-    for (const LimitField& field : limit_fields()) {
-        const QString label = QString::fromUtf8(field.key.data(), static_cast<int>(field.key.size()))
-                                  .replace('_', ' ');
-        const double fallback = defaults.*field.member;
-        addNumber(form, label, "/limits/" + std::string(field.key), dimensionOfUnit(field.unit),
-                  anyValue(fallback, fallback), true,
-                  QString::fromStdString(formatQuantity(fallback)) + " " +
-                      QString::fromUtf8(field.unit.data(), static_cast<int>(field.unit.size())));
+bool DesignForm::applies(const KeyRow& key) const {
+    const auto present = [&](const KeyRow& k) { return !m_document->value(pointerOf(k)).is_null(); };
+    if (const SectionRow* section = find_section(key.section); section && section->present) {
+        if (!m_document->value(pointerOf(*section)).is_object()) return false;
     }
+    if (key.model) {
+        const Json model = m_document->value("/atmosphere/model");
+        if (!model.is_string() || !belongsTo(key, model.get<std::string>())) return false;
+    }
+    if (!key.methods.empty()) {
+        const Json method = m_document->value("/terminal/method");
+        if (!method.is_string() || !belongsTo(key, method.get<std::string>())) return false;
+    }
+    if (key.group) {
+        if (present(key)) return true;
+        // The first of a group that may be left out stands for its default.
+        const std::vector<const KeyRow*> members = membersOf(key);
+        const bool none = std::none_of(members.begin(), members.end(),
+                                       [&](const KeyRow* k) { return present(*k); });
+        return !key.group->required && none && members.front() == &key;
+    }
+    if (key.kind == KeyKind::number_or_request) return !m_document->value(pointerOf(key)).is_object();
+    if (!key.parent.empty()) {
+        return m_document->value(key_to_pointer(std::string(key.section) + "." + std::string(key.parent)))
+            .is_object();
+    }
+    return true;
 }
 
 void DesignForm::refresh() {
@@ -490,33 +493,7 @@ void DesignForm::refresh() {
     }
 
     // Show the rows the document's shape has.
-    const auto present = [&](const std::string& pointer) { return !m_document->value(pointer).is_null(); };
-    const bool sizedShell = m_document->value("/aeroshell/diameter_m").is_object();
-    setRowVisible("/aeroshell/diameter_m", !sizedShell);
-    setRowVisible("/aeroshell/diameter_m/size_for_ballistic_coefficient_kg_m2", sizedShell);
-    const bool sizedChute = m_document->value("/parachute/diameter_m").is_object();
-    setRowVisible("/parachute/diameter_m", !sizedChute);
-    setRowVisible("/parachute/diameter_m/size_for_velocity_m_s", sizedChute);
-    setRowVisible("/parachute/diameter_m/at_height_above_site_m", sizedChute);
-    for (const std::string& key : trigger_keys) {
-        setRowVisible("/parachute/" + key, present("/parachute/" + key));
-    }
-    const bool decelerator = m_document->value("/decelerator").is_object();
-    for (const char* key : {"diameter_m", "drag_coefficient", "deploy_mach", "mass_kg"}) {
-        setRowVisible(std::string("/decelerator/") + key, decelerator);
-    }
-    const bool exponential = m_document->value("/atmosphere/model") == "exponential";
-    for (const char* key : {"surface_density_kg_m3", "scale_height_m", "temperature_K"}) {
-        setRowVisible(std::string("/atmosphere/") + key, exponential);
-    }
-    const Json method = m_document->value("/terminal/method");
-    for (const std::string& key : engine_keys) setRowVisible("/terminal/" + key, method != "none");
-    setRowVisible("/terminal/release_height_m", method == "airbag");
-    setRowVisible("/terminal/tether_length_m", method == "tethered");
-    setRowVisible("/terminal/fly_away_s", method == "tethered");
-    const bool onPressure = present("/sequence/heat_shield_jettison_dynamic_pressure_Pa");
-    setRowVisible("/sequence/heat_shield_jettison_delay_s", !onPressure);
-    setRowVisible("/sequence/heat_shield_jettison_dynamic_pressure_Pa", onPressure);
+    for (NumberBinding& b : m_numbers) setRowVisible(b.pointer, applies(*b.key));
     refreshItems();
 
     // Errors of the reader at their fields; the rest above the forms.
@@ -524,7 +501,7 @@ void DesignForm::refresh() {
     for (const ReadError& error : errors) {
         bool placed = false;
         for (NumberBinding& b : m_numbers) {
-            if (pointerToPath(b.pointer) == error.path && b.row->isVisibleTo(this)) {
+            if (pointer_to_key(b.pointer) == error.path && b.row->isVisibleTo(this)) {
                 b.edit->setExternalError(QString::fromStdString(error.message));
                 placed = true;
             }
@@ -552,11 +529,12 @@ void DesignForm::refreshItems() {
         m_items->setItem(row, 0, new QTableWidgetItem(text("name")));
         m_items->setItem(row, 1, new QTableWidgetItem(text("mass_kg")));
         auto* group = new QComboBox(m_items);
-        group->addItems({"heat shield", "backshell", "descent stage", "payload"});
+        for (const std::string_view name : mass_group_names()) group->addItem(fromView(name));
         group->setCurrentText(text("group"));
         auto* maturity = new QComboBox(m_items);
-        maturity->addItems({"estimated", "layout", "pre-release", "released", "existing", "actual"});
-        maturity->setCurrentText(text("maturity").isEmpty() ? "estimated" : text("maturity"));
+        for (const std::string_view name : maturity_names()) maturity->addItem(fromView(name));
+        maturity->setCurrentText(text("maturity").isEmpty() ? fromView(to_string(Maturity::estimated))
+                                                            : text("maturity"));
         m_items->setCellWidget(row, 2, group);
         m_items->setCellWidget(row, 3, maturity);
         connect(group, &QComboBox::currentIndexChanged, this, [this] { if (!m_refreshing) writeItems(); });
@@ -607,6 +585,17 @@ QWidget* DesignForm::fieldFor(const std::string& pointer) const {
 
 bool DesignForm::focusField(const std::string& pointer) {
     QWidget* field = fieldFor(pointer);
+    if (field && !field->isVisibleTo(this)) {
+        // A key of a group the document gives another of (a check names the Mach trigger, the
+        // design deploys on dynamic pressure): the one it gives.
+        const KeyRow* key = find_key(pointer_to_key(pointer));
+        for (const NumberBinding& b : m_numbers) {
+            if (key && key->group && b.key->group == key->group && b.key->section == key->section &&
+                b.edit->isVisibleTo(this)) {
+                field = b.edit;
+            }
+        }
+    }
     if (!field || !field->isVisibleTo(this)) return false;
     for (QWidget* w = field->parentWidget(); w; w = w->parentWidget()) {
         if (auto* scroll = qobject_cast<QScrollArea*>(w)) {

@@ -20,17 +20,23 @@ QT_END_NAMESPACE
 namespace ds {
 
 class DesignDocument;
+struct KeyGroup;
+struct KeyRow;
+struct SectionRow;
 
 /// The design as forms, grouped in the order the vehicle meets them: body and site, entry,
-/// aeroshell, drag devices, terminal descent, sequence, mass budget, limits. Every field is
-/// bound to a key of the document by its JSON pointer; an edit goes to the document as one
-/// undoable change, and the form redraws from the document on every change.
+/// aeroshell, drag devices, terminal descent, sequence, mass budget, limits. The fields, their
+/// labels, ranges, placeholders, visibility and the values a change of shape fills in all come
+/// from the design schema (core/design/schema.hpp). Every field is bound to a key of the
+/// document by its JSON pointer; an edit goes to the document as one undoable change, and the
+/// form redraws from the document on every change.
 class DesignForm : public QWidget {
     Q_OBJECT
 public:
     explicit DesignForm(DesignDocument* document, QWidget* parent = nullptr);
 
-    /// Shows and focuses the field of a key ("/entry/velocity_m_s"); false when there is none.
+    /// Shows and focuses the field of a key ("/entry/velocity_m_s"), or of the alternative of its
+    /// group that the document gives; false when there is none.
     bool focusField(const std::string& pointer);
     /// The field bound to a key, for tests.
     QWidget* fieldFor(const std::string& pointer) const;
@@ -41,7 +47,8 @@ private:
         std::string pointer;
         QuantityEdit* edit;
         bool optional;
-        QWidget* row;  ///< label and field, for showing and hiding
+        QWidget* row;       ///< label and field, for showing and hiding
+        const KeyRow* key;  ///< its schema row
     };
     /// A choice bound to a key holding one of several strings.
     struct ChoiceBinding {
@@ -58,23 +65,29 @@ private:
     };
 
     QFormLayout* addSection(const QString& title);
-    QuantityEdit* addNumber(QFormLayout* form, const QString& label, const std::string& pointer,
-                            Dimension dimension, QuantityRange range, bool optional,
-                            const QString& placeholder = {});
+    QuantityEdit* addNumber(QFormLayout* form, const KeyRow& key);
     QComboBox* addChoice(QFormLayout* form, const QString& label, const std::string& pointer,
                          const std::vector<std::pair<QString, std::string>>& choices);
-    QComboBox* addShape(QFormLayout* form, const QString& label, const QStringList& shapes,
-                        std::function<int()> current, std::function<void(int)> select);
-    void addTrigger(QFormLayout* form, const std::string& object);
+    /// A choice between shapes, named for tests: the selector's pointer ("/terminal/method"),
+    /// or a part's pointer with what it chooses ("/parachute#deploy trigger",
+    /// "/aeroshell/diameter_m#sizing", "/decelerator#presence").
+    QComboBox* addShape(QFormLayout* form, const QString& name, const QString& label,
+                        const QStringList& shapes, std::function<int()> current,
+                        std::function<void(int)> select);
 
-    void buildBodyAndSite();
-    void buildEntry();
-    void buildAeroshell();
-    void buildDragDevices();
-    void buildTerminal();
-    void buildSequence();
-    void buildMass();
-    void buildLimits();
+    /// The fields of one object of the document, row by row of the schema.
+    void buildPart(QFormLayout* form, const SectionRow& section);
+    /// A part the design may lack (the decelerator): none, or the part with its fallbacks.
+    void addPresence(QFormLayout* form, const SectionRow& section);
+    /// A choice whose value decides which keys of its object apply (model, method).
+    void addSelector(QFormLayout* form, const KeyRow& selector);
+    /// One key of a group of alternatives (a trigger, a jettison rule).
+    void addGroup(QFormLayout* form, const KeyRow& first);
+    /// A number or a sizing request.
+    void addNumberOrRequest(QFormLayout* form, const KeyRow& key);
+    void buildItems(QFormLayout* form);
+    /// Whether a key applies to the document as it is (its model, method, group and shape).
+    bool applies(const KeyRow& key) const;
 
     void refresh();
     void refreshItems();

@@ -1,0 +1,602 @@
+#include "design/schema.hpp"
+
+#include <algorithm>
+#include <array>
+#include <type_traits>
+
+#include <fmt/format.h>
+#include <fmt/ranges.h>
+
+#include "parachute/canopy.hpp"
+
+// The rows below name only the fields they set (designated initializers); every other field
+// keeps its default. GCC 12 warns about the fields left out even so (its bug 96868).
+#if defined(__GNUC__) && !defined(__clang__)
+#pragma GCC diagnostic ignored "-Wmissing-field-initializers"
+#endif
+
+namespace ds {
+
+bool ValueRange::contains(double x) const {
+    return (!above || x > *above) && (!at_least || x >= *at_least) && (!below || x < *below) &&
+           (!at_most || x <= *at_most);
+}
+
+std::string ValueRange::requirement() const {
+    const bool no_upper = !below && !at_most;
+    if (above == 0.0 && !at_least && no_upper)
+        return "must be positive";
+    if (at_least == 0.0 && !above && no_upper)
+        return "must not be negative";
+    std::vector<std::string> parts;
+    if (above)
+        parts.push_back(fmt::format("greater than {}", *above));
+    if (at_least)
+        parts.push_back(fmt::format("at least {}", *at_least));
+    if (below)
+        parts.push_back(fmt::format("less than {}", *below));
+    if (at_most)
+        parts.push_back(fmt::format("at most {}", *at_most));
+    return fmt::format("must be {}", fmt::join(parts, " and "));
+}
+
+std::string KeyRow::path() const {
+    std::string path(section);
+    for (const std::string_view part : {parent, key}) {
+        if (part.empty())
+            continue;
+        if (!path.empty())
+            path += '.';
+        path += part;
+    }
+    return path;
+}
+
+namespace {
+
+// ---- Access to the members of a Design, made from member pointers --------------------------
+
+template <class T>
+struct is_optional : std::false_type {};
+template <class T>
+struct is_optional<std::optional<T>> : std::true_type {};
+
+/// The section a member pointer names, or null when it is an optional part the design lacks.
+template <auto section>
+const auto* part_of(const Design& design) {
+    const auto& part = design.*section;
+    if constexpr (is_optional<std::remove_cvref_t<decltype(part)>>::value) {
+        return part ? &*part : nullptr;
+    } else {
+        return &part;
+    }
+}
+
+/// The section to set a value in; an optional part is added.
+template <auto section>
+auto& part_for(Design& design) {
+    auto& part = design.*section;
+    if constexpr (is_optional<std::remove_cvref_t<decltype(part)>>::value) {
+        if (!part)
+            part.emplace();
+        return *part;
+    } else {
+        return part;
+    }
+}
+
+inline std::optional<double> as_number(double value) { return value; }
+inline std::optional<double> as_number(int value) { return value; }
+inline std::optional<double> as_number(const std::optional<double>& value) { return value; }
+
+template <auto section, auto field>
+std::optional<double> get_member(const Design& design) {
+    const auto* part = part_of<section>(design);
+    if (!part)
+        return std::nullopt;
+    return as_number(part->*field);
+}
+
+template <auto section, auto field>
+void set_member(Design& design, double value) {
+    auto& target = part_for<section>(design).*field;
+    if constexpr (std::is_same_v<std::remove_cvref_t<decltype(target)>, int>) {
+        target = static_cast<int>(value);
+    } else {
+        target = value;
+    }
+}
+
+/// A number member of a section: `member<&Design::entry, &EntryDesign::velocity_m_s>`.
+template <auto section, auto field>
+constexpr NumberAccess member{&get_member<section, field>, &set_member<section, field>};
+
+template <auto section, TriggerKind kind>
+std::optional<double> get_trigger(const Design& design) {
+    const auto* part = part_of<section>(design);
+    if (!part || part->trigger != kind)
+        return std::nullopt;
+    return part->trigger_value;
+}
+
+template <auto section, TriggerKind kind>
+void set_trigger(Design& design, double value) {
+    auto& part = part_for<section>(design);
+    part.trigger = kind;
+    part.trigger_value = value;
+}
+
+/// One deploy trigger of a stage: set when the stage deploys on it.
+template <auto section, TriggerKind kind>
+constexpr NumberAccess trigger{&get_trigger<section, kind>, &set_trigger<section, kind>};
+
+constexpr TextAccess design_name{
+    [](const Design& d) { return std::string_view(d.name); },
+    [](Design& d, std::string_view name) {
+        d.name = name;
+        return true;
+    }};
+
+constexpr TextAccess atmosphere_model{
+    [](const Design& d) { return to_string(d.atmosphere.model); },
+    [](Design& d, std::string_view name) {
+        const auto model = atmosphere_model_from(name);
+        if (model)
+            d.atmosphere.model = *model;
+        return model.has_value();
+    }};
+
+constexpr TextAccess canopy{
+    [](const Design& d) { return std::string_view(d.parachute.type); },
+    [](Design& d, std::string_view name) {
+        if (!canopy_type(name))
+            return false;
+        d.parachute.type = name;
+        return true;
+    }};
+
+constexpr TextAccess terminal_method{
+    [](const Design& d) { return to_string(d.terminal.method); },
+    [](Design& d, std::string_view name) {
+        const auto method = terminal_method_from(name);
+        if (method)
+            d.terminal.method = *method;
+        return method.has_value();
+    }};
+
+std::vector<std::string_view> canopy_names() {
+    std::vector<std::string_view> names;
+    for (const CanopyType& type : canopy_types())
+        names.push_back(type.name);
+    return names;
+}
+
+// ---- Ranges and groups ------------------------------------------------------------------------
+
+constexpr ValueRange any_finite{};
+constexpr ValueRange positive{.above = 0.0};
+constexpr ValueRange non_negative{.at_least = 0.0};
+constexpr ValueRange fraction_of_one{.at_least = 0.0, .below = 1.0};  // [0, 1)
+
+// Lift-to-drag ratios of entry vehicles stay well below this (our bound on a plausible input).
+constexpr double lift_to_drag_max = 5.0;
+// Bounds of the numerical settings (our choice): tighter than 1e-14 is below double round-off
+// for a trajectory; looser than 1e-3 no longer resolves the peaks the checks look at.
+constexpr double relative_tolerance_min = 1e-14;
+constexpr double relative_tolerance_max = 1e-3;
+// The step budget bounds the work of each flight phase. A million steps, five times the
+// default, is our bound: a stiff descent that uses them all takes about 5 s and 450 MB
+// (Release); one allowed 2^31 - 1 took 24 s and 2.7 GB.
+constexpr double max_steps_max = 1'000'000;
+
+constexpr std::array powered_methods{TerminalMethod::retro, TerminalMethod::airbag,
+                                     TerminalMethod::tethered};
+constexpr std::array airbag_method{TerminalMethod::airbag};
+constexpr std::array tethered_method{TerminalMethod::tethered};
+
+const KeyGroup deploy_trigger{"deploy trigger", true, "Deploy when"};
+const KeyGroup jettison_rule{"heat-shield jettison rule", false, "Heat-shield jettison"};
+
+constexpr std::array atmosphere_texts{
+    ChoiceText{"exponential", "exponential"},
+    ChoiceText{"standard", "the body's standard model"},
+    ChoiceText{"table", "table (edit in the file)"},
+};
+constexpr std::array method_texts{
+    ChoiceText{"retro", "retro-rockets to touchdown"},
+    ChoiceText{"airbag", "airbags"},
+    ChoiceText{"tethered", "tethered lowering"},
+    ChoiceText{"none", "none (land on the canopy)"},
+};
+
+// ---- The document's objects ------------------------------------------------------------------
+
+const std::array sections{
+    SectionRow{.name = "body", .by_hand = true},
+    SectionRow{.name = "atmosphere"},
+    SectionRow{.name = "site"},
+    SectionRow{.name = "entry"},
+    SectionRow{.name = "aeroshell"},
+    SectionRow{.name = "mass"},
+    SectionRow{.name = "decelerator",
+               .need = KeyNeed::optional,
+               .present = [](const Design& d) { return d.decelerator.has_value(); },
+               .add = [](Design& d) { d.decelerator.emplace(); },
+               .label = "Inflatable decelerator",
+               .absent_text = "none",
+               .present_text = "before the parachute"},
+    SectionRow{.name = "parachute"},
+    SectionRow{.name = "sequence", .need = KeyNeed::optional},
+    SectionRow{.name = "terminal"},
+    SectionRow{.name = "limits", .need = KeyNeed::optional, .trade_inputs = false},
+    SectionRow{.name = "solver", .need = KeyNeed::optional, .trade_inputs = false},
+    SectionRow{.name = "dispersions", .need = KeyNeed::optional, .by_hand = true,
+               .trade_inputs = false},
+};
+
+/// A limit: defaulted, any finite value unless said otherwise.
+template <auto field>
+KeyRow limit(std::string_view key, std::string_view unit, ValueRange range = any_finite) {
+    return KeyRow{.section = "limits", .key = key, .need = KeyNeed::defaulted, .range = range,
+                  .unit = unit, .number = member<&Design::limits, field>};
+}
+
+// ---- The keys --------------------------------------------------------------------------------
+//
+// In the writer's order. Typical ranges and fallbacks are the window's suggestions (our
+// choices), not limits: the reader's range is the only bound.
+
+const std::array keys{
+    // The document's top level; its sections follow in design_sections()'s order.
+    KeyRow{.key = "format", .kind = KeyKind::by_hand, .trade_input = false},
+    KeyRow{.key = "version", .kind = KeyKind::by_hand, .trade_input = false},
+    KeyRow{.key = "name", .kind = KeyKind::text, .text = design_name, .label = "Name"},
+
+    KeyRow{.section = "atmosphere", .key = "model", .kind = KeyKind::choice,
+           .text = atmosphere_model, .choices = &atmosphere_model_names, .label = "Atmosphere",
+           .choice_texts = atmosphere_texts},
+    KeyRow{.section = "atmosphere", .key = "surface_density_kg_m3", .range = positive,
+           .unit = "kg/m^3",
+           .number = member<&Design::atmosphere, &AtmosphereDesign::surface_density_kg_m3>,
+           .model = AtmosphereModel::exponential, .label = "Surface density",
+           .typical = {{0.010, 0.025}}, .fallback = 0.020},
+    KeyRow{.section = "atmosphere", .key = "scale_height_m", .range = positive, .unit = "m",
+           .number = member<&Design::atmosphere, &AtmosphereDesign::scale_height_m>,
+           .model = AtmosphereModel::exponential, .label = "Scale height",
+           .typical = {{7000, 12000}}, .fallback = 11100},
+    KeyRow{.section = "atmosphere", .key = "temperature_K", .range = positive, .unit = "K",
+           .number = member<&Design::atmosphere, &AtmosphereDesign::temperature_K>,
+           .model = AtmosphereModel::exponential, .label = "Temperature",
+           .typical = {{150, 300}}, .fallback = 210},
+    KeyRow{.section = "atmosphere", .key = "rows", .kind = KeyKind::by_hand,
+           .model = AtmosphereModel::table},
+    KeyRow{.section = "atmosphere", .key = "csv_file", .kind = KeyKind::by_hand,
+           .model = AtmosphereModel::table},
+    KeyRow{.section = "atmosphere", .key = "gas_constant_J_kgK", .need = KeyNeed::optional,
+           .range = positive, .unit = "J/kgK",
+           .number = member<&Design::atmosphere, &AtmosphereDesign::gas_constant_J_kgK>,
+           .label = "Gas constant", .typical = {{150, 300}}, .placeholder = "the body's gas"},
+    KeyRow{.section = "atmosphere", .key = "gamma", .need = KeyNeed::optional,
+           .range = {.above = 1.0},
+           .number = member<&Design::atmosphere, &AtmosphereDesign::gamma>,
+           .label = "Ratio of specific heats", .typical = {{1.28, 1.4}},
+           .placeholder = "the body's gas"},
+    KeyRow{.section = "atmosphere", .key = "density_scale", .need = KeyNeed::defaulted,
+           .range = positive,
+           .number = member<&Design::atmosphere, &AtmosphereDesign::density_scale>,
+           .label = "Density scale", .typical = {{0.8, 1.2}}},
+
+    KeyRow{.section = "site", .key = "elevation_m", .range = any_finite, .unit = "m",
+           .number = member<&Design::site, &SiteDesign::elevation_m>, .label = "Site elevation",
+           .typical = {{-4000, 0}}},
+
+    KeyRow{.section = "entry", .key = "interface_altitude_m", .range = positive, .unit = "m",
+           .number = member<&Design::entry, &EntryDesign::interface_altitude_m>,
+           .label = "Interface altitude", .typical = {{120000, 130000}}},
+    KeyRow{.section = "entry", .key = "velocity_m_s", .range = positive, .unit = "m/s",
+           .number = member<&Design::entry, &EntryDesign::velocity_m_s>, .label = "Velocity",
+           .typical = {{4500, 7500}}},
+    KeyRow{.section = "entry", .key = "flight_path_angle_deg",
+           .range = {.above = -90.0, .below = 90.0}, .unit = "deg",
+           .number = member<&Design::entry, &EntryDesign::flight_path_angle_deg>,
+           .label = "Flight-path angle", .typical = {{-18, -10}}},
+    KeyRow{.section = "entry", .key = "lift_to_drag", .need = KeyNeed::defaulted,
+           .range = {.at_least = 0.0, .below = lift_to_drag_max},
+           .number = member<&Design::entry, &EntryDesign::lift_to_drag>,
+           .label = "Lift-to-drag ratio", .typical = {{0, 0.3}}},
+    KeyRow{.section = "entry", .key = "bank_angle_deg", .need = KeyNeed::defaulted,
+           .range = {.at_least = -180.0, .at_most = 180.0}, .unit = "deg",
+           .number = member<&Design::entry, &EntryDesign::bank_angle_deg>, .label = "Bank angle",
+           .typical = {{0, 90}}},
+
+    KeyRow{.section = "aeroshell", .key = "diameter_m", .kind = KeyKind::number_or_request,
+           .range = positive, .unit = "m",
+           .number = member<&Design::aeroshell, &AeroshellDesign::diameter_m>,
+           .label = "Diameter", .typical = {{2.0, 4.6}}, .fallback = 2.6, .shape_text = "given"},
+    KeyRow{.section = "aeroshell", .key = "size_for_ballistic_coefficient_kg_m2",
+           .parent = "diameter_m", .range = positive, .unit = "kg/m^2",
+           .number = member<&Design::aeroshell,
+                            &AeroshellDesign::size_for_ballistic_coefficient_kg_m2>,
+           .label = "Target ballistic coefficient", .typical = {{50, 150}}, .fallback = 100,
+           .shape_text = "sized for a ballistic coefficient"},
+    KeyRow{.section = "aeroshell", .key = "half_angle_deg", .need = KeyNeed::defaulted,
+           .range = {.above = 0.0, .below = 90.0}, .unit = "deg",
+           .number = member<&Design::aeroshell, &AeroshellDesign::half_angle_deg>,
+           .label = "Cone half-angle", .typical = {{45, 70}}},
+    KeyRow{.section = "aeroshell", .key = "nose_radius_m", .range = positive, .unit = "m",
+           .number = member<&Design::aeroshell, &AeroshellDesign::nose_radius_m>,
+           .label = "Nose radius", .typical = {{0.3, 1.2}}},
+    KeyRow{.section = "aeroshell", .key = "drag_coefficient", .need = KeyNeed::optional,
+           .range = positive,
+           .number = member<&Design::aeroshell, &AeroshellDesign::drag_coefficient>,
+           .label = "Drag coefficient", .typical = {{1.5, 1.7}},
+           .placeholder = "modified Newtonian"},
+
+    KeyRow{.section = "mass", .key = "entry_kg", .need = KeyNeed::optional, .range = positive,
+           .unit = "kg", .number = member<&Design::mass, &MassDesign::entry_kg>,
+           .label = "Entry mass", .typical = {{300, 3500}},
+           .placeholder = "closed from the items"},
+    KeyRow{.section = "mass", .key = "heat_shield_kg", .need = KeyNeed::optional,
+           .range = non_negative, .unit = "kg",
+           .number = member<&Design::mass, &MassDesign::heat_shield_kg>, .label = "Heat shield",
+           .typical = {{40, 400}}, .placeholder = "estimated"},
+    KeyRow{.section = "mass", .key = "backshell_kg", .need = KeyNeed::optional,
+           .range = non_negative, .unit = "kg",
+           .number = member<&Design::mass, &MassDesign::backshell_kg>, .label = "Backshell",
+           .typical = {{30, 300}}, .placeholder = "estimated"},
+    KeyRow{.section = "mass", .key = "items", .kind = KeyKind::by_hand},
+
+    KeyRow{.section = "decelerator", .key = "diameter_m", .range = positive, .unit = "m",
+           .number = member<&Design::decelerator, &DeceleratorDesign::diameter_m>,
+           .label = "Decelerator diameter", .typical = {{5, 12}}, .fallback = 6.0},
+    KeyRow{.section = "decelerator", .key = "drag_coefficient", .range = positive,
+           .number = member<&Design::decelerator, &DeceleratorDesign::drag_coefficient>,
+           .label = "Decelerator drag coefficient", .typical = {{1.0, 1.5}}, .fallback = 1.3},
+    KeyRow{.section = "decelerator", .key = "deploy_mach", .need = KeyNeed::optional,
+           .range = positive, .number = trigger<&Design::decelerator, TriggerKind::mach>,
+           .group = &deploy_trigger, .label = "Decelerator deploy Mach",
+           .typical = {{2.5, 4.0}}, .fallback = 3.0, .shape_text = "Mach falls to"},
+    KeyRow{.section = "decelerator", .key = "deploy_dynamic_pressure_Pa",
+           .need = KeyNeed::optional, .range = positive, .unit = "Pa",
+           .number = trigger<&Design::decelerator, TriggerKind::dynamic_pressure>,
+           .group = &deploy_trigger, .label = "Decelerator deploy dynamic pressure",
+           .typical = {{1500, 4000}}, .fallback = 2500,
+           .shape_text = "dynamic pressure falls to"},
+    KeyRow{.section = "decelerator", .key = "deploy_altitude_m", .need = KeyNeed::optional,
+           .range = any_finite, .unit = "m",
+           .number = trigger<&Design::decelerator, TriggerKind::altitude>,
+           .group = &deploy_trigger, .label = "Decelerator deploy altitude",
+           .typical = {{15000, 30000}}, .fallback = 20000, .shape_text = "altitude falls to"},
+    KeyRow{.section = "decelerator", .key = "mass_kg", .need = KeyNeed::optional,
+           .range = positive, .unit = "kg",
+           .number = member<&Design::decelerator, &DeceleratorDesign::mass_kg>,
+           .label = "Decelerator mass", .typical = {{20, 150}}, .placeholder = "estimated"},
+
+    KeyRow{.section = "parachute", .key = "type", .kind = KeyKind::choice, .text = canopy,
+           .choices = &canopy_names, .label = "Parachute type"},
+    KeyRow{.section = "parachute", .key = "diameter_m", .kind = KeyKind::number_or_request,
+           .range = positive, .unit = "m",
+           .number = member<&Design::parachute, &ParachuteDesign::diameter_m>,
+           .label = "Parachute diameter", .typical = {{10, 30}}, .fallback = 12.0,
+           .shape_text = "given"},
+    KeyRow{.section = "parachute", .key = "size_for_velocity_m_s", .parent = "diameter_m",
+           .range = positive, .unit = "m/s",
+           .number = member<&Design::parachute, &ParachuteDesign::size_for_velocity_m_s>,
+           .label = "Descent speed wanted", .typical = {{50, 90}}, .fallback = 70,
+           .shape_text = "sized for a descent speed"},
+    KeyRow{.section = "parachute", .key = "at_height_above_site_m", .parent = "diameter_m",
+           .range = non_negative, .unit = "m",
+           .number = member<&Design::parachute, &ParachuteDesign::at_height_above_site_m>,
+           .label = "  at height above the site", .typical = {{1000, 3000}}, .fallback = 2000},
+    KeyRow{.section = "parachute", .key = "drag_coefficient", .need = KeyNeed::optional,
+           .range = positive,
+           .number = member<&Design::parachute, &ParachuteDesign::drag_coefficient>,
+           .label = "Parachute drag coefficient", .typical = {{0.5, 0.9}},
+           .placeholder = "the type's nominal value"},
+    KeyRow{.section = "parachute", .key = "deploy_mach", .need = KeyNeed::optional,
+           .range = positive, .number = trigger<&Design::parachute, TriggerKind::mach>,
+           .group = &deploy_trigger, .label = "Deploy Mach", .typical = {{1.4, 2.1}},
+           .fallback = 1.8, .shape_text = "Mach falls to"},
+    KeyRow{.section = "parachute", .key = "deploy_dynamic_pressure_Pa",
+           .need = KeyNeed::optional, .range = positive, .unit = "Pa",
+           .number = trigger<&Design::parachute, TriggerKind::dynamic_pressure>,
+           .group = &deploy_trigger, .label = "Deploy dynamic pressure",
+           .typical = {{250, 850}}, .fallback = 500,
+           .shape_text = "dynamic pressure falls to"},
+    KeyRow{.section = "parachute", .key = "deploy_altitude_m", .need = KeyNeed::optional,
+           .range = any_finite, .unit = "m",
+           .number = trigger<&Design::parachute, TriggerKind::altitude>,
+           .group = &deploy_trigger, .label = "Deploy altitude", .typical = {{5000, 15000}},
+           .fallback = 10000, .shape_text = "altitude falls to"},
+    KeyRow{.section = "parachute", .key = "mass_kg", .need = KeyNeed::optional,
+           .range = positive, .unit = "kg",
+           .number = member<&Design::parachute, &ParachuteDesign::mass_kg>,
+           .label = "Parachute mass", .typical = {{10, 80}}, .placeholder = "estimated"},
+
+    KeyRow{.section = "sequence", .key = "heat_shield_jettison_delay_s",
+           .need = KeyNeed::optional, .range = non_negative, .unit = "s",
+           .default_value = SequenceDesign::default_jettison_delay_s,
+           .number = member<&Design::sequence, &SequenceDesign::heat_shield_jettison_delay_s>,
+           .group = &jettison_rule, .label = "Jettison delay", .typical = {{15, 25}},
+           .fallback = SequenceDesign::default_jettison_delay_s, .shape_text = "after a delay"},
+    KeyRow{.section = "sequence", .key = "heat_shield_jettison_dynamic_pressure_Pa",
+           .need = KeyNeed::optional, .range = positive, .unit = "Pa",
+           .number = member<&Design::sequence,
+                            &SequenceDesign::heat_shield_jettison_dynamic_pressure_Pa>,
+           .group = &jettison_rule, .label = "Jettison dynamic pressure",
+           .typical = {{50, 200}}, .fallback = 100,
+           .shape_text = "when dynamic pressure falls to"},
+    KeyRow{.section = "sequence", .key = "ground_sensing_lock_s", .need = KeyNeed::defaulted,
+           .range = non_negative, .unit = "s",
+           .number = member<&Design::sequence, &SequenceDesign::ground_sensing_lock_s>,
+           .label = "Ground-sensing lock", .typical = {{10, 30}}},
+    KeyRow{.section = "sequence", .key = "separation_coast_s", .need = KeyNeed::defaulted,
+           .range = non_negative, .unit = "s",
+           .number = member<&Design::sequence, &SequenceDesign::separation_coast_s>,
+           .label = "Separation coast", .typical = {{1, 3}}},
+
+    KeyRow{.section = "terminal", .key = "method", .kind = KeyKind::choice,
+           .text = terminal_method, .choices = &terminal_method_names, .label = "Method",
+           .choice_texts = method_texts},
+    KeyRow{.section = "terminal", .key = "isp_s", .range = positive, .unit = "s",
+           .number = member<&Design::terminal, &TerminalDesign::isp_s>,
+           .methods = powered_methods, .label = "Specific impulse", .typical = {{210, 325}},
+           .fallback = 220},
+    KeyRow{.section = "terminal", .key = "thrust_to_weight", .range = {.above = 1.0},
+           .number = member<&Design::terminal, &TerminalDesign::thrust_to_weight>,
+           .methods = powered_methods, .label = "Thrust-to-weight", .typical = {{1.5, 3.0}},
+           .fallback = 2.5},
+    // Every method but "none" fires an engine: it cannot be sized without the speed the burn
+    // ends at. Landing on the canopy, the speed is optional and may be zero.
+    KeyRow{.section = "terminal", .key = "touchdown_velocity_m_s", .range = positive,
+           .unit = "m/s",
+           .number = member<&Design::terminal, &TerminalDesign::touchdown_velocity_m_s>,
+           .on_canopy = CanopyRule{KeyNeed::defaulted, non_negative, 8.0},
+           .label = "End-of-burn speed", .typical = {{0.5, 3.0}}, .fallback = 2.0},
+    KeyRow{.section = "terminal", .key = "throttle", .need = KeyNeed::defaulted,
+           .range = {.above = 0.0, .at_most = 1.0},
+           .number = member<&Design::terminal, &TerminalDesign::throttle>,
+           .methods = powered_methods, .label = "Throttle", .typical = {{0.6, 1.0}}},
+    KeyRow{.section = "terminal", .key = "propellant_reserve_fraction",
+           .need = KeyNeed::defaulted, .range = fraction_of_one,
+           .number = member<&Design::terminal, &TerminalDesign::propellant_reserve_fraction>,
+           .methods = powered_methods, .label = "Propellant reserve",
+           .typical = {{0.05, 0.15}}},
+    KeyRow{.section = "terminal", .key = "propellant_residual_fraction",
+           .need = KeyNeed::defaulted, .range = fraction_of_one,
+           .number = member<&Design::terminal, &TerminalDesign::propellant_residual_fraction>,
+           .methods = powered_methods, .label = "Propellant residual",
+           .typical = {{0.02, 0.05}}},
+    KeyRow{.section = "terminal", .key = "release_height_m", .need = KeyNeed::defaulted,
+           .range = non_negative, .unit = "m",
+           .number = member<&Design::terminal, &TerminalDesign::release_height_m>,
+           .methods = airbag_method, .label = "Release height", .typical = {{10, 20}}},
+    KeyRow{.section = "terminal", .key = "tether_length_m", .need = KeyNeed::defaulted,
+           .range = positive, .unit = "m",
+           .number = member<&Design::terminal, &TerminalDesign::tether_length_m>,
+           .methods = tethered_method, .label = "Tether length", .typical = {{6, 10}}},
+    KeyRow{.section = "terminal", .key = "fly_away_s", .need = KeyNeed::defaulted,
+           .range = non_negative, .unit = "s",
+           .number = member<&Design::terminal, &TerminalDesign::fly_away_s>,
+           .methods = tethered_method, .label = "Fly-away time", .typical = {{5, 15}}},
+    KeyRow{.section = "terminal", .key = "thrust_N", .need = KeyNeed::optional,
+           .range = positive, .unit = "N",
+           .number = member<&Design::terminal, &TerminalDesign::thrust_N>,
+           .methods = powered_methods, .label = "Full thrust (built)",
+           .typical = {{2000, 20000}}, .placeholder = "from thrust-to-weight"},
+    KeyRow{.section = "terminal", .key = "propellant_loaded_kg", .need = KeyNeed::optional,
+           .range = positive, .unit = "kg",
+           .number = member<&Design::terminal, &TerminalDesign::propellant_loaded_kg>,
+           .methods = powered_methods, .label = "Propellant loaded (built)",
+           .typical = {{20, 300}}, .placeholder = "from the burn"},
+
+    // The limits: their defaults and sources are in core/checks/limits.hpp. The form labels
+    // them by their keys.
+    limit<&Limits::ballistic_coefficient_max_kg_m2>("ballistic_coefficient_max_kg_m2", "kg/m^2"),
+    limit<&Limits::aeroshell_diameter_max_m>("aeroshell_diameter_max_m", "m"),
+    limit<&Limits::heritage_half_angle_deg>("heritage_half_angle_deg", "deg"),
+    limit<&Limits::parachute_diameter_max_m>("parachute_diameter_max_m", "m"),
+    limit<&Limits::deploy_mach_max>("deploy_mach_max", ""),
+    limit<&Limits::deploy_dynamic_pressure_min_Pa>("deploy_dynamic_pressure_min_Pa", "Pa"),
+    limit<&Limits::deploy_dynamic_pressure_max_Pa>("deploy_dynamic_pressure_max_Pa", "Pa"),
+    limit<&Limits::peak_deceleration_max_g>("peak_deceleration_max_g", "g"),
+    limit<&Limits::peak_heat_flux_max_W_cm2>("peak_heat_flux_max_W_cm2", "W/cm^2"),
+    limit<&Limits::site_elevation_max_m>("site_elevation_max_m", "m"),
+    limit<&Limits::landed_mass_max_kg>("landed_mass_max_kg", "kg"),
+    limit<&Limits::touchdown_velocity_max_m_s>("touchdown_velocity_max_m_s", "m/s"),
+    limit<&Limits::airbag_impact_velocity_max_m_s>("airbag_impact_velocity_max_m_s", "m/s"),
+    limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s"),
+    // A marginal band is a fraction of the limit (our bound).
+    limit<&Limits::marginal_band>("marginal_band", "", fraction_of_one),
+
+    KeyRow{.section = "solver", .key = "relative_tolerance", .need = KeyNeed::defaulted,
+           .range = {.at_least = relative_tolerance_min, .at_most = relative_tolerance_max},
+           .number = member<&Design::solver, &SolverDesign::relative_tolerance>,
+           .label = "Relative tolerance"},
+    KeyRow{.section = "solver", .key = "max_time_s", .need = KeyNeed::defaulted,
+           .range = positive, .unit = "s",
+           .number = member<&Design::solver, &SolverDesign::max_time_s>,
+           .label = "Flight-time budget"},
+    KeyRow{.section = "solver", .key = "max_steps", .kind = KeyKind::integer,
+           .need = KeyNeed::defaulted, .range = {.above = 0.0, .at_most = max_steps_max},
+           .number = member<&Design::solver, &SolverDesign::max_steps>, .label = "Step budget"},
+};
+
+/// Which key each check points at: the input that moves its figure most directly.
+constexpr std::array checks{
+    CheckField{"aeroshell_sizing", "aeroshell.diameter_m.size_for_ballistic_coefficient_kg_m2"},
+    CheckField{"aeroshell_diameter", "aeroshell.diameter_m"},
+    CheckField{"ballistic_coefficient", "aeroshell.diameter_m"},
+    CheckField{"aeroshell_half_angle", "aeroshell.half_angle_deg"},
+    CheckField{"parachute_diameter", "parachute.diameter_m"},
+    CheckField{"parachute_sizing", "parachute.diameter_m.size_for_velocity_m_s"},
+    CheckField{"parachute_trigger", "parachute.deploy_mach"},
+    CheckField{"deploy_mach", "parachute.deploy_mach"},
+    CheckField{"deploy_dynamic_pressure_high", "parachute.deploy_mach"},
+    CheckField{"deploy_dynamic_pressure_low", "parachute.deploy_mach"},
+    CheckField{"peak_deceleration", "entry.flight_path_angle_deg"},
+    CheckField{"peak_heat_flux", "aeroshell.nose_radius_m"},
+    CheckField{"site_elevation", "site.elevation_m"},
+    CheckField{"landed_mass", "mass.items"},
+    CheckField{"mass_closure", "mass.items"},
+    CheckField{"mass_allocation", "mass.entry_kg"},
+    CheckField{"touchdown_velocity", "terminal.touchdown_velocity_m_s"},
+    CheckField{"airbag_impact_velocity", "terminal.release_height_m"},
+    CheckField{"terminal_burn", "terminal.thrust_to_weight"},
+    CheckField{"timeline_margin", "sequence.ground_sensing_lock_s"},
+    CheckField{"heat_shield_jettison", "sequence.heat_shield_jettison_delay_s"},
+    CheckField{"drop_mass", "parachute.mass_kg"},
+    CheckField{"propellant_load", "terminal.propellant_reserve_fraction"},
+    CheckField{"trajectory", "entry.flight_path_angle_deg"},
+};
+
+}  // namespace
+
+std::span<const SectionRow> design_sections() { return sections; }
+
+const SectionRow* find_section(std::string_view name) {
+    for (const SectionRow& section : sections) {
+        if (section.name == name)
+            return &section;
+    }
+    return nullptr;
+}
+
+std::span<const KeyRow> design_keys() { return keys; }
+
+std::vector<const KeyRow*> keys_of(std::string_view section) {
+    std::vector<const KeyRow*> rows;
+    for (const KeyRow& row : keys) {
+        if (row.section == section)
+            rows.push_back(&row);
+    }
+    return rows;
+}
+
+const KeyRow* find_key(std::string_view path) {
+    for (const KeyRow& row : keys) {
+        if (row.path() == path)
+            return &row;
+    }
+    return nullptr;
+}
+
+std::string label_of(const KeyRow& row) {
+    if (!row.label.empty())
+        return std::string(row.label);
+    std::string label(row.key);
+    std::replace(label.begin(), label.end(), '_', ' ');
+    return label;
+}
+
+std::span<const CheckField> check_fields() { return checks; }
+
+std::string_view key_of_check(std::string_view check_id) {
+    for (const CheckField& field : checks) {
+        if (field.check == check_id)
+            return field.key;
+    }
+    return {};
+}
+
+}  // namespace ds

@@ -1,0 +1,234 @@
+// The design form as the schema builds it, under the offscreen platform: a field for every
+// number key, choices from the core's name tables, shapes that rewrite the document with the
+// schema's fallbacks, and rows shown only where they apply.
+
+#include <QComboBox>
+#include <QTest>
+#include <QUndoStack>
+
+#include "body/body.hpp"
+#include "design/key_path.hpp"
+#include "design/schema.hpp"
+#include "model/design_document.hpp"
+#include "parachute/canopy.hpp"
+#include "views/design_form.hpp"
+#include "views/quantity_edit.hpp"
+
+using namespace ds;
+
+namespace {
+
+const QString sample = QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/small-ballistic-station.json");
+
+using Json = DesignDocument::Json;
+
+QComboBox* shape(const DesignForm& form, const QString& name) {
+    return form.findChild<QComboBox*>(name);
+}
+
+/// Clears the field, types `text` and presses Enter, as a user would.
+void type(QuantityEdit* edit, const QString& text) {
+    edit->selectAll();
+    QTest::keyClick(edit, Qt::Key_Backspace);
+    QTest::keyClicks(edit, text);
+    QTest::keyClick(edit, Qt::Key_Return);
+}
+
+bool shown(const DesignForm& form, const std::string& pointer) {
+    QWidget* field = form.fieldFor(pointer);
+    return field && field->isVisibleTo(&form);
+}
+
+}  // namespace
+
+class DesignFormTest : public QObject {
+    Q_OBJECT
+private slots:
+    void everyNumberKeyOfTheShownObjectsHasAField() {
+        DesignDocument document;
+        QString error;
+        QVERIFY2(document.open(sample, &error), qPrintable(error));
+        DesignForm form(&document);
+        int fields = 0;
+        for (const std::string_view section : {"site", "atmosphere", "entry", "aeroshell", "mass",
+                                               "decelerator", "parachute", "sequence", "terminal",
+                                               "limits"}) {
+            for (const KeyRow* key : keys_of(section)) {
+                if (key->kind != KeyKind::number && key->kind != KeyKind::number_or_request)
+                    continue;
+                const std::string pointer = key_to_pointer(key->path());
+                QVERIFY2(form.fieldFor(pointer), pointer.c_str());
+                ++fields;
+            }
+        }
+        QVERIFY(fields > 50);
+    }
+
+    void fieldsRefuseWhatTheReaderRefuses() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        // The flight-path angle's bounds are exclusive (schema: above -90, below 90).
+        auto* angle = qobject_cast<QuantityEdit*>(form.fieldFor("/entry/flight_path_angle_deg"));
+        QVERIFY(angle);
+        type(angle, "-90");
+        QVERIFY(!angle->errorText().isEmpty());
+        QCOMPARE(document.value("/entry/flight_path_angle_deg").get<double>(), -13.0);
+        type(angle, "-89.5");
+        QVERIFY(angle->errorText().isEmpty());
+        QCOMPARE(document.value("/entry/flight_path_angle_deg").get<double>(), -89.5);
+        // The marginal band is a fraction below one.
+        auto* band = qobject_cast<QuantityEdit*>(form.fieldFor("/limits/marginal_band"));
+        QVERIFY(band);
+        type(band, "1");
+        QVERIFY(!band->errorText().isEmpty());
+        QVERIFY(document.value("/limits/marginal_band").is_null());
+        QCOMPARE(band->placeholderText(), QString("0.1"));
+    }
+
+    void choicesComeFromTheCoresNameTables() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        auto* body = qobject_cast<QComboBox*>(form.fieldFor("/body"));
+        QVERIFY(body);
+        QCOMPARE(body->count(), static_cast<int>(body_preset_names().size()));
+        QCOMPARE(body->currentText(), QString("Mars"));
+        auto* canopy = qobject_cast<QComboBox*>(form.fieldFor("/parachute/type"));
+        QVERIFY(canopy);
+        QCOMPARE(canopy->count(), static_cast<int>(canopy_types().size()));
+        QCOMPARE(canopy->currentText(), QString("disk-gap-band"));
+    }
+
+    void theDeceleratorTakesEveryTrigger() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        QVERIFY(!shown(form, "/decelerator/diameter_m"));
+        QComboBox* presence = shape(form, "/decelerator#presence");
+        QVERIFY(presence);
+        presence->setCurrentIndex(1);
+        QVERIFY(document.value("/decelerator") ==
+                (Json{{"diameter_m", 6.0}, {"drag_coefficient", 1.3}, {"deploy_mach", 3.0}}));
+        QVERIFY(document.design().has_value());
+        QVERIFY(shown(form, "/decelerator/deploy_mach"));
+        QVERIFY(!shown(form, "/decelerator/deploy_dynamic_pressure_Pa"));
+
+        QComboBox* trigger = shape(form, "/decelerator#deploy trigger");
+        QVERIFY(trigger);
+        QCOMPARE(trigger->count(), 3);
+        trigger->setCurrentIndex(1);
+        QVERIFY(document.value("/decelerator/deploy_mach").is_null());
+        QCOMPARE(document.value("/decelerator/deploy_dynamic_pressure_Pa").get<double>(), 2500.0);
+        QVERIFY(!shown(form, "/decelerator/deploy_mach"));
+        QVERIFY(shown(form, "/decelerator/deploy_dynamic_pressure_Pa"));
+        QVERIFY(document.design().has_value());
+        QCOMPARE(document.design()->decelerator->trigger, TriggerKind::dynamic_pressure);
+
+        trigger->setCurrentIndex(2);
+        QCOMPARE(document.value("/decelerator/deploy_altitude_m").get<double>(), 20000.0);
+        QCOMPARE(document.design()->decelerator->trigger, TriggerKind::altitude);
+        // The parachute's trigger is its own.
+        QCOMPARE(document.value("/parachute/deploy_mach").get<double>(), 1.8);
+
+        presence->setCurrentIndex(0);
+        QVERIFY(document.value("/decelerator").is_null());
+        QVERIFY(!shown(form, "/decelerator/deploy_altitude_m"));
+    }
+
+    void changingTheMethodKeepsOnlyItsKeys() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        QComboBox* method = shape(form, "/terminal/method");
+        QVERIFY(method);
+        QCOMPARE(method->currentIndex(), 0);  // retro
+        QVERIFY(shown(form, "/terminal/thrust_N"));
+        QVERIFY(!shown(form, "/terminal/release_height_m"));
+
+        method->setCurrentIndex(3);  // none: land on the canopy
+        QVERIFY(document.value("/terminal/method") == Json("none"));
+        QVERIFY(document.value("/terminal/isp_s").is_null());
+        QVERIFY(document.value("/terminal/thrust_to_weight").is_null());
+        QCOMPARE(document.value("/terminal/touchdown_velocity_m_s").get<double>(), 2.0);
+        QVERIFY(!shown(form, "/terminal/isp_s"));
+        QVERIFY(shown(form, "/terminal/touchdown_velocity_m_s"));
+        QVERIFY(document.design().has_value());
+
+        method->setCurrentIndex(1);  // airbag: the engine's fallbacks come back
+        QCOMPARE(document.value("/terminal/isp_s").get<double>(), 220.0);
+        QCOMPARE(document.value("/terminal/thrust_to_weight").get<double>(), 2.5);
+        QVERIFY(shown(form, "/terminal/release_height_m"));
+        QVERIFY(document.design().has_value());
+
+        document.undoStack()->undo();
+        document.undoStack()->undo();
+        QCOMPARE(document.value("/terminal/isp_s").get<double>(), 220.0);
+        QVERIFY(document.value("/terminal/method") == Json("retro"));
+        QCOMPARE(method->currentIndex(), 0);
+    }
+
+    void aModelTheFormCannotFillIsLeftToTheFile() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        QComboBox* model = shape(form, "/atmosphere/model");
+        QVERIFY(model);
+        model->setCurrentIndex(1);  // the body's standard model
+        QVERIFY(document.value("/atmosphere/model") == Json("standard"));
+        QVERIFY(document.value("/atmosphere/scale_height_m").is_null());
+        QVERIFY(!shown(form, "/atmosphere/scale_height_m"));
+        model->setCurrentIndex(2);  // a table: its rows come from the file
+        QVERIFY(document.value("/atmosphere/model") == Json("standard"));
+        QCOMPARE(model->currentIndex(), 1);
+        model->setCurrentIndex(0);
+        QCOMPARE(document.value("/atmosphere/scale_height_m").get<double>(), 11100.0);
+        QVERIFY(document.design().has_value());
+    }
+
+    void sizingRequestsAndTheJettisonRuleSwitchShape() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        shape(form, "/parachute/diameter_m#sizing")->setCurrentIndex(1);
+        QVERIFY(document.value("/parachute/diameter_m") ==
+                (Json{{"size_for_velocity_m_s", 70.0}, {"at_height_above_site_m", 2000.0}}));
+        QVERIFY(shown(form, "/parachute/diameter_m/at_height_above_site_m"));
+        QVERIFY(!shown(form, "/parachute/diameter_m"));
+
+        QVERIFY(shown(form, "/sequence/heat_shield_jettison_delay_s"));  // its default applies
+        shape(form, "/sequence#heat-shield jettison rule")->setCurrentIndex(1);
+        QCOMPARE(document.value("/sequence/heat_shield_jettison_dynamic_pressure_Pa").get<double>(), 100.0);
+        QVERIFY(!shown(form, "/sequence/heat_shield_jettison_delay_s"));
+        shape(form, "/sequence#heat-shield jettison rule")->setCurrentIndex(0);
+        QVERIFY(document.value("/sequence/heat_shield_jettison_dynamic_pressure_Pa").is_null());
+        QCOMPARE(document.value("/sequence/heat_shield_jettison_delay_s").get<double>(), 20.0);
+        QVERIFY(document.design().has_value());
+    }
+
+    void everyCheckPointsAtAField() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        for (const CheckField& check : check_fields()) {
+            const std::string pointer = key_to_pointer(check.key);
+            QVERIFY2(form.fieldFor(pointer), pointer.c_str());
+        }
+        // A deploy check names the Mach trigger; a design deploying on dynamic pressure is taken
+        // to the trigger it gives.
+        form.show();
+        shape(form, "/parachute#deploy trigger")->setCurrentIndex(1);
+        QVERIFY(form.focusField("/parachute/deploy_mach"));
+        QTRY_VERIFY(form.fieldFor("/parachute/deploy_dynamic_pressure_Pa")->hasFocus());
+    }
+};
+
+QTEST_MAIN(DesignFormTest)
+#include "test_design_form.moc"
