@@ -1,5 +1,6 @@
 #include "trade_commands.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <fstream>
@@ -13,10 +14,8 @@
 #include "design/reader.hpp"
 #include "results/key_figures.hpp"
 #include "results/writer.hpp"
-#include "trade/dispersion.hpp"
-#include "trade/sensitivity.hpp"
+#include "trade/study.hpp"
 #include "trade/success_probability.hpp"
-#include "trade/sweep.hpp"
 #include "trade/trade_csv.hpp"
 
 namespace ds {
@@ -57,11 +56,37 @@ std::optional<Design> readDesign(const std::string& path) {
     return read.design;
 }
 
-/// The design file's own document, key for key, for its variants.
-DesignVariants variantsOf(const std::string& path) {
+/// A design file a study runs on: its document key for key, and the design read from it.
+struct StudyDesign {
+    std::string path;
+    Json document;
+    Design design;
+};
+
+std::optional<StudyDesign> readStudyDesign(const std::string& path) {
+    auto design = readDesign(path);
+    if (!design) return std::nullopt;
     std::ifstream in(path);
-    return {Json::parse(in), std::filesystem::path(path).parent_path()};
+    return StudyDesign{path, Json::parse(in), std::move(*design)};
 }
+
+/// Runs a study of the design file; prints why when it cannot run.
+std::optional<StudyOutcome> runStudyOn(const StudyDesign& file, const StudyRequest& request,
+                                       unsigned threads) {
+    Unwatched progress;
+    StudyOutcome outcome = run_study(request, file.document, file.design,
+                                     std::filesystem::path(file.path).parent_path(), threads, progress);
+    if (!outcome.error.empty()) {
+        fmt::print(stderr, "{}: {}\n", file.path, outcome.error);
+        return std::nullopt;
+    }
+    return outcome;
+}
+
+/// How a command prints its study: --json wins over --csv, text without either.
+enum class Format { text, json, csv };
+
+Format formatOf(bool json, bool csv) { return json ? Format::json : csv ? Format::csv : Format::text; }
 
 std::string valueText(const std::optional<double>& v, int decimals) {
     return v ? fmt::format("{:.{}f}", *v, decimals) : std::string("-");
@@ -69,73 +94,77 @@ std::string valueText(const std::optional<double>& v, int decimals) {
 
 std::string_view statusName(CheckStatus s) { return to_string(s); }
 
-int printSweep(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>& cases,
-               bool json, bool csv) {
-    if (json) {
-        Json rows = Json::array();
-        for (const SweepCase& c : cases) {
-            Json row;
-            Json inputs;
-            for (std::size_t a = 0; a < axes.size(); ++a) inputs[axes[a].key] = c.inputs[a];
-            row["inputs"] = inputs;
-            if (!c.results) {
-                row["error"] = c.error;
-                row["worst_status"] = "fail";
-                row["worst_check"] = "design";
-                row["feasibility_margin"] = nullptr;
-                row["margin_check"] = "design";
-            } else {
-                const Json r = results_to_json(*c.results);
-                for (const char* section : {"entry", "parachute", "terminal", "mass", "capability"}) {
-                    row[section] = r[section];
-                }
-                row["mass"].erase("items");
-                const WorstCheck worst = worst_check(*c.results);
-                row["worst_status"] = statusName(worst.status);
-                row["worst_check"] = worst.id;
-                const FeasibilityMargin margin = feasibility_margin(*c.results);
-                row["feasibility_margin"] = margin.margin ? Json(*margin.margin) : Json();
-                row["margin_check"] = margin.id;
+Json sweepJson(const StudyOutcome& outcome) {
+    const std::vector<SweepAxis>& axes = outcome.request.axes;
+    Json rows = Json::array();
+    for (const SweepCase& c : outcome.sweep) {
+        Json row;
+        Json inputs;
+        for (std::size_t a = 0; a < axes.size(); ++a) inputs[axes[a].key] = c.inputs[a];
+        row["inputs"] = inputs;
+        if (!c.results) {
+            row["error"] = c.error;
+            row["worst_status"] = "fail";
+            row["worst_check"] = "design";
+            row["feasibility_margin"] = nullptr;
+            row["margin_check"] = "design";
+        } else {
+            const Json r = results_to_json(*c.results);
+            for (const char* section : {"entry", "parachute", "terminal", "mass", "capability"}) {
+                row[section] = r[section];
             }
-            rows.push_back(row);
+            row["mass"].erase("items");
+            const WorstCheck worst = worst_check(*c.results);
+            row["worst_status"] = statusName(worst.status);
+            row["worst_check"] = worst.id;
+            const FeasibilityMargin margin = feasibility_margin(*c.results);
+            row["feasibility_margin"] = margin.margin ? Json(*margin.margin) : Json();
+            row["margin_check"] = margin.id;
         }
-        fmt::print("{}\n", Json{{"rows", rows}}.dump(2));
-        return 0;
+        rows.push_back(row);
     }
-    if (csv) {
-        fmt::print("{}", sweep_csv(axes, cases));
-        return 0;
-    }
-    const std::vector<KeyFigure> header = key_figures(Results{});
-    // A readable table of the figures a trade is usually about.
-    const std::vector<std::string> shown{"ballistic_coefficient", "peak_deceleration",
-                                         "peak_heat_flux",        "deploy_mach",
-                                         "deploy_altitude",       "propellant",
-                                         "timeline_margin",       "landed_mass"};
+    return Json{{"rows", rows}};
+}
+
+/// A readable table of the figures a trade is usually about.
+void printSweepTable(const StudyOutcome& outcome) {
+    const std::vector<std::string_view> shown{"ballistic_coefficient", "peak_deceleration",
+                                              "peak_heat_flux",        "deploy_mach",
+                                              "deploy_altitude",       "propellant",
+                                              "timeline_margin",       "landed_mass"};
+    const auto isShown = [&](const KeyFigureDefinition& f) {
+        return std::find(shown.begin(), shown.end(), f.id) != shown.end();
+    };
     std::string head;
-    for (const SweepAxis& a : axes) head += fmt::format("{:>26} ", a.key);
-    for (const KeyFigure& f : header) {
-        if (std::find(shown.begin(), shown.end(), f.id) != shown.end()) {
-            head += fmt::format("{:>14} ", f.id.substr(0, 14));
-        }
+    for (const SweepAxis& a : outcome.request.axes) head += fmt::format("{:>26} ", a.key);
+    for (const KeyFigureDefinition& f : key_figure_table) {
+        if (isShown(f)) head += fmt::format("{:>14} ", f.id.substr(0, 14));
     }
     fmt::print("{}  worst\n", head);
-    for (const SweepCase& c : cases) {
+    for (const SweepCase& c : outcome.sweep) {
         std::string line;
         for (const double v : c.inputs) line += fmt::format("{:>26.6g} ", v);
         if (!c.results) {
             fmt::print("{}  cannot be read: {}\n", line, c.error);
             continue;
         }
-        for (const KeyFigure& f : key_figures(*c.results)) {
-            if (std::find(shown.begin(), shown.end(), f.id) != shown.end()) {
-                line += fmt::format("{:>14} ", valueText(f.value, f.decimals));
+        const std::vector<std::optional<double>> values = key_figure_values(*c.results);
+        for (std::size_t i = 0; i < key_figure_table.size(); ++i) {
+            if (isShown(key_figure_table[i])) {
+                line += fmt::format("{:>14} ", valueText(values[i], key_figure_table[i].decimals));
             }
         }
         const WorstCheck w = worst_check(*c.results);
         fmt::print("{}  {} {}\n", line, statusName(w.status), w.id);
     }
-    return 0;
+}
+
+void printSweep(const StudyOutcome& outcome, Format format) {
+    switch (format) {
+        case Format::json: fmt::print("{}\n", sweepJson(outcome).dump(2)); break;
+        case Format::csv: fmt::print("{}", outcome.csv()); break;
+        case Format::text: printSweepTable(outcome); break;
+    }
 }
 
 void printSummary(const DispersionSummary& s) {
@@ -156,21 +185,161 @@ void printSummary(const DispersionSummary& s) {
     }
 }
 
+
+/// A campaign (a dispersion run, a shard of one or merged shards) and its summary.
+void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& summary,
+                   Format format) {
+    switch (format) {
+        case Format::json:
+            fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
+                                    {"campaign", campaign_to_json(campaign)}}.dump(1));
+            break;
+        case Format::csv: fmt::print("{}", campaign_csv(campaign)); break;
+        case Format::text:
+            if (campaign.shard_count > 1) {
+                fmt::print("shard {}/{} of the campaign (merge the --json outputs for the "
+                           "whole)\n", campaign.shard_index, campaign.shard_count);
+            }
+            printSummary(summary);
+            break;
+    }
+}
+
+Json sensitivityJson(const SensitivityTable& table) {
+    Json matrix = Json::array();
+    for (Eigen::Index f = 0; f < table.normalized.rows(); ++f) {
+        Json row = Json::array();
+        for (Eigen::Index i = 0; i < table.normalized.cols(); ++i) {
+            const double s = table.normalized(f, i);
+            row.push_back(std::isfinite(s) ? Json(s) : Json());
+        }
+        matrix.push_back(row);
+    }
+    return Json{{"relative_step", sensitivity_relative_step},
+                {"inputs", table.inputs},
+                {"figures", table.figures},
+                {"normalized", matrix}};
+}
+
+void printSensitivityRanking(const SensitivityTable& table) {
+    fmt::print("Normalised sensitivities d(ln figure)/d(ln input), central differences "
+               "of {} relative; the five largest per figure.\n",
+               sensitivity_relative_step);
+    for (std::size_t f = 0; f < table.figures.size(); ++f) {
+        const auto ranked = table.ranked(f);
+        if (ranked.empty()) continue;
+        fmt::print("\n{}\n", table.figures[f]);
+        for (std::size_t k = 0; k < std::min<std::size_t>(5, ranked.size()); ++k) {
+            fmt::print("  {:>+9.4f}  {}\n", ranked[k].second, ranked[k].first);
+        }
+    }
+}
+
+void printSensitivities(const StudyOutcome& outcome, Format format) {
+    switch (format) {
+        case Format::json: fmt::print("{}\n", sensitivityJson(*outcome.sensitivities).dump(2)); break;
+        case Format::csv: fmt::print("{}", outcome.csv()); break;
+        case Format::text: printSensitivityRanking(*outcome.sensitivities); break;
+    }
+}
+
+struct Options {
+    std::string design;
+    std::vector<std::string> vary;
+    bool json = false;
+    bool csv = false;
+    unsigned threads = 0;
+    std::size_t runs = 1000;
+    std::uint64_t seed = 1;
+    std::string shard = "0/1";
+    std::vector<std::string> parts;
+    std::vector<std::string> inputs;
+};
+
+int sweepCommand(const Options& o) {
+    StudyRequest request;
+    request.kind = StudyKind::sweep;
+    for (const std::string& text : o.vary) {
+        std::string error;
+        const auto axis = parseAxis(text, &error);
+        if (!axis) {
+            fmt::print(stderr, "{}\n", error);
+            return exit_usage;
+        }
+        request.axes.push_back(*axis);
+    }
+    const auto file = readStudyDesign(o.design);
+    if (!file) return exit_unreadable;
+    const auto outcome = runStudyOn(*file, request, o.threads);
+    if (!outcome) return exit_unreadable;
+    printSweep(*outcome, formatOf(o.json, o.csv));
+    return 0;
+}
+
+int disperseCommand(const Options& o) {
+    const auto file = readStudyDesign(o.design);
+    if (!file) return exit_unreadable;
+    StudyRequest request;
+    request.kind = StudyKind::dispersions;
+    request.runs = o.runs;
+    request.seed = o.seed;
+    if (std::sscanf(o.shard.c_str(), "%zu/%zu", &request.shard_index, &request.shard_count) != 2 ||
+        request.shard_count == 0 || request.shard_index >= request.shard_count) {
+        fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o.shard);
+        return exit_usage;
+    }
+    if (file->design.dispersions.empty()) {
+        fmt::print(stderr, "{}: the design has no \"dispersions\"\n", o.design);
+        return exit_usage;
+    }
+    const auto outcome = runStudyOn(*file, request, o.threads);
+    if (!outcome) return exit_unreadable;
+    printCampaign(*outcome->campaign, outcome->summary, formatOf(o.json, o.csv));
+    return 0;
+}
+
+int mergeCommand(const Options& o) {
+    std::vector<DispersionCampaign> parts;
+    for (const std::string& path : o.parts) {
+        std::ifstream in(path);
+        std::string error;
+        std::optional<DispersionCampaign> part;
+        try {
+            const Json j = Json::parse(in);
+            part = campaign_from_json(j.contains("campaign") ? j.at("campaign") : j, &error);
+        } catch (const Json::exception& e) {
+            error = e.what();
+        }
+        if (!part) {
+            fmt::print(stderr, "{}: {}\n", path, error);
+            return exit_unreadable;
+        }
+        parts.push_back(std::move(*part));
+    }
+    auto [merged, error] = merge_campaigns(parts);
+    if (!merged) {
+        fmt::print(stderr, "{}\n", error);
+        return exit_unreadable;
+    }
+    printCampaign(*merged, summarize(*merged), formatOf(o.json, o.csv));
+    return 0;
+}
+
+int sensitivityCommand(const Options& o) {
+    const auto file = readStudyDesign(o.design);
+    if (!file) return exit_unreadable;
+    StudyRequest request;
+    request.kind = StudyKind::sensitivities;
+    request.inputs = o.inputs;
+    const auto outcome = runStudyOn(*file, request, o.threads);
+    if (!outcome) return exit_unreadable;
+    printSensitivities(*outcome, formatOf(o.json, o.csv));
+    return 0;
+}
+
 }  // namespace
 
 std::function<int()> addTradeCommands(CLI::App& app) {
-    struct Options {
-        std::string design;
-        std::vector<std::string> vary;
-        bool json = false;
-        bool csv = false;
-        unsigned threads = 0;
-        std::size_t runs = 1000;
-        std::uint64_t seed = 1;
-        std::string shard = "0/1";
-        std::vector<std::string> parts;
-        std::vector<std::string> inputs;
-    };
     auto o = std::make_shared<Options>();
 
     CLI::App* sweep = app.add_subcommand("sweep", "Size a design over one or two varied keys");
@@ -208,128 +377,10 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     sensitivity->add_option("--threads", o->threads, "Threads (default: one per core)");
 
     return [=]() -> int {
-        if (*sweep) {
-            std::vector<SweepAxis> axes;
-            for (const std::string& text : o->vary) {
-                std::string error;
-                const auto axis = parseAxis(text, &error);
-                if (!axis) {
-                    fmt::print(stderr, "{}\n", error);
-                    return exit_usage;
-                }
-                axes.push_back(*axis);
-            }
-            const auto design = readDesign(o->design);
-            if (!design) return exit_unreadable;
-            return printSweep(axes, run_sweep(variantsOf(o->design), axes, o->threads), o->json,
-                              o->csv);
-        }
-        if (*disperse) {
-            const auto design = readDesign(o->design);
-            if (!design) return exit_unreadable;
-            DispersionSettings settings;
-            settings.runs = o->runs;
-            settings.seed = o->seed;
-            settings.threads = o->threads;
-            if (std::sscanf(o->shard.c_str(), "%zu/%zu", &settings.shard_index, &settings.shard_count) != 2 ||
-                settings.shard_count == 0 || settings.shard_index >= settings.shard_count) {
-                fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o->shard);
-                return exit_usage;
-            }
-            if (design->dispersions.empty()) {
-                fmt::print(stderr, "{}: the design has no \"dispersions\"\n", o->design);
-                return exit_usage;
-            }
-            auto [campaign, error] = run_dispersions(*design, std::filesystem::path(o->design).parent_path(), settings);
-            if (!campaign) {
-                fmt::print(stderr, "{}: {}\n", o->design, error);
-                return exit_unreadable;
-            }
-            const DispersionSummary summary = summarize(*campaign);
-            if (o->json) {
-                fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
-                                        {"campaign", campaign_to_json(*campaign)}}.dump(1));
-            } else if (o->csv) {
-                fmt::print("{}", campaign_csv(*campaign));
-            } else {
-                if (settings.shard_count > 1) {
-                    fmt::print("shard {}/{} of the campaign (merge the --json outputs for the "
-                               "whole)\n", settings.shard_index, settings.shard_count);
-                }
-                printSummary(summary);
-            }
-            return 0;
-        }
-        if (*merge) {
-            std::vector<DispersionCampaign> parts;
-            for (const std::string& path : o->parts) {
-                std::ifstream in(path);
-                std::string error;
-                std::optional<DispersionCampaign> part;
-                try {
-                    const Json j = Json::parse(in);
-                    part = campaign_from_json(j.contains("campaign") ? j.at("campaign") : j, &error);
-                } catch (const Json::exception& e) {
-                    error = e.what();
-                }
-                if (!part) {
-                    fmt::print(stderr, "{}: {}\n", path, error);
-                    return exit_unreadable;
-                }
-                parts.push_back(std::move(*part));
-            }
-            auto [merged, error] = merge_campaigns(parts);
-            if (!merged) {
-                fmt::print(stderr, "{}\n", error);
-                return exit_unreadable;
-            }
-            const DispersionSummary summary = summarize(*merged);
-            if (o->json) {
-                fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
-                                        {"campaign", campaign_to_json(*merged)}}.dump(1));
-            } else if (o->csv) {
-                fmt::print("{}", campaign_csv(*merged));
-            } else {
-                printSummary(summary);
-            }
-            return 0;
-        }
-        if (*sensitivity) {
-            if (!readDesign(o->design)) return exit_unreadable;
-            const SensitivityTable table = sensitivities(variantsOf(o->design), o->inputs, o->threads);
-            if (o->json) {
-                Json matrix = Json::array();
-                for (Eigen::Index f = 0; f < table.normalized.rows(); ++f) {
-                    Json row = Json::array();
-                    for (Eigen::Index i = 0; i < table.normalized.cols(); ++i) {
-                        const double s = table.normalized(f, i);
-                        row.push_back(std::isfinite(s) ? Json(s) : Json());
-                    }
-                    matrix.push_back(row);
-                }
-                fmt::print("{}\n", Json{{"relative_step", sensitivity_relative_step},
-                                        {"inputs", table.inputs},
-                                        {"figures", table.figures},
-                                        {"normalized", matrix}}.dump(2));
-                return 0;
-            }
-            if (o->csv) {
-                fmt::print("{}", sensitivity_csv(table));
-                return 0;
-            }
-            fmt::print("Normalised sensitivities d(ln figure)/d(ln input), central differences "
-                       "of {} relative; the five largest per figure.\n",
-                       sensitivity_relative_step);
-            for (std::size_t f = 0; f < table.figures.size(); ++f) {
-                const auto ranked = table.ranked(f);
-                if (ranked.empty()) continue;
-                fmt::print("\n{}\n", table.figures[f]);
-                for (std::size_t k = 0; k < std::min<std::size_t>(5, ranked.size()); ++k) {
-                    fmt::print("  {:>+9.4f}  {}\n", ranked[k].second, ranked[k].first);
-                }
-            }
-            return 0;
-        }
+        if (*sweep) return sweepCommand(*o);
+        if (*disperse) return disperseCommand(*o);
+        if (*merge) return mergeCommand(*o);
+        if (*sensitivity) return sensitivityCommand(*o);
         return -1;
     };
 }

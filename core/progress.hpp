@@ -13,4 +13,11 @@ public:
     virtual bool cancelled() const = 0;
 };
 
+/// Work nobody watches or stops (the command line's).
+class Unwatched final : public Progress {
+public:
+    void report(double) override {}
+    bool cancelled() const override { return false; }
+};
+
 }  // namespace ds

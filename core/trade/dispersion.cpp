@@ -70,9 +70,9 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     campaign.shard_index = settings.shard_index;
     campaign.shard_count = std::max<std::size_t>(settings.shard_count, 1);
     campaign.dispersions = design.dispersions;
-    for (const KeyFigure& f : key_figures(Results{})) {
-        campaign.figure_ids.push_back(f.id);
-        campaign.figure_units.push_back(f.unit);
+    for (const KeyFigureDefinition& f : key_figure_table) {
+        campaign.figure_ids.emplace_back(f.id);
+        campaign.figure_units.emplace_back(f.unit);
     }
     std::vector<std::size_t> indices;
     for (std::size_t i = campaign.shard_index; i < settings.runs; i += campaign.shard_count) {
@@ -99,7 +99,7 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
             return;
         }
         const Results r = size_design(*read.design, {false, false});
-        for (const KeyFigure& f : key_figures(r)) c.figures.push_back(f.value);
+        c.figures = key_figure_values(r);
         for (const Check& check : r.checks) {
             if (check.status == CheckStatus::fail) c.failed_checks.push_back(check.id);
         }

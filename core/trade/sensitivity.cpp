@@ -17,12 +17,8 @@ constexpr double undefined = std::numeric_limits<double>::quiet_NaN();
 std::vector<std::optional<double>> figures_of(const DesignVariants& design,
                                               const std::vector<std::pair<std::string, double>>& values) {
     const DesignReadResult read = design.with(values);
-    std::vector<std::optional<double>> out;
-    if (!read.ok()) return out;
-    for (const KeyFigure& f : key_figures(size_design(*read.design, {true, false}))) {
-        out.push_back(f.value);
-    }
-    return out;
+    if (!read.ok()) return {};
+    return key_figure_values(size_design(*read.design, {true, false}));
 }
 
 }  // namespace
@@ -43,7 +39,7 @@ SensitivityTable sensitivities(const DesignVariants& design, std::vector<std::st
                                unsigned threads, Progress* progress) {
     SensitivityTable table;
     table.inputs = inputs.empty() ? design.numeric_keys() : std::move(inputs);
-    for (const KeyFigure& f : key_figures(Results{})) table.figures.push_back(f.id);
+    for (const KeyFigureDefinition& f : key_figure_table) table.figures.emplace_back(f.id);
     const auto nominal = figures_of(design, {});
     const auto n_in = static_cast<Eigen::Index>(table.inputs.size());
     const auto n_out = static_cast<Eigen::Index>(table.figures.size());

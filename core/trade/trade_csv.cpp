@@ -46,10 +46,9 @@ private:
 }  // namespace
 
 std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>& cases) {
-    const std::vector<KeyFigure> figures = key_figures(Results{});
     Row head;
     for (const SweepAxis& a : axes) head << a.key;
-    for (const KeyFigure& f : figures) head << f.id;
+    for (const KeyFigureDefinition& f : key_figure_table) head << std::string(f.id);
     head << std::string("worst_status") << std::string("worst_check")
          << std::string("feasibility_margin") << std::string("margin_check");
     std::string out = head.line();
@@ -57,12 +56,12 @@ std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<Swee
         Row row;
         for (const double v : c.inputs) row << v;
         if (c.results) {
-            for (const KeyFigure& f : key_figures(*c.results)) row << f.value;
+            for (const std::optional<double>& value : key_figure_values(*c.results)) row << value;
             const WorstCheck worst = worst_check(*c.results);
             const FeasibilityMargin margin = feasibility_margin(*c.results);
             row << std::string(to_string(worst.status)) << worst.id << margin.margin << margin.id;
         } else {
-            for (std::size_t i = 0; i < figures.size(); ++i) row << std::optional<double>{};
+            for (std::size_t i = 0; i < key_figure_table.size(); ++i) row << std::optional<double>{};
             row << std::string("fail") << std::string("design") << std::optional<double>{}
                 << std::string("design");
         }

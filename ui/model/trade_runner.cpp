@@ -1,59 +1,14 @@
 #include "model/trade_runner.hpp"
 
 #include <atomic>
-#include <chrono>
 
 #include <QtConcurrent/QtConcurrentRun>
-
-#include "trade/design_variants.hpp"
-#include "trade/trade_csv.hpp"
 
 namespace ds {
 namespace {
 
 /// Often enough for a smooth bar, rarely enough to cost nothing.
 constexpr int progressPollMs = 50;
-
-TradeOutcome runStudy(const TradeRequest& request, const nlohmann::ordered_json& document,
-                      const Design& design, const std::filesystem::path& baseDirectory,
-                      Progress* progress) {
-    const auto start = std::chrono::steady_clock::now();
-    TradeOutcome outcome;
-    outcome.request = request;
-    outcome.design = design;
-    switch (request.kind) {
-        case TradeKind::sweep: {
-            const DesignVariants variants(document, baseDirectory);
-            for (const SweepAxis& axis : request.axes) outcome.nominal.push_back(variants.value(axis.key));
-            outcome.sweep = run_sweep(variants, request.axes, 0, progress);
-            break;
-        }
-        case TradeKind::dispersions: {
-            if (design.dispersions.empty()) {
-                outcome.error = "the design declares no dispersions: add some under \"dispersions\"";
-                break;
-            }
-            DispersionSettings settings;
-            settings.runs = request.runs;
-            settings.seed = request.seed;
-            settings.progress = progress;
-            auto [campaign, error] = run_dispersions(design, baseDirectory, settings);
-            outcome.error = error;
-            if (campaign) {
-                outcome.summary = summarize(*campaign);
-                outcome.campaign = std::move(campaign);
-            }
-            break;
-        }
-        case TradeKind::sensitivities:
-            outcome.sensitivities =
-                sensitivities(DesignVariants(document, baseDirectory), {}, 0, progress);
-            break;
-    }
-    outcome.seconds =
-        std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-    return outcome;
-}
 
 }  // namespace
 
@@ -71,39 +26,6 @@ private:
     std::atomic<bool> m_cancelled{false};
 };
 
-QString TradeOutcome::description() const {
-    switch (request.kind) {
-        case TradeKind::sweep: {
-            QStringList axes;
-            for (const SweepAxis& a : request.axes) {
-                axes << QStringLiteral("%1 from %2 to %3 (%4 values)")
-                            .arg(QString::fromStdString(a.key))
-                            .arg(a.from)
-                            .arg(a.to)
-                            .arg(a.count);
-            }
-            return QStringLiteral("Sweep of %1").arg(axes.join(QStringLiteral(" and ")));
-        }
-        case TradeKind::dispersions:
-            return QStringLiteral("Dispersions: %1 cases from seed %2")
-                .arg(request.runs)
-                .arg(request.seed);
-        case TradeKind::sensitivities:
-            return QStringLiteral("Normalised sensitivities of the key figures");
-    }
-    return {};
-}
-
-std::string TradeOutcome::csv() const {
-    switch (request.kind) {
-        case TradeKind::sweep: return sweep_csv(request.axes, sweep);
-        case TradeKind::dispersions: return campaign ? campaign_csv(*campaign) : std::string();
-        case TradeKind::sensitivities:
-            return sensitivities ? sensitivity_csv(*sensitivities) : std::string();
-    }
-    return {};
-}
-
 TradeRunner::TradeRunner(QObject* parent) : QObject(parent) {
     m_poll.setInterval(progressPollMs);
     connect(&m_poll, &QTimer::timeout, this, &TradeRunner::poll);
@@ -115,7 +37,7 @@ TradeRunner::~TradeRunner() {
     m_watcher.waitForFinished();
 }
 
-void TradeRunner::start(const TradeRequest& request, const nlohmann::ordered_json& document,
+void TradeRunner::start(const StudyRequest& request, const nlohmann::ordered_json& document,
                         const Design& design, const std::filesystem::path& baseDirectory) {
     cancel();
     m_progress = std::make_shared<SharedProgress>();
@@ -124,7 +46,7 @@ void TradeRunner::start(const TradeRequest& request, const nlohmann::ordered_jso
     // again while it finishes.
     m_watcher.setFuture(QtConcurrent::run(
         [request, document, design, baseDirectory, progress = m_progress] {
-            return runStudy(request, document, design, baseDirectory, progress.get());
+            return TradeOutcome{run_study(request, document, design, baseDirectory, 0, *progress)};
         }));
     m_poll.start();
     emit progressed(0.0);

@@ -9,6 +9,8 @@ namespace {
 
 QString number(double value, int decimals) { return QString::number(value, 'f', decimals); }
 
+QString text(std::string_view s) { return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size())); }
+
 }  // namespace
 
 FiguresView::FiguresView(QWidget* parent) : QTableWidget(0, 4, parent) {
@@ -21,27 +23,29 @@ FiguresView::FiguresView(QWidget* parent) : QTableWidget(0, 4, parent) {
 }
 
 void FiguresView::setResults(const Results& results, const Results* baseline) {
-    const std::vector<KeyFigure> figures = key_figures(results);
-    const std::vector<KeyFigure> before = baseline ? key_figures(*baseline) : std::vector<KeyFigure>{};
-    setRowCount(static_cast<int>(figures.size()));
+    const std::vector<std::optional<double>> values = key_figure_values(results);
+    const std::vector<std::optional<double>> before =
+        baseline ? key_figure_values(*baseline) : std::vector<std::optional<double>>{};
+    setRowCount(static_cast<int>(key_figure_table.size()));
     setColumnHidden(3, baseline == nullptr);
-    for (std::size_t i = 0; i < figures.size(); ++i) {
-        const KeyFigure& f = figures[i];
+    for (std::size_t i = 0; i < key_figure_table.size(); ++i) {
+        const KeyFigureDefinition& f = key_figure_table[i];
+        const std::optional<double>& v = values[i];
         const int row = static_cast<int>(i);
-        auto* label = new QTableWidgetItem(QString::fromStdString(f.label));
-        label->setData(Qt::UserRole, QString::fromStdString(f.id));
+        auto* label = new QTableWidgetItem(text(f.label));
+        label->setData(Qt::UserRole, text(f.id));
         setItem(row, 0, label);
-        auto* value = new QTableWidgetItem(f.value ? number(*f.value, f.decimals) : QString("-"));
+        auto* value = new QTableWidgetItem(v ? number(*v, f.decimals) : QString("-"));
         value->setTextAlignment(Qt::AlignRight | Qt::AlignVCenter);
         setItem(row, 1, value);
-        setItem(row, 2, new QTableWidgetItem(QString::fromStdString(f.unit)));
+        setItem(row, 2, new QTableWidgetItem(text(f.unit)));
         QString change;
-        if (baseline && f.value && before[i].value) {
-            const double delta = *f.value - *before[i].value;
+        if (baseline && v && before[i]) {
+            const double delta = *v - *before[i];
             change = (delta >= 0 ? "+" : "") + number(delta, f.decimals);
-            if (*before[i].value != 0.0) {
+            if (*before[i] != 0.0) {
                 change += QString(" (%1%2 %)").arg(delta >= 0 ? "+" : "")
-                              .arg(100.0 * delta / std::abs(*before[i].value), 0, 'f', 1);
+                              .arg(100.0 * delta / std::abs(*before[i]), 0, 'f', 1);
             }
         }
         auto* changeItem = new QTableWidgetItem(change);

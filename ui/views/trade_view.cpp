@@ -57,6 +57,10 @@ const char* const defaultKeys[] = {"aeroshell.diameter_m", "entry.flight_path_an
 
 QString text(const std::string& s) { return QString::fromStdString(s); }
 
+QString text(std::string_view s) {
+    return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size()));
+}
+
 QChartView* chartView(QWidget* parent) {
     auto* view = new QChartView(new QChart, parent);
     view->setRenderHint(QPainter::Antialiasing);
@@ -68,13 +72,35 @@ QChartView* chartView(QWidget* parent) {
 
 TradeView::TradeView(DesignDocument* document, QWidget* parent)
     : QWidget(parent), m_document(document), m_runner(new TradeRunner(this)) {
+    QHBoxLayout* controls = buildControls();
+    m_axes[0] = addAxisRow(tr("Vary"), 0);
+    m_axes[1] = addAxisRow(tr("and"), 1);
+    buildDispersionRow();
+    m_status = new QLabel(this);
+    m_status->setWordWrap(true);
+    buildPages();
+
+    auto* layout = new QVBoxLayout(this);
+    layout->addLayout(controls);
+    layout->addWidget(m_axes[0].row);
+    layout->addWidget(m_axes[1].row);
+    layout->addWidget(m_dispersionRow);
+    layout->addWidget(m_status);
+    layout->addWidget(m_pages, 1);
+
+    connectControls();
+    connectRunner();
+    connect(m_document, &DesignDocument::changed, this, &TradeView::documentChanged);
+    documentChanged();
+    kindChanged();
+}
+
+QHBoxLayout* TradeView::buildControls() {
     m_kind = new QComboBox(this);
     m_kind->addItems({tr("Sweep one input"), tr("Sweep two inputs (feasibility map)"),
                       tr("Dispersions (Monte Carlo)"), tr("Sensitivities")});
     m_figure = new QComboBox(this);
-    for (const KeyFigure& f : key_figures(Results{})) {
-        m_figure->addItem(text(f.label), text(f.id));
-    }
+    for (const KeyFigureDefinition& f : key_figure_table) m_figure->addItem(text(f.label), text(f.id));
     m_figure->setCurrentIndex(m_figure->findData(QString::fromLatin1(defaultFigure)));
     m_run = new QPushButton(tr("&Run"), this);
     m_cancel = new QPushButton(tr("Cancel"), this);
@@ -96,10 +122,10 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     top->addWidget(m_cancel);
     top->addWidget(m_progress, 1);
     top->addWidget(m_export);
+    return top;
+}
 
-    m_axes[0] = addAxisRow(tr("Vary"), 0);
-    m_axes[1] = addAxisRow(tr("and"), 1);
-
+void TradeView::buildDispersionRow() {
     m_dispersionRow = new QWidget(this);
     auto* dispersion = new QGridLayout(m_dispersionRow);
     dispersion->setContentsMargins(0, 0, 0, 0);
@@ -111,7 +137,7 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     m_seed->setRange(0, std::numeric_limits<int>::max());
     m_seed->setValue(1);
     m_seed->setToolTip(tr("The same seed gives the same numbers, whatever the threads"));
-    m_dispersions = new DispersionTable(document, m_dispersionRow);
+    m_dispersions = new DispersionTable(m_document, m_dispersionRow);
     m_dispersions->setMaximumHeight(dispersionTableHeight);
     dispersion->addWidget(new QLabel(tr("Cases"), m_dispersionRow), 0, 0);
     dispersion->addWidget(m_runs, 0, 1);
@@ -120,10 +146,9 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     dispersion->addWidget(m_dispersions, 0, 2, 3, 1);
     dispersion->setColumnStretch(2, 1);
     dispersion->setRowStretch(2, 1);
+}
 
-    m_status = new QLabel(this);
-    m_status->setWordWrap(true);
-
+void TradeView::buildPages() {
     m_pages = new QStackedWidget(this);
     auto* intro = new QLabel(
         tr("Choose a study and press Run. A sweep sizes the design over one or two inputs; "
@@ -153,15 +178,9 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     m_pages->insertWidget(mapPage, m_map);
     m_pages->insertWidget(dispersionPage, dispersionResults);
     m_pages->insertWidget(sensitivityPage, m_sensitivity);
+}
 
-    auto* layout = new QVBoxLayout(this);
-    layout->addLayout(top);
-    layout->addWidget(m_axes[0].row);
-    layout->addWidget(m_axes[1].row);
-    layout->addWidget(m_dispersionRow);
-    layout->addWidget(m_status);
-    layout->addWidget(m_pages, 1);
-
+void TradeView::connectControls() {
     connect(m_kind, &QComboBox::currentIndexChanged, this, &TradeView::kindChanged);
     connect(m_figure, &QComboBox::currentIndexChanged, this, [this] {
         if (m_runner->outcome()) showOutcome();
@@ -175,6 +194,9 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
         QString error;
         if (!exportCsv(path, &error)) QMessageBox::warning(this, tr("Export trade study"), error);
     });
+}
+
+void TradeView::connectRunner() {
     connect(m_runner, &TradeRunner::progressed, this, [this](double fraction) {
         m_progress->setValue(static_cast<int>(std::lround(fraction * progressSteps)));
     });
@@ -186,10 +208,6 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
         m_status->setText(tr("Cancelled: the cases under way finish in the background and are "
                              "dropped."));
     });
-    connect(m_document, &DesignDocument::changed, this, &TradeView::documentChanged);
-
-    documentChanged();
-    kindChanged();
 }
 
 TradeView::AxisControls TradeView::addAxisRow(const QString& label, int index) {
@@ -314,10 +332,10 @@ bool TradeView::run() {
         m_status->setText(tr("The design has errors: correct them before a trade study."));
         return false;
     }
-    TradeRequest request;
+    StudyRequest request;
     const int kind = m_kind->currentIndex();
     if (kind == oneKeyIndex || kind == twoKeyIndex) {
-        request.kind = TradeKind::sweep;
+        request.kind = StudyKind::sweep;
         const DesignVariants variants(m_document->json(), m_document->baseDirectory());
         for (int i = 0; i < (kind == twoKeyIndex ? 2 : 1); ++i) {
             const AxisControls& axis = m_axes[i];
@@ -349,11 +367,11 @@ bool TradeView::run() {
                                  "the table first."));
             return false;
         }
-        request.kind = TradeKind::dispersions;
+        request.kind = StudyKind::dispersions;
         request.runs = static_cast<std::size_t>(m_runs->value());
         request.seed = static_cast<std::uint64_t>(m_seed->value());
     } else {
-        request.kind = TradeKind::sensitivities;
+        request.kind = StudyKind::sensitivities;
     }
     m_runner->start(request, m_document->json(), *design, m_document->baseDirectory());
     m_run->setEnabled(false);
@@ -399,7 +417,7 @@ void TradeView::showOutcome() {
     const TradeOutcome& outcome = *m_runner->outcome();
     if (!outcome.error.empty()) return;
     switch (outcome.request.kind) {
-        case TradeKind::sweep:
+        case StudyKind::sweep:
             if (outcome.request.axes.size() == 2) {
                 m_map->setOutcome(&outcome);
                 m_pages->setCurrentIndex(mapPage);
@@ -408,7 +426,7 @@ void TradeView::showOutcome() {
                 m_pages->setCurrentIndex(linePage);
             }
             break;
-        case TradeKind::dispersions: {
+        case StudyKind::dispersions: {
             const DispersionSummary& s = outcome.summary;
             QString summary =
                 QString::fromStdString(success_probability_sentence(s)).toHtmlEscaped();
@@ -427,7 +445,7 @@ void TradeView::showOutcome() {
             m_pages->setCurrentIndex(dispersionPage);
             break;
         }
-        case TradeKind::sensitivities:
+        case StudyKind::sensitivities:
             replaceChart(m_sensitivity, sensitivityChart(outcome, figure()));
             m_pages->setCurrentIndex(sensitivityPage);
             break;

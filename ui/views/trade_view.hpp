@@ -13,6 +13,7 @@ QT_BEGIN_NAMESPACE
 class QChart;
 class QChartView;
 class QComboBox;
+class QHBoxLayout;
 class QLabel;
 class QLineEdit;
 class QProgressBar;
@@ -69,7 +70,12 @@ private:
         QSpinBox* count;
         QWidget* row;
     };
+    QHBoxLayout* buildControls();
     AxisControls addAxisRow(const QString& label, int index);
+    void buildDispersionRow();
+    void buildPages();
+    void connectControls();
+    void connectRunner();
     void refreshKeys();
     void suggestRange(AxisControls& axis);
     void kindChanged();

@@ -315,7 +315,7 @@ TEST_CASE("the fuzz dictionary holds every key, section and name of the schema")
         CAPTURE(name);
         CHECK(has_name(name));
     }
-    for (const auto names : {ds::mass_group_names(), ds::maturity_names()}) {
+    for (const auto& names : {ds::mass_group_names(), ds::maturity_names()}) {
         for (const std::string_view name : names) {
             CAPTURE(name);
             CHECK(has_name(name));

@@ -75,7 +75,7 @@ ds::Results sample_results() {
     r.mass.closure = ds::MassClosure{true, 7, 0.004};
     r.capability.max_site_elevation_m = 1250.0;
     r.checks = {{"peak_deceleration", ds::CheckStatus::marginal, 14.0, 15.0, "g",
-                 "peak deceleration 14 g is within 10% of the 15 g limit", "limits"}};
+                 "peak deceleration 14 g is within 10% of the 15 g limit", "limits", std::nullopt}};
     r.history = {{1.0, 120000.0, 2000.0, 5590.0, -13.1, 28.0, 0.5, 0.01, 0.2, 0.0}};
     r.notes = {"no winds"};
     return r;
@@ -224,7 +224,7 @@ TEST_CASE("absent figures and non-finite numbers are written as null") {
     ds::Results results;  // nothing computed: every optional empty
     results.entry.peak_heat_flux_W_cm2 = std::numeric_limits<double>::quiet_NaN();
     results.entry.heat_load_J_cm2 = std::numeric_limits<double>::infinity();
-    results.checks = {{"closure", ds::CheckStatus::fail, std::nan(""), 1.0, "", "", ""}};
+    results.checks = {{"closure", ds::CheckStatus::fail, std::nan(""), 1.0, "", "", "", std::nullopt}};
     const Json document = ds::results_to_json(results);
 
     for (const char* key : {"/parachute/deploy_time_s",

@@ -1,0 +1,126 @@
+#include "trade/study.hpp"
+
+#include <algorithm>
+#include <chrono>
+#include <iterator>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+#include "trade/design_variants.hpp"
+#include "trade/trade_csv.hpp"
+
+namespace ds {
+namespace {
+
+/// What a study starts from.
+struct StudyInput {
+    const StudyRequest& request;
+    const nlohmann::ordered_json& document;
+    const Design& design;
+    const std::filesystem::path& base_directory;
+    unsigned threads;
+    Progress& progress;
+};
+
+void run_sweep_study(const StudyInput& in, StudyOutcome& out) {
+    const DesignVariants variants(in.document, in.base_directory);
+    for (const SweepAxis& axis : in.request.axes) out.nominal.push_back(variants.value(axis.key));
+    out.sweep = run_sweep(variants, in.request.axes, in.threads, &in.progress);
+}
+
+void run_dispersion_study(const StudyInput& in, StudyOutcome& out) {
+    if (in.design.dispersions.empty()) {
+        out.error = "the design declares no dispersions: add some under \"dispersions\"";
+        return;
+    }
+    DispersionSettings settings;
+    settings.runs = in.request.runs;
+    settings.seed = in.request.seed;
+    settings.shard_index = in.request.shard_index;
+    settings.shard_count = in.request.shard_count;
+    settings.threads = in.threads;
+    settings.progress = &in.progress;
+    auto [campaign, error] = run_dispersions(in.design, in.base_directory, settings);
+    out.error = error;
+    if (campaign) {
+        out.summary = summarize(*campaign);
+        out.campaign = std::move(campaign);
+    }
+}
+
+void run_sensitivity_study(const StudyInput& in, StudyOutcome& out) {
+    out.sensitivities = sensitivities(DesignVariants(in.document, in.base_directory),
+                                      in.request.inputs, in.threads, &in.progress);
+}
+
+std::string describe_sweep(const StudyRequest& request) {
+    std::string axes;
+    for (const SweepAxis& a : request.axes) {
+        if (!axes.empty()) axes += " and ";
+        axes += fmt::format("{} from {:g} to {:g} ({} values)", a.key, a.from, a.to, a.count);
+    }
+    return "Sweep of " + axes;
+}
+
+std::string describe_dispersions(const StudyRequest& request) {
+    return fmt::format("Dispersions: {} cases from seed {}", request.runs, request.seed);
+}
+
+std::string describe_sensitivities(const StudyRequest&) {
+    return "Normalised sensitivities of the key figures";
+}
+
+std::string sweep_rows(const StudyOutcome& outcome) {
+    return sweep_csv(outcome.request.axes, outcome.sweep);
+}
+
+std::string campaign_rows(const StudyOutcome& outcome) {
+    return outcome.campaign ? campaign_csv(*outcome.campaign) : std::string();
+}
+
+std::string sensitivity_rows(const StudyOutcome& outcome) {
+    return outcome.sensitivities ? sensitivity_csv(*outcome.sensitivities) : std::string();
+}
+
+/// Everything that differs between the kinds of study, one row each.
+struct StudyKindDefinition {
+    StudyKind kind;
+    void (*run)(const StudyInput&, StudyOutcome&);
+    std::string (*describe)(const StudyRequest&);
+    std::string (*csv)(const StudyOutcome&);
+};
+
+constexpr StudyKindDefinition study_kinds[] = {
+    {StudyKind::sweep, run_sweep_study, describe_sweep, sweep_rows},
+    {StudyKind::dispersions, run_dispersion_study, describe_dispersions, campaign_rows},
+    {StudyKind::sensitivities, run_sensitivity_study, describe_sensitivities, sensitivity_rows},
+};
+
+const StudyKindDefinition& definition(StudyKind kind) {
+    const auto* found = std::find_if(std::begin(study_kinds), std::end(study_kinds),
+                                     [kind](const StudyKindDefinition& d) { return d.kind == kind; });
+    if (found == std::end(study_kinds)) throw std::logic_error("a study kind without its definition");
+    return *found;
+}
+
+}  // namespace
+
+std::string StudyOutcome::description() const { return definition(request.kind).describe(request); }
+
+std::string StudyOutcome::csv() const { return definition(request.kind).csv(*this); }
+
+StudyOutcome run_study(const StudyRequest& request, const nlohmann::ordered_json& document,
+                       const Design& design, const std::filesystem::path& base_directory,
+                       unsigned threads, Progress& progress) {
+    const auto start = std::chrono::steady_clock::now();
+    StudyOutcome outcome;
+    outcome.request = request;
+    outcome.design = design;
+    definition(request.kind).run({request, document, design, base_directory, threads, progress}, outcome);
+    outcome.seconds =
+        std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+    return outcome;
+}
+
+}  // namespace ds

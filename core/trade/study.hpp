@@ -1,0 +1,65 @@
+#pragma once
+
+#include <cstddef>
+#include <cstdint>
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "design/design.hpp"
+#include "progress.hpp"
+#include "trade/dispersion.hpp"
+#include "trade/sensitivity.hpp"
+#include "trade/sweep.hpp"
+
+namespace ds {
+
+/// The trade studies. A new kind (a corridor, an optimiser) is one more entry here, its
+/// settings in StudyRequest, its results in StudyOutcome and one row of the kinds' table in
+/// study.cpp (how it runs, how it is described, its CSV).
+enum class StudyKind { sweep, dispersions, sensitivities };
+
+/// A trade study as the window or the command line asks for it: a sweep of one or two keys,
+/// the design's dispersions, or the sensitivities of the key figures to numeric inputs.
+struct StudyRequest {
+    StudyKind kind = StudyKind::sweep;
+    std::vector<SweepAxis> axes;  ///< sweep: one (a line) or two (a grid)
+    std::size_t runs = 1000;      ///< dispersions
+    std::uint64_t seed = 1;       ///< dispersions
+    std::size_t shard_index = 0;  ///< dispersions: the slice of the cases this run flies
+    std::size_t shard_count = 1;
+    std::vector<std::string> inputs;  ///< sensitivities: the keys varied, empty for every number
+};
+
+/// A finished study: what was asked, of which design, and what it gave.
+struct StudyOutcome {
+    StudyRequest request;
+    Design design;  ///< the nominal design the study started from
+    std::vector<SweepCase> sweep;
+    /// Sweep: the design's own value of each varied key, to mark where the design sits.
+    std::vector<std::optional<double>> nominal;
+    std::optional<DispersionCampaign> campaign;
+    DispersionSummary summary;
+    std::optional<SensitivityTable> sensitivities;
+    std::string error;  ///< why the study could not run; empty when it ran
+    double seconds = 0.0;
+
+    /// "Sweep of aeroshell.diameter_m from 3 to 5 (21 values)", for titles and the sheet.
+    std::string description() const;
+    /// The study as CSV (trade/trade_csv.hpp): sweep rows, dispersed cases or the
+    /// sensitivity matrix.
+    std::string csv() const;
+};
+
+/// Runs a study of a design: `document` is its JSON (sweeps and sensitivities vary its keys
+/// through the strict reader), `design` the same read, `base_directory` where its relative
+/// paths start; `threads` 0 for one per core. The one entry point of the window and the
+/// command line.
+StudyOutcome run_study(const StudyRequest& request, const nlohmann::ordered_json& document,
+                       const Design& design, const std::filesystem::path& base_directory,
+                       unsigned threads, Progress& progress);
+
+}  // namespace ds

@@ -1,0 +1,330 @@
+// The trade commands as a user runs them: sweep, disperse, merge and sensitivity through the
+// binary, their numbers checked against the size command and against each other, and their
+// error exits.
+
+#include <sys/wait.h>
+
+#include <cmath>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <functional>
+#include <sstream>
+#include <string>
+
+#include <doctest/doctest.h>
+#include <nlohmann/json.hpp>
+
+namespace fs = std::filesystem;
+using Json = nlohmann::json;
+
+namespace {
+
+struct Run {
+    int exit_code = -1;
+    std::string out;
+    std::string err;
+};
+
+std::string slurp(const fs::path& file) {
+    std::ifstream in(file);
+    std::stringstream text;
+    text << in.rdbuf();
+    return text.str();
+}
+
+fs::path scratch() {
+    const fs::path dir = fs::temp_directory_path() / "descent-sizer-trade-cli-test";
+    fs::create_directories(dir);
+    return dir;
+}
+
+Run run(const std::string& arguments) {
+    const fs::path out = scratch() / "stdout.txt";
+    const fs::path err = scratch() / "stderr.txt";
+    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments +
+                                " >'" + out.string() + "' 2>'" + err.string() + "'";
+    const int status = std::system(command.c_str());
+    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, slurp(out), slurp(err)};
+}
+
+/// Runs a command that must succeed and returns what it printed.
+std::string output(const std::string& arguments) {
+    const Run r = run(arguments);
+    INFO(arguments << "\n" << r.err);
+    REQUIRE(r.exit_code == 0);
+    return r.out;
+}
+
+/// A path quoted for the shell. Appended rather than "'" + ...: GCC 12 at -O3 warns
+/// (-Wrestrict) on that operator+ by mistake (GCC bug 105329, from memory).
+std::string quoted(const fs::path& file) {
+    std::string text = "'";
+    text += file.string();
+    return text + "'";
+}
+
+std::string sample(const std::string& name) {
+    return std::string("'") + DESCENT_SIZER_SAMPLES_DIR + "/" + name + ".json'";
+}
+
+/// A sample with one change, written to a scratch file.
+std::string variant(const std::string& base, const std::string& name,
+                    const std::function<void(Json&)>& edit) {
+    Json doc = Json::parse(slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + base + ".json"));
+    edit(doc);
+    const fs::path file = scratch() / (name + ".json");
+    std::ofstream(file) << doc.dump(2);
+    return quoted(file);
+}
+
+/// The text written to a scratch file, quoted for the command line.
+std::string saved(const std::string& name, const std::string& text) {
+    const fs::path file = scratch() / name;
+    std::ofstream(file) << text;
+    return quoted(file);
+}
+
+// Numbers that went through the same sizing print the same digits; the tolerance only
+// absorbs the JSON's shortest round-trip representation.
+constexpr double same = 1e-12;
+
+void checkSame(const Json& a, const Json& b, const char* what) {
+    CAPTURE(what);
+    REQUIRE(a.is_number());
+    REQUIRE(b.is_number());
+    CHECK(a.get<double>() == doctest::Approx(b.get<double>()).epsilon(same));
+}
+
+}  // namespace
+
+TEST_CASE("sweep: each case of a line is the size command's result for the design with that value") {
+    const Json rows = Json::parse(output(
+        "sweep " + sample("small-ballistic-station") +
+        " --vary entry.flight_path_angle_deg=-15:-11:3 --json --threads 2"))["rows"];
+    REQUIRE(rows.size() == 3);
+    const double angles[] = {-15.0, -13.0, -11.0};
+    for (std::size_t i = 0; i < 3; ++i) {
+        CAPTURE(angles[i]);
+        CHECK(rows[i]["inputs"]["entry.flight_path_angle_deg"].get<double>() == angles[i]);
+        const Json sized = Json::parse(output(
+            "size --json " + variant("small-ballistic-station", "angle" + std::to_string(i),
+                                     [&](Json& d) { d["entry"]["flight_path_angle_deg"] = angles[i]; })));
+        checkSame(rows[i]["entry"]["peak_deceleration_g"], sized["entry"]["peak_deceleration_g"],
+                  "peak deceleration");
+        checkSame(rows[i]["entry"]["peak_heat_flux_W_cm2"], sized["entry"]["peak_heat_flux_W_cm2"],
+                  "peak heat flux");
+        checkSame(rows[i]["parachute"]["deploy_altitude_m"], sized["parachute"]["deploy_altitude_m"],
+                  "deploy altitude");
+        checkSame(rows[i]["mass"]["landed_kg"], sized["mass"]["landed_kg"], "landed mass");
+        checkSame(rows[i]["capability"]["max_site_elevation_m"],
+                  sized["capability"]["max_site_elevation_m"], "highest site");
+    }
+    // A steeper entry decelerates harder (Allen and Eggers, NACA Report 1381: the peak goes
+    // as sin|gamma|).
+    CHECK(rows[0]["entry"]["peak_deceleration_g"].get<double>() >
+          rows[1]["entry"]["peak_deceleration_g"].get<double>());
+    CHECK(rows[1]["entry"]["peak_deceleration_g"].get<double>() >
+          rows[2]["entry"]["peak_deceleration_g"].get<double>());
+}
+
+TEST_CASE("sweep: two --vary make a grid, the first key slowest, in the table, the JSON and the CSV") {
+    const std::string args = "sweep " + sample("earth-return-capsule") +
+                             " --vary entry.velocity_m_s=11000:12000:2"
+                             " --vary entry.flight_path_angle_deg=-9:-7:3 --threads 2";
+    const Json rows = Json::parse(output(args + " --json"))["rows"];
+    REQUIRE(rows.size() == 6);
+    for (std::size_t i = 0; i < rows.size(); ++i) {
+        CAPTURE(i);
+        CHECK(rows[i]["inputs"]["entry.velocity_m_s"].get<double>() == (i < 3 ? 11000.0 : 12000.0));
+        CHECK(rows[i]["inputs"]["entry.flight_path_angle_deg"].get<double>() ==
+              doctest::Approx(-9.0 + static_cast<double>(i % 3)).epsilon(1e-15));
+    }
+    // Faster at the same angle heats more (Sutton-Graves: q ~ V^3).
+    CHECK(rows[3]["entry"]["peak_heat_flux_W_cm2"].get<double>() >
+          rows[0]["entry"]["peak_heat_flux_W_cm2"].get<double>());
+
+    std::istringstream csv(output(args + " --csv"));
+    std::string line;
+    std::getline(csv, line);
+    CHECK(line.rfind("entry.velocity_m_s,entry.flight_path_angle_deg,entry_mass,", 0) == 0);
+    int lines = 0;
+    while (std::getline(csv, line)) {
+        ++lines;
+        if (lines == 4) CHECK(line.rfind("12000,-9,", 0) == 0);
+    }
+    CHECK(lines == 6);
+
+    std::istringstream table(output(args));
+    std::getline(table, line);
+    CHECK(line.find("peak_decelerat") != std::string::npos);
+    lines = 0;
+    while (std::getline(table, line)) ++lines;
+    CHECK(lines == 6);
+}
+
+TEST_CASE("disperse: the same seed gives the same numbers whatever the threads; another seed does not") {
+    const std::string args = "disperse " + sample("earth-return-capsule") + " --runs 40 --json";
+    const Json one = Json::parse(output(args + " --seed 7 --threads 1"));
+    const Json two = Json::parse(output(args + " --seed 7 --threads 2"));
+    const Json other = Json::parse(output(args + " --seed 8 --threads 2"));
+    REQUIRE(one["campaign"]["cases"].size() == 40);
+    CHECK(one["campaign"]["cases"] == two["campaign"]["cases"]);
+    CHECK(one["summary"] == two["summary"]);
+    CHECK(one["campaign"]["cases"][0]["draws"] != other["campaign"]["cases"][0]["draws"]);
+
+    // The capsule's dispersed entry mass has the design's 0.5 kg sigma about its nominal:
+    // 40 draws put the sample mean within 4 standard errors, 4 * 0.5 / sqrt(40) = 0.32 kg.
+    const Json& mass = one["summary"]["figures"]["entry_mass"];
+    CHECK(mass["count"] == 40);
+    const Json design = Json::parse(slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/earth-return-capsule.json"));
+    CHECK(std::abs(mass["mean"].get<double>() - design["mass"]["entry_kg"].get<double>()) < 0.32);
+    const double p = one["summary"]["success_probability"].get<double>();
+    CHECK(p >= 0.0);
+    CHECK(p <= 1.0);
+}
+
+TEST_CASE("disperse --shard and merge: the shards merged are the one run, case for case") {
+    const std::string args = "disperse " + sample("small-ballistic-station") + " --runs 30 --seed 7 --threads 2";
+    const Json whole = Json::parse(output(args + " --json"));
+    const std::string first = saved("shard0.json", output(args + " --shard 0/2 --json"));
+    const std::string second = saved("shard1.json", output(args + " --shard 1/2 --json"));
+    const Json merged = Json::parse(output("merge --json " + second + " " + first));
+    CHECK(merged["campaign"]["cases"] == whole["campaign"]["cases"]);
+    CHECK(merged["summary"] == whole["summary"]);
+    // The text summaries and the CSVs agree too.
+    CHECK(output("merge " + first + " " + second) == output(args));
+    CHECK(output("merge --csv " + first + " " + second) == output(args + " --csv"));
+    // A shard's own summary says it is one.
+    CHECK(output(args + " --shard 1/2").rfind("shard 1/2 of the campaign", 0) == 0);
+}
+
+TEST_CASE("disperse --csv: a row per case with its draws and key figures") {
+    std::istringstream csv(output("disperse " + sample("lifting-rover-carrier") + " --runs 12 --seed 3 --csv"));
+    std::string line;
+    std::getline(csv, line);
+    CHECK(line.rfind("case,entry.flight_path_angle_deg,entry.velocity_m_s,", 0) == 0);
+    CHECK(line.find(",peak_deceleration,") != std::string::npos);
+    CHECK(line.find(",success,failed_checks") != std::string::npos);
+    int rows = 0;
+    while (std::getline(csv, line)) {
+        CHECK(line.rfind(std::to_string(rows) + ",", 0) == 0);
+        ++rows;
+    }
+    CHECK(rows == 12);
+}
+
+TEST_CASE("sensitivity: signs and sizes of known dependences") {
+    const Json table = Json::parse(output(
+        "sensitivity " + sample("small-ballistic-station") +
+        " --inputs entry.flight_path_angle_deg,mass.entry_kg,aeroshell.diameter_m --json --threads 2"));
+    const auto at = [&](const std::string& figure, const std::string& input) {
+        const auto& figures = table["figures"];
+        const auto& inputs = table["inputs"];
+        const auto f = std::find(figures.begin(), figures.end(), figure) - figures.begin();
+        const auto i = std::find(inputs.begin(), inputs.end(), input) - inputs.begin();
+        REQUIRE(f < static_cast<long>(figures.size()));
+        REQUIRE(i < static_cast<long>(inputs.size()));
+        return table["normalized"][static_cast<std::size_t>(f)][static_cast<std::size_t>(i)].get<double>();
+    };
+    CHECK(table["relative_step"] == 1e-3);
+    // The entry mass is the input itself: d ln m / d ln m = 1 (exact, to the differences' 1e-6).
+    CHECK(at("entry_mass", "mass.entry_kg") == doctest::Approx(1.0).epsilon(1e-6));
+    CHECK(at("aeroshell_diameter", "aeroshell.diameter_m") == doctest::Approx(1.0).epsilon(1e-6));
+    // beta = m / (Cd pi D^2 / 4): +1 in the mass exactly; about -2 in the diameter, less the
+    // drag coefficient's own change with the nose radius over the diameter.
+    CHECK(at("ballistic_coefficient", "mass.entry_kg") == doctest::Approx(1.0).epsilon(1e-6));
+    CHECK(at("ballistic_coefficient", "aeroshell.diameter_m") == doctest::Approx(-2.0).epsilon(0.01));
+    // A steeper entry (a more negative angle) raises the peak deceleration: d ln a / d ln gamma
+    // is positive, gamma being negative (Allen and Eggers, NACA Report 1381: a ~ sin|gamma|).
+    CHECK(at("peak_deceleration", "entry.flight_path_angle_deg") > 0.5);
+    // The angle does not change the vehicle: no dependence of the entry mass on it.
+    CHECK(std::abs(at("entry_mass", "entry.flight_path_angle_deg")) < 1e-9);
+}
+
+TEST_CASE("sensitivity: the text ranks the inputs per figure and the CSV has a row per figure") {
+    const std::string args = "sensitivity " + sample("small-ballistic-station") +
+                             " --inputs mass.entry_kg,aeroshell.diameter_m --threads 2";
+    const std::string text = output(args);
+    CHECK(text.find("\nentry_mass\n    +1.0000  mass.entry_kg\n") != std::string::npos);
+    CHECK(text.find("\nballistic_coefficient\n    -1.99") != std::string::npos);
+    std::istringstream csv(output(args + " --csv"));
+    std::string line;
+    std::getline(csv, line);
+    CHECK(line == "figure,mass.entry_kg,aeroshell.diameter_m");
+    std::getline(csv, line);
+    CHECK(line.rfind("entry_mass,1,", 0) == 0);
+    int rows = 1;
+    while (std::getline(csv, line)) ++rows;
+    CHECK(rows == 15);  // the key figures
+}
+
+TEST_CASE("trade commands: a bad range or shard exits 1 and says what was expected") {
+    const Run noCount = run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2");
+    CHECK(noCount.exit_code == 1);
+    CHECK(noCount.err.find("expected KEY=FROM:TO:N") != std::string::npos);
+    CHECK(noCount.out.empty());
+    const Run zero = run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2:0");
+    CHECK(zero.exit_code == 1);
+    CHECK(zero.err.find("N at least 1") != std::string::npos);
+    const Run noKey = run("sweep " + sample("small-ballistic-station") + " --vary 5600");
+    CHECK(noKey.exit_code == 1);
+    const Run three = run("sweep " + sample("small-ballistic-station") +
+                          " --vary a=1:2:2 --vary b=1:2:2 --vary c=1:2:2");
+    CHECK(three.exit_code != 0);
+    CHECK(three.out.empty());
+    const Run shard = run("disperse " + sample("small-ballistic-station") + " --shard 2/2");
+    CHECK(shard.exit_code == 1);
+    CHECK(shard.err.find("--shard 2/2") != std::string::npos);
+}
+
+TEST_CASE("trade commands: a bad key is named, by the refused cases or with exit 2") {
+    // A sweep of a key the design format does not have runs, and every case says why it
+    // cannot be read.
+    const Json rows = Json::parse(output("sweep " + sample("small-ballistic-station") +
+                                         " --vary entry.no_such_key=1:2:2 --json"))["rows"];
+    REQUIRE(rows.size() == 2);
+    for (const Json& row : rows) {
+        CHECK(row["error"].get<std::string>().find("entry.no_such_key") != std::string::npos);
+        CHECK(row["worst_status"] == "fail");
+    }
+    // A dispersion of a key that is not a number of the design stops the campaign.
+    const Run dispersed = run("disperse " + variant("small-ballistic-station", "bad-dispersion", [](Json& d) {
+                                  d["dispersions"] = Json::array(
+                                      {{{"key", "entry.colour"}, {"distribution", "normal"}, {"sigma", 1.0}}});
+                              }) + " --runs 5");
+    CHECK(dispersed.exit_code == 2);
+    CHECK(dispersed.err.find("entry.colour is not a number of the design") != std::string::npos);
+    // A design the reader refuses is refused by every study, naming the key.
+    const std::string refused = variant("small-ballistic-station", "refused", [](Json& d) {
+        d["entry"]["velocity_m_s"] = -5600;
+    });
+    for (const std::string& command : {"sweep " + refused + " --vary entry.flight_path_angle_deg=-14:-12:2",
+                                      "disperse " + refused, "sensitivity " + refused}) {
+        CAPTURE(command);
+        const Run r = run(command);
+        CHECK(r.exit_code == 2);
+        CHECK(r.err.find("entry.velocity_m_s") != std::string::npos);
+        CHECK(r.out.empty());
+    }
+    const Run none = run("disperse " + variant("small-ballistic-station", "no-dispersions", [](Json& d) {
+                             d.erase("dispersions");
+                         }));
+    CHECK(none.exit_code == 1);
+    CHECK(none.err.find("the design has no \"dispersions\"") != std::string::npos);
+}
+
+TEST_CASE("merge: parts that are not shards of one campaign exit 2 and say why") {
+    const std::string args = "disperse " + sample("earth-return-capsule") + " --runs 10 --json";
+    const std::string first = saved("seed1.json", output(args + " --seed 1 --shard 0/2"));
+    const std::string other = saved("seed2.json", output(args + " --seed 2 --shard 1/2"));
+    const Run mixed = run("merge " + first + " " + other);
+    CHECK(mixed.exit_code == 2);
+    CHECK(mixed.err.find("not shards of one campaign") != std::string::npos);
+    const Run half = run("merge " + first);
+    CHECK(half.exit_code == 2);
+    CHECK(half.err.find("case 1 is missing") != std::string::npos);
+    const Run design = run("merge " + sample("earth-return-capsule"));
+    CHECK(design.exit_code == 2);
+    CHECK(design.err.find("not a dispersion campaign") != std::string::npos);
+}
