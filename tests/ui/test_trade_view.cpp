@@ -96,7 +96,7 @@ private slots:
         trades->setFigure("ballistic_coefficient");
         QVERIFY(trades->run());
         QVERIFY(waitForStudy(trades));
-        const TradeOutcome* outcome = trades->currentOutcome();
+        const StudyOutcome* outcome = trades->currentOutcome();
         QVERIFY(outcome);
         QCOMPARE(outcome->sweep.size(), std::size_t(7));
         // Ballistic coefficient m / (Cd A) falls as the diameter grows, case by case.
@@ -121,7 +121,7 @@ private slots:
                           {"entry.flight_path_angle_deg", -19.0, -11.0, 9}});
         QVERIFY(trades->run());
         QVERIFY(waitForStudy(trades));
-        const TradeOutcome* outcome = trades->currentOutcome();
+        const StudyOutcome* outcome = trades->currentOutcome();
         QVERIFY(outcome);
         QCOMPARE(outcome->sweep.size(), std::size_t(90));
         int feasible = 0;
@@ -167,7 +167,7 @@ private slots:
         trades->setFigure("peak_heat_flux");
         QVERIFY(trades->run());
         QVERIFY(waitForStudy(trades));
-        const TradeOutcome* outcome = trades->currentOutcome();
+        const StudyOutcome* outcome = trades->currentOutcome();
         QVERIFY(outcome && outcome->campaign);
 
         // The same seed in the core (what `descent-sizer disperse` runs), on one thread.

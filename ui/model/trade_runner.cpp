@@ -29,7 +29,7 @@ private:
 TradeRunner::TradeRunner(QObject* parent) : QObject(parent) {
     m_poll.setInterval(progressPollMs);
     connect(&m_poll, &QTimer::timeout, this, &TradeRunner::poll);
-    connect(&m_watcher, &QFutureWatcher<TradeOutcome>::finished, this, &TradeRunner::done);
+    connect(&m_watcher, &QFutureWatcher<StudyOutcome>::finished, this, &TradeRunner::done);
 }
 
 TradeRunner::~TradeRunner() {
@@ -46,7 +46,7 @@ void TradeRunner::start(const StudyRequest& request, const nlohmann::ordered_jso
     // again while it finishes.
     m_watcher.setFuture(QtConcurrent::run(
         [request, document, design, baseDirectory, progress = m_progress] {
-            return TradeOutcome{run_study(request, document, design, baseDirectory, 0, *progress)};
+            return run_study(request, document, design, baseDirectory, 0, *progress);
         }));
     m_poll.start();
     emit progressed(0.0);

@@ -15,14 +15,6 @@
 
 namespace ds {
 
-// Transitional, for ui/sheet/ only until it takes the core's names (StudyKind, StudyRequest,
-// StudyOutcome) and converts StudyOutcome::description() itself: then these three go.
-using TradeKind = StudyKind;
-using TradeRequest = StudyRequest;
-struct TradeOutcome : StudyOutcome {
-    QString description() const { return QString::fromStdString(StudyOutcome::description()); }
-};
-
 /// Runs the core's trade studies (run_study) on worker threads for the window: progress is
 /// polled into a signal, a cancel returns the window to the user at once (the workers stop
 /// handing out cases and their results are dropped), and a new study cancels the one running.
@@ -41,7 +33,7 @@ public:
     bool isRunning() const { return m_running; }
 
     /// The last study that finished, if any.
-    const std::optional<TradeOutcome>& outcome() const { return m_outcome; }
+    const std::optional<StudyOutcome>& outcome() const { return m_outcome; }
 
 signals:
     void progressed(double fraction);
@@ -54,10 +46,10 @@ private:
     void done();
 
     std::shared_ptr<SharedProgress> m_progress;
-    QFutureWatcher<TradeOutcome> m_watcher;
+    QFutureWatcher<StudyOutcome> m_watcher;
     QTimer m_poll;
     bool m_running = false;
-    std::optional<TradeOutcome> m_outcome;
+    std::optional<StudyOutcome> m_outcome;
 };
 
 }  // namespace ds

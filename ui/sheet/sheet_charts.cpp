@@ -22,24 +22,24 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
     std::vector<SheetChart> drawn;
     for (const auto& chart : charts)
         drawn.push_back({chart->title(), renderChart(chart.get(), sheetChartSize)});
-    if (const TradeOutcome* trade = context.trade) {
+    if (const StudyOutcome* trade = context.trade) {
         const auto add = [&](QChart* chart) {
             const std::unique_ptr<QChart> owned(chart);  // the trade charts hand over raw
             drawn.push_back({chart->title(), renderChart(chart, sheetChartSize), true});
         };
         switch (trade->request.kind) {
-            case TradeKind::sweep:
+            case StudyKind::sweep:
                 if (trade->request.axes.size() == 2)
                     drawn.push_back({QStringLiteral("Feasibility map"),
                                      renderFeasibilityMap(*trade, sheetChartSize), true});
                 else
                     add(sweepLineChart(*trade, context.tradeFigure));
                 break;
-            case TradeKind::dispersions:
+            case StudyKind::dispersions:
                 add(dispersionHistogramChart(*trade, context.tradeFigure));
                 add(deployScatterChart(*trade));
                 break;
-            case TradeKind::sensitivities:
+            case StudyKind::sensitivities:
                 add(sensitivityChart(*trade, context.tradeFigure));
                 break;
         }

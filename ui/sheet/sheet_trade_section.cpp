@@ -11,14 +11,14 @@ namespace ds::sheet {
 namespace {
 
 /// The rows of a sweep: the varied values, the figure shown, the worst check and the margin.
-QString sweepTable(const TradeOutcome& trade, const std::string& figureId) {
-    const std::vector<KeyFigure> header = key_figures(Results{});
-    const std::size_t figure = key_figure_index(figureId).value_or(header.size() - 1);
+QString sweepTable(const StudyOutcome& trade, const std::string& figureId) {
+    const std::size_t figure = key_figure_index(figureId).value_or(key_figure_table.size() - 1);
+    const KeyFigureDefinition& shown = key_figure_table[figure];
     QStringList headings;
     for (const SweepAxis& axis : trade.request.axes)
         headings << QString::fromStdString(axis.key);
-    headings << QStringLiteral("%1 (%2)").arg(QString::fromStdString(header[figure].label),
-                                              QString::fromStdString(header[figure].unit))
+    headings << QStringLiteral("%1 (%2)").arg(QString::fromUtf8(shown.label.data(), static_cast<int>(shown.label.size())),
+                                              QString::fromUtf8(shown.unit.data(), static_cast<int>(shown.unit.size())))
              << QStringLiteral("worst check") << QStringLiteral("feasibility margin (%)");
     HtmlTable table(headings);
     for (const SweepCase& c : trade.sweep) {
@@ -31,11 +31,11 @@ QString sweepTable(const TradeOutcome& trade, const std::string& figureId) {
                              QStringLiteral("fail")});
             cells.push_back({QStringLiteral("—"), numberCell});
         } else {
-            const KeyFigure value = key_figures(*c.results)[figure];
+            const std::optional<double> value = shown.value(*c.results);
             const WorstCheck worst = worst_check(*c.results);
             const FeasibilityMargin margin = feasibility_margin(*c.results);
             const QString status = QString::fromUtf8(to_string(worst.status));
-            cells.push_back({formatFixed(value.value, value.decimals), numberCell});
+            cells.push_back({formatFixed(value, shown.decimals), numberCell});
             cells.push_back({worst.id.empty() ? status
                                               : QStringLiteral("%1: %2").arg(status, QString::fromStdString(worst.id)),
                              status});
@@ -48,7 +48,7 @@ QString sweepTable(const TradeOutcome& trade, const std::string& figureId) {
     return table.html();
 }
 
-QString dispersionTables(const TradeOutcome& trade) {
+QString dispersionTables(const StudyOutcome& trade) {
     const DispersionSummary& s = trade.summary;
     QString body = paragraph(QString::fromStdString(success_probability_sentence(s)));
     QStringList dispersed;
@@ -88,7 +88,7 @@ QString dispersionTables(const TradeOutcome& trade) {
     return body;
 }
 
-QString sensitivityTable(const TradeOutcome& trade) {
+QString sensitivityTable(const StudyOutcome& trade) {
     constexpr std::size_t drivers = 3;
     const SensitivityTable& table = *trade.sensitivities;
     HtmlTable html({QStringLiteral("figure"), QStringLiteral("strongest drivers, d ln(figure) / d ln(input)")});
@@ -109,20 +109,20 @@ QString sensitivityTable(const TradeOutcome& trade) {
 QString tradeSection(const SheetContext& context, const std::vector<SheetChart>& charts,
                      const ImageSource& source, int width) {
     constexpr std::size_t mostSweepRows = 60;
-    const TradeOutcome& trade = *context.trade;
+    const StudyOutcome& trade = *context.trade;
     QString body = paragraph(QStringLiteral("%1, run in %2 s.")
-                                 .arg(trade.description())
+                                 .arg(QString::fromStdString(trade.description()))
                                  .arg(trade.seconds, 0, 'f', 2));
     body += chartImages(charts, true, source, width);
     switch (trade.request.kind) {
-        case TradeKind::sweep:
+        case StudyKind::sweep:
             body += trade.sweep.size() <= mostSweepRows
                         ? sweepTable(trade, context.tradeFigure)
                         : paragraph(QStringLiteral("%1 cases: their rows are in the study's CSV export.")
                                         .arg(trade.sweep.size()));
             break;
-        case TradeKind::dispersions: body += dispersionTables(trade); break;
-        case TradeKind::sensitivities: body += sensitivityTable(trade); break;
+        case StudyKind::dispersions: body += dispersionTables(trade); break;
+        case StudyKind::sensitivities: body += sensitivityTable(trade); break;
     }
     return section(QStringLiteral("Trade study"), body);
 }

@@ -10,7 +10,7 @@
 
 namespace ds {
 
-struct TradeOutcome;
+struct StudyOutcome;
 
 /// What a sheet says about where it came from.
 struct SheetContext {
@@ -18,7 +18,7 @@ struct SheetContext {
     QDateTime date;
     QString designFile;  ///< may be empty for an unsaved design
     /// A trade study of this design to include, when one was run; not owned.
-    const TradeOutcome* trade = nullptr;
+    const StudyOutcome* trade = nullptr;
     /// The key figure the trade study's charts show ("peak_deceleration").
     std::string tradeFigure = "peak_deceleration";
 };

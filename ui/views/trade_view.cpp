@@ -382,7 +382,7 @@ bool TradeView::run() {
 
 void TradeView::cancel() { m_runner->cancel(); }
 
-const TradeOutcome* TradeView::currentOutcome() const {
+const StudyOutcome* TradeView::currentOutcome() const {
     const auto& outcome = m_runner->outcome();
     return outcome && outcome->error.empty() && !m_stale ? &*outcome : nullptr;
 }
@@ -391,7 +391,7 @@ void TradeView::studyFinished() {
     m_run->setEnabled(true);
     m_cancel->setEnabled(false);
     m_stale = false;
-    const TradeOutcome& outcome = *m_runner->outcome();
+    const StudyOutcome& outcome = *m_runner->outcome();
     if (!outcome.error.empty()) {
         m_status->setText(tr("The study cannot run: %1").arg(text(outcome.error)));
         m_export->setEnabled(false);
@@ -402,7 +402,7 @@ void TradeView::studyFinished() {
     if (outcome.campaign) size = tr("%1 sizings").arg(outcome.campaign->cases.size());
     if (outcome.sensitivities) size = tr("%1 inputs").arg(outcome.sensitivities->inputs.size());
     m_status->setText(
-        tr("%1: %2 in %3 s.").arg(outcome.description(), size).arg(outcome.seconds, 0, 'f', 2));
+        tr("%1: %2 in %3 s.").arg(QString::fromStdString(outcome.description()), size).arg(outcome.seconds, 0, 'f', 2));
     m_export->setEnabled(true);
     showOutcome();
     emit studyShown();
@@ -414,7 +414,7 @@ void TradeView::replaceChart(QChartView* view, QChart* chart) {
 }
 
 void TradeView::showOutcome() {
-    const TradeOutcome& outcome = *m_runner->outcome();
+    const StudyOutcome& outcome = *m_runner->outcome();
     if (!outcome.error.empty()) return;
     switch (outcome.request.kind) {
         case StudyKind::sweep:

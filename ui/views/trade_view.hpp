@@ -28,7 +28,7 @@ class DesignDocument;
 class DispersionTable;
 class FeasibilityMap;
 class TradeRunner;
-struct TradeOutcome;
+struct StudyOutcome;
 
 /// The trade study page: choose a sweep of one or two keys, the design's dispersions or the
 /// sensitivities, run it on worker threads with a progress bar and a cancel that answers at
@@ -42,7 +42,7 @@ public:
 
     TradeRunner* runner() const { return m_runner; }
     /// The study shown, when one ran and the design has not changed since (for the sheet).
-    const TradeOutcome* currentOutcome() const;
+    const StudyOutcome* currentOutcome() const;
 
     /// Set the controls as a user would, then run() (for tests and scripted use).
     void setSweep(const std::vector<SweepAxis>& axes);
