@@ -21,7 +21,8 @@ ReferenceProfile venus_reference_profile() {
     // the morning-side entry probe bus, von Zahn et al., J. Geophys. Res. 85(A13), 1980,
     // abstract) and its molar mass falls above about 135 km, so this extension is a middle
     // estimate: 2.2 times below the morning-side density at 150 km summed from that
-    // abstract's number densities (the tests). An entry's loads peak far below 100 km, where the table holds.
+    // abstract's number densities (the tests). An entry's loads peak far below 100 km, where
+    // the table holds.
     auto body = body_preset("venus");
     if (!body) {
         throw std::logic_error("the venus body preset is missing");
