@@ -121,8 +121,8 @@ double layer_model_density_kg_m3(const LayerState& state) {
 
 // Between 80 and 86 km the standard's kinetic temperature departs from the molecular-scale
 // one as the molar mass begins to fall: T = T_M M / M0, with M / M0 tabulated every 0.5 km
-// (the standard's Table 8; values as transcribed in the open-source COESA.jl package, the
-// standard itself not re-read). Linear between the points, as the standard interpolates it.
+// (the standard's table of the ratio; values as transcribed in the open-source COESA.jl
+// package, the standard itself not re-read). Linear between the points, as the standard interpolates it.
 constexpr double molar_mass_ratio_start_m = 80000.0;
 constexpr double molar_mass_ratio_step_m = 500.0;
 constexpr std::array<double, 13> molar_mass_ratio{{1.0, 0.999996, 0.999989, 0.999971, 0.999941,
@@ -178,10 +178,11 @@ double upper_temperature_K(double geometric_m) {
 }
 
 // The standard's tabulated pressure and mean molar mass at its own altitudes from 86 to
-// 1000 km (the standard's Table I, geometric altitude; values as transcribed in the
-// open-source COESA.jl package, the standard itself not re-read; they agree with the
-// standard's densities that we hold, 5.604e-7 kg/m^3 at 100 km, 2.541e-10 at 200 km and
-// 3.561e-15 at 1000 km, within 0.05 %: see the tests). The standard obtains them by
+// 1000 km (the standard's tables in geometric altitude; values as transcribed in the
+// open-source COESA.jl package, the standard itself not re-read; with the temperature below
+// they give the standard's printed densities at its altitudes within the rounding of the
+// printed molar mass, e.g. 2.541e-10 kg/m^3 at 200 km and 3.561e-15 at 1000 km, and between
+// them within 0.2 %, e.g. 5.604e-7 at 100 km: see the tests). The standard obtains them by
 // integrating the diffusion of each species; here the density at each altitude is
 // p M / (R* T) with the defining temperature above, and ln rho and ln p follow monotone
 // cubics through those points (MonotoneCubic): exact at the standard's altitudes, with a

@@ -102,14 +102,14 @@ TEST_CASE(
     // meets the standard's 186.8673 K above to its rounding: 1e-6 relative.
     CHECK(above.temperature_K == relative(below.temperature_K, 1e-6));
     // Source: the standard's density at 86 km, 6.958e-6 kg/m^3, and kinetic temperature,
-    // 186.87 K (its Table I, transcribed in COESA.jl; 0.1 % and 0.01 K).
+    // 186.87 K (its tables, transcribed in COESA.jl; 0.1 % and 0.01 K).
     CHECK(below.density_kg_m3 == relative(6.958e-6, 1e-3));
     CHECK(std::abs(below.temperature_K - 186.87) <= temperature_tolerance_K);
 }
 
 namespace {
 
-// US Standard Atmosphere, 1976, Table I (geometric altitude) at some of its own altitudes
+// US Standard Atmosphere, 1976, tables in geometric altitude, at some of its own altitudes
 // above 86 km: T, p, rho and the mean molar mass M as printed (transcribed in the open-source
 // COESA.jl package; the standard itself not re-read). The code holds the standard's pressure
 // and molar mass at these altitudes and derives the density as p M / (R* T), so the density
@@ -149,7 +149,7 @@ constexpr double earth_radius_m = 6356766.0;  // the standard's r0
 }  // namespace
 
 TEST_CASE(
-    "above 86 km the 1976 profile matches the standard's Table I at its own altitudes "
+    "above 86 km the 1976 profile matches the standard's tables at its own altitudes "
     "(NOAA/NASA/USAF 1976, transcribed)") {
     const ds::UsStandardAtmosphere1976 atmosphere;
     for (const UpperPoint& point : upper_points) {
@@ -166,7 +166,7 @@ TEST_CASE(
 
 TEST_CASE(
     "between the standard's altitudes the 1976 profile follows its printed values "
-    "(NOAA/NASA/USAF 1976, Table I, transcribed)") {
+    "(NOAA/NASA/USAF 1976, tables transcribed)") {
     const ds::UsStandardAtmosphere1976 atmosphere;
     // 86.5 km: 6.366e-6 kg/m^3, 0.34163 Pa; printed figures, 1e-4 relative.
     CHECK(atmosphere.at(86500.0).density_kg_m3 == relative(6.366e-6, 1e-4));
