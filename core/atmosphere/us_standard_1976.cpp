@@ -122,7 +122,7 @@ double layer_model_density_kg_m3(const LayerState& state) {
 // Between 80 and 86 km the standard's kinetic temperature departs from the molecular-scale
 // one as the molar mass begins to fall: T = T_M M / M0, with M / M0 tabulated every 0.5 km
 // (the standard's table of the ratio; values as transcribed in the open-source COESA.jl
-// package, the standard itself not re-read). Linear between the points, as the standard interpolates it.
+// package, the standard itself not re-read), linear between the points (our choice).
 constexpr double molar_mass_ratio_start_m = 80000.0;
 constexpr double molar_mass_ratio_step_m = 500.0;
 constexpr std::array<double, 13> molar_mass_ratio{{1.0, 0.999996, 0.999989, 0.999971, 0.999941,
