@@ -42,21 +42,25 @@ TEST_CASE(
 }
 
 TEST_CASE(
-    "standard atmospheres for venus and titan are exponential with their fact-sheet "
-    "values (NASA NSSDC, from memory)") {
+    "standard atmospheres for venus and titan are their published profiles (VIRA, Seiff et "
+    "al. 1985; Titan engineering profile, Justus and Braun 2007; both secondary, "
+    "references.md)") {
     const auto venus = ds::standard_atmosphere("venus", test_gas_constant_J_kgK, test_gamma);
     REQUIRE(venus != nullptr);
-    // Source: NASA NSSDC Venus fact sheet, from memory: about 65 kg/m^3, 737 K, H = 15.9 km;
-    // 10 % on each.
-    CHECK(venus->at(0.0).density_kg_m3 == relative(65.0, 0.1));
-    CHECK(venus->at(0.0).temperature_K == relative(737.0, 0.1));
-    CHECK(venus->log_density_slope_per_m(30000.0) == relative(-1.0 / 15.9e3, 0.1));
+    // Source: VIRA rows at 0 and 50 km, to their printed figures.
+    CHECK(venus->at(0.0).density_kg_m3 == relative(64.79, 1e-4));
+    CHECK(venus->at(50000.0).density_kg_m3 == relative(1.594, 5e-4));
+    CHECK(venus->at(50000.0).temperature_K == relative(350.5, 1e-4));
+    // The speed of sound uses the gas passed in: sqrt(1.29 x 191.8 x 350.5).
+    CHECK(venus->at(50000.0).speed_of_sound_m_s ==
+          relative(std::sqrt(test_gamma * test_gas_constant_J_kgK * 350.5), 1e-9));
 
     const auto titan = ds::standard_atmosphere("titan", test_gas_constant_J_kgK, test_gamma);
     REQUIRE(titan != nullptr);
-    // Source: from memory, surface density about 5.4 kg/m^3 and 94 K; 10 %.
-    CHECK(titan->at(0.0).density_kg_m3 == relative(5.4, 0.1));
-    CHECK(titan->at(0.0).temperature_K == relative(94.0, 0.1));
+    // Source: the Titan rows at 0 and 200 km, to their printed figures.
+    CHECK(titan->at(0.0).density_kg_m3 == relative(5.270, 1e-4));
+    CHECK(titan->at(200000.0).density_kg_m3 == relative(1.393e-3, 5e-4));
+    CHECK(titan->at(200000.0).temperature_K == relative(173.76, 1e-4));
 }
 
 TEST_CASE("standard atmosphere passes the density scale to every preset (design-file.md)") {
