@@ -61,8 +61,8 @@ int main(int argc, char** argv) {
         const ds::DesignReadResult read = ds::read_design_file(file);
         if (!read.ok()) continue;
         const ds::Design& design = *read.design;
-        const std::unique_ptr<ds::Atmosphere> atmosphere = ds::make_atmosphere(design);
-        const ds::FlightModel model{design.body.body, *atmosphere};
+        const ds::FlightEnvironment environment = ds::make_environment(design);
+        const ds::FlightModel model = environment.model();
         const double mass = ds::size_design(design).entry.mass_kg;
         const ds::ResolvedAeroshell aeroshell = ds::resolve_aeroshell(design, mass);
         std::size_t entry_steps = 0;

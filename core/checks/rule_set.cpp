@@ -97,6 +97,42 @@ Check check_at_least(const LimitRule& rule, double value, double limit, double m
                  "above");
 }
 
+namespace {
+
+/// The horizontal speed at touchdown against the limit of the terminal method.
+Check touchdown_horizontal_check(const TerminalResults& terminal, const Limits& lim,
+                                 double band) {
+    const auto rule = [](std::string words, std::string source) {
+        return LimitRule{"touchdown_horizontal_velocity", std::move(words), "m/s",
+                         Severity::physics, std::move(source)};
+    };
+    const double v = *terminal.touchdown_horizontal_velocity_m_s;
+    if (terminal.method == "airbag") {
+        return check_at_most(rule("horizontal speed at airbag release",
+                                  "the airbags' qualified horizontal speed (default 20 m/s: from "
+                                  "memory, common practice, set your own)"),
+                             v, lim.airbag_release_horizontal_velocity_max_m_s, band);
+    }
+    if (terminal.method == "tethered") {
+        return check_at_most(rule("horizontal speed of the hovering stage at payload touchdown",
+                                  "the payload's qualified horizontal speed on the tether "
+                                  "(default 0.5 m/s: common practice, set your own)"),
+                             v, lim.tethered_horizontal_velocity_max_m_s, band);
+    }
+    if (terminal.method == "none") {
+        return check_at_most(rule("horizontal speed at touchdown under the canopy",
+                                  "the vehicle's qualified horizontal touchdown speed (default "
+                                  "15 m/s: common practice, set your own)"),
+                             v, lim.canopy_touchdown_horizontal_velocity_max_m_s, band);
+    }
+    return check_at_most(rule("horizontal speed at touchdown",
+                              "the landing legs' qualified horizontal speed (default 1 m/s: "
+                              "common practice, set your own)"),
+                         v, lim.touchdown_horizontal_velocity_max_m_s, band);
+}
+
+}  // namespace
+
 std::vector<Check> limit_checks(const Design& design, const Results& results) {
     const Limits& lim = design.limits;
     const double band = lim.marginal_band;
@@ -179,6 +215,9 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
              "the airbags' qualified impact speed (default 25 m/s: from memory, common "
              "practice, set your own)"},
             *terminal.impact_velocity_m_s, lim.airbag_impact_velocity_max_m_s, band));
+    }
+    if (terminal.touchdown_horizontal_velocity_m_s) {
+        checks.push_back(touchdown_horizontal_check(terminal, lim, band));
     }
     if (results.timeline.margin_s) {
         checks.push_back(timeline_check(*results.timeline.margin_s, lim.timeline_margin_min_s,

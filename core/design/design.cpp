@@ -28,6 +28,9 @@ constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
                                          {Maturity::existing, "existing"},
                                          {Maturity::actual, "actual"}}};
 
+constexpr Names<VelocityFrame, 2> velocity_frames{{{VelocityFrame::relative, "relative"},
+                                                   {VelocityFrame::inertial, "inertial"}}};
+
 template <class Enum, std::size_t Count>
 std::string_view name_of(const Names<Enum, Count>& names, Enum value) {
     for (const auto& [e, name] : names) {
@@ -61,5 +64,10 @@ std::optional<MassGroup> mass_group_from(std::string_view name) {
     return value_of(mass_groups, name);
 }
 std::optional<Maturity> maturity_from(std::string_view name) { return value_of(maturities, name); }
+
+std::string_view to_string(VelocityFrame frame) { return name_of(velocity_frames, frame); }
+std::optional<VelocityFrame> velocity_frame_from(std::string_view name) {
+    return value_of(velocity_frames, name);
+}
 
 }  // namespace ds

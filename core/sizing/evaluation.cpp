@@ -134,7 +134,18 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());
 
     const double end_height = burn.end_state[StateIndex::altitude] - site;
-    const double end_velocity = burn.end_state[StateIndex::velocity];
+    const double end_velocity = speed(burn.end_state);
+    e.canopy_exit_state = burn.separation_state;
+    // The payload comes down from the burn's end, carried on by its horizontal speed while it
+    // falls (airbag) or is lowered (tethered).
+    const GroundPoint end_point{burn.end_state[StateIndex::latitude],
+                                burn.end_state[StateIndex::longitude]};
+    const double end_horizontal = horizontal_speed(burn.end_state);
+    const auto carried_for = [&](double seconds) {
+        return destination(end_point, azimuth_rad(burn.end_state), end_horizontal * seconds,
+                           model.body.radius_m);
+    };
+    e.touchdown_horizontal_velocity_m_s = end_horizontal;
     double burned = burn.burned_kg;
     const double descent_items = e.budget.group_kg(MassGroup::descent_stage);
     double tanks = 0.0;
@@ -143,12 +154,14 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
         case TerminalMethod::retro:
             e.touchdown_time_s = burn.end_time_s;
             e.touchdown_velocity_m_s = end_velocity;
+            e.landing_point = end_point;
             break;
         case TerminalMethod::airbag: {
             // Cut free at the end of the burn: free fall to the ground.
             const double v = std::sqrt(end_velocity * end_velocity + 2.0 * g_site * end_height);
             e.impact_velocity_m_s = v;
             e.touchdown_time_s = burn.end_time_s + (v - end_velocity) / g_site;
+            e.landing_point = carried_for((v - end_velocity) / g_site);
             break;
         }
         case TerminalMethod::tethered: {
@@ -174,6 +187,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
             e.hover_time_s = lowering_s + t.fly_away_s;
             e.touchdown_time_s = burn.end_time_s + lowering_s;
             e.touchdown_velocity_m_s = end_velocity;
+            e.landing_point = carried_for(lowering_s);
             break;
         }
         case TerminalMethod::none: break;
@@ -205,8 +219,12 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
         if (!t || s.time_s <= *t) e.history.push_back(s);
     }
     if (t && design.terminal.method == TerminalMethod::none) {
+        const FlightState y = e.descent->record.state_at(*t);
         e.touchdown_time_s = *t;
-        e.touchdown_velocity_m_s = e.descent->record.state_at(*t)[StateIndex::velocity];
+        e.touchdown_velocity_m_s = speed(y);
+        e.touchdown_horizontal_velocity_m_s = horizontal_speed(y);
+        e.landing_point = GroundPoint{y[StateIndex::latitude], y[StateIndex::longitude]};
+        e.canopy_exit_state = y;
     }
 }
 
@@ -320,7 +338,7 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         // falling as the site rises and a root-finder sees one crossing.
         constexpr double seconds_per_m_s = 1.0;
         m.margin_s = std::min(m.margin_s, 0.0) -
-                     seconds_per_m_s * (burn.end_state[StateIndex::velocity] -
+                     seconds_per_m_s * (speed(burn.end_state) -
                                         e.burn_request->end_velocity_m_s);
     }
     return m;
