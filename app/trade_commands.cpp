@@ -148,6 +148,13 @@ void printSummary(const DispersionSummary& s) {
         fmt::print("{:<26} {:>8} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g}\n", f.id,
                    f.unit, f.mean, f.standard_deviation, f.p01, f.p50, f.p99);
     }
+    if (s.landing_ellipse) {
+        const LandingEllipse& e = *s.landing_ellipse;
+        fmt::print("\nlanding ellipse ({:.4g} %, {} landing points): centre {:.5f} deg, {:.5f} deg; "
+                   "semi-major {:.3f} km, semi-minor {:.3f} km, major axis at azimuth {:.1f} deg\n",
+                   100.0 * e.probability, e.count, e.centre_latitude_deg, e.centre_longitude_deg,
+                   e.axes.semi_major_km, e.axes.semi_minor_km, e.axes.major_axis_azimuth_deg);
+    }
     if (!s.failing_checks.empty()) {
         fmt::print("\nfailing checks, most frequent first:\n");
         for (const auto& [id, count] : s.failing_checks) {
@@ -171,6 +178,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         std::string shard = "0/1";
         std::vector<std::string> parts;
         std::vector<std::string> inputs;
+        double ellipse_probability = default_ellipse_probability;
     };
     auto o = std::make_shared<Options>();
 
@@ -193,12 +201,20 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     disperse->add_option("--shard", o->shard, "I/N: run the I-th of N slices (for a batch array)");
     disperse->add_option("--threads", o->threads, "Threads (default: one per core)");
     disperse->add_flag("--json", o->json, "The summary and every case as JSON (what merge reads)");
-    disperse->add_flag("--csv", o->csv, "Every case as CSV: its draws, key figures and failed checks");
+    disperse->add_flag("--csv", o->csv, "Every case as CSV: its draws, key figures, landing point and failed checks");
+    disperse->add_option("--ellipse-probability", o->ellipse_probability,
+                         "Probability held by the landing ellipse (0 to 1)")
+        ->default_val(default_ellipse_probability)
+        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
 
     CLI::App* merge = app.add_subcommand("merge", "Combine the --json outputs of disperse shards");
     merge->add_option("parts", o->parts, "Shard outputs")->required()->check(CLI::ExistingFile);
     merge->add_flag("--json", o->json, "The merged summary and cases as JSON");
     merge->add_flag("--csv", o->csv, "The merged cases as CSV");
+    merge->add_option("--ellipse-probability", o->ellipse_probability,
+                      "Probability held by the landing ellipse (0 to 1)")
+        ->default_val(default_ellipse_probability)
+        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
 
     CLI::App* sensitivity = app.add_subcommand(
         "sensitivity", "Normalised sensitivity of each key figure to each numeric input");
@@ -246,7 +262,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
                 fmt::print(stderr, "{}: {}\n", o->design, error);
                 return exit_unreadable;
             }
-            const DispersionSummary summary = summarize(*campaign);
+            const DispersionSummary summary = summarize(*campaign, o->ellipse_probability);
             if (o->json) {
                 fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
                                         {"campaign", campaign_to_json(*campaign)}}.dump(1));
@@ -284,7 +300,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
                 fmt::print(stderr, "{}\n", error);
                 return exit_unreadable;
             }
-            const DispersionSummary summary = summarize(*merged);
+            const DispersionSummary summary = summarize(*merged, o->ellipse_probability);
             if (o->json) {
                 fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
                                         {"campaign", campaign_to_json(*merged)}}.dump(1));

@@ -51,6 +51,12 @@ double initial_azimuth_rad(const GroundPoint& a, const GroundPoint& b) {
     return std::atan2(v.dot(east(a)), v.dot(north(a)));
 }
 
+GroundPoint mean_point(const std::vector<GroundPoint>& points) {
+    Eigen::Vector3d sum = Eigen::Vector3d::Zero();
+    for (const GroundPoint& p : points) sum += unit(p);
+    return {std::atan2(sum.z(), std::hypot(sum.x(), sum.y())), std::atan2(sum.y(), sum.x())};
+}
+
 GroundPoint destination(const GroundPoint& from, double azimuth_rad, double distance_m,
                         double radius_m) {
     const double angle = distance_m / radius_m;

@@ -1,5 +1,7 @@
 #pragma once
 
+#include <vector>
+
 namespace ds {
 
 /// A point on the body's surface, rad (latitude north positive, longitude east positive).
@@ -31,6 +33,9 @@ double great_circle_distance_m(const GroundPoint& a, const GroundPoint& b, doubl
 
 /// Initial azimuth of the great circle from a to b, rad clockwise from north, in (-pi, pi].
 double initial_azimuth_rad(const GroundPoint& a, const GroundPoint& b);
+
+/// The normalised mean of points' unit vectors: their centre on the sphere.
+GroundPoint mean_point(const std::vector<GroundPoint>& points);
 
 /// The point a given distance from `from` along the great circle leaving it on an azimuth.
 GroundPoint destination(const GroundPoint& from, double azimuth_rad, double distance_m,
