@@ -139,7 +139,10 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     c.drag_N = c.dynamic_pressure_Pa * stage.drag_area_m2(c.mach);
     c.lift_N = stage.lift_to_drag * c.drag_N;
     c.gravity_m_s2 = model.body.gravity_m_s2(altitude);
-    c.deceleration_g = std::hypot(c.drag_N, c.lift_N) / mass / standard_gravity_m_s2;
+    // sqrt of the sum of squares, not std::hypot: forces never come near overflow, and this is
+    // the integrator's innermost loop.
+    c.deceleration_g =
+        std::sqrt(c.drag_N * c.drag_N + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
     if (stage.nose_radius_m > 0.0) {
         c.convective_heat_flux_W_m2 = sutton_graves_heat_flux_W_m2(
             model.body.gas.sutton_graves_k, air.density_kg_m3, stage.nose_radius_m, velocity);
@@ -161,7 +164,7 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
         // Lift in the vertical plane through the air velocity, rotated about it by the bank:
         // n1 is the up direction less its part along the velocity, n2 = along x n1 points to
         // the right of the flight.
-        const double horizontal = std::hypot(along.x(), along.y());
+        const double horizontal = std::sqrt(along.x() * along.x() + along.y() * along.y());
         if (c.lift_N != 0.0 && horizontal > 0.0) {
             const double up = along.z();
             const Vec3 n1(-up * along.x() / horizontal, -up * along.y() / horizontal, horizontal);

@@ -36,7 +36,8 @@ inline double speed(const FlightState& y) {
 
 /// Planet-relative horizontal speed, m/s.
 inline double horizontal_speed(const FlightState& y) {
-    return std::hypot(y[StateIndex::east_velocity], y[StateIndex::north_velocity]);
+    return std::sqrt(y[StateIndex::east_velocity] * y[StateIndex::east_velocity] +
+                     y[StateIndex::north_velocity] * y[StateIndex::north_velocity]);
 }
 
 /// Planet-relative flight-path angle, rad, negative below the local horizontal.

@@ -239,6 +239,10 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     if (e.aeroshell.diameter_m <= 0.0) return e;
 
     e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
+    if (e.entry.end == EntryEnd::ground) {  // it comes down before the parachute: there
+        e.landing_point = GroundPoint{e.entry.end_state[StateIndex::latitude],
+                                      e.entry.end_state[StateIndex::longitude]};
+    }
     e.total_heat_load_J_cm2 = (e.entry.end_state[StateIndex::convective_heat_load] +
                                e.entry.end_state[StateIndex::radiative_heat_load]) *
                               per_cm2;
