@@ -236,6 +236,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     e.entry_kg = entry_kg;
     e.aeroshell = resolve_aeroshell(design, entry_kg);
     for (const MassItemDesign& item : design.mass.items) e.budget.add_design_item(item);
+    e.entry.interface = interface_state(design, model.body);  // reported even when not flown
     if (e.aeroshell.diameter_m <= 0.0) return e;
 
     e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
