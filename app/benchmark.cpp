@@ -1,7 +1,8 @@
 // descent-sizer-bench: how long the core takes, for the README's speed figures.
 // For each sample, many times over, reports the median and the spread of
 //  - the entry: one trajectory from the interface to the parachute trigger at the design's
-//    tolerance (1e-8 relative), and
+//    tolerance (1e-8 relative), as the design gives it and again with a direction over the
+//    rotating body ("rotating"), and
 //  - the whole sizing: entry, descent, terminal burn, mass closure iterations, the highest
 //    feasible site elevation and the checks, as `descent-sizer size` runs it.
 
@@ -61,8 +62,8 @@ int main(int argc, char** argv) {
         const ds::DesignReadResult read = ds::read_design_file(file);
         if (!read.ok()) continue;
         const ds::Design& design = *read.design;
-        const std::unique_ptr<ds::Atmosphere> atmosphere = ds::make_atmosphere(design);
-        const ds::FlightModel model{design.body.body, *atmosphere};
+        const ds::FlightEnvironment environment = ds::make_environment(design);
+        const ds::FlightModel model = environment.model();
         const double mass = ds::size_design(design).entry.mass_kg;
         const ds::ResolvedAeroshell aeroshell = ds::resolve_aeroshell(design, mass);
         std::size_t entry_steps = 0;
@@ -71,6 +72,22 @@ int main(int argc, char** argv) {
             repetitions);
         fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", file.stem().string(),
                    "entry", entry.median_ms, entry.p10_ms, entry.p90_ms, entry_steps);
+        // The same entry with a direction, over the rotating body (45 deg north, heading
+        // north-east): the three-dimensional equations with every term in play.
+        ds::Design turning = design;
+        turning.entry.latitude_deg = 45.0;
+        turning.entry.azimuth_deg = 45.0;
+        const ds::FlightEnvironment turning_environment = ds::make_environment(turning);
+        const ds::FlightModel turning_model = turning_environment.model();
+        std::size_t turning_steps = 0;
+        const Timing rotating = measure(
+            [&] {
+                turning_steps =
+                    ds::fly_entry(turning, turning_model, aeroshell, mass, nullptr).steps;
+            },
+            repetitions);
+        fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", "", "rotating",
+                   rotating.median_ms, rotating.p10_ms, rotating.p90_ms, turning_steps);
         const Timing whole = measure([&] { (void)ds::size_design(design); }, repetitions);
         fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", "", "sizing",
                    whole.median_ms, whole.p10_ms, whole.p90_ms, "");

@@ -4,6 +4,7 @@
 #include <iterator>
 #include <optional>
 #include <string_view>
+#include <utility>
 
 #include <fmt/format.h>
 
@@ -73,6 +74,17 @@ void write_checks(std::string& out, const std::vector<Check>& checks) {
 
 void write_entry(std::string& out, const EntryResults& e) {
     heading(out, "Entry");
+    auto it = std::back_inserter(out);
+    const EntryInterface& in = e.interface;
+    fmt::format_to(it, "  {:<{}} {:>12.4f} {:>12.4f} deg{}\n", "interface latitude, longitude",
+                   label_width, in.latitude_deg, in.longitude_deg,
+                   in.rotation_flown ? "" : " (body flown without rotation)");
+    for (const auto& [frame, v] : {std::pair<std::string_view, const EntryVelocity&>{"planet-relative", in.relative},
+                                   std::pair<std::string_view, const EntryVelocity&>{"inertial", in.inertial}}) {
+        fmt::format_to(it, "  {:<{}} {:>12.1f} m/s at {:.3f} deg, azimuth {:.3f} deg\n",
+                       fmt::format("entry state, {}", frame), label_width, v.velocity_m_s,
+                       v.flight_path_angle_deg, v.azimuth_deg);
+    }
     row(out, "entry mass", e.mass_kg, "kg", 1);
     row(out, "aeroshell diameter", e.diameter_m, "m", 3);
     row(out, "nose radius", e.nose_radius_m, "m", 3);
@@ -118,6 +130,10 @@ void write_parachute(std::string& out, const ParachuteResults& p) {
     row(out, "inflation time", p.inflation_time_s, "s", 2);
     row(out, "heat-shield jettison time", p.heat_shield_jettison_time_s, "s", 1);
     row(out, "descent velocity under canopy", p.descent_velocity_m_s, "m/s", 1);
+    row(out, "deploy latitude", p.deploy_latitude_deg, "deg", 4);
+    row(out, "deploy longitude", p.deploy_longitude_deg, "deg", 4);
+    row(out, "drift under the canopy", p.drift_m, "m", 0);
+    row(out, "  towards azimuth", p.drift_azimuth_deg, "deg", 1);
 }
 
 void write_terminal(std::string& out, const TerminalResults& t) {
@@ -132,6 +148,8 @@ void write_terminal(std::string& out, const TerminalResults& t) {
     row(out, "propellant burned", t.burned_propellant_kg, "kg", 1);
     row(out, "propellant loaded", t.propellant_kg, "kg", 1);
     row(out, "touchdown velocity", t.touchdown_velocity_m_s, "m/s", 2);
+    row(out, t.method == TerminalMethod::airbag ? "horizontal speed at release" : "horizontal speed at touchdown",
+        t.touchdown_horizontal_velocity_m_s, "m/s", 2);
     if (t.impact_velocity_m_s) {
         row(out, "airbag impact velocity", t.impact_velocity_m_s, "m/s", 1);
         row(out, "airbag impact energy", t.impact_energy_J, "J", 0);
@@ -141,14 +159,37 @@ void write_terminal(std::string& out, const TerminalResults& t) {
 
 void write_timeline(std::string& out, const Results& results) {
     heading(out, "Timeline");
+    fmt::format_to(std::back_inserter(out), "  {:>11}  {:<28} {:>12} {:>13} {:>9} {:>9} {:>10} {:>10}\n", "time",
+                   "event", "altitude", "velocity", "lat deg", "lon deg", "down km", "cross km");
     for (const TimelineEvent& ev : results.timeline.events) {
-        fmt::format_to(std::back_inserter(out), "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s\n",
-                       ev.time_s, ev.name, ev.altitude_m, ev.velocity_m_s);
+        fmt::format_to(std::back_inserter(out),
+                       "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s {:>9.4f} {:>9.4f} {:>10.3f} "
+                       "{:>10.3f}\n",
+                       ev.time_s, ev.name, ev.altitude_m, ev.velocity_m_s, ev.latitude_deg,
+                       ev.longitude_deg, ev.downrange_m * 1e-3, ev.crossrange_m * 1e-3);
     }
     row(out, "time from deploy to the burn", results.timeline.available_s, "s", 1);
     row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
     row(out, "timeline margin", results.timeline.margin_s, "s", 1);
     row(out, "highest feasible site elevation", results.capability.max_site_elevation_m, "m", 0);
+}
+
+void write_landing(std::string& out, const std::optional<LandingResults>& landing) {
+    heading(out, "Landing");
+    if (!landing) {
+        text_row(out, "landing point", "-");
+        return;
+    }
+    const LandingResults& l = *landing;
+    row(out, "latitude", l.latitude_deg, "deg", 4);
+    row(out, "longitude", l.longitude_deg, "deg", 4);
+    row(out, "downrange from the entry point", l.downrange_m * 1e-3, "km", 3);
+    row(out, "crossrange (right positive)", l.crossrange_m * 1e-3, "km", 3);
+    if (l.miss_m) {
+        row(out, "miss distance from the target", *l.miss_m * 1e-3, "km", 3);
+        row(out, "  downrange part", l.miss_downrange_m.value_or(0.0) * 1e-3, "km", 3);
+        row(out, "  crossrange part", l.miss_crossrange_m.value_or(0.0) * 1e-3, "km", 3);
+    }
 }
 
 void write_mass(std::string& out, const MassResults& mass) {
@@ -181,6 +222,7 @@ std::string format_summary(const Design& design, const Results& results) {
     write_parachute(out, results.parachute);
     write_terminal(out, results.terminal);
     write_timeline(out, results);
+    write_landing(out, results.landing);
     write_mass(out, results.mass);
     out += "\n";
     for (const std::string& note : results.notes)

@@ -176,6 +176,13 @@ void printSummary(const DispersionSummary& s) {
         fmt::print("{:<26} {:>8} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g}\n", f.id,
                    f.unit, f.mean, f.standard_deviation, f.p01, f.p50, f.p99);
     }
+    if (s.landing_ellipse) {
+        const LandingEllipse& e = *s.landing_ellipse;
+        fmt::print("\nlanding ellipse ({:.4g} %, {} landing points): centre {:.5f} deg, {:.5f} deg; "
+                   "semi-major {:.3f} km, semi-minor {:.3f} km, major axis at azimuth {:.1f} deg\n",
+                   100.0 * e.probability, e.count, e.centre_latitude_deg, e.centre_longitude_deg,
+                   e.axes.semi_major_km, e.axes.semi_minor_km, e.axes.major_axis_azimuth_deg);
+    }
     if (!s.failing_checks.empty()) {
         fmt::print("\nfailing checks, most frequent first:\n");
         for (const auto& [id, count] : s.failing_checks) {
@@ -254,6 +261,7 @@ struct Options {
     std::string shard = "0/1";
     std::vector<std::string> parts;
     std::vector<std::string> inputs;
+    double ellipse_probability = default_ellipse_probability;
 };
 
 int sweepCommand(const Options& o) {
@@ -283,6 +291,7 @@ int disperseCommand(const Options& o) {
     request.kind = StudyKind::dispersions;
     request.runs = o.runs;
     request.seed = o.seed;
+    request.ellipse_probability = o.ellipse_probability;
     if (std::sscanf(o.shard.c_str(), "%zu/%zu", &request.shard_index, &request.shard_count) != 2 ||
         request.shard_count == 0 || request.shard_index >= request.shard_count) {
         fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o.shard);
@@ -321,7 +330,7 @@ int mergeCommand(const Options& o) {
         fmt::print(stderr, "{}\n", error);
         return exit_unreadable;
     }
-    printCampaign(*merged, summarize(*merged), formatOf(o.json, o.csv));
+    printCampaign(*merged, summarize(*merged, o.ellipse_probability), formatOf(o.json, o.csv));
     return 0;
 }
 
@@ -361,12 +370,20 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     disperse->add_option("--shard", o->shard, "I/N: run the I-th of N slices (for a batch array)");
     disperse->add_option("--threads", o->threads, "Threads (default: one per core)");
     disperse->add_flag("--json", o->json, "The summary and every case as JSON (what merge reads)");
-    disperse->add_flag("--csv", o->csv, "Every case as CSV: its draws, key figures and failed checks");
+    disperse->add_flag("--csv", o->csv, "Every case as CSV: its draws, key figures, landing point and failed checks");
+    disperse->add_option("--ellipse-probability", o->ellipse_probability,
+                         "Probability held by the landing ellipse (0 to 1)")
+        ->default_val(default_ellipse_probability)
+        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
 
     CLI::App* merge = app.add_subcommand("merge", "Combine the --json outputs of disperse shards");
     merge->add_option("parts", o->parts, "Shard outputs")->required()->check(CLI::ExistingFile);
     merge->add_flag("--json", o->json, "The merged summary and cases as JSON");
     merge->add_flag("--csv", o->csv, "The merged cases as CSV");
+    merge->add_option("--ellipse-probability", o->ellipse_probability,
+                      "Probability held by the landing ellipse (0 to 1)")
+        ->default_val(default_ellipse_probability)
+        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
 
     CLI::App* sensitivity = app.add_subcommand(
         "sensitivity", "Normalised sensitivity of each key figure to each numeric input");

@@ -35,6 +35,14 @@ struct Limits {
     /// Airbag impact velocity the bags are qualified for; 25 m/s is our default (from memory,
     /// common practice: set it to the bag's test data).
     double airbag_impact_velocity_max_m_s = 25.0;
+    /// Horizontal speed at touchdown, by terminal method (the touchdown_horizontal_velocity
+    /// check): legs (retro) 1 m/s; at airbag release 20 m/s (from memory); the hovering stage
+    /// while the payload is lowered (tethered) 0.5 m/s; a touchdown on the canopy (none) 15 m/s.
+    /// Our defaults (common practice: set each to the vehicle's qualified value).
+    double touchdown_horizontal_velocity_max_m_s = 1.0;
+    double airbag_release_horizontal_velocity_max_m_s = 20.0;
+    double tethered_horizontal_velocity_max_m_s = 0.5;
+    double canopy_touchdown_horizontal_velocity_max_m_s = 15.0;
     /// Timeline margin below this is marginal; below zero fails (common practice).
     double timeline_margin_min_s = 10.0;
     /// A physics check within this fraction of its limit is "marginal" (common practice).

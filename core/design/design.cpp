@@ -28,6 +28,9 @@ constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
                                          {Maturity::existing, "existing"},
                                          {Maturity::actual, "actual"}}};
 
+constexpr Names<VelocityFrame, 2> velocity_frames{{{VelocityFrame::relative, "relative"},
+                                                   {VelocityFrame::inertial, "inertial"}}};
+
 template <class Enum, std::size_t Count>
 std::string_view name_of(const Names<Enum, Count>& names, Enum value) {
     for (const auto& [e, name] : names) {
@@ -74,5 +77,10 @@ std::vector<std::string_view> atmosphere_model_names() { return all_names(atmosp
 std::vector<std::string_view> terminal_method_names() { return all_names(terminal_methods); }
 std::vector<std::string_view> mass_group_names() { return all_names(mass_groups); }
 std::vector<std::string_view> maturity_names() { return all_names(maturities); }
+std::vector<std::string_view> velocity_frame_names() { return all_names(velocity_frames); }
+std::string_view to_string(VelocityFrame frame) { return name_of(velocity_frames, frame); }
+std::optional<VelocityFrame> velocity_frame_from(std::string_view name) {
+    return value_of(velocity_frames, name);
+}
 
 }  // namespace ds

@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "atmosphere/table_row.hpp"
+#include "atmosphere/wind.hpp"
 #include "body/body.hpp"
 #include "checks/limits.hpp"
 #include "mass/group.hpp"
@@ -28,6 +29,14 @@ struct BodyDesign {
     bool operator==(const BodyDesign&) const = default;
 };
 
+/// The design's wind: a table, or a constant (written back in the form it was read).
+struct WindDesign {
+    std::vector<WindRow> rows;  ///< by increasing altitude; empty with `constant`
+    std::optional<WindVelocity> constant;
+
+    bool operator==(const WindDesign&) const = default;
+};
+
 enum class AtmosphereModel { exponential, table, standard };
 
 struct AtmosphereDesign {
@@ -43,22 +52,40 @@ struct AtmosphereDesign {
     std::optional<double> gas_constant_J_kgK;  ///< default: the body's gas
     std::optional<double> gamma;               ///< default: the body's gas
     double density_scale = 1.0;
+    /// "wind": rows [altitude_m, east_m_s, north_m_s], linear in altitude and held constant
+    /// outside them, or one wind { "east_m_s", "north_m_s" } at every altitude. Any model.
+    std::optional<WindDesign> wind;
+    double wind_scale = 1.0;  ///< multiplies the wind: the knob dispersions turn
 
     bool operator==(const AtmosphereDesign&) const = default;
 };
 
 struct SiteDesign {
     double elevation_m = 0.0;
+    /// The target: with both, the results give the miss distance.
+    std::optional<double> latitude_deg;
+    std::optional<double> longitude_deg;
 
     bool operator==(const SiteDesign&) const = default;
 };
 
+/// The frame of the entry state's speed, flight-path angle and azimuth.
+enum class VelocityFrame { relative, inertial };
+
 struct EntryDesign {
     double interface_altitude_m = 0.0;
-    double velocity_m_s = 0.0;  ///< planet-relative
+    double velocity_m_s = 0.0;  ///< in velocity_frame
     double flight_path_angle_deg = 0.0;  ///< negative below the local horizontal
     double lift_to_drag = 0.0;
-    double bank_angle_deg = 0.0;
+    double bank_angle_deg = 0.0;  ///< positive turns the lift to the right of the flight
+    std::optional<double> latitude_deg;   ///< of the entry point; default 0
+    std::optional<double> longitude_deg;  ///< of the entry point; default 0
+    /// Clockwise from north (90 = east). Without it the entry has no direction: the body is
+    /// flown without rotation, heading east for the ground track and the winds.
+    std::optional<double> azimuth_deg;
+    /// "relative" (planet-relative, default) or "inertial" (turned into the planet-relative
+    /// state at the interface, v_rel = v_in - w x r).
+    VelocityFrame velocity_frame = VelocityFrame::relative;
 
     bool operator==(const EntryDesign&) const = default;
 };
@@ -186,6 +213,9 @@ std::vector<std::string_view> atmosphere_model_names();
 std::vector<std::string_view> terminal_method_names();
 std::vector<std::string_view> mass_group_names();
 std::vector<std::string_view> maturity_names();
+std::vector<std::string_view> velocity_frame_names();
+std::string_view to_string(VelocityFrame frame);
+std::optional<VelocityFrame> velocity_frame_from(std::string_view name);
 
 enum class DistributionKind { normal, uniform };
 

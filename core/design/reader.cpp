@@ -542,12 +542,59 @@ private:
         if (read_ok(model.path()))
             selection.model = design_.atmosphere.model;
         read_keys(f, "atmosphere", selection);
+        read_wind(f);
         // Without a known model the other keys cannot be judged: the model error says enough.
         if (!selection.model)
             return;
         if (*selection.model == AtmosphereModel::table)
             read_table(f);
         f.report_unknown();
+    }
+
+    /// The wind: rows by increasing altitude, or one constant wind.
+    void read_wind(Fields& f) {
+        const Json* wind = f.value("wind", Need::optional);
+        if (!wind)
+            return;
+        const Place place = f.place_of("wind");
+        WindDesign& out = design_.atmosphere.wind.emplace();
+        if (wind->is_object()) {
+            Fields constant(*wind, place, *issues_);
+            WindVelocity v;
+            v.east_m_s = constant.number("east_m_s", any_finite).value_or(0.0);
+            v.north_m_s = constant.number("north_m_s", any_finite).value_or(0.0);
+            constant.report_unknown();
+            out.constant = v;
+            return;
+        }
+        if (!wind->is_array() || wind->empty()) {
+            issues_->add(place, fmt::format("must be rows [{{\"altitude_m\", \"east_m_s\", "
+                                            "\"north_m_s\"}}, ...] or one wind {{\"east_m_s\", "
+                                            "\"north_m_s\"}}, got {}",
+                                            wind->is_array() ? "no rows" : wind->type_name()));
+            return;
+        }
+        for (std::size_t i = 0; i < wind->size(); ++i) {
+            const Place row_place = place.element(i);
+            const Json& item = (*wind)[i];
+            if (!item.is_object()) {
+                issues_->add(row_place, fmt::format("must be an object, got {}", item.type_name()));
+                continue;
+            }
+            Fields row(item, row_place, *issues_);
+            WindRow values;
+            const auto altitude = row.number("altitude_m", any_finite);
+            if (altitude && !out.rows.empty() && *altitude <= out.rows.back().altitude_m) {
+                row.report("altitude_m",
+                           fmt::format("must be above the previous row's altitude ({} m), got {}",
+                                       out.rows.back().altitude_m, *altitude));
+            }
+            values.altitude_m = altitude.value_or(0.0);
+            values.east_m_s = row.number("east_m_s", any_finite).value_or(0.0);
+            values.north_m_s = row.number("north_m_s", any_finite).value_or(0.0);
+            row.report_unknown();
+            out.rows.push_back(values);
+        }
     }
 
     void read_table(Fields& f) {

@@ -164,6 +164,15 @@ constexpr TextAccess terminal_method{
         return method.has_value();
     }};
 
+constexpr TextAccess velocity_frame{
+    [](const Design& d) { return to_string(d.entry.velocity_frame); },
+    [](Design& d, std::string_view name) {
+        const auto frame = velocity_frame_from(name);
+        if (frame)
+            d.entry.velocity_frame = *frame;
+        return frame.has_value();
+    }};
+
 std::vector<std::string_view> canopy_names() {
     std::vector<std::string_view> names;
     for (const CanopyType& type : canopy_types())
@@ -188,6 +197,11 @@ constexpr double relative_tolerance_max = 1e-3;
 // default, is our bound: a stiff descent that uses them all takes about 5 s and 450 MB
 // (Release); one allowed 2^31 - 1 took 24 s and 2.7 GB.
 constexpr double max_steps_max = 1'000'000;
+// Geographic angles: latitude on the sphere; longitudes and azimuths within a turn either way.
+constexpr ValueRange latitude_range{.at_least = -90.0, .at_most = 90.0};
+constexpr ValueRange longitude_range{.at_least = -360.0, .at_most = 360.0};
+// A wind scale multiplies the wind of the design; ten times is our bound on a plausible trade.
+constexpr double wind_scale_max = 10.0;
 
 constexpr std::array powered_methods{TerminalMethod::retro, TerminalMethod::airbag,
                                      TerminalMethod::tethered};
@@ -201,6 +215,10 @@ constexpr std::array atmosphere_texts{
     ChoiceText{"exponential", "exponential"},
     ChoiceText{"standard", "the body's standard model"},
     ChoiceText{"table", "table (edit in the file)"},
+};
+constexpr std::array frame_texts{
+    ChoiceText{"relative", "planet-relative"},
+    ChoiceText{"inertial", "inertial (turned planet-relative at the interface)"},
 };
 constexpr std::array method_texts{
     ChoiceText{"retro", "retro-rockets to touchdown"},
@@ -285,10 +303,24 @@ const std::array keys{
            .range = positive,
            .number = member<&Design::atmosphere, &AtmosphereDesign::density_scale>,
            .label = "Density scale", .typical = {{0.8, 1.2}}},
+    // A table [{altitude_m, east_m_s, north_m_s}, ...] or a constant {east_m_s, north_m_s}.
+    KeyRow{.section = "atmosphere", .key = "wind", .kind = KeyKind::by_hand},
+    KeyRow{.section = "atmosphere", .key = "wind_scale", .need = KeyNeed::defaulted,
+           .range = {.at_least = 0.0, .at_most = wind_scale_max},
+           .number = member<&Design::atmosphere, &AtmosphereDesign::wind_scale>,
+           .label = "Wind scale", .typical = {{0.5, 1.5}}},
 
     KeyRow{.section = "site", .key = "elevation_m", .range = any_finite, .unit = "m",
            .number = member<&Design::site, &SiteDesign::elevation_m>, .label = "Site elevation",
            .typical = {{-4000, 0}}},
+    KeyRow{.section = "site", .key = "latitude_deg", .need = KeyNeed::optional,
+           .range = latitude_range, .unit = "deg",
+           .number = member<&Design::site, &SiteDesign::latitude_deg>,
+           .label = "Target latitude", .typical = {{-60, 60}}, .placeholder = "no target"},
+    KeyRow{.section = "site", .key = "longitude_deg", .need = KeyNeed::optional,
+           .range = longitude_range, .unit = "deg",
+           .number = member<&Design::site, &SiteDesign::longitude_deg>,
+           .label = "Target longitude", .typical = {{-180, 180}}, .placeholder = "no target"},
 
     KeyRow{.section = "entry", .key = "interface_altitude_m", .range = positive, .unit = "m",
            .number = member<&Design::entry, &EntryDesign::interface_altitude_m>,
@@ -308,6 +340,22 @@ const std::array keys{
            .range = {.at_least = -180.0, .at_most = 180.0}, .unit = "deg",
            .number = member<&Design::entry, &EntryDesign::bank_angle_deg>, .label = "Bank angle",
            .typical = {{0, 90}}},
+    KeyRow{.section = "entry", .key = "latitude_deg", .need = KeyNeed::optional,
+           .range = latitude_range, .unit = "deg",
+           .number = member<&Design::entry, &EntryDesign::latitude_deg>,
+           .label = "Entry latitude", .typical = {{-60, 60}}, .placeholder = "0 deg"},
+    KeyRow{.section = "entry", .key = "longitude_deg", .need = KeyNeed::optional,
+           .range = longitude_range, .unit = "deg",
+           .number = member<&Design::entry, &EntryDesign::longitude_deg>,
+           .label = "Entry longitude", .typical = {{-180, 180}}, .placeholder = "0 deg"},
+    KeyRow{.section = "entry", .key = "azimuth_deg", .need = KeyNeed::optional,
+           .range = longitude_range, .unit = "deg",
+           .number = member<&Design::entry, &EntryDesign::azimuth_deg>,
+           .label = "Azimuth (from north)", .typical = {{0, 360}},
+           .placeholder = "none: body flown without rotation"},
+    KeyRow{.section = "entry", .key = "velocity_frame", .kind = KeyKind::choice,
+           .need = KeyNeed::defaulted, .text = velocity_frame, .choices = &velocity_frame_names,
+           .label = "Entry state is", .choice_texts = frame_texts},
 
     KeyRow{.section = "aeroshell", .key = "diameter_m", .kind = KeyKind::number_or_request,
            .range = positive, .unit = "m",
@@ -505,6 +553,14 @@ const std::array keys{
     limit<&Limits::landed_mass_max_kg>("landed_mass_max_kg", "kg"),
     limit<&Limits::touchdown_velocity_max_m_s>("touchdown_velocity_max_m_s", "m/s"),
     limit<&Limits::airbag_impact_velocity_max_m_s>("airbag_impact_velocity_max_m_s", "m/s"),
+    limit<&Limits::touchdown_horizontal_velocity_max_m_s>("touchdown_horizontal_velocity_max_m_s",
+                                                          "m/s"),
+    limit<&Limits::airbag_release_horizontal_velocity_max_m_s>(
+        "airbag_release_horizontal_velocity_max_m_s", "m/s"),
+    limit<&Limits::tethered_horizontal_velocity_max_m_s>("tethered_horizontal_velocity_max_m_s",
+                                                         "m/s"),
+    limit<&Limits::canopy_touchdown_horizontal_velocity_max_m_s>(
+        "canopy_touchdown_horizontal_velocity_max_m_s", "m/s"),
     limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s"),
     // A marginal band is a fraction of the limit (our bound).
     limit<&Limits::marginal_band>("marginal_band", "", fraction_of_one),

@@ -41,7 +41,20 @@ Json body_to_json(const BodyDesign& design) {
 
 /// A table atmosphere's own keys: the file stays the source of a table read from one.
 void put_table(Json& out, const KeyRow& row, const AtmosphereDesign& atmosphere) {
-    if (row.key == "csv_file" && !atmosphere.csv_file.empty()) {
+    if (row.key == "wind") {
+        if (atmosphere.wind && atmosphere.wind->constant) {
+            out["wind"] = Json{{"east_m_s", number(atmosphere.wind->constant->east_m_s)},
+                               {"north_m_s", number(atmosphere.wind->constant->north_m_s)}};
+        } else if (atmosphere.wind) {
+            Json rows = Json::array();
+            for (const WindRow& w : atmosphere.wind->rows) {
+                rows.push_back(Json{{"altitude_m", number(w.altitude_m)},
+                                    {"east_m_s", number(w.east_m_s)},
+                                    {"north_m_s", number(w.north_m_s)}});
+            }
+            out["wind"] = std::move(rows);
+        }
+    } else if (row.key == "csv_file" && !atmosphere.csv_file.empty()) {
         out["csv_file"] = atmosphere.csv_file;
     } else if (row.key == "rows" && atmosphere.csv_file.empty()) {
         Json rows = Json::array();

@@ -14,46 +14,110 @@ namespace {
 /// Altitude step of the central differences along the equilibrium: small against every scale
 /// height and large against rounding, as in Atmosphere::log_density_slope_per_m.
 constexpr double equilibrium_step_m = 1.0;
-/// The equilibrium speed is a fixed point (the drag area depends on it through Mach), which
-/// contracts by |d ln CdA / d ln M| / 2 per pass: 0 subsonic for the catalogue's canopies, about
-/// 0.12 on the steepest stretch of the disk-gap-band table. It stops when a pass moves the speed
-/// by a few units of rounding, or after this many passes (our bounds).
+/// The equilibrium velocity is a fixed point (the drag area depends on it through Mach, the
+/// frame's acceleration through the Coriolis and transport terms), which contracts by
+/// |d ln CdA / d ln M| / 2 per pass (0 subsonic for the catalogue's canopies, about 0.12 on the
+/// steepest stretch of the disk-gap-band table) plus some 2 omega V / g (1e-3 or less). It
+/// stops when a pass moves the velocity by a few units of rounding, or after this many passes
+/// (our bounds).
 constexpr int equilibrium_passes = 60;
 constexpr double equilibrium_rounding = 4.0 * std::numeric_limits<double>::epsilon();
 
-/// The equilibrium at an altitude where drag balances gravity less the centrifugal term plus
-/// `extra_m_s2`, and the flight-path angle is where flight_derivative turns the path no more;
-/// a fixed point on the speed from `v_start`.
-Equilibrium balance(const FlightModel& model, const Stage& stage, double altitude_m, double mass_kg,
-                    double extra_m_s2, double v_start) {
+using Vec3 = Eigen::Vector3d;
+
+Vec3 velocity_of(const FlightState& y) {
+    return {y[StateIndex::east_velocity], y[StateIndex::north_velocity],
+            y[StateIndex::up_velocity]};
+}
+
+Vec3 wind_at(const FlightModel& model, double altitude_m) {
+    if (!model.wind) return Vec3::Zero();
+    const WindVelocity w = model.wind->at(altitude_m);
+    return {w.east_m_s, w.north_m_s, 0.0};
+}
+
+/// The local frame at a point: what the frame's acceleration needs of the position.
+struct LocalFrame {
+    double r = 0.0;      ///< m from the centre
+    double omega = 0.0;  ///< rad/s
+    double sin_lat = 0.0;
+    double cos_lat = 1.0;
+    double gravity = 0.0;  ///< mu / r^2
+
+    LocalFrame(const Body& body, double altitude_m, double latitude_rad)
+        : r(body.radius_m + altitude_m),
+          omega(body.rotation_rad_s),
+          sin_lat(std::sin(latitude_rad)),
+          cos_lat(std::cos(latitude_rad)),
+          gravity(body.mu_m3_s2 / (r * r)) {}
+
+    /// What acts per unit mass on a vehicle moving at the planet-relative velocity v (east,
+    /// north, up) besides its own forces: gravity, the Coriolis term -2 w x v, the centripetal
+    /// term -w x (w x r) with w = omega (0, cos(lat), sin(lat)) in the local frame, and the
+    /// transport-rate term -rho x v of the local frame turning as the vehicle moves over the
+    /// sphere, rho = (-v_n, v_e, v_e tan(lat)) / r.
+    Vec3 acceleration(const Vec3& v) const {
+        const double s = sin_lat;
+        const double c = cos_lat;
+        const double t = s / c;
+        const double w = omega;
+        const double ve = v.x();
+        const double vn = v.y();
+        const double vu = v.z();
+        return {-2.0 * w * (c * vu - s * vn) + (ve * vn * t - ve * vu) / r,
+                -2.0 * w * s * ve - w * w * r * s * c - (ve * ve * t + vn * vu) / r,
+                -gravity + 2.0 * w * c * ve + w * w * r * c * c + (ve * ve + vn * vn) / r};
+    }
+};
+
+/// The rates of the position: altitude, latitude, longitude.
+void position_rates(const FlightModel& model, const FlightState& y, FlightState& dy) {
+    const double r = model.body.radius_m + y[StateIndex::altitude];
+    dy[StateIndex::altitude] = y[StateIndex::up_velocity];
+    dy[StateIndex::latitude] = y[StateIndex::north_velocity] / r;
+    dy[StateIndex::longitude] =
+        y[StateIndex::east_velocity] / (r * std::cos(y[StateIndex::latitude]));
+}
+
+/// The equilibrium velocity at an altitude (and latitude, mass) where the drag against the
+/// air balances the frame's acceleration less `follow`: drag / m = |a_frame - follow| along
+/// the air velocity; a fixed point on the velocity from `v`, since the frame's acceleration
+/// depends on it (Coriolis, transport) and the drag area on the Mach number.
+Vec3 balance(const FlightModel& model, const Stage& stage, double altitude_m, double latitude_rad,
+             double mass_kg, const Vec3& follow, Vec3 v) {
     const AtmosphereSample air = model.atmosphere.at(altitude_m);
-    const double r = model.body.radius_m + altitude_m;
-    const double omega = model.body.rotation_rad_s;
-    const double gravity = model.body.gravity_m_s2(altitude_m) - omega * omega * r;
-    // d gamma/dt = 2 omega - cos(gamma) (g - omega^2 r - v^2 / r) / v without lift.
-    const auto cos_gamma = [&](double v) {
-        return std::clamp(2.0 * omega * v / (gravity - v * v / r), -1.0, 1.0);
-    };
-    double v = v_start;
+    const Vec3 wind = wind_at(model, altitude_m);
+    const LocalFrame frame(model.body, altitude_m, latitude_rad);
     for (int pass = 0; pass < equilibrium_passes; ++pass) {
-        const double c = cos_gamma(v);
-        const double sink = std::sqrt(1.0 - c * c);  // -sin(gamma)
-        const double next =
-            std::sqrt(2.0 * mass_kg * sink * (gravity + extra_m_s2) /
-                      (air.density_kg_m3 * stage.drag_area_m2(v / air.speed_of_sound_m_s)));
-        const bool moved = std::abs(next - v) > equilibrium_rounding * next;  // false for NaN
+        const Vec3 need = frame.acceleration(v) - follow;
+        const double per_mass = need.norm();
+        const double mach = (v - wind).norm() / air.speed_of_sound_m_s;
+        const double air_speed = std::sqrt(2.0 * mass_kg * per_mass /
+                                           (air.density_kg_m3 * stage.drag_area_m2(mach)));
+        const Vec3 next = wind + (air_speed / per_mass) * need;
+        const bool moved =
+            (next - v).norm() > equilibrium_rounding * next.norm();  // false for NaN
         v = next;
         if (!moved) break;
     }
-    const double c = cos_gamma(v);
-    return {v, std::atan2(-std::sqrt(1.0 - c * c), c)};
+    return v;
 }
 
-/// What keeps the speed following its equilibrium, V dV/dh (the sink rate times the
-/// deceleration), from the zeroth-order speeds a step either side of an altitude.
-double following_term_m_s2(const Equilibrium& below, const Equilibrium& above) {
-    return (above.velocity_m_s * above.velocity_m_s - below.velocity_m_s * below.velocity_m_s) /
-           (4.0 * equilibrium_step_m);
+/// What keeps the velocity following its equilibrium, dv/dh times the sink rate, from the
+/// zeroth-order velocities a step either side of an altitude: under a canopy in still air, V
+/// dV/dh upward; in a wind that changes with altitude, also the horizontal push that keeps the
+/// vehicle moving with it.
+Vec3 following_term_m_s2(const Vec3& below, const Vec3& above) {
+    return (above - below) / (2.0 * equilibrium_step_m) * (0.5 * (above.z() + below.z()));
+}
+
+Equilibrium equilibrium_of(const Vec3& v) {
+    Equilibrium e;
+    e.velocity_enu_m_s = v;
+    e.velocity_m_s = v.norm();
+    e.flight_path_angle_rad = std::atan2(v.z(), std::hypot(v.x(), v.y()));
+    e.azimuth_rad = std::atan2(v.x(), v.y());
+    return e;
 }
 
 }  // namespace
@@ -61,11 +125,13 @@ double following_term_m_s2(const Equilibrium& below, const Equilibrium& above) {
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
                                    const FlightState& y) {
     const double altitude = y[StateIndex::altitude];
-    const double velocity = y[StateIndex::velocity];
     const double mass = y[StateIndex::mass];
     const AtmosphereSample air = model.atmosphere.at(altitude);
 
     FlightConditions c;
+    c.air_velocity_m_s = velocity_of(y) - wind_at(model, altitude);
+    const double velocity = c.air_velocity_m_s.norm();
+    c.air_speed_m_s = velocity;
     c.density_kg_m3 = air.density_kg_m3;
     c.speed_of_sound_m_s = air.speed_of_sound_m_s;
     c.mach = velocity / air.speed_of_sound_m_s;
@@ -73,7 +139,10 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     c.drag_N = c.dynamic_pressure_Pa * stage.drag_area_m2(c.mach);
     c.lift_N = stage.lift_to_drag * c.drag_N;
     c.gravity_m_s2 = model.body.gravity_m_s2(altitude);
-    c.deceleration_g = std::hypot(c.drag_N, c.lift_N) / mass / standard_gravity_m_s2;
+    // sqrt of the sum of squares, not std::hypot: forces never come near overflow, and this is
+    // the integrator's innermost loop.
+    c.deceleration_g =
+        std::sqrt(c.drag_N * c.drag_N + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
     if (stage.nose_radius_m > 0.0) {
         c.convective_heat_flux_W_m2 = sutton_graves_heat_flux_W_m2(
             model.body.gas.sutton_graves_k, air.density_kg_m3, stage.nose_radius_m, velocity);
@@ -86,22 +155,34 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
 
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
     const FlightConditions c = flight_conditions(model, stage, y);
-    const double r = model.body.radius_m + y[StateIndex::altitude];
-    const double v = y[StateIndex::velocity];
-    const double gamma = y[StateIndex::flight_path_angle];
     const double m = y[StateIndex::mass];
-    const double omega = model.body.rotation_rad_s;
-    const double sin_g = std::sin(gamma);
-    const double cos_g = std::cos(gamma);
+    const Vec3 v = velocity_of(y);
+    Vec3 a = LocalFrame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]).acceleration(v);
+    if (c.air_speed_m_s > 0.0) {
+        const Vec3 along = c.air_velocity_m_s / c.air_speed_m_s;
+        a -= (c.drag_N / m) * along;
+        // Lift in the vertical plane through the air velocity, rotated about it by the bank:
+        // n1 is the up direction less its part along the velocity, n2 = along x n1 points to
+        // the right of the flight.
+        const double horizontal = std::sqrt(along.x() * along.x() + along.y() * along.y());
+        if (c.lift_N != 0.0 && horizontal > 0.0) {
+            const double up = along.z();
+            const Vec3 n1(-up * along.x() / horizontal, -up * along.y() / horizontal, horizontal);
+            const Vec3 n2(along.y() / horizontal, -along.x() / horizontal, 0.0);
+            a += (c.lift_N / m) *
+                 (std::cos(stage.bank_angle_rad) * n1 + std::sin(stage.bank_angle_rad) * n2);
+        }
+    }
+    if (stage.thrust_N > 0.0) {
+        const double ground_speed = v.norm();
+        if (ground_speed > 0.0) a -= (stage.thrust_N / (m * ground_speed)) * v;
+    }
 
     FlightState dy;
-    dy[StateIndex::altitude] = v * sin_g;
-    dy[StateIndex::downrange] = v * cos_g * model.body.radius_m / r;
-    dy[StateIndex::velocity] =
-        -(c.drag_N + stage.thrust_N) / m - c.gravity_m_s2 * sin_g + omega * omega * r * sin_g;
-    dy[StateIndex::flight_path_angle] =
-        c.lift_N * std::cos(stage.bank_angle_rad) / (m * v) - (c.gravity_m_s2 / v - v / r) * cos_g +
-        2.0 * omega + omega * omega * r * cos_g / v;
+    position_rates(model, y, dy);
+    dy[StateIndex::east_velocity] = a.x();
+    dy[StateIndex::north_velocity] = a.y();
+    dy[StateIndex::up_velocity] = a.z();
     dy[StateIndex::mass] =
         stage.thrust_N > 0.0 ? -stage.thrust_N / (stage.specific_impulse_s * standard_gravity_m_s2)
                              : 0.0;
@@ -112,54 +193,57 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
 
 double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y) {
     const FlightState dy = flight_derivative(model, stage, y);
-    const double v = y[StateIndex::velocity];
-    return std::max(std::abs(dy[StateIndex::velocity]),
-                    std::abs(dy[StateIndex::flight_path_angle]) * v) /
+    const Vec3 v = velocity_of(y);
+    const Vec3 a = velocity_of(dy);
+    const Vec3 along = v / v.norm();
+    const double tangential = a.dot(along);
+    return std::max(std::abs(tangential), (a - tangential * along).norm()) /
            model.body.gravity_m_s2(y[StateIndex::altitude]);
 }
 
 Equilibrium quasi_steady_equilibrium(const FlightModel& model, const Stage& stage,
                                      const FlightState& y) {
     const double h = y[StateIndex::altitude];
+    const double lat = y[StateIndex::latitude];
     const double m = y[StateIndex::mass];
-    const double v = y[StateIndex::velocity];
+    const Vec3 v = velocity_of(y);
     const double step = equilibrium_step_m;
-    const double following = following_term_m_s2(balance(model, stage, h - step, m, 0.0, v),
-                                                 balance(model, stage, h + step, m, 0.0, v));
-    return balance(model, stage, h, m, following, v);
+    const Vec3 zero = Vec3::Zero();
+    const Vec3 following = following_term_m_s2(balance(model, stage, h - step, lat, m, zero, v),
+                                               balance(model, stage, h + step, lat, m, zero, v));
+    return equilibrium_of(balance(model, stage, h, lat, m, following, v));
 }
 
 FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y) {
     const Equilibrium e = quasi_steady_equilibrium(model, stage, y);
     FlightState out = y;
-    out[StateIndex::velocity] = e.velocity_m_s;
-    out[StateIndex::flight_path_angle] = e.flight_path_angle_rad;
+    out[StateIndex::east_velocity] = e.velocity_enu_m_s.x();
+    out[StateIndex::north_velocity] = e.velocity_enu_m_s.y();
+    out[StateIndex::up_velocity] = e.velocity_enu_m_s.z();
     return out;
 }
 
 FlightState quasi_steady_derivative(const FlightModel& model, const Stage& stage,
                                     const FlightState& y) {
     const double h = y[StateIndex::altitude];
+    const double lat = y[StateIndex::latitude];
     const double m = y[StateIndex::mass];
-    const double v = y[StateIndex::velocity];
-    const double gamma = y[StateIndex::flight_path_angle];
-    const double r = model.body.radius_m + h;
+    const Vec3 v = velocity_of(y);
     const double step = equilibrium_step_m;
+    const Vec3 zero = Vec3::Zero();
     // The first-order equilibrium a step either side, each with its own following term.
-    const Equilibrium low = balance(model, stage, h - 2.0 * step, m, 0.0, v);
-    const Equilibrium mid = balance(model, stage, h, m, 0.0, v);
-    const Equilibrium high = balance(model, stage, h + 2.0 * step, m, 0.0, v);
-    const Equilibrium below = balance(model, stage, h - step, m, following_term_m_s2(low, mid), v);
-    const Equilibrium above = balance(model, stage, h + step, m, following_term_m_s2(mid, high), v);
+    const Vec3 low = balance(model, stage, h - 2.0 * step, lat, m, zero, v);
+    const Vec3 mid = balance(model, stage, h, lat, m, zero, v);
+    const Vec3 high = balance(model, stage, h + 2.0 * step, lat, m, zero, v);
+    const Vec3 below = balance(model, stage, h - step, lat, m, following_term_m_s2(low, mid), v);
+    const Vec3 above = balance(model, stage, h + step, lat, m, following_term_m_s2(mid, high), v);
 
     FlightState dy = FlightState::Zero();
-    dy[StateIndex::altitude] = v * std::sin(gamma);
-    dy[StateIndex::downrange] = v * std::cos(gamma) * model.body.radius_m / r;
-    dy[StateIndex::velocity] =
-        (above.velocity_m_s - below.velocity_m_s) / (2.0 * step) * dy[StateIndex::altitude];
-    dy[StateIndex::flight_path_angle] =
-        (above.flight_path_angle_rad - below.flight_path_angle_rad) / (2.0 * step) *
-        dy[StateIndex::altitude];
+    position_rates(model, y, dy);
+    const Vec3 a = (above - below) / (2.0 * step) * dy[StateIndex::altitude];
+    dy[StateIndex::east_velocity] = a.x();
+    dy[StateIndex::north_velocity] = a.y();
+    dy[StateIndex::up_velocity] = a.z();
     if (stage.nose_radius_m > 0.0) {
         const FlightConditions c = flight_conditions(model, stage, y);
         dy[StateIndex::convective_heat_load] = c.convective_heat_flux_W_m2;

@@ -1,25 +1,33 @@
 #pragma once
 
+#include <Eigen/Core>
+
 #include "atmosphere/atmosphere.hpp"
+#include "atmosphere/wind.hpp"
 #include "body/body.hpp"
 #include "flight/stage.hpp"
 #include "flight/state.hpp"
 
 namespace ds {
 
-/// The body and its atmosphere: what a flight happens in. Both outlive the model.
+/// The body, its atmosphere and winds: what a flight happens in. All outlive the model. The
+/// body's rotation_rad_s is flown as given (about its north pole; 0 for none).
 struct FlightModel {
     const Body& body;
     const Atmosphere& atmosphere;
+    const WindProfile* wind = nullptr;  ///< none: the air turns with the body, still
 };
 
 /// Everything derived from a state that the equations, the events and the history need,
 /// computed in one place.
 struct FlightConditions {
+    /// The velocity relative to the air (planet-relative less the wind), east, north, up, m/s.
+    Eigen::Vector3d air_velocity_m_s = Eigen::Vector3d::Zero();
+    double air_speed_m_s = 0.0;
     double density_kg_m3 = 0.0;
     double speed_of_sound_m_s = 0.0;
-    double mach = 0.0;
-    double dynamic_pressure_Pa = 0.0;
+    double mach = 0.0;                 ///< of the air-relative speed
+    double dynamic_pressure_Pa = 0.0;  ///< of the air-relative speed
     double drag_N = 0.0;
     double lift_N = 0.0;
     double gravity_m_s2 = 0.0;
@@ -31,42 +39,50 @@ struct FlightConditions {
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
                                    const FlightState& y);
 
-/// The planar three-degree-of-freedom equations of motion over a spherical body with
-/// inverse-square gravity, in the planet-fixed frame; with rotation, the flight lies in the
-/// equatorial plane and the Coriolis and centrifugal terms are those of Vinh, Busemann and
-/// Culp, Hypersonic and Planetary Entry Flight Mechanics (1980), at zero latitude and heading
-/// east (a negative rotation rate is a westward flight). Lift is L/D x drag, its in-plane part
-/// scaled by cos(bank). Thrust acts against the velocity.
+/// The three-degree-of-freedom equations of motion of a point mass over a spherical body
+/// rotating about its north pole, with inverse-square gravity, in the body-fixed frame: the
+/// equations of Vinh, Busemann and Culp, Hypersonic and Planetary Entry Flight Mechanics
+/// (1980), written for the velocity's east, north and up components in the local horizon frame
+/// (which turns as the vehicle moves over the sphere: the transport-rate terms of inertial
+/// navigation), with the Coriolis term -2 w x v and the centripetal term -w x (w x r).
+/// Drag acts against the velocity relative to the air (the body's rotation plus the wind);
+/// lift is L/D x drag, perpendicular to that velocity in the vertical plane, rotated about it
+/// by the bank angle (a positive bank turns it to the right of the flight); with the air
+/// velocity vertical there is no vertical plane and no lift. Thrust acts against the
+/// planet-relative velocity. Singular at the poles (latitude +-90 deg).
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y);
 
-/// How far a flight is from settled, as the larger of |dv/dt| / g and |d gamma/dt| v / g of
-/// flight_derivative: near the equilibrium of a vehicle under its canopy these are, to first
-/// order, the speed's relative excess over its equilibrium times two and the flight-path
-/// angle's offset from its equilibrium in radians.
+/// How far a flight is from settled, as the larger of |dV/dt| / g and |a_perp| / g, the
+/// acceleration of flight_derivative along the velocity and across it (V times the rate at
+/// which the velocity turns): near the equilibrium of a vehicle under its canopy these are,
+/// to first order, the speed's relative excess over its equilibrium times two and the
+/// direction's offset from its equilibrium in radians.
 double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y);
 
-/// Speed and flight-path angle of a stage without thrust or lift in quasi-steady descent.
+/// The planet-relative velocity of a stage without thrust or lift in quasi-steady descent.
 struct Equilibrium {
-    double velocity_m_s = 0.0;
+    double velocity_m_s = 0.0;  ///< speed
     double flight_path_angle_rad = 0.0;
+    double azimuth_rad = 0.0;
+    Eigen::Vector3d velocity_enu_m_s = Eigen::Vector3d::Zero();  ///< east, north, up
 };
 
 /// The quasi-steady descent of a stage without thrust or lift, such as a vehicle settled under
-/// its canopy: the speed and the flight-path angle sit on their equilibrium at the altitude
-/// and mass, the one where drag balances gravity less the centrifugal term plus what keeps the
-/// speed following its equilibrium as the air thickens (the first-order term of the slow
-/// manifold, so the model's error is of the order of the square of the deceleration in g),
-/// and where gravity turns the path as fast as the Coriolis term turns it back.
+/// its canopy: the velocity sits on its equilibrium at the altitude, latitude and mass, the
+/// one where the drag (against the air: the wind carries the vehicle) balances gravity, the
+/// centrifugal, Coriolis and transport terms, plus what keeps the velocity following its
+/// equilibrium as the air thickens and the wind changes with altitude (the first-order term of
+/// the slow manifold, so the model's error is of the order of the square of the deceleration
+/// in g).
 Equilibrium quasi_steady_equilibrium(const FlightModel& model, const Stage& stage,
                                      const FlightState& y);
 
-/// The state with its speed and flight-path angle replaced by the quasi-steady equilibrium.
+/// The state with its velocity replaced by the quasi-steady equilibrium.
 FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y);
 
-/// The equations of the quasi-steady descent: altitude, downrange and heat loads as in
-/// flight_derivative; speed and flight-path angle change at the slope of their equilibrium in
-/// altitude times the sink rate, so a state on the equilibrium stays on it; the mass is held
-/// (no thrust). Free of the fast modes, so the integrator takes steps of the descent's own
+/// The equations of the quasi-steady descent: position and heat loads as in flight_derivative;
+/// the velocity changes at the slope of its equilibrium in altitude times the sink rate, so a
+/// state on the equilibrium stays on it; the mass is held (no thrust). Free of the fast modes, so the integrator takes steps of the descent's own
 /// time scale.
 FlightState quasi_steady_derivative(const FlightModel& model, const Stage& stage,
                                     const FlightState& y);

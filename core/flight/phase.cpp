@@ -12,7 +12,7 @@ double flight_quantity(FlightQuantity quantity, const FlightConditions& conditio
                        const FlightState& y) {
     switch (quantity) {
         case FlightQuantity::altitude: return y[StateIndex::altitude];
-        case FlightQuantity::velocity: return y[StateIndex::velocity];
+        case FlightQuantity::velocity: return speed(y);
         case FlightQuantity::mach: return conditions.mach;
         case FlightQuantity::dynamic_pressure: return conditions.dynamic_pressure_Pa;
         case FlightQuantity::deceleration: return conditions.deceleration_g;
@@ -25,16 +25,20 @@ double flight_quantity(FlightQuantity quantity, const FlightConditions& conditio
 TrajectorySample trajectory_sample(double time_s, const FlightConditions& c,
                                    const FlightState& y) {
     constexpr double per_cm2 = 1e-4;
-    return {time_s,
-            y[StateIndex::altitude],
-            y[StateIndex::downrange],
-            y[StateIndex::velocity],
-            radians_to_degrees(y[StateIndex::flight_path_angle]),
-            c.mach,
-            c.dynamic_pressure_Pa,
-            c.deceleration_g,
-            c.convective_heat_flux_W_m2 * per_cm2,
-            c.radiative_heat_flux_W_m2 * per_cm2};
+    TrajectorySample s;
+    s.time_s = time_s;
+    s.altitude_m = y[StateIndex::altitude];
+    s.velocity_m_s = speed(y);
+    s.flight_path_angle_deg = radians_to_degrees(flight_path_angle_rad(y));
+    s.mach = c.mach;
+    s.dynamic_pressure_Pa = c.dynamic_pressure_Pa;
+    s.deceleration_g = c.deceleration_g;
+    s.heat_flux_W_cm2 = c.convective_heat_flux_W_m2 * per_cm2;
+    s.radiative_heat_flux_W_cm2 = c.radiative_heat_flux_W_m2 * per_cm2;
+    s.latitude_deg = radians_to_degrees(y[StateIndex::latitude]);
+    s.longitude_deg = radians_to_degrees(y[StateIndex::longitude]);
+    s.azimuth_deg = radians_to_degrees(azimuth_rad(y));
+    return s;
 }
 
 IntegratorSettings<flight_state_size> flight_integrator_settings(double relative_tolerance,
@@ -43,9 +47,10 @@ IntegratorSettings<flight_state_size> flight_integrator_settings(double relative
     s.relative_tolerance = relative_tolerance;
     s.max_steps = max_steps;
     // Absolute floors: the relative tolerance times a typical size of each state (100 km,
-    // 100 km, 1 km/s, 1 rad, 1 t, 1 MJ/m^2, 1 MJ/m^2), so one tolerance sets both.
+    // 0.01 rad of latitude and longitude (some 30 to 60 km), 1 km/s for each component of the
+    // velocity, 1 t, 1 MJ/m^2, 1 MJ/m^2), so one tolerance sets both.
     FlightState typical;
-    typical << 1e5, 1e5, 1e3, 1.0, 1e3, 1e6, 1e6;
+    typical << 1e5, 1e-2, 1e-2, 1e3, 1e3, 1e3, 1e3, 1e6, 1e6;
     s.absolute_tolerance = relative_tolerance * typical;
     s.initial_step = 0.1;
     s.event_time_tolerance = 1e-7;
@@ -70,16 +75,18 @@ constexpr double settle_rate_g = 1e-3;
 constexpr double unsettle_rate_g = 2e-3;
 
 /// A trigger that counts only in descending flight asks this of the state at its crossing.
-bool descending(const FlightState& y) { return y[StateIndex::flight_path_angle] < 0.0; }
+bool descending(const FlightState& y) { return y[StateIndex::up_velocity] < 0.0; }
 
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
     return flight_quantity(q, flight_conditions(model, stage, y), y);
 }
 
-/// The deceleration of the quasi-steady model, in g.
+/// The acceleration of the quasi-steady model (the norm of its velocity's rate), in g.
 double quasi_steady_rate(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    return std::abs(quasi_steady_derivative(model, stage, y)[StateIndex::velocity]) /
+    const FlightState dy = quasi_steady_derivative(model, stage, y);
+    return std::hypot(dy[StateIndex::east_velocity], dy[StateIndex::north_velocity],
+                      dy[StateIndex::up_velocity]) /
            model.body.gravity_m_s2(y[StateIndex::altitude]);
 }
 

@@ -2,11 +2,12 @@
 
 namespace ds {
 
-/// One point of the flown trajectory, for plots and the sheet.
+/// One point of the flown trajectory, for plots and the sheet. Velocity, flight-path angle
+/// and azimuth are planet-relative; Mach and dynamic pressure are of the air-relative speed.
 struct TrajectorySample {
     double time_s = 0.0;
     double altitude_m = 0.0;
-    double downrange_m = 0.0;
+    double downrange_m = 0.0;  ///< along the entry's great circle, at the reference radius
     double velocity_m_s = 0.0;
     double flight_path_angle_deg = 0.0;
     double mach = 0.0;
@@ -14,6 +15,10 @@ struct TrajectorySample {
     double deceleration_g = 0.0;
     double heat_flux_W_cm2 = 0.0;  ///< convective
     double radiative_heat_flux_W_cm2 = 0.0;
+    double latitude_deg = 0.0;
+    double longitude_deg = 0.0;
+    double azimuth_deg = 0.0;   ///< clockwise from north
+    double crossrange_m = 0.0;  ///< across the entry's great circle, positive to the right
 };
 
 }  // namespace ds

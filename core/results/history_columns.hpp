@@ -15,7 +15,7 @@ struct HistoryColumn {
 };
 
 /// The history's figures in the order both documents write them.
-inline constexpr std::array<HistoryColumn, 10> history_columns{{
+inline constexpr std::array<HistoryColumn, 14> history_columns{{
     {"time_s", &TrajectorySample::time_s},
     {"altitude_m", &TrajectorySample::altitude_m},
     {"downrange_m", &TrajectorySample::downrange_m},
@@ -26,6 +26,10 @@ inline constexpr std::array<HistoryColumn, 10> history_columns{{
     {"deceleration_g", &TrajectorySample::deceleration_g},
     {"heat_flux_W_cm2", &TrajectorySample::heat_flux_W_cm2},
     {"radiative_heat_flux_W_cm2", &TrajectorySample::radiative_heat_flux_W_cm2},
+    {"latitude_deg", &TrajectorySample::latitude_deg},
+    {"longitude_deg", &TrajectorySample::longitude_deg},
+    {"azimuth_deg", &TrajectorySample::azimuth_deg},
+    {"crossrange_m", &TrajectorySample::crossrange_m},
 }};
 
 }  // namespace ds

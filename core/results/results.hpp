@@ -27,7 +27,26 @@ enum class DragCoefficientSource {
     modified_newtonian,  ///< "modified Newtonian": the sphere-cone's hypersonic Cd
 };
 
+/// The entry state's velocity in one frame.
+struct EntryVelocity {
+    double velocity_m_s = 0.0;
+    double flight_path_angle_deg = 0.0;
+    double azimuth_deg = 0.0;  ///< clockwise from north
+};
+
+/// Where the entry starts and how fast, planet-relative (what is flown) and inertial.
+struct EntryInterface {
+    double latitude_deg = 0.0;
+    double longitude_deg = 0.0;
+    /// The body's rotation is flown only when the entry has a direction (entry.azimuth_deg);
+    /// without one the two velocities are the same and the azimuth is east, for the ground track.
+    bool rotation_flown = false;
+    EntryVelocity relative;
+    EntryVelocity inertial;
+};
+
 struct EntryResults {
+    EntryInterface interface;
     double mass_kg = 0.0;
     double diameter_m = 0.0;
     double nose_radius_m = 0.0;
@@ -63,6 +82,12 @@ struct ParachuteResults {
     std::optional<double> heat_shield_jettison_time_s;
     /// Descent rate under the canopy at backshell separation, or at the ground for "none".
     std::optional<double> descent_velocity_m_s;
+    std::optional<double> deploy_latitude_deg;
+    std::optional<double> deploy_longitude_deg;
+    /// Ground distance from deploy to where the canopy is left (backshell separation, or the
+    /// touchdown for "none"), at the reference radius, and its direction.
+    std::optional<double> drift_m;
+    std::optional<double> drift_azimuth_deg;
 };
 
 /// The supersonic inflatable decelerator, when the design has one.
@@ -91,6 +116,22 @@ struct TerminalResults {
     std::optional<double> impact_velocity_m_s;     ///< airbag: after the free fall
     std::optional<double> impact_energy_J;         ///< airbag
     std::optional<double> hover_time_s;            ///< tethered: lowering plus fly-away
+    /// Planet-relative horizontal speed at touchdown (retro, none), at release (airbag), or of
+    /// the hovering stage while the payload touches down (tethered).
+    std::optional<double> touchdown_horizontal_velocity_m_s;
+};
+
+/// Where the lander (the payload, for airbag and tethered) comes down, when it does.
+struct LandingResults {
+    double latitude_deg = 0.0;
+    double longitude_deg = 0.0;
+    double downrange_m = 0.0;   ///< from the entry point, along the entry's great circle
+    double crossrange_m = 0.0;  ///< positive to the right of it
+    /// With a target site (site.latitude_deg, site.longitude_deg): the great-circle distance to
+    /// it, and the landing's downrange and crossrange less the target's.
+    std::optional<double> miss_m;
+    std::optional<double> miss_downrange_m;
+    std::optional<double> miss_crossrange_m;
 };
 
 struct TimelineEvent {
@@ -98,6 +139,10 @@ struct TimelineEvent {
     double time_s = 0.0;
     double altitude_m = 0.0;
     double velocity_m_s = 0.0;
+    double latitude_deg = 0.0;
+    double longitude_deg = 0.0;
+    double downrange_m = 0.0;   ///< from the entry point, along the entry's great circle
+    double crossrange_m = 0.0;  ///< positive to the right of it
 };
 
 struct Timeline {
@@ -145,6 +190,7 @@ struct Results {
     ParachuteResults parachute;
     TerminalResults terminal;
     Timeline timeline;
+    std::optional<LandingResults> landing;
     MassResults mass;
     Capability capability;
     std::vector<Check> checks;  ///< failing first, then marginal, then passing

@@ -21,6 +21,24 @@ Json number(const std::optional<double>& value) {
     return value ? number(*value) : Json(nullptr);
 }
 
+Json entry_velocity_to_json(const EntryVelocity& v) {
+    Json out;
+    out["velocity_m_s"] = number(v.velocity_m_s);
+    out["flight_path_angle_deg"] = number(v.flight_path_angle_deg);
+    out["azimuth_deg"] = number(v.azimuth_deg);
+    return out;
+}
+
+Json interface_to_json(const EntryInterface& i) {
+    Json out;
+    out["latitude_deg"] = number(i.latitude_deg);
+    out["longitude_deg"] = number(i.longitude_deg);
+    out["rotation_flown"] = i.rotation_flown;
+    out["relative"] = entry_velocity_to_json(i.relative);
+    out["inertial"] = entry_velocity_to_json(i.inertial);
+    return out;
+}
+
 Json entry_to_json(const EntryResults& entry) {
     Json out;
     out["mass_kg"] = number(entry.mass_kg);
@@ -40,6 +58,7 @@ Json entry_to_json(const EntryResults& entry) {
     out["peak_dynamic_pressure_altitude_m"] = number(entry.peak_dynamic_pressure_altitude_m);
     out["heat_shield_mass_fraction"] = number(entry.heat_shield_mass_fraction);
     out["heat_shield_tps_kg"] = number(entry.heat_shield_tps_kg);
+    out["interface"] = interface_to_json(entry.interface);
     return out;
 }
 
@@ -59,6 +78,10 @@ Json parachute_to_json(const ParachuteResults& parachute) {
     out["mass_kg"] = number(parachute.mass_kg);
     out["heat_shield_jettison_time_s"] = number(parachute.heat_shield_jettison_time_s);
     out["descent_velocity_m_s"] = number(parachute.descent_velocity_m_s);
+    out["deploy_latitude_deg"] = number(parachute.deploy_latitude_deg);
+    out["deploy_longitude_deg"] = number(parachute.deploy_longitude_deg);
+    out["drift_m"] = number(parachute.drift_m);
+    out["drift_azimuth_deg"] = number(parachute.drift_azimuth_deg);
     return out;
 }
 
@@ -93,6 +116,22 @@ Json terminal_to_json(const TerminalResults& terminal) {
     out["impact_velocity_m_s"] = number(terminal.impact_velocity_m_s);
     out["impact_energy_J"] = number(terminal.impact_energy_J);
     out["hover_time_s"] = number(terminal.hover_time_s);
+    out["touchdown_horizontal_velocity_m_s"] = number(terminal.touchdown_horizontal_velocity_m_s);
+    return out;
+}
+
+/// Where it lands, or null when it does not come down.
+Json landing_to_json(const std::optional<LandingResults>& landing) {
+    if (!landing)
+        return nullptr;
+    Json out;
+    out["latitude_deg"] = number(landing->latitude_deg);
+    out["longitude_deg"] = number(landing->longitude_deg);
+    out["downrange_m"] = number(landing->downrange_m);
+    out["crossrange_m"] = number(landing->crossrange_m);
+    out["miss_m"] = number(landing->miss_m);
+    out["miss_downrange_m"] = number(landing->miss_downrange_m);
+    out["miss_crossrange_m"] = number(landing->miss_crossrange_m);
     return out;
 }
 
@@ -104,6 +143,10 @@ Json timeline_to_json(const Timeline& timeline) {
         item["time_s"] = number(event.time_s);
         item["altitude_m"] = number(event.altitude_m);
         item["velocity_m_s"] = number(event.velocity_m_s);
+        item["latitude_deg"] = number(event.latitude_deg);
+        item["longitude_deg"] = number(event.longitude_deg);
+        item["downrange_m"] = number(event.downrange_m);
+        item["crossrange_m"] = number(event.crossrange_m);
         events.push_back(std::move(item));
     }
     Json out;
@@ -193,6 +236,7 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
     out["parachute"] = parachute_to_json(results.parachute);
     out["terminal"] = terminal_to_json(results.terminal);
     out["timeline"] = timeline_to_json(results.timeline);
+    out["landing"] = landing_to_json(results.landing);
     out["mass"] = mass_to_json(results.mass);
     out["capability"] = capability_to_json(results.capability);
     out["checks"] = checks_to_json(results.checks);

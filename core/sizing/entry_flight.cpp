@@ -1,5 +1,7 @@
 #include "sizing/entry_flight.hpp"
 
+#include <cmath>
+
 #include <fmt/format.h>
 
 #include "aeroshell/sphere_cone.hpp"
@@ -40,7 +42,43 @@ void raise_peak(PeakValue& best, const FlightModel& model, const Phase& phase, s
     }
 }
 
+/// A velocity from its east, north and up components.
+SpeedAndAngles speed_and_angles(double east, double north, double up) {
+    const double horizontal = std::hypot(east, north);
+    return {std::hypot(horizontal, up), std::atan2(up, horizontal), std::atan2(east, north)};
+}
+
 }  // namespace
+
+InterfaceState interface_state(const Design& design, const Body& flown_body) {
+    const EntryDesign& e = design.entry;
+    InterfaceState out;
+    out.point = {degrees_to_radians(e.latitude_deg.value_or(0.0)),
+                 degrees_to_radians(e.longitude_deg.value_or(0.0))};
+    out.altitude_m = e.interface_altitude_m;
+    out.rotation_flown = e.azimuth_deg.has_value() && flown_body.rotation_rad_s != 0.0;
+    const double gamma = degrees_to_radians(e.flight_path_angle_deg);
+    const double azimuth = degrees_to_radians(e.azimuth_deg.value_or(default_entry_azimuth_deg));
+    const double east = e.velocity_m_s * std::cos(gamma) * std::sin(azimuth);
+    const double north = e.velocity_m_s * std::cos(gamma) * std::cos(azimuth);
+    const double up = e.velocity_m_s * std::sin(gamma);
+    // w x r at the entry point: the body's surface speed there, to the east.
+    const double carried = flown_body.rotation_rad_s * (flown_body.radius_m + out.altitude_m) *
+                           std::cos(out.point.latitude_rad);
+    const SpeedAndAngles given = speed_and_angles(east, north, up);
+    if (e.velocity_frame == VelocityFrame::inertial) {
+        out.inertial = given;
+        out.relative = speed_and_angles(east - carried, north, up);
+    } else {
+        out.relative = given;
+        out.inertial = speed_and_angles(east + carried, north, up);
+    }
+    return out;
+}
+
+TrackReference entry_track(const InterfaceState& entry, const Body& body) {
+    return {entry.point, entry.relative.azimuth_rad, body.radius_m};
+}
 
 ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg) {
     const AeroshellDesign& a = design.aeroshell;
@@ -101,8 +139,11 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
                       std::vector<TrajectorySample>* history) {
     EntryFlight out;
     out.aeroshell = aeroshell;
-    out.start << design.entry.interface_altitude_m, 0.0, design.entry.velocity_m_s,
-        degrees_to_radians(design.entry.flight_path_angle_deg), entry_mass_kg, 0.0, 0.0;
+    out.interface = interface_state(design, model.body);
+    const InterfaceState& at = out.interface;
+    out.start = make_flight_state(at.altitude_m, at.point.latitude_rad, at.point.longitude_rad,
+                                  at.relative.speed_m_s, at.relative.flight_path_angle_rad,
+                                  at.relative.azimuth_rad, entry_mass_kg);
     const auto settings = flight_integrator_settings(
         design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
 

@@ -5,6 +5,7 @@
 #include <vector>
 
 #include "design/design.hpp"
+#include "flight/ground_track.hpp"
 #include "flight/phase.hpp"
 #include "results/results.hpp"
 
@@ -19,6 +20,35 @@ struct ResolvedAeroshell {
 
 ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg);
 
+/// The azimuth flown when the entry gives none: east, for the ground track and the winds (our
+/// choice; the body is then flown without rotation, so no direction is favoured by it).
+inline constexpr double default_entry_azimuth_deg = 90.0;
+
+/// A velocity as speed, flight-path angle and azimuth (clockwise from north), m/s and rad.
+struct SpeedAndAngles {
+    double speed_m_s = 0.0;
+    double flight_path_angle_rad = 0.0;
+    double azimuth_rad = 0.0;
+};
+
+/// The entry state at the interface, planet-relative (what is flown) and inertial: the one the
+/// design gives, and the other from v_rel = v_in - w x r, w x r being omega r cos(latitude)
+/// to the east.
+struct InterfaceState {
+    GroundPoint point;
+    double altitude_m = 0.0;
+    bool rotation_flown = false;  ///< the entry has a direction and the body turns
+    SpeedAndAngles relative;
+    SpeedAndAngles inertial;
+};
+
+/// The design's entry state over the flown body (flown_body: without an azimuth it does not
+/// rotate, and the two frames coincide).
+InterfaceState interface_state(const Design& design, const Body& flown_body);
+
+/// Downrange and crossrange are measured along and across the entry's great circle.
+TrackReference entry_track(const InterfaceState& entry, const Body& body);
+
 /// The largest value of a quantity over a flight, where it happened.
 struct PeakValue {
     double value = 0.0;
@@ -32,6 +62,7 @@ enum class EntryEnd { deployed, ground, skip_out, stopped };
 /// The entry, and the inflatable decelerator phase when the design has one.
 struct EntryFlight {
     ResolvedAeroshell aeroshell;
+    InterfaceState interface;
     FlightState start;
     EntryEnd end = EntryEnd::stopped;
     StopReason stop_reason = StopReason::reached_end;  ///< why, when `stopped`

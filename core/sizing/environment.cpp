@@ -37,4 +37,24 @@ std::unique_ptr<Atmosphere> make_atmosphere(const Design& design) {
     throw std::invalid_argument("atmosphere.model: unknown model");
 }
 
+Body flown_body(const Design& design) {
+    Body body = design.body.body;
+    if (!design.entry.azimuth_deg) body.rotation_rad_s = 0.0;
+    return body;
+}
+
+std::optional<WindProfile> make_wind(const Design& design) {
+    const AtmosphereDesign& a = design.atmosphere;
+    if (!a.wind) return std::nullopt;
+    if (a.wind->constant) {
+        return WindProfile({{0.0, a.wind->constant->east_m_s, a.wind->constant->north_m_s}},
+                           a.wind_scale);
+    }
+    return WindProfile(a.wind->rows, a.wind_scale);
+}
+
+FlightEnvironment make_environment(const Design& design) {
+    return {flown_body(design), make_atmosphere(design), make_wind(design)};
+}
+
 }  // namespace ds

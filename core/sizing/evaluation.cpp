@@ -160,25 +160,39 @@ double hover_and_fly_away(const TerminalDesign& t, const BurnSolution& burn, dou
 /// What follows the burn's end, by method: touchdown (retro), the airbag's free fall, or the
 /// tethered hover. Returns the propellant burned in all.
 double finish_terminal_descent(const TerminalDesign& t, const BurnSolution& burn, double site,
-                               double g_site, double engines, Evaluation& e) {
+                               double g_site, double engines, double radius_m, Evaluation& e) {
     const double end_height = burn.end_state[StateIndex::altitude] - site;
-    const double end_velocity = burn.end_state[StateIndex::velocity];
+    const double end_velocity = speed(burn.end_state);
+    e.canopy_exit_state = burn.separation_state;
+    // The payload comes down from the burn's end, carried on by its horizontal speed while it
+    // falls (airbag) or is lowered (tethered).
+    const GroundPoint end_point{burn.end_state[StateIndex::latitude],
+                                burn.end_state[StateIndex::longitude]};
+    const double end_horizontal = horizontal_speed(burn.end_state);
+    const auto carried_for = [&](double seconds) {
+        return destination(end_point, azimuth_rad(burn.end_state), end_horizontal * seconds,
+                           radius_m);
+    };
+    e.touchdown_horizontal_velocity_m_s = end_horizontal;
     double burned = burn.burned_kg;
     switch (t.method) {
         case TerminalMethod::retro:
             e.touchdown_time_s = burn.end_time_s;
             e.touchdown_velocity_m_s = end_velocity;
+            e.landing_point = end_point;
             break;
         case TerminalMethod::airbag: {
             // Cut free at the end of the burn: free fall to the ground.
             const double v = std::sqrt(end_velocity * end_velocity + 2.0 * g_site * end_height);
             e.impact_velocity_m_s = v;
             e.touchdown_time_s = burn.end_time_s + (v - end_velocity) / g_site;
+            e.landing_point = carried_for((v - end_velocity) / g_site);
             break;
         }
         case TerminalMethod::tethered:
             burned += hover_and_fly_away(t, burn, g_site, end_height, end_velocity,
                                          e.budget.group_kg(MassGroup::descent_stage), engines, e);
+            e.landing_point = carried_for(end_height / end_velocity);
             break;
         case TerminalMethod::none: break;
     }
@@ -222,7 +236,8 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     record_burn_history(burn, burn_samples, e);
 
     const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
-    const double burned = finish_terminal_descent(design.terminal, burn, site, g_site, engines, e);
+    const double burned = finish_terminal_descent(design.terminal, burn, site, g_site, engines,
+                                                   model.body.radius_m, e);
     add_propulsion(design.terminal, burned, engines, e);
 }
 
@@ -234,8 +249,12 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
         if (!t || s.time_s <= *t) e.history.push_back(s);
     }
     if (t && design.terminal.method == TerminalMethod::none) {
+        const FlightState y = e.descent->record.state_at(*t);
         e.touchdown_time_s = *t;
-        e.touchdown_velocity_m_s = e.descent->record.state_at(*t)[StateIndex::velocity];
+        e.touchdown_velocity_m_s = speed(y);
+        e.touchdown_horizontal_velocity_m_s = horizontal_speed(y);
+        e.landing_point = GroundPoint{y[StateIndex::latitude], y[StateIndex::longitude]};
+        e.canopy_exit_state = y;
     }
 }
 
@@ -248,9 +267,14 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     e.aeroshell = resolve_aeroshell(design, entry_kg);
     for (const MassItemDesign& item : design.mass.items)
         e.budget.add_item(item.name, item.mass_kg, item.group, item.maturity);
+    e.entry.interface = interface_state(design, model.body);  // reported even when not flown
     if (e.aeroshell.diameter_m <= 0.0) return e;
 
     e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
+    if (e.entry.end == EntryEnd::ground) {  // it comes down before the parachute: there
+        e.landing_point = GroundPoint{e.entry.end_state[StateIndex::latitude],
+                                      e.entry.end_state[StateIndex::longitude]};
+    }
     e.total_heat_load_J_cm2 = (e.entry.end_state[StateIndex::convective_heat_load] +
                                e.entry.end_state[StateIndex::radiative_heat_load]) *
                               per_cm2;
@@ -343,7 +367,7 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         // falling as the site rises and a root-finder sees one crossing.
         constexpr double seconds_per_m_s = 1.0;
         m.margin_s = std::min(m.margin_s, 0.0) -
-                     seconds_per_m_s * (burn.end_state[StateIndex::velocity] -
+                     seconds_per_m_s * (speed(burn.end_state) -
                                         e.burn_request->end_velocity_m_s);
     }
     return m;

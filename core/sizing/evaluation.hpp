@@ -47,6 +47,13 @@ struct Evaluation {
     std::optional<double> touchdown_velocity_m_s;
     std::optional<double> impact_velocity_m_s;   ///< airbag
     std::optional<double> impact_energy_J;       ///< airbag
+    /// Where the lander (the payload, for airbag and tethered) comes down, and its
+    /// planet-relative horizontal speed at touchdown (retro, none), release (airbag), or that
+    /// of the hovering stage (tethered).
+    std::optional<GroundPoint> landing_point;
+    std::optional<double> touchdown_horizontal_velocity_m_s;
+    /// Where the canopy is left: backshell separation, or the touchdown for "none".
+    std::optional<FlightState> canopy_exit_state;
 
     std::vector<TrajectorySample> history;
 

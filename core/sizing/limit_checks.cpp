@@ -136,6 +136,39 @@ void entry_load_checks(const EntryResults& entry, const Limits& lim, std::vector
 
 /// How the payload meets the ground: its touchdown speed (a tethered payload's is the
 /// lowering speed, not an impact), or the airbags' impact.
+/// The horizontal speed at touchdown against the limit of the terminal method.
+Check touchdown_horizontal_check(const TerminalResults& terminal, const Limits& lim,
+                                 double band) {
+    const auto rule = [](std::string words, std::string source) {
+        return LimitRule{"touchdown_horizontal_velocity", std::move(words), "m/s",
+                         Severity::physics, std::move(source)};
+    };
+    const double v = *terminal.touchdown_horizontal_velocity_m_s;
+    switch (terminal.method) {
+        case TerminalMethod::airbag:
+            return check_at_most(rule("horizontal speed at airbag release",
+                                      "the airbags' qualified horizontal speed (default 20 m/s: "
+                                      "from memory, common practice, set your own)"),
+                                 v, lim.airbag_release_horizontal_velocity_max_m_s, band);
+        case TerminalMethod::tethered:
+            return check_at_most(rule("horizontal speed of the hovering stage at payload touchdown",
+                                      "the payload's qualified horizontal speed on the tether "
+                                      "(default 0.5 m/s: common practice, set your own)"),
+                                 v, lim.tethered_horizontal_velocity_max_m_s, band);
+        case TerminalMethod::none:
+            return check_at_most(rule("horizontal speed at touchdown under the canopy",
+                                      "the vehicle's qualified horizontal touchdown speed (default "
+                                      "15 m/s: common practice, set your own)"),
+                                 v, lim.canopy_touchdown_horizontal_velocity_max_m_s, band);
+        case TerminalMethod::retro:
+            break;
+    }
+    return check_at_most(rule("horizontal speed at touchdown",
+                              "the landing legs' qualified horizontal speed (default 1 m/s: "
+                              "common practice, set your own)"),
+                         v, lim.touchdown_horizontal_velocity_max_m_s, band);
+}
+
 void landing_checks(const TerminalResults& terminal, const Limits& lim,
                     std::vector<Check>& checks) {
     const double band = lim.marginal_band;
@@ -153,6 +186,8 @@ void landing_checks(const TerminalResults& terminal, const Limits& lim,
              "practice, set your own)"},
             *terminal.impact_velocity_m_s, lim.airbag_impact_velocity_max_m_s, band));
     }
+    if (terminal.touchdown_horizontal_velocity_m_s)
+        checks.push_back(touchdown_horizontal_check(terminal, lim, band));
 }
 
 }  // namespace

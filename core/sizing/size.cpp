@@ -10,6 +10,7 @@
 
 #include "aeroshell/sphere_cone.hpp"
 #include "checks/rule_set.hpp"
+#include "constants.hpp"
 #include "heating/heat_shield_mass.hpp"
 #include "results/caution.hpp"
 #include "sizing/environment.hpp"
@@ -120,7 +121,25 @@ std::string_view stop_reason_text(StopReason reason) {
 }
 
 TimelineEvent event_at(std::string name, double t, const FlightState& y) {
-    return {std::move(name), t, y[StateIndex::altitude], y[StateIndex::velocity]};
+    TimelineEvent event{std::move(name), t, y[StateIndex::altitude], speed(y)};
+    event.latitude_deg = radians_to_degrees(y[StateIndex::latitude]);
+    event.longitude_deg = radians_to_degrees(y[StateIndex::longitude]);
+    return event;
+}
+
+/// An event with no state of its own, at a point of the ground.
+TimelineEvent event_on_ground(std::string name, double t, double altitude_m, double velocity_m_s,
+                              const std::optional<GroundPoint>& point) {
+    TimelineEvent event{std::move(name), t, altitude_m, velocity_m_s};
+    if (point) {
+        event.latitude_deg = radians_to_degrees(point->latitude_rad);
+        event.longitude_deg = radians_to_degrees(point->longitude_rad);
+    }
+    return event;
+}
+
+GroundPoint point_of_degrees(double latitude_deg, double longitude_deg) {
+    return {degrees_to_radians(latitude_deg), degrees_to_radians(longitude_deg)};
 }
 
 /// The descent under the canopy stopped short of the ground: a time or step budget ran out,
@@ -155,6 +174,16 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.nose_radius_m = design.aeroshell.nose_radius_m;
     entry.drag_coefficient = e.aeroshell.drag_coefficient;
     entry.drag_coefficient_source = e.aeroshell.drag_coefficient_source;
+    const InterfaceState& i = e.entry.interface;
+    entry.interface.latitude_deg = radians_to_degrees(i.point.latitude_rad);
+    entry.interface.longitude_deg = radians_to_degrees(i.point.longitude_rad);
+    entry.interface.rotation_flown = i.rotation_flown;
+    const auto velocity = [](const SpeedAndAngles& v) {
+        return EntryVelocity{v.speed_m_s, radians_to_degrees(v.flight_path_angle_rad),
+                             radians_to_degrees(v.azimuth_rad)};
+    };
+    entry.interface.relative = velocity(i.relative);
+    entry.interface.inertial = velocity(i.inertial);
     if (e.aeroshell.diameter_m <= 0.0) return;
     entry.ballistic_coefficient_kg_m2 = ballistic_coefficient_kg_m2(
         e.entry_kg, e.aeroshell.drag_coefficient, frontal_area_m2(e.aeroshell.diameter_m));
@@ -174,14 +203,14 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
 }
 
-void fill_parachute(const Evaluation& e, ParachuteResults& p) {
+void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
     p.drag_coefficient = e.canopy_drag_coefficient;
     p.diameter_m = e.canopy_diameter_m;
     p.mass_kg = e.parachute_kg;
     p.deployed = e.entry.end == EntryEnd::deployed;
     if (!p.deployed) return;
     const FlightConditions& c = e.entry.end_conditions;
-    const double v = e.entry.end_state[StateIndex::velocity];
+    const double v = speed(e.entry.end_state);
     p.deploy_time_s = e.entry.end_time_s;
     p.deploy_altitude_m = e.entry.end_state[StateIndex::altitude];
     p.deploy_mach = c.mach;
@@ -191,10 +220,20 @@ void fill_parachute(const Evaluation& e, ParachuteResults& p) {
     p.drag_coefficient_at_deploy = canopy.drag_coefficient_at(c.mach);
     p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach,
                                       e.canopy_diameter_m, e.canopy_drag_coefficient);
-    p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, v);
+    p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, c.air_speed_m_s);
+    p.deploy_latitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::latitude]);
+    p.deploy_longitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::longitude]);
+    if (e.canopy_exit_state && !terminal_cut_short(e)) {
+        const GroundPoint deploy{e.entry.end_state[StateIndex::latitude],
+                                 e.entry.end_state[StateIndex::longitude]};
+        const GroundPoint exit{(*e.canopy_exit_state)[StateIndex::latitude],
+                               (*e.canopy_exit_state)[StateIndex::longitude]};
+        p.drift_m = great_circle_distance_m(deploy, exit, radius_m);
+        p.drift_azimuth_deg = radians_to_degrees(initial_azimuth_rad(deploy, exit));
+    }
     if (jettison_reached(e)) p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
     if (e.burn) {
-        p.descent_velocity_m_s = e.burn->separation_state[StateIndex::velocity];
+        p.descent_velocity_m_s = speed(e.burn->separation_state);
     } else if (e.touchdown_velocity_m_s) {
         p.descent_velocity_m_s = e.touchdown_velocity_m_s;
     }
@@ -209,12 +248,13 @@ void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t
         t.impact_velocity_m_s = e.impact_velocity_m_s;
         t.impact_energy_J = e.impact_energy_J;
         t.hover_time_s = e.hover_time_s;
+        t.touchdown_horizontal_velocity_m_s = e.touchdown_horizontal_velocity_m_s;
     }
     if (!e.burn) return;
     const BurnSolution& b = *e.burn;
     t.ignition_time_s = b.ignition_time_s;
     t.ignition_altitude_m = b.ignition_state[StateIndex::altitude];
-    t.ignition_velocity_m_s = b.ignition_state[StateIndex::velocity];
+    t.ignition_velocity_m_s = speed(b.ignition_state);
     t.delta_v_m_s = b.ideal_delta_v_m_s;
     t.gravity_loss_m_s = b.gravity_loss_m_s;
     t.burn_time_s = b.burn_time_s;
@@ -228,7 +268,7 @@ void push_terminal_events(const Evaluation& e, const Design& design,
                           std::vector<TimelineEvent>& events) {
     const BurnSolution& b = *e.burn;
     const auto at_site = [&](std::string name, double t, double v) {
-        return TimelineEvent{std::move(name), t, design.site.elevation_m, v};
+        return event_on_ground(std::move(name), t, design.site.elevation_m, v, e.landing_point);
     };
     switch (design.terminal.method) {
         case TerminalMethod::retro:
@@ -290,8 +330,9 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
             push_terminal_events(e, design, events);
         }
     } else if (e.touchdown_time_s && e.touchdown_velocity_m_s) {
-        events.push_back({"touchdown", *e.touchdown_time_s, design.site.elevation_m,
-                          *e.touchdown_velocity_m_s});
+        events.push_back(event_on_ground("touchdown", *e.touchdown_time_s,
+                                         design.site.elevation_m, *e.touchdown_velocity_m_s,
+                                         e.landing_point));
     } else if (descent_stopped(e) && !e.descent->record.empty()) {
         const double t = e.descent->record.end_time();
         events.push_back(event_at("descent stopped", t, e.descent->record.state_at(t)));
@@ -392,7 +433,7 @@ Check entry_end_check(const Evaluation& e, const Design& design) {
     const EntryFlight& f = e.entry;
     const std::string trigger =
         describe_trigger(design.parachute.trigger, design.parachute.trigger_value);
-    const double v_end = f.end_state[StateIndex::velocity];
+    const double v_end = speed(f.end_state);
     const double h_end = f.end_state[StateIndex::altitude];
     switch (f.end) {
         case EntryEnd::deployed:
@@ -439,13 +480,13 @@ void descent_checks(const Evaluation& e, const Design& design, std::vector<Check
     if (e.descent && !jettison_reached(e)) checks.push_back(jettison_check(e));
     if (e.burn && !e.burn->stops_in_time) {
         checks.push_back(flight_check(
-            "terminal_burn", CheckStatus::fail, e.burn->end_state[StateIndex::velocity],
+            "terminal_burn", CheckStatus::fail, speed(e.burn->end_state),
             design.terminal.touchdown_velocity_m_s, "m/s",
             fmt::format("even separating at parachute deploy, the burn cannot bring the lander to "
                         "{:.2g} m/s in time: it reaches the ground at {:.1f} m/s; more thrust or "
                         "an earlier, higher deploy is needed",
                         design.terminal.touchdown_velocity_m_s,
-                        e.burn->end_state[StateIndex::velocity]),
+                        speed(e.burn->end_state)),
             "terminal descent"));
     }
     if (design.terminal.propellant_loaded_kg && e.burned_kg > 0.0) {
@@ -502,6 +543,67 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
     return checks;
 }
 
+/// Places the events and the history along and across the entry's track, and fills where it
+/// lands (with the miss, given a target).
+void place_on_track(const Evaluation& e, const Design& design, const TrackReference& track,
+                    Results& results) {
+    for (TimelineEvent& event : results.timeline.events) {
+        const TrackPosition p =
+            track_position(track, point_of_degrees(event.latitude_deg, event.longitude_deg));
+        event.downrange_m = p.downrange_m;
+        event.crossrange_m = p.crossrange_m;
+    }
+    for (TrajectorySample& sample : results.history) {
+        const TrackPosition p =
+            track_position(track, point_of_degrees(sample.latitude_deg, sample.longitude_deg));
+        sample.downrange_m = p.downrange_m;
+        sample.crossrange_m = p.crossrange_m;
+    }
+    if (!e.landing_point || terminal_cut_short(e)) return;
+    LandingResults landing;
+    landing.latitude_deg = radians_to_degrees(e.landing_point->latitude_rad);
+    landing.longitude_deg = radians_to_degrees(e.landing_point->longitude_rad);
+    const TrackPosition at = track_position(track, *e.landing_point);
+    landing.downrange_m = at.downrange_m;
+    landing.crossrange_m = at.crossrange_m;
+    if (design.site.latitude_deg && design.site.longitude_deg) {
+        const GroundPoint target =
+            point_of_degrees(*design.site.latitude_deg, *design.site.longitude_deg);
+        const TrackPosition aim = track_position(track, target);
+        landing.miss_m = great_circle_distance_m(*e.landing_point, target, track.radius_m);
+        landing.miss_downrange_m = at.downrange_m - aim.downrange_m;
+        landing.miss_crossrange_m = at.crossrange_m - aim.crossrange_m;
+    }
+    results.landing = landing;
+}
+
+/// What the results say about the frame of the flight.
+void add_frame_notes(const Design& design, const InterfaceState& entry, Results& results) {
+    if (!design.entry.azimuth_deg) {
+        results.notes.push_back(fmt::format(
+            "The entry gives no direction, so the body is flown without rotation (as if it did "
+            "not turn), heading {:.0f} deg for the ground track and the winds: add "
+            "entry.azimuth_deg (clockwise from north, 90 = east), with entry.latitude_deg and "
+            "entry.longitude_deg, to fly the body's rotation.",
+            default_entry_azimuth_deg));
+        if (design.entry.velocity_frame == VelocityFrame::inertial) {
+            results.notes.push_back(
+                "Without rotation the inertial entry state given is also the planet-relative "
+                "one.");
+        }
+    } else if (entry.rotation_flown) {
+        results.notes.push_back(fmt::format(
+            "The body's rotation is flown: the entry state is {:.1f} m/s at {:.2f} deg, azimuth "
+            "{:.2f} deg planet-relative, {:.1f} m/s at {:.2f} deg, azimuth {:.2f} deg inertial "
+            "({} given).",
+            entry.relative.speed_m_s, radians_to_degrees(entry.relative.flight_path_angle_rad),
+            radians_to_degrees(entry.relative.azimuth_rad), entry.inertial.speed_m_s,
+            radians_to_degrees(entry.inertial.flight_path_angle_rad),
+            radians_to_degrees(entry.inertial.azimuth_rad),
+            to_string(design.entry.velocity_frame)));
+    }
+}
+
 /// The evaluation at the design's entry mass: the fixed one, or the closed one.
 Closure sized_evaluation(const Design& design, const FlightModel& model,
                          const Atmosphere& atmosphere) {
@@ -512,8 +614,9 @@ Closure sized_evaluation(const Design& design, const FlightModel& model,
 }  // namespace
 
 Design freeze_design(const Design& design) {
-    const std::unique_ptr<Atmosphere> atmosphere = make_atmosphere(design);
-    const FlightModel model{design.body.body, *atmosphere};
+    const FlightEnvironment environment = make_environment(design);
+    const Atmosphere* atmosphere = environment.atmosphere.get();
+    const FlightModel model = environment.model();
     const Evaluation e = sized_evaluation(design, model, *atmosphere).evaluation;
     Design frozen = design;
     frozen.mass.entry_kg = e.entry_kg;
@@ -537,8 +640,9 @@ Design freeze_design(const Design& design) {
 }
 
 Results size_design(const Design& design, SizingOptions options) {
-    const std::unique_ptr<Atmosphere> atmosphere = make_atmosphere(design);
-    const FlightModel model{design.body.body, *atmosphere};
+    const FlightEnvironment environment = make_environment(design);
+    const Atmosphere* atmosphere = environment.atmosphere.get();
+    const FlightModel model = environment.model();
 
     Results results;
     Closure sized = sized_evaluation(design, model, *atmosphere);
@@ -562,7 +666,7 @@ Results size_design(const Design& design, SizingOptions options) {
         }
         results.decelerator = d;
     }
-    fill_parachute(e, results.parachute);
+    fill_parachute(e, model.body.radius_m, results.parachute);
     fill_terminal(e, design, results.terminal);
     fill_timeline(e, design, results.timeline);
     if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {
@@ -577,11 +681,13 @@ Results size_design(const Design& design, SizingOptions options) {
         results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
     }
     if (options.history) results.history = std::move(e.history);
+    place_on_track(e, design, entry_track(e.entry.interface, model.body), results);
 
     results.notes.emplace_back(conceptual_caution);
     results.notes.push_back(
         "Mass estimates marked \"estimate\" are rules of thumb: replace them with itemised "
         "masses as the design matures.");
+    add_frame_notes(design, e.entry.interface, results);
 
     std::vector<Check> checks = flight_checks(e, design, closure);
     if (e.aeroshell.diameter_m > 0.0) {

@@ -45,7 +45,7 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
 
     // Already at or below the end velocity: nothing to burn. The burn's end (the velocity
     // falling through the target) would never come, and thrust would stop the lander and lift it.
-    if (coasted.y[StateIndex::velocity] <= r.end_velocity_m_s) {
+    if (speed(coasted.y) <= r.end_velocity_m_s) {
         a.reached_velocity = true;
         b.end_time_s = coasted.time_s;
         b.end_state = coasted.y;
@@ -65,7 +65,7 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     // Reaching the ground at the end velocity or slower is reaching it too: the two events
     // can fall within the event tolerance of each other when the solution is exact.
     a.reached_velocity = burned.ended_by == std::size_t{0} ||
-                         burned.y[StateIndex::velocity] <= r.end_velocity_m_s;
+                         speed(burned.y) <= r.end_velocity_m_s;
     b.end_time_s = burned.time_s;
     b.end_state = burned.y;
     b.burn_time_s = burned.time_s - coasted.time_s;
@@ -73,8 +73,8 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     const double m1 = burned.y[StateIndex::mass];
     b.burned_kg = m0 - m1;
     b.ideal_delta_v_m_s = r.specific_impulse_s * standard_gravity_m_s2 * std::log(m0 / m1);
-    b.gravity_loss_m_s = b.ideal_delta_v_m_s - (coasted.y[StateIndex::velocity] -
-                                                burned.y[StateIndex::velocity]);
+    b.gravity_loss_m_s = b.ideal_delta_v_m_s - (speed(coasted.y) -
+                                                speed(burned.y));
     return a;
 }
 
@@ -86,7 +86,7 @@ double miss(const Attempt& a, const BurnRequest& r) {
     const double height = a.burn.end_state[StateIndex::altitude] - target;
     if (a.reached_velocity) return height;
     constexpr double seconds = 1.0;
-    return height - (a.burn.end_state[StateIndex::velocity] - r.end_velocity_m_s) * seconds;
+    return height - (speed(a.burn.end_state) - r.end_velocity_m_s) * seconds;
 }
 
 }  // namespace

@@ -70,6 +70,7 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     campaign.shard_index = settings.shard_index;
     campaign.shard_count = std::max<std::size_t>(settings.shard_count, 1);
     campaign.dispersions = design.dispersions;
+    campaign.body_radius_m = design.body.body.radius_m;
     for (const KeyFigureDefinition& f : key_figure_table) {
         campaign.figure_ids.emplace_back(f.id);
         campaign.figure_units.emplace_back(f.unit);
@@ -100,6 +101,10 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
         }
         const Results r = size_design(*read.design, {false, false});
         c.figures = key_figure_values(r);
+        if (r.landing) {
+            c.landing = CaseLanding{r.landing->latitude_deg, r.landing->longitude_deg,
+                                    r.landing->downrange_m, r.landing->crossrange_m};
+        }
         for (const Check& check : r.checks) {
             if (check.status == CheckStatus::fail) c.failed_checks.push_back(check.id);
         }
@@ -118,7 +123,7 @@ std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
     for (const DispersionCampaign& part : parts) {
         if (part.seed != merged.seed || part.runs != merged.runs ||
             !same_dispersions(part.dispersions, merged.dispersions) ||
-            part.figure_ids != merged.figure_ids) {
+            part.figure_ids != merged.figure_ids || part.body_radius_m != merged.body_radius_m) {
             return {std::nullopt, "the parts are not shards of one campaign (seed, runs, "
                                   "dispersions or figures differ)"};
         }
@@ -157,7 +162,7 @@ double quantile(const std::vector<double>& sorted, double q) {
     return sorted[lo] + (h - static_cast<double>(lo)) * (sorted[hi] - sorted[lo]);
 }
 
-DispersionSummary summarize(const DispersionCampaign& campaign) {
+DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_probability) {
     DispersionSummary s;
     s.runs = campaign.cases.size();
     std::map<std::string, std::size_t> failures;
@@ -187,6 +192,14 @@ DispersionSummary summarize(const DispersionCampaign& campaign) {
         }
         s.figures.push_back(st);
     }
+    std::vector<GroundPoint> landings;
+    for (const DispersedCase& c : campaign.cases) {
+        if (c.landing) {
+            landings.push_back({degrees_to_radians(c.landing->latitude_deg),
+                                degrees_to_radians(c.landing->longitude_deg)});
+        }
+    }
+    s.landing_ellipse = landing_ellipse(landings, campaign.body_radius_m, ellipse_probability);
     s.failing_checks.assign(failures.begin(), failures.end());
     std::stable_sort(s.failing_checks.begin(), s.failing_checks.end(),
                      [](const auto& a, const auto& b) { return a.second > b.second; });
@@ -211,6 +224,7 @@ nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
     out["dispersions"] = dispersions;
     out["figures"] = c.figure_ids;
     out["units"] = c.figure_units;
+    out["body_radius_m"] = c.body_radius_m;
     nlohmann::ordered_json cases = nlohmann::ordered_json::array();
     for (const DispersedCase& k : c.cases) {
         nlohmann::ordered_json figures = nlohmann::ordered_json::array();
@@ -220,7 +234,12 @@ nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
                          {"figures", figures},
                          {"success", k.success},
                          {"failed_checks", k.failed_checks},
-                         {"error", k.error}});
+                         {"error", k.error},
+                         {"landing", k.landing ? nlohmann::ordered_json{k.landing->latitude_deg,
+                                                                        k.landing->longitude_deg,
+                                                                        k.landing->downrange_m,
+                                                                        k.landing->crossrange_m}
+                                               : nlohmann::ordered_json()}});
     }
     out["cases"] = cases;
     return out;
@@ -247,6 +266,7 @@ std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_jso
         }
         c.figure_ids = j.at("figures").get<std::vector<std::string>>();
         c.figure_units = j.at("units").get<std::vector<std::string>>();
+        c.body_radius_m = j.value("body_radius_m", 0.0);
         for (const auto& k : j.at("cases")) {
             DispersedCase dc;
             dc.index = k.at("index").get<std::size_t>();
@@ -257,6 +277,10 @@ std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_jso
             dc.success = k.at("success").get<bool>();
             dc.failed_checks = k.at("failed_checks").get<std::vector<std::string>>();
             dc.error = k.at("error").get<std::string>();
+            if (k.contains("landing") && k.at("landing").is_array()) {
+                const auto l = k.at("landing").get<std::vector<double>>();
+                if (l.size() == 4) dc.landing = CaseLanding{l[0], l[1], l[2], l[3]};
+            }
             c.cases.push_back(std::move(dc));
         }
         return c;
@@ -282,6 +306,21 @@ nlohmann::ordered_json summary_to_json(const DispersionSummary& s) {
     nlohmann::ordered_json failing = nlohmann::ordered_json::array();
     for (const auto& [id, count] : s.failing_checks) failing.push_back({{"id", id}, {"count", count}});
     out["failing_checks"] = failing;
+    if (s.landing_ellipse) {
+        const LandingEllipse& e = *s.landing_ellipse;
+        out["landing_ellipse"] = {{"probability", e.probability},
+                                  {"count", e.count},
+                                  {"centre_latitude_deg", e.centre_latitude_deg},
+                                  {"centre_longitude_deg", e.centre_longitude_deg},
+                                  {"semi_major_km", e.axes.semi_major_km},
+                                  {"semi_minor_km", e.axes.semi_minor_km},
+                                  {"major_axis_azimuth_deg", e.axes.major_axis_azimuth_deg},
+                                  {"east_sigma_km", e.axes.east_sigma_km},
+                                  {"north_sigma_km", e.axes.north_sigma_km},
+                                  {"correlation", e.axes.correlation}};
+    } else {
+        out["landing_ellipse"] = nullptr;
+    }
     return out;
 }
 

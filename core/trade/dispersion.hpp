@@ -11,6 +11,7 @@
 
 #include "design/design.hpp"
 #include "progress.hpp"
+#include "trade/landing_ellipse.hpp"
 
 namespace ds {
 
@@ -24,6 +25,14 @@ struct DispersionSettings {
     Progress* progress = nullptr;
 };
 
+/// Where a dispersed case came down (results.landing).
+struct CaseLanding {
+    double latitude_deg = 0.0;
+    double longitude_deg = 0.0;
+    double downrange_m = 0.0;
+    double crossrange_m = 0.0;
+};
+
 /// One dispersed case: its draws and what it gave.
 struct DispersedCase {
     std::size_t index = 0;
@@ -32,6 +41,7 @@ struct DispersedCase {
     bool success = false;  ///< read, and no check failed
     std::vector<std::string> failed_checks;
     std::string error;  ///< the reader's, when the drawn design could not be read
+    std::optional<CaseLanding> landing;  ///< empty when it did not come down
 };
 
 /// A campaign, or a shard of one: enough to merge shards and to summarise.
@@ -43,6 +53,7 @@ struct DispersionCampaign {
     std::vector<DispersionDesign> dispersions;
     std::vector<std::string> figure_ids;
     std::vector<std::string> figure_units;
+    double body_radius_m = 0.0;  ///< of the flown body: the landing points' sphere
     std::vector<DispersedCase> cases;  ///< by index
 };
 
@@ -76,9 +87,13 @@ struct DispersionSummary {
     double wilson_low = 0.0, wilson_high = 0.0;  ///< 95 % interval
     std::vector<FigureStatistics> figures;
     std::vector<std::pair<std::string, std::size_t>> failing_checks;  ///< most frequent first
+    /// Of the cases that came down (successful or not), when two or more did.
+    std::optional<LandingEllipse> landing_ellipse;
 };
 
-DispersionSummary summarize(const DispersionCampaign& campaign);
+/// The statistics of a campaign, with the landing ellipse of the given probability.
+DispersionSummary summarize(const DispersionCampaign& campaign,
+                            double ellipse_probability = default_ellipse_probability);
 
 /// Wilson score interval of a proportion (Wilson, J. American Statistical Association 22,
 /// 1927): 95 % with the default z.

@@ -44,7 +44,7 @@ void run_dispersion_study(const StudyInput& in, StudyOutcome& out) {
     auto [campaign, error] = run_dispersions(in.design, in.base_directory, settings);
     out.error = error;
     if (campaign) {
-        out.summary = summarize(*campaign);
+        out.summary = summarize(*campaign, in.request.ellipse_probability);
         out.campaign = std::move(campaign);
     }
 }

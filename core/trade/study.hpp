@@ -32,6 +32,8 @@ struct StudyRequest {
     std::size_t shard_index = 0;  ///< dispersions: the slice of the cases this run flies
     std::size_t shard_count = 1;
     std::vector<std::string> inputs;  ///< sensitivities: the keys varied, empty for every number
+    /// Dispersions: the probability the landing ellipse holds.
+    double ellipse_probability = default_ellipse_probability;
 };
 
 /// A finished study: what was asked, of which design, and what it gave.

@@ -75,6 +75,10 @@ std::string campaign_csv(const DispersionCampaign& campaign) {
     head << std::string("case");
     for (const DispersionDesign& d : campaign.dispersions) head << d.key;
     for (const std::string& id : campaign.figure_ids) head << id;
+    for (const char* name : {"landing_latitude_deg", "landing_longitude_deg", "landing_downrange_m",
+                             "landing_crossrange_m"}) {
+        head << std::string(name);
+    }
     head << std::string("success") << std::string("failed_checks");
     std::string out = head.line();
     for (const DispersedCase& c : campaign.cases) {
@@ -86,6 +90,11 @@ std::string campaign_csv(const DispersionCampaign& campaign) {
         for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
             row << (f < c.figures.size() ? c.figures[f] : std::nullopt);
         }
+        const auto landing = [&](double CaseLanding::*part) {
+            return c.landing ? std::optional<double>((*c.landing).*part) : std::nullopt;
+        };
+        row << landing(&CaseLanding::latitude_deg) << landing(&CaseLanding::longitude_deg)
+            << landing(&CaseLanding::downrange_m) << landing(&CaseLanding::crossrange_m);
         std::vector<std::string> failed = c.failed_checks;
         if (!c.error.empty()) failed.emplace_back("design");
         row << std::string(c.success ? "true" : "false") << fmt::format("{}", fmt::join(failed, ";"));

@@ -2,6 +2,7 @@
 
 #include <sys/wait.h>
 
+#include <cmath>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -179,3 +180,41 @@ TEST_CASE("sheet refuses an unknown format and writes nothing") {
     CHECK_FALSE(fs::exists(out));
 }
 #endif
+
+TEST_CASE("a design without an entry azimuth says it flies without rotation, and where it lands") {
+    const Run r = run("size --json " + sample("small-ballistic-station"));
+    REQUIRE(r.exit_code == 0);
+    const nlohmann::json doc = nlohmann::json::parse(r.out);
+    bool noted = false;
+    for (const auto& note : doc["notes"]) {
+        noted = noted || note.get<std::string>().find("entry.azimuth_deg") != std::string::npos;
+    }
+    CHECK(noted);
+    CHECK(doc["entry"]["interface"]["rotation_flown"] == false);
+    REQUIRE(doc["landing"].is_object());
+    // Heading east from (0, 0) without lift: straight along the equator.
+    CHECK(doc["landing"]["downrange_m"].get<double>() > 100000.0);
+    CHECK(std::abs(doc["landing"]["crossrange_m"].get<double>()) < 1e-6);
+    CHECK(std::abs(doc["landing"]["latitude_deg"].get<double>()) < 1e-9);
+    CHECK(doc["parachute"]["deploy_longitude_deg"].is_number());
+    CHECK(doc["terminal"]["touchdown_horizontal_velocity_m_s"].is_number());
+}
+
+TEST_CASE("disperse reports the landing ellipse at the probability asked, larger for more") {
+    const std::string design = sample("small-ballistic-station");
+    const Run r99 = run("disperse --json --runs 40 --threads 1 " + design);
+    const Run r50 = run("disperse --json --runs 40 --threads 1 --ellipse-probability 0.5 " + design);
+    REQUIRE(r99.exit_code == 0);
+    REQUIRE(r50.exit_code == 0);
+    const nlohmann::json e99 = nlohmann::json::parse(r99.out)["summary"]["landing_ellipse"];
+    const nlohmann::json e50 = nlohmann::json::parse(r50.out)["summary"]["landing_ellipse"];
+    REQUIRE(e99.is_object());
+    REQUIRE(e50.is_object());
+    CHECK(e99["probability"] == 0.99);
+    CHECK(e99["count"] == 40);
+    // The same points, semi-axes scaled by sqrt(-2 ln 0.01 / -2 ln 0.5) = 2.578.
+    CHECK(e99["semi_major_km"].get<double>() / e50["semi_major_km"].get<double>() ==
+          doctest::Approx(std::sqrt(std::log(0.01) / std::log(0.5))).epsilon(1e-12));
+    const Run bad = run("disperse --runs 4 --ellipse-probability 1.5 " + design);
+    CHECK(bad.exit_code != 0);
+}

@@ -43,7 +43,11 @@ const QStringList csvColumns = {"time_s",
                                 "dynamic_pressure_Pa",
                                 "deceleration_g",
                                 "heat_flux_W_cm2",
-                                "radiative_heat_flux_W_cm2"};
+                                "radiative_heat_flux_W_cm2",
+                                "latitude_deg",
+                                "longitude_deg",
+                                "azimuth_deg",
+                                "crossrange_m"};
 
 /// A quantity of the history at a time, by linear interpolation between samples.
 double interpolate(const Results& results, double time_s, double TrajectorySample::*quantity) {
@@ -188,7 +192,7 @@ private slots:
         QCOMPARE(countOf(html, QStringLiteral("<section>")), sectionHeadings.size());
     }
 
-    void csvHasTenNumericColumnsAndOneRowPerSample() {
+    void csvHasTheHistoryColumnsAndOneRowPerSample() {
         QTemporaryDir dir;
         QVERIFY(dir.isValid());
         const QString path = dir.filePath(QStringLiteral("history.csv"));

@@ -142,6 +142,11 @@ ds::Design design_of(const Shape& shape) {
     d.entry.interface_altitude_m = 125000.0;
     if (d.atmosphere.model == ds::AtmosphereModel::table)
         d.atmosphere.rows = {{-8000.0, 0.03, 220.0}, {60000.0, 1e-4, 170.0}, {130000.0, 2e-9, 150.0}};
+    // The wind in both of its forms: a table under one model, a constant under another.
+    if (d.atmosphere.model == ds::AtmosphereModel::exponential)
+        d.atmosphere.wind = ds::WindDesign{{{0.0, 4.5, -1.25}, {12000.0, 18.0, 6.0}}, std::nullopt};
+    if (d.atmosphere.model == ds::AtmosphereModel::standard)
+        d.atmosphere.wind = ds::WindDesign{{}, ds::WindVelocity{-3.0, 7.5}};
     return d;
 }
 
@@ -247,7 +252,7 @@ TEST_CASE("schema rows: unique paths, access for every number, defaults and sugg
         CHECK((row.section.empty() || ds::find_section(row.section) != nullptr));
         CHECK(ds::find_key(row.path()) == &row);
     }
-    CHECK(ds::keys_of("limits").size() == 15);
+    CHECK(ds::keys_of("limits").size() == 19);
 }
 
 TEST_CASE("the schema's choices come from the one name table of each enumeration") {

@@ -28,7 +28,9 @@ ds::Design example_design() {
     d.atmosphere.gas_constant_J_kgK = 188.9;
     d.atmosphere.gamma = 1.29;
     d.site.elevation_m = -1000.0;
-    d.entry = {125000.0, 5600.0, -13.0, 0.0, 0.0};
+    d.entry.interface_altitude_m = 125000.0;
+    d.entry.velocity_m_s = 5600.0;
+    d.entry.flight_path_angle_deg = -13.0;
     d.aeroshell.diameter_m = 2.6;
     d.aeroshell.half_angle_deg = 70.0;
     d.aeroshell.nose_radius_m = 0.65;
@@ -80,7 +82,19 @@ TEST_CASE("round trip of a custom body, table rows, sizing requests and changed 
     design.atmosphere.rows = {
         {-1500.0, 0.03, 220.0}, {60000.0, 1e-4, 170.0}, {126000.0, 2e-9, 150.0}};
     design.atmosphere.density_scale = 1.15;
-    design.entry = {125000.0, 6100.5, -11.25, 0.24, -35.0};
+    design.entry.interface_altitude_m = 125000.0;
+    design.entry.velocity_m_s = 6100.5;
+    design.entry.flight_path_angle_deg = -11.25;
+    design.entry.lift_to_drag = 0.24;
+    design.entry.bank_angle_deg = -35.0;
+    design.entry.latitude_deg = -22.5;
+    design.entry.longitude_deg = 130.25;
+    design.entry.azimuth_deg = 75.0;
+    design.entry.velocity_frame = ds::VelocityFrame::inertial;
+    design.site.latitude_deg = -20.0;
+    design.site.longitude_deg = 140.0;
+    design.atmosphere.wind = ds::WindDesign{{{0.0, 5.0, -2.0}, {10000.0, 20.0, 3.5}}, std::nullopt};
+    design.atmosphere.wind_scale = 0.8;
     design.aeroshell.diameter_m.reset();
     design.aeroshell.size_for_ballistic_coefficient_kg_m2 = 72.5;
     design.aeroshell.drag_coefficient.reset();

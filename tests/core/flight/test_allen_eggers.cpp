@@ -37,9 +37,9 @@ struct AllenEggersFlight {
                        ds::EventDirection::falling}};
         phase.peaks = {{"q", ds::FlightQuantity::deceleration},
                        {"heat", ds::FlightQuantity::heat_flux}};
-        ds::FlightState y0;
-        y0 << interface_altitude, 0.0, entry_velocity, ds::degrees_to_radians(entry_angle_deg),
-            mass, 0.0, 0.0;
+        const ds::FlightState y0 =
+            ds::make_flight_state(interface_altitude, 0.0, 0.0, entry_velocity,
+                                  ds::degrees_to_radians(entry_angle_deg), ds::pi / 2.0, mass);
         const ds::FlightModel model{body, atmosphere};
         outcome = ds::fly_phase(model, phase, 0.0, y0, 1000.0,
                                 ds::flight_integrator_settings(1e-10, 100000), {&history});
@@ -100,7 +100,7 @@ TEST_CASE("peak deceleration is V_E^2 sin|gamma| / (2 e H) = 121.3 m/s^2 at 29.3
     const double a_max = v_inf * v_inf * sin_gamma() / (2.0 * M_E * scale_height);
     CHECK(hit.value * ds::standard_gravity_m_s2 == doctest::Approx(a_max).epsilon(1e-6));
     CHECK(std::abs(hit.y[ds::StateIndex::altitude] - h_max) < 0.01);
-    CHECK(hit.y[ds::StateIndex::velocity] == doctest::Approx(v_inf * std::exp(-0.5)).epsilon(1e-6));
+    CHECK(ds::speed(hit.y) == doctest::Approx(v_inf * std::exp(-0.5)).epsilon(1e-6));
 }
 
 TEST_CASE("peak convective heating is at V_E e^-1/6 and 41.58 km (NACA Report 1381)") {
@@ -109,7 +109,7 @@ TEST_CASE("peak convective heating is at V_E e^-1/6 and 41.58 km (NACA Report 13
     const double h_heat = scale_height * std::log(3.0 * rho0 * scale_height / (beta * sin_gamma()));
     CHECK(h_heat == doctest::Approx(41580.0).epsilon(1e-3));  // the references' worked value
     CHECK(std::abs(hit.y[ds::StateIndex::altitude] - h_heat) < 0.01);
-    CHECK(hit.y[ds::StateIndex::velocity] ==
+    CHECK(ds::speed(hit.y) ==
           doctest::Approx(velocity_at_infinity(beta) * std::exp(-1.0 / 6.0)).epsilon(1e-6));
 }
 
@@ -122,9 +122,9 @@ TEST_CASE("peak deceleration does not depend on the ballistic coefficient (NACA 
     ds::Body body = heavy.body;
     ds::Phase light = heavy.phase;
     light.stage.drag_devices.front().area_m2 *= 3.0;
-    ds::FlightState y0;
-    y0 << interface_altitude, 0.0, entry_velocity, ds::degrees_to_radians(entry_angle_deg), 500.0,
-        0.0, 0.0;
+    const ds::FlightState y0 =
+        ds::make_flight_state(interface_altitude, 0.0, 0.0, entry_velocity,
+                              ds::degrees_to_radians(entry_angle_deg), ds::pi / 2.0, 500.0);
     const ds::FlightModel model{body, heavy.atmosphere};
     const ds::PhaseOutcome out =
         ds::fly_phase(model, light, 0.0, y0, 1000.0, ds::flight_integrator_settings(1e-10, 100000));

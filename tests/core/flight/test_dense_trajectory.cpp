@@ -29,16 +29,15 @@ TEST_CASE("a crossing after a phase's end event is found in the next phase, t = 
     // below it (steps grow tenfold in free fall).
     ds::Phase fall;
     fall.ends = {{"5 km", ds::FlightQuantity::altitude, 5000.0, ds::EventDirection::falling}};
-    ds::FlightState y0;
-    y0 << 6000.0, 0.0, 60.0, -std::numbers::pi / 2.0, 500.0, 0.0, 0.0;
+    const ds::FlightState y0 =
+        ds::make_flight_state(6000.0, 0.0, 0.0, 60.0, -std::numbers::pi / 2.0, 0.0, 500.0);
     const ds::PhaseOutcome first =
         ds::fly_phase(model, fall, 0.0, y0, 1000.0, settings, {nullptr, &record});
     REQUIRE(first.ended_by == std::size_t{0});
     REQUIRE(record.steps().back().t0 + record.steps().back().h > first.time_s + 10.0);
 
     // Then from there at 10 m/s, as if braked at once, down to 4 km.
-    ds::FlightState y1 = first.y;
-    y1[ds::StateIndex::velocity] = 10.0;
+    const ds::FlightState y1 = ds::with_speed(first.y, 10.0);
     fall.ends = {{"4 km", ds::FlightQuantity::altitude, 4000.0, ds::EventDirection::falling}};
     ds::fly_phase(model, fall, first.time_s, y1, 1000.0, settings, {nullptr, &record});
 

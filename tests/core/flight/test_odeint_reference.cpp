@@ -36,7 +36,8 @@ struct Scenario {
     double deploy_mach;
 };
 
-// A lifting, banked entry on a rotating Mars: every term of the equations is exercised.
+// A lifting, banked entry on a rotating Mars, from 20 deg north heading north-east: every term
+// of the equations is exercised.
 Scenario lifting_mars_entry() {
     Scenario s{*ds::body_preset("mars"),
                ds::ExponentialAtmosphere({0.020, 11100.0, 210.0}, 188.9, 1.29),
@@ -47,7 +48,9 @@ Scenario lifting_mars_entry() {
     s.stage.lift_to_drag = 0.22;
     s.stage.bank_angle_rad = ds::degrees_to_radians(40.0);
     s.stage.nose_radius_m = 1.0;
-    s.y0 << 125000.0, 0.0, 5800.0, ds::degrees_to_radians(-15.0), 1800.0, 0.0, 0.0;
+    s.y0 = ds::make_flight_state(125000.0, ds::degrees_to_radians(20.0), 0.0, 5800.0,
+                                 ds::degrees_to_radians(-15.0), ds::degrees_to_radians(45.0),
+                                 1800.0);
     return s;
 }
 
@@ -158,10 +161,11 @@ TEST_CASE("deploy time and state agree with Boost.Odeint to 1e-5 on a lifting Ma
     CHECK(f.outcome.time_s == doctest::Approx(ref.deploy_time).epsilon(1e-5));
     CHECK(f.outcome.y[ds::StateIndex::altitude] ==
           doctest::Approx(ref.deploy_state[ds::StateIndex::altitude]).epsilon(1e-5));
-    CHECK(f.outcome.y[ds::StateIndex::velocity] ==
-          doctest::Approx(ref.deploy_state[ds::StateIndex::velocity]).epsilon(1e-5));
-    CHECK(f.outcome.y[ds::StateIndex::downrange] ==
-          doctest::Approx(ref.deploy_state[ds::StateIndex::downrange]).epsilon(1e-5));
+    CHECK(ds::speed(f.outcome.y) == doctest::Approx(ds::speed(to_eigen(ref.deploy_state))).epsilon(1e-5));
+    CHECK(f.outcome.y[ds::StateIndex::latitude] ==
+          doctest::Approx(ref.deploy_state[ds::StateIndex::latitude]).epsilon(1e-5));
+    CHECK(f.outcome.y[ds::StateIndex::longitude] ==
+          doctest::Approx(ref.deploy_state[ds::StateIndex::longitude]).epsilon(1e-5));
     CHECK(f.outcome.y[ds::StateIndex::convective_heat_load] ==
           doctest::Approx(ref.deploy_state[ds::StateIndex::convective_heat_load]).epsilon(1e-5));
 }

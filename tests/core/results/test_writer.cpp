@@ -216,7 +216,8 @@ TEST_CASE("the results sections come in the order of the flight") {
         keys.push_back(item.key());
     const std::vector<std::string> expected{"format",      "version",    "converged", "entry",
                                             "decelerator", "parachute",  "terminal",  "timeline",
-                                            "mass",        "capability", "checks",    "notes"};
+                                            "landing",     "mass",       "capability", "checks",
+                                            "notes"};
     CHECK(keys == expected);
 }
 
@@ -300,7 +301,11 @@ TEST_CASE("the trajectory history is written only when asked for") {
                                             "dynamic_pressure_Pa",
                                             "deceleration_g",
                                             "heat_flux_W_cm2",
-                                            "radiative_heat_flux_W_cm2"};
+                                            "radiative_heat_flux_W_cm2",
+                                            "latitude_deg",
+                                            "longitude_deg",
+                                            "azimuth_deg",
+                                            "crossrange_m"};
     CHECK(keys == expected);
     CHECK(sample["altitude_m"] == 120000.0);
     CHECK(sample["flight_path_angle_deg"] == -13.1);

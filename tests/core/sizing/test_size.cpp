@@ -5,6 +5,7 @@
 #include <doctest/doctest.h>
 
 #include "aeroshell/sphere_cone.hpp"
+#include "constants.hpp"
 #include "design/reader.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
@@ -234,4 +235,45 @@ TEST_CASE("the heat-shield TPS estimate is the Laub-Venkatapathy fraction of the
               .epsilon(1e-12));
     CHECK(r.entry.heat_shield_tps_kg ==
           doctest::Approx(560.0 * r.entry.heat_shield_mass_fraction).epsilon(1e-12));
+}
+
+TEST_CASE("the miss from a target splits into downrange and crossrange along the entry's track") {
+    // Heading east along the equator without lift, the track is the equator: a target 0.05 deg
+    // north (to the left) and 0.1 deg of longitude beyond the landing is missed by R times those
+    // angles, short and to the right (spherical geometry by hand).
+    ds::Design d = sample("small-ballistic-station");
+    d.entry.latitude_deg = 0.0;
+    d.entry.longitude_deg = 0.0;
+    d.entry.azimuth_deg = 90.0;
+    d.body.body.rotation_rad_s = 0.0;  // so that the flight stays on the equator
+    const ds::Results free = ds::size_design(d);
+    REQUIRE(free.landing);
+    CHECK_FALSE(free.landing->miss_m);
+    CHECK(std::abs(free.landing->latitude_deg) < 1e-9);
+    const double radius = d.body.body.radius_m;
+    d.site.latitude_deg = 0.05;
+    d.site.longitude_deg = free.landing->longitude_deg + 0.1;
+    const ds::Results aimed = ds::size_design(d);
+    REQUIRE(aimed.landing);
+    REQUIRE(aimed.landing->miss_m);
+    const double across = radius * ds::degrees_to_radians(0.05);
+    const double along = radius * ds::degrees_to_radians(0.1);
+    CHECK(*aimed.landing->miss_downrange_m == doctest::Approx(-along).epsilon(1e-9));
+    // The crossrange of a point 0.05 deg off a great circle is R times that angle exactly.
+    CHECK(*aimed.landing->miss_crossrange_m == doctest::Approx(across).epsilon(1e-9));
+    // The distance: the spherical law of cosines for the two legs at a right angle.
+    const double angle = std::acos(std::cos(ds::degrees_to_radians(0.05)) *
+                                   std::cos(ds::degrees_to_radians(0.1)));
+    CHECK(*aimed.landing->miss_m == doctest::Approx(radius * angle).epsilon(1e-9));
+    // The target changes nothing of the flight.
+    CHECK(aimed.landing->longitude_deg == free.landing->longitude_deg);
+}
+
+TEST_CASE("a vehicle that hits the ground before its trigger still has a landing point") {
+    ds::Design d = sample("small-ballistic-station");
+    d.parachute.trigger_value = 0.2;  // Mach 0.2 is never reached above the site
+    const ds::Results r = ds::size_design(d);
+    REQUIRE_FALSE(r.parachute.deployed);
+    REQUIRE(r.landing);
+    CHECK(r.landing->downrange_m > 100000.0);
 }

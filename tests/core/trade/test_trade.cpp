@@ -125,6 +125,18 @@ TEST_CASE("shards merged give the same campaign and summary as one run") {
         CHECK(merged->cases[i].figures == whole->cases[i].figures);
     }
     CHECK(ds::summary_to_json(ds::summarize(*merged)) == ds::summary_to_json(ds::summarize(*whole)));
+    // The same landing ellipse, at any probability: every case's landing point went through.
+    const auto ellipse_whole = ds::summarize(*whole, 0.95).landing_ellipse;
+    const auto ellipse_merged = ds::summarize(*merged, 0.95).landing_ellipse;
+    REQUIRE(ellipse_whole);
+    REQUIRE(ellipse_merged);
+    CHECK(ellipse_merged->count == 90);
+    CHECK(ellipse_merged->axes.semi_major_km == ellipse_whole->axes.semi_major_km);
+    CHECK(ellipse_merged->axes.semi_minor_km == ellipse_whole->axes.semi_minor_km);
+    CHECK(ellipse_merged->axes.major_axis_azimuth_deg == ellipse_whole->axes.major_axis_azimuth_deg);
+    CHECK(ellipse_merged->centre_latitude_deg == ellipse_whole->centre_latitude_deg);
+    CHECK(ellipse_merged->centre_longitude_deg == ellipse_whole->centre_longitude_deg);
+    CHECK(ellipse_whole->axes.semi_major_km > 0.0);
     // A missing shard is refused, saying which case is missing.
     parts.pop_back();
     const auto [incomplete, why] = ds::merge_campaigns(parts);
