@@ -9,8 +9,8 @@
 #include <algorithm>
 #include <chrono>
 #include <filesystem>
-#include <thread>
 #include <string>
+#include <thread>
 #include <vector>
 
 #include <fmt/format.h>
@@ -55,12 +55,14 @@ int main(int argc, char** argv) {
                "p10 ms", "p90 ms", "steps");
     std::vector<std::filesystem::path> files;
     for (const auto& entry : std::filesystem::directory_iterator(samples)) {
-        if (entry.path().extension() == ".json") files.push_back(entry.path());
+        if (entry.path().extension() == ".json")
+            files.push_back(entry.path());
     }
     std::sort(files.begin(), files.end());
     for (const auto& file : files) {
         const ds::DesignReadResult read = ds::read_design_file(file);
-        if (!read.ok()) continue;
+        if (!read.ok())
+            continue;
         const ds::Design& design = *read.design;
         const ds::FlightEnvironment environment = ds::make_environment(design);
         const ds::FlightModel model = environment.model();
@@ -97,7 +99,8 @@ int main(int argc, char** argv) {
     // on every core, for the speed and the scaling.
     for (const auto& file : files) {
         const ds::DesignReadResult read = ds::read_design_file(file);
-        if (!read.ok() || read.design->dispersions.empty()) continue;
+        if (!read.ok() || read.design->dispersions.empty())
+            continue;
         constexpr std::size_t runs = 10000;
         const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
         // Each count twice, alternating, the faster kept: the first run also pays for warming
@@ -108,8 +111,10 @@ int main(int argc, char** argv) {
             settings.seed = 1;
             settings.threads = threads;
             const auto start = std::chrono::steady_clock::now();
-            const auto campaign = ds::run_dispersions(*read.design, file.parent_path(), settings).first;
-            if (!campaign || campaign->cases.size() != runs) return -1.0;
+            const auto campaign =
+                ds::run_dispersions(*read.design, file.parent_path(), settings).first;
+            if (!campaign || campaign->cases.size() != runs)
+                return -1.0;
             return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
         };
         double one = 1e300;
@@ -117,7 +122,8 @@ int main(int argc, char** argv) {
         for (int round = 0; round < 2; ++round) {
             const double single = campaign_seconds(1);
             const double every = campaign_seconds(cores);
-            if (single < 0.0 || every < 0.0) break;
+            if (single < 0.0 || every < 0.0)
+                break;
             one = std::min(one, single);
             all = std::min(all, every);
         }
@@ -125,9 +131,10 @@ int main(int argc, char** argv) {
             fmt::print("{}: the dispersions cannot run\n", file.stem().string());
             continue;
         }
-        fmt::print("{}: {} dispersed flights (interface to touchdown): {:.2f} s on 1 thread, "
-                   "{:.2f} s on {} ({:.0f} % of linear scaling)\n",
-                   file.stem().string(), runs, one, all, cores, 100.0 * one / (all * cores));
+        fmt::print(
+            "{}: {} dispersed flights (interface to touchdown): {:.2f} s on 1 thread, "
+            "{:.2f} s on {} ({:.0f} % of linear scaling)\n",
+            file.stem().string(), runs, one, all, cores, 100.0 * one / (all * cores));
     }
     return 0;
 }

@@ -4,8 +4,8 @@
 #include <exception>
 #include <string>
 
-#include <CLI/CLI.hpp>
 #include <fmt/format.h>
+#include <CLI/CLI.hpp>
 
 #include "design/reader.hpp"
 #include "results/writer.hpp"
@@ -47,7 +47,8 @@ int runSize(const SizeOptions& options) {
 }  // namespace
 
 int runCommand(int argc, char** argv) {
-    CLI::App app{"Descent Sizer: conceptual sizing of a lander's entry, descent and landing system"};
+    CLI::App app{
+        "Descent Sizer: conceptual sizing of a lander's entry, descent and landing system"};
     app.set_version_flag("--version", std::string(DESCENT_SIZER_VERSION));
     app.require_subcommand(1);
     app.footer("Without a command, descent-sizer opens the window (where it is built with one).");
@@ -77,14 +78,17 @@ int runCommand(int argc, char** argv) {
         return app.exit(e);
     }
     try {
-        if (const int code = runTrade(); code >= 0) return code;
-        if (*size) return runSize(sizeOptions);
+        if (const int code = runTrade(); code >= 0)
+            return code;
+        if (*size)
+            return runSize(sizeOptions);
         if (*sheet) {
 #ifdef DESCENT_SIZER_WITH_GUI
             return writeSheetCommand(argc, argv, sheetDesign.c_str(), sheetOutput.c_str());
 #else
-            fmt::print(stderr, "the sizing sheet needs the window's libraries: build with "
-                               "-DDESCENT_SIZER_BUILD_GUI=ON\n");
+            fmt::print(stderr,
+                       "the sizing sheet needs the window's libraries: build with "
+                       "-DDESCENT_SIZER_BUILD_GUI=ON\n");
             return 1;
 #endif
         }

@@ -23,7 +23,8 @@ bool isCommand(std::string_view word) {
 
 int main(int argc, char** argv) {
     ds::tuneAllocator();
-    if (argc > 1 && isCommand(argv[1])) return ds::runCommand(argc, argv);
+    if (argc > 1 && isCommand(argv[1]))
+        return ds::runCommand(argc, argv);
 #ifdef DESCENT_SIZER_WITH_GUI
     return ds::runWindow(argc, argv);
 #else

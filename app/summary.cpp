@@ -39,18 +39,23 @@ void text_row(std::string& out, std::string_view label, std::string_view text) {
 
 std::string_view status_tag(CheckStatus status) {
     switch (status) {
-        case CheckStatus::fail: return "FAIL";
-        case CheckStatus::marginal: return "MARGINAL";
-        case CheckStatus::pass: return "pass";
+        case CheckStatus::fail:
+            return "FAIL";
+        case CheckStatus::marginal:
+            return "MARGINAL";
+        case CheckStatus::pass:
+            return "pass";
     }
     return "";
 }
 
 void write_header(std::string& out, const Design& design, const Results& results) {
     auto it = std::back_inserter(out);
-    fmt::format_to(it, "Descent Sizer: {}\n", design.name.empty() ? "(unnamed design)" : design.name);
-    fmt::format_to(it, "body {}, site elevation {:.0f} m, entry {:.0f} m/s at {:.2f} deg from "
-                       "{:.0f} m\n",
+    fmt::format_to(it, "Descent Sizer: {}\n",
+                   design.name.empty() ? "(unnamed design)" : design.name);
+    fmt::format_to(it,
+                   "body {}, site elevation {:.0f} m, entry {:.0f} m/s at {:.2f} deg from "
+                   "{:.0f} m\n",
                    design.body.body.name, design.site.elevation_m, design.entry.velocity_m_s,
                    design.entry.flight_path_angle_deg, design.entry.interface_altitude_m);
     const std::size_t failing = static_cast<std::size_t>(
@@ -79,8 +84,9 @@ void write_entry(std::string& out, const EntryResults& e) {
     fmt::format_to(it, "  {:<{}} {:>12.4f} {:>12.4f} deg{}\n", "interface latitude, longitude",
                    label_width, in.latitude_deg, in.longitude_deg,
                    in.rotation_flown ? "" : " (body flown without rotation)");
-    for (const auto& [frame, v] : {std::pair<std::string_view, const EntryVelocity&>{"planet-relative", in.relative},
-                                   std::pair<std::string_view, const EntryVelocity&>{"inertial", in.inertial}}) {
+    for (const auto& [frame, v] :
+         {std::pair<std::string_view, const EntryVelocity&>{"planet-relative", in.relative},
+          std::pair<std::string_view, const EntryVelocity&>{"inertial", in.inertial}}) {
         fmt::format_to(it, "  {:<{}} {:>12.1f} m/s at {:.3f} deg, azimuth {:.3f} deg\n",
                        fmt::format("entry state, {}", frame), label_width, v.velocity_m_s,
                        v.flight_path_angle_deg, v.azimuth_deg);
@@ -148,19 +154,23 @@ void write_terminal(std::string& out, const TerminalResults& t) {
     row(out, "propellant burned", t.burned_propellant_kg, "kg", 1);
     row(out, "propellant loaded", t.propellant_kg, "kg", 1);
     row(out, "touchdown velocity", t.touchdown_velocity_m_s, "m/s", 2);
-    row(out, t.method == TerminalMethod::airbag ? "horizontal speed at release" : "horizontal speed at touchdown",
+    row(out,
+        t.method == TerminalMethod::airbag ? "horizontal speed at release"
+                                           : "horizontal speed at touchdown",
         t.touchdown_horizontal_velocity_m_s, "m/s", 2);
     if (t.impact_velocity_m_s) {
         row(out, "airbag impact velocity", t.impact_velocity_m_s, "m/s", 1);
         row(out, "airbag impact energy", t.impact_energy_J, "J", 0);
     }
-    if (t.hover_time_s) row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
+    if (t.hover_time_s)
+        row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
 }
 
 void write_timeline(std::string& out, const Results& results) {
     heading(out, "Timeline");
-    fmt::format_to(std::back_inserter(out), "  {:>11}  {:<28} {:>12} {:>13} {:>9} {:>9} {:>10} {:>10}\n", "time",
-                   "event", "altitude", "velocity", "lat deg", "lon deg", "down km", "cross km");
+    fmt::format_to(std::back_inserter(out),
+                   "  {:>11}  {:<28} {:>12} {:>13} {:>9} {:>9} {:>10} {:>10}\n", "time", "event",
+                   "altitude", "velocity", "lat deg", "lon deg", "down km", "cross km");
     for (const TimelineEvent& ev : results.timeline.events) {
         fmt::format_to(std::back_inserter(out),
                        "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s {:>9.4f} {:>9.4f} {:>10.3f} "
@@ -218,7 +228,8 @@ std::string format_summary(const Design& design, const Results& results) {
     write_header(out, design, results);
     write_checks(out, results.checks);
     write_entry(out, results.entry);
-    if (results.decelerator) write_decelerator(out, *results.decelerator);
+    if (results.decelerator)
+        write_decelerator(out, *results.decelerator);
     write_parachute(out, results.parachute);
     write_terminal(out, results.terminal);
     write_timeline(out, results);

@@ -50,7 +50,8 @@ std::optional<SweepAxis> parseAxis(const std::string& text, std::string* error) 
 std::optional<Design> readDesign(const std::string& path) {
     const DesignReadResult read = read_design_file(path);
     if (!read.ok()) {
-        for (const ReadError& e : read.errors) fmt::print(stderr, "{}: {}\n", path, e.text());
+        for (const ReadError& e : read.errors)
+            fmt::print(stderr, "{}: {}\n", path, e.text());
         return std::nullopt;
     }
     return read.design;
@@ -65,7 +66,8 @@ struct StudyDesign {
 
 std::optional<StudyDesign> readStudyDesign(const std::string& path) {
     auto design = readDesign(path);
-    if (!design) return std::nullopt;
+    if (!design)
+        return std::nullopt;
     std::ifstream in(path);
     return StudyDesign{path, Json::parse(in), std::move(*design)};
 }
@@ -74,8 +76,9 @@ std::optional<StudyDesign> readStudyDesign(const std::string& path) {
 std::optional<StudyOutcome> runStudyOn(const StudyDesign& file, const StudyRequest& request,
                                        unsigned threads) {
     Unwatched progress;
-    StudyOutcome outcome = run_study(request, file.document, file.design,
-                                     std::filesystem::path(file.path).parent_path(), threads, progress);
+    StudyOutcome outcome =
+        run_study(request, file.document, file.design,
+                  std::filesystem::path(file.path).parent_path(), threads, progress);
     if (!outcome.error.empty()) {
         fmt::print(stderr, "{}: {}\n", file.path, outcome.error);
         return std::nullopt;
@@ -86,13 +89,17 @@ std::optional<StudyOutcome> runStudyOn(const StudyDesign& file, const StudyReque
 /// How a command prints its study: --json wins over --csv, text without either.
 enum class Format { text, json, csv };
 
-Format formatOf(bool json, bool csv) { return json ? Format::json : csv ? Format::csv : Format::text; }
+Format formatOf(bool json, bool csv) {
+    return json ? Format::json : csv ? Format::csv : Format::text;
+}
 
 std::string valueText(const std::optional<double>& v, int decimals) {
     return v ? fmt::format("{:.{}f}", *v, decimals) : std::string("-");
 }
 
-std::string_view statusName(CheckStatus s) { return to_string(s); }
+std::string_view statusName(CheckStatus s) {
+    return to_string(s);
+}
 
 Json sweepJson(const StudyOutcome& outcome) {
     const std::vector<SweepAxis>& axes = outcome.request.axes;
@@ -100,7 +107,8 @@ Json sweepJson(const StudyOutcome& outcome) {
     for (const SweepCase& c : outcome.sweep) {
         Json row;
         Json inputs;
-        for (std::size_t a = 0; a < axes.size(); ++a) inputs[axes[a].key] = c.inputs[a];
+        for (std::size_t a = 0; a < axes.size(); ++a)
+            inputs[axes[a].key] = c.inputs[a];
         row["inputs"] = inputs;
         if (!c.results) {
             row["error"] = c.error;
@@ -128,22 +136,24 @@ Json sweepJson(const StudyOutcome& outcome) {
 
 /// A readable table of the figures a trade is usually about.
 void printSweepTable(const StudyOutcome& outcome) {
-    const std::vector<std::string_view> shown{"ballistic_coefficient", "peak_deceleration",
-                                              "peak_heat_flux",        "deploy_mach",
-                                              "deploy_altitude",       "propellant",
-                                              "timeline_margin",       "landed_mass"};
+    const std::vector<std::string_view> shown{
+        "ballistic_coefficient", "peak_deceleration", "peak_heat_flux",  "deploy_mach",
+        "deploy_altitude",       "propellant",        "timeline_margin", "landed_mass"};
     const auto isShown = [&](const KeyFigureDefinition& f) {
         return std::find(shown.begin(), shown.end(), f.id) != shown.end();
     };
     std::string head;
-    for (const SweepAxis& a : outcome.request.axes) head += fmt::format("{:>26} ", a.key);
+    for (const SweepAxis& a : outcome.request.axes)
+        head += fmt::format("{:>26} ", a.key);
     for (const KeyFigureDefinition& f : key_figure_table) {
-        if (isShown(f)) head += fmt::format("{:>14} ", f.id.substr(0, 14));
+        if (isShown(f))
+            head += fmt::format("{:>14} ", f.id.substr(0, 14));
     }
     fmt::print("{}  worst\n", head);
     for (const SweepCase& c : outcome.sweep) {
         std::string line;
-        for (const double v : c.inputs) line += fmt::format("{:>26.6g} ", v);
+        for (const double v : c.inputs)
+            line += fmt::format("{:>26.6g} ", v);
         if (!c.results) {
             fmt::print("{}  cannot be read: {}\n", line, c.error);
             continue;
@@ -161,9 +171,15 @@ void printSweepTable(const StudyOutcome& outcome) {
 
 void printSweep(const StudyOutcome& outcome, Format format) {
     switch (format) {
-        case Format::json: fmt::print("{}\n", sweepJson(outcome).dump(2)); break;
-        case Format::csv: fmt::print("{}", outcome.csv()); break;
-        case Format::text: printSweepTable(outcome); break;
+        case Format::json:
+            fmt::print("{}\n", sweepJson(outcome).dump(2));
+            break;
+        case Format::csv:
+            fmt::print("{}", outcome.csv());
+            break;
+        case Format::text:
+            printSweepTable(outcome);
+            break;
     }
 }
 
@@ -172,16 +188,18 @@ void printSummary(const DispersionSummary& s) {
     fmt::print("{:<26} {:>8} {:>12} {:>12} {:>12} {:>12} {:>12}\n", "figure", "unit", "mean",
                "std dev", "p01", "p50", "p99");
     for (const FigureStatistics& f : s.figures) {
-        if (f.count == 0) continue;
-        fmt::print("{:<26} {:>8} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g}\n", f.id,
-                   f.unit, f.mean, f.standard_deviation, f.p01, f.p50, f.p99);
+        if (f.count == 0)
+            continue;
+        fmt::print("{:<26} {:>8} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g} {:>12.5g}\n", f.id, f.unit,
+                   f.mean, f.standard_deviation, f.p01, f.p50, f.p99);
     }
     if (s.landing_ellipse) {
         const LandingEllipse& e = *s.landing_ellipse;
-        fmt::print("\nlanding ellipse ({:.4g} %, {} landing points): centre {:.5f} deg, {:.5f} deg; "
-                   "semi-major {:.3f} km, semi-minor {:.3f} km, major axis at azimuth {:.1f} deg\n",
-                   100.0 * e.probability, e.count, e.centre_latitude_deg, e.centre_longitude_deg,
-                   e.axes.semi_major_km, e.axes.semi_minor_km, e.axes.major_axis_azimuth_deg);
+        fmt::print(
+            "\nlanding ellipse ({:.4g} %, {} landing points): centre {:.5f} deg, {:.5f} deg; "
+            "semi-major {:.3f} km, semi-minor {:.3f} km, major axis at azimuth {:.1f} deg\n",
+            100.0 * e.probability, e.count, e.centre_latitude_deg, e.centre_longitude_deg,
+            e.axes.semi_major_km, e.axes.semi_minor_km, e.axes.major_axis_azimuth_deg);
     }
     if (!s.failing_checks.empty()) {
         fmt::print("\nfailing checks, most frequent first:\n");
@@ -192,20 +210,24 @@ void printSummary(const DispersionSummary& s) {
     }
 }
 
-
 /// A campaign (a dispersion run, a shard of one or merged shards) and its summary.
 void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& summary,
                    Format format) {
     switch (format) {
         case Format::json:
             fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
-                                    {"campaign", campaign_to_json(campaign)}}.dump(1));
+                                    {"campaign", campaign_to_json(campaign)}}
+                                   .dump(1));
             break;
-        case Format::csv: fmt::print("{}", campaign_csv(campaign)); break;
+        case Format::csv:
+            fmt::print("{}", campaign_csv(campaign));
+            break;
         case Format::text:
             if (campaign.shard_count > 1) {
-                fmt::print("shard {}/{} of the campaign (merge the --json outputs for the "
-                           "whole)\n", campaign.shard_index, campaign.shard_count);
+                fmt::print(
+                    "shard {}/{} of the campaign (merge the --json outputs for the "
+                    "whole)\n",
+                    campaign.shard_index, campaign.shard_count);
             }
             printSummary(summary);
             break;
@@ -229,12 +251,14 @@ Json sensitivityJson(const SensitivityTable& table) {
 }
 
 void printSensitivityRanking(const SensitivityTable& table) {
-    fmt::print("Normalised sensitivities d(ln figure)/d(ln input), central differences "
-               "of {} relative; the five largest per figure.\n",
-               sensitivity_relative_step);
+    fmt::print(
+        "Normalised sensitivities d(ln figure)/d(ln input), central differences "
+        "of {} relative; the five largest per figure.\n",
+        sensitivity_relative_step);
     for (std::size_t f = 0; f < table.figures.size(); ++f) {
         const auto ranked = table.ranked(f);
-        if (ranked.empty()) continue;
+        if (ranked.empty())
+            continue;
         fmt::print("\n{}\n", table.figures[f]);
         for (std::size_t k = 0; k < std::min<std::size_t>(5, ranked.size()); ++k) {
             fmt::print("  {:>+9.4f}  {}\n", ranked[k].second, ranked[k].first);
@@ -244,9 +268,15 @@ void printSensitivityRanking(const SensitivityTable& table) {
 
 void printSensitivities(const StudyOutcome& outcome, Format format) {
     switch (format) {
-        case Format::json: fmt::print("{}\n", sensitivityJson(*outcome.sensitivities).dump(2)); break;
-        case Format::csv: fmt::print("{}", outcome.csv()); break;
-        case Format::text: printSensitivityRanking(*outcome.sensitivities); break;
+        case Format::json:
+            fmt::print("{}\n", sensitivityJson(*outcome.sensitivities).dump(2));
+            break;
+        case Format::csv:
+            fmt::print("{}", outcome.csv());
+            break;
+        case Format::text:
+            printSensitivityRanking(*outcome.sensitivities);
+            break;
     }
 }
 
@@ -277,16 +307,19 @@ int sweepCommand(const Options& o) {
         request.axes.push_back(*axis);
     }
     const auto file = readStudyDesign(o.design);
-    if (!file) return exit_unreadable;
+    if (!file)
+        return exit_unreadable;
     const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome) return exit_unreadable;
+    if (!outcome)
+        return exit_unreadable;
     printSweep(*outcome, formatOf(o.json, o.csv));
     return 0;
 }
 
 int disperseCommand(const Options& o) {
     const auto file = readStudyDesign(o.design);
-    if (!file) return exit_unreadable;
+    if (!file)
+        return exit_unreadable;
     StudyRequest request;
     request.kind = StudyKind::dispersions;
     request.runs = o.runs;
@@ -302,7 +335,8 @@ int disperseCommand(const Options& o) {
         return exit_usage;
     }
     const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome) return exit_unreadable;
+    if (!outcome)
+        return exit_unreadable;
     printCampaign(*outcome->campaign, outcome->summary, formatOf(o.json, o.csv));
     return 0;
 }
@@ -336,12 +370,14 @@ int mergeCommand(const Options& o) {
 
 int sensitivityCommand(const Options& o) {
     const auto file = readStudyDesign(o.design);
-    if (!file) return exit_unreadable;
+    if (!file)
+        return exit_unreadable;
     StudyRequest request;
     request.kind = StudyKind::sensitivities;
     request.inputs = o.inputs;
     const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome) return exit_unreadable;
+    if (!outcome)
+        return exit_unreadable;
     printSensitivities(*outcome, formatOf(o.json, o.csv));
     return 0;
 }
@@ -366,13 +402,17 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->required()
         ->check(CLI::ExistingFile);
     disperse->add_option("--runs", o->runs, "Number of dispersed cases")->default_val(1000);
-    disperse->add_option("--seed", o->seed, "Seed: the same seed gives the same numbers")->default_val(1);
+    disperse->add_option("--seed", o->seed, "Seed: the same seed gives the same numbers")
+        ->default_val(1);
     disperse->add_option("--shard", o->shard, "I/N: run the I-th of N slices (for a batch array)");
     disperse->add_option("--threads", o->threads, "Threads (default: one per core)");
     disperse->add_flag("--json", o->json, "The summary and every case as JSON (what merge reads)");
-    disperse->add_flag("--csv", o->csv, "Every case as CSV: its draws, key figures, landing point and failed checks");
-    disperse->add_option("--ellipse-probability", o->ellipse_probability,
-                         "Probability held by the landing ellipse (0 to 1)")
+    disperse->add_flag(
+        "--csv", o->csv,
+        "Every case as CSV: its draws, key figures, landing point and failed checks");
+    disperse
+        ->add_option("--ellipse-probability", o->ellipse_probability,
+                     "Probability held by the landing ellipse (0 to 1)")
         ->default_val(default_ellipse_probability)
         ->check(CLI::Range(1e-6, 1.0 - 1e-9));
 
@@ -380,24 +420,32 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     merge->add_option("parts", o->parts, "Shard outputs")->required()->check(CLI::ExistingFile);
     merge->add_flag("--json", o->json, "The merged summary and cases as JSON");
     merge->add_flag("--csv", o->csv, "The merged cases as CSV");
-    merge->add_option("--ellipse-probability", o->ellipse_probability,
-                      "Probability held by the landing ellipse (0 to 1)")
+    merge
+        ->add_option("--ellipse-probability", o->ellipse_probability,
+                     "Probability held by the landing ellipse (0 to 1)")
         ->default_val(default_ellipse_probability)
         ->check(CLI::Range(1e-6, 1.0 - 1e-9));
 
     CLI::App* sensitivity = app.add_subcommand(
         "sensitivity", "Normalised sensitivity of each key figure to each numeric input");
-    sensitivity->add_option("design", o->design, "Design document")->required()->check(CLI::ExistingFile);
-    sensitivity->add_option("--inputs", o->inputs, "Keys to vary (default: every number)")->delimiter(',');
+    sensitivity->add_option("design", o->design, "Design document")
+        ->required()
+        ->check(CLI::ExistingFile);
+    sensitivity->add_option("--inputs", o->inputs, "Keys to vary (default: every number)")
+        ->delimiter(',');
     sensitivity->add_flag("--json", o->json, "The matrix as JSON");
     sensitivity->add_flag("--csv", o->csv, "The matrix as CSV, a row per figure");
     sensitivity->add_option("--threads", o->threads, "Threads (default: one per core)");
 
     return [=]() -> int {
-        if (*sweep) return sweepCommand(*o);
-        if (*disperse) return disperseCommand(*o);
-        if (*merge) return mergeCommand(*o);
-        if (*sensitivity) return sensitivityCommand(*o);
+        if (*sweep)
+            return sweepCommand(*o);
+        if (*disperse)
+            return disperseCommand(*o);
+        if (*merge)
+            return mergeCommand(*o);
+        if (*sensitivity)
+            return sensitivityCommand(*o);
         return -1;
     };
 }

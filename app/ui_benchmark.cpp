@@ -6,10 +6,10 @@
 #include <algorithm>
 #include <vector>
 
+#include <fmt/format.h>
 #include <QApplication>
 #include <QElapsedTimer>
 #include <QSignalSpy>
-#include <fmt/format.h>
 
 #include "main_window.hpp"
 #include "model/design_document.hpp"
@@ -30,12 +30,14 @@ int main(int argc, char** argv) {
         const double diameter = 2.4 + 0.02 * (i % 20);
         clock.start();
         window.document()->setValue("/aeroshell/diameter_m", diameter, "bench");
-        if (!shown.wait(10000)) break;
+        if (!shown.wait(10000))
+            break;
         window.repaint();  // paint now, as the next frame would
         ms.push_back(static_cast<double>(clock.nsecsElapsed()) / 1e6);
     }
     std::sort(ms.begin(), ms.end());
-    if (ms.empty()) return 1;
+    if (ms.empty())
+        return 1;
     const auto at = [&](double q) { return ms[static_cast<std::size_t>(q * (ms.size() - 1))]; };
     fmt::print("edit to redrawn window, {} edits: median {:.1f} ms, p10 {:.1f} ms, p90 {:.1f} ms\n",
                ms.size(), at(0.5), at(0.1), at(0.9));

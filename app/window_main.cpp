@@ -1,12 +1,12 @@
 #include <cstdio>
 #include <cstdlib>
 
+#include <fmt/format.h>
 #include <QApplication>
 #include <QCommandLineParser>
 #include <QDateTime>
 #include <QEventLoop>
 #include <QTimer>
-#include <fmt/format.h>
 
 #include "commands.hpp"
 #include "design/reader.hpp"
@@ -37,12 +37,13 @@ void setIdentity() {
 
 /// Without a display: the demo design sized to the terminal, and how to get the window.
 int sizeDemoToTerminal(const QString& file) {
-    const std::string path = file.isEmpty()
-                                 ? std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json"
-                                 : file.toStdString();
+    const std::string path =
+        file.isEmpty() ? std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json"
+                       : file.toStdString();
     const DesignReadResult read = read_design_file(path);
     if (!read.ok()) {
-        for (const ReadError& error : read.errors) fmt::print(stderr, "{}: {}\n", path, error.text());
+        for (const ReadError& error : read.errors)
+            fmt::print(stderr, "{}: {}\n", path, error.text());
         return exit_unreadable;
     }
     fmt::print("No display: sizing {} in the terminal (run under a desktop for the window).\n\n",
@@ -65,13 +66,16 @@ int runWindow(int argc, char** argv) {
             file = arg;
         }
     }
-    if (!hasDisplay() && screenshot.isEmpty()) return sizeDemoToTerminal(file);
-    if (!hasDisplay()) qputenv("QT_QPA_PLATFORM", "offscreen");
+    if (!hasDisplay() && screenshot.isEmpty())
+        return sizeDemoToTerminal(file);
+    if (!hasDisplay())
+        qputenv("QT_QPA_PLATFORM", "offscreen");
 
     QApplication app(argc, argv);
     setIdentity();
     MainWindow window;
-    const bool opened = file.isEmpty() ? (window.newFromDemo(), true) : window.openFile(file, !screenshot.isEmpty());
+    const bool opened = file.isEmpty() ? (window.newFromDemo(), true)
+                                       : window.openFile(file, !screenshot.isEmpty());
     if (!opened && !screenshot.isEmpty()) {
         fmt::print(stderr, "cannot open {}\n", file.toStdString());
         return exit_unreadable;
@@ -84,9 +88,8 @@ int runWindow(int argc, char** argv) {
 
     // --screenshot: wait for the results to be drawn, picture the whole window, leave.
     QEventLoop loop;
-    QObject::connect(&window, &MainWindow::resultsShown, &loop, [&] {
-        QTimer::singleShot(screenshot_settle_ms, &loop, &QEventLoop::quit);
-    });
+    QObject::connect(&window, &MainWindow::resultsShown, &loop,
+                     [&] { QTimer::singleShot(screenshot_settle_ms, &loop, &QEventLoop::quit); });
     QTimer::singleShot(screenshot_timeout_ms, &loop, &QEventLoop::quit);
     loop.exec();
     if (!window.grab().save(screenshot)) {
@@ -104,7 +107,8 @@ int writeSheetCommand(int argc, char** argv, const char* designPath, const char*
         }
         return exit_unreadable;
     }
-    if (!hasDisplay()) qputenv("QT_QPA_PLATFORM", "offscreen");
+    if (!hasDisplay())
+        qputenv("QT_QPA_PLATFORM", "offscreen");
     QApplication app(argc, argv);
     setIdentity();
     const Results results = size_design(*read.design);

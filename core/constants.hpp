@@ -10,7 +10,11 @@ inline constexpr double molar_gas_constant_J_molK = 8.314462618;
 
 inline constexpr double pi = 3.14159265358979323846;
 
-constexpr double degrees_to_radians(double deg) { return deg * pi / 180.0; }
-constexpr double radians_to_degrees(double rad) { return rad * 180.0 / pi; }
+constexpr double degrees_to_radians(double deg) {
+    return deg * pi / 180.0;
+}
+constexpr double radians_to_degrees(double rad) {
+    return rad * 180.0 / pi;
+}
 
 }  // namespace ds

@@ -98,36 +98,44 @@ MainWindow::MainWindow(QWidget* parent)
             [this](const QString& pointer) { m_form->focusField(pointer.toStdString()); });
 
     resize(1500, 950);
-    if (!m_settings.windowGeometry().isEmpty()) restoreGeometry(m_settings.windowGeometry());
-    if (!m_settings.windowState().isEmpty()) restoreState(m_settings.windowState());
+    if (!m_settings.windowGeometry().isEmpty())
+        restoreGeometry(m_settings.windowGeometry());
+    if (!m_settings.windowState().isEmpty())
+        restoreState(m_settings.windowState());
     updateTitle();
 }
 
 void MainWindow::buildMenus() {
     QMenu* file = menuBar()->addMenu(tr("&File"));
     file->addAction(tr("&New from demo"), QKeySequence::New, this, [this] {
-        if (confirmDiscard()) newFromDemo();
+        if (confirmDiscard())
+            newFromDemo();
     });
     file->addAction(tr("&Open..."), QKeySequence::Open, this, [this] {
-        if (!confirmDiscard()) return;
-        const QString path = QFileDialog::getOpenFileName(this, tr("Open design"),
-                                                          m_settings.lastDirectory(), tr(designFilter));
-        if (!path.isEmpty()) openFile(path);
+        if (!confirmDiscard())
+            return;
+        const QString path = QFileDialog::getOpenFileName(
+            this, tr("Open design"), m_settings.lastDirectory(), tr(designFilter));
+        if (!path.isEmpty())
+            openFile(path);
     });
     m_recentMenu = file->addMenu(tr("Open &recent"));
     file->addSeparator();
     file->addAction(tr("&Save"), QKeySequence::Save, this, [this] { save(); });
     file->addAction(tr("Save &as..."), QKeySequence::SaveAs, this, [this] {
         const QString path = chooseSaveFile();
-        if (!path.isEmpty()) saveAs(path);
+        if (!path.isEmpty())
+            saveAs(path);
     });
     file->addAction(tr("&Export sheet..."), QKeySequence(tr("Ctrl+E")), this, [this] {
         const QString path = QFileDialog::getSaveFileName(
             this, tr("Export sizing sheet"), m_settings.lastDirectory(),
             tr("PDF (*.pdf);;HTML (*.html);;Trajectory CSV (*.csv)"));
-        if (path.isEmpty()) return;
+        if (path.isEmpty())
+            return;
         QString error;
-        if (!exportSheet(path, &error)) QMessageBox::warning(this, tr("Export sheet"), error);
+        if (!exportSheet(path, &error))
+            QMessageBox::warning(this, tr("Export sheet"), error);
     });
     file->addSeparator();
     file->addAction(tr("&Quit"), QKeySequence::Quit, this, &QWidget::close);
@@ -160,18 +168,21 @@ void MainWindow::newFromDemo() {
     QFile demo(demoResource);
     demo.open(QIODevice::ReadOnly);
     const QByteArray bytes = demo.readAll();
-    DesignDocument::Json json = DesignDocument::Json::parse(bytes.constData(),
-                                                            bytes.constData() + bytes.size());
+    DesignDocument::Json json =
+        DesignDocument::Json::parse(bytes.constData(), bytes.constData() + bytes.size());
     m_document->reset(std::move(json), QString());
 }
 
 bool MainWindow::offerRecovery() {
-    if (m_document->isModified()) return false;  // never replace work in progress
+    if (m_document->isModified())
+        return false;  // never replace work in progress
     for (const RecoveredWork& work : Autosave::leftoverWork(m_autosave->folder())) {
         const RecoveryChoice choice =
             m_recoveryPrompt ? m_recoveryPrompt(work) : askAboutRecovery(work);
-        if (choice == RecoveryChoice::discard) Autosave::remove(work);
-        if (choice != RecoveryChoice::recover) continue;
+        if (choice == RecoveryChoice::discard)
+            Autosave::remove(work);
+        if (choice != RecoveryChoice::recover)
+            continue;
         DesignDocument::Json json;
         QString error;
         if (!Autosave::read(work, &json, &error)) {
@@ -180,7 +191,8 @@ bool MainWindow::offerRecovery() {
         }
         m_document->restore(std::move(json), work.originalPath);
         m_autosave->adopt(work);
-        if (!work.originalPath.isEmpty()) m_settings.addRecentFile(m_document->filePath());
+        if (!work.originalPath.isEmpty())
+            m_settings.addRecentFile(m_document->filePath());
         updateRecentMenu();
         return true;
     }
@@ -198,8 +210,9 @@ RecoveryChoice MainWindow::askAboutRecovery(const RecoveredWork& work) {
                   "modified and Save writes it to %3.")
                    .arg(QFileInfo(work.originalPath).fileName(), at, path);
         if (QFileInfo(work.originalPath).lastModified() > work.savedAt) {
-            text += tr("\n\nThat file was saved after this autosave: saving the recovered design "
-                       "would replace the later version.");
+            text +=
+                tr("\n\nThat file was saved after this autosave: saving the recovered design "
+                   "would replace the later version.");
         }
     }
     QMessageBox box(QMessageBox::Question, tr("Recover unsaved work"), text, QMessageBox::NoButton,
@@ -209,15 +222,18 @@ RecoveryChoice MainWindow::askAboutRecovery(const RecoveredWork& work) {
     box.addButton(tr("Ask &later"), QMessageBox::RejectRole);
     box.setDefaultButton(recover);
     box.exec();
-    if (box.clickedButton() == recover) return RecoveryChoice::recover;
-    if (box.clickedButton() == discard) return RecoveryChoice::discard;
+    if (box.clickedButton() == recover)
+        return RecoveryChoice::recover;
+    if (box.clickedButton() == discard)
+        return RecoveryChoice::discard;
     return RecoveryChoice::later;
 }
 
 bool MainWindow::openFile(const QString& path, bool quiet) {
     QString error;
     if (!m_document->open(path, &error)) {
-        if (!quiet) QMessageBox::warning(this, tr("Open design"), error);
+        if (!quiet)
+            QMessageBox::warning(this, tr("Open design"), error);
         return false;
     }
     m_settings.addRecentFile(m_document->filePath());
@@ -235,8 +251,8 @@ bool MainWindow::save() {
 }
 
 bool MainWindow::saveAs(const QString& path) {
-    const bool wasRemoved = QFileInfo(path).absoluteFilePath() == m_document->filePath() &&
-                            !QFileInfo::exists(path);
+    const bool wasRemoved =
+        QFileInfo(path).absoluteFilePath() == m_document->filePath() && !QFileInfo::exists(path);
     QString error;
     if (!m_document->saveAs(path, &error)) {
         QMessageBox::warning(this, tr("Save design"), error);
@@ -257,7 +273,8 @@ bool MainWindow::saveAs(const QString& path) {
 QString MainWindow::chooseSaveFile() {
     QString path = QFileDialog::getSaveFileName(this, tr("Save design"), m_settings.lastDirectory(),
                                                 tr(designFilter));
-    if (!path.isEmpty() && QFileInfo(path).suffix().isEmpty()) path += ".json";
+    if (!path.isEmpty() && QFileInfo(path).suffix().isEmpty())
+        path += ".json";
     return path;
 }
 
@@ -273,14 +290,16 @@ bool MainWindow::exportSheet(const QString& path, QString* error) {
 }
 
 void MainWindow::pinBaseline() {
-    if (!m_runner->hasResults()) return;
+    if (!m_runner->hasResults())
+        return;
     m_baseline = m_runner->results();
     showResults();
 }
 
 void MainWindow::clearBaseline() {
     m_baseline.reset();
-    if (m_runner->hasResults()) showResults();
+    if (m_runner->hasResults())
+        showResults();
 }
 
 void MainWindow::documentChanged() {
@@ -288,7 +307,8 @@ void MainWindow::documentChanged() {
         m_runner->request(*design);
         m_status->setText(tr("Sizing..."));
     } else {
-        m_status->setText(tr("The design has errors: the results shown are of the last valid design."));
+        m_status->setText(
+            tr("The design has errors: the results shown are of the last valid design."));
     }
     updateTitle();
 }
@@ -307,41 +327,51 @@ void MainWindow::showResults() {
         marginal += c.status == CheckStatus::marginal;
     }
     if (m_document->design()) {
-        m_status->setText(tr("%1: %2 failing, %3 marginal of %4 checks%5")
-                              .arg(r.converged ? tr("Sized") : tr("NOT sized"))
-                              .arg(failing)
-                              .arg(marginal)
-                              .arg(r.checks.size())
-                              .arg(m_baseline ? tr("; differences from the pinned baseline") : QString()));
+        m_status->setText(
+            tr("%1: %2 failing, %3 marginal of %4 checks%5")
+                .arg(r.converged ? tr("Sized") : tr("NOT sized"))
+                .arg(failing)
+                .arg(marginal)
+                .arg(r.checks.size())
+                .arg(m_baseline ? tr("; differences from the pinned baseline") : QString()));
     }
     emit resultsShown();
 }
 
 void MainWindow::updateTitle() {
-    const QString name = m_document->filePath().isEmpty() ? tr("Untitled design")
-                                                          : QFileInfo(m_document->filePath()).fileName();
+    const QString name = m_document->filePath().isEmpty()
+                             ? tr("Untitled design")
+                             : QFileInfo(m_document->filePath()).fileName();
     setWindowTitle(tr("%1[*] - Descent Sizer").arg(name));
     setWindowModified(m_document->isModified());
 }
 
 void MainWindow::updateRecentMenu() {
-    if (!m_recentMenu) return;
+    if (!m_recentMenu)
+        return;
     m_recentMenu->clear();
     for (const QString& path : m_settings.recentFiles()) {
-        m_recentMenu->addAction(QFileInfo(path).fileName(), this, [this, path] {
-            if (confirmDiscard()) openFile(path);
-        })->setToolTip(path);
+        m_recentMenu
+            ->addAction(QFileInfo(path).fileName(), this,
+                        [this, path] {
+                            if (confirmDiscard())
+                                openFile(path);
+                        })
+            ->setToolTip(path);
     }
     m_recentMenu->setEnabled(!m_settings.recentFiles().isEmpty());
 }
 
 bool MainWindow::confirmDiscard() {
-    if (!m_document->isModified()) return true;
+    if (!m_document->isModified())
+        return true;
     const auto answer = QMessageBox::question(
         this, tr("Unsaved changes"), tr("The design has unsaved changes. Save them first?"),
         QMessageBox::Save | QMessageBox::Discard | QMessageBox::Cancel, QMessageBox::Save);
-    if (answer == QMessageBox::Cancel) return false;
-    if (answer == QMessageBox::Save) return save();
+    if (answer == QMessageBox::Cancel)
+        return false;
+    if (answer == QMessageBox::Save)
+        return save();
     return true;
 }
 

@@ -33,7 +33,8 @@ Settings::Settings() {
 void Settings::addRecentFile(const QString& path) {
     m_recentFiles.removeAll(path);
     m_recentFiles.prepend(path);
-    while (m_recentFiles.size() > maxRecentFiles) m_recentFiles.removeLast();
+    while (m_recentFiles.size() > maxRecentFiles)
+        m_recentFiles.removeLast();
     save();
 }
 

@@ -6,7 +6,9 @@
 
 namespace ds {
 
-double frontal_area_m2(double diameter_m) { return pi * diameter_m * diameter_m / 4.0; }
+double frontal_area_m2(double diameter_m) {
+    return pi * diameter_m * diameter_m / 4.0;
+}
 
 double ballistic_coefficient_kg_m2(double mass_kg, double drag_coefficient, double area_m2) {
     return mass_kg / (drag_coefficient * area_m2);

@@ -40,8 +40,8 @@ struct SphereCone {
 /// `drag_coefficient_of(diameter)` must be positive. Returns 0 when no diameter between the
 /// nose diameter and 100 m meets the target.
 template <class DragCoefficientOf>
-double diameter_for_ballistic_coefficient(double mass_kg, double target_kg_m2,
-                                          double smallest_m, DragCoefficientOf&& drag_coefficient_of);
+double diameter_for_ballistic_coefficient(double mass_kg, double target_kg_m2, double smallest_m,
+                                          DragCoefficientOf&& drag_coefficient_of);
 
 }  // namespace ds
 

@@ -17,7 +17,8 @@ double diameter_for_ballistic_coefficient(double mass_kg, double target_kg_m2, d
     };
     const double at_small = excess(smallest_m);
     const double at_large = excess(largest_m);
-    if (!(at_small > 0.0 && at_large < 0.0)) return 0.0;
+    if (!(at_small > 0.0 && at_large < 0.0))
+        return 0.0;
     std::uintmax_t iterations = 200;
     const auto close = [](double a, double b) { return b - a <= tolerance_m; };
     const auto [lo, hi] = boost::math::tools::toms748_solve(excess, smallest_m, largest_m, at_small,

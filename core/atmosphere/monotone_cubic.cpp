@@ -15,7 +15,9 @@ namespace {
 // 0 <= m/d <= 3 keep the cubic monotone (the box inside their region; from memory).
 constexpr double monotone_slope_ratio_max = 3.0;
 
-bool same_sign(double a, double b) { return (a > 0.0 && b > 0.0) || (a < 0.0 && b < 0.0); }
+bool same_sign(double a, double b) {
+    return (a > 0.0 && b > 0.0) || (a < 0.0 && b < 0.0);
+}
 
 /// Three-point one-sided slope at an end (h0, d0: the end segment; h1, d1: its neighbour),
 /// limited so that the end segment stays monotone.
@@ -34,9 +36,9 @@ void check_given_slope(const char* which, double slope, double secant) {
     if (!std::isfinite(slope)) {
         throw std::invalid_argument(fmt::format("{} slope must be finite, got {}", which, slope));
     }
-    const bool inside = secant == 0.0 ? slope == 0.0
-                                      : slope / secant >= 0.0 &&
-                                            slope / secant <= monotone_slope_ratio_max;
+    const bool inside = secant == 0.0
+                            ? slope == 0.0
+                            : slope / secant >= 0.0 && slope / secant <= monotone_slope_ratio_max;
     if (!inside) {
         throw std::invalid_argument(
             fmt::format("{} slope {} is outside the monotone region of its segment (secant {})",
@@ -84,8 +86,7 @@ MonotoneCubic::MonotoneCubic(std::vector<double> x, std::vector<double> y,
             slopes_[i] = (w_before + w_after) / (w_before / before + w_after / after);
         }
         slopes_.front() = end_slope(widths[0], widths[1], secants[0], secants[1]);
-        slopes_.back() =
-            end_slope(widths[n - 2], widths[n - 3], secants[n - 2], secants[n - 3]);
+        slopes_.back() = end_slope(widths[n - 2], widths[n - 3], secants[n - 2], secants[n - 3]);
     }
     if (first_slope) {
         check_given_slope("first", *first_slope, secants.front());

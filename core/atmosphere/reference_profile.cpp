@@ -25,14 +25,16 @@ Body validated(Body body) {
 std::vector<double> altitudes(const std::vector<AtmosphereRow>& rows) {
     std::vector<double> out;
     out.reserve(rows.size());
-    for (const AtmosphereRow& row : rows) out.push_back(row.altitude_m);
+    for (const AtmosphereRow& row : rows)
+        out.push_back(row.altitude_m);
     return out;
 }
 
 std::vector<double> log_densities(const std::vector<AtmosphereRow>& rows) {
     std::vector<double> out;
     out.reserve(rows.size());
-    for (const AtmosphereRow& row : rows) out.push_back(std::log(row.density_kg_m3));
+    for (const AtmosphereRow& row : rows)
+        out.push_back(std::log(row.density_kg_m3));
     return out;
 }
 
@@ -59,8 +61,8 @@ Atmosphere::Profile ReferenceProfileAtmosphere::profile(double altitude_m) const
         // the integral of g from the top row, mu (1/(r0 + h_top) - 1/(r0 + h)).
         const double potential_drop = body_.mu_m3_s2 * (1.0 / (body_.radius_m + top.altitude_m) -
                                                         1.0 / (body_.radius_m + altitude_m));
-        return {top.density_kg_m3 * std::exp(-potential_drop / (body_.gas.gas_constant_J_kgK *
-                                                                top.temperature_K)),
+        return {top.density_kg_m3 *
+                    std::exp(-potential_drop / (body_.gas.gas_constant_J_kgK * top.temperature_K)),
                 top.temperature_K};
     }
     return {std::exp(log_density_.value(altitude_m)),

@@ -4,8 +4,8 @@
 
 #include "atmosphere/atmosphere.hpp"
 #include "atmosphere/monotone_cubic.hpp"
-#include "body/body.hpp"
 #include "atmosphere/table_row.hpp"
+#include "body/body.hpp"
 
 namespace ds {
 

@@ -20,14 +20,12 @@ std::unique_ptr<Atmosphere> standard_atmosphere(std::string_view body_preset,
         return std::make_unique<MarsReferenceAtmosphere>(gas_constant_J_kgK, gamma, density_scale);
     }
     if (body_preset == "venus") {
-        return std::make_unique<ReferenceProfileAtmosphere>(venus_reference_profile(),
-                                                            gas_constant_J_kgK, gamma,
-                                                            density_scale);
+        return std::make_unique<ReferenceProfileAtmosphere>(
+            venus_reference_profile(), gas_constant_J_kgK, gamma, density_scale);
     }
     if (body_preset == "titan") {
-        return std::make_unique<ReferenceProfileAtmosphere>(titan_engineering_profile(),
-                                                            gas_constant_J_kgK, gamma,
-                                                            density_scale);
+        return std::make_unique<ReferenceProfileAtmosphere>(
+            titan_engineering_profile(), gas_constant_J_kgK, gamma, density_scale);
     }
     return nullptr;
 }

@@ -126,8 +126,8 @@ double layer_model_density_kg_m3(const LayerState& state) {
 constexpr double molar_mass_ratio_start_m = 80000.0;
 constexpr double molar_mass_ratio_step_m = 500.0;
 constexpr std::array<double, 13> molar_mass_ratio{{1.0, 0.999996, 0.999989, 0.999971, 0.999941,
-                                                   0.999909, 0.999870, 0.999829, 0.999786,
-                                                   0.999741, 0.999694, 0.999641, 0.999579}};
+                                                   0.999909, 0.999870, 0.999829, 0.999786, 0.999741,
+                                                   0.999694, 0.999641, 0.999579}};
 
 double molar_mass_ratio_at(double geometric_m) {
     if (geometric_m <= molar_mass_ratio_start_m) {
@@ -196,10 +196,10 @@ struct UpperLevel {
 constexpr double metres_per_kilometre = 1000.0;
 constexpr std::size_t upper_level_count = 87;
 constexpr std::array<UpperLevel, upper_level_count> upper_levels{{
-    {86, 3.7338e-1, 28.95}, {87, 3.1259e-1, 28.95}, {88, 2.6173e-1, 28.94},
-    {89, 2.1919e-1, 28.93}, {90, 1.8359e-1, 28.91}, {91, 1.5381e-1, 28.89},
-    {93, 1.0801e-1, 28.82}, {95, 7.5966e-2, 28.73}, {97, 5.3571e-2, 28.62},
-    {99, 3.7948e-2, 28.48}, {101, 2.7192e-2, 28.30}, {103, 1.9742e-2, 28.10},
+    {86, 3.7338e-1, 28.95},  {87, 3.1259e-1, 28.95},  {88, 2.6173e-1, 28.94},
+    {89, 2.1919e-1, 28.93},  {90, 1.8359e-1, 28.91},  {91, 1.5381e-1, 28.89},
+    {93, 1.0801e-1, 28.82},  {95, 7.5966e-2, 28.73},  {97, 5.3571e-2, 28.62},
+    {99, 3.7948e-2, 28.48},  {101, 2.7192e-2, 28.30}, {103, 1.9742e-2, 28.10},
     {105, 1.4477e-2, 27.88}, {107, 1.0751e-2, 27.64}, {109, 8.1142e-3, 27.39},
     {110, 7.1042e-3, 27.27}, {111, 6.2614e-3, 27.14}, {112, 5.5547e-3, 27.02},
     {113, 4.9570e-3, 26.90}, {114, 4.4473e-3, 26.79}, {115, 4.0096e-3, 26.68},
@@ -220,11 +220,11 @@ constexpr std::array<UpperLevel, upper_level_count> upper_levels{{
     {470, 4.7292e-7, 14.91}, {480, 4.0642e-7, 14.73}, {490, 3.5011e-7, 14.54},
     {500, 3.0236e-7, 14.33}, {525, 2.1200e-7, 13.76}, {550, 1.5137e-7, 13.09},
     {575, 1.1028e-7, 12.34}, {600, 8.2130e-8, 11.51}, {625, 6.2601e-8, 10.62},
-    {650, 4.8865e-8, 9.72}, {675, 3.9048e-8, 8.83}, {700, 3.1908e-8, 8.00},
-    {725, 2.6611e-8, 7.24}, {750, 2.2599e-8, 6.58}, {775, 1.9493e-8, 6.01},
-    {800, 1.7036e-8, 5.54}, {825, 1.5051e-8, 5.16}, {850, 1.3415e-8, 4.85},
-    {875, 1.2043e-8, 4.60}, {900, 1.0873e-8, 4.40}, {925, 9.8635e-9, 4.25},
-    {950, 8.9816e-9, 4.12}, {975, 8.2043e-9, 4.02}, {1000, 7.5138e-9, 3.94},
+    {650, 4.8865e-8, 9.72},  {675, 3.9048e-8, 8.83},  {700, 3.1908e-8, 8.00},
+    {725, 2.6611e-8, 7.24},  {750, 2.2599e-8, 6.58},  {775, 1.9493e-8, 6.01},
+    {800, 1.7036e-8, 5.54},  {825, 1.5051e-8, 5.16},  {850, 1.3415e-8, 4.85},
+    {875, 1.2043e-8, 4.60},  {900, 1.0873e-8, 4.40},  {925, 9.8635e-9, 4.25},
+    {950, 8.9816e-9, 4.12},  {975, 8.2043e-9, 4.02},  {1000, 7.5138e-9, 3.94},
 }};
 
 /// ln rho and ln p above 86 km. At 86 km the points are the layer model's own density and
@@ -247,9 +247,9 @@ UpperProfile build_upper_profile() {
         const double altitude_m = level.altitude_km * metres_per_kilometre;
         altitudes_m.push_back(altitude_m);
         log_pressures.push_back(std::log(level.pressure_Pa));
-        log_densities.push_back(std::log(level.pressure_Pa * level.molar_mass_kg_kmol /
-                                         (gas_constant_star_J_kmolK *
-                                          upper_temperature_K(altitude_m))));
+        log_densities.push_back(
+            std::log(level.pressure_Pa * level.molar_mass_kg_kmol /
+                     (gas_constant_star_J_kmolK * upper_temperature_K(altitude_m))));
     }
     // The layer model at 86 km: d ln p / dZ = -(g0 M0 / (R* T_M)) dH/dZ, with
     // dH/dZ = (r0 / (r0 + Z))^2.

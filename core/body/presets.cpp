@@ -46,13 +46,19 @@ Body titan() {
 }  // namespace
 
 std::optional<Body> body_preset(std::string_view name) {
-    if (name == "mars") return mars();
-    if (name == "earth") return earth();
-    if (name == "venus") return venus();
-    if (name == "titan") return titan();
+    if (name == "mars")
+        return mars();
+    if (name == "earth")
+        return earth();
+    if (name == "venus")
+        return venus();
+    if (name == "titan")
+        return titan();
     return std::nullopt;
 }
 
-std::vector<std::string> body_preset_names() { return {"mars", "earth", "venus", "titan"}; }
+std::vector<std::string> body_preset_names() {
+    return {"mars", "earth", "venus", "titan"};
+}
 
 }  // namespace ds

@@ -16,15 +16,17 @@ std::string number(double value, std::string_view unit) {
 Check judge(const LimitRule& rule, double value, double limit, double beyond, double band,
             std::string_view past_word, std::string_view within_word) {
     Check c{rule.id, CheckStatus::pass, value, limit, rule.unit, "", rule.source, {}};
-    if (rule.severity == Severity::physics) c.margin = -beyond;
+    if (rule.severity == Severity::physics)
+        c.margin = -beyond;
     const std::string v = number(value, rule.unit);
     const std::string l = number(limit, rule.unit);
     if (beyond > 0.0) {
         c.status = rule.severity == Severity::envelope ? CheckStatus::marginal : CheckStatus::fail;
         c.message = rule.severity == Severity::envelope
-                        ? fmt::format("{} {} is {} the heritage envelope's {}: beyond today's "
-                                      "demonstrated technology",
-                                      rule.what, v, past_word, l)
+                        ? fmt::format(
+                              "{} {} is {} the heritage envelope's {}: beyond today's "
+                              "demonstrated technology",
+                              rule.what, v, past_word, l)
                         : fmt::format("{} {} is {} the limit of {}", rule.what, v, past_word, l);
     } else if (rule.severity == Severity::physics && beyond > -band) {
         c.status = CheckStatus::marginal;
@@ -55,9 +57,12 @@ Check check_at_least(const LimitRule& rule, double value, double limit, double m
 void order_checks(std::vector<Check>& checks) {
     const auto rank = [](CheckStatus s) {
         switch (s) {
-            case CheckStatus::fail: return 0;
-            case CheckStatus::marginal: return 1;
-            case CheckStatus::pass: return 2;
+            case CheckStatus::fail:
+                return 0;
+            case CheckStatus::marginal:
+                return 1;
+            case CheckStatus::pass:
+                return 2;
         }
         return 2;
     };

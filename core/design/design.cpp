@@ -9,18 +9,19 @@ namespace {
 template <class Enum, std::size_t Count>
 using Names = std::array<std::pair<Enum, std::string_view>, Count>;
 
-constexpr Names<AtmosphereModel, 3> atmosphere_models{{{AtmosphereModel::exponential, "exponential"},
-                                                       {AtmosphereModel::table, "table"},
-                                                       {AtmosphereModel::standard, "standard"}}};
+constexpr Names<AtmosphereModel, 3> atmosphere_models{
+    {{AtmosphereModel::exponential, "exponential"},
+     {AtmosphereModel::table, "table"},
+     {AtmosphereModel::standard, "standard"}}};
 constexpr Names<TerminalMethod, 4> terminal_methods{{{TerminalMethod::retro, "retro"},
                                                      {TerminalMethod::airbag, "airbag"},
                                                      {TerminalMethod::tethered, "tethered"},
                                                      {TerminalMethod::none, "none"}}};
 
 constexpr Names<MassGroup, 4> mass_groups{{{MassGroup::heat_shield, "heat shield"},
-                                            {MassGroup::backshell, "backshell"},
-                                            {MassGroup::descent_stage, "descent stage"},
-                                            {MassGroup::payload, "payload"}}};
+                                           {MassGroup::backshell, "backshell"},
+                                           {MassGroup::descent_stage, "descent stage"},
+                                           {MassGroup::payload, "payload"}}};
 constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
                                          {Maturity::layout, "layout"},
                                          {Maturity::pre_release, "pre-release"},
@@ -28,13 +29,14 @@ constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
                                          {Maturity::existing, "existing"},
                                          {Maturity::actual, "actual"}}};
 
-constexpr Names<VelocityFrame, 2> velocity_frames{{{VelocityFrame::relative, "relative"},
-                                                   {VelocityFrame::inertial, "inertial"}}};
+constexpr Names<VelocityFrame, 2> velocity_frames{
+    {{VelocityFrame::relative, "relative"}, {VelocityFrame::inertial, "inertial"}}};
 
 template <class Enum, std::size_t Count>
 std::string_view name_of(const Names<Enum, Count>& names, Enum value) {
     for (const auto& [e, name] : names) {
-        if (e == value) return name;
+        if (e == value)
+            return name;
     }
     return {};
 }
@@ -42,7 +44,8 @@ std::string_view name_of(const Names<Enum, Count>& names, Enum value) {
 template <class Enum, std::size_t Count>
 std::optional<Enum> value_of(const Names<Enum, Count>& names, std::string_view name) {
     for (const auto& [e, n] : names) {
-        if (n == name) return e;
+        if (n == name)
+            return e;
     }
     return std::nullopt;
 }
@@ -57,8 +60,12 @@ std::vector<std::string_view> all_names(const Names<Enum, Count>& names) {
 
 }  // namespace
 
-std::string_view to_string(AtmosphereModel model) { return name_of(atmosphere_models, model); }
-std::string_view to_string(TerminalMethod method) { return name_of(terminal_methods, method); }
+std::string_view to_string(AtmosphereModel model) {
+    return name_of(atmosphere_models, model);
+}
+std::string_view to_string(TerminalMethod method) {
+    return name_of(terminal_methods, method);
+}
 std::optional<AtmosphereModel> atmosphere_model_from(std::string_view name) {
     return value_of(atmosphere_models, name);
 }
@@ -66,19 +73,37 @@ std::optional<TerminalMethod> terminal_method_from(std::string_view name) {
     return value_of(terminal_methods, name);
 }
 
-std::string_view to_string(MassGroup group) { return name_of(mass_groups, group); }
-std::string_view to_string(Maturity maturity) { return name_of(maturities, maturity); }
+std::string_view to_string(MassGroup group) {
+    return name_of(mass_groups, group);
+}
+std::string_view to_string(Maturity maturity) {
+    return name_of(maturities, maturity);
+}
 std::optional<MassGroup> mass_group_from(std::string_view name) {
     return value_of(mass_groups, name);
 }
-std::optional<Maturity> maturity_from(std::string_view name) { return value_of(maturities, name); }
+std::optional<Maturity> maturity_from(std::string_view name) {
+    return value_of(maturities, name);
+}
 
-std::vector<std::string_view> atmosphere_model_names() { return all_names(atmosphere_models); }
-std::vector<std::string_view> terminal_method_names() { return all_names(terminal_methods); }
-std::vector<std::string_view> mass_group_names() { return all_names(mass_groups); }
-std::vector<std::string_view> maturity_names() { return all_names(maturities); }
-std::vector<std::string_view> velocity_frame_names() { return all_names(velocity_frames); }
-std::string_view to_string(VelocityFrame frame) { return name_of(velocity_frames, frame); }
+std::vector<std::string_view> atmosphere_model_names() {
+    return all_names(atmosphere_models);
+}
+std::vector<std::string_view> terminal_method_names() {
+    return all_names(terminal_methods);
+}
+std::vector<std::string_view> mass_group_names() {
+    return all_names(mass_groups);
+}
+std::vector<std::string_view> maturity_names() {
+    return all_names(maturities);
+}
+std::vector<std::string_view> velocity_frame_names() {
+    return all_names(velocity_frames);
+}
+std::string_view to_string(VelocityFrame frame) {
+    return name_of(velocity_frames, frame);
+}
 std::optional<VelocityFrame> velocity_frame_from(std::string_view name) {
     return value_of(velocity_frames, name);
 }

@@ -74,10 +74,10 @@ enum class VelocityFrame { relative, inertial };
 
 struct EntryDesign {
     double interface_altitude_m = 0.0;
-    double velocity_m_s = 0.0;  ///< in velocity_frame
+    double velocity_m_s = 0.0;           ///< in velocity_frame
     double flight_path_angle_deg = 0.0;  ///< negative below the local horizontal
     double lift_to_drag = 0.0;
-    double bank_angle_deg = 0.0;  ///< positive turns the lift to the right of the flight
+    double bank_angle_deg = 0.0;          ///< positive turns the lift to the right of the flight
     std::optional<double> latitude_deg;   ///< of the entry point; default 0
     std::optional<double> longitude_deg;  ///< of the entry point; default 0
     /// Clockwise from north (90 = east). Without it the entry has no direction: the body is
@@ -133,7 +133,7 @@ struct ParachuteDesign {
     std::optional<double> at_height_above_site_m;
     std::optional<double> drag_coefficient;  ///< empty: the type's nominal value
     TriggerKind trigger = TriggerKind::mach;
-    double trigger_value = 0.0;  ///< Mach, Pa or m, by trigger
+    double trigger_value = 0.0;     ///< Mach, Pa or m, by trigger
     std::optional<double> mass_kg;  ///< canopy, lines, riser and mortar; estimated when absent
 
     bool operator==(const ParachuteDesign&) const = default;
@@ -175,12 +175,12 @@ struct TerminalDesign {
     double thrust_to_weight = 0.0;  ///< full thrust over the stage's weight at ignition
     /// Velocity at the end of the burn: touchdown (retro), release (airbag), lowering (tethered).
     double touchdown_velocity_m_s = 0.0;
-    double throttle = 1.0;  ///< fraction of full thrust flown during the burn
+    double throttle = 1.0;                       ///< fraction of full thrust flown during the burn
     double propellant_reserve_fraction = 0.10;   ///< unburned reserve over burned propellant
     double propellant_residual_fraction = 0.03;  ///< trapped residual over loaded propellant
-    double release_height_m = 12.0;  ///< airbag: the burn ends here above the site
-    double tether_length_m = 7.5;    ///< tethered: hover height above the site while lowering
-    double fly_away_s = 10.0;        ///< tethered: seconds of hover thrust after the cut
+    double release_height_m = 12.0;              ///< airbag: the burn ends here above the site
+    double tether_length_m = 7.5;  ///< tethered: hover height above the site while lowering
+    double fly_away_s = 10.0;      ///< tethered: seconds of hover thrust after the cut
     /// A built vehicle's hardware, given instead of derived: the full thrust (instead of the
     /// thrust-to-weight times the weight) and the propellant loaded (instead of the burn's
     /// need with its reserve and residual). A dispersion flies the nominal vehicle with both.

@@ -78,7 +78,6 @@ private:
     std::vector<Found> found_;
 };
 
-
 /// The admissible values of a number: the schema's ranges (core/design/schema.hpp).
 using Range = ValueRange;
 
@@ -220,7 +219,6 @@ private:
     std::vector<std::string> read_;
 };
 
-
 /// "method \"airbag\"" or "methods \"retro\", \"airbag\" and \"tethered\"".
 std::string method_names(std::span<const TerminalMethod> methods) {
     std::vector<std::string> quoted;
@@ -232,7 +230,6 @@ std::string method_names(std::span<const TerminalMethod> methods) {
     quoted.pop_back();
     return fmt::format("methods {} and {}", fmt::join(quoted, ", "), last);
 }
-
 
 /// Reads the sections of a parsed document into a Design, reporting every problem. Simple keys
 /// are read by walking the schema's rows of a section (core/design/schema.hpp); what spans
@@ -368,10 +365,10 @@ private:
         if (group.required && given.empty()) {
             f.report_here(fmt::format("needs one {}: {}", group.name, alternatives(members)));
         } else if (given.size() > 1) {
-            f.report_here(group.required
-                              ? fmt::format("takes one {}, got {}", group.name,
-                                            fmt::join(given, ", "))
-                              : fmt::format("takes {}, not both", alternatives(members)));
+            f.report_here(
+                group.required
+                    ? fmt::format("takes one {}, got {}", group.name, fmt::join(given, ", "))
+                    : fmt::format("takes {}, not both", alternatives(members)));
         }
     }
 
@@ -379,8 +376,7 @@ private:
     static std::string alternatives(const std::vector<std::string_view>& keys) {
         if (keys.size() < 2)
             return fmt::format("{}", fmt::join(keys, ""));
-        return fmt::format("{} or {}", fmt::join(keys.begin(), keys.end() - 1, ", "),
-                           keys.back());
+        return fmt::format("{} or {}", fmt::join(keys.begin(), keys.end() - 1, ", "), keys.back());
     }
 
     /// Reads one key by its row: refused if it belongs to another model or method, else
@@ -401,10 +397,10 @@ private:
                 return;
             }
         }
-        const bool belongs = row.methods.empty() || selection.method_unknown ||
-                             (selection.method &&
-                              std::find(row.methods.begin(), row.methods.end(),
-                                        *selection.method) != row.methods.end());
+        const bool belongs =
+            row.methods.empty() || selection.method_unknown ||
+            (selection.method && std::find(row.methods.begin(), row.methods.end(),
+                                           *selection.method) != row.methods.end());
         if (!belongs) {
             if (f.has(key)) {
                 f.value(key, Need::optional);
@@ -442,8 +438,8 @@ private:
                     if (row.text.set(design_, *v)) {
                         read_ok_.push_back(&row);
                     } else {
-                        f.report(key, fmt::format("unknown {} \"{}\"; expected one of: {}", key,
-                                                  *v, fmt::join(row.choices(), ", ")));
+                        f.report(key, fmt::format("unknown {} \"{}\"; expected one of: {}", key, *v,
+                                                  fmt::join(row.choices(), ", ")));
                     }
                 }
                 break;
@@ -807,18 +803,20 @@ private:
             }
             Fields f(list[i], entry_place, *issues_);
             DispersionDesign d;
-            if (auto key = f.string("key")) d.key = *key;
+            if (auto key = f.string("key"))
+                d.key = *key;
             if (auto kind = f.string("distribution")) {
                 if (*kind == "normal") {
                     d.distribution = DistributionKind::normal;
-                    if (auto v = f.number("sigma", positive)) d.sigma = *v;
+                    if (auto v = f.number("sigma", positive))
+                        d.sigma = *v;
                 } else if (*kind == "uniform") {
                     d.distribution = DistributionKind::uniform;
                     const auto low = f.number("min", any_finite);
                     const auto high = f.number("max", any_finite);
                     if (low && high && !(*low < *high)) {
-                        f.report("max", fmt::format("must be greater than min ({}), got {}",
-                                                    *low, *high));
+                        f.report("max",
+                                 fmt::format("must be greater than min ({}), got {}", *low, *high));
                     }
                     d.min = low.value_or(0.0);
                     d.max = high.value_or(0.0);
@@ -1058,9 +1056,10 @@ DesignReadResult read_design(std::string_view json_text,
                              const std::filesystem::path& base_directory) {
     if (nested_deeper_than(json_text, max_nesting_depth)) {
         return {std::nullopt,
-                {ReadError{{}, fmt::format("arrays and objects nest more than {} levels deep: "
-                                           "not a design document",
-                                           max_nesting_depth)}}};
+                {ReadError{{},
+                           fmt::format("arrays and objects nest more than {} levels deep: "
+                                       "not a design document",
+                                       max_nesting_depth)}}};
     }
     Issues issues;
     DuplicateKeys duplicates(issues);

@@ -37,7 +37,7 @@ enum class KeyKind {
     choice,             ///< one of the names of a table ("retro", "disk-gap-band")
     text,               ///< free text
     number_or_request,  ///< a number, or a sizing request: an object of the rows whose parent it is
-    by_hand,            ///< read and written by hand (table rows, mass items); the row gives its place
+    by_hand,  ///< read and written by hand (table rows, mass items); the row gives its place
 };
 
 /// Whether a document must give a key.

@@ -25,7 +25,8 @@ std::optional<double> DenseTrajectory::time_descending_through(double altitude_m
         const double above = step(step.t0)[StateIndex::altitude] - altitude_m;
         const double below = step(t_end)[StateIndex::altitude] - altitude_m;
         if (!(above > 0.0 && below <= 0.0)) {
-            if (t_end >= end_time_) break;
+            if (t_end >= end_time_)
+                break;
             continue;
         }
         const auto g = [&](double t) { return step(t)[StateIndex::altitude] - altitude_m; };

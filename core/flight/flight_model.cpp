@@ -31,7 +31,8 @@ Vec3 velocity_of(const FlightState& y) {
 }
 
 Vec3 wind_at(const FlightModel& model, double altitude_m) {
-    if (!model.wind) return Vec3::Zero();
+    if (!model.wind)
+        return Vec3::Zero();
     const WindVelocity w = model.wind->at(altitude_m);
     return {w.east_m_s, w.north_m_s, 0.0};
 }
@@ -92,13 +93,13 @@ Vec3 balance(const FlightModel& model, const Stage& stage, double altitude_m, do
         const Vec3 need = frame.acceleration(v) - follow;
         const double per_mass = need.norm();
         const double mach = (v - wind).norm() / air.speed_of_sound_m_s;
-        const double air_speed = std::sqrt(2.0 * mass_kg * per_mass /
-                                           (air.density_kg_m3 * stage.drag_area_m2(mach)));
+        const double air_speed =
+            std::sqrt(2.0 * mass_kg * per_mass / (air.density_kg_m3 * stage.drag_area_m2(mach)));
         const Vec3 next = wind + (air_speed / per_mass) * need;
-        const bool moved =
-            (next - v).norm() > equilibrium_rounding * next.norm();  // false for NaN
+        const bool moved = (next - v).norm() > equilibrium_rounding * next.norm();  // false for NaN
         v = next;
-        if (!moved) break;
+        if (!moved)
+            break;
     }
     return v;
 }
@@ -146,9 +147,8 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     if (stage.nose_radius_m > 0.0) {
         c.convective_heat_flux_W_m2 = sutton_graves_heat_flux_W_m2(
             model.body.gas.sutton_graves_k, air.density_kg_m3, stage.nose_radius_m, velocity);
-        c.radiative_heat_flux_W_m2 =
-            tauber_sutton_heat_flux_W_m2(model.body.gas.radiative_correlation, air.density_kg_m3,
-                                         stage.nose_radius_m, velocity);
+        c.radiative_heat_flux_W_m2 = tauber_sutton_heat_flux_W_m2(
+            model.body.gas.radiative_correlation, air.density_kg_m3, stage.nose_radius_m, velocity);
     }
     return c;
 }
@@ -157,7 +157,8 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
     const FlightConditions c = flight_conditions(model, stage, y);
     const double m = y[StateIndex::mass];
     const Vec3 v = velocity_of(y);
-    Vec3 a = LocalFrame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]).acceleration(v);
+    Vec3 a =
+        LocalFrame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]).acceleration(v);
     if (c.air_speed_m_s > 0.0) {
         const Vec3 along = c.air_velocity_m_s / c.air_speed_m_s;
         a -= (c.drag_N / m) * along;
@@ -175,7 +176,8 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
     }
     if (stage.thrust_N > 0.0) {
         const double ground_speed = v.norm();
-        if (ground_speed > 0.0) a -= (stage.thrust_N / (m * ground_speed)) * v;
+        if (ground_speed > 0.0)
+            a -= (stage.thrust_N / (m * ground_speed)) * v;
     }
 
     FlightState dy;

@@ -82,8 +82,8 @@ FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const
 
 /// The equations of the quasi-steady descent: position and heat loads as in flight_derivative;
 /// the velocity changes at the slope of its equilibrium in altitude times the sink rate, so a
-/// state on the equilibrium stays on it; the mass is held (no thrust). Free of the fast modes, so the integrator takes steps of the descent's own
-/// time scale.
+/// state on the equilibrium stays on it; the mass is held (no thrust). Free of the fast modes, so
+/// the integrator takes steps of the descent's own time scale.
 FlightState quasi_steady_derivative(const FlightModel& model, const Stage& stage,
                                     const FlightState& y);
 

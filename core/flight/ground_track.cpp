@@ -11,8 +11,7 @@ namespace {
 // Unit vectors in the body-fixed frame: z along the spin axis, x through longitude 0.
 Eigen::Vector3d unit(const GroundPoint& p) {
     const double c = std::cos(p.latitude_rad);
-    return {c * std::cos(p.longitude_rad), c * std::sin(p.longitude_rad),
-            std::sin(p.latitude_rad)};
+    return {c * std::cos(p.longitude_rad), c * std::sin(p.longitude_rad), std::sin(p.latitude_rad)};
 }
 
 Eigen::Vector3d east(const GroundPoint& p) {
@@ -53,7 +52,8 @@ double initial_azimuth_rad(const GroundPoint& a, const GroundPoint& b) {
 
 GroundPoint mean_point(const std::vector<GroundPoint>& points) {
     Eigen::Vector3d sum = Eigen::Vector3d::Zero();
-    for (const GroundPoint& p : points) sum += unit(p);
+    for (const GroundPoint& p : points)
+        sum += unit(p);
     return {std::atan2(sum.z(), std::hypot(sum.x(), sum.y())), std::atan2(sum.y(), sum.x())};
 }
 

@@ -11,19 +11,25 @@ namespace ds {
 double flight_quantity(FlightQuantity quantity, const FlightConditions& conditions,
                        const FlightState& y) {
     switch (quantity) {
-        case FlightQuantity::altitude: return y[StateIndex::altitude];
-        case FlightQuantity::velocity: return speed(y);
-        case FlightQuantity::mach: return conditions.mach;
-        case FlightQuantity::dynamic_pressure: return conditions.dynamic_pressure_Pa;
-        case FlightQuantity::deceleration: return conditions.deceleration_g;
-        case FlightQuantity::heat_flux: return conditions.convective_heat_flux_W_m2;
-        case FlightQuantity::radiative_heat_flux: return conditions.radiative_heat_flux_W_m2;
+        case FlightQuantity::altitude:
+            return y[StateIndex::altitude];
+        case FlightQuantity::velocity:
+            return speed(y);
+        case FlightQuantity::mach:
+            return conditions.mach;
+        case FlightQuantity::dynamic_pressure:
+            return conditions.dynamic_pressure_Pa;
+        case FlightQuantity::deceleration:
+            return conditions.deceleration_g;
+        case FlightQuantity::heat_flux:
+            return conditions.convective_heat_flux_W_m2;
+        case FlightQuantity::radiative_heat_flux:
+            return conditions.radiative_heat_flux_W_m2;
     }
     return 0.0;
 }
 
-TrajectorySample trajectory_sample(double time_s, const FlightConditions& c,
-                                   const FlightState& y) {
+TrajectorySample trajectory_sample(double time_s, const FlightConditions& c, const FlightState& y) {
     constexpr double per_cm2 = 1e-4;
     TrajectorySample s;
     s.time_s = time_s;
@@ -75,7 +81,9 @@ constexpr double settle_rate_g = 1e-3;
 constexpr double unsettle_rate_g = 2e-3;
 
 /// A trigger that counts only in descending flight asks this of the state at its crossing.
-bool descending(const FlightState& y) { return y[StateIndex::up_velocity] < 0.0; }
+bool descending(const FlightState& y) {
+    return y[StateIndex::up_velocity] < 0.0;
+}
 
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
@@ -94,7 +102,8 @@ double quasi_steady_rate(const FlightModel& model, const Stage& stage, const Fli
 /// quasi-steady one is computed only when the fast rates are below it).
 double settling(const FlightModel& model, const Stage& stage, const FlightState& y) {
     const double fast = unsettled_rate(model, stage, y);
-    if (!(fast < settle_rate_g)) return fast - settle_rate_g;
+    if (!(fast < settle_rate_g))
+        return fast - settle_rate_g;
     return std::max(fast, quasi_steady_rate(model, stage, y)) - settle_rate_g;
 }
 
@@ -147,12 +156,14 @@ IntegrationOutcome<flight_state_size> fly_stretch(
                               const FlightState dy = rate_step_s * rhs(0.0, y);
                               const double ahead = quantity(peak.quantity, y + dy);
                               const double behind = quantity(peak.quantity, y - dy);
-                              if (!(ahead > 0.0 && behind > 0.0)) return 0.0;
+                              if (!(ahead > 0.0 && behind > 0.0))
+                                  return 0.0;
                               return std::log(ahead / behind);
                           },
                           EventDirection::falling, false});
     }
-    if (may_change) events.push_back(change_of_equations(model, stage, equations));
+    if (may_change)
+        events.push_back(change_of_equations(model, stage, equations));
 
     const auto on_step = [&](double t, const FlightState& y) {
         if (recording.history) {
@@ -163,7 +174,8 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     const IntegrationOutcome<flight_state_size> run = integrate_dormand_prince<flight_state_size>(
         rhs, t0, y0, t_max, events, settings, on_step,
         recording.dense ? &recording.dense->steps() : nullptr);
-    if (recording.dense) recording.dense->set_end_time(run.t);
+    if (recording.dense)
+        recording.dense->set_end_time(run.t);
     return run;
 }
 
@@ -177,7 +189,8 @@ std::optional<std::size_t> trigger_skipped(const FlightModel& model, const Phase
             quantity_at(model, phase.stage, trigger.quantity, from) - trigger.value;
         const double after = quantity_at(model, phase.stage, trigger.quantity, to) - trigger.value;
         const bool counts = !trigger.descending_only || descending(to);
-        if (counts && detail::crosses(before, after, trigger.direction)) return i;
+        if (counts && detail::crosses(before, after, trigger.direction))
+            return i;
     }
     return std::nullopt;
 }
@@ -188,7 +201,8 @@ bool settle(const FlightModel& model, const Phase& phase, PhaseOutcome& out) {
     const FlightState settled = onto_equilibrium(model, phase.stage, out.y);
     out.ended_by = trigger_skipped(model, phase, out.y, settled);
     out.y = settled;
-    if (!out.ended_by) return false;
+    if (!out.ended_by)
+        return false;
     out.reason = StopReason::terminal_event;
     return true;
 }
@@ -202,7 +216,8 @@ bool add_stretch(const FlightModel& model, const Phase& phase, Equations equatio
     out.y = run.y;
     out.steps += run.accepted_steps;
     out.evaluations += run.evaluations;
-    if (equations == Equations::quasi_steady) out.quasi_steady_steps += run.accepted_steps;
+    if (equations == Equations::quasi_steady)
+        out.quasi_steady_steps += run.accepted_steps;
     bool changed = false;
     for (const EventHit<flight_state_size>& hit : run.events) {
         if (hit.index < phase.ends.size()) {
@@ -235,12 +250,14 @@ PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
     out.time_s = t0;
     out.y = y0;
     for (;;) {
-        if (equations == Equations::quasi_steady && settle(model, phase, out)) return out;
+        if (equations == Equations::quasi_steady && settle(model, phase, out))
+            return out;
         IntegratorSettings<flight_state_size> budget = settings;
         budget.max_steps -= out.steps;
         const IntegrationOutcome<flight_state_size> run = fly_stretch(
             model, phase, equations, may_settle, out.time_s, out.y, t_max, budget, recording);
-        if (!add_stretch(model, phase, equations, run, out)) return out;
+        if (!add_stretch(model, phase, equations, run, out))
+            return out;
         equations = equations == Equations::full ? Equations::quasi_steady : Equations::full;
     }
 }

@@ -12,12 +12,12 @@ namespace ds {
 
 /// A scalar of the flight that triggers and peaks refer to.
 enum class FlightQuantity {
-    altitude,          ///< m
-    velocity,          ///< m/s
+    altitude,  ///< m
+    velocity,  ///< m/s
     mach,
-    dynamic_pressure,  ///< Pa
-    deceleration,      ///< g
-    heat_flux,         ///< W/m^2, convective
+    dynamic_pressure,     ///< Pa
+    deceleration,         ///< g
+    heat_flux,            ///< W/m^2, convective
     radiative_heat_flux,  ///< W/m^2
 };
 

@@ -16,13 +16,13 @@ using FlightState = Vector<flight_state_size>;
 
 /// Where each quantity sits in a FlightState (SI units).
 struct StateIndex {
-    static constexpr int altitude = 0;       ///< m above the reference radius
-    static constexpr int latitude = 1;       ///< rad, geocentric
-    static constexpr int longitude = 2;      ///< rad, east positive, body-fixed
-    static constexpr int east_velocity = 3;  ///< m/s, planet-relative
-    static constexpr int north_velocity = 4; ///< m/s, planet-relative
-    static constexpr int up_velocity = 5;    ///< m/s, planet-relative
-    static constexpr int mass = 6;           ///< kg
+    static constexpr int altitude = 0;              ///< m above the reference radius
+    static constexpr int latitude = 1;              ///< rad, geocentric
+    static constexpr int longitude = 2;             ///< rad, east positive, body-fixed
+    static constexpr int east_velocity = 3;         ///< m/s, planet-relative
+    static constexpr int north_velocity = 4;        ///< m/s, planet-relative
+    static constexpr int up_velocity = 5;           ///< m/s, planet-relative
+    static constexpr int mass = 6;                  ///< kg
     static constexpr int convective_heat_load = 7;  ///< J/m^2 at the stagnation point
     static constexpr int radiative_heat_load = 8;   ///< J/m^2 at the stagnation point
 };
@@ -53,8 +53,8 @@ inline double azimuth_rad(const FlightState& y) {
 /// A state from a speed, a flight-path angle and an azimuth (clockwise from north), rad; the
 /// heat loads start at zero.
 inline FlightState make_flight_state(double altitude_m, double latitude_rad, double longitude_rad,
-                                     double speed_m_s, double flight_path_angle,
-                                     double azimuth, double mass_kg) {
+                                     double speed_m_s, double flight_path_angle, double azimuth,
+                                     double mass_kg) {
     FlightState y = FlightState::Zero();
     y[StateIndex::altitude] = altitude_m;
     y[StateIndex::latitude] = latitude_rad;
@@ -70,8 +70,8 @@ inline FlightState make_flight_state(double altitude_m, double latitude_rad, dou
 /// The same state with its velocity rescaled to a speed, the direction kept.
 inline FlightState with_speed(FlightState y, double speed_m_s) {
     const double v = speed(y);
-    for (const int i : {StateIndex::east_velocity, StateIndex::north_velocity,
-                        StateIndex::up_velocity}) {
+    for (const int i :
+         {StateIndex::east_velocity, StateIndex::north_velocity, StateIndex::up_velocity}) {
         y[i] *= speed_m_s / v;
     }
     return y;

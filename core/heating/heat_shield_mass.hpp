@@ -10,7 +10,8 @@ namespace ds {
 inline double heat_shield_mass_fraction(double heat_load_J_cm2) {
     constexpr double coefficient_percent = 0.091;
     constexpr double exponent = 0.51575;
-    if (heat_load_J_cm2 <= 0.0) return 0.0;
+    if (heat_load_J_cm2 <= 0.0)
+        return 0.0;
     return coefficient_percent * std::pow(heat_load_J_cm2, exponent) / 100.0;
 }
 

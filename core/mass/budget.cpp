@@ -9,8 +9,7 @@ void MassBudget::add(MassItem item) {
     items_.push_back(std::move(item));
 }
 
-void MassBudget::add_item(std::string name, double basic_kg, MassGroup group,
-                          Maturity maturity) {
+void MassBudget::add_item(std::string name, double basic_kg, MassGroup group, Maturity maturity) {
     add({std::move(name), 0.0, basic_kg, growth_allowance(maturity), group, GrowthBasis::maturity,
          maturity, "design"});
 }
@@ -32,14 +31,16 @@ void MassBudget::add_computed(std::string name, double mass_kg, MassGroup group,
 
 double MassBudget::total_kg() const {
     double sum = 0.0;
-    for (const MassItem& item : items_) sum += item.mass_kg;
+    for (const MassItem& item : items_)
+        sum += item.mass_kg;
     return sum;
 }
 
 double MassBudget::group_kg(MassGroup group) const {
     double sum = 0.0;
     for (const MassItem& item : items_) {
-        if (item.group == group) sum += item.mass_kg;
+        if (item.group == group)
+            sum += item.mass_kg;
     }
     return sum;
 }

@@ -20,7 +20,7 @@ struct MassItem {
     MassGroup group = MassGroup::payload;  ///< when it leaves
     GrowthBasis basis = GrowthBasis::maturity;
     Maturity maturity = Maturity::estimated;  ///< when the basis is the maturity
-    std::string source;  ///< "design", or the relation it was estimated from
+    std::string source;                       ///< "design", or the relation it was estimated from
 };
 
 }  // namespace ds

@@ -91,8 +91,8 @@ struct DormandPrinceTableau {
     static constexpr double a21 = 1.0 / 5.0;
     static constexpr double a31 = 3.0 / 40.0, a32 = 9.0 / 40.0;
     static constexpr double a41 = 44.0 / 45.0, a42 = -56.0 / 15.0, a43 = 32.0 / 9.0;
-    static constexpr double a51 = 19372.0 / 6561.0, a52 = -25360.0 / 2187.0,
-                            a53 = 64448.0 / 6561.0, a54 = -212.0 / 729.0;
+    static constexpr double a51 = 19372.0 / 6561.0, a52 = -25360.0 / 2187.0, a53 = 64448.0 / 6561.0,
+                            a54 = -212.0 / 729.0;
     static constexpr double a61 = 9017.0 / 3168.0, a62 = -355.0 / 33.0, a63 = 46732.0 / 5247.0,
                             a64 = 49.0 / 176.0, a65 = -5103.0 / 18656.0;
     static constexpr double a71 = 35.0 / 384.0, a73 = 500.0 / 1113.0, a74 = 125.0 / 192.0,
@@ -100,20 +100,22 @@ struct DormandPrinceTableau {
     // Fifth-order solution minus the embedded fourth-order one.
     static constexpr double e1 = 71.0 / 57600.0, e3 = -71.0 / 16695.0, e4 = 71.0 / 1920.0,
                             e5 = -17253.0 / 339200.0, e6 = 22.0 / 525.0, e7 = -1.0 / 40.0;
-    static constexpr double d1 = -12715105075.0 / 11282082432.0,
-                            d3 = 87487479700.0 / 32700410799.0,
+    static constexpr double d1 = -12715105075.0 / 11282082432.0, d3 = 87487479700.0 / 32700410799.0,
                             d4 = -10690763975.0 / 1880347072.0,
-                            d5 = 701980252875.0 / 199316789632.0,
-                            d6 = -1453857185.0 / 822651844.0, d7 = 69997945.0 / 29380423.0;
+                            d5 = 701980252875.0 / 199316789632.0, d6 = -1453857185.0 / 822651844.0,
+                            d7 = 69997945.0 / 29380423.0;
 };
 
 inline bool crosses(double before, double after, EventDirection direction) {
     const bool rising = before < 0.0 && after >= 0.0;
     const bool falling = before > 0.0 && after <= 0.0;
     switch (direction) {
-        case EventDirection::rising: return rising;
-        case EventDirection::falling: return falling;
-        case EventDirection::any: return rising || falling;
+        case EventDirection::rising:
+            return rising;
+        case EventDirection::falling:
+            return falling;
+        case EventDirection::any:
+            return rising || falling;
     }
     return false;
 }
@@ -146,7 +148,8 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
     double h = std::min({settings.initial_step, settings.max_step, t_end - t0});
 
     std::vector<double> g_before(events.size());
-    for (std::size_t i = 0; i < events.size(); ++i) g_before[i] = events[i].function(t, y);
+    for (std::size_t i = 0; i < events.size(); ++i)
+        g_before[i] = events[i].function(t, y);
 
     on_step(t, y);
     while (t < t_end) {
@@ -159,15 +162,16 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
             break;
         }
         const bool last = t + h >= t_end;
-        if (last) h = t_end - t;
+        if (last)
+            h = t_end - t;
 
         const Vector<N> k2 = rhs(t + T::c2 * h, y + h * (T::a21 * k1));
         const Vector<N> k3 = rhs(t + T::c3 * h, y + h * (T::a31 * k1 + T::a32 * k2));
         const Vector<N> k4 = rhs(t + T::c4 * h, y + h * (T::a41 * k1 + T::a42 * k2 + T::a43 * k3));
-        const Vector<N> k5 = rhs(
-            t + T::c5 * h, y + h * (T::a51 * k1 + T::a52 * k2 + T::a53 * k3 + T::a54 * k4));
-        const Vector<N> k6 = rhs(t + h, y + h * (T::a61 * k1 + T::a62 * k2 + T::a63 * k3 +
-                                                 T::a64 * k4 + T::a65 * k5));
+        const Vector<N> k5 =
+            rhs(t + T::c5 * h, y + h * (T::a51 * k1 + T::a52 * k2 + T::a53 * k3 + T::a54 * k4));
+        const Vector<N> k6 = rhs(
+            t + h, y + h * (T::a61 * k1 + T::a62 * k2 + T::a63 * k3 + T::a64 * k4 + T::a65 * k5));
         const Vector<N> y_new =
             y + h * (T::a71 * k1 + T::a73 * k3 + T::a74 * k4 + T::a75 * k5 + T::a76 * k6);
         const Vector<N> k7 = rhs(t + h, y_new);
@@ -185,9 +189,9 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
 
         const Vector<N> error =
             h * (T::e1 * k1 + T::e3 * k3 + T::e4 * k4 + T::e5 * k5 + T::e6 * k6 + T::e7 * k7);
-        const Vector<N> scale = settings.absolute_tolerance.array() +
-                                settings.relative_tolerance *
-                                    y.cwiseAbs().cwiseMax(y_new.cwiseAbs()).array();
+        const Vector<N> scale =
+            settings.absolute_tolerance.array() +
+            settings.relative_tolerance * y.cwiseAbs().cwiseMax(y_new.cwiseAbs()).array();
         const double err = std::sqrt((error.array() / scale.array()).square().mean());
         if (!(err <= 1.0)) {
             const double factor =
@@ -202,28 +206,35 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         const Vector<N> ydiff = y_new - y;
         const Vector<N> bspl = h * k1 - ydiff;
         const DenseStep<N> dense{
-            t, h, y, ydiff, bspl, ydiff - h * k7 - bspl,
+            t,
+            h,
+            y,
+            ydiff,
+            bspl,
+            ydiff - h * k7 - bspl,
             h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 + T::d6 * k6 + T::d7 * k7)};
         const double t_new = last ? t_end : t + h;
-        if (dense_record) dense_record->push_back(dense);
+        if (dense_record)
+            dense_record->push_back(dense);
 
         std::vector<EventHit<N>> hits;
         std::vector<double> g_after(events.size());
         for (std::size_t i = 0; i < events.size(); ++i) {
             g_after[i] = events[i].function(t_new, y_new);
-            if (!detail::crosses(g_before[i], g_after[i], events[i].direction)) continue;
+            if (!detail::crosses(g_before[i], g_after[i], events[i].direction))
+                continue;
             const auto g = [&](double tau) { return events[i].function(tau, dense(tau)); };
             const auto close_enough = [&](double a, double b) {
                 return std::abs(b - a) <= settings.event_time_tolerance;
             };
             std::uintmax_t iterations = 100;
             // The end of the bracket past the crossing, so the event state is on its far side.
-            const double t_hit = boost::math::tools::toms748_solve(g, t, t_new, g_before[i],
-                                                                   g_after[i], close_enough,
-                                                                   iterations)
+            const double t_hit = boost::math::tools::toms748_solve(
+                                     g, t, t_new, g_before[i], g_after[i], close_enough, iterations)
                                      .second;
             const Vector<N> y_hit = dense(t_hit);
-            if (events[i].counts && !events[i].counts(t_hit, y_hit)) continue;
+            if (events[i].counts && !events[i].counts(t_hit, y_hit))
+                continue;
             hits.push_back({i, t_hit, y_hit});
         }
         std::sort(hits.begin(), hits.end(),
@@ -235,7 +246,8 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         ++out.accepted_steps;
         if (terminal != hits.end()) {
             const EventHit<N> stop = *terminal;
-            for (auto it = hits.begin(); it != terminal; ++it) out.events.push_back(*it);
+            for (auto it = hits.begin(); it != terminal; ++it)
+                out.events.push_back(*it);
             out.events.push_back(stop);
             t = stop.t;
             y = stop.y;
@@ -253,9 +265,9 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         g_before = std::move(g_after);
         on_step(t, y);
 
-        const double factor =
-            err > 0.0 ? std::clamp(safety * std::pow(err, -order_exponent), shrink_limit, grow_limit)
-                      : grow_limit;
+        const double factor = err > 0.0 ? std::clamp(safety * std::pow(err, -order_exponent),
+                                                     shrink_limit, grow_limit)
+                                        : grow_limit;
         h = std::min(h * factor, settings.max_step);
     }
     out.t = t;

@@ -37,7 +37,8 @@ std::optional<CanopyType> canopy_type(std::string_view name) {
     const auto types = canopy_types();
     const auto it = std::find_if(types.begin(), types.end(),
                                  [&](const CanopyType& t) { return t.name == name; });
-    if (it == types.end()) return std::nullopt;
+    if (it == types.end())
+        return std::nullopt;
     return *it;
 }
 
@@ -65,7 +66,8 @@ double canopy_diameter_for_velocity(double suspended_mass_kg, double gravity_m_s
     const double needed_drag_area =
         2.0 * suspended_mass_kg * gravity_m_s2 / (density_kg_m3 * velocity_m_s * velocity_m_s);
     const double canopy_area = (needed_drag_area - drag_area_below_m2) / drag_coefficient;
-    if (canopy_area <= 0.0) return 0.0;
+    if (canopy_area <= 0.0)
+        return 0.0;
     return std::sqrt(4.0 * canopy_area / pi);
 }
 

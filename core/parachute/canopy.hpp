@@ -11,11 +11,11 @@ namespace ds {
 /// A parachute type's data, referred to the nominal area S0 = pi D0^2 / 4.
 struct CanopyType {
     std::string_view name;
-    double drag_coefficient = 0.0;     ///< subsonic, fully open
+    double drag_coefficient = 0.0;           ///< subsonic, fully open
     std::span<const MachPoint> mach_factor;  ///< Cd / subsonic Cd against Mach
-    double opening_load_factor = 0.0;  ///< peak opening force over q Cd S0 (infinite mass)
-    double fill_constant = 0.0;        ///< inflation time = n D0 / V
-    double areal_mass_kg_m2 = 0.0;     ///< canopy, lines, riser and bag per m^2 of S0
+    double opening_load_factor = 0.0;        ///< peak opening force over q Cd S0 (infinite mass)
+    double fill_constant = 0.0;              ///< inflation time = n D0 / V
+    double areal_mass_kg_m2 = 0.0;           ///< canopy, lines, riser and bag per m^2 of S0
     std::string_view source;
 };
 

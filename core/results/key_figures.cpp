@@ -5,13 +5,15 @@ namespace ds {
 std::vector<std::optional<double>> key_figure_values(const Results& results) {
     std::vector<std::optional<double>> values;
     values.reserve(key_figure_table.size());
-    for (const KeyFigureDefinition& figure : key_figure_table) values.push_back(figure.value(results));
+    for (const KeyFigureDefinition& figure : key_figure_table)
+        values.push_back(figure.value(results));
     return values;
 }
 
 std::optional<std::size_t> key_figure_index(std::string_view id) {
     for (std::size_t i = 0; i < key_figure_table.size(); ++i) {
-        if (key_figure_table[i].id == id) return i;
+        if (key_figure_table[i].id == id)
+            return i;
     }
     return std::nullopt;
 }

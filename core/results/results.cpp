@@ -4,25 +4,32 @@ namespace ds {
 
 std::string_view to_string(DragCoefficientSource source) {
     switch (source) {
-        case DragCoefficientSource::design: return "design";
-        case DragCoefficientSource::modified_newtonian: return "modified Newtonian";
+        case DragCoefficientSource::design:
+            return "design";
+        case DragCoefficientSource::modified_newtonian:
+            return "modified Newtonian";
     }
     return {};
 }
 
 std::string_view to_string(GrowthBasis basis) {
     switch (basis) {
-        case GrowthBasis::maturity: return "maturity";
-        case GrowthBasis::given: return "given";
-        case GrowthBasis::computed: return "computed";
+        case GrowthBasis::maturity:
+            return "maturity";
+        case GrowthBasis::given:
+            return "given";
+        case GrowthBasis::computed:
+            return "computed";
     }
     return {};
 }
 
 std::string_view to_string(MassMode mode) {
     switch (mode) {
-        case MassMode::analysis: return "analysis";
-        case MassMode::sizing: return "sizing";
+        case MassMode::analysis:
+            return "analysis";
+        case MassMode::sizing:
+            return "sizing";
     }
     return {};
 }

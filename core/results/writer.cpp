@@ -207,7 +207,8 @@ Json checks_to_json(const std::vector<Check>& checks) {
         item["unit"] = check.unit;
         item["message"] = check.message;
         item["source"] = check.source;
-        if (check.margin) item["margin"] = number(*check.margin);
+        if (check.margin)
+            item["margin"] = number(*check.margin);
         out.push_back(std::move(item));
     }
     return out;

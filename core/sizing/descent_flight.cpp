@@ -38,8 +38,8 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
                                      *seq.heat_shield_jettison_dynamic_pressure_Pa,
                                      EventDirection::falling});
     } else {
-        t_end = std::min(t_budget,
-                         deploy_time_s + seq.heat_shield_jettison_delay_s.value_or(SequenceDesign::default_jettison_delay_s));
+        t_end = std::min(t_budget, deploy_time_s + seq.heat_shield_jettison_delay_s.value_or(
+                                                       SequenceDesign::default_jettison_delay_s));
     }
     const PhaseOutcome first =
         fly_phase(model, under_canopy, deploy_time_s, deploy_state, t_end, settings, recording);
@@ -70,14 +70,15 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
 
 void extend_descent(const Design& design, const FlightModel& model, DescentFlight& descent,
                     double floor_altitude_m) {
-    if (!descent.reached_floor || !descent.jettisoned || floor_altitude_m >= descent.plan.floor_altitude_m) {
+    if (!descent.reached_floor || !descent.jettisoned ||
+        floor_altitude_m >= descent.plan.floor_altitude_m) {
         return;
     }
     const double t = descent.record.end_time();
     const FlightState y = descent.record.state_at(t);
     descent.plan.floor_altitude_m = floor_altitude_m;
-    const PhaseOutcome more = fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m), t,
-                                        y, design.solver.max_time_s, descent_settings(design),
+    const PhaseOutcome more = fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m),
+                                        t, y, design.solver.max_time_s, descent_settings(design),
                                         {&descent.samples, &descent.record});
     descent.quasi_steady_steps += more.quasi_steady_steps;
     descent.reached_floor = more.reason == StopReason::terminal_event;

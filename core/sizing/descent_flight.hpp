@@ -10,9 +10,9 @@ namespace ds {
 /// What hangs under the canopy, and what it drops.
 struct DescentPlan {
     DragDevice canopy;
-    double body_drag_area_m2 = 0.0;   ///< Cd A of the suspended vehicle
-    double jettison_mass_kg = 0.0;    ///< dropped at heat-shield jettison
-    double floor_altitude_m = 0.0;    ///< flown down to here
+    double body_drag_area_m2 = 0.0;  ///< Cd A of the suspended vehicle
+    double jettison_mass_kg = 0.0;   ///< dropped at heat-shield jettison
+    double floor_altitude_m = 0.0;   ///< flown down to here
     /// Fly the settled descent on the quasi-steady equations (Phase::quasi_steady_when_settled);
     /// false flies the full equations throughout, to check the one against the other.
     bool quasi_steady = true;

@@ -12,7 +12,12 @@ namespace ds {
 namespace {
 
 // The peaks every entry-like phase locates, in this order.
-enum PeakIndex : std::size_t { dynamic_pressure_peak, deceleration_peak, heat_flux_peak, radiative_peak };
+enum PeakIndex : std::size_t {
+    dynamic_pressure_peak,
+    deceleration_peak,
+    heat_flux_peak,
+    radiative_peak
+};
 
 std::vector<Peak> entry_peaks() {
     return {{"peak dynamic pressure", FlightQuantity::dynamic_pressure},
@@ -30,7 +35,8 @@ void raise_peak(PeakValue& best, const FlightModel& model, const Phase& phase, s
                 double t0, const FlightState& y0, const PhaseOutcome& flown) {
     const FlightQuantity q = phase.peaks[peak].quantity;
     const auto consider = [&](double value, double t, const FlightState& y) {
-        if (value > best.value) best = {value, t, y};
+        if (value > best.value)
+            best = {value, t, y};
     };
     const auto value_at = [&](const FlightState& y) {
         return flight_quantity(q, flight_conditions(model, phase.stage, y), y);
@@ -38,7 +44,8 @@ void raise_peak(PeakValue& best, const FlightModel& model, const Phase& phase, s
     consider(value_at(y0), t0, y0);
     consider(value_at(flown.y), flown.time_s, flown.y);
     for (const PeakHit& hit : flown.peaks) {
-        if (hit.peak == peak) consider(hit.value, hit.time_s, hit.y);
+        if (hit.peak == peak)
+            consider(hit.value, hit.time_s, hit.y);
     }
 }
 
@@ -85,7 +92,8 @@ ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg) 
     const double half_angle = degrees_to_radians(a.half_angle_deg);
     const double gamma = design_gamma(design);
     const auto drag_coefficient_of = [&](double diameter_m) {
-        if (a.drag_coefficient) return *a.drag_coefficient;
+        if (a.drag_coefficient)
+            return *a.drag_coefficient;
         return modified_newtonian_sphere_cone_drag_coefficient(
             half_angle, a.nose_radius_m / (0.5 * diameter_m), gamma);
     };
@@ -96,7 +104,8 @@ ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg) 
                                   : diameter_for_ballistic_coefficient(
                                         entry_mass_kg, *a.size_for_ballistic_coefficient_kg_m2,
                                         2.0 * a.nose_radius_m, drag_coefficient_of);
-    if (out.diameter_m > 0.0) out.drag_coefficient = drag_coefficient_of(out.diameter_m);
+    if (out.diameter_m > 0.0)
+        out.drag_coefficient = drag_coefficient_of(out.diameter_m);
     return out;
 }
 
@@ -118,9 +127,12 @@ Trigger deploy_trigger(std::string name, TriggerKind kind, double value) {
 
 std::string describe_trigger(TriggerKind kind, double value) {
     switch (kind) {
-        case TriggerKind::mach: return fmt::format("Mach {:.3g}", value);
-        case TriggerKind::dynamic_pressure: return fmt::format("dynamic pressure {:.4g} Pa", value);
-        case TriggerKind::altitude: return fmt::format("altitude {:.6g} m", value);
+        case TriggerKind::mach:
+            return fmt::format("Mach {:.3g}", value);
+        case TriggerKind::dynamic_pressure:
+            return fmt::format("dynamic pressure {:.4g} Pa", value);
+        case TriggerKind::altitude:
+            return fmt::format("altitude {:.6g} m", value);
     }
     return {};
 }
@@ -176,8 +188,8 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
     FlightState y = out.start;
     for (std::size_t i = 0; i < phases.size(); ++i) {
         const Phase& p = phases[i];
-        const PhaseOutcome flown = fly_phase(model, p, t, y, design.solver.max_time_s, settings,
-                                             {history, nullptr});
+        const PhaseOutcome flown =
+            fly_phase(model, p, t, y, design.solver.max_time_s, settings, {history, nullptr});
         raise_peak(out.dynamic_pressure, model, p, dynamic_pressure_peak, t, y, flown);
         raise_peak(out.deceleration, model, p, deceleration_peak, t, y, flown);
         raise_peak(out.heat_flux, model, p, heat_flux_peak, t, y, flown);

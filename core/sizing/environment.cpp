@@ -39,13 +39,15 @@ std::unique_ptr<Atmosphere> make_atmosphere(const Design& design) {
 
 Body flown_body(const Design& design) {
     Body body = design.body.body;
-    if (!design.entry.azimuth_deg) body.rotation_rad_s = 0.0;
+    if (!design.entry.azimuth_deg)
+        body.rotation_rad_s = 0.0;
     return body;
 }
 
 std::optional<WindProfile> make_wind(const Design& design) {
     const AtmosphereDesign& a = design.atmosphere;
-    if (!a.wind) return std::nullopt;
+    if (!a.wind)
+        return std::nullopt;
     if (a.wind->constant) {
         return WindProfile({{0.0, a.wind->constant->east_m_s, a.wind->constant->north_m_s}},
                            a.wind_scale);

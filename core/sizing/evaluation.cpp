@@ -56,10 +56,10 @@ void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_
             if (d.mass_kg) {
                 b.add_given("inflatable decelerator", *d.mass_kg, MassGroup::heat_shield);
             } else {
-                b.add_estimate("inflatable decelerator",
-                               MassEstimates::inflatable_decelerator_kg_m2 *
-                                   frontal_area_m2(d.diameter_m),
-                               MassGroup::heat_shield, estimate_source);
+                b.add_estimate(
+                    "inflatable decelerator",
+                    MassEstimates::inflatable_decelerator_kg_m2 * frontal_area_m2(d.diameter_m),
+                    MassGroup::heat_shield, estimate_source);
             }
         });
     }
@@ -125,7 +125,8 @@ BurnRequest burn_request(const Design& design, double g_site, Evaluation& e) {
 void record_burn_history(const BurnSolution& burn,
                          const std::vector<TrajectorySample>& burn_samples, Evaluation& e) {
     for (const TrajectorySample& s : e.descent->samples) {
-        if (s.time_s < burn.separation_time_s) e.history.push_back(s);
+        if (s.time_s < burn.separation_time_s)
+            e.history.push_back(s);
     }
     e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());
 }
@@ -194,7 +195,8 @@ double finish_terminal_descent(const TerminalDesign& t, const BurnSolution& burn
                                          e.budget.group_kg(MassGroup::descent_stage), engines, e);
             e.landing_point = carried_for(end_height / end_velocity);
             break;
-        case TerminalMethod::none: break;
+        case TerminalMethod::none:
+            break;
     }
     return burned;
 }
@@ -214,10 +216,10 @@ void add_propulsion(const TerminalDesign& t, double burned, double engines, Eval
     e.budget.add_estimate("propellant tanks", tanks, MassGroup::descent_stage,
                           fmt::format("{:.0f} % of loaded propellant ({})",
                                       100.0 * MassEstimates::tank_fraction, estimate_source));
-    e.budget.add_estimate("engines and feed system", engines, MassGroup::descent_stage,
-                          fmt::format("{} kg per N of {} full thrust ({})",
-                                      MassEstimates::engine_kg_per_N,
-                                      t.thrust_N ? "the given" : "the", estimate_source));
+    e.budget.add_estimate(
+        "engines and feed system", engines, MassGroup::descent_stage,
+        fmt::format("{} kg per N of {} full thrust ({})", MassEstimates::engine_kg_per_N,
+                    t.thrust_N ? "the given" : "the", estimate_source));
 }
 
 /// The burn, hover and fly-away of the methods that fire engines; fills the propellant and
@@ -237,7 +239,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
 
     const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
     const double burned = finish_terminal_descent(design.terminal, burn, site, g_site, engines,
-                                                   model.body.radius_m, e);
+                                                  model.body.radius_m, e);
     add_propulsion(design.terminal, burned, engines, e);
 }
 
@@ -246,7 +248,8 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
 void descend_on_canopy(const Design& design, Evaluation& e) {
     const auto t = e.descent->record.time_descending_through(design.site.elevation_m);
     for (const TrajectorySample& s : e.descent->samples) {
-        if (!t || s.time_s <= *t) e.history.push_back(s);
+        if (!t || s.time_s <= *t)
+            e.history.push_back(s);
     }
     if (t && design.terminal.method == TerminalMethod::none) {
         const FlightState y = e.descent->record.state_at(*t);
@@ -268,7 +271,8 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     for (const MassItemDesign& item : design.mass.items)
         e.budget.add_item(item.name, item.mass_kg, item.group, item.maturity);
     e.entry.interface = interface_state(design, model.body);  // reported even when not flown
-    if (e.aeroshell.diameter_m <= 0.0) return e;
+    if (e.aeroshell.diameter_m <= 0.0)
+        return e;
 
     e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
     if (e.entry.end == EntryEnd::ground) {  // it comes down before the parachute: there
@@ -299,7 +303,8 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
         plan.floor_altitude_m = design.site.elevation_m;
         e.descent = fly_descent(design, model, plan, e.entry.end_time_s, e.entry.end_state);
         if (fires_engines && has_lander) {
-            if (!e.descent->record.empty()) fly_terminal_burn(design, model, e);
+            if (!e.descent->record.empty())
+                fly_terminal_burn(design, model, e);
         } else {
             descend_on_canopy(design, e);
         }
@@ -313,11 +318,9 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
         e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,
                               MassGroup::payload,
                               fmt::format("{:.0f} % of the landed mass ({})",
-                                          100.0 * MassEstimates::airbag_fraction,
-                                          estimate_source));
+                                          100.0 * MassEstimates::airbag_fraction, estimate_source));
         if (e.impact_velocity_m_s) {
-            e.impact_energy_J =
-                0.5 * e.landed_kg * *e.impact_velocity_m_s * *e.impact_velocity_m_s;
+            e.impact_energy_J = 0.5 * e.landed_kg * *e.impact_velocity_m_s * *e.impact_velocity_m_s;
         }
     }
     if (design.mass.entry_kg) {
@@ -330,16 +333,19 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
 
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
                                               const Evaluation& e, double site_elevation_m) {
-    if (!e.descent || !e.descent->jettisoned) return std::nullopt;
+    if (!e.descent || !e.descent->jettisoned)
+        return std::nullopt;
     const bool fires_engines = design.terminal.method != TerminalMethod::none;
     // No burn to time against: no lander (drop_mass), or no descent record to burn on.
-    if (fires_engines && !e.burn_request) return std::nullopt;
+    if (fires_engines && !e.burn_request)
+        return std::nullopt;
     const DescentFlight& d = *e.descent;
     TimelineMargin m;
     const double jettison_after_deploy = d.jettison_time_s - d.deploy_time_s;
     if (!e.burn_request) {
         const auto t = d.record.time_descending_through(site_elevation_m);
-        if (!t) return std::nullopt;
+        if (!t)
+            return std::nullopt;
         m.available_s = *t - d.deploy_time_s;
         m.needed_s = jettison_after_deploy;
         m.margin_s = m.available_s - m.needed_s;
@@ -367,8 +373,7 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         // falling as the site rises and a root-finder sees one crossing.
         constexpr double seconds_per_m_s = 1.0;
         m.margin_s = std::min(m.margin_s, 0.0) -
-                     seconds_per_m_s * (speed(burn.end_state) -
-                                        e.burn_request->end_velocity_m_s);
+                     seconds_per_m_s * (speed(burn.end_state) - e.burn_request->end_velocity_m_s);
     }
     return m;
 }

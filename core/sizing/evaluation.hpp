@@ -42,11 +42,11 @@ struct Evaluation {
     std::optional<BurnSolution> burn;
     double burned_kg = 0.0;  ///< every burn, hover and fly-away included
     double loaded_propellant_kg = 0.0;
-    std::optional<double> hover_time_s;          ///< tethered
-    std::optional<double> touchdown_time_s;      ///< at the ground (none), or the payload's
+    std::optional<double> hover_time_s;      ///< tethered
+    std::optional<double> touchdown_time_s;  ///< at the ground (none), or the payload's
     std::optional<double> touchdown_velocity_m_s;
-    std::optional<double> impact_velocity_m_s;   ///< airbag
-    std::optional<double> impact_energy_J;       ///< airbag
+    std::optional<double> impact_velocity_m_s;  ///< airbag
+    std::optional<double> impact_energy_J;      ///< airbag
     /// Where the lander (the payload, for airbag and tethered) comes down, and its
     /// planet-relative horizontal speed at touchdown (retro, none), release (airbag), or that
     /// of the hovering stage (tethered).

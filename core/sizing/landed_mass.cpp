@@ -5,9 +5,11 @@ namespace ds {
 bool descent_stage_lands(TerminalMethod method) {
     switch (method) {
         case TerminalMethod::retro:
-        case TerminalMethod::none: return true;
+        case TerminalMethod::none:
+            return true;
         case TerminalMethod::airbag:
-        case TerminalMethod::tethered: return false;
+        case TerminalMethod::tethered:
+            return false;
     }
     return true;
 }

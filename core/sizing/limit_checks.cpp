@@ -19,8 +19,14 @@ constexpr std::string_view deploy_window_source =
 
 Check half_angle_check(double half_angle_deg, double heritage_deg, const std::string& source) {
     constexpr double same_angle_deg = 0.5;  // a heritage shape to within half a degree
-    Check c{"aeroshell_half_angle", CheckStatus::pass, half_angle_deg, heritage_deg, "deg", "",
-            source, {}};
+    Check c{"aeroshell_half_angle",
+            CheckStatus::pass,
+            half_angle_deg,
+            heritage_deg,
+            "deg",
+            "",
+            source,
+            {}};
     if (std::abs(half_angle_deg - heritage_deg) > same_angle_deg) {
         c.status = CheckStatus::marginal;
         c.message = fmt::format(
@@ -47,8 +53,8 @@ Check timeline_check(double margin_s, double limit_s, double needed_s) {
             needed_s, -margin_s);
     } else if (margin_s < limit_s) {
         c.status = CheckStatus::marginal;
-        c.message = fmt::format("timeline margin {:.1f} s is below the {:.4g} s wanted", margin_s,
-                                limit_s);
+        c.message =
+            fmt::format("timeline margin {:.1f} s is below the {:.4g} s wanted", margin_s, limit_s);
     } else {
         c.message = fmt::format("timeline margin {:.1f} s after the {:.1f} s the sequence needs",
                                 margin_s, needed_s);
@@ -59,11 +65,10 @@ Check timeline_check(double margin_s, double limit_s, double needed_s) {
 /// The launcher fairing bounds every aeroshell.
 void fairing_check(const Results& results, const Limits& lim, const std::string& heritage,
                    std::vector<Check>& checks) {
-    checks.push_back(check_at_most({"aeroshell_diameter", "aeroshell diameter", "m",
-                                    Severity::envelope,
-                                    "launcher fairing about 4.5-4.6 m, " + heritage},
-                                   results.entry.diameter_m, lim.aeroshell_diameter_max_m,
-                                   lim.marginal_band));
+    checks.push_back(
+        check_at_most({"aeroshell_diameter", "aeroshell diameter", "m", Severity::envelope,
+                       "launcher fairing about 4.5-4.6 m, " + heritage},
+                      results.entry.diameter_m, lim.aeroshell_diameter_max_m, lim.marginal_band));
 }
 
 /// The rest of the heritage envelope is that of Mars soft landing: for Mars designs only.
@@ -77,21 +82,21 @@ void mars_envelope_checks(const Design& design, const Results& results, const Li
     checks.push_back(
         half_angle_check(design.aeroshell.half_angle_deg, lim.heritage_half_angle_deg, heritage));
     if (results.parachute.diameter_m) {
-        checks.push_back(check_at_most({"parachute_diameter", "parachute diameter", "m",
-                                        Severity::envelope, heritage},
-                                       *results.parachute.diameter_m,
-                                       lim.parachute_diameter_max_m, band));
+        checks.push_back(check_at_most(
+            {"parachute_diameter", "parachute diameter", "m", Severity::envelope, heritage},
+            *results.parachute.diameter_m, lim.parachute_diameter_max_m, band));
     }
-    checks.push_back(check_at_most({"site_elevation", "landing site elevation", "m",
-                                    Severity::envelope, heritage},
-                                   design.site.elevation_m, lim.site_elevation_max_m, band));
+    checks.push_back(check_at_most(
+        {"site_elevation", "landing site elevation", "m", Severity::envelope, heritage},
+        design.site.elevation_m, lim.site_elevation_max_m, band));
     if (results.mass.landed_kg) {
-        Check landed = check_at_most({"landed_mass", "landed mass", "kg", Severity::envelope,
-                                      heritage},
-                                     *results.mass.landed_kg, lim.landed_mass_max_kg, band);
+        Check landed =
+            check_at_most({"landed_mass", "landed mass", "kg", Severity::envelope, heritage},
+                          *results.mass.landed_kg, lim.landed_mass_max_kg, band);
         if (landed.status != CheckStatus::pass) {
-            landed.message += "; a heavier lander needs supersonic retro-propulsion, larger "
-                              "decelerators and an entry from orbit";
+            landed.message +=
+                "; a heavier lander needs supersonic retro-propulsion, larger "
+                "decelerators and an entry from orbit";
         }
         checks.push_back(landed);
     }
@@ -102,19 +107,17 @@ void deploy_checks(const ParachuteResults& parachute, const Limits& lim,
                    std::vector<Check>& checks) {
     const double band = lim.marginal_band;
     const std::string window{deploy_window_source};
-    checks.push_back(check_at_most({"deploy_mach", "Mach number at parachute deploy", "",
-                                    Severity::physics, window},
-                                   *parachute.deploy_mach, lim.deploy_mach_max, band));
-    checks.push_back(check_at_most({"deploy_dynamic_pressure_high",
-                                    "dynamic pressure at parachute deploy", "Pa",
-                                    Severity::physics, window},
-                                   *parachute.deploy_dynamic_pressure_Pa,
-                                   lim.deploy_dynamic_pressure_max_Pa, band));
-    checks.push_back(check_at_least({"deploy_dynamic_pressure_low",
-                                     "dynamic pressure at parachute deploy", "Pa",
-                                     Severity::physics, window},
-                                    *parachute.deploy_dynamic_pressure_Pa,
-                                    lim.deploy_dynamic_pressure_min_Pa, band));
+    checks.push_back(check_at_most(
+        {"deploy_mach", "Mach number at parachute deploy", "", Severity::physics, window},
+        *parachute.deploy_mach, lim.deploy_mach_max, band));
+    checks.push_back(check_at_most(
+        {"deploy_dynamic_pressure_high", "dynamic pressure at parachute deploy", "Pa",
+         Severity::physics, window},
+        *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_max_Pa, band));
+    checks.push_back(check_at_least(
+        {"deploy_dynamic_pressure_low", "dynamic pressure at parachute deploy", "Pa",
+         Severity::physics, window},
+        *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_min_Pa, band));
 }
 
 /// What the entry puts on the payload and the heat shield.
@@ -127,8 +130,8 @@ void entry_load_checks(const EntryResults& entry, const Limits& lim, std::vector
     const double peak_total_flux =
         entry.peak_heat_flux_W_cm2 + entry.peak_radiative_heat_flux_W_cm2.value_or(0.0);
     checks.push_back(check_at_most(
-        {"peak_heat_flux", "peak stagnation heat flux (convective plus radiative peaks)",
-         "W/cm^2", Severity::physics,
+        {"peak_heat_flux", "peak stagnation heat flux (convective plus radiative peaks)", "W/cm^2",
+         Severity::physics,
          "the heat-shield material's qualified heat flux (default 200 W/cm^2: common practice, "
          "set your material's)"},
         peak_total_flux, lim.peak_heat_flux_max_W_cm2, band));
@@ -137,8 +140,7 @@ void entry_load_checks(const EntryResults& entry, const Limits& lim, std::vector
 /// How the payload meets the ground: its touchdown speed (a tethered payload's is the
 /// lowering speed, not an impact), or the airbags' impact.
 /// The horizontal speed at touchdown against the limit of the terminal method.
-Check touchdown_horizontal_check(const TerminalResults& terminal, const Limits& lim,
-                                 double band) {
+Check touchdown_horizontal_check(const TerminalResults& terminal, const Limits& lim, double band) {
     const auto rule = [](std::string words, std::string source) {
         return LimitRule{"touchdown_horizontal_velocity", std::move(words), "m/s",
                          Severity::physics, std::move(source)};
@@ -197,8 +199,10 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
     const std::string heritage{heritage_source};
     std::vector<Check> checks;
     fairing_check(results, lim, heritage, checks);
-    if (design.body.preset == "mars") mars_envelope_checks(design, results, lim, heritage, checks);
-    if (results.parachute.deployed) deploy_checks(results.parachute, lim, checks);
+    if (design.body.preset == "mars")
+        mars_envelope_checks(design, results, lim, heritage, checks);
+    if (results.parachute.deployed)
+        deploy_checks(results.parachute, lim, checks);
     entry_load_checks(results.entry, lim, checks);
     landing_checks(results.terminal, lim, checks);
     if (results.timeline.margin_s) {

@@ -5,8 +5,8 @@
 #include <cstdint>
 #include <memory>
 
-#include <boost/math/tools/toms748_solve.hpp>
 #include <fmt/format.h>
+#include <boost/math/tools/toms748_solve.hpp>
 
 #include "aeroshell/sphere_cone.hpp"
 #include "checks/rule_set.hpp"
@@ -40,14 +40,16 @@ struct Closure {
 /// r(m) = budget(m) - m, started with one fixed-point step.
 Closure close_budget(const Design& design, const FlightModel& model, const Atmosphere& atmosphere) {
     double itemised = 0.0;
-    for (const MassItemDesign& item : design.mass.items) itemised += item.mass_kg;
+    for (const MassItemDesign& item : design.mass.items)
+        itemised += item.mass_kg;
     double m0 = itemised / first_guess_itemised_share;
     Closure c{evaluate(design, model, atmosphere, m0), {}};
     double r0 = c.evaluation.budget_kg() - m0;
     double m1 = c.evaluation.budget_kg();
     for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
         c.report.iterations = iteration;
-        if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg) break;
+        if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg)
+            break;
         c.evaluation = evaluate(design, model, atmosphere, m1);
         const double r1 = c.evaluation.budget_kg() - m1;
         c.report.residual_kg = r1;
@@ -85,16 +87,20 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         deeper = evaluation;
         low = design.site.elevation_m - capability_depth_below_site_m;
         extend_descent(design, model, *deeper.descent, low);
-        if (!deeper.descent->reached_floor) return std::nullopt;
+        if (!deeper.descent->reached_floor)
+            return std::nullopt;
         e = &deeper;
         margin_low = margin_at(low);
-        if (!(margin_low >= 0.0)) return std::nullopt;
+        if (!(margin_low >= 0.0))
+            return std::nullopt;
     }
     const double high =
         evaluation.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
-    if (!(high > low)) return std::nullopt;
+    if (!(high > low))
+        return std::nullopt;
     const double margin_high = margin_at(high);
-    if (margin_high >= 0.0) return high;
+    if (margin_high >= 0.0)
+        return high;
     std::uintmax_t iterations = 60;
     const auto close = [](double a, double b) { return b - a <= capability_tolerance_m; };
     return boost::math::tools::toms748_solve(margin_at, low, high, margin_low, margin_high, close,
@@ -102,20 +108,24 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         .first;
 }
 
-Check flight_check(std::string id, CheckStatus status, double value, double limit,
-                   std::string unit, std::string message, std::string source) {
-    return {std::move(id), status, value, limit, std::move(unit), std::move(message),
+Check flight_check(std::string id, CheckStatus status, double value, double limit, std::string unit,
+                   std::string message, std::string source) {
+    return {std::move(id),     status,      value, limit, std::move(unit), std::move(message),
             std::move(source), std::nullopt};
 }
 
 std::string_view stop_reason_text(StopReason reason) {
     switch (reason) {
-        case StopReason::reached_end: return "the flight-time budget ran out";
-        case StopReason::step_budget: return "the integration step budget ran out";
+        case StopReason::reached_end:
+            return "the flight-time budget ran out";
+        case StopReason::step_budget:
+            return "the integration step budget ran out";
         case StopReason::step_collapse:
             return "the integration step collapsed (the equations are stiff or singular here)";
-        case StopReason::not_finite: return "the equations gave a non-finite value";
-        case StopReason::terminal_event: return "a terminal event";
+        case StopReason::not_finite:
+            return "the equations gave a non-finite value";
+        case StopReason::terminal_event:
+            return "a terminal event";
     }
     return "";
 }
@@ -161,7 +171,8 @@ bool terminal_cut_short(const Evaluation& e) {
 /// separation (or the touchdown, without one). A jettison that would come later is not
 /// reached: the lander has gone with the heat shield still on.
 bool jettison_reached(const Evaluation& e) {
-    if (!e.descent || !e.descent->jettisoned) return false;
+    if (!e.descent || !e.descent->jettisoned)
+        return false;
     const double lander_leaves = e.burn ? e.burn->separation_time_s
                                         : e.touchdown_time_s.value_or(e.descent->jettison_time_s);
     return e.descent->jettison_time_s <= lander_leaves;
@@ -184,7 +195,8 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     };
     entry.interface.relative = velocity(i.relative);
     entry.interface.inertial = velocity(i.inertial);
-    if (e.aeroshell.diameter_m <= 0.0) return;
+    if (e.aeroshell.diameter_m <= 0.0)
+        return;
     entry.ballistic_coefficient_kg_m2 = ballistic_coefficient_kg_m2(
         e.entry_kg, e.aeroshell.drag_coefficient, frontal_area_m2(e.aeroshell.diameter_m));
     const auto altitude = [](const PeakValue& p) { return p.y[StateIndex::altitude]; };
@@ -208,7 +220,8 @@ void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
     p.diameter_m = e.canopy_diameter_m;
     p.mass_kg = e.parachute_kg;
     p.deployed = e.entry.end == EntryEnd::deployed;
-    if (!p.deployed) return;
+    if (!p.deployed)
+        return;
     const FlightConditions& c = e.entry.end_conditions;
     const double v = speed(e.entry.end_state);
     p.deploy_time_s = e.entry.end_time_s;
@@ -216,10 +229,11 @@ void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
     p.deploy_mach = c.mach;
     p.deploy_dynamic_pressure_Pa = c.dynamic_pressure_Pa;
     p.deploy_velocity_m_s = v;
-    const DragDevice canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
+    const DragDevice canopy =
+        canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
     p.drag_coefficient_at_deploy = canopy.drag_coefficient_at(c.mach);
-    p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach,
-                                      e.canopy_diameter_m, e.canopy_drag_coefficient);
+    p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach, e.canopy_diameter_m,
+                                      e.canopy_drag_coefficient);
     p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, c.air_speed_m_s);
     p.deploy_latitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::latitude]);
     p.deploy_longitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::longitude]);
@@ -231,7 +245,8 @@ void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
         p.drift_m = great_circle_distance_m(deploy, exit, radius_m);
         p.drift_azimuth_deg = radians_to_degrees(initial_azimuth_rad(deploy, exit));
     }
-    if (jettison_reached(e)) p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
+    if (jettison_reached(e))
+        p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
     if (e.burn) {
         p.descent_velocity_m_s = speed(e.burn->separation_state);
     } else if (e.touchdown_velocity_m_s) {
@@ -250,7 +265,8 @@ void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t
         t.hover_time_s = e.hover_time_s;
         t.touchdown_horizontal_velocity_m_s = e.touchdown_horizontal_velocity_m_s;
     }
-    if (!e.burn) return;
+    if (!e.burn)
+        return;
     const BurnSolution& b = *e.burn;
     t.ignition_time_s = b.ignition_time_s;
     t.ignition_altitude_m = b.ignition_state[StateIndex::altitude];
@@ -287,7 +303,8 @@ void push_terminal_events(const Evaluation& e, const Design& design,
                 events.push_back(at_site("payload touchdown", *e.touchdown_time_s, 0.0));
             }
             break;
-        case TerminalMethod::none: break;
+        case TerminalMethod::none:
+            break;
     }
 }
 
@@ -295,13 +312,15 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
     std::vector<TimelineEvent>& events = timeline.events;
     const EntryFlight& f = e.entry;
     events.push_back(event_at("entry interface", 0.0, f.start));
-    if (e.aeroshell.diameter_m <= 0.0) return;
+    if (e.aeroshell.diameter_m <= 0.0)
+        return;
     if (f.decelerator_deployed) {
         events.push_back(event_at("decelerator deploy", f.decelerator_time_s, f.decelerator_state));
     }
     events.push_back(event_at("peak heat flux", f.heat_flux.time_s, f.heat_flux.y));
     events.push_back(event_at("peak deceleration", f.deceleration.time_s, f.deceleration.y));
-    events.push_back(event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
+    events.push_back(
+        event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
     switch (f.end) {
         case EntryEnd::deployed:
             events.push_back(event_at("parachute deploy", f.end_time_s, f.end_state));
@@ -330,15 +349,15 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
             push_terminal_events(e, design, events);
         }
     } else if (e.touchdown_time_s && e.touchdown_velocity_m_s) {
-        events.push_back(event_on_ground("touchdown", *e.touchdown_time_s,
-                                         design.site.elevation_m, *e.touchdown_velocity_m_s,
-                                         e.landing_point));
+        events.push_back(event_on_ground("touchdown", *e.touchdown_time_s, design.site.elevation_m,
+                                         *e.touchdown_velocity_m_s, e.landing_point));
     } else if (descent_stopped(e) && !e.descent->record.empty()) {
         const double t = e.descent->record.end_time();
         events.push_back(event_at("descent stopped", t, e.descent->record.state_at(t)));
     }
-    std::stable_sort(events.begin(), events.end(),
-                     [](const TimelineEvent& a, const TimelineEvent& b) { return a.time_s < b.time_s; });
+    std::stable_sort(
+        events.begin(), events.end(),
+        [](const TimelineEvent& a, const TimelineEvent& b) { return a.time_s < b.time_s; });
 }
 
 /// The heat shield's jettison, when it does not come before the lander leaves: never in the
@@ -347,12 +366,12 @@ Check jettison_check(const Evaluation& e) {
     const DescentFlight& d = *e.descent;
     const std::string advice = "shorten the jettison delay or raise its dynamic pressure";
     if (!d.jettisoned) {
-        return flight_check("heat_shield_jettison", CheckStatus::fail, 0.0, 0.0, "",
-                            fmt::format("the heat shield is never jettisoned before {}: {}",
-                                        descent_stopped(e) ? "the descent under the canopy stops"
-                                                           : "the ground",
-                                        advice),
-                            "design sequence");
+        return flight_check(
+            "heat_shield_jettison", CheckStatus::fail, 0.0, 0.0, "",
+            fmt::format("the heat shield is never jettisoned before {}: {}",
+                        descent_stopped(e) ? "the descent under the canopy stops" : "the ground",
+                        advice),
+            "design sequence");
     }
     // Jettisoned but not reached: only a backshell separation comes before it.
     const double jettison = d.jettison_time_s - d.deploy_time_s;
@@ -416,13 +435,15 @@ bool sizing_request_checks(const Evaluation& e, const Design& design, std::vecto
                                            "at {:.4g} kg",
                                            target, e.entry_kg),
                                "sizing request"));
-        if (e.aeroshell.diameter_m <= 0.0) return false;
+        if (e.aeroshell.diameter_m <= 0.0)
+            return false;
     }
     if (!design.parachute.diameter_m && e.canopy_diameter_m <= 0.0) {
         checks.push_back(flight_check(
             "parachute_sizing", CheckStatus::fail, 0.0, *design.parachute.size_for_velocity_m_s,
-            "m/s", "the vehicle under the canopy already descends slower than the requested speed: "
-                   "no canopy is needed, or the request is wrong",
+            "m/s",
+            "the vehicle under the canopy already descends slower than the requested speed: "
+            "no canopy is needed, or the request is wrong",
             "sizing request"));
     }
     return true;
@@ -458,7 +479,8 @@ Check entry_end_check(const Evaluation& e, const Design& design) {
                             "reduce the lift",
                             v_end, f.end_time_s, trigger),
                 "design trigger");
-        case EntryEnd::stopped: break;
+        case EntryEnd::stopped:
+            break;
     }
     return flight_check("trajectory", CheckStatus::fail, f.end_time_s, design.solver.max_time_s,
                         "s",
@@ -470,14 +492,16 @@ Check entry_end_check(const Evaluation& e, const Design& design) {
 /// What went wrong under the canopy and in the terminal burn: a descent that stopped, a
 /// jettison not reached, a burn that cannot stop in time, a load the burn exceeds.
 void descent_checks(const Evaluation& e, const Design& design, std::vector<Check>& checks) {
-    if (e.descent && !e.descent->reached_floor && e.descent->stop_reason != StopReason::terminal_event) {
-        checks.push_back(flight_check(
-            "trajectory", CheckStatus::fail, 0.0, design.solver.max_time_s, "s",
-            fmt::format("the descent under the canopy stopped: {}",
-                        stop_reason_text(e.descent->stop_reason)),
-            "solver settings"));
+    if (e.descent && !e.descent->reached_floor &&
+        e.descent->stop_reason != StopReason::terminal_event) {
+        checks.push_back(flight_check("trajectory", CheckStatus::fail, 0.0,
+                                      design.solver.max_time_s, "s",
+                                      fmt::format("the descent under the canopy stopped: {}",
+                                                  stop_reason_text(e.descent->stop_reason)),
+                                      "solver settings"));
     }
-    if (e.descent && !jettison_reached(e)) checks.push_back(jettison_check(e));
+    if (e.descent && !jettison_reached(e))
+        checks.push_back(jettison_check(e));
     if (e.burn && !e.burn->stops_in_time) {
         checks.push_back(flight_check(
             "terminal_burn", CheckStatus::fail, speed(e.burn->end_state),
@@ -485,8 +509,7 @@ void descent_checks(const Evaluation& e, const Design& design, std::vector<Check
             fmt::format("even separating at parachute deploy, the burn cannot bring the lander to "
                         "{:.2g} m/s in time: it reaches the ground at {:.1f} m/s; more thrust or "
                         "an earlier, higher deploy is needed",
-                        design.terminal.touchdown_velocity_m_s,
-                        speed(e.burn->end_state)),
+                        design.terminal.touchdown_velocity_m_s, speed(e.burn->end_state)),
             "terminal descent"));
     }
     if (design.terminal.propellant_loaded_kg && e.burned_kg > 0.0) {
@@ -515,7 +538,8 @@ std::optional<Check> budget_check(const Evaluation& e, const std::optional<MassC
                                               closure->iterations, mass, e.budget_kg()),
                                   "closure to 0.1 kg");
     }
-    if (!e.unallocated_kg) return std::nullopt;
+    if (!e.unallocated_kg)
+        return std::nullopt;
     const double unallocated = *e.unallocated_kg;
     // Within the closure's tolerance is allocated: a frozen sized design (a dispersion's
     // vehicle) carries its closure's last 0.1 kg as a rounding, not as an excess.
@@ -535,11 +559,14 @@ std::optional<Check> budget_check(const Evaluation& e, const std::optional<MassC
 std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
                                  const std::optional<MassClosure>& closure) {
     std::vector<Check> checks;
-    if (!sizing_request_checks(e, design, checks)) return checks;
-    if (e.lander_kg <= 0.0) checks.push_back(drop_mass_check(e));
+    if (!sizing_request_checks(e, design, checks))
+        return checks;
+    if (e.lander_kg <= 0.0)
+        checks.push_back(drop_mass_check(e));
     checks.push_back(entry_end_check(e, design));
     descent_checks(e, design, checks);
-    if (std::optional<Check> budget = budget_check(e, closure)) checks.push_back(std::move(*budget));
+    if (std::optional<Check> budget = budget_check(e, closure))
+        checks.push_back(std::move(*budget));
     return checks;
 }
 
@@ -559,7 +586,8 @@ void place_on_track(const Evaluation& e, const Design& design, const TrackRefere
         sample.downrange_m = p.downrange_m;
         sample.crossrange_m = p.crossrange_m;
     }
-    if (!e.landing_point || terminal_cut_short(e)) return;
+    if (!e.landing_point || terminal_cut_short(e))
+        return;
     LandingResults landing;
     landing.latitude_deg = radians_to_degrees(e.landing_point->latitude_rad);
     landing.longitude_deg = radians_to_degrees(e.landing_point->longitude_rad);
@@ -607,7 +635,8 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
 /// The evaluation at the design's entry mass: the fixed one, or the closed one.
 Closure sized_evaluation(const Design& design, const FlightModel& model,
                          const Atmosphere& atmosphere) {
-    if (design.mass.entry_kg) return {evaluate(design, model, atmosphere, *design.mass.entry_kg), {}};
+    if (design.mass.entry_kg)
+        return {evaluate(design, model, atmosphere, *design.mass.entry_kg), {}};
     return close_budget(design, model, atmosphere);
 }
 
@@ -623,14 +652,17 @@ Design freeze_design(const Design& design) {
     frozen.mass.heat_shield_kg = e.heat_shield_kg;
     frozen.mass.backshell_kg = e.backshell_kg;
     frozen.parachute.mass_kg = e.parachute_kg;
-    if (frozen.decelerator) frozen.decelerator->mass_kg = e.decelerator_kg;
+    if (frozen.decelerator)
+        frozen.decelerator->mass_kg = e.decelerator_kg;
     if (e.aeroshell.diameter_m > 0.0) {
         frozen.aeroshell.diameter_m = e.aeroshell.diameter_m;
         frozen.aeroshell.size_for_ballistic_coefficient_kg_m2.reset();
     }
     // The engines and tanks are built: a dispersed flight has this thrust and this load.
-    if (e.full_thrust_N > 0.0) frozen.terminal.thrust_N = e.full_thrust_N;
-    if (e.loaded_propellant_kg > 0.0) frozen.terminal.propellant_loaded_kg = e.loaded_propellant_kg;
+    if (e.full_thrust_N > 0.0)
+        frozen.terminal.thrust_N = e.full_thrust_N;
+    if (e.loaded_propellant_kg > 0.0)
+        frozen.terminal.propellant_loaded_kg = e.loaded_propellant_kg;
     if (e.canopy_diameter_m > 0.0) {
         frozen.parachute.diameter_m = e.canopy_diameter_m;
         frozen.parachute.size_for_velocity_m_s.reset();
@@ -676,11 +708,13 @@ Results size_design(const Design& design, SizingOptions options) {
     }
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
-    if (e.descent && e.lander_kg > 0.0) results.mass.landed_kg = e.landed_kg;
+    if (e.descent && e.lander_kg > 0.0)
+        results.mass.landed_kg = e.landed_kg;
     if (options.capability) {
         results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
     }
-    if (options.history) results.history = std::move(e.history);
+    if (options.history)
+        results.history = std::move(e.history);
     place_on_track(e, design, entry_track(e.entry.interface, model.body), results);
 
     results.notes.emplace_back(conceptual_caution);

@@ -11,7 +11,8 @@ namespace ds {
 namespace {
 
 constexpr double flight_time_limit_s = 3600.0;
-constexpr double first_step_back_s = 2.0;  // search step back from the latest separation  // after separation: a burn never lasts this long
+constexpr double first_step_back_s = 2.0;  // search step back from the latest separation  // after
+                                           // separation: a burn never lasts this long
 
 struct Attempt {
     bool reached_velocity = false;
@@ -56,16 +57,15 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     burn.name = "terminal burn";
     burn.stage.thrust_N = r.thrust_N;
     burn.stage.specific_impulse_s = r.specific_impulse_s;
-    burn.ends = {{"end of burn", FlightQuantity::velocity, r.end_velocity_m_s,
-                  EventDirection::falling},
-                 ground};
-    const PhaseOutcome burned = fly_phase(model, burn, coasted.time_s, coasted.y,
-                                          coasted.time_s + flight_time_limit_s, settings,
-                                          {history, nullptr});
+    burn.ends = {
+        {"end of burn", FlightQuantity::velocity, r.end_velocity_m_s, EventDirection::falling},
+        ground};
+    const PhaseOutcome burned =
+        fly_phase(model, burn, coasted.time_s, coasted.y, coasted.time_s + flight_time_limit_s,
+                  settings, {history, nullptr});
     // Reaching the ground at the end velocity or slower is reaching it too: the two events
     // can fall within the event tolerance of each other when the solution is exact.
-    a.reached_velocity = burned.ended_by == std::size_t{0} ||
-                         speed(burned.y) <= r.end_velocity_m_s;
+    a.reached_velocity = burned.ended_by == std::size_t{0} || speed(burned.y) <= r.end_velocity_m_s;
     b.end_time_s = burned.time_s;
     b.end_state = burned.y;
     b.burn_time_s = burned.time_s - coasted.time_s;
@@ -73,8 +73,7 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     const double m1 = burned.y[StateIndex::mass];
     b.burned_kg = m0 - m1;
     b.ideal_delta_v_m_s = r.specific_impulse_s * standard_gravity_m_s2 * std::log(m0 / m1);
-    b.gravity_loss_m_s = b.ideal_delta_v_m_s - (speed(coasted.y) -
-                                                speed(burned.y));
+    b.gravity_loss_m_s = b.ideal_delta_v_m_s - (speed(coasted.y) - speed(burned.y));
     return a;
 }
 
@@ -84,7 +83,8 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
 double miss(const Attempt& a, const BurnRequest& r) {
     const double target = r.site_elevation_m + r.end_height_above_site_m;
     const double height = a.burn.end_state[StateIndex::altitude] - target;
-    if (a.reached_velocity) return height;
+    if (a.reached_velocity)
+        return height;
     constexpr double seconds = 1.0;
     return height - (speed(a.burn.end_state) - r.end_velocity_m_s) * seconds;
 }
@@ -129,7 +129,8 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
         miss_late = miss_early;
         step *= 2.0;
     }
-    if (!stops) t_solution = earliest;
+    if (!stops)
+        t_solution = earliest;
     Attempt solved = attempt(model, descent, request, settings, t_solution, history);
     solved.burn.stops_in_time = stops && solved.reached_velocity;
     return solved.burn;

@@ -14,7 +14,7 @@ struct BurnRequest {
     double lander_mass_kg = 0.0;  ///< at separation from the backshell
     double thrust_N = 0.0;
     double specific_impulse_s = 0.0;
-    double coast_s = 0.0;  ///< free fall from separation to ignition
+    double coast_s = 0.0;                       ///< free fall from separation to ignition
     double separation_time_tolerance_s = 1e-6;  ///< how closely the separation is solved
 };
 

@@ -40,13 +40,17 @@ std::vector<ContourSegment> zero_contour(const std::vector<double>& x, const std
                                            {x[i + 1], y[j + 1], values[(i + 1) * ny + j + 1]},
                                            {x[i], y[j + 1], values[i * ny + j + 1]}}};
             bool finite = true;
-            for (const Corner& corner : c) finite = finite && std::isfinite(corner.value);
-            if (!finite) continue;
+            for (const Corner& corner : c)
+                finite = finite && std::isfinite(corner.value);
+            if (!finite)
+                continue;
             std::array<bool, 4> inside{};
-            for (int k = 0; k < 4; ++k) inside[k] = c[k].value >= 0.0;
+            for (int k = 0; k < 4; ++k)
+                inside[k] = c[k].value >= 0.0;
             std::vector<int> cut;  // edges whose ends differ, in order around the cell
             for (int k = 0; k < 4; ++k) {
-                if (inside[k] != inside[(k + 1) % 4]) cut.push_back(k);
+                if (inside[k] != inside[(k + 1) % 4])
+                    cut.push_back(k);
             }
             const auto at = [&](int k) { return crossing(c[k], c[(k + 1) % 4]); };
             if (cut.size() == 2) {

@@ -28,9 +28,11 @@ DesignVariants DesignVariants::of(const Design& design, std::filesystem::path ba
 
 std::optional<double> DesignVariants::value(std::string_view key) const {
     const nlohmann::ordered_json::json_pointer pointer(key_to_pointer(key));
-    if (!document_.contains(pointer)) return std::nullopt;
+    if (!document_.contains(pointer))
+        return std::nullopt;
     const auto& v = document_.at(pointer);
-    if (!v.is_number()) return std::nullopt;
+    if (!v.is_number())
+        return std::nullopt;
     return v.get<double>();
 }
 

@@ -40,8 +40,10 @@ double standard_normal(std::mt19937_64& engine) {
     return std::sqrt(-2.0 * std::log(u1)) * std::cos(2.0 * pi * u2);
 }
 
-bool same_dispersions(const std::vector<DispersionDesign>& a, const std::vector<DispersionDesign>& b) {
-    if (a.size() != b.size()) return false;
+bool same_dispersions(const std::vector<DispersionDesign>& a,
+                      const std::vector<DispersionDesign>& b) {
+    if (a.size() != b.size())
+        return false;
     for (std::size_t i = 0; i < a.size(); ++i) {
         if (a[i].key != b[i].key || a[i].distribution != b[i].distribution ||
             a[i].sigma != b[i].sigma || a[i].min != b[i].min || a[i].max != b[i].max) {
@@ -60,7 +62,9 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     std::vector<double> nominal;
     for (const DispersionDesign& d : design.dispersions) {
         const auto value = variants.value(d.key);
-        if (!value) return {std::nullopt, fmt::format("dispersions: {} is not a number of the design", d.key)};
+        if (!value)
+            return {std::nullopt,
+                    fmt::format("dispersions: {} is not a number of the design", d.key)};
         nominal.push_back(*value);
     }
 
@@ -106,7 +110,8 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
                                     r.landing->downrange_m, r.landing->crossrange_m};
         }
         for (const Check& check : r.checks) {
-            if (check.status == CheckStatus::fail) c.failed_checks.push_back(check.id);
+            if (check.status == CheckStatus::fail)
+                c.failed_checks.push_back(check.id);
         }
         c.success = c.failed_checks.empty();
     });
@@ -115,7 +120,8 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
 
 std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
     const std::vector<DispersionCampaign>& parts) {
-    if (parts.empty()) return {std::nullopt, "nothing to merge"};
+    if (parts.empty())
+        return {std::nullopt, "nothing to merge"};
     DispersionCampaign merged = parts.front();
     merged.shard_index = 0;
     merged.shard_count = 1;
@@ -124,8 +130,9 @@ std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
         if (part.seed != merged.seed || part.runs != merged.runs ||
             !same_dispersions(part.dispersions, merged.dispersions) ||
             part.figure_ids != merged.figure_ids || part.body_radius_m != merged.body_radius_m) {
-            return {std::nullopt, "the parts are not shards of one campaign (seed, runs, "
-                                  "dispersions or figures differ)"};
+            return {std::nullopt,
+                    "the parts are not shards of one campaign (seed, runs, "
+                    "dispersions or figures differ)"};
         }
         merged.cases.insert(merged.cases.end(), part.cases.begin(), part.cases.end());
     }
@@ -138,14 +145,15 @@ std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
         }
     }
     if (merged.cases.size() != merged.runs) {
-        return {std::nullopt, fmt::format("the parts hold {} of the {} cases",
-                                          merged.cases.size(), merged.runs)};
+        return {std::nullopt,
+                fmt::format("the parts hold {} of the {} cases", merged.cases.size(), merged.runs)};
     }
     return {std::move(merged), {}};
 }
 
 std::pair<double, double> wilson_interval(std::size_t successes, std::size_t trials, double z) {
-    if (trials == 0) return {0.0, 1.0};
+    if (trials == 0)
+        return {0.0, 1.0};
     const double n = static_cast<double>(trials);
     const double p = static_cast<double>(successes) / n;
     const double z2 = z * z;
@@ -155,7 +163,8 @@ std::pair<double, double> wilson_interval(std::size_t successes, std::size_t tri
 }
 
 double quantile(const std::vector<double>& sorted, double q) {
-    if (sorted.empty()) return 0.0;
+    if (sorted.empty())
+        return 0.0;
     const double h = (static_cast<double>(sorted.size()) - 1.0) * q;
     const auto lo = static_cast<std::size_t>(std::floor(h));
     const std::size_t hi = std::min(lo + 1, sorted.size() - 1);
@@ -168,15 +177,19 @@ DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_p
     std::map<std::string, std::size_t> failures;
     for (const DispersedCase& c : campaign.cases) {
         s.successes += c.success ? 1 : 0;
-        for (const std::string& id : c.failed_checks) ++failures[id];
-        if (!c.error.empty()) ++failures["design_unreadable"];
+        for (const std::string& id : c.failed_checks)
+            ++failures[id];
+        if (!c.error.empty())
+            ++failures["design_unreadable"];
     }
-    s.success_probability = s.runs ? static_cast<double>(s.successes) / static_cast<double>(s.runs) : 0.0;
+    s.success_probability =
+        s.runs ? static_cast<double>(s.successes) / static_cast<double>(s.runs) : 0.0;
     std::tie(s.wilson_low, s.wilson_high) = wilson_interval(s.successes, s.runs);
     for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
         std::vector<double> values;
         for (const DispersedCase& c : campaign.cases) {
-            if (f < c.figures.size() && c.figures[f]) values.push_back(*c.figures[f]);
+            if (f < c.figures.size() && c.figures[f])
+                values.push_back(*c.figures[f]);
         }
         FigureStatistics st{campaign.figure_ids[f], campaign.figure_units[f], values.size()};
         if (!values.empty()) {
@@ -184,7 +197,8 @@ DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_p
             const double n = static_cast<double>(values.size());
             st.mean = std::accumulate(values.begin(), values.end(), 0.0) / n;
             double squares = 0.0;
-            for (const double v : values) squares += (v - st.mean) * (v - st.mean);
+            for (const double v : values)
+                squares += (v - st.mean) * (v - st.mean);
             st.standard_deviation = values.size() > 1 ? std::sqrt(squares / (n - 1.0)) : 0.0;
             st.p01 = quantile(values, 0.01);
             st.p50 = quantile(values, 0.50);
@@ -215,11 +229,12 @@ nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
     out["shard"] = {{"index", c.shard_index}, {"count", c.shard_count}};
     nlohmann::ordered_json dispersions = nlohmann::ordered_json::array();
     for (const DispersionDesign& d : c.dispersions) {
-        dispersions.push_back({{"key", d.key},
-                               {"distribution", d.distribution == DistributionKind::normal ? "normal" : "uniform"},
-                               {"sigma", d.sigma},
-                               {"min", d.min},
-                               {"max", d.max}});
+        dispersions.push_back(
+            {{"key", d.key},
+             {"distribution", d.distribution == DistributionKind::normal ? "normal" : "uniform"},
+             {"sigma", d.sigma},
+             {"min", d.min},
+             {"max", d.max}});
     }
     out["dispersions"] = dispersions;
     out["figures"] = c.figure_ids;
@@ -228,18 +243,20 @@ nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
     nlohmann::ordered_json cases = nlohmann::ordered_json::array();
     for (const DispersedCase& k : c.cases) {
         nlohmann::ordered_json figures = nlohmann::ordered_json::array();
-        for (const auto& f : k.figures) figures.push_back(f && std::isfinite(*f) ? nlohmann::ordered_json(*f) : nlohmann::ordered_json());
-        cases.push_back({{"index", k.index},
-                         {"draws", k.draws},
-                         {"figures", figures},
-                         {"success", k.success},
-                         {"failed_checks", k.failed_checks},
-                         {"error", k.error},
-                         {"landing", k.landing ? nlohmann::ordered_json{k.landing->latitude_deg,
-                                                                        k.landing->longitude_deg,
-                                                                        k.landing->downrange_m,
-                                                                        k.landing->crossrange_m}
-                                               : nlohmann::ordered_json()}});
+        for (const auto& f : k.figures)
+            figures.push_back(f && std::isfinite(*f) ? nlohmann::ordered_json(*f)
+                                                     : nlohmann::ordered_json());
+        cases.push_back(
+            {{"index", k.index},
+             {"draws", k.draws},
+             {"figures", figures},
+             {"success", k.success},
+             {"failed_checks", k.failed_checks},
+             {"error", k.error},
+             {"landing",
+              k.landing ? nlohmann::ordered_json{k.landing->latitude_deg, k.landing->longitude_deg,
+                                                 k.landing->downrange_m, k.landing->crossrange_m}
+                        : nlohmann::ordered_json()}});
     }
     out["cases"] = cases;
     return out;
@@ -272,14 +289,16 @@ std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_jso
             dc.index = k.at("index").get<std::size_t>();
             dc.draws = k.at("draws").get<std::vector<double>>();
             for (const auto& f : k.at("figures")) {
-                dc.figures.push_back(f.is_number() ? std::optional<double>(f.get<double>()) : std::nullopt);
+                dc.figures.push_back(f.is_number() ? std::optional<double>(f.get<double>())
+                                                   : std::nullopt);
             }
             dc.success = k.at("success").get<bool>();
             dc.failed_checks = k.at("failed_checks").get<std::vector<std::string>>();
             dc.error = k.at("error").get<std::string>();
             if (k.contains("landing") && k.at("landing").is_array()) {
                 const auto l = k.at("landing").get<std::vector<double>>();
-                if (l.size() == 4) dc.landing = CaseLanding{l[0], l[1], l[2], l[3]};
+                if (l.size() == 4)
+                    dc.landing = CaseLanding{l[0], l[1], l[2], l[3]};
             }
             c.cases.push_back(std::move(dc));
         }
@@ -298,13 +317,15 @@ nlohmann::ordered_json summary_to_json(const DispersionSummary& s) {
     out["success_interval_95"] = {s.wilson_low, s.wilson_high};
     nlohmann::ordered_json figures = nlohmann::ordered_json::object();
     for (const FigureStatistics& f : s.figures) {
-        figures[f.id] = {{"unit", f.unit}, {"count", f.count}, {"mean", f.mean},
-                         {"standard_deviation", f.standard_deviation}, {"p01", f.p01},
-                         {"p50", f.p50}, {"p99", f.p99}};
+        figures[f.id] = {{"unit", f.unit}, {"count", f.count},
+                         {"mean", f.mean}, {"standard_deviation", f.standard_deviation},
+                         {"p01", f.p01},   {"p50", f.p50},
+                         {"p99", f.p99}};
     }
     out["figures"] = figures;
     nlohmann::ordered_json failing = nlohmann::ordered_json::array();
-    for (const auto& [id, count] : s.failing_checks) failing.push_back({{"id", id}, {"count", count}});
+    for (const auto& [id, count] : s.failing_checks)
+        failing.push_back({{"id", id}, {"count", count}});
     out["failing_checks"] = failing;
     if (s.landing_ellipse) {
         const LandingEllipse& e = *s.landing_ellipse;

@@ -36,11 +36,11 @@ struct CaseLanding {
 /// One dispersed case: its draws and what it gave.
 struct DispersedCase {
     std::size_t index = 0;
-    std::vector<double> draws;  ///< one per dispersion, in the design's order
+    std::vector<double> draws;                   ///< one per dispersion, in the design's order
     std::vector<std::optional<double>> figures;  ///< one per key figure of the campaign
-    bool success = false;  ///< read, and no check failed
+    bool success = false;                        ///< read, and no check failed
     std::vector<std::string> failed_checks;
-    std::string error;  ///< the reader's, when the drawn design could not be read
+    std::string error;                   ///< the reader's, when the drawn design could not be read
     std::optional<CaseLanding> landing;  ///< empty when it did not come down
 };
 
@@ -53,7 +53,7 @@ struct DispersionCampaign {
     std::vector<DispersionDesign> dispersions;
     std::vector<std::string> figure_ids;
     std::vector<std::string> figure_units;
-    double body_radius_m = 0.0;  ///< of the flown body: the landing points' sphere
+    double body_radius_m = 0.0;        ///< of the flown body: the landing points' sphere
     std::vector<DispersedCase> cases;  ///< by index
 };
 

@@ -6,7 +6,9 @@
 
 namespace ds {
 
-double chi_square_2dof_quantile(double probability) { return -2.0 * std::log1p(-probability); }
+double chi_square_2dof_quantile(double probability) {
+    return -2.0 * std::log1p(-probability);
+}
 
 EllipseAxes covariance_ellipse(const std::vector<EastNorth>& points, double probability) {
     const double n = static_cast<double>(points.size());
@@ -50,7 +52,8 @@ EllipseAxes covariance_ellipse(const std::vector<EastNorth>& points, double prob
 
 std::optional<LandingEllipse> landing_ellipse(const std::vector<GroundPoint>& points,
                                               double radius_m, double probability) {
-    if (points.size() < 2 || !(radius_m > 0.0)) return std::nullopt;
+    if (points.size() < 2 || !(radius_m > 0.0))
+        return std::nullopt;
     LandingEllipse out;
     out.probability = probability;
     out.count = points.size();

@@ -28,7 +28,7 @@ struct EllipseAxes {
     double semi_major_km = 0.0;
     double semi_minor_km = 0.0;
     double major_axis_azimuth_deg = 0.0;
-    double east_sigma_km = 0.0;   ///< sample standard deviations (n - 1) and correlation
+    double east_sigma_km = 0.0;  ///< sample standard deviations (n - 1) and correlation
     double north_sigma_km = 0.0;
     double correlation = 0.0;
 };

@@ -15,8 +15,10 @@ namespace ds {
 /// handing out cases once progress says cancelled; returns whether every case ran.
 template <class Work>
 bool parallel_for(std::size_t count, unsigned threads, Progress* progress, Work&& work) {
-    if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
-    threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(count, 1)));
+    if (threads == 0)
+        threads = std::max(1u, std::thread::hardware_concurrency());
+    threads =
+        static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(count, 1)));
     std::atomic<std::size_t> next{0};
     std::atomic<std::size_t> done{0};
     std::atomic<bool> stopped{false};
@@ -27,18 +29,22 @@ bool parallel_for(std::size_t count, unsigned threads, Progress* progress, Work&
                 return;
             }
             const std::size_t i = next.fetch_add(1);
-            if (i >= count) return;
+            if (i >= count)
+                return;
             work(i);
             const std::size_t finished = done.fetch_add(1) + 1;
-            if (progress) progress->report(static_cast<double>(finished) / static_cast<double>(count));
+            if (progress)
+                progress->report(static_cast<double>(finished) / static_cast<double>(count));
         }
     };
     // Every case runs on a thread of the pool, the caller only waits: the caller's allocator
     // arena (the main one, for a program's main thread) was measured 25 % slower on the
     // flights' allocations than a thread's own, which made one thread look slower than it is.
     std::vector<std::thread> pool;
-    for (unsigned t = 0; t < threads; ++t) pool.emplace_back(run);
-    for (std::thread& thread : pool) thread.join();
+    for (unsigned t = 0; t < threads; ++t)
+        pool.emplace_back(run);
+    for (std::thread& thread : pool)
+        thread.join();
     return !stopped && done == count;
 }
 

@@ -14,10 +14,11 @@ namespace {
 
 constexpr double undefined = std::numeric_limits<double>::quiet_NaN();
 
-std::vector<std::optional<double>> figures_of(const DesignVariants& design,
-                                              const std::vector<std::pair<std::string, double>>& values) {
+std::vector<std::optional<double>> figures_of(
+    const DesignVariants& design, const std::vector<std::pair<std::string, double>>& values) {
     const DesignReadResult read = design.with(values);
-    if (!read.ok()) return {};
+    if (!read.ok())
+        return {};
     return key_figure_values(size_design(*read.design, {true, false}));
 }
 
@@ -26,8 +27,10 @@ std::vector<std::optional<double>> figures_of(const DesignVariants& design,
 std::vector<std::pair<std::string, double>> SensitivityTable::ranked(std::size_t figure) const {
     std::vector<std::pair<std::string, double>> out;
     for (std::size_t i = 0; i < inputs.size(); ++i) {
-        const double s = normalized(static_cast<Eigen::Index>(figure), static_cast<Eigen::Index>(i));
-        if (std::isfinite(s)) out.emplace_back(inputs[i], s);
+        const double s =
+            normalized(static_cast<Eigen::Index>(figure), static_cast<Eigen::Index>(i));
+        if (std::isfinite(s))
+            out.emplace_back(inputs[i], s);
     }
     std::stable_sort(out.begin(), out.end(), [](const auto& a, const auto& b) {
         return std::abs(a.second) > std::abs(b.second);
@@ -39,7 +42,8 @@ SensitivityTable sensitivities(const DesignVariants& design, std::vector<std::st
                                unsigned threads, Progress* progress) {
     SensitivityTable table;
     table.inputs = inputs.empty() ? design.numeric_keys() : std::move(inputs);
-    for (const KeyFigureDefinition& f : key_figure_table) table.figures.emplace_back(f.id);
+    for (const KeyFigureDefinition& f : key_figure_table)
+        table.figures.emplace_back(f.id);
     const auto nominal = figures_of(design, {});
     const auto n_in = static_cast<Eigen::Index>(table.inputs.size());
     const auto n_out = static_cast<Eigen::Index>(table.figures.size());
@@ -50,19 +54,25 @@ SensitivityTable sensitivities(const DesignVariants& design, std::vector<std::st
 
     parallel_for(table.inputs.size(), threads, progress, [&](std::size_t i) {
         const double x = table.input_values[i];
-        if (!std::isfinite(x) || x == 0.0) return;
+        if (!std::isfinite(x) || x == 0.0)
+            return;
         const double h = sensitivity_relative_step;
-        std::array<std::vector<std::optional<double>>, 4> at;  // x(1 - 2h), x(1 - h), x(1 + h), x(1 + 2h)
+        std::array<std::vector<std::optional<double>>, 4>
+            at;  // x(1 - 2h), x(1 - h), x(1 + h), x(1 + 2h)
         const std::array<double, 4> offsets{-2.0 * h, -h, h, 2.0 * h};
         for (std::size_t k = 0; k < at.size(); ++k) {
             at[k] = figures_of(design, {{table.inputs[i], x * (1.0 + offsets[k])}});
-            if (at[k].empty()) return;
+            if (at[k].empty())
+                return;
         }
-        if (nominal.empty()) return;
+        if (nominal.empty())
+            return;
         for (Eigen::Index f = 0; f < n_out; ++f) {
             const auto k = static_cast<std::size_t>(f);
-            if (!nominal[k] || *nominal[k] == 0.0) continue;
-            if (!at[0][k] || !at[1][k] || !at[2][k] || !at[3][k]) continue;
+            if (!nominal[k] || *nominal[k] == 0.0)
+                continue;
+            if (!at[0][k] || !at[1][k] || !at[2][k] || !at[3][k])
+                continue;
             // Five-point central difference in the relative step, error O(h^4).
             const double derivative =
                 (*at[0][k] - 8.0 * *at[1][k] + 8.0 * *at[2][k] - *at[3][k]) / (12.0 * h);

@@ -25,7 +25,8 @@ struct StudyInput {
 
 void run_sweep_study(const StudyInput& in, StudyOutcome& out) {
     const DesignVariants variants(in.document, in.base_directory);
-    for (const SweepAxis& axis : in.request.axes) out.nominal.push_back(variants.value(axis.key));
+    for (const SweepAxis& axis : in.request.axes)
+        out.nominal.push_back(variants.value(axis.key));
     out.sweep = run_sweep(variants, in.request.axes, in.threads, &in.progress);
 }
 
@@ -57,7 +58,8 @@ void run_sensitivity_study(const StudyInput& in, StudyOutcome& out) {
 std::string describe_sweep(const StudyRequest& request) {
     std::string axes;
     for (const SweepAxis& a : request.axes) {
-        if (!axes.empty()) axes += " and ";
+        if (!axes.empty())
+            axes += " and ";
         axes += fmt::format("{} from {:g} to {:g} ({} values)", a.key, a.from, a.to, a.count);
     }
     return "Sweep of " + axes;
@@ -98,17 +100,23 @@ constexpr StudyKindDefinition study_kinds[] = {
 };
 
 const StudyKindDefinition& definition(StudyKind kind) {
-    const auto* found = std::find_if(std::begin(study_kinds), std::end(study_kinds),
-                                     [kind](const StudyKindDefinition& d) { return d.kind == kind; });
-    if (found == std::end(study_kinds)) throw std::logic_error("a study kind without its definition");
+    const auto* found =
+        std::find_if(std::begin(study_kinds), std::end(study_kinds),
+                     [kind](const StudyKindDefinition& d) { return d.kind == kind; });
+    if (found == std::end(study_kinds))
+        throw std::logic_error("a study kind without its definition");
     return *found;
 }
 
 }  // namespace
 
-std::string StudyOutcome::description() const { return definition(request.kind).describe(request); }
+std::string StudyOutcome::description() const {
+    return definition(request.kind).describe(request);
+}
 
-std::string StudyOutcome::csv() const { return definition(request.kind).csv(*this); }
+std::string StudyOutcome::csv() const {
+    return definition(request.kind).csv(*this);
+}
 
 StudyOutcome run_study(const StudyRequest& request, const nlohmann::ordered_json& document,
                        const Design& design, const std::filesystem::path& base_directory,
@@ -117,7 +125,8 @@ StudyOutcome run_study(const StudyRequest& request, const nlohmann::ordered_json
     StudyOutcome outcome;
     outcome.request = request;
     outcome.design = design;
-    definition(request.kind).run({request, document, design, base_directory, threads, progress}, outcome);
+    definition(request.kind)
+        .run({request, document, design, base_directory, threads, progress}, outcome);
     outcome.seconds =
         std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
     return outcome;

@@ -13,25 +13,32 @@ namespace {
 
 /// A text field, quoted when it holds a comma, a quote or a line break (RFC 4180).
 std::string field(const std::string& text) {
-    if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
+    if (text.find_first_of(",\"\r\n") == std::string::npos)
+        return text;
     std::string quoted = "\"";
     for (const char c : text) {
-        if (c == '"') quoted += '"';
+        if (c == '"')
+            quoted += '"';
         quoted += c;
     }
     return quoted + '"';
 }
 
-std::string field(double value) { return std::isfinite(value) ? fmt::format("{:.9g}", value) : ""; }
+std::string field(double value) {
+    return std::isfinite(value) ? fmt::format("{:.9g}", value) : "";
+}
 
-std::string field(const std::optional<double>& value) { return value ? field(*value) : ""; }
+std::string field(const std::optional<double>& value) {
+    return value ? field(*value) : "";
+}
 
 /// Fields joined by commas, ended by a line break.
 class Row {
 public:
     template <class T>
     Row& operator<<(const T& value) {
-        if (m_started) m_text += ',';
+        if (m_started)
+            m_text += ',';
         m_started = true;
         m_text += field(value);
         return *this;
@@ -47,21 +54,26 @@ private:
 
 std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<SweepCase>& cases) {
     Row head;
-    for (const SweepAxis& a : axes) head << a.key;
-    for (const KeyFigureDefinition& f : key_figure_table) head << std::string(f.id);
+    for (const SweepAxis& a : axes)
+        head << a.key;
+    for (const KeyFigureDefinition& f : key_figure_table)
+        head << std::string(f.id);
     head << std::string("worst_status") << std::string("worst_check")
          << std::string("feasibility_margin") << std::string("margin_check");
     std::string out = head.line();
     for (const SweepCase& c : cases) {
         Row row;
-        for (const double v : c.inputs) row << v;
+        for (const double v : c.inputs)
+            row << v;
         if (c.results) {
-            for (const std::optional<double>& value : key_figure_values(*c.results)) row << value;
+            for (const std::optional<double>& value : key_figure_values(*c.results))
+                row << value;
             const WorstCheck worst = worst_check(*c.results);
             const FeasibilityMargin margin = feasibility_margin(*c.results);
             row << std::string(to_string(worst.status)) << worst.id << margin.margin << margin.id;
         } else {
-            for (std::size_t i = 0; i < key_figure_table.size(); ++i) row << std::optional<double>{};
+            for (std::size_t i = 0; i < key_figure_table.size(); ++i)
+                row << std::optional<double>{};
             row << std::string("fail") << std::string("design") << std::optional<double>{}
                 << std::string("design");
         }
@@ -73,8 +85,10 @@ std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<Swee
 std::string campaign_csv(const DispersionCampaign& campaign) {
     Row head;
     head << std::string("case");
-    for (const DispersionDesign& d : campaign.dispersions) head << d.key;
-    for (const std::string& id : campaign.figure_ids) head << id;
+    for (const DispersionDesign& d : campaign.dispersions)
+        head << d.key;
+    for (const std::string& id : campaign.figure_ids)
+        head << id;
     for (const char* name : {"landing_latitude_deg", "landing_longitude_deg", "landing_downrange_m",
                              "landing_crossrange_m"}) {
         head << std::string(name);
@@ -96,8 +110,10 @@ std::string campaign_csv(const DispersionCampaign& campaign) {
         row << landing(&CaseLanding::latitude_deg) << landing(&CaseLanding::longitude_deg)
             << landing(&CaseLanding::downrange_m) << landing(&CaseLanding::crossrange_m);
         std::vector<std::string> failed = c.failed_checks;
-        if (!c.error.empty()) failed.emplace_back("design");
-        row << std::string(c.success ? "true" : "false") << fmt::format("{}", fmt::join(failed, ";"));
+        if (!c.error.empty())
+            failed.emplace_back("design");
+        row << std::string(c.success ? "true" : "false")
+            << fmt::format("{}", fmt::join(failed, ";"));
         out += row.line();
     }
     return out;
@@ -105,7 +121,8 @@ std::string campaign_csv(const DispersionCampaign& campaign) {
 
 std::string summary_csv(const DispersionSummary& summary) {
     Row head;
-    for (const char* name : {"figure", "unit", "count", "mean", "standard_deviation", "p01", "p50", "p99"}) {
+    for (const char* name :
+         {"figure", "unit", "count", "mean", "standard_deviation", "p01", "p50", "p99"}) {
         head << std::string(name);
     }
     std::string out = head.line();
@@ -115,7 +132,8 @@ std::string summary_csv(const DispersionSummary& summary) {
         if (f.count > 0) {
             row << f.mean << f.standard_deviation << f.p01 << f.p50 << f.p99;
         } else {
-            for (int i = 0; i < 5; ++i) row << std::optional<double>{};
+            for (int i = 0; i < 5; ++i)
+                row << std::optional<double>{};
         }
         out += row.line();
     }
@@ -125,7 +143,8 @@ std::string summary_csv(const DispersionSummary& summary) {
 std::string sensitivity_csv(const SensitivityTable& table) {
     Row head;
     head << std::string("figure");
-    for (const std::string& input : table.inputs) head << input;
+    for (const std::string& input : table.inputs)
+        head << input;
     std::string out = head.line();
     for (std::size_t f = 0; f < table.figures.size(); ++f) {
         Row row;

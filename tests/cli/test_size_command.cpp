@@ -35,8 +35,8 @@ Run run(const std::string& arguments) {
     fs::create_directories(dir);
     const fs::path out = dir / "stdout.txt";
     const fs::path err = dir / "stderr.txt";
-    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments +
-                                " >'" + out.string() + "' 2>'" + err.string() + "'";
+    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments + " >'" +
+                                out.string() + "' 2>'" + err.string() + "'";
     const int status = std::system(command.c_str());
     return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, slurp(out), slurp(err)};
 }
@@ -81,10 +81,10 @@ TEST_CASE("size --json prints a results document with the contract's keys") {
         CHECK(doc["format"] == "descent-sizer/results");
         CHECK(doc["version"] == 1);
         CHECK(doc["converged"] == true);
-        for (const char* key : {"mass_kg", "diameter_m", "drag_coefficient",
-                                "ballistic_coefficient_kg_m2", "peak_deceleration_g",
-                                "peak_heat_flux_W_cm2", "heat_load_J_cm2",
-                                "peak_dynamic_pressure_Pa"}) {
+        for (const char* key :
+             {"mass_kg", "diameter_m", "drag_coefficient", "ballistic_coefficient_kg_m2",
+              "peak_deceleration_g", "peak_heat_flux_W_cm2", "heat_load_J_cm2",
+              "peak_dynamic_pressure_Pa"}) {
             CHECK(doc["entry"].contains(key));
         }
         CHECK(doc["parachute"]["deploy_mach"].is_number());
@@ -133,7 +133,8 @@ TEST_CASE("text that is not JSON exits 2 with a line number") {
     CHECK(r.err.find("line 3") != std::string::npos);
 }
 
-TEST_CASE("a design that hits the ground before its trigger still sizes (exit 0) and fails a check") {
+TEST_CASE(
+    "a design that hits the ground before its trigger still sizes (exit 0) and fails a check") {
     const Run r = run("size " + variant("never-deploys", [](nlohmann::json& d) {
                           d["parachute"]["deploy_mach"] = 0.2;
                       }));
@@ -156,7 +157,8 @@ TEST_CASE("sheet writes the sizing sheet as HTML, CSV and PDF by the file's exte
         CAPTURE(name);
         const fs::path out = dir / name;
         fs::remove(out);
-        const Run r = run("sheet " + sample("small-ballistic-station") + " -o '" + out.string() + "'");
+        const Run r =
+            run("sheet " + sample("small-ballistic-station") + " -o '" + out.string() + "'");
         CHECK(r.exit_code == 0);
         REQUIRE(fs::exists(out));
         const std::string text = slurp(out);
@@ -203,7 +205,8 @@ TEST_CASE("a design without an entry azimuth says it flies without rotation, and
 TEST_CASE("disperse reports the landing ellipse at the probability asked, larger for more") {
     const std::string design = sample("small-ballistic-station");
     const Run r99 = run("disperse --json --runs 40 --threads 1 " + design);
-    const Run r50 = run("disperse --json --runs 40 --threads 1 --ellipse-probability 0.5 " + design);
+    const Run r50 =
+        run("disperse --json --runs 40 --threads 1 --ellipse-probability 0.5 " + design);
     REQUIRE(r99.exit_code == 0);
     REQUIRE(r50.exit_code == 0);
     const nlohmann::json e99 = nlohmann::json::parse(r99.out)["summary"]["landing_ellipse"];

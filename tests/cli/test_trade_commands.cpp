@@ -42,8 +42,8 @@ fs::path scratch() {
 Run run(const std::string& arguments) {
     const fs::path out = scratch() / "stdout.txt";
     const fs::path err = scratch() / "stderr.txt";
-    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments +
-                                " >'" + out.string() + "' 2>'" + err.string() + "'";
+    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments + " >'" +
+                                out.string() + "' 2>'" + err.string() + "'";
     const int status = std::system(command.c_str());
     return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, slurp(out), slurp(err)};
 }
@@ -98,24 +98,26 @@ void checkSame(const Json& a, const Json& b, const char* what) {
 
 }  // namespace
 
-TEST_CASE("sweep: each case of a line is the size command's result for the design with that value") {
-    const Json rows = Json::parse(output(
-        "sweep " + sample("small-ballistic-station") +
-        " --vary entry.flight_path_angle_deg=-15:-11:3 --json --threads 2"))["rows"];
+TEST_CASE(
+    "sweep: each case of a line is the size command's result for the design with that value") {
+    const Json rows = Json::parse(
+        output("sweep " + sample("small-ballistic-station") +
+               " --vary entry.flight_path_angle_deg=-15:-11:3 --json --threads 2"))["rows"];
     REQUIRE(rows.size() == 3);
     const double angles[] = {-15.0, -13.0, -11.0};
     for (std::size_t i = 0; i < 3; ++i) {
         CAPTURE(angles[i]);
         CHECK(rows[i]["inputs"]["entry.flight_path_angle_deg"].get<double>() == angles[i]);
-        const Json sized = Json::parse(output(
-            "size --json " + variant("small-ballistic-station", "angle" + std::to_string(i),
-                                     [&](Json& d) { d["entry"]["flight_path_angle_deg"] = angles[i]; })));
+        const Json sized = Json::parse(
+            output("size --json " +
+                   variant("small-ballistic-station", "angle" + std::to_string(i),
+                           [&](Json& d) { d["entry"]["flight_path_angle_deg"] = angles[i]; })));
         checkSame(rows[i]["entry"]["peak_deceleration_g"], sized["entry"]["peak_deceleration_g"],
                   "peak deceleration");
         checkSame(rows[i]["entry"]["peak_heat_flux_W_cm2"], sized["entry"]["peak_heat_flux_W_cm2"],
                   "peak heat flux");
-        checkSame(rows[i]["parachute"]["deploy_altitude_m"], sized["parachute"]["deploy_altitude_m"],
-                  "deploy altitude");
+        checkSame(rows[i]["parachute"]["deploy_altitude_m"],
+                  sized["parachute"]["deploy_altitude_m"], "deploy altitude");
         checkSame(rows[i]["mass"]["landed_kg"], sized["mass"]["landed_kg"], "landed mass");
         checkSame(rows[i]["capability"]["max_site_elevation_m"],
                   sized["capability"]["max_site_elevation_m"], "highest site");
@@ -128,7 +130,8 @@ TEST_CASE("sweep: each case of a line is the size command's result for the desig
           rows[2]["entry"]["peak_deceleration_g"].get<double>());
 }
 
-TEST_CASE("sweep: two --vary make a grid, the first key slowest, in the table, the JSON and the CSV") {
+TEST_CASE(
+    "sweep: two --vary make a grid, the first key slowest, in the table, the JSON and the CSV") {
     const std::string args = "sweep " + sample("earth-return-capsule") +
                              " --vary entry.velocity_m_s=11000:12000:2"
                              " --vary entry.flight_path_angle_deg=-9:-7:3 --threads 2";
@@ -151,7 +154,8 @@ TEST_CASE("sweep: two --vary make a grid, the first key slowest, in the table, t
     int lines = 0;
     while (std::getline(csv, line)) {
         ++lines;
-        if (lines == 4) CHECK(line.rfind("12000,-9,", 0) == 0);
+        if (lines == 4)
+            CHECK(line.rfind("12000,-9,", 0) == 0);
     }
     CHECK(lines == 6);
 
@@ -159,11 +163,13 @@ TEST_CASE("sweep: two --vary make a grid, the first key slowest, in the table, t
     std::getline(table, line);
     CHECK(line.find("peak_decelerat") != std::string::npos);
     lines = 0;
-    while (std::getline(table, line)) ++lines;
+    while (std::getline(table, line))
+        ++lines;
     CHECK(lines == 6);
 }
 
-TEST_CASE("disperse: the same seed gives the same numbers whatever the threads; another seed does not") {
+TEST_CASE(
+    "disperse: the same seed gives the same numbers whatever the threads; another seed does not") {
     const std::string args = "disperse " + sample("earth-return-capsule") + " --runs 40 --json";
     const Json one = Json::parse(output(args + " --seed 7 --threads 1"));
     const Json two = Json::parse(output(args + " --seed 7 --threads 2"));
@@ -177,7 +183,8 @@ TEST_CASE("disperse: the same seed gives the same numbers whatever the threads; 
     // 40 draws put the sample mean within 4 standard errors, 4 * 0.5 / sqrt(40) = 0.32 kg.
     const Json& mass = one["summary"]["figures"]["entry_mass"];
     CHECK(mass["count"] == 40);
-    const Json design = Json::parse(slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/earth-return-capsule.json"));
+    const Json design =
+        Json::parse(slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/earth-return-capsule.json"));
     CHECK(std::abs(mass["mean"].get<double>() - design["mass"]["entry_kg"].get<double>()) < 0.32);
     const double p = one["summary"]["success_probability"].get<double>();
     CHECK(p >= 0.0);
@@ -185,7 +192,8 @@ TEST_CASE("disperse: the same seed gives the same numbers whatever the threads; 
 }
 
 TEST_CASE("disperse --shard and merge: the shards merged are the one run, case for case") {
-    const std::string args = "disperse " + sample("small-ballistic-station") + " --runs 30 --seed 7 --threads 2";
+    const std::string args =
+        "disperse " + sample("small-ballistic-station") + " --runs 30 --seed 7 --threads 2";
     const Json whole = Json::parse(output(args + " --json"));
     const std::string first = saved("shard0.json", output(args + " --shard 0/2 --json"));
     const std::string second = saved("shard1.json", output(args + " --shard 1/2 --json"));
@@ -200,7 +208,8 @@ TEST_CASE("disperse --shard and merge: the shards merged are the one run, case f
 }
 
 TEST_CASE("disperse --csv: a row per case with its draws and key figures") {
-    std::istringstream csv(output("disperse " + sample("lifting-rover-carrier") + " --runs 12 --seed 3 --csv"));
+    std::istringstream csv(
+        output("disperse " + sample("lifting-rover-carrier") + " --runs 12 --seed 3 --csv"));
     std::string line;
     std::getline(csv, line);
     CHECK(line.rfind("case,entry.flight_path_angle_deg,entry.velocity_m_s,", 0) == 0);
@@ -215,9 +224,10 @@ TEST_CASE("disperse --csv: a row per case with its draws and key figures") {
 }
 
 TEST_CASE("sensitivity: signs and sizes of known dependences") {
-    const Json table = Json::parse(output(
-        "sensitivity " + sample("small-ballistic-station") +
-        " --inputs entry.flight_path_angle_deg,mass.entry_kg,aeroshell.diameter_m --json --threads 2"));
+    const Json table = Json::parse(
+        output("sensitivity " + sample("small-ballistic-station") +
+               " --inputs entry.flight_path_angle_deg,mass.entry_kg,aeroshell.diameter_m --json "
+               "--threads 2"));
     const auto at = [&](const std::string& figure, const std::string& input) {
         const auto& figures = table["figures"];
         const auto& inputs = table["inputs"];
@@ -225,7 +235,8 @@ TEST_CASE("sensitivity: signs and sizes of known dependences") {
         const auto i = std::find(inputs.begin(), inputs.end(), input) - inputs.begin();
         REQUIRE(f < static_cast<long>(figures.size()));
         REQUIRE(i < static_cast<long>(inputs.size()));
-        return table["normalized"][static_cast<std::size_t>(f)][static_cast<std::size_t>(i)].get<double>();
+        return table["normalized"][static_cast<std::size_t>(f)][static_cast<std::size_t>(i)]
+            .get<double>();
     };
     CHECK(table["relative_step"] == 1e-3);
     // The entry mass is the input itself: d ln m / d ln m = 1 (exact, to the differences' 1e-6).
@@ -234,7 +245,8 @@ TEST_CASE("sensitivity: signs and sizes of known dependences") {
     // beta = m / (Cd pi D^2 / 4): +1 in the mass exactly; about -2 in the diameter, less the
     // drag coefficient's own change with the nose radius over the diameter.
     CHECK(at("ballistic_coefficient", "mass.entry_kg") == doctest::Approx(1.0).epsilon(1e-6));
-    CHECK(at("ballistic_coefficient", "aeroshell.diameter_m") == doctest::Approx(-2.0).epsilon(0.01));
+    CHECK(at("ballistic_coefficient", "aeroshell.diameter_m") ==
+          doctest::Approx(-2.0).epsilon(0.01));
     // A steeper entry (a more negative angle) raises the peak deceleration: d ln a / d ln gamma
     // is positive, gamma being negative (Allen and Eggers, NACA Report 1381: a ~ sin|gamma|).
     CHECK(at("peak_deceleration", "entry.flight_path_angle_deg") > 0.5);
@@ -255,16 +267,19 @@ TEST_CASE("sensitivity: the text ranks the inputs per figure and the CSV has a r
     std::getline(csv, line);
     CHECK(line.rfind("entry_mass,1,", 0) == 0);
     int rows = 1;
-    while (std::getline(csv, line)) ++rows;
+    while (std::getline(csv, line))
+        ++rows;
     CHECK(rows == 15);  // the key figures
 }
 
 TEST_CASE("trade commands: a bad range or shard exits 1 and says what was expected") {
-    const Run noCount = run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2");
+    const Run noCount =
+        run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2");
     CHECK(noCount.exit_code == 1);
     CHECK(noCount.err.find("expected KEY=FROM:TO:N") != std::string::npos);
     CHECK(noCount.out.empty());
-    const Run zero = run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2:0");
+    const Run zero =
+        run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2:0");
     CHECK(zero.exit_code == 1);
     CHECK(zero.err.find("N at least 1") != std::string::npos);
     const Run noKey = run("sweep " + sample("small-ballistic-station") + " --vary 5600");
@@ -289,27 +304,30 @@ TEST_CASE("trade commands: a bad key is named, by the refused cases or with exit
         CHECK(row["worst_status"] == "fail");
     }
     // A dispersion of a key that is not a number of the design stops the campaign.
-    const Run dispersed = run("disperse " + variant("small-ballistic-station", "bad-dispersion", [](Json& d) {
-                                  d["dispersions"] = Json::array(
-                                      {{{"key", "entry.colour"}, {"distribution", "normal"}, {"sigma", 1.0}}});
-                              }) + " --runs 5");
+    const Run dispersed = run(
+        "disperse " +
+        variant("small-ballistic-station", "bad-dispersion",
+                [](Json& d) {
+                    d["dispersions"] = Json::array(
+                        {{{"key", "entry.colour"}, {"distribution", "normal"}, {"sigma", 1.0}}});
+                }) +
+        " --runs 5");
     CHECK(dispersed.exit_code == 2);
     CHECK(dispersed.err.find("entry.colour is not a number of the design") != std::string::npos);
     // A design the reader refuses is refused by every study, naming the key.
-    const std::string refused = variant("small-ballistic-station", "refused", [](Json& d) {
-        d["entry"]["velocity_m_s"] = -5600;
-    });
-    for (const std::string& command : {"sweep " + refused + " --vary entry.flight_path_angle_deg=-14:-12:2",
-                                      "disperse " + refused, "sensitivity " + refused}) {
+    const std::string refused = variant("small-ballistic-station", "refused",
+                                        [](Json& d) { d["entry"]["velocity_m_s"] = -5600; });
+    for (const std::string& command :
+         {"sweep " + refused + " --vary entry.flight_path_angle_deg=-14:-12:2",
+          "disperse " + refused, "sensitivity " + refused}) {
         CAPTURE(command);
         const Run r = run(command);
         CHECK(r.exit_code == 2);
         CHECK(r.err.find("entry.velocity_m_s") != std::string::npos);
         CHECK(r.out.empty());
     }
-    const Run none = run("disperse " + variant("small-ballistic-station", "no-dispersions", [](Json& d) {
-                             d.erase("dispersions");
-                         }));
+    const Run none = run("disperse " + variant("small-ballistic-station", "no-dispersions",
+                                               [](Json& d) { d.erase("dispersions"); }));
     CHECK(none.exit_code == 1);
     CHECK(none.err.find("the design has no \"dispersions\"") != std::string::npos);
 }

@@ -50,9 +50,9 @@ private slots:
         QVERIFY2(document.open(sample, &error), qPrintable(error));
         DesignForm form(&document);
         int fields = 0;
-        for (const std::string_view section : {"site", "atmosphere", "entry", "aeroshell", "mass",
-                                               "decelerator", "parachute", "sequence", "terminal",
-                                               "limits"}) {
+        for (const std::string_view section :
+             {"site", "atmosphere", "entry", "aeroshell", "mass", "decelerator", "parachute",
+              "sequence", "terminal", "limits"}) {
             for (const KeyRow* key : keys_of(section)) {
                 if (key->kind != KeyKind::number && key->kind != KeyKind::number_or_request)
                     continue;
@@ -204,7 +204,8 @@ private slots:
 
         QVERIFY(shown(form, "/sequence/heat_shield_jettison_delay_s"));  // its default applies
         shape(form, "/sequence#heat-shield jettison rule")->setCurrentIndex(1);
-        QCOMPARE(document.value("/sequence/heat_shield_jettison_dynamic_pressure_Pa").get<double>(), 100.0);
+        QCOMPARE(document.value("/sequence/heat_shield_jettison_dynamic_pressure_Pa").get<double>(),
+                 100.0);
         QVERIFY(!shown(form, "/sequence/heat_shield_jettison_delay_s"));
         shape(form, "/sequence#heat-shield jettison rule")->setCurrentIndex(0);
         QVERIFY(document.value("/sequence/heat_shield_jettison_dynamic_pressure_Pa").is_null());

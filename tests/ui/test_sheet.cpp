@@ -130,7 +130,8 @@ private slots:
         const QString caution = QString::fromStdString(std::string(conceptual_caution));
         QVERIFY(caution.startsWith(QStringLiteral("Conceptual sizing estimates")));
         QCOMPARE(countOf(html, caution.toHtmlEscaped()), 1);
-        QVERIFY(html.contains(QStringLiteral("<p class=\"caution\">%1</p>").arg(caution.toHtmlEscaped())));
+        QVERIFY(html.contains(
+            QStringLiteral("<p class=\"caution\">%1</p>").arg(caution.toHtmlEscaped())));
         for (const std::string& note : m_results.notes)
             QVERIFY(html.contains(QString::fromStdString(note).toHtmlEscaped()));
         for (const Check& check : m_results.checks)

@@ -7,25 +7,25 @@
 #include <QChart>
 #include <QChartView>
 #include <QComboBox>
-#include <QLineEdit>
 #include <QElapsedTimer>
 #include <QFile>
 #include <QImage>
+#include <QLineEdit>
 #include <QLineSeries>
 #include <QPushButton>
 #include <QScatterSeries>
 #include <QSignalSpy>
 #include <QTabWidget>
 #include <QTableWidget>
-#include <QUndoStack>
 #include <QTemporaryDir>
 #include <QTest>
+#include <QUndoStack>
 
 #include "design/reader.hpp"
-#include "results/key_figures.hpp"
 #include "main_window.hpp"
 #include "model/design_document.hpp"
 #include "model/trade_runner.hpp"
+#include "results/key_figures.hpp"
 #include "trade/contour.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/dispersion.hpp"
@@ -48,7 +48,8 @@ bool waitForStudy(TradeView* view) {
 /// (to look at the plots as a user would; nothing is asserted of the files).
 void keepScreenshot(MainWindow& window, const QString& name) {
     const QByteArray folder = qgetenv("DESCENT_SIZER_SCREENSHOTS");
-    if (folder.isEmpty()) return;
+    if (folder.isEmpty())
+        return;
     window.resize(1500, 950);
     window.findChild<QTabWidget*>()->setCurrentWidget(window.trades());
     window.show();
@@ -59,7 +60,8 @@ void keepScreenshot(MainWindow& window, const QString& name) {
 int pointsIn(const QChart* chart, const QString& seriesName) {
     for (QAbstractSeries* s : chart->series()) {
         if (s->name() == seriesName) {
-            if (auto* xy = qobject_cast<QXYSeries*>(s)) return static_cast<int>(xy->count());
+            if (auto* xy = qobject_cast<QXYSeries*>(s))
+                return static_cast<int>(xy->count());
         }
     }
     return -1;
@@ -76,13 +78,15 @@ private slots:
         const auto keys = window.trades()->findChildren<QComboBox*>();
         QStringList shown;
         for (QComboBox* box : keys) {
-            if (box->isEditable()) shown << box->currentText();
+            if (box->isEditable())
+                shown << box->currentText();
         }
         QCOMPARE(shown, QStringList({"aeroshell.diameter_m", "entry.flight_path_angle_deg"}));
         // The small station's 2.6 m, less and more a fifth.
         QStringList ranges;
         for (QLineEdit* edit : window.trades()->findChildren<QLineEdit*>()) {
-            if (!qobject_cast<QComboBox*>(edit->parent())) ranges << edit->text();
+            if (!qobject_cast<QComboBox*>(edit->parent()))
+                ranges << edit->text();
         }
         QVERIFY(ranges.contains("2.08"));
         QVERIFY(ranges.contains("3.12"));
@@ -130,14 +134,18 @@ private slots:
         for (const SweepCase& c : outcome->sweep) {
             const auto m = feasibility_margin(*c.results).margin;
             margins.push_back(m ? *m : std::nan(""));
-            if (m && *m >= 0.0) ++feasible;
-            if (!m || *m < 0.0) ++infeasible;
+            if (m && *m >= 0.0)
+                ++feasible;
+            if (!m || *m < 0.0)
+                ++infeasible;
         }
         QVERIFY(feasible > 0);
         QVERIFY(infeasible > 0);
         std::vector<double> x, y;
-        for (int i = 0; i < 10; ++i) x.push_back(outcome->request.axes[0].value(i));
-        for (int j = 0; j < 9; ++j) y.push_back(outcome->request.axes[1].value(j));
+        for (int i = 0; i < 10; ++i)
+            x.push_back(outcome->request.axes[0].value(i));
+        for (int j = 0; j < 9; ++j)
+            y.push_back(outcome->request.axes[1].value(j));
         QVERIFY(!zero_contour(x, y, margins).empty());
 
         // The picture: some cells green (feasible), some red (not), and black boundary ink.
@@ -149,9 +157,12 @@ private slots:
         for (int py = 40; py < 440; py += 4) {
             for (int px = 80; px < 750; px += 4) {
                 const QColor c = map.pixelColor(px, py);
-                if (c.green() > c.red() + 20) ++green;
-                if (c.red() > c.green() + 20) ++red;
-                if (c.red() < 40 && c.green() < 40 && c.blue() < 40) ++black;
+                if (c.green() > c.red() + 20)
+                    ++green;
+                if (c.red() > c.green() + 20)
+                    ++red;
+                if (c.red() < 40 && c.green() < 40 && c.blue() < 40)
+                    ++black;
             }
         }
         QVERIFY(green > 50);
@@ -177,20 +188,22 @@ private slots:
         settings.runs = 300;
         settings.seed = 11;
         settings.threads = 1;
-        auto [campaign, error] =
-            run_dispersions(*read.design, std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), settings);
+        auto [campaign, error] = run_dispersions(
+            *read.design, std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), settings);
         QVERIFY(campaign);
         const DispersionSummary direct = summarize(*campaign);
         QCOMPARE(outcome->summary.successes, direct.successes);
         for (std::size_t f = 0; f < direct.figures.size(); ++f) {
-            QCOMPARE(outcome->summary.figures[f].mean, direct.figures[f].mean);  // to the last digit
+            QCOMPARE(outcome->summary.figures[f].mean,
+                     direct.figures[f].mean);  // to the last digit
             QCOMPARE(outcome->summary.figures[f].p99, direct.figures[f].p99);
         }
         // The deploy scatter holds every case that deployed, split by success.
         std::unique_ptr<QChart> scatter(deployScatterChart(*outcome));
         int deployed = 0;
         const std::size_t deployMach = *key_figure_index("deploy_mach");
-        for (const DispersedCase& c : outcome->campaign->cases) deployed += c.figures[deployMach].has_value();
+        for (const DispersedCase& c : outcome->campaign->cases)
+            deployed += c.figures[deployMach].has_value();
         const int shown = std::max(0, pointsIn(scatter.get(), "succeeded")) +
                           std::max(0, pointsIn(scatter.get(), "a check failed"));
         QCOMPARE(shown, deployed);
@@ -222,7 +235,8 @@ private slots:
 
         QPushButton* add = nullptr;
         for (QPushButton* b : editor->findChildren<QPushButton*>()) {
-            if (b->text() == "Add") add = b;
+            if (b->text() == "Add")
+                add = b;
         }
         QVERIFY(add);
         add->click();
@@ -262,10 +276,12 @@ private slots:
         QVERIFY(waitForStudy(trades));
         const SensitivityTable& table = *trades->currentOutcome()->sensitivities;
         const auto input = std::find(table.inputs.begin(), table.inputs.end(), "mass.entry_kg");
-        const auto figure = std::find(table.figures.begin(), table.figures.end(), "ballistic_coefficient");
+        const auto figure =
+            std::find(table.figures.begin(), table.figures.end(), "ballistic_coefficient");
         QVERIFY(input != table.inputs.end() && figure != table.figures.end());
         // beta = m / (Cd A), Cd and A independent of the mass: d ln beta / d ln m = +1 exactly.
-        const double s = table.normalized(figure - table.figures.begin(), input - table.inputs.begin());
+        const double s =
+            table.normalized(figure - table.figures.begin(), input - table.inputs.begin());
         QVERIFY2(std::abs(s - 1.0) < 1e-6, qPrintable(QString::number(s, 'g', 12)));
         // The whole matrix is the core's, to the last digit (NaN where undefined).
         std::ifstream in(sample.toStdString());

@@ -27,7 +27,8 @@ const QString sample = QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/small-ballisti
 QString figure(const MainWindow& window, const QString& id) {
     const FiguresView* view = window.figures();
     for (int row = 0; row < view->rowCount(); ++row) {
-        if (view->item(row, 0)->data(Qt::UserRole).toString() == id) return view->item(row, 1)->text();
+        if (view->item(row, 0)->data(Qt::UserRole).toString() == id)
+            return view->item(row, 1)->text();
     }
     return {};
 }
@@ -35,7 +36,8 @@ QString figure(const MainWindow& window, const QString& id) {
 QString change(const MainWindow& window, const QString& id) {
     const FiguresView* view = window.figures();
     for (int row = 0; row < view->rowCount(); ++row) {
-        if (view->item(row, 0)->data(Qt::UserRole).toString() == id) return view->item(row, 3)->text();
+        if (view->item(row, 0)->data(Qt::UserRole).toString() == id)
+            return view->item(row, 3)->text();
     }
     return {};
 }

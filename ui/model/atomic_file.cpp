@@ -8,15 +8,18 @@ bool writeFileAtomically(const QString& path, const std::function<bool(QIODevice
                          QString* error) {
     QSaveFile file(path);
     const auto failed = [&] {
-        if (error) *error = QStringLiteral("cannot write '%1': %2").arg(path, file.errorString());
+        if (error)
+            *error = QStringLiteral("cannot write '%1': %2").arg(path, file.errorString());
         return false;
     };
-    if (!file.open(QIODevice::WriteOnly)) return failed();
+    if (!file.open(QIODevice::WriteOnly))
+        return failed();
     if (!write(file)) {
         file.cancelWriting();
         return failed();
     }
-    if (!file.commit()) return failed();
+    if (!file.commit())
+        return failed();
     return true;
 }
 

@@ -7,7 +7,6 @@
 #include <QUndoCommand>
 #include <QUndoStack>
 
-
 namespace ds {
 
 /// One edit: the values it set, and what they were before.
@@ -44,7 +43,9 @@ DesignDocument::Json DesignDocument::value(const std::string& pointer) const {
     return m_json.contains(p) ? m_json.at(p) : Json();
 }
 
-bool DesignDocument::isModified() const { return !m_undo->isClean(); }
+bool DesignDocument::isModified() const {
+    return !m_undo->isClean();
+}
 
 void DesignDocument::reset(Json json, const QString& filePath) {
     m_json = std::move(json);
@@ -72,7 +73,8 @@ bool DesignDocument::open(const QString& path, QString* error) {
         json = Json::parse(bytes.constData(), bytes.constData() + bytes.size());
     } catch (const Json::parse_error&) {
         // The reader words the message with line and column.
-        const DesignReadResult read = read_design(std::string_view(bytes.constData(), bytes.size()));
+        const DesignReadResult read =
+            read_design(std::string_view(bytes.constData(), bytes.size()));
         *error = tr("%1 is not a design document:\n%2")
                      .arg(path, read.errors.empty()
                                     ? QString()
@@ -107,10 +109,12 @@ bool DesignDocument::saveAs(const QString& path, QString* error) {
     // commit: a failure at any step (no such folder, no permission, a full disk) leaves the old
     // file whole.
     QSaveFile file(path);
-    if (!file.open(QIODevice::WriteOnly)) return failed(file);
+    if (!file.open(QIODevice::WriteOnly))
+        return failed(file);
     const std::string text = m_json.dump(2) + "\n";
     file.write(text.data(), static_cast<qint64>(text.size()));
-    if (!file.commit()) return failed(file);
+    if (!file.commit())
+        return failed(file);
     const bool renamed = QFileInfo(path).absoluteFilePath() != m_filePath;
     m_filePath = QFileInfo(path).absoluteFilePath();
     m_undo->setClean();
@@ -136,7 +140,8 @@ void DesignDocument::apply(const std::vector<std::pair<std::string, Json>>& valu
     for (const auto& [pointer, value] : values) {
         const Json::json_pointer p(pointer);
         if (value.is_null()) {
-            if (m_json.contains(p)) m_json.at(p.parent_pointer()).erase(p.back());
+            if (m_json.contains(p))
+                m_json.at(p.parent_pointer()).erase(p.back());
         } else {
             m_json[p] = value;
         }
@@ -146,8 +151,9 @@ void DesignDocument::apply(const std::vector<std::pair<std::string, Json>>& valu
 }
 
 std::filesystem::path DesignDocument::baseDirectory() const {
-    return m_filePath.isEmpty() ? std::filesystem::path()
-                                : std::filesystem::path(QFileInfo(m_filePath).absolutePath().toStdString());
+    return m_filePath.isEmpty()
+               ? std::filesystem::path()
+               : std::filesystem::path(QFileInfo(m_filePath).absolutePath().toStdString());
 }
 
 void DesignDocument::reread() {

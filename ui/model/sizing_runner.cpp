@@ -26,11 +26,13 @@ void SizingRunner::request(const Design& design) {
     m_pending = design;
     m_pendingSince = m_clock.elapsed();
     m_debounce.start();
-    if (!wasBusy) emit busyChanged(true);
+    if (!wasBusy)
+        emit busyChanged(true);
 }
 
 void SizingRunner::startPending() {
-    if (!m_pending || m_watcher.isRunning()) return;  // finished() starts it next
+    if (!m_pending || m_watcher.isRunning())
+        return;  // finished() starts it next
     m_running = std::move(m_pending);
     m_pending.reset();
     m_runningSince = m_pendingSince;
@@ -45,8 +47,10 @@ void SizingRunner::finished() {
         emit resultsReady();
     }
     m_running.reset();
-    if (m_pending && !m_debounce.isActive()) startPending();
-    if (!isBusy()) emit busyChanged(false);
+    if (m_pending && !m_debounce.isActive())
+        startPending();
+    if (!isBusy())
+        emit busyChanged(false);
 }
 
 }  // namespace ds

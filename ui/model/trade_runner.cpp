@@ -33,7 +33,8 @@ TradeRunner::TradeRunner(QObject* parent) : QObject(parent) {
 }
 
 TradeRunner::~TradeRunner() {
-    if (m_progress) m_progress->cancel();
+    if (m_progress)
+        m_progress->cancel();
     m_watcher.waitForFinished();
 }
 
@@ -44,8 +45,8 @@ void TradeRunner::start(const StudyRequest& request, const nlohmann::ordered_jso
     m_running = true;
     // The worker owns copies of everything it reads, so the window may edit, cancel and start
     // again while it finishes.
-    m_watcher.setFuture(QtConcurrent::run(
-        [request, document, design, baseDirectory, progress = m_progress] {
+    m_watcher.setFuture(
+        QtConcurrent::run([request, document, design, baseDirectory, progress = m_progress] {
             return run_study(request, document, design, baseDirectory, 0, *progress);
         }));
     m_poll.start();
@@ -53,7 +54,8 @@ void TradeRunner::start(const StudyRequest& request, const nlohmann::ordered_jso
 }
 
 void TradeRunner::cancel() {
-    if (!m_running) return;
+    if (!m_running)
+        return;
     m_progress->cancel();
     m_running = false;
     m_poll.stop();
@@ -61,11 +63,13 @@ void TradeRunner::cancel() {
 }
 
 void TradeRunner::poll() {
-    if (m_running) emit progressed(m_progress->fraction());
+    if (m_running)
+        emit progressed(m_progress->fraction());
 }
 
 void TradeRunner::done() {
-    if (!m_running) return;  // a cancelled study: its results are dropped
+    if (!m_running)
+        return;  // a cancelled study: its results are dropped
     m_running = false;
     m_poll.stop();
     m_outcome = m_watcher.result();

@@ -17,8 +17,9 @@ QString sweepTable(const StudyOutcome& trade, const std::string& figureId) {
     QStringList headings;
     for (const SweepAxis& axis : trade.request.axes)
         headings << QString::fromStdString(axis.key);
-    headings << QStringLiteral("%1 (%2)").arg(QString::fromUtf8(shown.label.data(), static_cast<int>(shown.label.size())),
-                                              QString::fromUtf8(shown.unit.data(), static_cast<int>(shown.unit.size())))
+    headings << QStringLiteral("%1 (%2)").arg(
+                    QString::fromUtf8(shown.label.data(), static_cast<int>(shown.label.size())),
+                    QString::fromUtf8(shown.unit.data(), static_cast<int>(shown.unit.size())))
              << QStringLiteral("worst check") << QStringLiteral("feasibility margin (%)");
     HtmlTable table(headings);
     for (const SweepCase& c : trade.sweep) {
@@ -27,8 +28,9 @@ QString sweepTable(const StudyOutcome& trade, const std::string& figureId) {
             cells.push_back({formatValue(v), numberCell});
         if (!c.results) {
             cells.push_back({QStringLiteral("—"), numberCell});
-            cells.push_back({QStringLiteral("cannot be read: %1").arg(QString::fromStdString(c.error)),
-                             QStringLiteral("fail")});
+            cells.push_back(
+                {QStringLiteral("cannot be read: %1").arg(QString::fromStdString(c.error)),
+                 QStringLiteral("fail")});
             cells.push_back({QStringLiteral("—"), numberCell});
         } else {
             const std::optional<double> value = shown.value(*c.results);
@@ -37,11 +39,13 @@ QString sweepTable(const StudyOutcome& trade, const std::string& figureId) {
             const QString status = QString::fromUtf8(to_string(worst.status));
             cells.push_back({formatFixed(value, shown.decimals), numberCell});
             cells.push_back({worst.id.empty() ? status
-                                              : QStringLiteral("%1: %2").arg(status, QString::fromStdString(worst.id)),
+                                              : QStringLiteral("%1: %2").arg(
+                                                    status, QString::fromStdString(worst.id)),
                              status});
-            cells.push_back({margin.margin ? QString::number(*margin.margin * 100.0, 'f', 1)
-                                           : QStringLiteral("none (%1)").arg(QString::fromStdString(margin.id)),
-                             numberCell});
+            cells.push_back(
+                {margin.margin ? QString::number(*margin.margin * 100.0, 'f', 1)
+                               : QStringLiteral("none (%1)").arg(QString::fromStdString(margin.id)),
+                 numberCell});
         }
         table.addRow(cells);
     }
@@ -54,11 +58,14 @@ QString dispersionTables(const StudyOutcome& trade) {
     QStringList dispersed;
     for (const DispersionDesign& d : trade.design.dispersions) {
         dispersed << (d.distribution == DistributionKind::normal
-                          ? QStringLiteral("%1: normal, sigma %2").arg(QString::fromStdString(d.key), formatValue(d.sigma))
+                          ? QStringLiteral("%1: normal, sigma %2")
+                                .arg(QString::fromStdString(d.key), formatValue(d.sigma))
                           : QStringLiteral("%1: uniform, %2 to %3")
-                                .arg(QString::fromStdString(d.key), formatValue(d.min), formatValue(d.max)));
+                                .arg(QString::fromStdString(d.key), formatValue(d.min),
+                                     formatValue(d.max)));
     }
-    body += paragraph(QStringLiteral("Dispersed inputs: %1.").arg(dispersed.join(QStringLiteral("; "))));
+    body += paragraph(
+        QStringLiteral("Dispersed inputs: %1.").arg(dispersed.join(QStringLiteral("; "))));
     HtmlTable table({QStringLiteral("figure"), QStringLiteral("unit"), QStringLiteral("cases"),
                      QStringLiteral("mean"), QStringLiteral("std dev"), QStringLiteral("1st pct"),
                      QStringLiteral("median"), QStringLiteral("99th pct")});
@@ -76,12 +83,15 @@ QString dispersionTables(const StudyOutcome& trade) {
     }
     body += table.html();
     if (!s.failing_checks.empty()) {
-        HtmlTable failing({QStringLiteral("failing check"), QStringLiteral("cases"), QStringLiteral("share (%)")});
+        HtmlTable failing({QStringLiteral("failing check"), QStringLiteral("cases"),
+                           QStringLiteral("share (%)")});
         for (const auto& [id, count] : s.failing_checks) {
-            failing.addRow({{QString::fromStdString(id), keyCell},
-                            {QString::number(count), numberCell},
-                            {QString::number(100.0 * static_cast<double>(count) / static_cast<double>(s.runs), 'f', 2),
-                             numberCell}});
+            failing.addRow(
+                {{QString::fromStdString(id), keyCell},
+                 {QString::number(count), numberCell},
+                 {QString::number(100.0 * static_cast<double>(count) / static_cast<double>(s.runs),
+                                  'f', 2),
+                  numberCell}});
         }
         body += failing.html();
     }
@@ -91,12 +101,14 @@ QString dispersionTables(const StudyOutcome& trade) {
 QString sensitivityTable(const StudyOutcome& trade) {
     constexpr std::size_t drivers = 3;
     const SensitivityTable& table = *trade.sensitivities;
-    HtmlTable html({QStringLiteral("figure"), QStringLiteral("strongest drivers, d ln(figure) / d ln(input)")});
+    HtmlTable html({QStringLiteral("figure"),
+                    QStringLiteral("strongest drivers, d ln(figure) / d ln(input)")});
     for (std::size_t f = 0; f < table.figures.size(); ++f) {
         const auto ranked = table.ranked(f);
         QStringList text;
         for (std::size_t k = 0; k < ranked.size() && k < drivers; ++k)
-            text << QStringLiteral("%1 %2").arg(QString::fromStdString(ranked[k].first))
+            text << QStringLiteral("%1 %2")
+                        .arg(QString::fromStdString(ranked[k].first))
                         .arg(ranked[k].second, 0, 'f', 3);
         html.addRow({{QString::fromStdString(table.figures[f]), keyCell},
                      {text.isEmpty() ? QStringLiteral("—") : text.join(QStringLiteral("; ")), {}}});
@@ -118,11 +130,16 @@ QString tradeSection(const SheetContext& context, const std::vector<SheetChart>&
         case StudyKind::sweep:
             body += trade.sweep.size() <= mostSweepRows
                         ? sweepTable(trade, context.tradeFigure)
-                        : paragraph(QStringLiteral("%1 cases: their rows are in the study's CSV export.")
-                                        .arg(trade.sweep.size()));
+                        : paragraph(
+                              QStringLiteral("%1 cases: their rows are in the study's CSV export.")
+                                  .arg(trade.sweep.size()));
             break;
-        case StudyKind::dispersions: body += dispersionTables(trade); break;
-        case StudyKind::sensitivities: body += sensitivityTable(trade); break;
+        case StudyKind::dispersions:
+            body += dispersionTables(trade);
+            break;
+        case StudyKind::sensitivities:
+            body += sensitivityTable(trade);
+            break;
     }
     return section(QStringLiteral("Trade study"), body);
 }

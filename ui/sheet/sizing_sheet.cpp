@@ -79,11 +79,12 @@ QString composeSheet(const Design& design, const Results& results, const SheetCo
 bool writePdf(QIODevice& device, const Design& design, const Results& results,
               const SheetContext& context) {
     const std::vector<SheetChart> charts = sheetCharts(design, results, context);
-    return writePagedPdf(device, QStringLiteral("Sizing sheet: %1").arg(QString::fromStdString(design.name)),
-                         QStringLiteral("Descent Sizer %1").arg(context.toolVersion),
-                         [&](const ImageSource& source, int chartWidth) {
-                             return composeSheet(design, results, context, charts, source, chartWidth);
-                         });
+    return writePagedPdf(
+        device, QStringLiteral("Sizing sheet: %1").arg(QString::fromStdString(design.name)),
+        QStringLiteral("Descent Sizer %1").arg(context.toolVersion),
+        [&](const ImageSource& source, int chartWidth) {
+            return composeSheet(design, results, context, charts, source, chartWidth);
+        });
 }
 
 }  // namespace

@@ -85,7 +85,8 @@ void attachBaselinePair(QChart* chart, const Results* baseline, const BaselineCu
                         const BaselineCurve& right, QValueAxis* timeAxis) {
     if (!baseline || baseline->history.empty())
         return;
-    attach(chart, historySeries(baseline->history, left.name, baselinePen(Qt::DashLine), left.point),
+    attach(chart,
+           historySeries(baseline->history, left.name, baselinePen(Qt::DashLine), left.point),
            timeAxis, left.axis);
     attach(chart,
            historySeries(baseline->history, right.name, baselinePen(Qt::DashDotLine), right.point),
@@ -252,7 +253,8 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
     const auto convective = [](const TrajectorySample& s) {
         return QPointF(s.time_s, s.heat_flux_W_cm2);
     };
-    attachBaselinePair(chart, baseline, {QStringLiteral("baseline deceleration"), deceleration, loadAxis},
+    attachBaselinePair(chart, baseline,
+                       {QStringLiteral("baseline deceleration"), deceleration, loadAxis},
                        {QStringLiteral("baseline heat flux"), convective, heatAxis}, timeAxis);
     attach(chart,
            historySeries(results.history, QStringLiteral("deceleration"), resultPen(primaryInk),
@@ -275,7 +277,8 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
     return std::unique_ptr<QChart>(chart);
 }
 
-std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results, const Results* baseline) {
+std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
+                                          const Results* baseline) {
     const QString title = QStringLiteral("Mach number and dynamic pressure against time");
     if (results.history.empty())
         return std::unique_ptr<QChart>(emptyChart(title));
@@ -324,7 +327,8 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         return QPointF(s.time_s, s.dynamic_pressure_Pa / pascalsPerKilopascal);
     };
     attachBaselinePair(chart, baseline, {QStringLiteral("baseline Mach"), machPoint, machAxis},
-                       {QStringLiteral("baseline pressure"), pressurePoint, pressureAxis}, timeAxis);
+                       {QStringLiteral("baseline pressure"), pressurePoint, pressureAxis},
+                       timeAxis);
     attach(chart,
            historySeries(results.history, QStringLiteral("Mach number"), resultPen(primaryInk),
                          machPoint),

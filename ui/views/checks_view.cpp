@@ -13,18 +13,24 @@ namespace {
 // Status colours: a muted red, amber and green that read on white and in print (our choice).
 QColor statusColour(CheckStatus status) {
     switch (status) {
-        case CheckStatus::fail: return QColor(0xf4, 0xc7, 0xc3);
-        case CheckStatus::marginal: return QColor(0xfc, 0xe8, 0xb2);
-        case CheckStatus::pass: return QColor(0xd9, 0xea, 0xd3);
+        case CheckStatus::fail:
+            return QColor(0xf4, 0xc7, 0xc3);
+        case CheckStatus::marginal:
+            return QColor(0xfc, 0xe8, 0xb2);
+        case CheckStatus::pass:
+            return QColor(0xd9, 0xea, 0xd3);
     }
     return {};
 }
 
 QString statusText(CheckStatus status) {
     switch (status) {
-        case CheckStatus::fail: return QObject::tr("FAIL");
-        case CheckStatus::marginal: return QObject::tr("marginal");
-        case CheckStatus::pass: return QObject::tr("pass");
+        case CheckStatus::fail:
+            return QObject::tr("FAIL");
+        case CheckStatus::marginal:
+            return QObject::tr("marginal");
+        case CheckStatus::pass:
+            return QObject::tr("pass");
     }
     return {};
 }
@@ -32,8 +38,8 @@ QString statusText(CheckStatus status) {
 }  // namespace
 
 ChecksView::ChecksView(QWidget* parent) : QTableWidget(0, 6, parent) {
-    setHorizontalHeaderLabels({tr("Status"), tr("Check"), tr("Value"), tr("Limit"), tr("Why"),
-                               tr("Limit from")});
+    setHorizontalHeaderLabels(
+        {tr("Status"), tr("Check"), tr("Value"), tr("Limit"), tr("Why"), tr("Limit from")});
     horizontalHeader()->setSectionResizeMode(4, QHeaderView::Stretch);
     verticalHeader()->setVisible(false);
     setEditTriggers(QAbstractItemView::NoEditTriggers);
@@ -44,9 +50,11 @@ ChecksView::ChecksView(QWidget* parent) : QTableWidget(0, 6, parent) {
     setColumnHidden(5, true);
     connect(this, &QTableWidget::cellActivated, this, [this](int row, int) {
         const QTableWidgetItem* id = item(row, 1);
-        if (!id) return;
+        if (!id)
+            return;
         const std::string field = fieldForCheck(id->text().toStdString());
-        if (!field.empty()) emit fieldRequested(QString::fromStdString(field));
+        if (!field.empty())
+            emit fieldRequested(QString::fromStdString(field));
     });
     connect(this, &QTableWidget::cellClicked, this, &QTableWidget::cellActivated);
 }
@@ -57,18 +65,22 @@ void ChecksView::setResults(const Results& results) {
         const Check& c = results.checks[i];
         const int row = static_cast<int>(i);
         const QString unit = c.unit.empty() ? QString() : " " + QString::fromStdString(c.unit);
-        const QStringList cells{statusText(c.status), QString::fromStdString(c.id),
+        const QStringList cells{statusText(c.status),
+                                QString::fromStdString(c.id),
                                 QString::number(c.value, 'g', 5) + unit,
                                 QString::number(c.limit, 'g', 5) + unit,
-                                QString::fromStdString(c.message), QString::fromStdString(c.source)};
+                                QString::fromStdString(c.message),
+                                QString::fromStdString(c.source)};
         for (int column = 0; column < cells.size(); ++column) {
             auto* cell = new QTableWidgetItem(cells[column]);
-            if (column == 0) cell->setBackground(QBrush(statusColour(c.status)));
+            if (column == 0)
+                cell->setBackground(QBrush(statusColour(c.status)));
             cell->setToolTip(cells[4] + "\n" + tr("Limit from: %1").arg(cells[5]));
             setItem(row, column, cell);
         }
     }
-    for (int column : {0, 1, 2, 3}) resizeColumnToContents(column);
+    for (int column : {0, 1, 2, 3})
+        resizeColumnToContents(column);
 }
 
 std::string ChecksView::fieldForCheck(const std::string& checkId) {

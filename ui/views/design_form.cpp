@@ -40,30 +40,39 @@ const std::vector<FormSection> formSections{
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Limits"), {"limits"}},
 };
 
-QString fromView(std::string_view s) { return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size())); }
+QString fromView(std::string_view s) {
+    return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size()));
+}
 
 /// The schema's words (labels, shape texts), through the translator.
 QString words(std::string_view s) {
     return QCoreApplication::translate("ds::DesignForm", std::string(s).c_str());
 }
 
-std::string pointerOf(const KeyRow& key) { return key_to_pointer(key.path()); }
+std::string pointerOf(const KeyRow& key) {
+    return key_to_pointer(key.path());
+}
 
 /// "/decelerator" for an object of the document.
-std::string pointerOf(const SectionRow& section) { return key_to_pointer(section.name); }
+std::string pointerOf(const SectionRow& section) {
+    return key_to_pointer(section.name);
+}
 
 /// The dimension of a key's unit: the one whose document unit it is.
 Dimension dimensionOfUnit(std::string_view unit) {
     for (int d = 0; d <= static_cast<int>(Dimension::force); ++d) {
-        if (siUnit(static_cast<Dimension>(d)) == unit) return static_cast<Dimension>(d);
+        if (siUnit(static_cast<Dimension>(d)) == unit)
+            return static_cast<Dimension>(d);
     }
     return Dimension::dimensionless;
 }
 
 /// The value a defaulted or optional key takes when left out, if it has one.
 std::optional<double> defaultOf(const KeyRow& key) {
-    if (key.default_value) return key.default_value;
-    if (key.need != KeyNeed::defaulted || !key.number.get) return std::nullopt;
+    if (key.default_value)
+        return key.default_value;
+    if (key.need != KeyNeed::defaulted || !key.number.get)
+        return std::nullopt;
     static const Design defaults;
     return key.number.get(defaults);
 }
@@ -88,11 +97,14 @@ QuantityRange quantityRange(const KeyRow& key) {
 
 /// What an empty field means: the schema's words, or the default with its unit.
 QString placeholderOf(const KeyRow& key) {
-    if (!key.placeholder.empty()) return words(key.placeholder);
+    if (!key.placeholder.empty())
+        return words(key.placeholder);
     const auto fallback = defaultOf(key);
-    if (!fallback) return {};
+    if (!fallback)
+        return {};
     QString shown = QString::fromStdString(formatQuantity(*fallback));
-    if (!key.unit.empty()) shown += " " + fromView(key.unit);
+    if (!key.unit.empty())
+        shown += " " + fromView(key.unit);
     return shown;
 }
 
@@ -100,7 +112,8 @@ QString placeholderOf(const KeyRow& key) {
 std::vector<const KeyRow*> membersOf(const KeyRow& first) {
     std::vector<const KeyRow*> members;
     for (const KeyRow* key : keys_of(first.section)) {
-        if (key->group == first.group) members.push_back(key);
+        if (key->group == first.group)
+            members.push_back(key);
     }
     return members;
 }
@@ -109,7 +122,8 @@ std::vector<const KeyRow*> membersOf(const KeyRow& first) {
 std::vector<const KeyRow*> requestOf(const KeyRow& key) {
     std::vector<const KeyRow*> request;
     for (const KeyRow* k : keys_of(key.section)) {
-        if (k->parent == key.key) request.push_back(k);
+        if (k->parent == key.key)
+            request.push_back(k);
     }
     return request;
 }
@@ -117,24 +131,29 @@ std::vector<const KeyRow*> requestOf(const KeyRow& key) {
 /// A choice's names in the order the form offers them: its display texts' first.
 std::vector<std::string_view> offeredNames(const KeyRow& key) {
     std::vector<std::string_view> names;
-    for (const ChoiceText& t : key.choice_texts) names.push_back(t.name);
+    for (const ChoiceText& t : key.choice_texts)
+        names.push_back(t.name);
     for (const std::string_view name : key.choices()) {
-        if (std::find(names.begin(), names.end(), name) == names.end()) names.push_back(name);
+        if (std::find(names.begin(), names.end(), name) == names.end())
+            names.push_back(name);
     }
     return names;
 }
 
 QString displayText(const KeyRow& key, std::string_view name) {
     for (const ChoiceText& t : key.choice_texts) {
-        if (t.name == name) return words(t.text);
+        if (t.name == name)
+            return words(t.text);
     }
     return words(name);
 }
 
 /// Whether a key belongs to a value of its object's selector (the model or the method).
 bool belongsTo(const KeyRow& key, std::string_view name) {
-    if (key.model) return to_string(*key.model) == name;
-    if (key.methods.empty()) return true;
+    if (key.model)
+        return to_string(*key.model) == name;
+    if (key.methods.empty())
+        return true;
     return std::any_of(key.methods.begin(), key.methods.end(),
                        [&](TerminalMethod m) { return to_string(m) == name; });
 }
@@ -159,7 +178,8 @@ DesignForm::DesignForm(DesignDocument* document, QWidget* parent)
 
     for (const FormSection& group : formSections) {
         QFormLayout* form = addSection(tr(group.title));
-        for (const std::string_view part : group.parts) buildPart(form, *find_section(part));
+        for (const std::string_view part : group.parts)
+            buildPart(form, *find_section(part));
     }
     m_sections->addStretch(1);
 
@@ -188,18 +208,21 @@ QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
     auto* edit = new QuantityEdit(dimensionOfUnit(key.unit), quantityRange(key), row);
     edit->setObjectName(QString::fromStdString(pointer));
     const QString placeholder = optional ? placeholderOf(key) : QString();
-    if (!placeholder.isEmpty()) edit->setPlaceholderText(placeholder);
+    if (!placeholder.isEmpty())
+        edit->setPlaceholderText(placeholder);
     rowLayout->addWidget(edit);
     auto* caption = new QLabel(label, this);
     caption->setBuddy(edit);
     form->addRow(caption, row);
     m_numbers.push_back({pointer, edit, optional, row, &key});
     connect(edit, &QuantityEdit::valueEdited, this, [this, pointer, label](double value) {
-        if (!m_refreshing) m_document->setValue(pointer, value, tr("Set %1").arg(label));
+        if (!m_refreshing)
+            m_document->setValue(pointer, value, tr("Set %1").arg(label));
     });
     if (optional) {
         connect(edit, &QLineEdit::editingFinished, this, [this, pointer, edit, label] {
-            if (m_refreshing || !edit->text().trimmed().isEmpty()) return;
+            if (m_refreshing || !edit->text().trimmed().isEmpty())
+                return;
             if (!m_document->value(pointer).is_null()) {
                 m_document->setValue(pointer, Json(), tr("Clear %1").arg(label));
             } else {
@@ -223,7 +246,8 @@ QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
     form->addRow(label, combo);
     m_choices.push_back({pointer, combo, values});
     connect(combo, &QComboBox::currentIndexChanged, this, [this, pointer, values, label](int i) {
-        if (m_refreshing || i < 0 || i >= static_cast<int>(values.size())) return;
+        if (m_refreshing || i < 0 || i >= static_cast<int>(values.size()))
+            return;
         m_document->setValue(pointer, values[static_cast<std::size_t>(i)], tr("Set %1").arg(label));
     });
     return combo;
@@ -238,7 +262,8 @@ QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QS
     form->addRow(label, combo);
     m_shapes.push_back({combo, current, select});
     connect(combo, &QComboBox::currentIndexChanged, this, [this, select](int i) {
-        if (!m_refreshing && i >= 0) select(i);
+        if (!m_refreshing && i >= 0)
+            select(i);
     });
     return combo;
 }
@@ -249,17 +274,21 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
         std::vector<std::pair<QString, std::string>> bodies;
         for (const std::string& name : body_preset_names()) {
             QString shown = QString::fromStdString(name);
-            if (!shown.isEmpty()) shown[0] = shown[0].toUpper();
+            if (!shown.isEmpty())
+                shown[0] = shown[0].toUpper();
             bodies.emplace_back(tr(shown.toUtf8().constData()), name);
         }
         addChoice(form, tr("Body"), "/body", bodies);
         return;
     }
-    if (section.present) addPresence(form, section);
+    if (section.present)
+        addPresence(form, section);
     for (const KeyRow* key : keys_of(section.name)) {
-        if (!key->parent.empty()) continue;  // with their number
+        if (!key->parent.empty())
+            continue;  // with their number
         if (key->group) {
-            if (membersOf(*key).front() == key) addGroup(form, *key);
+            if (membersOf(*key).front() == key)
+                addGroup(form, *key);
             continue;
         }
         switch (key->kind) {
@@ -281,7 +310,8 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
                 }
                 break;
             case KeyKind::by_hand:
-                if (key->path() == "mass.items") buildItems(form);
+                if (key->path() == "mass.items")
+                    buildItems(form);
                 break;
             case KeyKind::text:
                 break;
@@ -302,9 +332,11 @@ void DesignForm::addPresence(QFormLayout* form, const SectionRow& section) {
                 // Its required keys, and the first of each group it needs, at their fallbacks.
                 Json part = Json::object();
                 for (const KeyRow* key : keys_of(section.name)) {
-                    const bool needed = key->group ? key->group->required && membersOf(*key).front() == key
-                                                   : key->need == KeyNeed::required;
-                    if (needed && key->fallback) part[std::string(key->key)] = *key->fallback;
+                    const bool needed = key->group
+                                            ? key->group->required && membersOf(*key).front() == key
+                                            : key->need == KeyNeed::required;
+                    if (needed && key->fallback)
+                        part[std::string(key->key)] = *key->fallback;
                 }
                 m_document->setValue(pointer, part, tr("Add the %1").arg(label.toLower()));
             } else if (shape == 0 && present) {
@@ -317,13 +349,15 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
     const std::string pointer = pointerOf(selector);
     const std::vector<std::string_view> names = offeredNames(selector);
     QStringList shapes;
-    for (const std::string_view name : names) shapes << displayText(selector, name);
+    for (const std::string_view name : names)
+        shapes << displayText(selector, name);
     addShape(
         form, QString::fromStdString(pointer), words(label_of(selector)), shapes,
         [this, pointer, names] {
             const Json now = m_document->value(pointer);
             for (std::size_t i = 0; i < names.size(); ++i) {
-                if (now == names[i]) return static_cast<int>(i);
+                if (now == names[i])
+                    return static_cast<int>(i);
             }
             return 0;
         },
@@ -339,30 +373,38 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
             }
             std::vector<std::pair<std::string, Json>> values{{pointer, std::string(name)}};
             for (const KeyRow* key : keys) {
-                if (key == &selector || !key->parent.empty()) continue;
+                if (key == &selector || !key->parent.empty())
+                    continue;
                 const std::string at = pointerOf(*key);
                 const bool wanted = belongsTo(*key, name);
                 const bool there = !m_document->value(at).is_null();
                 const bool canopy = key->on_canopy && name == to_string(TerminalMethod::none);
-                const std::optional<double> fallback = canopy ? key->on_canopy->fallback : key->fallback;
-                if (!wanted && there) values.emplace_back(at, Json());
-                if (wanted && !there && fallback) values.emplace_back(at, *fallback);
+                const std::optional<double> fallback =
+                    canopy ? key->on_canopy->fallback : key->fallback;
+                if (!wanted && there)
+                    values.emplace_back(at, Json());
+                if (wanted && !there && fallback)
+                    values.emplace_back(at, *fallback);
             }
-            m_document->setValues(values, tr("Change the %1 %2").arg(fromView(selector.section), fromView(selector.key)));
+            m_document->setValues(
+                values,
+                tr("Change the %1 %2").arg(fromView(selector.section), fromView(selector.key)));
         });
 }
 
 void DesignForm::addGroup(QFormLayout* form, const KeyRow& first) {
     const std::vector<const KeyRow*> members = membersOf(first);
     QStringList shapes;
-    for (const KeyRow* key : members) shapes << words(key->shape_text);
+    for (const KeyRow* key : members)
+        shapes << words(key->shape_text);
     const KeyGroup* group = first.group;
     addShape(
         form, QString::fromStdString(key_to_pointer(first.section)) + "#" + fromView(group->name),
         words(group->label), shapes,
         [this, members] {
             for (std::size_t i = 0; i < members.size(); ++i) {
-                if (!m_document->value(pointerOf(*members[i])).is_null()) return static_cast<int>(i);
+                if (!m_document->value(pointerOf(*members[i])).is_null())
+                    return static_cast<int>(i);
             }
             return 0;
         },
@@ -372,14 +414,17 @@ void DesignForm::addGroup(QFormLayout* form, const KeyRow& first) {
                 const std::string pointer = pointerOf(*members[i]);
                 const bool chosen = static_cast<int>(i) == shape;
                 const Json now = m_document->value(pointer);
-                if (!chosen && !now.is_null()) values.emplace_back(pointer, Json());
+                if (!chosen && !now.is_null())
+                    values.emplace_back(pointer, Json());
                 if (chosen && now.is_null() && members[i]->fallback) {
                     values.emplace_back(pointer, *members[i]->fallback);
                 }
             }
-            if (!values.empty()) m_document->setValues(values, tr("Change the %1").arg(fromView(group->name)));
+            if (!values.empty())
+                m_document->setValues(values, tr("Change the %1").arg(fromView(group->name)));
         });
-    for (const KeyRow* key : members) addNumber(form, *key);
+    for (const KeyRow* key : members)
+        addNumber(form, *key);
 }
 
 void DesignForm::addNumberOrRequest(QFormLayout* form, const KeyRow& key) {
@@ -394,21 +439,26 @@ void DesignForm::addNumberOrRequest(QFormLayout* form, const KeyRow& key) {
             if (shape == 1 && !now.is_object()) {
                 Json sizing = Json::object();
                 for (const KeyRow* k : request) {
-                    if (k->fallback) sizing[std::string(k->key)] = *k->fallback;
+                    if (k->fallback)
+                        sizing[std::string(k->key)] = *k->fallback;
                 }
                 m_document->setValue(pointer, sizing, tr("Size the %1").arg(fromView(key.section)));
             } else if (shape == 0 && now.is_object() && key.fallback) {
-                m_document->setValue(pointer, *key.fallback, tr("Give the %1 %2").arg(fromView(key.section), fromView(key.key)));
+                m_document->setValue(
+                    pointer, *key.fallback,
+                    tr("Give the %1 %2").arg(fromView(key.section), fromView(key.key)));
             }
         });
     addNumber(form, key);
-    for (const KeyRow* k : request) addNumber(form, *k);
+    for (const KeyRow* k : request)
+        addNumber(form, *k);
 }
 
 void DesignForm::buildItems(QFormLayout* form) {
     m_items = new QTableWidget(0, 4, this);
     m_items->setObjectName("/mass/items");
-    m_items->setHorizontalHeaderLabels({tr("Item"), tr("Basic mass (kg)"), tr("Group"), tr("Maturity")});
+    m_items->setHorizontalHeaderLabels(
+        {tr("Item"), tr("Basic mass (kg)"), tr("Group"), tr("Maturity")});
     m_items->horizontalHeader()->setSectionResizeMode(0, QHeaderView::Stretch);
     m_items->verticalHeader()->setVisible(false);
     m_items->setMinimumHeight(140);
@@ -424,47 +474,60 @@ void DesignForm::buildItems(QFormLayout* form) {
     form->addRow(buttons);
     connect(add, &QPushButton::clicked, this, [this] {
         Json items = m_document->value("/mass/items");
-        if (!items.is_array()) items = Json::array();
-        items.push_back({{"name", "new item"}, {"mass_kg", 10.0}, {"group", to_string(MassGroup::payload)},
+        if (!items.is_array())
+            items = Json::array();
+        items.push_back({{"name", "new item"},
+                         {"mass_kg", 10.0},
+                         {"group", to_string(MassGroup::payload)},
                          {"maturity", to_string(Maturity::estimated)}});
         m_document->setValue("/mass/items", items, tr("Add a mass item"));
     });
     connect(remove, &QPushButton::clicked, this, [this] {
         const int row = m_items->currentRow();
         Json items = m_document->value("/mass/items");
-        if (row < 0 || !items.is_array() || row >= static_cast<int>(items.size())) return;
+        if (row < 0 || !items.is_array() || row >= static_cast<int>(items.size()))
+            return;
         items.erase(static_cast<std::size_t>(row));
         m_document->setValue("/mass/items", items, tr("Remove a mass item"));
     });
     connect(m_items, &QTableWidget::cellChanged, this, [this] {
-        if (!m_refreshing) writeItems();
+        if (!m_refreshing)
+            writeItems();
     });
 }
 
 bool DesignForm::applies(const KeyRow& key) const {
-    const auto present = [&](const KeyRow& k) { return !m_document->value(pointerOf(k)).is_null(); };
+    const auto present = [&](const KeyRow& k) {
+        return !m_document->value(pointerOf(k)).is_null();
+    };
     if (const SectionRow* section = find_section(key.section); section && section->present) {
-        if (!m_document->value(pointerOf(*section)).is_object()) return false;
+        if (!m_document->value(pointerOf(*section)).is_object())
+            return false;
     }
     if (key.model) {
         const Json model = m_document->value("/atmosphere/model");
-        if (!model.is_string() || !belongsTo(key, model.get<std::string>())) return false;
+        if (!model.is_string() || !belongsTo(key, model.get<std::string>()))
+            return false;
     }
     if (!key.methods.empty()) {
         const Json method = m_document->value("/terminal/method");
-        if (!method.is_string() || !belongsTo(key, method.get<std::string>())) return false;
+        if (!method.is_string() || !belongsTo(key, method.get<std::string>()))
+            return false;
     }
     if (key.group) {
-        if (present(key)) return true;
+        if (present(key))
+            return true;
         // The first of a group that may be left out stands for its default.
         const std::vector<const KeyRow*> members = membersOf(key);
         const bool none = std::none_of(members.begin(), members.end(),
                                        [&](const KeyRow* k) { return present(*k); });
         return !key.group->required && none && members.front() == &key;
     }
-    if (key.kind == KeyKind::number_or_request) return !m_document->value(pointerOf(key)).is_object();
+    if (key.kind == KeyKind::number_or_request)
+        return !m_document->value(pointerOf(key)).is_object();
     if (!key.parent.empty()) {
-        return m_document->value(key_to_pointer(std::string(key.section) + "." + std::string(key.parent)))
+        return m_document
+            ->value(key_to_pointer(std::string(key.section) + "." + std::string(key.parent)))
             .is_object();
     }
     return true;
@@ -483,7 +546,8 @@ void DesignForm::refresh() {
         const Json v = m_document->value(c.pointer);
         int index = -1;
         for (std::size_t i = 0; i < c.values.size(); ++i) {
-            if (v == c.values[i]) index = static_cast<int>(i);
+            if (v == c.values[i])
+                index = static_cast<int>(i);
         }
         c.combo->setCurrentIndex(index);
     }
@@ -493,7 +557,8 @@ void DesignForm::refresh() {
     }
 
     // Show the rows the document's shape has.
-    for (NumberBinding& b : m_numbers) setRowVisible(b.pointer, applies(*b.key));
+    for (NumberBinding& b : m_numbers)
+        setRowVisible(b.pointer, applies(*b.key));
     refreshItems();
 
     // Errors of the reader at their fields; the rest above the forms.
@@ -506,7 +571,8 @@ void DesignForm::refresh() {
                 placed = true;
             }
         }
-        if (!placed) unplaced << QString::fromStdString(error.text());
+        if (!placed)
+            unplaced << QString::fromStdString(error.text());
     }
     m_documentErrors->setText(tr("The design cannot be sized yet:\n%1").arg(unplaced.join('\n')));
     m_documentErrors->setVisible(!unplaced.isEmpty());
@@ -522,23 +588,34 @@ void DesignForm::refreshItems() {
         const Json& item = items[static_cast<std::size_t>(row)];
         const auto text = [&](const char* key) {
             const Json v = item.value(key, Json());
-            if (v.is_string()) return QString::fromStdString(v.get<std::string>());
-            if (v.is_number()) return QString::fromStdString(formatQuantity(v.get<double>()));
+            if (v.is_string())
+                return QString::fromStdString(v.get<std::string>());
+            if (v.is_number())
+                return QString::fromStdString(formatQuantity(v.get<double>()));
             return QString();
         };
         m_items->setItem(row, 0, new QTableWidgetItem(text("name")));
         m_items->setItem(row, 1, new QTableWidgetItem(text("mass_kg")));
         auto* group = new QComboBox(m_items);
-        for (const std::string_view name : mass_group_names()) group->addItem(fromView(name));
+        for (const std::string_view name : mass_group_names())
+            group->addItem(fromView(name));
         group->setCurrentText(text("group"));
         auto* maturity = new QComboBox(m_items);
-        for (const std::string_view name : maturity_names()) maturity->addItem(fromView(name));
-        maturity->setCurrentText(text("maturity").isEmpty() ? fromView(to_string(Maturity::estimated))
-                                                            : text("maturity"));
+        for (const std::string_view name : maturity_names())
+            maturity->addItem(fromView(name));
+        maturity->setCurrentText(text("maturity").isEmpty()
+                                     ? fromView(to_string(Maturity::estimated))
+                                     : text("maturity"));
         m_items->setCellWidget(row, 2, group);
         m_items->setCellWidget(row, 3, maturity);
-        connect(group, &QComboBox::currentIndexChanged, this, [this] { if (!m_refreshing) writeItems(); });
-        connect(maturity, &QComboBox::currentIndexChanged, this, [this] { if (!m_refreshing) writeItems(); });
+        connect(group, &QComboBox::currentIndexChanged, this, [this] {
+            if (!m_refreshing)
+                writeItems();
+        });
+        connect(maturity, &QComboBox::currentIndexChanged, this, [this] {
+            if (!m_refreshing)
+                writeItems();
+        });
     }
 }
 
@@ -554,8 +631,10 @@ void DesignForm::writeItems() {
         // The mass goes through the same parser as every number field: "300 lbm" works.
         const ParsedQuantity mass = parseQuantity(cell(1).toStdString(), Dimension::mass);
         item["mass_kg"] = mass.value ? Json(*mass.value) : Json(cell(1).toStdString());
-        item["group"] = static_cast<QComboBox*>(m_items->cellWidget(row, 2))->currentText().toStdString();
-        item["maturity"] = static_cast<QComboBox*>(m_items->cellWidget(row, 3))->currentText().toStdString();
+        item["group"] =
+            static_cast<QComboBox*>(m_items->cellWidget(row, 2))->currentText().toStdString();
+        item["maturity"] =
+            static_cast<QComboBox*>(m_items->cellWidget(row, 3))->currentText().toStdString();
         items.push_back(item);
     }
     m_document->setValue("/mass/items", items, tr("Edit the mass items"));
@@ -563,23 +642,28 @@ void DesignForm::writeItems() {
 
 void DesignForm::setRowVisible(const std::string& pointer, bool visible) {
     for (NumberBinding& b : m_numbers) {
-        if (b.pointer != pointer) continue;
+        if (b.pointer != pointer)
+            continue;
         b.row->setVisible(visible);
         auto* form = qobject_cast<QFormLayout*>(b.row->parentWidget()->layout());
         if (form) {
-            if (QWidget* label = form->labelForField(b.row)) label->setVisible(visible);
+            if (QWidget* label = form->labelForField(b.row))
+                label->setVisible(visible);
         }
     }
 }
 
 QWidget* DesignForm::fieldFor(const std::string& pointer) const {
     for (const NumberBinding& b : m_numbers) {
-        if (b.pointer == pointer) return b.edit;
+        if (b.pointer == pointer)
+            return b.edit;
     }
     for (const ChoiceBinding& c : m_choices) {
-        if (c.pointer == pointer) return c.combo;
+        if (c.pointer == pointer)
+            return c.combo;
     }
-    if (pointer == "/mass/items") return m_items;
+    if (pointer == "/mass/items")
+        return m_items;
     return nullptr;
 }
 
@@ -596,7 +680,8 @@ bool DesignForm::focusField(const std::string& pointer) {
             }
         }
     }
-    if (!field || !field->isVisibleTo(this)) return false;
+    if (!field || !field->isVisibleTo(this))
+        return false;
     for (QWidget* w = field->parentWidget(); w; w = w->parentWidget()) {
         if (auto* scroll = qobject_cast<QScrollArea*>(w)) {
             scroll->ensureWidgetVisible(field);
@@ -604,7 +689,8 @@ bool DesignForm::focusField(const std::string& pointer) {
         }
     }
     field->setFocus(Qt::OtherFocusReason);
-    if (auto* edit = qobject_cast<QLineEdit*>(field)) edit->selectAll();
+    if (auto* edit = qobject_cast<QLineEdit*>(field))
+        edit->selectAll();
     return true;
 }
 

@@ -35,8 +35,9 @@ DispersionTable::DispersionTable(DesignDocument* document, QWidget* parent)
     m_table->horizontalHeader()->setSectionResizeMode(keyColumn, QHeaderView::Stretch);
     m_table->verticalHeader()->setVisible(false);
     m_table->setSelectionBehavior(QAbstractItemView::SelectRows);
-    m_table->setToolTip(tr("Normal: a standard deviation in the key's own unit. Uniform: its "
-                           "lower and upper bounds."));
+    m_table->setToolTip(
+        tr("Normal: a standard deviation in the key's own unit. Uniform: its "
+           "lower and upper bounds."));
     auto* add = new QPushButton(tr("Add"), this);
     auto* remove = new QPushButton(tr("Remove"), this);
     auto* buttons = new QVBoxLayout;
@@ -51,7 +52,8 @@ DispersionTable::DispersionTable(DesignDocument* document, QWidget* parent)
     connect(add, &QPushButton::clicked, this, &DispersionTable::addRow);
     connect(remove, &QPushButton::clicked, this, &DispersionTable::removeRow);
     connect(m_table, &QTableWidget::itemChanged, this, [this] {
-        if (!m_loading) store(tr("dispersion"));
+        if (!m_loading)
+            store(tr("dispersion"));
     });
     connect(m_document, &DesignDocument::changed, this, &DispersionTable::load);
     load();
@@ -59,7 +61,8 @@ DispersionTable::DispersionTable(DesignDocument* document, QWidget* parent)
 
 void DispersionTable::load() {
     const DesignDocument::Json list = m_document->value(dispersionsPointer);
-    if (m_shown && list == *m_shown) return;  // an edit elsewhere in the design
+    if (m_shown && list == *m_shown)
+        return;  // an edit elsewhere in the design
     m_shown = list;
     m_loading = true;
     const int rows = list.is_array() ? static_cast<int>(list.size()) : 0;
@@ -70,9 +73,10 @@ void DispersionTable::load() {
             return d.is_object() && d.contains(name) ? d.at(name) : DesignDocument::Json();
         };
         const DesignDocument::Json key = field("key");
-        m_table->setItem(row, keyColumn,
-                         new QTableWidgetItem(key.is_string() ? QString::fromStdString(key.get<std::string>())
-                                                              : QString()));
+        m_table->setItem(
+            row, keyColumn,
+            new QTableWidgetItem(key.is_string() ? QString::fromStdString(key.get<std::string>())
+                                                 : QString()));
         const DesignDocument::Json kind = field("distribution");
         const bool uniform = kind.is_string() && kind.get<std::string>() == "uniform";
         auto* choice = qobject_cast<QComboBox*>(m_table->cellWidget(row, distributionColumn));
@@ -83,10 +87,13 @@ void DispersionTable::load() {
             m_table->setCellWidget(row, distributionColumn, choice);
         }
         choice->setCurrentIndex(uniform ? 1 : 0);
-        m_table->setItem(row, firstColumn, new QTableWidgetItem(numberText(field(uniform ? "min" : "sigma"))));
-        m_table->setItem(row, secondColumn, new QTableWidgetItem(uniform ? numberText(field("max")) : QString()));
-        m_table->item(row, secondColumn)->setFlags(uniform ? Qt::ItemIsEnabled | Qt::ItemIsEditable | Qt::ItemIsSelectable
-                                                           : Qt::ItemIsSelectable);
+        m_table->setItem(row, firstColumn,
+                         new QTableWidgetItem(numberText(field(uniform ? "min" : "sigma"))));
+        m_table->setItem(row, secondColumn,
+                         new QTableWidgetItem(uniform ? numberText(field("max")) : QString()));
+        m_table->item(row, secondColumn)
+            ->setFlags(uniform ? Qt::ItemIsEnabled | Qt::ItemIsEditable | Qt::ItemIsSelectable
+                               : Qt::ItemIsSelectable);
     }
     m_loading = false;
 }
@@ -102,7 +109,8 @@ void DispersionTable::store(const QString& description) {
         const auto number = [&](int column) -> DesignDocument::Json {
             bool ok = false;
             const double value = QLocale::c().toDouble(text(column), &ok);
-            return ok ? DesignDocument::Json(value) : DesignDocument::Json(text(column).toStdString());
+            return ok ? DesignDocument::Json(value)
+                      : DesignDocument::Json(text(column).toStdString());
         };
         const auto* choice = qobject_cast<QComboBox*>(m_table->cellWidget(row, distributionColumn));
         const bool uniform = choice && choice->currentIndex() == 1;
@@ -117,12 +125,14 @@ void DispersionTable::store(const QString& description) {
         }
         list.push_back(std::move(d));
     }
-    m_document->setValue(dispersionsPointer, list.empty() ? DesignDocument::Json() : list, description);
+    m_document->setValue(dispersionsPointer, list.empty() ? DesignDocument::Json() : list,
+                         description);
 }
 
 void DispersionTable::addRow() {
     DesignDocument::Json list = m_document->value(dispersionsPointer);
-    if (!list.is_array()) list = DesignDocument::Json::array();
+    if (!list.is_array())
+        list = DesignDocument::Json::array();
     list.push_back(newDispersion);
     m_document->setValue(dispersionsPointer, list, tr("add a dispersion"));
 }
@@ -130,7 +140,8 @@ void DispersionTable::addRow() {
 void DispersionTable::removeRow() {
     const int row = m_table->currentRow();
     DesignDocument::Json list = m_document->value(dispersionsPointer);
-    if (row < 0 || !list.is_array() || row >= static_cast<int>(list.size())) return;
+    if (row < 0 || !list.is_array() || row >= static_cast<int>(list.size()))
+        return;
     list.erase(list.begin() + row);
     m_document->setValue(dispersionsPointer, list.empty() ? DesignDocument::Json() : list,
                          tr("remove a dispersion"));

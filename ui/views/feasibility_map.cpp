@@ -40,7 +40,6 @@ QColor marginColour(double margin) {
 const QBrush noMarginBrush(QColor(0x70, 0x70, 0x70), Qt::BDiagPattern);
 const QColor noMarginFill(0xd8, 0xd8, 0xd8);
 
-
 /// Where the map draws: the plot, the data ranges it spans (each sample at the centre of its
 /// cell) and the mapping between the two.
 struct MapGeometry {
@@ -54,8 +53,8 @@ struct MapGeometry {
                 plot.bottom() - (vy - yLow) / (yHigh - yLow) * plot.height()};
     }
     /// The edges of sample i's cell along one axis.
-    static std::pair<double, double> cell(const std::vector<double>& v, std::size_t i,
-                                          double low, double high) {
+    static std::pair<double, double> cell(const std::vector<double>& v, std::size_t i, double low,
+                                          double high) {
         const double before = i > 0 ? (v[i - 1] + v[i]) / 2.0 : low;
         const double after = i + 1 < v.size() ? (v[i] + v[i + 1]) / 2.0 : high;
         return {before, after};
@@ -64,7 +63,8 @@ struct MapGeometry {
 
 std::vector<double> axisValues(const SweepAxis& axis) {
     std::vector<double> v;
-    for (int i = 0; i < std::max(axis.count, 1); ++i) v.push_back(axis.value(i));
+    for (int i = 0; i < std::max(axis.count, 1); ++i)
+        v.push_back(axis.value(i));
     return v;
 }
 
@@ -97,7 +97,8 @@ std::optional<MapGeometry> mapGeometry(const StudyOutcome& outcome, const QRectF
     // A sweep from high to low still reads left to right, bottom to top, as the values rise.
     g.plot = area.adjusted(mapLeft, mapTop, -mapRight, -mapBottom);
     g.key = QRectF(g.plot.right() + 24.0, g.plot.top(), keyWidth, g.plot.height() * 0.6);
-    if (g.plot.width() < 10.0 || g.plot.height() < 10.0) return std::nullopt;
+    if (g.plot.width() < 10.0 || g.plot.height() < 10.0)
+        return std::nullopt;
     return g;
 }
 
@@ -137,7 +138,8 @@ void paintAxes(QPainter& p, const MapGeometry& g, const StudyOutcome& outcome) {
     p.translate(g.plot.left() - mapLeft + metrics.height() * 0.2, g.plot.center().y());
     p.rotate(-90.0);
     p.drawText(QRectF(-g.plot.height() / 2.0, 0.0, g.plot.height(), metrics.height() * 1.2),
-               Qt::AlignHCenter | Qt::AlignTop, QString::fromStdString(outcome.request.axes[1].key));
+               Qt::AlignHCenter | Qt::AlignTop,
+               QString::fromStdString(outcome.request.axes[1].key));
     p.restore();
 }
 
@@ -151,14 +153,16 @@ void paintKey(QPainter& p, const MapGeometry& g) {
     p.setBrush(ramp);
     p.drawRect(g.key);
     const QFontMetricsF metrics(p.font());
-    for (const double m : {mapSaturation, mapSaturation / 2.0, 0.0, -mapSaturation / 2.0, -mapSaturation}) {
+    for (const double m :
+         {mapSaturation, mapSaturation / 2.0, 0.0, -mapSaturation / 2.0, -mapSaturation}) {
         const double y = g.key.top() + (mapSaturation - m) / (2.0 * mapSaturation) * g.key.height();
         p.drawLine(QPointF(g.key.right(), y), QPointF(g.key.right() + tickLength, y));
         const QString sign = m > 0.0 ? QStringLiteral("+") : QString();
         p.drawText(QPointF(g.key.right() + tickLength + 3.0, y + metrics.ascent() / 2.0 - 1.0),
                    QStringLiteral("%1%2 %").arg(sign).arg(m * percent, 0, 'f', 1));
     }
-    p.drawText(QRectF(g.key.left() - 6.0, g.key.top() - metrics.height() * 1.4, mapRight, metrics.height()),
+    p.drawText(QRectF(g.key.left() - 6.0, g.key.top() - metrics.height() * 1.4, mapRight,
+                      metrics.height()),
                Qt::AlignLeft, QStringLiteral("margin"));
     // The two things the ramp does not say: no margin known, and the boundary line.
     QRectF swatch(g.key.left(), g.key.bottom() + 14.0, keyWidth, keyWidth);
@@ -175,7 +179,8 @@ void paintKey(QPainter& p, const MapGeometry& g) {
     p.setPen(QPen(Qt::black, 0.8));
     p.drawText(QRectF(swatch.right() + 4.0, lineY - metrics.height() / 2.0 - 1.0,
                       mapRight - keyWidth - 28.0, metrics.height() * 3.6),
-               Qt::AlignLeft | Qt::TextWordWrap, QStringLiteral("margin 0: the feasibility boundary"));
+               Qt::AlignLeft | Qt::TextWordWrap,
+               QStringLiteral("margin 0: the feasibility boundary"));
 }
 
 /// Each case's feasibility margin, NaN where none is known, in the sweep's order.
@@ -190,13 +195,15 @@ std::vector<double> margins(const StudyOutcome& outcome) {
 
 /// The case under a point of the plot, if any.
 std::optional<std::size_t> caseAt(const MapGeometry& g, QPointF at) {
-    if (!g.plot.contains(at)) return std::nullopt;
+    if (!g.plot.contains(at))
+        return std::nullopt;
     const double vx = g.xLow + (at.x() - g.plot.left()) / g.plot.width() * (g.xHigh - g.xLow);
     const double vy = g.yLow + (g.plot.bottom() - at.y()) / g.plot.height() * (g.yHigh - g.yLow);
     const auto nearest = [](const std::vector<double>& v, double value) {
         std::size_t best = 0;
         for (std::size_t i = 1; i < v.size(); ++i) {
-            if (std::abs(v[i] - value) < std::abs(v[best] - value)) best = i;
+            if (std::abs(v[i] - value) < std::abs(v[best] - value))
+                best = i;
         }
         return best;
     };
@@ -209,7 +216,8 @@ void paintFeasibilityMap(QPainter& p, const QRectF& area, const StudyOutcome& ou
     p.fillRect(area, Qt::white);
     const auto g = mapGeometry(outcome, area);
     if (!g) {
-        p.drawText(area, Qt::AlignCenter, QStringLiteral("A feasibility map needs a sweep of two keys."));
+        p.drawText(area, Qt::AlignCenter,
+                   QStringLiteral("A feasibility map needs a sweep of two keys."));
         return;
     }
     QFont titleFont = p.font();
@@ -251,7 +259,8 @@ void paintFeasibilityMap(QPainter& p, const QRectF& area, const StudyOutcome& ou
             p.setPen(QPen(Qt::black, 1.5));
             p.setBrush(Qt::white);
             p.drawEllipse(at, designMarkerRadius, designMarkerRadius);
-            p.drawText(at + QPointF(designMarkerRadius + 3.0, -designMarkerRadius), QStringLiteral("this design"));
+            p.drawText(at + QPointF(designMarkerRadius + 3.0, -designMarkerRadius),
+                       QStringLiteral("this design"));
         }
     }
     paintAxes(p, *g, outcome);
@@ -289,7 +298,8 @@ void FeasibilityMap::paintEvent(QPaintEvent*) {
 }
 
 bool FeasibilityMap::event(QEvent* event) {
-    if (event->type() != QEvent::ToolTip || !m_outcome) return QWidget::event(event);
+    if (event->type() != QEvent::ToolTip || !m_outcome)
+        return QWidget::event(event);
     auto* help = static_cast<QHelpEvent*>(event);
     const auto g = mapGeometry(*m_outcome, QRectF(rect()));
     const auto index = g ? caseAt(*g, help->pos()) : std::nullopt;
@@ -306,14 +316,16 @@ bool FeasibilityMap::event(QEvent* event) {
                        .arg(QString::fromStdString(axes[1].key))
                        .arg(c.inputs[1], 0, 'g', 6);
     if (!c.results) {
-        text += QStringLiteral("\nthe design cannot be read: %1").arg(QString::fromStdString(c.error));
+        text +=
+            QStringLiteral("\nthe design cannot be read: %1").arg(QString::fromStdString(c.error));
     } else {
         const FeasibilityMargin margin = feasibility_margin(*c.results);
         const WorstCheck worst = worst_check(*c.results);
         text += margin.margin ? QStringLiteral("\nfeasibility margin %1 % (%2)")
                                     .arg(*margin.margin * percent, 0, 'f', 1)
                                     .arg(QString::fromStdString(margin.id))
-                              : QStringLiteral("\nfailed without a margin: %1").arg(QString::fromStdString(margin.id));
+                              : QStringLiteral("\nfailed without a margin: %1")
+                                    .arg(QString::fromStdString(margin.id));
         text += QStringLiteral("\nworst check: %1 %2")
                     .arg(QString::fromStdString(std::string(to_string(worst.status))))
                     .arg(QString::fromStdString(worst.id));

@@ -7,9 +7,13 @@
 namespace ds {
 namespace {
 
-QString number(double value, int decimals) { return QString::number(value, 'f', decimals); }
+QString number(double value, int decimals) {
+    return QString::number(value, 'f', decimals);
+}
 
-QString text(std::string_view s) { return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size())); }
+QString text(std::string_view s) {
+    return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size()));
+}
 
 }  // namespace
 
@@ -44,7 +48,8 @@ void FiguresView::setResults(const Results& results, const Results* baseline) {
             const double delta = *v - *before[i];
             change = (delta >= 0 ? "+" : "") + number(delta, f.decimals);
             if (*before[i] != 0.0) {
-                change += QString(" (%1%2 %)").arg(delta >= 0 ? "+" : "")
+                change += QString(" (%1%2 %)")
+                              .arg(delta >= 0 ? "+" : "")
                               .arg(100.0 * delta / std::abs(*before[i]), 0, 'f', 1);
             }
         }

@@ -14,7 +14,7 @@ struct QuantityRange {
     std::optional<double> maximum;  ///< inclusive unless maximumExclusive
     bool minimumExclusive = false;
     bool maximumExclusive = false;
-    double typicalLow = 0.0;   ///< for the tooltip: "typically 2 to 5 m"
+    double typicalLow = 0.0;  ///< for the tooltip: "typically 2 to 5 m"
     double typicalHigh = 0.0;
 };
 

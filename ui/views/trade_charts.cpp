@@ -48,15 +48,18 @@ struct FigureInfo {
 
 std::optional<FigureInfo> figureInfo(const std::string& id) {
     const std::optional<std::size_t> index = key_figure_index(id);
-    if (!index) return std::nullopt;
+    if (!index)
+        return std::nullopt;
     const KeyFigureDefinition& figure = key_figure_table[*index];
-    return FigureInfo{*index, QString::fromUtf8(figure.label.data(), static_cast<qsizetype>(figure.label.size())),
-                      QString::fromUtf8(figure.unit.data(), static_cast<qsizetype>(figure.unit.size()))};
+    return FigureInfo{
+        *index, QString::fromUtf8(figure.label.data(), static_cast<qsizetype>(figure.label.size())),
+        QString::fromUtf8(figure.unit.data(), static_cast<qsizetype>(figure.unit.size()))};
 }
 
 /// "Peak heat flux" for "peak heat flux": titles start with a capital.
 QString capitalised(QString text) {
-    if (!text.isEmpty()) text[0] = text[0].toUpper();
+    if (!text.isEmpty())
+        text[0] = text[0].toUpper();
     return text;
 }
 
@@ -86,10 +89,12 @@ QLineSeries* lineSeries(const QString& name, const QPen& pen, const QList<QPoint
 
 QChart* sweepLineChart(const StudyOutcome& outcome, const std::string& figure) {
     const auto info = figureInfo(figure);
-    if (!info || outcome.request.axes.empty()) return emptyChart(QStringLiteral("Sweep"), QStringLiteral("no figure"));
+    if (!info || outcome.request.axes.empty())
+        return emptyChart(QStringLiteral("Sweep"), QStringLiteral("no figure"));
     const QString key = QString::fromStdString(outcome.request.axes.front().key);
     const QString title = QStringLiteral("%1 against %2").arg(capitalised(info->label), key);
-    if (outcome.sweep.empty()) return emptyChart(title, QStringLiteral("no cases"));
+    if (outcome.sweep.empty())
+        return emptyChart(title, QStringLiteral("no cases"));
 
     QChart* chart = newChart(title);
     QValueAxis* xAxis = addValueAxis(chart, key, Qt::AlignBottom);
@@ -105,17 +110,21 @@ QChart* sweepLineChart(const StudyOutcome& outcome, const std::string& figure) {
     for (const SweepCase& c : outcome.sweep) {
         const double x = c.inputs.front();
         xs.include(x);
-        if (!c.results) continue;
+        if (!c.results)
+            continue;
         if (const auto m = feasibility_margin(*c.results).margin) {
             margin.append({x, *m * percent});
             ms.include(*m * percent);
         }
         const auto value = figureOf(*c.results, info->index);
-        if (!value) continue;
+        if (!value)
+            continue;
         line.append({x, *value});
         ys.include(*value);
         const CheckStatus status = worst_check(*c.results).status;
-        (status == CheckStatus::fail ? fail : status == CheckStatus::marginal ? marginal : pass)
+        (status == CheckStatus::fail       ? fail
+         : status == CheckStatus::marginal ? marginal
+                                           : pass)
             ->append(x, *value);
     }
     setNiceRange(xAxis, xs.low, xs.high);
@@ -126,20 +135,24 @@ QChart* sweepLineChart(const StudyOutcome& outcome, const std::string& figure) {
     attach(chart, lineSeries(info->label, resultPen(primaryInk), line), xAxis, figureAxis);
     QPen marginPen = resultPen(secondaryInk);
     marginPen.setStyle(Qt::DashLine);
-    attach(chart, lineSeries(QStringLiteral("feasibility margin"), marginPen, margin), xAxis, marginAxis);
+    attach(chart, lineSeries(QStringLiteral("feasibility margin"), marginPen, margin), xAxis,
+           marginAxis);
     QPen zeroPen(secondaryInk);
     zeroPen.setStyle(Qt::DotLine);
-    attach(chart,
-           lineSeries(QStringLiteral("margin 0"), zeroPen, {{xAxis->min(), 0.0}, {xAxis->max(), 0.0}}),
-           xAxis, marginAxis);
+    attach(
+        chart,
+        lineSeries(QStringLiteral("margin 0"), zeroPen, {{xAxis->min(), 0.0}, {xAxis->max(), 0.0}}),
+        xAxis, marginAxis);
     for (QScatterSeries* series : {pass, marginal, fail}) {
         attach(chart, series, xAxis, figureAxis);
-        if (series->count() == 0) hideFromLegend(chart, series);
+        if (series->count() == 0)
+            hideFromLegend(chart, series);
     }
     if (!outcome.nominal.empty() && outcome.nominal.front()) {
         const double x = *outcome.nominal.front();
         attach(chart,
-               lineSeries(QStringLiteral("this design (%1)").arg(x, 0, 'g', 6), baselinePen(Qt::DashDotLine),
+               lineSeries(QStringLiteral("this design (%1)").arg(x, 0, 'g', 6),
+                          baselinePen(Qt::DashDotLine),
                           {{x, figureAxis->min()}, {x, figureAxis->max()}}),
                xAxis, figureAxis);
     }
@@ -149,7 +162,8 @@ QChart* sweepLineChart(const StudyOutcome& outcome, const std::string& figure) {
 QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string& figure) {
     const auto info = figureInfo(figure);
     const QString title = info ? capitalised(info->label) : QStringLiteral("Dispersions");
-    if (!info || !outcome.campaign) return emptyChart(title, QStringLiteral("no cases"));
+    if (!info || !outcome.campaign)
+        return emptyChart(title, QStringLiteral("no cases"));
     std::vector<double> values;
     for (const DispersedCase& c : outcome.campaign->cases) {
         if (info->index < c.figures.size() && c.figures[info->index] &&
@@ -157,7 +171,8 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
             values.push_back(*c.figures[info->index]);
         }
     }
-    if (values.empty()) return emptyChart(title, QStringLiteral("no case gave this figure"));
+    if (values.empty())
+        return emptyChart(title, QStringLiteral("no case gave this figure"));
 
     const auto [lowIt, highIt] = std::minmax_element(values.begin(), values.end());
     double low = *lowIt;
@@ -169,7 +184,8 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
         low -= pad;
         high += pad;
     }
-    const int bins = std::clamp(static_cast<int>(std::lround(std::sqrt(values.size()))), fewestBins, mostBins);
+    const int bins =
+        std::clamp(static_cast<int>(std::lround(std::sqrt(values.size()))), fewestBins, mostBins);
     const double width = (high - low) / bins;
     std::vector<int> counts(static_cast<std::size_t>(bins), 0);
     for (const double v : values) {
@@ -177,7 +193,8 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
         ++counts[static_cast<std::size_t>(bin)];
     }
 
-    QChart* chart = newChart(QStringLiteral("%1: %2 dispersed cases").arg(title).arg(values.size()));
+    QChart* chart =
+        newChart(QStringLiteral("%1: %2 dispersed cases").arg(title).arg(values.size()));
     QValueAxis* xAxis = addValueAxis(chart, info->axisTitle(), Qt::AlignBottom);
     QValueAxis* countAxis = addValueAxis(chart, QStringLiteral("cases"), Qt::AlignLeft);
     auto* outline = new QLineSeries;
@@ -212,7 +229,9 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
         QPen pen = resultPen(secondaryInk);
         pen.setStyle(mark.style);
         attach(chart,
-               lineSeries(QStringLiteral("%1 = %2").arg(QString::fromLatin1(mark.name)).arg(mark.value, 0, 'g', 4),
+               lineSeries(QStringLiteral("%1 = %2")
+                              .arg(QString::fromLatin1(mark.name))
+                              .arg(mark.value, 0, 'g', 4),
                           pen, {{mark.value, 0.0}, {mark.value, countAxis->max()}}),
                xAxis, countAxis);
     }
@@ -223,7 +242,8 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
     const QString title = QStringLiteral("Parachute deploy conditions");
     const auto mach = figureInfo("deploy_mach");
     const auto pressure = figureInfo("deploy_dynamic_pressure");
-    if (!outcome.campaign || !mach || !pressure) return emptyChart(title, QStringLiteral("no cases"));
+    if (!outcome.campaign || !mach || !pressure)
+        return emptyChart(title, QStringLiteral("no cases"));
 
     auto* success = caseSeries(QStringLiteral("succeeded"), passInk);
     auto* failure = caseSeries(QStringLiteral("a check failed"), failInk);
@@ -238,7 +258,8 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
     std::size_t undeployed = 0;
     for (const DispersedCase& c : outcome.campaign->cases) {
         const auto& m = c.figures.size() > mach->index ? c.figures[mach->index] : std::nullopt;
-        const auto& q = c.figures.size() > pressure->index ? c.figures[pressure->index] : std::nullopt;
+        const auto& q =
+            c.figures.size() > pressure->index ? c.figures[pressure->index] : std::nullopt;
         if (!m || !q) {
             ++undeployed;
             continue;
@@ -247,11 +268,14 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
         qs.include(*q);
         ms.include(*m);
     }
-    QChart* chart = newChart(undeployed == 0
-                                 ? title
-                                 : QStringLiteral("%1 (%2 cases never deployed)").arg(title).arg(undeployed));
-    QValueAxis* qAxis = addValueAxis(chart, QStringLiteral("dynamic pressure at deploy (Pa)"), Qt::AlignBottom);
-    QValueAxis* machAxis = addValueAxis(chart, QStringLiteral("Mach number at deploy"), Qt::AlignLeft);
+    QChart* chart =
+        newChart(undeployed == 0
+                     ? title
+                     : QStringLiteral("%1 (%2 cases never deployed)").arg(title).arg(undeployed));
+    QValueAxis* qAxis =
+        addValueAxis(chart, QStringLiteral("dynamic pressure at deploy (Pa)"), Qt::AlignBottom);
+    QValueAxis* machAxis =
+        addValueAxis(chart, QStringLiteral("Mach number at deploy"), Qt::AlignLeft);
     setNiceRange(qAxis, qs.low, qs.high);
     setNiceRange(machAxis, 0.0, ms.high);
 
@@ -271,7 +295,8 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
     attach(chart, window, qAxis, machAxis);
     for (QScatterSeries* series : {success, failure}) {
         attach(chart, series, qAxis, machAxis);
-        if (series->count() == 0) hideFromLegend(chart, series);
+        if (series->count() == 0)
+            hideFromLegend(chart, series);
     }
     return chart;
 }
@@ -280,15 +305,20 @@ QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure)
     const auto info = figureInfo(figure);
     const QString title = info ? QStringLiteral("What drives the %1").arg(info->label)
                                : QStringLiteral("Sensitivities");
-    if (!info || !outcome.sensitivities) return emptyChart(title, QStringLiteral("not computed"));
+    if (!info || !outcome.sensitivities)
+        return emptyChart(title, QStringLiteral("not computed"));
     const SensitivityTable& table = *outcome.sensitivities;
     const auto row = std::find(table.figures.begin(), table.figures.end(), figure);
-    if (row == table.figures.end()) return emptyChart(title, QStringLiteral("no such figure"));
+    if (row == table.figures.end())
+        return emptyChart(title, QStringLiteral("no such figure"));
     auto ranked = table.ranked(static_cast<std::size_t>(row - table.figures.begin()));
     // Inputs the figure does not depend on (below the differences' noise) are left out.
-    std::erase_if(ranked, [](const auto& entry) { return std::abs(entry.second) < negligibleSensitivity; });
-    if (ranked.empty()) return emptyChart(title, QStringLiteral("undefined for this design"));
-    if (ranked.size() > sensitivityBars) ranked.resize(sensitivityBars);
+    std::erase_if(ranked,
+                  [](const auto& entry) { return std::abs(entry.second) < negligibleSensitivity; });
+    if (ranked.empty())
+        return emptyChart(title, QStringLiteral("undefined for this design"));
+    if (ranked.size() > sensitivityBars)
+        ranked.resize(sensitivityBars);
 
     // Horizontal bars are laid out bottom up: the strongest input goes last, on top.
     std::reverse(ranked.begin(), ranked.end());
@@ -314,8 +344,9 @@ QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure)
     auto* inputAxis = new QBarCategoryAxis;
     inputAxis->append(inputs);
     chart->addAxis(inputAxis, Qt::AlignLeft);
-    QValueAxis* valueAxis = addValueAxis(
-        chart, QStringLiteral("normalised sensitivity d ln(figure) / d ln(input)"), Qt::AlignBottom);
+    QValueAxis* valueAxis =
+        addValueAxis(chart, QStringLiteral("normalised sensitivity d ln(figure) / d ln(input)"),
+                     Qt::AlignBottom);
     const double reach = std::max(std::abs(values.low), std::abs(values.high));
     setNiceRange(valueAxis, -reach, reach);
     attach(chart, series, valueAxis, inputAxis);

@@ -55,7 +55,9 @@ constexpr std::size_t summaryChecks = 5;
 const char* const defaultFigure = "peak_deceleration";
 const char* const defaultKeys[] = {"aeroshell.diameter_m", "entry.flight_path_angle_deg"};
 
-QString text(const std::string& s) { return QString::fromStdString(s); }
+QString text(const std::string& s) {
+    return QString::fromStdString(s);
+}
 
 QString text(std::string_view s) {
     return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size()));
@@ -100,7 +102,8 @@ QHBoxLayout* TradeView::buildControls() {
     m_kind->addItems({tr("Sweep one input"), tr("Sweep two inputs (feasibility map)"),
                       tr("Dispersions (Monte Carlo)"), tr("Sensitivities")});
     m_figure = new QComboBox(this);
-    for (const KeyFigureDefinition& f : key_figure_table) m_figure->addItem(text(f.label), text(f.id));
+    for (const KeyFigureDefinition& f : key_figure_table)
+        m_figure->addItem(text(f.label), text(f.id));
     m_figure->setCurrentIndex(m_figure->findData(QString::fromLatin1(defaultFigure)));
     m_run = new QPushButton(tr("&Run"), this);
     m_cancel = new QPushButton(tr("Cancel"), this);
@@ -183,16 +186,19 @@ void TradeView::buildPages() {
 void TradeView::connectControls() {
     connect(m_kind, &QComboBox::currentIndexChanged, this, &TradeView::kindChanged);
     connect(m_figure, &QComboBox::currentIndexChanged, this, [this] {
-        if (m_runner->outcome()) showOutcome();
+        if (m_runner->outcome())
+            showOutcome();
     });
     connect(m_run, &QPushButton::clicked, this, &TradeView::run);
     connect(m_cancel, &QPushButton::clicked, this, &TradeView::cancel);
     connect(m_export, &QPushButton::clicked, this, [this] {
         const QString path = QFileDialog::getSaveFileName(this, tr("Export trade study"), QString(),
                                                           tr("CSV (*.csv)"));
-        if (path.isEmpty()) return;
+        if (path.isEmpty())
+            return;
         QString error;
-        if (!exportCsv(path, &error)) QMessageBox::warning(this, tr("Export trade study"), error);
+        if (!exportCsv(path, &error))
+            QMessageBox::warning(this, tr("Export trade study"), error);
     });
 }
 
@@ -205,8 +211,9 @@ void TradeView::connectRunner() {
         m_run->setEnabled(true);
         m_cancel->setEnabled(false);
         m_progress->setValue(0);
-        m_status->setText(tr("Cancelled: the cases under way finish in the background and are "
-                             "dropped."));
+        m_status->setText(
+            tr("Cancelled: the cases under way finish in the background and are "
+               "dropped."));
     });
 }
 
@@ -250,8 +257,10 @@ void TradeView::refreshKeys() {
     const std::vector<std::string> keys =
         DesignVariants(m_document->json(), m_document->baseDirectory()).numeric_keys();
     QStringList names;
-    for (const std::string& key : keys) names << text(key);
-    if (names == m_keyNames) return;  // most edits change values, not keys
+    for (const std::string& key : keys)
+        names << text(key);
+    if (names == m_keyNames)
+        return;  // most edits change values, not keys
     m_keyNames = names;
     for (std::size_t i = 0; i < std::size(m_axes); ++i) {
         AxisControls& axis = m_axes[i];
@@ -268,9 +277,10 @@ void TradeView::refreshKeys() {
 }
 
 void TradeView::suggestRange(AxisControls& axis) {
-    const auto value =
-        DesignVariants(m_document->json(), m_document->baseDirectory()).value(axis.key->currentText().toStdString());
-    if (!value) return;
+    const auto value = DesignVariants(m_document->json(), m_document->baseDirectory())
+                           .value(axis.key->currentText().toStdString());
+    if (!value)
+        return;
     const double spread = std::abs(*value) * suggestedSpread;
     const double low = *value - (spread > 0.0 ? spread : 1.0);
     const double high = *value + (spread > 0.0 ? spread : 1.0);
@@ -293,12 +303,14 @@ void TradeView::kindChanged() {
 void TradeView::documentChanged() {
     refreshKeys();
     for (AxisControls& axis : m_axes) {
-        if (axis.from->text().isEmpty()) suggestRange(axis);
+        if (axis.from->text().isEmpty())
+            suggestRange(axis);
     }
     if (m_runner->outcome() && !m_stale) {
         m_stale = true;
-        m_status->setText(tr("The design has changed since this study ran: run it again to "
-                             "update it. Until then it stays out of the sizing sheet."));
+        m_status->setText(
+            tr("The design has changed since this study ran: run it again to "
+               "update it. Until then it stays out of the sizing sheet."));
     }
 }
 
@@ -318,13 +330,17 @@ void TradeView::setDispersions(std::size_t runs, std::uint64_t seed) {
     m_seed->setValue(static_cast<int>(seed));
 }
 
-void TradeView::setSensitivities() { m_kind->setCurrentIndex(sensitivityIndex); }
+void TradeView::setSensitivities() {
+    m_kind->setCurrentIndex(sensitivityIndex);
+}
 
 void TradeView::setFigure(const std::string& id) {
     m_figure->setCurrentIndex(m_figure->findData(text(id)));
 }
 
-std::string TradeView::figure() const { return m_figure->currentData().toString().toStdString(); }
+std::string TradeView::figure() const {
+    return m_figure->currentData().toString().toStdString();
+}
 
 bool TradeView::run() {
     const auto& design = m_document->design();
@@ -348,7 +364,8 @@ bool TradeView::run() {
             a.count = axis.count->value();
             if (!variants.value(a.key)) {
                 m_status->setText(tr("'%1' is not a number of the design: choose one of the listed "
-                                     "keys.").arg(text(a.key)));
+                                     "keys.")
+                                      .arg(text(a.key)));
                 return false;
             }
             if (!fromOk || !toOk) {
@@ -363,8 +380,9 @@ bool TradeView::run() {
         }
     } else if (kind == dispersionIndex) {
         if (design->dispersions.empty()) {
-            m_status->setText(tr("The design declares no dispersions: add the dispersed keys to "
-                                 "the table first."));
+            m_status->setText(
+                tr("The design declares no dispersions: add the dispersed keys to "
+                   "the table first."));
             return false;
         }
         request.kind = StudyKind::dispersions;
@@ -380,7 +398,9 @@ bool TradeView::run() {
     return true;
 }
 
-void TradeView::cancel() { m_runner->cancel(); }
+void TradeView::cancel() {
+    m_runner->cancel();
+}
 
 const StudyOutcome* TradeView::currentOutcome() const {
     const auto& outcome = m_runner->outcome();
@@ -399,10 +419,13 @@ void TradeView::studyFinished() {
         return;
     }
     QString size = tr("%1 sizings").arg(outcome.sweep.size());
-    if (outcome.campaign) size = tr("%1 sizings").arg(outcome.campaign->cases.size());
-    if (outcome.sensitivities) size = tr("%1 inputs").arg(outcome.sensitivities->inputs.size());
-    m_status->setText(
-        tr("%1: %2 in %3 s.").arg(QString::fromStdString(outcome.description()), size).arg(outcome.seconds, 0, 'f', 2));
+    if (outcome.campaign)
+        size = tr("%1 sizings").arg(outcome.campaign->cases.size());
+    if (outcome.sensitivities)
+        size = tr("%1 inputs").arg(outcome.sensitivities->inputs.size());
+    m_status->setText(tr("%1: %2 in %3 s.")
+                          .arg(QString::fromStdString(outcome.description()), size)
+                          .arg(outcome.seconds, 0, 'f', 2));
     m_export->setEnabled(true);
     showOutcome();
     emit studyShown();
@@ -415,7 +438,8 @@ void TradeView::replaceChart(QChartView* view, QChart* chart) {
 
 void TradeView::showOutcome() {
     const StudyOutcome& outcome = *m_runner->outcome();
-    if (!outcome.error.empty()) return;
+    if (!outcome.error.empty())
+        return;
     switch (outcome.request.kind) {
         case StudyKind::sweep:
             if (outcome.request.axes.size() == 2) {

@@ -17,7 +17,8 @@ TEST_CASE("Newtonian Cd limits: a sharp cone gives 2 sin^2 d, a hemisphere 1 (Ne
     const double d = degrees_to_radians(45.0);
     CHECK(ds::newtonian_sphere_cone_drag_coefficient(d, 0.0) ==
           doctest::Approx(2.0 * std::sin(d) * std::sin(d)).epsilon(1e-14));
-    CHECK(ds::newtonian_sphere_cone_drag_coefficient(0.0, 1.0) == doctest::Approx(1.0).epsilon(1e-14));
+    CHECK(ds::newtonian_sphere_cone_drag_coefficient(0.0, 1.0) ==
+          doctest::Approx(1.0).epsilon(1e-14));
     // A flat disk (d = 90 deg) has Newtonian Cd 2 whatever its small bluntness.
     CHECK(ds::newtonian_sphere_cone_drag_coefficient(degrees_to_radians(90.0), 0.0) ==
           doctest::Approx(2.0).epsilon(1e-14));
@@ -59,8 +60,8 @@ TEST_CASE("ballistic coefficient and frontal area by hand") {
 }
 
 TEST_CASE("sizing for a ballistic coefficient: constant Cd gives D = sqrt(4 m / (pi Cd beta))") {
-    const double d = ds::diameter_for_ballistic_coefficient(560.0, 60.0, 0.1,
-                                                            [](double) { return 1.65; });
+    const double d =
+        ds::diameter_for_ballistic_coefficient(560.0, 60.0, 0.1, [](double) { return 1.65; });
     CHECK(d == doctest::Approx(std::sqrt(4.0 * 560.0 / (M_PI * 1.65 * 60.0))).epsilon(1e-9));
 }
 
@@ -87,7 +88,8 @@ TEST_CASE("the SphereCone bluntness is the nose radius over the base radius") {
     CHECK(shell.bluntness() == doctest::Approx(0.5).epsilon(1e-15));
 }
 
-TEST_CASE("the SphereCone frontal area is pi D^2 / 4: 5.3093 m^2 at 2.6 m, 0.7854 m^2 at 1 m (by hand)") {
+TEST_CASE(
+    "the SphereCone frontal area is pi D^2 / 4: 5.3093 m^2 at 2.6 m, 0.7854 m^2 at 1 m (by hand)") {
     // pi * 2.6^2 / 4 = pi * 1.69 = 5.30929 m^2; pi / 4 = 0.785398 m^2.
     CHECK(ds::SphereCone{2.6, degrees_to_radians(70.0), 0.65}.frontal_area() ==
           doctest::Approx(5.30929).epsilon(1e-5));

@@ -23,11 +23,12 @@ struct TitanRow {
     int density_figures;
 };
 constexpr TitanRow titan_rows[] = {
-    {0.0, 5.270, 92.89, 4},       {10000.0, 3.467, 83.29, 4},   {20000.0, 2.144, 76.44, 4},
-    {30000.0, 1.233, 72.20, 4},   {40000.0, 0.6731, 70.51, 4},  {50000.0, 0.3575, 71.16, 4},
-    {60000.0, 0.1825, 76.62, 4},  {80000.0, 0.04788, 122.88, 4}, {100000.0, 0.02219, 140.80, 4},
-    {200000.0, 1.393e-3, 173.76, 4}, {300000.0, 1.673e-4, 181.72, 4},
-    {500000.0, 4.114e-6, 173.96, 4},
+    {0.0, 5.270, 92.89, 4},          {10000.0, 3.467, 83.29, 4},
+    {20000.0, 2.144, 76.44, 4},      {30000.0, 1.233, 72.20, 4},
+    {40000.0, 0.6731, 70.51, 4},     {50000.0, 0.3575, 71.16, 4},
+    {60000.0, 0.1825, 76.62, 4},     {80000.0, 0.04788, 122.88, 4},
+    {100000.0, 0.02219, 140.80, 4},  {200000.0, 1.393e-3, 173.76, 4},
+    {300000.0, 1.673e-4, 181.72, 4}, {500000.0, 4.114e-6, 173.96, 4},
 };
 
 // Nitrogen, 28.0134 g/mol: the body preset's gas (core/body/presets.cpp).
@@ -66,9 +67,9 @@ TEST_CASE(
     for (const TitanRow& row : titan_rows) {
         CAPTURE(row.altitude_m);
         const ds::AtmosphereSample sample = atmosphere.at(row.altitude_m);
-        CHECK(sample.density_kg_m3 ==
-              relative(row.density_kg_m3, printed_half_unit(row.density_kg_m3,
-                                                              row.density_figures)));
+        CHECK(
+            sample.density_kg_m3 ==
+            relative(row.density_kg_m3, printed_half_unit(row.density_kg_m3, row.density_figures)));
         // Temperatures are printed to 0.01 K.
         CHECK(std::abs(sample.temperature_K - row.temperature_K) <= 0.005);
     }

@@ -143,7 +143,7 @@ double derived_density_tolerance(const UpperPoint& point) {
     return 0.005 / point.molar_mass_kg_kmol + 0.0005 / mantissa;
 }
 
-constexpr double g0_m_s2 = 9.80665;         // the standard's
+constexpr double g0_m_s2 = 9.80665;           // the standard's
 constexpr double earth_radius_m = 6356766.0;  // the standard's r0
 
 }  // namespace

@@ -24,11 +24,16 @@ struct ViraRow {
     int density_figures;
 };
 constexpr ViraRow vira[] = {
-    {0.0, 735.3, 92.10, 64.79, 4},          {10000.0, 658.2, 47.39, 37.72, 4},
-    {20000.0, 580.7, 22.52, 20.39, 4},      {30000.0, 496.9, 9.581, 10.15, 4},
-    {40000.0, 417.6, 3.501, 4.404, 4},      {50000.0, 350.5, 1.066, 1.594, 4},
-    {60000.0, 262.8, 0.2357, 0.4694, 4},    {70000.0, 229.8, 0.03690, 0.08393, 4},
-    {80000.0, 197.1, 0.004476, 0.01186, 4}, {90000.0, 169.4, 3.736e-4, 0.001151, 4},
+    {0.0, 735.3, 92.10, 64.79, 4},
+    {10000.0, 658.2, 47.39, 37.72, 4},
+    {20000.0, 580.7, 22.52, 20.39, 4},
+    {30000.0, 496.9, 9.581, 10.15, 4},
+    {40000.0, 417.6, 3.501, 4.404, 4},
+    {50000.0, 350.5, 1.066, 1.594, 4},
+    {60000.0, 262.8, 0.2357, 0.4694, 4},
+    {70000.0, 229.8, 0.03690, 0.08393, 4},
+    {80000.0, 197.1, 0.004476, 0.01186, 4},
+    {90000.0, 169.4, 3.736e-4, 0.001151, 4},
     {100000.0, 175.4, 2.660e-5, 7.890e-5, 4},
 };
 constexpr double pascals_per_bar = 1.0e5;
@@ -42,7 +47,9 @@ ds::ReferenceProfileAtmosphere venus() {
                                           venus_gamma);
 }
 
-ds::Body venus_body() { return *ds::body_preset("venus"); }
+ds::Body venus_body() {
+    return *ds::body_preset("venus");
+}
 
 /// Half a unit in the last printed figure, relative to the value.
 double printed_half_unit(double value, int figures) {
@@ -72,9 +79,9 @@ TEST_CASE(
     for (const ViraRow& row : vira) {
         CAPTURE(row.altitude_m);
         const ds::AtmosphereSample sample = atmosphere.at(row.altitude_m);
-        CHECK(sample.density_kg_m3 ==
-              relative(row.density_kg_m3, printed_half_unit(row.density_kg_m3,
-                                                              row.density_figures)));
+        CHECK(
+            sample.density_kg_m3 ==
+            relative(row.density_kg_m3, printed_half_unit(row.density_kg_m3, row.density_figures)));
         // Temperatures are printed to 0.1 K.
         CHECK(std::abs(sample.temperature_K - row.temperature_K) <= 0.05);
     }
@@ -177,8 +184,8 @@ TEST_CASE(
     // is a middle estimate between day and night (venus_reference.cpp): a factor 2.5 either
     // way (the dayside thermosphere is warmer, so the measurement is higher).
     constexpr double atomic_mass_kg = 1.66053907e-27;
-    const double measured = (4.9e15 * 44.01 + 1.1e15 * 28.01 + 2.8e15 * 28.01 + 4.8e12 * 4.003) *
-                            atomic_mass_kg;
+    const double measured =
+        (4.9e15 * 44.01 + 1.1e15 * 28.01 + 2.8e15 * 28.01 + 4.8e12 * 4.003) * atomic_mass_kg;
     const double model = atmosphere.at(150000.0).density_kg_m3;
     CHECK(model > measured / 2.5);
     CHECK(model < measured * 2.5);

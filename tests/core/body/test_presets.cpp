@@ -37,5 +37,6 @@ TEST_CASE("Venus and Titan presets carry the fact-sheet radii (NASA NSSDC)") {
 
 TEST_CASE("an unknown body name has no preset, and every listed name has one") {
     CHECK_FALSE(ds::body_preset("vulcan"));
-    for (const std::string& name : ds::body_preset_names()) CHECK(ds::body_preset(name));
+    for (const std::string& name : ds::body_preset_names())
+        CHECK(ds::body_preset(name));
 }

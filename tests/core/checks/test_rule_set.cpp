@@ -59,6 +59,7 @@ TEST_CASE("checks are ordered failing first, then marginal, keeping their order 
         ds::check_at_most({"e", "e", "", Severity::physics, ""}, 12.0, 10.0, 0.1)};
     ds::order_checks(checks);
     std::string order;
-    for (const ds::Check& c : checks) order += c.id;
+    for (const ds::Check& c : checks)
+        order += c.id;
     CHECK(order == "cebad");
 }

@@ -117,9 +117,8 @@ ds::Design design_of(const Shape& shape) {
         }
         if (row.model && *row.model != d.atmosphere.model)
             continue;
-        if (!row.methods.empty() &&
-            std::find(row.methods.begin(), row.methods.end(), d.terminal.method) ==
-                row.methods.end())
+        if (!row.methods.empty() && std::find(row.methods.begin(), row.methods.end(),
+                                              d.terminal.method) == row.methods.end())
             continue;
         if (row.group && shape.member.at(group_id(row)) != row.key)
             continue;
@@ -141,7 +140,8 @@ ds::Design design_of(const Shape& shape) {
     d.mass.entry_kg = 2500.0;
     d.entry.interface_altitude_m = 125000.0;
     if (d.atmosphere.model == ds::AtmosphereModel::table)
-        d.atmosphere.rows = {{-8000.0, 0.03, 220.0}, {60000.0, 1e-4, 170.0}, {130000.0, 2e-9, 150.0}};
+        d.atmosphere.rows = {
+            {-8000.0, 0.03, 220.0}, {60000.0, 1e-4, 170.0}, {130000.0, 2e-9, 150.0}};
     // The wind in both of its forms: a table under one model, a constant under another.
     if (d.atmosphere.model == ds::AtmosphereModel::exponential)
         d.atmosphere.wind = ds::WindDesign{{{0.0, 4.5, -1.25}, {12000.0, 18.0, 6.0}}, std::nullopt};

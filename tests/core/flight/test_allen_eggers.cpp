@@ -33,8 +33,8 @@ struct AllenEggersFlight {
         const double mass = 500.0;
         phase.stage.drag_devices = {{mass / beta, 1.0, {}}};
         phase.stage.nose_radius_m = 0.5;
-        phase.ends = {{"ground", ds::FlightQuantity::altitude, 10000.0,
-                       ds::EventDirection::falling}};
+        phase.ends = {
+            {"ground", ds::FlightQuantity::altitude, 10000.0, ds::EventDirection::falling}};
         phase.peaks = {{"q", ds::FlightQuantity::deceleration},
                        {"heat", ds::FlightQuantity::heat_flux}};
         const ds::FlightState y0 =
@@ -46,7 +46,9 @@ struct AllenEggersFlight {
     }
 };
 
-double sin_gamma() { return std::sin(std::abs(ds::degrees_to_radians(entry_angle_deg))); }
+double sin_gamma() {
+    return std::sin(std::abs(ds::degrees_to_radians(entry_angle_deg)));
+}
 
 // The closed form starts at infinite altitude; the flight starts at 125 km, where the tiny
 // density has already taken off a fraction 9e-5 of the speed. The speed the same vehicle
@@ -65,7 +67,8 @@ double closed_form_velocity(double h) {
 
 const ds::PeakHit& peak(const ds::PhaseOutcome& out, std::size_t index) {
     for (const ds::PeakHit& hit : out.peaks) {
-        if (hit.peak == index) return hit;
+        if (hit.peak == index)
+            return hit;
     }
     FAIL("peak not found");
     return out.peaks.front();
@@ -82,17 +85,21 @@ TEST_CASE("velocity-altitude curve matches Allen-Eggers to 1e-6 relative (NACA R
     }
 }
 
-TEST_CASE("the flight-path angle stays constant with gravity and curvature off (NACA Report 1381)") {
+TEST_CASE(
+    "the flight-path angle stays constant with gravity and curvature off (NACA Report 1381)") {
     const AllenEggersFlight flight;
     for (const ds::TrajectorySample& s : flight.history) {
         CHECK(s.flight_path_angle_deg == doctest::Approx(entry_angle_deg).epsilon(1e-9));
     }
 }
 
-TEST_CASE("peak deceleration is V_E^2 sin|gamma| / (2 e H) = 121.3 m/s^2 at 29.39 km (NACA Report 1381)") {
+TEST_CASE(
+    "peak deceleration is V_E^2 sin|gamma| / (2 e H) = 121.3 m/s^2 at 29.39 km (NACA Report "
+    "1381)") {
     const AllenEggersFlight flight;
     const ds::PeakHit& hit = peak(flight.outcome, 0);
-    const double a_worked = entry_velocity * entry_velocity * sin_gamma() / (2.0 * M_E * scale_height);
+    const double a_worked =
+        entry_velocity * entry_velocity * sin_gamma() / (2.0 * M_E * scale_height);
     const double h_max = scale_height * std::log(rho0 * scale_height / (beta * sin_gamma()));
     CHECK(a_worked == doctest::Approx(121.3).epsilon(1e-3));  // the references' worked value
     CHECK(h_max == doctest::Approx(29390.0).epsilon(1e-3));
@@ -129,7 +136,8 @@ TEST_CASE("peak deceleration does not depend on the ballistic coefficient (NACA 
     const ds::PhaseOutcome out =
         ds::fly_phase(model, light, 0.0, y0, 1000.0, ds::flight_integrator_settings(1e-10, 100000));
     // Equal but for the start at 125 km instead of infinity (see velocity_at_infinity).
-    const double start_effect = std::pow(velocity_at_infinity(beta / 3.0) / velocity_at_infinity(beta), 2);
+    const double start_effect =
+        std::pow(velocity_at_infinity(beta / 3.0) / velocity_at_infinity(beta), 2);
     CHECK(peak(out, 0).value == doctest::Approx(a_heavy * start_effect).epsilon(1e-6));
     CHECK(peak(out, 0).y[ds::StateIndex::altitude] - h_heavy ==
           doctest::Approx(scale_height * std::log(3.0)).epsilon(1e-3));

@@ -8,8 +8,8 @@
 #include <cmath>
 #include <functional>
 
-#include <boost/numeric/odeint.hpp>
 #include <doctest/doctest.h>
+#include <boost/numeric/odeint.hpp>
 
 #include "atmosphere/exponential.hpp"
 #include "body/body.hpp"
@@ -24,7 +24,8 @@ using RawState = std::array<double, ds::flight_state_size>;
 
 ds::FlightState to_eigen(const RawState& x) {
     ds::FlightState y;
-    for (int i = 0; i < ds::flight_state_size; ++i) y[i] = x[static_cast<std::size_t>(i)];
+    for (int i = 0; i < ds::flight_state_size; ++i)
+        y[i] = x[static_cast<std::size_t>(i)];
     return y;
 }
 
@@ -48,9 +49,9 @@ Scenario lifting_mars_entry() {
     s.stage.lift_to_drag = 0.22;
     s.stage.bank_angle_rad = ds::degrees_to_radians(40.0);
     s.stage.nose_radius_m = 1.0;
-    s.y0 = ds::make_flight_state(125000.0, ds::degrees_to_radians(20.0), 0.0, 5800.0,
-                                 ds::degrees_to_radians(-15.0), ds::degrees_to_radians(45.0),
-                                 1800.0);
+    s.y0 =
+        ds::make_flight_state(125000.0, ds::degrees_to_radians(20.0), 0.0, 5800.0,
+                              ds::degrees_to_radians(-15.0), ds::degrees_to_radians(45.0), 1800.0);
     return s;
 }
 
@@ -65,15 +66,16 @@ Reference odeint_reference(const Scenario& s) {
     const ds::FlightModel model{s.body, s.atmosphere};
     const auto system = [&](const RawState& x, RawState& dxdt, double) {
         const ds::FlightState d = ds::flight_derivative(model, s.stage, to_eigen(x));
-        for (int i = 0; i < ds::flight_state_size; ++i) dxdt[static_cast<std::size_t>(i)] = d[i];
+        for (int i = 0; i < ds::flight_state_size; ++i)
+            dxdt[static_cast<std::size_t>(i)] = d[i];
     };
     const auto conditions = [&](const RawState& x) {
         return ds::flight_conditions(model, s.stage, to_eigen(x));
     };
-    auto stepper = odeint::make_dense_output(1e-12, 1e-12,
-                                             odeint::runge_kutta_dopri5<RawState>());
+    auto stepper = odeint::make_dense_output(1e-12, 1e-12, odeint::runge_kutta_dopri5<RawState>());
     RawState x;
-    for (int i = 0; i < ds::flight_state_size; ++i) x[static_cast<std::size_t>(i)] = s.y0[i];
+    for (int i = 0; i < ds::flight_state_size; ++i)
+        x[static_cast<std::size_t>(i)] = s.y0[i];
     stepper.initialize(x, 0.0, 0.05);
 
     Reference ref;
@@ -88,7 +90,10 @@ Reference odeint_reference(const Scenario& s) {
         while (b - a > 1e-7) {
             const double c = b - ratio * (b - a);
             const double d = a + ratio * (b - a);
-            if (f(c) > f(d)) b = d; else a = c;
+            if (f(c) > f(d))
+                b = d;
+            else
+                a = c;
         }
         return f(0.5 * (a + b));
     };
@@ -161,7 +166,8 @@ TEST_CASE("deploy time and state agree with Boost.Odeint to 1e-5 on a lifting Ma
     CHECK(f.outcome.time_s == doctest::Approx(ref.deploy_time).epsilon(1e-5));
     CHECK(f.outcome.y[ds::StateIndex::altitude] ==
           doctest::Approx(ref.deploy_state[ds::StateIndex::altitude]).epsilon(1e-5));
-    CHECK(ds::speed(f.outcome.y) == doctest::Approx(ds::speed(to_eigen(ref.deploy_state))).epsilon(1e-5));
+    CHECK(ds::speed(f.outcome.y) ==
+          doctest::Approx(ds::speed(to_eigen(ref.deploy_state))).epsilon(1e-5));
     CHECK(f.outcome.y[ds::StateIndex::latitude] ==
           doctest::Approx(ref.deploy_state[ds::StateIndex::latitude]).epsilon(1e-5));
     CHECK(f.outcome.y[ds::StateIndex::longitude] ==

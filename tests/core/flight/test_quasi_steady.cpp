@@ -179,7 +179,8 @@ TEST_CASE("quasi-steady and full descents agree on trigger times to 5 ms in a fi
         CHECK(std::abs(a[ds::StateIndex::altitude] - b[ds::StateIndex::altitude]) < 0.05);
         CHECK(ds::speed(a) == doctest::Approx(ds::speed(b)).epsilon(2e-6));
         CHECK(std::abs(a[ds::StateIndex::longitude] - b[ds::StateIndex::longitude]) *
-                  mars().radius_m < 0.01);
+                  mars().radius_m <
+              0.01);
         CHECK(std::abs(a[ds::StateIndex::latitude]) < 1e-15);
     }
     const auto t_quasi = quasi_floor.record.time_descending_through(2000.0);
@@ -205,8 +206,7 @@ TEST_CASE("a quasi-steady descent goes back to the full equations where the air 
     CHECK(quasi.outcome.quasi_steady_steps > 0);
     CHECK(quasi.outcome.quasi_steady_steps < quasi.outcome.steps);
     CHECK(std::abs(quasi.outcome.time_s - full.outcome.time_s) < 5e-3);
-    CHECK(ds::speed(quasi.outcome.y) ==
-          doctest::Approx(ds::speed(full.outcome.y)).epsilon(1e-6));
+    CHECK(ds::speed(quasi.outcome.y) == doctest::Approx(ds::speed(full.outcome.y)).epsilon(1e-6));
 }
 
 TEST_CASE("a stage with lift or thrust flies the full equations even when asked to settle") {

@@ -17,9 +17,9 @@
 #include <functional>
 #include <vector>
 
+#include <doctest/doctest.h>
 #include <Eigen/Geometry>
 #include <boost/numeric/odeint.hpp>
-#include <doctest/doctest.h>
 
 #include "atmosphere/exponential.hpp"
 #include "body/body.hpp"
@@ -39,7 +39,9 @@ using Vec3 = Eigen::Vector3d;
 
 constexpr double deploy_mach = 1.8;
 
-ds::ExponentialAtmosphere mars_air() { return {{0.020, 11100.0, 210.0}, 188.9, 1.29}; }
+ds::ExponentialAtmosphere mars_air() {
+    return {{0.020, 11100.0, 210.0}, 188.9, 1.29};
+}
 
 ds::Body still_mars() {
     ds::Body b = *ds::body_preset("mars");
@@ -62,7 +64,10 @@ double maximise(const std::function<double(double)>& f, double a, double b) {
     while (b - a > 1e-7) {
         const double c = b - ratio * (b - a);
         const double d = a + ratio * (b - a);
-        if (f(c) > f(d)) b = d; else a = c;
+        if (f(c) > f(d))
+            b = d;
+        else
+            a = c;
     }
     return f(0.5 * (a + b));
 }
@@ -97,7 +102,8 @@ Reference<State> odeint_flight(const System& system, State x, const Mach& mach,
         const double heat = heat_flux(at(t1));
         const double lo = std::max(0.0, t0 - (t1 - t0));
         if (decel < previous_decel && ref.peak_deceleration_g == 0.0) {
-            ref.peak_deceleration_g = maximise([&](double t) { return deceleration(at(t)); }, lo, t1);
+            ref.peak_deceleration_g =
+                maximise([&](double t) { return deceleration(at(t)); }, lo, t1);
         }
         if (heat < previous_heat && ref.peak_heat_flux == 0.0) {
             ref.peak_heat_flux = maximise([&](double t) { return heat_flux(at(t)); }, lo, t1);
@@ -133,8 +139,8 @@ ProjectFlight project_flight(const ds::FlightModel& model, const ds::Stage& stag
     phase.peaks = {{"decel", ds::FlightQuantity::deceleration},
                    {"heat", ds::FlightQuantity::heat_flux}};
     ProjectFlight f;
-    f.outcome = ds::fly_phase(model, phase, 0.0, y0, 2000.0,
-                              ds::flight_integrator_settings(1e-10, 200000));
+    f.outcome =
+        ds::fly_phase(model, phase, 0.0, y0, 2000.0, ds::flight_integrator_settings(1e-10, 200000));
     for (const ds::PeakHit& hit : f.outcome.peaks) {
         double& slot = hit.peak == 0 ? f.peak_deceleration_g : f.peak_heat_flux;
         slot = std::max(slot, hit.value);
@@ -222,8 +228,8 @@ struct Cartesian {
         // a positive bank towards along x n1, the right of the flight.
         const Vec3 n1 = (up - up.dot(along) * along).normalized();
         const Vec3 n2 = along.cross(n1);
-        f.aero = (-drag * along +
-                  lift * (std::cos(stage.bank_angle_rad) * n1 + std::sin(stage.bank_angle_rad) * n2)) /
+        f.aero = (-drag * along + lift * (std::cos(stage.bank_angle_rad) * n1 +
+                                          std::sin(stage.bank_angle_rad) * n2)) /
                  x[6];
         f.deceleration_g = std::hypot(drag, lift) / x[6] / ds::standard_gravity_m_s2;
         f.heat = ds::sutton_graves_heat_flux_W_m2(body.gas.sutton_graves_k, a.density_kg_m3,
@@ -249,18 +255,21 @@ struct Cartesian {
     CartesianState start(double h, double lat, double lon, double speed, double gamma,
                          double azimuth, double mass) const {
         const double c = std::cos(lat);
-        const Vec3 r = (body.radius_m + h) * Vec3(c * std::cos(lon), c * std::sin(lon), std::sin(lat));
+        const Vec3 r =
+            (body.radius_m + h) * Vec3(c * std::cos(lon), c * std::sin(lon), std::sin(lat));
         const auto [east, north, up] = local(r);
-        const Vec3 v = speed * (std::cos(gamma) * (std::sin(azimuth) * east + std::cos(azimuth) * north) +
-                                std::sin(gamma) * up);
+        const Vec3 v =
+            speed * (std::cos(gamma) * (std::sin(azimuth) * east + std::cos(azimuth) * north) +
+                     std::sin(gamma) * up);
         return {r.x(), r.y(), r.z(), v.x(), v.y(), v.z(), mass, 0.0};
     }
 };
 
 }  // namespace
 
-TEST_CASE("without rotation any latitude and azimuth give the planar flight to 1e-6 (Vinh, "
-          "Busemann and Culp 1980, integrated by Boost.Odeint)") {
+TEST_CASE(
+    "without rotation any latitude and azimuth give the planar flight to 1e-6 (Vinh, "
+    "Busemann and Culp 1980, integrated by Boost.Odeint)") {
     const Planar planar;
     const double h0 = 125000.0, v0 = 5800.0, gamma0 = ds::degrees_to_radians(-14.0), m0 = 2000.0;
     const Reference<PlanarState> ref = odeint_flight(
@@ -289,19 +298,21 @@ TEST_CASE("without rotation any latitude and azimuth give the planar flight to 1
         CHECK(y[ds::StateIndex::altitude] == doctest::Approx(ref.deploy[0]).epsilon(1e-6));
         CHECK(ds::speed(y) == doctest::Approx(ref.deploy[2]).epsilon(1e-6));
         CHECK(ds::flight_path_angle_rad(y) == doctest::Approx(ref.deploy[3]).epsilon(1e-6));
-        CHECK(y[ds::StateIndex::convective_heat_load] == doctest::Approx(ref.deploy[5]).epsilon(1e-6));
+        CHECK(y[ds::StateIndex::convective_heat_load] ==
+              doctest::Approx(ref.deploy[5]).epsilon(1e-6));
         CHECK(f.peak_deceleration_g == doctest::Approx(ref.peak_deceleration_g).epsilon(1e-6));
         CHECK(f.peak_heat_flux == doctest::Approx(ref.peak_heat_flux).epsilon(1e-6));
-        const ds::TrackPosition p = ds::track_position(
-            {{lat, lon}, azimuth, planar.body.radius_m},
-            {y[ds::StateIndex::latitude], y[ds::StateIndex::longitude]});
+        const ds::TrackPosition p =
+            ds::track_position({{lat, lon}, azimuth, planar.body.radius_m},
+                               {y[ds::StateIndex::latitude], y[ds::StateIndex::longitude]});
         CHECK(p.downrange_m == doctest::Approx(ref.deploy[1]).epsilon(1e-6));
         CHECK(std::abs(p.crossrange_m) < 1e-6 * ref.deploy[1]);
     }
 }
 
-TEST_CASE("a lifting, banked entry over rotating Mars in a wind agrees with a Cartesian "
-          "body-fixed integration by Boost.Odeint to 1e-5") {
+TEST_CASE(
+    "a lifting, banked entry over rotating Mars in a wind agrees with a Cartesian "
+    "body-fixed integration by Boost.Odeint to 1e-5") {
     const Cartesian cartesian;
     const double h0 = 125000.0, v0 = 5900.0, m0 = 2000.0;
     const double lat0 = ds::degrees_to_radians(15.0), lon0 = ds::degrees_to_radians(30.0);
@@ -325,36 +336,39 @@ TEST_CASE("a lifting, banked entry over rotating Mars in a wind agrees with a Ca
     CHECK(f.outcome.time_s == doctest::Approx(ref.deploy_time).epsilon(1e-5));
     CHECK(y[ds::StateIndex::altitude] ==
           doctest::Approx(r.norm() - cartesian.body.radius_m).epsilon(1e-5));
-    CHECK(y[ds::StateIndex::latitude] == doctest::Approx(std::asin(r.z() / r.norm())).epsilon(1e-5));
+    CHECK(y[ds::StateIndex::latitude] ==
+          doctest::Approx(std::asin(r.z() / r.norm())).epsilon(1e-5));
     CHECK(y[ds::StateIndex::longitude] == doctest::Approx(std::atan2(r.y(), r.x())).epsilon(1e-5));
     CHECK(ds::speed(y) == doctest::Approx(v.norm()).epsilon(1e-5));
     CHECK(ds::flight_path_angle_rad(y) ==
           doctest::Approx(std::asin(v.dot(up) / v.norm())).epsilon(1e-5));
-    CHECK(ds::azimuth_rad(y) == doctest::Approx(std::atan2(v.dot(east), v.dot(north))).epsilon(1e-5));
+    CHECK(ds::azimuth_rad(y) ==
+          doctest::Approx(std::atan2(v.dot(east), v.dot(north))).epsilon(1e-5));
     CHECK(y[ds::StateIndex::convective_heat_load] == doctest::Approx(ref.deploy[7]).epsilon(1e-5));
     CHECK(f.peak_deceleration_g == doctest::Approx(ref.peak_deceleration_g).epsilon(1e-5));
     CHECK(f.peak_heat_flux == doctest::Approx(ref.peak_heat_flux).epsilon(1e-5));
     // The bank turned the flight to the right of its track: south of an east-north-east one.
-    const ds::TrackPosition p = ds::track_position(
-        {{lat0, lon0}, azimuth0, cartesian.body.radius_m},
-        {y[ds::StateIndex::latitude], y[ds::StateIndex::longitude]});
+    const ds::TrackPosition p =
+        ds::track_position({{lat0, lon0}, azimuth0, cartesian.body.radius_m},
+                           {y[ds::StateIndex::latitude], y[ds::StateIndex::longitude]});
     CHECK(p.crossrange_m > 1000.0);
 }
 
-TEST_CASE("with drag off, the Jacobi integral and the angular momentum about the spin axis are "
-          "conserved to 1e-9 over a coast") {
+TEST_CASE(
+    "with drag off, the Jacobi integral and the angular momentum about the spin axis are "
+    "conserved to 1e-9 over a coast") {
     const ds::Body mars = *ds::body_preset("mars");
     const ds::ExponentialAtmosphere air = mars_air();
     const ds::FlightModel model{mars, air};
     ds::Phase coast;  // no drag devices, no lift, no thrust, no heating
     coast.ends = {{"ground", ds::FlightQuantity::altitude, 1000.0, ds::EventDirection::falling}};
-    const ds::FlightState y0 = ds::make_flight_state(
-        300000.0, ds::degrees_to_radians(20.0), 0.0, 3300.0, ds::degrees_to_radians(2.0),
-        ds::degrees_to_radians(45.0), 1000.0);
+    const ds::FlightState y0 =
+        ds::make_flight_state(300000.0, ds::degrees_to_radians(20.0), 0.0, 3300.0,
+                              ds::degrees_to_radians(2.0), ds::degrees_to_radians(45.0), 1000.0);
     ds::DenseTrajectory record;
-    const ds::PhaseOutcome out = ds::fly_phase(
-        model, coast, 0.0, y0, 3000.0, ds::flight_integrator_settings(1e-13, 1000000),
-        {nullptr, &record});
+    const ds::PhaseOutcome out =
+        ds::fly_phase(model, coast, 0.0, y0, 3000.0, ds::flight_integrator_settings(1e-13, 1000000),
+                      {nullptr, &record});
     REQUIRE(out.reason == ds::StopReason::reached_end);
 
     const double w = mars.rotation_rad_s;
@@ -366,8 +380,8 @@ TEST_CASE("with drag off, the Jacobi integral and the angular momentum about the
     };
     // Inertial angular momentum about the axis: distance from it times the inertial east speed.
     const auto momentum = [&](const ds::FlightState& y) {
-        const double axis = (mars.radius_m + y[ds::StateIndex::altitude]) *
-                            std::cos(y[ds::StateIndex::latitude]);
+        const double axis =
+            (mars.radius_m + y[ds::StateIndex::altitude]) * std::cos(y[ds::StateIndex::latitude]);
         return axis * (y[ds::StateIndex::east_velocity] + w * axis);
     };
     const double j0 = jacobi(y0);
@@ -387,8 +401,9 @@ TEST_CASE("with drag off, the Jacobi integral and the angular momentum about the
     CHECK(std::abs(out.y[ds::StateIndex::longitude]) > ds::degrees_to_radians(60.0));
 }
 
-TEST_CASE("an inertial entry state is turned planet-relative by v_rel = v_in - w x r (hand "
-          "values)") {
+TEST_CASE(
+    "an inertial entry state is turned planet-relative by v_rel = v_in - w x r (hand "
+    "values)") {
     ds::DesignReadResult read = ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) +
                                                      "/small-ballistic-station.json");
     REQUIRE(read.ok());
@@ -404,7 +419,8 @@ TEST_CASE("an inertial entry state is turned planet-relative by v_rel = v_in - w
         const ds::InterfaceState s = ds::interface_state(d, ds::flown_body(d));
         CHECK(s.rotation_flown);
         CHECK(s.relative.speed_m_s == doctest::Approx(5600.0 - 249.116).epsilon(1e-6));
-        CHECK(ds::radians_to_degrees(s.relative.azimuth_rad) == doctest::Approx(90.0).epsilon(1e-12));
+        CHECK(ds::radians_to_degrees(s.relative.azimuth_rad) ==
+              doctest::Approx(90.0).epsilon(1e-12));
         CHECK(std::abs(s.relative.flight_path_angle_rad) < 1e-15);
     }
     SUBCASE("descending at 13 deg, eastbound: 5357.56 m/s at -13.5993 deg") {
@@ -414,14 +430,16 @@ TEST_CASE("an inertial entry state is turned planet-relative by v_rel = v_in - w
         CHECK(ds::radians_to_degrees(s.relative.flight_path_angle_rad) ==
               doctest::Approx(-13.599312).epsilon(1e-7));
     }
-    SUBCASE("descending at 13 deg, northbound (polar): 5605.54 m/s at -12.9869 deg, azimuth "
-            "-2.6140 deg") {
+    SUBCASE(
+        "descending at 13 deg, northbound (polar): 5605.54 m/s at -12.9869 deg, azimuth "
+        "-2.6140 deg") {
         d.entry.azimuth_deg = 0.0;
         const ds::InterfaceState s = ds::interface_state(d, ds::flown_body(d));
         CHECK(s.relative.speed_m_s == doctest::Approx(5605.5382).epsilon(1e-7));
         CHECK(ds::radians_to_degrees(s.relative.flight_path_angle_rad) ==
               doctest::Approx(-12.986931).epsilon(1e-7));
-        CHECK(ds::radians_to_degrees(s.relative.azimuth_rad) == doctest::Approx(-2.614032).epsilon(1e-6));
+        CHECK(ds::radians_to_degrees(s.relative.azimuth_rad) ==
+              doctest::Approx(-2.614032).epsilon(1e-6));
         // And back: the inertial state is the one given.
         CHECK(s.inertial.speed_m_s == doctest::Approx(5600.0).epsilon(1e-12));
     }
@@ -433,8 +451,9 @@ TEST_CASE("an inertial entry state is turned planet-relative by v_rel = v_in - w
     }
 }
 
-TEST_CASE("under a settled canopy in a constant wind the horizontal ground speed becomes the "
-          "wind's") {
+TEST_CASE(
+    "under a settled canopy in a constant wind the horizontal ground speed becomes the "
+    "wind's") {
     const ds::Body mars = still_mars();
     const ds::ExponentialAtmosphere air = mars_air();
     const ds::WindProfile wind{{{0.0, 8.0, -6.0}}};
@@ -443,10 +462,10 @@ TEST_CASE("under a settled canopy in a constant wind the horizontal ground speed
     canopy.stage.drag_devices = {{300.0, 1.0, {}}};
     canopy.ends = {{"2 km", ds::FlightQuantity::altitude, 2000.0, ds::EventDirection::falling}};
     // From 8 km heading north at 60 m/s, 60 deg below the horizontal: nothing like the wind.
-    const ds::FlightState y0 = ds::make_flight_state(8000.0, 0.3, 1.0, 60.0,
-                                                     ds::degrees_to_radians(-60.0), 0.0, 500.0);
-    const ds::PhaseOutcome out =
-        ds::fly_phase(model, canopy, 0.0, y0, 4000.0, ds::flight_integrator_settings(1e-10, 100000));
+    const ds::FlightState y0 =
+        ds::make_flight_state(8000.0, 0.3, 1.0, 60.0, ds::degrees_to_radians(-60.0), 0.0, 500.0);
+    const ds::PhaseOutcome out = ds::fly_phase(model, canopy, 0.0, y0, 4000.0,
+                                               ds::flight_integrator_settings(1e-10, 100000));
     REQUIRE(out.ended_by == std::size_t{0});
     // Drag acts on the air-relative velocity only, so the vehicle sinks straight down through
     // the air and moves with it, but for the transport terms of the sphere (v_n v_u / r, some

@@ -6,7 +6,8 @@
 #include "heating/sutton_graves.hpp"
 #include "heating/tauber_sutton.hpp"
 
-TEST_CASE("Sutton-Graves by hand: CO2, rho 1e-4, Rn 0.65 m, 5 km/s gives 29.50 W/cm^2 (NASA TR R-376)") {
+TEST_CASE(
+    "Sutton-Graves by hand: CO2, rho 1e-4, Rn 0.65 m, 5 km/s gives 29.50 W/cm^2 (NASA TR R-376)") {
     // k = 1.9027e-4; sqrt(1e-4 / 0.65) = 1.24035e-2; V^3 = 1.25e11: 2.9502e5 W/m^2.
     const double q = ds::sutton_graves_heat_flux_W_m2(1.9027e-4, 1e-4, 0.65, 5000.0);
     CHECK(q == doctest::Approx(1.9027e-4 * std::sqrt(1e-4 / 0.65) * 1.25e11).epsilon(1e-14));

@@ -23,7 +23,9 @@ IntegratorSettings<2> tight() {
 }
 
 // The harmonic oscillator x'' = -x: x = cos t, v = -sin t from (1, 0).
-Vector<2> oscillator(double, const Vector<2>& y) { return Vector<2>(y[1], -y[0]); }
+Vector<2> oscillator(double, const Vector<2>& y) {
+    return Vector<2>(y[1], -y[0]);
+}
 
 }  // namespace
 
@@ -41,9 +43,9 @@ TEST_CASE("exponential decay matches exp(-t) at t = 10 to 1e-8 relative (closed 
 
 TEST_CASE("harmonic oscillator returns to its start after one period to 1e-8 (closed form)") {
     const double period = 2.0 * M_PI;
-    const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), period,
-                                                     std::span<const Event<2>>{}, tight(),
-                                                     ignore_step);
+    const auto out =
+        ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), period,
+                                        std::span<const Event<2>>{}, tight(), ignore_step);
     CHECK(out.y[0] == doctest::Approx(1.0).epsilon(1e-8));
     CHECK(std::abs(out.y[1]) < 1e-8);
 }
@@ -53,9 +55,9 @@ TEST_CASE("error falls with the tolerance: fifth-order pair converges (closed fo
         IntegratorSettings<2> s;
         s.relative_tolerance = rtol;
         s.absolute_tolerance = Vector<2>::Constant(rtol);
-        const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 20.0,
-                                                         std::span<const Event<2>>{}, s,
-                                                         ignore_step);
+        const auto out =
+            ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 20.0,
+                                            std::span<const Event<2>>{}, s, ignore_step);
         return std::abs(out.y[0] - std::cos(20.0));
     };
     const double coarse = error_at(1e-5);

@@ -44,6 +44,7 @@ TEST_CASE("opening load is the opening-load factor times q Cd(Mach) S0 (Knacke, 
 TEST_CASE("inflation time n D / V and canopy mass by area") {
     const auto ringsail = *ds::canopy_type("ringsail");
     CHECK(ds::inflation_time_s(ringsail, 20.0, 100.0) == doctest::Approx(7.0 * 0.2).epsilon(1e-12));
-    CHECK(ds::canopy_mass_kg(ringsail, 20.0) == doctest::Approx(0.15 * M_PI * 100.0).epsilon(1e-12));
+    CHECK(ds::canopy_mass_kg(ringsail, 20.0) ==
+          doctest::Approx(0.15 * M_PI * 100.0).epsilon(1e-12));
     CHECK_FALSE(ds::canopy_type("umbrella"));
 }

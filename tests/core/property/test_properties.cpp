@@ -332,18 +332,21 @@ struct Tally {
     int closures = 0;
     int closed = 0;
     int out_of_budget = 0;  // a failing "trajectory" check: a time or step budget ran out
-    std::map<std::string, int> entry_ends;  // the timeline event that ends the entry
+    std::map<std::string, int> entry_ends;               // the timeline event that ends the entry
     std::map<ds::TerminalMethod, int> landed_by_method;  // a landed mass and a touchdown event
-    std::map<std::string, int> orders_compared;  // event pairs found both in one timeline
+    std::map<std::string, int> orders_compared;          // event pairs found both in one timeline
 };
 
 /// The timeline event that puts the payload on the ground, by terminal method.
 std::string_view landing_event(ds::TerminalMethod method) {
     switch (method) {
         case ds::TerminalMethod::retro:
-        case ds::TerminalMethod::none: return "touchdown";
-        case ds::TerminalMethod::airbag: return "airbag impact";
-        case ds::TerminalMethod::tethered: return "payload touchdown";
+        case ds::TerminalMethod::none:
+            return "touchdown";
+        case ds::TerminalMethod::airbag:
+            return "airbag impact";
+        case ds::TerminalMethod::tethered:
+            return "payload touchdown";
     }
     return "touchdown";
 }
@@ -424,7 +427,8 @@ TEST_CASE("2000 random designs around the small station keep the sizing's invari
         const auto at = [&](std::string_view first, std::string_view second) {
             const ds::TimelineEvent* a = find_event(r, first);
             const ds::TimelineEvent* b = find_event(r, second);
-            if (a && b) ++tally.orders_compared[fmt::format("{} < {}", first, second)];
+            if (a && b)
+                ++tally.orders_compared[fmt::format("{} < {}", first, second)];
             return std::pair{a, b};
         };
         const auto needs = [&](std::string_view earlier, std::string_view later) {

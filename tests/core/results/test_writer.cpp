@@ -214,10 +214,9 @@ TEST_CASE("the results sections come in the order of the flight") {
     std::vector<std::string> keys;
     for (const auto& item : document.items())
         keys.push_back(item.key());
-    const std::vector<std::string> expected{"format",      "version",    "converged", "entry",
-                                            "decelerator", "parachute",  "terminal",  "timeline",
-                                            "landing",     "mass",       "capability", "checks",
-                                            "notes"};
+    const std::vector<std::string> expected{
+        "format",   "version", "converged", "entry",      "decelerator", "parachute", "terminal",
+        "timeline", "landing", "mass",      "capability", "checks",      "notes"};
     CHECK(keys == expected);
 }
 
@@ -225,7 +224,8 @@ TEST_CASE("absent figures and non-finite numbers are written as null") {
     ds::Results results;  // nothing computed: every optional empty
     results.entry.peak_heat_flux_W_cm2 = std::numeric_limits<double>::quiet_NaN();
     results.entry.heat_load_J_cm2 = std::numeric_limits<double>::infinity();
-    results.checks = {{"closure", ds::CheckStatus::fail, std::nan(""), 1.0, "", "", "", std::nullopt}};
+    results.checks = {
+        {"closure", ds::CheckStatus::fail, std::nan(""), 1.0, "", "", "", std::nullopt}};
     const Json document = ds::results_to_json(results);
 
     for (const char* key : {"/parachute/deploy_time_s",

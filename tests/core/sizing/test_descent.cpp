@@ -35,7 +35,8 @@ const ds::TimelineEvent* find_event(const ds::Results& r, const std::string& nam
 
 double item_kg(const ds::Results& r, const std::string& name) {
     for (const ds::MassItem& item : r.mass.items) {
-        if (item.name == name) return item.mass_kg;
+        if (item.name == name)
+            return item.mass_kg;
     }
     FAIL("no item " << name);
     return 0.0;
@@ -76,7 +77,8 @@ TEST_CASE("a closed budget adds up to the entry mass it was flown at, to 0.1 kg"
     REQUIRE(r.mass.closure);
     CHECK(r.mass.closure->converged);
     double sum = 0.0;
-    for (const ds::MassItem& item : r.mass.items) sum += item.mass_kg;
+    for (const ds::MassItem& item : r.mass.items)
+        sum += item.mass_kg;
     CHECK(std::abs(sum - r.mass.entry_kg) < 0.1);
     CHECK(r.entry.mass_kg == r.mass.entry_kg);
     // The aeroshell was sized at the closed mass: beta = 115 kg/m^2 at 2150 kg.
@@ -88,7 +90,8 @@ TEST_CASE("in analysis mode the budget adds up to the fixed entry mass with what
     CHECK(r.mass.mode == ds::MassMode::analysis);
     CHECK_FALSE(r.mass.closure);
     double sum = 0.0;
-    for (const ds::MassItem& item : r.mass.items) sum += item.mass_kg;
+    for (const ds::MassItem& item : r.mass.items)
+        sum += item.mass_kg;
     CHECK(sum == doctest::Approx(560.0).epsilon(1e-12));
     REQUIRE(find_check(r, "mass_allocation"));
     CHECK(find_check(r, "mass_allocation")->status == ds::CheckStatus::pass);
@@ -118,7 +121,8 @@ TEST_CASE("the retro lander touches down at its touchdown velocity, at the site,
     // Gravity loss is about g t_burn for a near-vertical burn (references: constant-thrust
     // vertical braking), with g of Mars at the site.
     const double g_site = d.body.body.gravity_m_s2(d.site.elevation_m);
-    CHECK(*r.terminal.gravity_loss_m_s == doctest::Approx(g_site * *r.terminal.burn_time_s).epsilon(0.01));
+    CHECK(*r.terminal.gravity_loss_m_s ==
+          doctest::Approx(g_site * *r.terminal.burn_time_s).epsilon(0.01));
 }
 
 TEST_CASE("the descent rate under the canopy is the hand terminal-velocity balance") {
@@ -313,7 +317,8 @@ TEST_CASE("parts heavier than the vehicle fail drop_mass, with no negative thrus
     CHECK_FALSE(r.mass.landed_kg);
     for (const ds::MassItem& item : r.mass.items) {
         CAPTURE(item.name);
-        if (item.name.find("unallocated") == std::string::npos) CHECK(item.mass_kg >= 0.0);
+        if (item.name.find("unallocated") == std::string::npos)
+            CHECK(item.mass_kg >= 0.0);
     }
     // The vehicle (560 - 60 kg after the jettison) still hangs under its canopy; nothing lands.
     CHECK(r.parachute.deployed);
@@ -335,8 +340,8 @@ TEST_CASE("a descent out of its time budget ends in \"descent stopped\", never a
         const ds::Results r = ds::size_design(d);
         REQUIRE(find_check(r, "trajectory"));
         CHECK(find_check(r, "trajectory")->status == ds::CheckStatus::fail);
-        for (const char* ground : {"touchdown", "release", "hover and lowering", "airbag impact",
-                                   "payload touchdown"}) {
+        for (const char* ground :
+             {"touchdown", "release", "hover and lowering", "airbag impact", "payload touchdown"}) {
             CAPTURE(ground);
             CHECK_FALSE(find_event(r, ground));
         }

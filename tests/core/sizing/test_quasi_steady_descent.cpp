@@ -119,8 +119,9 @@ TEST_CASE("the capsule's quasi-steady descent agrees with the full equations in 
           floor_time_tolerance_s);
 }
 
-TEST_CASE("over the rotating Earth in a shearing wind, the capsule's quasi-steady descent agrees "
-          "with the full equations") {
+TEST_CASE(
+    "over the rotating Earth in a shearing wind, the capsule's quasi-steady descent agrees "
+    "with the full equations") {
     // The equilibrium then leans with the wind and the Coriolis term, and follows the wind's
     // change with altitude: the same agreement is asked, in far fewer steps still.
     ds::Design d = sample("earth-return-capsule");

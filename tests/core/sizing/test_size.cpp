@@ -56,8 +56,8 @@ TEST_CASE("the small station deploys at its trigger Mach, with the figures Allen
     CHECK(*r.parachute.deploy_mach == doctest::Approx(1.8).epsilon(1e-6));
     // Allen-Eggers (NACA Report 1381) straight-line peak V^2 sin|g| / (2 e H) / g0 = 11.9 g is
     // an upper bound here: at 5.6 km/s, above circular speed, the path lofts and shallows.
-    const double allen_eggers_g = 5600.0 * 5600.0 * std::sin(13.0 * M_PI / 180.0) /
-                                  (2.0 * M_E * 11100.0) / 9.80665;
+    const double allen_eggers_g =
+        5600.0 * 5600.0 * std::sin(13.0 * M_PI / 180.0) / (2.0 * M_E * 11100.0) / 9.80665;
     CHECK(r.entry.peak_deceleration_g < allen_eggers_g);
     CHECK(r.entry.peak_deceleration_g > 0.5 * allen_eggers_g);
     // With Cd from modified Newtonian theory: 560 / (1.6607 * 5.309) = 63.5 kg/m^2.
@@ -67,13 +67,15 @@ TEST_CASE("the small station deploys at its trigger Mach, with the figures Allen
               .epsilon(1e-12));
 }
 
-TEST_CASE("the deploy state is consistent: dynamic pressure is 0.5 rho V^2 at the deploy altitude") {
+TEST_CASE(
+    "the deploy state is consistent: dynamic pressure is 0.5 rho V^2 at the deploy altitude") {
     const ds::Design d = sample("small-ballistic-station");
     const ds::Results r = ds::size_design(d);
     const auto atmosphere = ds::make_atmosphere(d);
     const double rho = atmosphere->at(*r.parachute.deploy_altitude_m).density_kg_m3;
     const double v = *r.parachute.deploy_velocity_m_s;
-    CHECK(*r.parachute.deploy_dynamic_pressure_Pa == doctest::Approx(0.5 * rho * v * v).epsilon(1e-9));
+    CHECK(*r.parachute.deploy_dynamic_pressure_Pa ==
+          doctest::Approx(0.5 * rho * v * v).epsilon(1e-9));
     // Opening load = 1.3 q Cd(Mach) A for a disk-gap-band (Knacke, NWC TP 6575; from memory),
     // with Cd at Mach 1.8 0.81 of the subsonic 0.55 (our table).
     CHECK(*r.parachute.drag_coefficient_at_deploy == doctest::Approx(0.55 * 0.81).epsilon(1e-9));
@@ -100,11 +102,12 @@ TEST_CASE("a parachute sized for a velocity holds it at the requested height by 
     const double rho = atmosphere->at(d.site.elevation_m).density_kg_m3;
     // The canopy and the capsule under it (Cd 0.8 on its frontal area) hold 6 m/s; the capsule
     // lands with its heat shield gone (none here: heat_shield_kg 0).
-    const double drag_area = *r.parachute.drag_coefficient *
-                                 ds::frontal_area_m2(*r.parachute.diameter_m) +
-                             0.8 * ds::frontal_area_m2(0.9);
+    const double drag_area =
+        *r.parachute.drag_coefficient * ds::frontal_area_m2(*r.parachute.diameter_m) +
+        0.8 * ds::frontal_area_m2(0.9);
     const double drag = 0.5 * rho * 6.0 * 6.0 * drag_area;
-    CHECK(drag == doctest::Approx(48.0 * d.body.body.gravity_m_s2(d.site.elevation_m)).epsilon(1e-9));
+    CHECK(drag ==
+          doctest::Approx(48.0 * d.body.body.gravity_m_s2(d.site.elevation_m)).epsilon(1e-9));
 }
 
 TEST_CASE("a design that reaches the ground before its trigger fails with where and how fast") {
@@ -262,8 +265,8 @@ TEST_CASE("the miss from a target splits into downrange and crossrange along the
     // The crossrange of a point 0.05 deg off a great circle is R times that angle exactly.
     CHECK(*aimed.landing->miss_crossrange_m == doctest::Approx(across).epsilon(1e-9));
     // The distance: the spherical law of cosines for the two legs at a right angle.
-    const double angle = std::acos(std::cos(ds::degrees_to_radians(0.05)) *
-                                   std::cos(ds::degrees_to_radians(0.1)));
+    const double angle =
+        std::acos(std::cos(ds::degrees_to_radians(0.05)) * std::cos(ds::degrees_to_radians(0.1)));
     CHECK(*aimed.landing->miss_m == doctest::Approx(radius * angle).epsilon(1e-9));
     // The target changes nothing of the flight.
     CHECK(aimed.landing->longitude_deg == free.landing->longitude_deg);

@@ -18,15 +18,14 @@ constexpr double radius = 1e9;
 constexpr double g = 3.7;
 
 struct VerticalDrop {
-    ds::Body body{"flat", radius, g * radius * radius, 0.0, ds::Gas{188.9, 1.29, 1.9e-4, ""}};
+    ds::Body body{"flat", radius, g* radius* radius, 0.0, ds::Gas{188.9, 1.29, 1.9e-4, ""}};
     ds::ExponentialAtmosphere vacuum{{1e-15, 11100.0, 210.0}, 188.9, 1.29};
     ds::DenseTrajectory record;
 
     VerticalDrop() {
         // Falling straight down from 6 km at 60 m/s, no drag: a descent record to solve on.
         ds::Phase fall;
-        fall.ends = {{"floor", ds::FlightQuantity::altitude, -1000.0,
-                      ds::EventDirection::falling}};
+        fall.ends = {{"floor", ds::FlightQuantity::altitude, -1000.0, ds::EventDirection::falling}};
         const ds::FlightState y0 =
             ds::make_flight_state(6000.0, 0.0, 0.0, 60.0, -M_PI / 2.0, 0.0, 500.0);
         ds::fly_phase(model(), fall, 0.0, y0, 1000.0, settings(), {nullptr, &record});
@@ -50,12 +49,13 @@ ds::BurnRequest request(double thrust_acceleration, double isp) {
 
 }  // namespace
 
-TEST_CASE("constant-thrust vertical burn: burn time v / (a - g) and gravity loss g t (closed form)") {
+TEST_CASE(
+    "constant-thrust vertical burn: burn time v / (a - g) and gravity loss g t (closed form)") {
     const VerticalDrop drop;
     // An Isp of 1e12 s keeps the mass, so the thrust acceleration stays a = 9.25 m/s^2.
     const double a = 2.5 * g;
-    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record,
-                                                       request(a, 1e12), drop.settings());
+    const ds::BurnSolution b =
+        ds::solve_terminal_burn(drop.model(), drop.record, request(a, 1e12), drop.settings());
     REQUIRE(b.stops_in_time);
     const double v0 = ds::speed(b.ignition_state);
     const double t_burn = (v0 - 2.0) / (a - g);
@@ -94,11 +94,11 @@ TEST_CASE("a coast between separation and ignition is flown in free fall") {
     const VerticalDrop drop;
     ds::BurnRequest r = request(2.5 * g, 220.0);
     r.coast_s = 2.0;
-    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
+    const ds::BurnSolution b =
+        ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
     REQUIRE(b.stops_in_time);
     CHECK(b.ignition_time_s - b.separation_time_s == doctest::Approx(2.0).epsilon(1e-9));
-    CHECK(ds::speed(b.ignition_state) -
-              ds::speed(b.separation_state) ==
+    CHECK(ds::speed(b.ignition_state) - ds::speed(b.separation_state) ==
           doctest::Approx(2.0 * g).epsilon(1e-5));
 }
 
@@ -116,7 +116,8 @@ TEST_CASE("a burn that must end above the site ends there (an airbag release hei
     ds::BurnRequest r = request(2.5 * g, 220.0);
     r.end_height_above_site_m = 12.0;
     r.end_velocity_m_s = 0.5;
-    const ds::BurnSolution b = ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
+    const ds::BurnSolution b =
+        ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
     REQUIRE(b.stops_in_time);
     CHECK(b.end_state[ds::StateIndex::altitude] == doctest::Approx(12.0).epsilon(1e-3));
     CHECK(std::abs(ds::speed(b.end_state) - 0.5) < 0.05);

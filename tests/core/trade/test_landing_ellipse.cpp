@@ -64,8 +64,9 @@ TEST_CASE("the chi-square quantile for 2 dof is -2 ln(1 - p): 9.210 at 99 %, 5.9
     CHECK(ds::chi_square_2dof_quantile(0.3935) == doctest::Approx(1.0).epsilon(1e-3));
 }
 
-TEST_CASE("from 20,000 draws of a known bivariate normal the 99 % ellipse's axes and orientation "
-          "are the generating ones within the sampling error") {
+TEST_CASE(
+    "from 20,000 draws of a known bivariate normal the 99 % ellipse's axes and orientation "
+    "are the generating ones within the sampling error") {
     const Generating g;
     constexpr std::size_t n = 20000;
     const Draw d = draw(g, n, 7);
@@ -108,7 +109,8 @@ TEST_CASE("the 99 % ellipse holds 99 % of the points, the 50 % one half of them"
         for (const ds::EastNorth& q : d.local) {
             const double along = q.east_km * std::sin(az) + q.north_km * std::cos(az);
             const double across = q.east_km * std::cos(az) - q.north_km * std::sin(az);
-            const double r2 = std::pow(along / e.semi_major_km, 2) + std::pow(across / e.semi_minor_km, 2);
+            const double r2 =
+                std::pow(along / e.semi_major_km, 2) + std::pow(across / e.semi_minor_km, 2);
             inside += r2 <= 1.0 ? 1 : 0;
         }
         // Binomial sampling error sqrt(p (1 - p) / n): within four of it (plus the draw's own

@@ -17,7 +17,8 @@
 
 namespace {
 
-const std::string station = std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json";
+const std::string station =
+    std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json";
 
 nlohmann::ordered_json document() {
     std::ifstream in(station);
@@ -49,10 +50,14 @@ TEST_CASE("run_study of a sweep is run_sweep of the document, with the design's 
     request.kind = ds::StudyKind::sweep;
     request.axes = {{"aeroshell.diameter_m", 2.4, 2.8, 3}};
     Counted progress;
-    const ds::StudyOutcome outcome = ds::run_study(request, document(), design(), std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
+    const ds::StudyOutcome outcome =
+        ds::run_study(request, document(), design(),
+                      std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
     CHECK(outcome.error.empty());
     REQUIRE(outcome.sweep.size() == 3);
-    const auto direct = ds::run_sweep(ds::DesignVariants(document(), std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR)), request.axes, 1);
+    const auto direct = ds::run_sweep(
+        ds::DesignVariants(document(), std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR)),
+        request.axes, 1);
     for (std::size_t i = 0; i < 3; ++i) {
         REQUIRE(outcome.sweep[i].results);
         REQUIRE(direct[i].results);
@@ -75,7 +80,9 @@ TEST_CASE("run_study of dispersions flies the requested shard; without dispersio
     request.shard_index = 1;
     request.shard_count = 2;
     ds::Unwatched progress;
-    const ds::StudyOutcome outcome = ds::run_study(request, document(), design(), std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
+    const ds::StudyOutcome outcome =
+        ds::run_study(request, document(), design(),
+                      std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
     CHECK(outcome.error.empty());
     REQUIRE(outcome.campaign);
     REQUIRE(outcome.campaign->cases.size() == 3);
@@ -87,7 +94,8 @@ TEST_CASE("run_study of dispersions flies the requested shard; without dispersio
 
     ds::Design bare = design();
     bare.dispersions.clear();
-    const ds::StudyOutcome refused = ds::run_study(request, document(), bare, std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
+    const ds::StudyOutcome refused = ds::run_study(
+        request, document(), bare, std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
     CHECK(refused.error.find("no dispersions") != std::string::npos);
     CHECK_FALSE(refused.campaign);
     CHECK(refused.csv().empty());
@@ -98,7 +106,9 @@ TEST_CASE("run_study of sensitivities varies the inputs asked for, every number 
     request.kind = ds::StudyKind::sensitivities;
     request.inputs = {"mass.entry_kg"};
     ds::Unwatched progress;
-    const ds::StudyOutcome outcome = ds::run_study(request, document(), design(), std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
+    const ds::StudyOutcome outcome =
+        ds::run_study(request, document(), design(),
+                      std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR), 2, progress);
     REQUIRE(outcome.sensitivities);
     CHECK(outcome.sensitivities->inputs == std::vector<std::string>{"mass.entry_kg"});
     // The entry mass is the input itself (exact but for the differences' rounding).

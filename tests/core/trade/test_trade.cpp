@@ -26,7 +26,8 @@ ds::Design sample(const std::string& name) {
 
 std::size_t figure_index(const std::string& id) {
     const auto index = ds::key_figure_index(id);
-    if (!index) FAIL("no figure " << id);
+    if (!index)
+        FAIL("no figure " << id);
     return index.value_or(0);
 }
 
@@ -45,7 +46,8 @@ TEST_CASE("Wilson 95 % interval of 8 successes in 10 is [0.4902, 0.9433] (hand-c
     // All successes: the upper end is 1, the lower end n / (n + z^2).
     const auto [all_low, all_high] = ds::wilson_interval(100, 100);
     CHECK(all_high == doctest::Approx(1.0).epsilon(1e-12));
-    CHECK(all_low == doctest::Approx(100.0 / (100.0 + 1.959963984540054 * 1.959963984540054)).epsilon(1e-12));
+    CHECK(all_low ==
+          doctest::Approx(100.0 / (100.0 + 1.959963984540054 * 1.959963984540054)).epsilon(1e-12));
 }
 
 TEST_CASE("quantiles interpolate between order statistics (Hyndman and Fan type 7)") {
@@ -124,7 +126,8 @@ TEST_CASE("shards merged give the same campaign and summary as one run") {
         CHECK(merged->cases[i].draws == whole->cases[i].draws);
         CHECK(merged->cases[i].figures == whole->cases[i].figures);
     }
-    CHECK(ds::summary_to_json(ds::summarize(*merged)) == ds::summary_to_json(ds::summarize(*whole)));
+    CHECK(ds::summary_to_json(ds::summarize(*merged)) ==
+          ds::summary_to_json(ds::summarize(*whole)));
     // The same landing ellipse, at any probability: every case's landing point went through.
     const auto ellipse_whole = ds::summarize(*whole, 0.95).landing_ellipse;
     const auto ellipse_merged = ds::summarize(*merged, 0.95).landing_ellipse;
@@ -133,7 +136,8 @@ TEST_CASE("shards merged give the same campaign and summary as one run") {
     CHECK(ellipse_merged->count == 90);
     CHECK(ellipse_merged->axes.semi_major_km == ellipse_whole->axes.semi_major_km);
     CHECK(ellipse_merged->axes.semi_minor_km == ellipse_whole->axes.semi_minor_km);
-    CHECK(ellipse_merged->axes.major_axis_azimuth_deg == ellipse_whole->axes.major_axis_azimuth_deg);
+    CHECK(ellipse_merged->axes.major_axis_azimuth_deg ==
+          ellipse_whole->axes.major_axis_azimuth_deg);
     CHECK(ellipse_merged->centre_latitude_deg == ellipse_whole->centre_latitude_deg);
     CHECK(ellipse_merged->centre_longitude_deg == ellipse_whole->centre_longitude_deg);
     CHECK(ellipse_whole->axes.semi_major_km > 0.0);
@@ -165,10 +169,12 @@ TEST_CASE("a sized design is frozen into the vehicle it sizes to") {
     // sized one, with the whole budget allocated and the load covering the burn by its reserve.
     REQUIRE(frozen.terminal.thrust_N);
     REQUIRE(frozen.terminal.propellant_loaded_kg);
-    CHECK(*frozen.terminal.propellant_loaded_kg == doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-12));
+    CHECK(*frozen.terminal.propellant_loaded_kg ==
+          doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-12));
     const ds::Results again = ds::size_design(frozen);
     CHECK(*again.mass.landed_kg == doctest::Approx(*sized.mass.landed_kg).epsilon(1e-3));
-    CHECK(*again.terminal.propellant_kg == doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-12));
+    CHECK(*again.terminal.propellant_kg ==
+          doctest::Approx(*sized.terminal.propellant_kg).epsilon(1e-12));
     for (const ds::Check& c : again.checks) {
         CHECK_MESSAGE(c.status != ds::CheckStatus::fail, c.id);
         if (c.id == "propellant_load") {
@@ -205,11 +211,13 @@ TEST_CASE("a given thrust and load replace the derived ones; a load short of the
     d.terminal.thrust_N = 1.2 * *derived.terminal.thrust_N;
     d.terminal.propellant_loaded_kg = 10.0;
     const ds::Results given = ds::size_design(d, {false, false});
-    CHECK(*given.terminal.thrust_N == doctest::Approx(1.2 * *derived.terminal.thrust_N).epsilon(1e-12));
+    CHECK(*given.terminal.thrust_N ==
+          doctest::Approx(1.2 * *derived.terminal.thrust_N).epsilon(1e-12));
     CHECK(*given.terminal.propellant_kg == doctest::Approx(10.0).epsilon(1e-12));
     const ds::Check* load = nullptr;
     for (const ds::Check& c : given.checks) {
-        if (c.id == "propellant_load") load = &c;
+        if (c.id == "propellant_load")
+            load = &c;
     }
     REQUIRE(load);
     // Usable: 10 kg less the 3 % residual, short of the burn (about 17 kg here).

@@ -19,14 +19,16 @@ namespace {
 
 std::vector<double> grid(double from, double to, int count) {
     std::vector<double> v;
-    for (int i = 0; i < count; ++i) v.push_back(from + (to - from) * i / (count - 1));
+    for (int i = 0; i < count; ++i)
+        v.push_back(from + (to - from) * i / (count - 1));
     return v;
 }
 
 std::vector<std::string> lines(const std::string& text) {
     std::vector<std::string> out;
     std::istringstream in(text);
-    for (std::string line; std::getline(in, line);) out.push_back(line);
+    for (std::string line; std::getline(in, line);)
+        out.push_back(line);
     return out;
 }
 
@@ -38,7 +40,8 @@ TEST_CASE("the zero contour of a linear field is its exact zero line") {
     const auto y = grid(-1.0, 1.0, 9);
     std::vector<double> f;
     for (const double xi : x) {
-        for (const double yj : y) f.push_back(2.0 * xi - yj - 0.3);
+        for (const double yj : y)
+            f.push_back(2.0 * xi - yj - 0.3);
     }
     const auto segments = ds::zero_contour(x, y, f);
     REQUIRE(!segments.empty());
@@ -57,7 +60,8 @@ TEST_CASE("the zero contour of a circle lies on it and has its length") {
     const auto y = grid(-1.0, 1.0, 41);
     std::vector<double> f;
     for (const double xi : x) {
-        for (const double yj : y) f.push_back(r * r - xi * xi - yj * yj);
+        for (const double yj : y)
+            f.push_back(r * r - xi * xi - yj * yj);
     }
     const auto segments = ds::zero_contour(x, y, f);
     double length = 0.0;
@@ -98,11 +102,11 @@ TEST_CASE("the feasibility margin is the tightest failing limit, or unknown when
     // 12 g against 15 g is 20 % inside; 230 W/cm^2 against 200 is 15 % past; the envelope
     // check has no margin, whatever its value.
     r.checks.push_back(ds::check_at_most(physics, 12.0, 15.0, 0.1));
-    r.checks.push_back(ds::check_at_most({"peak_heat_flux", "heat", "W/cm^2", ds::Severity::physics, ""},
-                                         230.0, 200.0, 0.1));
+    r.checks.push_back(ds::check_at_most(
+        {"peak_heat_flux", "heat", "W/cm^2", ds::Severity::physics, ""}, 230.0, 200.0, 0.1));
     r.checks.push_back(ds::check_at_most(envelope, 9.0, 4.6, 0.1));
-    r.checks.push_back(ds::check_at_least({"q_low", "q", "Pa", ds::Severity::physics, ""}, 300.0,
-                                          250.0, 0.1));
+    r.checks.push_back(
+        ds::check_at_least({"q_low", "q", "Pa", ds::Severity::physics, ""}, 300.0, 250.0, 0.1));
     CHECK(*r.checks[0].margin == doctest::Approx(0.2).epsilon(1e-12));
     CHECK(*r.checks[3].margin == doctest::Approx(0.2).epsilon(1e-12));
     CHECK(!r.checks[2].margin);
@@ -124,20 +128,23 @@ TEST_CASE("sweep CSV: a header, a row per case, quoted text and empty fields for
     ds::SweepAxis axis{"aeroshell.diameter_m", 2.0, 3.0, 2};
     ds::Results ok;
     ok.entry.diameter_m = 2.5;
-    ok.checks.push_back(ds::check_at_most({"peak_deceleration", "d", "g", ds::Severity::physics, ""},
-                                          12.0, 15.0, 0.1));
+    ok.checks.push_back(ds::check_at_most(
+        {"peak_deceleration", "d", "g", ds::Severity::physics, ""}, 12.0, 15.0, 0.1));
     std::vector<ds::SweepCase> cases{{{2.0}, ok, ""}, {{3.0}, std::nullopt, "bad, \"value\""}};
     const auto rows = lines(ds::sweep_csv({axis}, cases));
     REQUIRE(rows.size() == 3);
     CHECK(rows[0].rfind("aeroshell.diameter_m,entry_mass,", 0) == 0);
-    CHECK(rows[0].find(",worst_status,worst_check,feasibility_margin,margin_check") != std::string::npos);
+    CHECK(rows[0].find(",worst_status,worst_check,feasibility_margin,margin_check") !=
+          std::string::npos);
     CHECK(rows[1].rfind("2,", 0) == 0);
     CHECK(rows[1].find(",2.5,") != std::string::npos);
     CHECK(rows[1].find("pass,,0.2,peak_deceleration") != std::string::npos);
     CHECK(rows[2].rfind("3,,", 0) == 0);
     CHECK(rows[2].find("fail,design,,design") != std::string::npos);
     // Every row has as many fields as the header (no field here holds a comma).
-    const auto fields = [](const std::string& s) { return std::count(s.begin(), s.end(), ',') + 1; };
+    const auto fields = [](const std::string& s) {
+        return std::count(s.begin(), s.end(), ',') + 1;
+    };
     CHECK(fields(rows[1]) == fields(rows[0]));
     CHECK(fields(rows[2]) == fields(rows[0]));
 }
