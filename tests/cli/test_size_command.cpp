@@ -184,7 +184,8 @@ TEST_CASE("sheet refuses an unknown format and writes nothing") {
 #endif
 
 TEST_CASE("a design without an entry azimuth says it flies without rotation, and where it lands") {
-    const Run r = run("size --json " + sample("small-ballistic-station"));
+    // The capsule sample keeps no entry direction, to show this note.
+    const Run r = run("size --json " + sample("earth-return-capsule"));
     REQUIRE(r.exit_code == 0);
     const nlohmann::json doc = nlohmann::json::parse(r.out);
     bool noted = false;

@@ -261,6 +261,10 @@ TEST_CASE("a jettison due after the backshell separation is not reached, nor lis
     // Regression: with a negative timeline margin the jettison was listed after the separation,
     // while the lander's mass and burn had left the heat shield behind.
     ds::Design d = sample("small-ballistic-station");
+    // As the sample flew before it gained an entry direction: no rotation, on the equator.
+    d.entry.latitude_deg.reset();
+    d.entry.longitude_deg.reset();
+    d.entry.azimuth_deg.reset();
     d.terminal.thrust_to_weight = 1.5;  // a long burn: the lander separates 169 s after deploy
     d.sequence.heat_shield_jettison_delay_s = 175.0;
     const ds::Results r = ds::size_design(d);

@@ -249,6 +249,8 @@ TEST_CASE("the miss from a target splits into downrange and crossrange along the
     d.entry.longitude_deg = 0.0;
     d.entry.azimuth_deg = 90.0;
     d.body.body.rotation_rad_s = 0.0;  // so that the flight stays on the equator
+    d.site.latitude_deg.reset();       // the sample's own target: this test sets its own
+    d.site.longitude_deg.reset();
     const ds::Results free = ds::size_design(d);
     REQUIRE(free.landing);
     CHECK_FALSE(free.landing->miss_m);
