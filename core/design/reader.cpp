@@ -573,22 +573,40 @@ private:
         for (std::size_t i = 0; i < wind->size(); ++i) {
             const Place row_place = place.element(i);
             const Json& item = (*wind)[i];
-            if (!item.is_object()) {
-                issues_->add(row_place, fmt::format("must be an object, got {}", item.type_name()));
+            WindRow values;
+            std::optional<double> altitude;
+            if (item.is_array()) {
+                // The compact row [altitude_m, east_m_s, north_m_s] of the design contract.
+                if (item.size() != 3) {
+                    issues_->add(row_place, fmt::format("must be [altitude_m, east_m_s, "
+                                                        "north_m_s], got {} values",
+                                                        item.size()));
+                    continue;
+                }
+                altitude = to_number(item[0], row_place.element(0), any_finite, *issues_);
+                values.east_m_s =
+                    to_number(item[1], row_place.element(1), any_finite, *issues_).value_or(0.0);
+                values.north_m_s =
+                    to_number(item[2], row_place.element(2), any_finite, *issues_).value_or(0.0);
+            } else if (item.is_object()) {
+                Fields row(item, row_place, *issues_);
+                altitude = row.number("altitude_m", any_finite);
+                values.east_m_s = row.number("east_m_s", any_finite).value_or(0.0);
+                values.north_m_s = row.number("north_m_s", any_finite).value_or(0.0);
+                row.report_unknown();
+            } else {
+                issues_->add(row_place, fmt::format("must be an object or [altitude_m, east_m_s, "
+                                                    "north_m_s], got {}",
+                                                    item.type_name()));
                 continue;
             }
-            Fields row(item, row_place, *issues_);
-            WindRow values;
-            const auto altitude = row.number("altitude_m", any_finite);
             if (altitude && !out.rows.empty() && *altitude <= out.rows.back().altitude_m) {
-                row.report("altitude_m",
-                           fmt::format("must be above the previous row's altitude ({} m), got {}",
-                                       out.rows.back().altitude_m, *altitude));
+                issues_->add(row_place,
+                             fmt::format("altitude_m must be above the previous row's altitude "
+                                         "({} m), got {}",
+                                         out.rows.back().altitude_m, *altitude));
             }
             values.altitude_m = altitude.value_or(0.0);
-            values.east_m_s = row.number("east_m_s", any_finite).value_or(0.0);
-            values.north_m_s = row.number("north_m_s", any_finite).value_or(0.0);
-            row.report_unknown();
             out.rows.push_back(values);
         }
     }

@@ -892,3 +892,38 @@ TEST_CASE("read_design_file names a file it cannot open, with an empty path") {
     CHECK(result.errors[0].path.empty());
     CHECK(result.errors[0].message == "cannot open " + missing.string());
 }
+
+TEST_CASE("a wind reads as rows (objects or [altitude, east, north]) or as one constant wind") {
+    // The design contract (design-file.md) writes a wind row as [altitude_m, east_m_s,
+    // north_m_s]; the writer gives the named form, as the atmosphere table does. Both read.
+    const Json rows =
+        Json::array({Json::array({-1000.0, 4.0, -2.0}),
+                     {{"altitude_m", 8000.0}, {"east_m_s", 15.5}, {"north_m_s", 3.0}}});
+    const auto table = read(with(baseline(), "/atmosphere/wind", rows));
+    INFO(error_list(table));
+    REQUIRE(table.ok());
+    REQUIRE(table.design->atmosphere.wind);
+    const std::vector<ds::WindRow> expected{{-1000.0, 4.0, -2.0}, {8000.0, 15.5, 3.0}};
+    CHECK(table.design->atmosphere.wind->rows == expected);
+    CHECK_FALSE(table.design->atmosphere.wind->constant);
+
+    const auto constant =
+        read(with(baseline(), "/atmosphere/wind", {{"east_m_s", -6.0}, {"north_m_s", 2.5}}));
+    REQUIRE(constant.ok());
+    CHECK(constant.design->atmosphere.wind->constant == ds::WindVelocity{-6.0, 2.5});
+
+    const auto descending =
+        read(with(baseline(), "/atmosphere/wind",
+                  Json::array({Json::array({5000.0, 1.0, 1.0}), Json::array({5000.0, 2.0, 2.0})})));
+    INFO(error_list(descending));
+    CHECK(has_error(descending, "atmosphere.wind[1]",
+                    "altitude_m must be above the previous row's altitude (5000 m), got 5000"));
+    const auto short_row =
+        read(with(baseline(), "/atmosphere/wind", Json::array({Json::array({0.0, 1.0})})));
+    CHECK(has_error(short_row, "atmosphere.wind[0]",
+                    "must be [altitude_m, east_m_s, north_m_s], got 2 values"));
+    const auto unknown =
+        read(with(baseline(), "/atmosphere/wind", {{"east_m_s", 1.0}, {"up_m_s", 2.0}}));
+    CHECK(has_error(unknown, "atmosphere.wind.up_m_s", "unknown key"));
+    CHECK(has_error(unknown, "atmosphere.wind.north_m_s", "missing"));
+}
