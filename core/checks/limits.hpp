@@ -43,6 +43,14 @@ struct Limits {
     double airbag_release_horizontal_velocity_max_m_s = 20.0;
     double tethered_horizontal_velocity_max_m_s = 0.5;
     double canopy_touchdown_horizontal_velocity_max_m_s = 15.0;
+    /// The heat shield is jettisoned subsonic and at low dynamic pressure, so that it falls
+    /// away cleanly behind the vehicle (common practice: our defaults, Mach 0.9 and 200 Pa;
+    /// set them to the separation analysis of the design). Checked on every body.
+    double jettison_mach_max = 0.9;
+    double jettison_dynamic_pressure_max_Pa = 200.0;
+    /// A subsonic canopy type (ringsail) is deployed below this Mach number (common practice:
+    /// our default; such canopies have no supersonic qualification). Checked on every body.
+    double subsonic_canopy_deploy_mach_max = 1.0;
     /// Timeline margin below this is marginal; below zero fails (common practice).
     double timeline_margin_min_s = 10.0;
     /// A physics check within this fraction of its limit is "marginal" (common practice).

@@ -837,6 +837,9 @@ const std::array keys{
                                                          "m/s"),
     limit<&Limits::canopy_touchdown_horizontal_velocity_max_m_s>(
         "canopy_touchdown_horizontal_velocity_max_m_s", "m/s"),
+    limit<&Limits::jettison_mach_max>("jettison_mach_max", ""),
+    limit<&Limits::jettison_dynamic_pressure_max_Pa>("jettison_dynamic_pressure_max_Pa", "Pa"),
+    limit<&Limits::subsonic_canopy_deploy_mach_max>("subsonic_canopy_deploy_mach_max", ""),
     limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s"),
     // A marginal band is a fraction of the limit (our bound).
     limit<&Limits::marginal_band>("marginal_band", "", fraction_of_one),

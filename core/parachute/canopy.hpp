@@ -17,6 +17,9 @@ struct CanopyType {
     double fill_constant = 0.0;              ///< inflation time = n D0 / V
     double areal_mass_kg_m2 = 0.0;           ///< canopy, lines, riser and bag per m^2 of S0
     std::string_view source;
+    /// A supersonic canopy (with its drag against Mach); a subsonic one (ringsail) is held to
+    /// a deploy below limits.subsonic_canopy_deploy_mach_max.
+    bool supersonic = false;
 };
 
 /// The types a design may name.

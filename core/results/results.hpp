@@ -77,6 +77,11 @@ struct ParachuteResults {
     std::optional<double> drag_coefficient;  ///< nominal (subsonic), referred to pi D^2 / 4
     std::optional<double> drag_coefficient_at_deploy;  ///< at the deploy Mach
     std::optional<double> opening_load_N;
+    /// The opening load over the weight (at g0) of what hangs under the canopy at deploy, g.
+    std::optional<double> opening_load_g;
+    /// Where the heat shield is jettisoned, when it is.
+    std::optional<double> heat_shield_jettison_mach;
+    std::optional<double> heat_shield_jettison_dynamic_pressure_Pa;
     std::optional<double> inflation_time_s;
     std::optional<double> mass_kg;
     std::optional<double> heat_shield_jettison_time_s;

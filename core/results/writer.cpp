@@ -74,6 +74,10 @@ Json parachute_to_json(const ParachuteResults& parachute) {
     out["drag_coefficient"] = number(parachute.drag_coefficient);
     out["drag_coefficient_at_deploy"] = number(parachute.drag_coefficient_at_deploy);
     out["opening_load_N"] = number(parachute.opening_load_N);
+    out["opening_load_g"] = number(parachute.opening_load_g);
+    out["heat_shield_jettison_mach"] = number(parachute.heat_shield_jettison_mach);
+    out["heat_shield_jettison_dynamic_pressure_Pa"] =
+        number(parachute.heat_shield_jettison_dynamic_pressure_Pa);
     out["inflation_time_s"] = number(parachute.inflation_time_s);
     out["mass_kg"] = number(parachute.mass_kg);
     out["heat_shield_jettison_time_s"] = number(parachute.heat_shield_jettison_time_s);

@@ -312,7 +312,8 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
 
     // What reaches the ground (airbags, estimated below from it, included).
     e.landed_kg = has_lander ? landed_mass_kg(design.terminal.method, e.lander_kg, e.burned_kg,
-                                              e.budget.group_kg(MassGroup::descent_stage))
+                                              e.budget.group_kg(MassGroup::descent_stage),
+                                              e.budget.group_kg(MassGroup::backshell))
                              : 0.0;
     if (design.terminal.method == TerminalMethod::airbag) {
         e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,

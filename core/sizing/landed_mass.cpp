@@ -14,9 +14,15 @@ bool descent_stage_lands(TerminalMethod method) {
     return true;
 }
 
+bool backshell_separates(TerminalMethod method) {
+    return method != TerminalMethod::none;
+}
+
 double landed_mass_kg(TerminalMethod method, double lander_kg, double burned_kg,
-                      double descent_stage_kg) {
-    return descent_stage_lands(method) ? lander_kg - burned_kg : lander_kg - descent_stage_kg;
+                      double descent_stage_kg, double backshell_kg) {
+    const double kept = backshell_separates(method) ? 0.0 : backshell_kg;
+    return (descent_stage_lands(method) ? lander_kg - burned_kg : lander_kg - descent_stage_kg) +
+           kept;
 }
 
 }  // namespace ds

@@ -7,6 +7,7 @@
 #include <fmt/format.h>
 
 #include "checks/rule_set.hpp"
+#include "parachute/canopy.hpp"
 
 namespace ds {
 namespace {
@@ -102,22 +103,101 @@ void mars_envelope_checks(const Design& design, const Results& results, const Li
     }
 }
 
-/// The parachute's deploy window: Mach and dynamic pressure at deploy.
-void deploy_checks(const ParachuteResults& parachute, const Limits& lim,
+/// The parachute's deploy window: Mach and dynamic pressure at deploy. The window is that of
+/// supersonic parachutes at Mars: it holds on Mars, and elsewhere only for the bounds the design
+/// sets itself (a value other than the Mars default). A body with no bound of its own gets one
+/// check that says the window is not checked, with the deploy conditions.
+void deploy_checks(const Design& design, const ParachuteResults& parachute, const Limits& lim,
                    std::vector<Check>& checks) {
     const double band = lim.marginal_band;
-    const std::string window{deploy_window_source};
-    checks.push_back(check_at_most(
-        {"deploy_mach", "Mach number at parachute deploy", "", Severity::physics, window},
-        *parachute.deploy_mach, lim.deploy_mach_max, band));
-    checks.push_back(check_at_most(
-        {"deploy_dynamic_pressure_high", "dynamic pressure at parachute deploy", "Pa",
-         Severity::physics, window},
-        *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_max_Pa, band));
-    checks.push_back(check_at_least(
-        {"deploy_dynamic_pressure_low", "dynamic pressure at parachute deploy", "Pa",
-         Severity::physics, window},
-        *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_min_Pa, band));
+    const Limits mars;
+    const bool on_mars = design.body.preset == "mars";
+    const bool mach_set = on_mars || lim.deploy_mach_max != mars.deploy_mach_max;
+    const bool high_set =
+        on_mars || lim.deploy_dynamic_pressure_max_Pa != mars.deploy_dynamic_pressure_max_Pa;
+    const bool low_set =
+        on_mars || lim.deploy_dynamic_pressure_min_Pa != mars.deploy_dynamic_pressure_min_Pa;
+    const std::string window{on_mars ? std::string(deploy_window_source)
+                                     : std::string("the design's own limit")};
+    if (mach_set) {
+        checks.push_back(check_at_most(
+            {"deploy_mach", "Mach number at parachute deploy", "", Severity::physics, window},
+            *parachute.deploy_mach, lim.deploy_mach_max, band));
+    }
+    if (high_set) {
+        checks.push_back(check_at_most(
+            {"deploy_dynamic_pressure_high", "dynamic pressure at parachute deploy", "Pa",
+             Severity::physics, window},
+            *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_max_Pa, band));
+    }
+    if (low_set) {
+        checks.push_back(check_at_least(
+            {"deploy_dynamic_pressure_low", "dynamic pressure at parachute deploy", "Pa",
+             Severity::physics, window},
+            *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_min_Pa, band));
+    }
+    if (!mach_set && !high_set && !low_set) {
+        checks.push_back(Check{
+            "deploy_window",
+            CheckStatus::pass,
+            *parachute.deploy_mach,
+            0.0,
+            "",
+            fmt::format("not checked: no deploy window is known for {} (the Mars supersonic "
+                        "window, Mach up to {:.4g} and {:.4g}-{:.4g} Pa, applies to Mars only); "
+                        "deploy at Mach {:.2f} and {:.0f} Pa: set deploy_mach_max and the deploy "
+                        "dynamic pressures in \"limits\" to check them",
+                        design.body.preset.empty() ? "a custom body" : design.body.preset,
+                        mars.deploy_mach_max,
+                        mars.deploy_dynamic_pressure_min_Pa, mars.deploy_dynamic_pressure_max_Pa,
+                        *parachute.deploy_mach, *parachute.deploy_dynamic_pressure_Pa),
+            "no source for this body",
+            {}});
+    }
+}
+
+/// What the canopy and the heat shield's jettison ask of the vehicle: the opening load on the
+/// payload, a subsonic canopy kept subsonic, and a jettison subsonic at low dynamic pressure.
+/// Common practice, on every body.
+void canopy_load_checks(const Design& design, const ParachuteResults& parachute, const Limits& lim,
+                        std::vector<Check>& checks) {
+    const double band = lim.marginal_band;
+    if (parachute.opening_load_g) {
+        checks.push_back(check_at_most(
+            {"opening_load", "parachute opening load on what hangs under it", "g",
+             Severity::physics,
+             "the payload's qualified load (peak_deceleration_max_g; the opening force by "
+             "Knacke's load factor, NWC TP 6575, from memory)"},
+            *parachute.opening_load_g, lim.peak_deceleration_max_g, band));
+    }
+    const auto type = canopy_type(design.parachute.type);
+    if (type && !type->supersonic && parachute.deploy_mach) {
+        Check c = check_at_most(
+            {"subsonic_canopy_mach", "Mach number at deploy of a subsonic canopy", "",
+             Severity::physics,
+             "a subsonic canopy type has no supersonic qualification (common practice)"},
+            *parachute.deploy_mach, lim.subsonic_canopy_deploy_mach_max, band);
+        if (c.status == CheckStatus::fail) {
+            c.message += fmt::format("; a {} is a subsonic canopy: deploy it lower or slower, "
+                                     "or use a supersonic type (disk-gap-band)",
+                                     type->name);
+        }
+        checks.push_back(c);
+    }
+    if (parachute.heat_shield_jettison_mach) {
+        const std::string source =
+            "a clean separation of the heat shield, subsonic at low dynamic pressure (common "
+            "practice: set the design's own)";
+        checks.push_back(check_at_most(
+            {"jettison_mach", "Mach number at heat-shield jettison", "", Severity::physics,
+             source},
+            *parachute.heat_shield_jettison_mach, lim.jettison_mach_max, band));
+        checks.push_back(check_at_most(
+            {"jettison_dynamic_pressure", "dynamic pressure at heat-shield jettison", "Pa",
+             Severity::physics, source},
+            *parachute.heat_shield_jettison_dynamic_pressure_Pa,
+            lim.jettison_dynamic_pressure_max_Pa, band));
+    }
 }
 
 /// What the entry puts on the payload and the heat shield.
@@ -202,7 +282,9 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
     if (design.body.preset == "mars")
         mars_envelope_checks(design, results, lim, heritage, checks);
     if (results.parachute.deployed)
-        deploy_checks(results.parachute, lim, checks);
+        deploy_checks(design, results.parachute, lim, checks);
+    if (results.parachute.deployed)
+        canopy_load_checks(design, results.parachute, lim, checks);
     entry_load_checks(results.entry, lim, checks);
     landing_checks(results.terminal, lim, checks);
     if (results.timeline.margin_s) {

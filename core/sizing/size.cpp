@@ -167,6 +167,13 @@ bool terminal_cut_short(const Evaluation& e) {
            e.burn->separation_time_s >= e.descent->record.end_time();
 }
 
+/// The flight ends in the air, where the descent under the canopy stopped: with no burn, or
+/// with a burn that separated only at the end of the stopped descent (the "descent stopped"
+/// event). Nothing reaches the ground.
+bool stopped_in_air(const Evaluation& e) {
+    return descent_stopped(e) && (!e.burn || terminal_cut_short(e));
+}
+
 /// The heat shield leaves before the lander does: jettisoned no later than the backshell
 /// separation (or the touchdown, without one). A jettison that would come later is not
 /// reached: the lander has gone with the heat shield still on.
@@ -215,7 +222,8 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
 }
 
-void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
+void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResults& p) {
+    const double radius_m = model.body.radius_m;
     p.drag_coefficient = e.canopy_drag_coefficient;
     p.diameter_m = e.canopy_diameter_m;
     p.mass_kg = e.parachute_kg;
@@ -234,6 +242,9 @@ void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
     p.drag_coefficient_at_deploy = canopy.drag_coefficient_at(c.mach);
     p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach, e.canopy_diameter_m,
                                       e.canopy_drag_coefficient);
+    const double hanging_kg = e.entry.end_state[StateIndex::mass];
+    if (hanging_kg > 0.0)
+        p.opening_load_g = *p.opening_load_N / (hanging_kg * standard_gravity_m_s2);
     p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, c.air_speed_m_s);
     p.deploy_latitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::latitude]);
     p.deploy_longitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::longitude]);
@@ -245,8 +256,14 @@ void fill_parachute(const Evaluation& e, double radius_m, ParachuteResults& p) {
         p.drift_m = great_circle_distance_m(deploy, exit, radius_m);
         p.drift_azimuth_deg = radians_to_degrees(initial_azimuth_rad(deploy, exit));
     }
-    if (jettison_reached(e))
+    if (jettison_reached(e)) {
         p.heat_shield_jettison_time_s = e.descent->jettison_time_s;
+        // The air at the jettison: the drag devices do not change the Mach number or the
+        // dynamic pressure, so no stage is needed.
+        const FlightConditions at = flight_conditions(model, Stage{}, e.descent->jettison_state);
+        p.heat_shield_jettison_mach = at.mach;
+        p.heat_shield_jettison_dynamic_pressure_Pa = at.dynamic_pressure_Pa;
+    }
     if (e.burn) {
         p.descent_velocity_m_s = speed(e.burn->separation_state);
     } else if (e.touchdown_velocity_m_s) {
@@ -698,7 +715,7 @@ Results size_design(const Design& design, SizingOptions options) {
         }
         results.decelerator = d;
     }
-    fill_parachute(e, model.body.radius_m, results.parachute);
+    fill_parachute(e, model, results.parachute);
     fill_terminal(e, design, results.terminal);
     fill_timeline(e, design, results.timeline);
     if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {
@@ -708,7 +725,8 @@ Results size_design(const Design& design, SizingOptions options) {
     }
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
-    if (e.descent && e.lander_kg > 0.0)
+    // Nothing lands from a descent that stopped in the air (the "descent stopped" event).
+    if (e.descent && e.lander_kg > 0.0 && !stopped_in_air(e))
         results.mass.landed_kg = e.landed_kg;
     if (options.capability) {
         results.capability.max_site_elevation_m = max_site_elevation(design, model, e);

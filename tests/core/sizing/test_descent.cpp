@@ -68,8 +68,9 @@ TEST_CASE("closure reproduces a hand-closed budget: items with growth plus the l
     CHECK(r.mass.closure->converged);
     CHECK(r.mass.entry_kg == doctest::Approx(274.8).epsilon(0.1 / 274.8));
     CHECK(r.mass.mode == ds::MassMode::sizing);
-    // Landed on the canopy: everything but the heat shield and the backshell group.
-    CHECK(*r.mass.landed_kg == doctest::Approx(118.0 + 56.0).epsilon(1e-3));
+    // Landed on the canopy: nothing separates, so everything but the heat shield lands, the
+    // backshell group (40 + 10 + 20.8 kg) with it: 274.8 - 30 = 244.8 kg.
+    CHECK(*r.mass.landed_kg == doctest::Approx(118.0 + 56.0 + 40.0 + 10.0 + 20.8).epsilon(1e-3));
 }
 
 TEST_CASE("a closed budget adds up to the entry mass it was flown at, to 0.1 kg") {
@@ -223,6 +224,46 @@ TEST_CASE("none: the capsule lands at the canopy's terminal velocity at the site
     CHECK(*r.terminal.touchdown_velocity_m_s == doctest::Approx(6.0).epsilon(0.01));
 }
 
+TEST_CASE("none: the landed mass keeps the backshell and the parachute, as the flight does") {
+    // Regression: landing on the canopy dropped the backshell and the parachute from the landed
+    // mass, though nothing separates (no "backshell separation" event), while the touchdown was
+    // flown with the full mass.
+    const ds::Design d = sample("earth-return-capsule");
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.mass.landed_kg);
+    CHECK(item_kg(r, "backshell") > 0.0);
+    CHECK_FALSE(find_event(r, "backshell separation"));
+    // The capsule keeps no heat shield (0 kg): the whole entry mass lands, to round-off.
+    CHECK(*r.mass.landed_kg == doctest::Approx(r.mass.entry_kg).epsilon(1e-12));
+    // The touchdown is flown with that mass: at the site the canopy and the suspended body hold
+    // its weight, m g = 1/2 rho v^2 (Cd S + 0.8 A), to 1 % (the fall is quasi-steady there).
+    REQUIRE(r.terminal.touchdown_velocity_m_s);
+    REQUIRE(r.parachute.diameter_m);
+    REQUIRE(r.parachute.drag_coefficient);
+    const double pi = 3.141592653589793;
+    const double canopy_area =
+        *r.parachute.drag_coefficient * pi * std::pow(*r.parachute.diameter_m, 2) / 4.0;
+    const double body_area = 0.8 * pi * std::pow(r.entry.diameter_m, 2) / 4.0;
+    const auto atmosphere = ds::make_atmosphere(d);
+    const double rho = atmosphere->at(d.site.elevation_m).density_kg_m3;
+    const double v = *r.terminal.touchdown_velocity_m_s;
+    const double held_kg = 0.5 * rho * v * v * (canopy_area + body_area) /
+                           ds::flown_body(d).gravity_m_s2(d.site.elevation_m);
+    CHECK(held_kg == doctest::Approx(*r.mass.landed_kg).epsilon(0.01));
+}
+
+TEST_CASE("none: a descent that stops in the air lands nothing") {
+    // Regression: a canopy descent out of its time budget ("descent stopped", kilometres up)
+    // still reported a landed mass.
+    ds::Design d = sample("earth-return-capsule");
+    d.solver.max_time_s = 500.0;  // deploy at 322 s at 10 km, touchdown some 20 minutes later
+    const ds::Results r = ds::size_design(d);
+    REQUIRE_FALSE(r.timeline.events.empty());
+    CHECK(r.timeline.events.back().name == "descent stopped");
+    CHECK(r.timeline.events.back().altitude_m > d.site.elevation_m + 1000.0);
+    CHECK_FALSE(r.mass.landed_kg);
+}
+
 TEST_CASE("heat-shield jettison by dynamic pressure happens as the pressure falls through it") {
     ds::Design d = sample("small-ballistic-station");
     d.sequence.heat_shield_jettison_dynamic_pressure_Pa = 100.0;
@@ -355,6 +396,8 @@ TEST_CASE("a descent out of its time budget ends in \"descent stopped\", never a
         // The lander separated at the end of the stopped descent, the budget's 250 s.
         REQUIRE(find_event(r, "backshell separation"));
         CHECK(std::abs(find_event(r, "backshell separation")->time_s - 250.0) < 1e-9);
+        // Nothing reached the ground: no landed mass (a regression; one was reported).
+        CHECK_FALSE(r.mass.landed_kg);
     }
     // Without a burn, the timeline now ends where the descent stopped.
     d.terminal.method = ds::TerminalMethod::none;
@@ -362,4 +405,5 @@ TEST_CASE("a descent out of its time budget ends in \"descent stopped\", never a
     CHECK(none.timeline.events.back().name == "descent stopped");
     CHECK(std::abs(none.timeline.events.back().time_s - 250.0) < 1e-9);
     CHECK(none.timeline.events.back().altitude_m > d.site.elevation_m + 1000.0);
+    CHECK_FALSE(none.mass.landed_kg);
 }

@@ -282,3 +282,111 @@ TEST_CASE("a vehicle that hits the ground before its trigger still has a landing
     REQUIRE(r.landing);
     CHECK(r.landing->downrange_m > 100000.0);
 }
+
+TEST_CASE("the Mars supersonic deploy window holds on Mars, and elsewhere only where the design "
+          "sets it") {
+    // Regression: the Mars window (Mach up to 2.1, 250-850 Pa) was held on every body, so a
+    // Venus deploy at Mach 0.8 failed the high dynamic-pressure check.
+    const char* window[] = {"deploy_mach", "deploy_dynamic_pressure_high",
+                            "deploy_dynamic_pressure_low"};
+    const ds::Results mars = ds::size_design(sample("small-ballistic-station"));
+    for (const char* id : window) {
+        CAPTURE(id);
+        CHECK(find_check(mars, id));
+    }
+    CHECK_FALSE(find_check(mars, "deploy_window"));
+
+    ds::Design venus = sample("venus-atmospheric-probe");
+    const ds::Results r = ds::size_design(venus);
+    REQUIRE(r.parachute.deployed);
+    // The sample deploys above the Mars window's 850 Pa: it would have failed there.
+    CHECK(*r.parachute.deploy_dynamic_pressure_Pa > 850.0 * 1.1);
+    for (const char* id : window) {
+        CAPTURE(id);
+        CHECK_FALSE(find_check(r, id));
+    }
+    // Not silent: the check list says the window is not checked, with the deploy conditions.
+    const ds::Check* note = find_check(r, "deploy_window");
+    REQUIRE(note);
+    CHECK(note->message.find("not checked") != std::string::npos);
+    CHECK(note->value == *r.parachute.deploy_mach);
+
+    // A bound the design sets applies on any body: 500 Pa fails the Venus deploy.
+    venus.limits.deploy_dynamic_pressure_max_Pa = 500.0;
+    const ds::Results set = ds::size_design(venus);
+    const ds::Check* high = find_check(set, "deploy_dynamic_pressure_high");
+    REQUIRE(high);
+    CHECK(high->status == ds::CheckStatus::fail);
+    CHECK(high->limit == 500.0);
+    CHECK_FALSE(find_check(set, "deploy_mach"));
+    CHECK_FALSE(find_check(set, "deploy_window"));
+}
+
+TEST_CASE("the parachute's opening load is checked in g against the payload's limit") {
+    // Regression: the opening load (about 30 g on a capsule) was reported but never checked.
+    ds::Design d = sample("small-ballistic-station");
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.parachute.opening_load_N);
+    REQUIRE(r.parachute.opening_load_g);
+    // The station drops nothing before deploy: the whole entry mass hangs under the canopy.
+    CHECK(*r.parachute.opening_load_g ==
+          doctest::Approx(*r.parachute.opening_load_N / (r.mass.entry_kg * 9.80665))
+              .epsilon(1e-9));
+    const ds::Check* c = find_check(r, "opening_load");
+    REQUIRE(c);
+    CHECK(c->limit == d.limits.peak_deceleration_max_g);
+    CHECK(c->value == *r.parachute.opening_load_g);
+    // A payload qualified to half the opening load fails.
+    d.limits.peak_deceleration_max_g = 0.5 * *r.parachute.opening_load_g;
+    const ds::Check* low = find_check(ds::size_design(d), "opening_load");
+    REQUIRE(low);
+    CHECK(low->status == ds::CheckStatus::fail);
+}
+
+TEST_CASE("a subsonic canopy (ringsail) deployed supersonic fails") {
+    // Regression: a ringsail deployed at Mach 1.8 passed silently.
+    ds::Design d = sample("small-ballistic-station");
+    CHECK_FALSE(find_check(ds::size_design(d), "subsonic_canopy_mach"));  // a disk-gap-band
+    d.parachute.type = "ringsail";
+    d.parachute.drag_coefficient.reset();
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.parachute.deploy_mach);
+    CHECK(*r.parachute.deploy_mach > 1.5);
+    const ds::Check* c = find_check(r, "subsonic_canopy_mach");
+    REQUIRE(c);
+    CHECK(c->status == ds::CheckStatus::fail);
+    CHECK(c->limit == 1.0);
+    CHECK(c->message.find("subsonic canopy") != std::string::npos);
+}
+
+TEST_CASE("the heat-shield jettison is checked for its Mach number and dynamic pressure") {
+    // Regression: a jettison at 300 Pa (supersonic on some designs) passed every check.
+    ds::Design d = sample("small-ballistic-station");
+    d.sequence.heat_shield_jettison_dynamic_pressure_Pa = 300.0;
+    const ds::Results r = ds::size_design(d);
+    REQUIRE(r.parachute.heat_shield_jettison_dynamic_pressure_Pa);
+    REQUIRE(r.parachute.heat_shield_jettison_mach);
+    // The jettison comes where the dynamic pressure falls through its trigger, to 1e-6.
+    CHECK(*r.parachute.heat_shield_jettison_dynamic_pressure_Pa ==
+          doctest::Approx(300.0).epsilon(1e-6));
+    const ds::Check* q = find_check(r, "jettison_dynamic_pressure");
+    REQUIRE(q);
+    CHECK(q->limit == 200.0);
+    CHECK(q->status == ds::CheckStatus::fail);
+    const ds::Check* mach = find_check(r, "jettison_mach");
+    REQUIRE(mach);
+    CHECK(mach->value == *r.parachute.heat_shield_jettison_mach);
+    CHECK(mach->limit == 0.9);
+    // The Mach number by hand: the air speed over the speed of sound at the jettison altitude
+    // (the station flies no wind: its speed over the ground is its air speed).
+    const ds::TimelineEvent* jettison = nullptr;
+    for (const ds::TimelineEvent& e : r.timeline.events) {
+        if (e.name == "heat-shield jettison")
+            jettison = &e;
+    }
+    REQUIRE(jettison);
+    const auto atmosphere = ds::make_atmosphere(d);
+    const double a = atmosphere->at(jettison->altitude_m).speed_of_sound_m_s;
+    CHECK(*r.parachute.heat_shield_jettison_mach ==
+          doctest::Approx(jettison->velocity_m_s / a).epsilon(1e-6));
+}
