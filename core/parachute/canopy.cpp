@@ -25,12 +25,10 @@ std::span<const CanopyType> canopy_types() {
         // NWC TP 6575; from memory); fill constant 8 and 0.20 kg/m^2 from memory (common
         // practice for a supersonic canopy with its lines, riser and bag).
         CanopyType{"disk-gap-band", 0.55, disk_gap_band_mach, 1.3, 8.0, 0.20,
-                   "AGARD-AG-319 (1991) drag; Knacke NWC TP 6575 opening load (from memory)",
-                   true},
+                   "AGARD-AG-319 (1991) drag; Knacke NWC TP 6575 opening load (from memory)", true},
         // Cd 0.75-0.90, opening load factor about 1.1, fill constant about 7 (Knacke, NWC TP
         // 6575; from memory); subsonic only, so no Mach table; 0.15 kg/m^2 (common practice).
-        CanopyType{"ringsail", 0.80, {}, 1.1, 7.0, 0.15, "Knacke NWC TP 6575 (from memory)",
-                   false},
+        CanopyType{"ringsail", 0.80, {}, 1.1, 7.0, 0.15, "Knacke NWC TP 6575 (from memory)", false},
     };
     return types;
 }

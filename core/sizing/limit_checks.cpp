@@ -148,9 +148,9 @@ void deploy_checks(const Design& design, const ParachuteResults& parachute, cons
                         "deploy at Mach {:.2f} and {:.0f} Pa: set deploy_mach_max and the deploy "
                         "dynamic pressures in \"limits\" to check them",
                         design.body.preset.empty() ? "a custom body" : design.body.preset,
-                        mars.deploy_mach_max,
-                        mars.deploy_dynamic_pressure_min_Pa, mars.deploy_dynamic_pressure_max_Pa,
-                        *parachute.deploy_mach, *parachute.deploy_dynamic_pressure_Pa),
+                        mars.deploy_mach_max, mars.deploy_dynamic_pressure_min_Pa,
+                        mars.deploy_dynamic_pressure_max_Pa, *parachute.deploy_mach,
+                        *parachute.deploy_dynamic_pressure_Pa),
             "no source for this body",
             {}});
     }
@@ -178,9 +178,10 @@ void canopy_load_checks(const Design& design, const ParachuteResults& parachute,
              "a subsonic canopy type has no supersonic qualification (common practice)"},
             *parachute.deploy_mach, lim.subsonic_canopy_deploy_mach_max, band);
         if (c.status == CheckStatus::fail) {
-            c.message += fmt::format("; a {} is a subsonic canopy: deploy it lower or slower, "
-                                     "or use a supersonic type (disk-gap-band)",
-                                     type->name);
+            c.message += fmt::format(
+                "; a {} is a subsonic canopy: deploy it lower or slower, "
+                "or use a supersonic type (disk-gap-band)",
+                type->name);
         }
         checks.push_back(c);
     }
@@ -189,14 +190,13 @@ void canopy_load_checks(const Design& design, const ParachuteResults& parachute,
             "a clean separation of the heat shield, subsonic at low dynamic pressure (common "
             "practice: set the design's own)";
         checks.push_back(check_at_most(
-            {"jettison_mach", "Mach number at heat-shield jettison", "", Severity::physics,
-             source},
+            {"jettison_mach", "Mach number at heat-shield jettison", "", Severity::physics, source},
             *parachute.heat_shield_jettison_mach, lim.jettison_mach_max, band));
-        checks.push_back(check_at_most(
-            {"jettison_dynamic_pressure", "dynamic pressure at heat-shield jettison", "Pa",
-             Severity::physics, source},
-            *parachute.heat_shield_jettison_dynamic_pressure_Pa,
-            lim.jettison_dynamic_pressure_max_Pa, band));
+        checks.push_back(
+            check_at_most({"jettison_dynamic_pressure", "dynamic pressure at heat-shield jettison",
+                           "Pa", Severity::physics, source},
+                          *parachute.heat_shield_jettison_dynamic_pressure_Pa,
+                          lim.jettison_dynamic_pressure_max_Pa, band));
     }
 }
 

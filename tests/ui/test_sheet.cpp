@@ -344,8 +344,10 @@ private slots:
         QTest::newRow("retro") << QStringLiteral("small-ballistic-station.json") << 5;
         // tethered: the same and the descent stage flying away
         QTest::newRow("tethered") << QStringLiteral("lifting-rover-carrier.json") << 6;
-        // none: the capsule keeps its heat shield and burns nothing; the backshell goes
-        QTest::newRow("none") << QStringLiteral("earth-return-capsule.json") << 3;
+        // none: the capsule keeps its heat shield, burns nothing and, landing on its canopy,
+        // separates nothing: entry and landed only (a "backshell separation" bar here was a
+        // drop that the timeline never had)
+        QTest::newRow("none") << QStringLiteral("earth-return-capsule.json") << 2;
     }
 
     void waterfallStepsAddUpToTheLandedMass() {

@@ -374,7 +374,9 @@ std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
     // What leaves the vehicle, in the order it leaves.
     std::vector<std::pair<QString, double>> drops;
     drops.emplace_back(QStringLiteral("heat-shield<br>jettison"), groupKg(MassGroup::heat_shield));
-    drops.emplace_back(QStringLiteral("backshell<br>separation"), groupKg(MassGroup::backshell));
+    if (backshell_separates(results.terminal.method))
+        drops.emplace_back(QStringLiteral("backshell<br>separation"),
+                           groupKg(MassGroup::backshell));
     const double burned = results.terminal.burned_propellant_kg.value_or(0.0);
     if (results.terminal.burned_propellant_kg)
         drops.emplace_back(QStringLiteral("propellant<br>burned"), burned);

@@ -283,8 +283,9 @@ TEST_CASE("a vehicle that hits the ground before its trigger still has a landing
     CHECK(r.landing->downrange_m > 100000.0);
 }
 
-TEST_CASE("the Mars supersonic deploy window holds on Mars, and elsewhere only where the design "
-          "sets it") {
+TEST_CASE(
+    "the Mars supersonic deploy window holds on Mars, and elsewhere only where the design "
+    "sets it") {
     // Regression: the Mars window (Mach up to 2.1, 250-850 Pa) was held on every body, so a
     // Venus deploy at Mach 0.8 failed the high dynamic-pressure check.
     const char* window[] = {"deploy_mach", "deploy_dynamic_pressure_high",
@@ -330,8 +331,7 @@ TEST_CASE("the parachute's opening load is checked in g against the payload's li
     REQUIRE(r.parachute.opening_load_g);
     // The station drops nothing before deploy: the whole entry mass hangs under the canopy.
     CHECK(*r.parachute.opening_load_g ==
-          doctest::Approx(*r.parachute.opening_load_N / (r.mass.entry_kg * 9.80665))
-              .epsilon(1e-9));
+          doctest::Approx(*r.parachute.opening_load_N / (r.mass.entry_kg * 9.80665)).epsilon(1e-9));
     const ds::Check* c = find_check(r, "opening_load");
     REQUIRE(c);
     CHECK(c->limit == d.limits.peak_deceleration_max_g);
