@@ -30,6 +30,7 @@
 #include "heating/sutton_graves.hpp"
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
+#include "support/samples.hpp"
 
 namespace odeint = boost::numeric::odeint;
 
@@ -404,10 +405,7 @@ TEST_CASE(
 TEST_CASE(
     "an inertial entry state is turned planet-relative by v_rel = v_in - w x r (hand "
     "values)") {
-    ds::DesignReadResult read = ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) +
-                                                     "/small-ballistic-station.json");
-    REQUIRE(read.ok());
-    ds::Design d = *read.design;
+    ds::Design d = ds::test::sample("small-ballistic-station");
     d.entry.latitude_deg = 0.0;
     d.entry.longitude_deg = 0.0;
     d.entry.velocity_frame = ds::VelocityFrame::inertial;

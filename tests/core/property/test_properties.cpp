@@ -24,6 +24,7 @@
 #include "design/writer.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
+#include "support/samples.hpp"
 
 namespace {
 
@@ -100,10 +101,7 @@ constexpr std::array triggers{ds::TriggerKind::mach, ds::TriggerKind::mach,
                               ds::TriggerKind::dynamic_pressure, ds::TriggerKind::altitude};
 
 ds::Design base_design() {
-    const ds::DesignReadResult read = ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) +
-                                                           "/small-ballistic-station.json");
-    REQUIRE_MESSAGE(read.ok(), (read.errors.empty() ? "" : read.errors.front().text()));
-    return *read.design;
+    return ds::test::sample("small-ballistic-station");
 }
 
 /// The base design with its inputs drawn within plausible ranges (our choice of ranges), on a

@@ -9,15 +9,11 @@
 #include "design/reader.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "support/samples.hpp"
 
 namespace {
 
-ds::Design sample(const std::string& name) {
-    const ds::DesignReadResult read =
-        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
-    REQUIRE_MESSAGE(read.ok(), (read.errors.empty() ? "" : read.errors.front().text()));
-    return *read.design;
-}
+using ds::test::sample;
 
 const ds::Check* find_check(const ds::Results& r, const std::string& id) {
     const auto it = std::find_if(r.checks.begin(), r.checks.end(),
