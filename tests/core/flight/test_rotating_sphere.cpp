@@ -30,6 +30,7 @@
 #include "heating/sutton_graves.hpp"
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
+#include "support/project_flight.hpp"
 #include "support/samples.hpp"
 
 namespace odeint = boost::numeric::odeint;
@@ -126,27 +127,9 @@ Reference<State> odeint_flight(const System& system, State x, const Mach& mach,
 }
 
 /// The project's flight from the same start: the deploy and its peaks.
-struct ProjectFlight {
-    ds::PhaseOutcome outcome;
-    double peak_deceleration_g = 0.0;
-    double peak_heat_flux = 0.0;
-};
-
-ProjectFlight project_flight(const ds::FlightModel& model, const ds::Stage& stage,
-                             const ds::FlightState& y0) {
-    ds::Phase phase;
-    phase.stage = stage;
-    phase.ends = {{"deploy", ds::FlightQuantity::mach, deploy_mach, ds::EventDirection::falling}};
-    phase.peaks = {{"decel", ds::FlightQuantity::deceleration},
-                   {"heat", ds::FlightQuantity::heat_flux}};
-    ProjectFlight f;
-    f.outcome =
-        ds::fly_phase(model, phase, 0.0, y0, 2000.0, ds::flight_integrator_settings(1e-10, 200000));
-    for (const ds::PeakHit& hit : f.outcome.peaks) {
-        double& slot = hit.peak == 0 ? f.peak_deceleration_g : f.peak_heat_flux;
-        slot = std::max(slot, hit.value);
-    }
-    return f;
+ds::test::ProjectFlight project_flight(const ds::FlightModel& model, const ds::Stage& stage,
+                                       const ds::FlightState& y0) {
+    return ds::test::project_flight(model, stage, y0, deploy_mach, 1e-10, 200000);
 }
 
 // ---- the planar reference --------------------------------------------------------------
@@ -291,7 +274,7 @@ TEST_CASE(
         const double lat = ds::degrees_to_radians(lat_deg);
         const double lon = ds::degrees_to_radians(-40.0);
         const double azimuth = ds::degrees_to_radians(azimuth_deg);
-        const ProjectFlight f = project_flight(
+        const ds::test::ProjectFlight f = project_flight(
             model, planar.stage, ds::make_flight_state(h0, lat, lon, v0, gamma0, azimuth, m0));
         REQUIRE(f.outcome.reason == ds::StopReason::terminal_event);
         const ds::FlightState& y = f.outcome.y;
@@ -326,7 +309,7 @@ TEST_CASE(
     REQUIRE(ref.deploy_time > 0.0);
 
     const ds::FlightModel model{cartesian.body, cartesian.air, &cartesian.wind};
-    const ProjectFlight f = project_flight(
+    const ds::test::ProjectFlight f = project_flight(
         model, cartesian.stage, ds::make_flight_state(h0, lat0, lon0, v0, gamma0, azimuth0, m0));
     REQUIRE(f.outcome.reason == ds::StopReason::terminal_event);
     const ds::FlightState& y = f.outcome.y;

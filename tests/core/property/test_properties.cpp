@@ -24,10 +24,12 @@
 #include "design/writer.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
+#include "support/results_lookup.hpp"
 #include "support/samples.hpp"
 
 namespace {
 
+using ds::test::find_event;
 using Json = nlohmann::ordered_json;
 
 // The run: 2000 designs take about 4 s in a Release build, 20 s allowed (our choice).
@@ -291,12 +293,6 @@ std::string first_non_finite_optional(const ds::Results& r) {
             return name;
     }
     return {};
-}
-
-const ds::TimelineEvent* find_event(const ds::Results& r, std::string_view name) {
-    const auto it = std::find_if(r.timeline.events.begin(), r.timeline.events.end(),
-                                 [&](const ds::TimelineEvent& e) { return e.name == name; });
-    return it == r.timeline.events.end() ? nullptr : &*it;
 }
 
 bool failed(const ds::Results& r, std::string_view check) {

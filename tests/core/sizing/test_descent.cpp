@@ -11,23 +11,14 @@
 #include "design/reader.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "support/results_lookup.hpp"
 #include "support/samples.hpp"
 
 namespace {
 
+using ds::test::find_check;
+using ds::test::find_event;
 using ds::test::sample;
-
-const ds::Check* find_check(const ds::Results& r, const std::string& id) {
-    const auto it = std::find_if(r.checks.begin(), r.checks.end(),
-                                 [&](const ds::Check& c) { return c.id == id; });
-    return it == r.checks.end() ? nullptr : &*it;
-}
-
-const ds::TimelineEvent* find_event(const ds::Results& r, const std::string& name) {
-    const auto it = std::find_if(r.timeline.events.begin(), r.timeline.events.end(),
-                                 [&](const ds::TimelineEvent& e) { return e.name == name; });
-    return it == r.timeline.events.end() ? nullptr : &*it;
-}
 
 double item_kg(const ds::Results& r, const std::string& name) {
     for (const ds::MassItem& item : r.mass.items) {
@@ -100,10 +91,7 @@ TEST_CASE("a budget that cannot close fails its check instead of hanging") {
     d.terminal.isp_s = 3.0;  // propellant grows faster than the mass it brakes
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.converged);
-    const ds::Check* c = find_check(r, "mass_closure");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("does not close") != std::string::npos);
+    ds::test::check_says(r, "mass_closure", ds::CheckStatus::fail, "does not close");
 }
 
 TEST_CASE("the retro lander touches down at its touchdown velocity, at the site, to 0.05 m/s") {
@@ -247,10 +235,8 @@ TEST_CASE("an inflatable decelerator deploys at its trigger and opens the parach
 
 TEST_CASE("a landed mass over the heritage 0.6 t is marginal, naming the technology it needs") {
     const ds::Results r = ds::size_design(sample("lifting-rover-carrier"));
-    const ds::Check* c = find_check(r, "landed_mass");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::marginal);
-    CHECK(c->message.find("supersonic retro-propulsion") != std::string::npos);
+    ds::test::check_says(r, "landed_mass", ds::CheckStatus::marginal,
+                         "supersonic retro-propulsion");
 }
 
 TEST_CASE("a jettison due after the backshell separation is not reached, nor listed after it") {
@@ -272,10 +258,8 @@ TEST_CASE("a jettison due after the backshell separation is not reached, nor lis
     CHECK(separation_after_deploy < 175.0 - 1.0);
     CHECK_FALSE(find_event(r, "heat-shield jettison"));
     CHECK_FALSE(r.parachute.heat_shield_jettison_time_s);
+    ds::test::check_says(r, "heat_shield_jettison", ds::CheckStatus::fail, "not reached");
     const ds::Check* c = find_check(r, "heat_shield_jettison");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("not reached") != std::string::npos);
     // The jettison's delay against the separation, both after deploy: the delay ends the phase
     // exactly, so both differ from the timeline only by round-off (1e-9 s).
     CHECK(std::abs(c->value - 175.0) < 1e-9);

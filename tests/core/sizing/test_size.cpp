@@ -9,17 +9,13 @@
 #include "design/reader.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "support/results_lookup.hpp"
 #include "support/samples.hpp"
 
 namespace {
 
+using ds::test::find_check;
 using ds::test::sample;
-
-const ds::Check* find_check(const ds::Results& r, const std::string& id) {
-    const auto it = std::find_if(r.checks.begin(), r.checks.end(),
-                                 [&](const ds::Check& c) { return c.id == id; });
-    return it == r.checks.end() ? nullptr : &*it;
-}
 
 }  // namespace
 
@@ -111,10 +107,7 @@ TEST_CASE("a design that reaches the ground before its trigger fails with where 
     d.parachute.trigger_value = 0.2;  // Mach 0.2 is never reached above the site
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.parachute.deployed);
-    const ds::Check* c = find_check(r, "parachute_trigger");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("reaches the ground at") != std::string::npos);
+    ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "reaches the ground at");
     CHECK(r.checks.front().status == ds::CheckStatus::fail);
     CHECK(r.timeline.events.back().name == "ground impact");
     CHECK(r.timeline.events.back().altitude_m == doctest::Approx(-1500.0).epsilon(1e-6));
@@ -126,10 +119,7 @@ TEST_CASE("a shallow lifting entry that skips out fails and says so") {
     d.entry.lift_to_drag = 0.6;
     d.entry.velocity_m_s = 6500.0;
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "parachute_trigger");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("skips out") != std::string::npos);
+    ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "skips out");
 }
 
 TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on a skip's climb") {
@@ -145,10 +135,7 @@ TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on 
     // The dynamic pressure rose through 250 Pa (to some 840 Pa) and fell back through it.
     CHECK(r.entry.peak_dynamic_pressure_Pa > 2.0 * 250.0);
     CHECK_FALSE(r.parachute.deployed);
-    const ds::Check* c = find_check(r, "parachute_trigger");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("skips out") != std::string::npos);
+    ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "skips out");
     // The entry ends at the interface altitude, located to 1e-7 s (well under 1 cm here).
     CHECK(r.timeline.events.back().name == "atmospheric exit");
     CHECK(std::abs(r.timeline.events.back().altitude_m - 125000.0) < 0.01);
@@ -173,10 +160,7 @@ TEST_CASE("an exhausted step budget is a failing check and an unconverged result
     d.solver.max_steps = 10;
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.converged);
-    const ds::Check* c = find_check(r, "trajectory");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("step budget") != std::string::npos);
+    ds::test::check_says(r, "trajectory", ds::CheckStatus::fail, "step budget");
 }
 
 TEST_CASE("a denser atmosphere deploys the parachute higher (trend)") {
