@@ -85,19 +85,8 @@ Reference odeint_reference(const Scenario& s) {
         stepper.calc_state(t, probe);
         return probe;
     };
-    // Golden-section search for the maximum of f on [a, b] (f unimodal there).
-    const auto maximise = [&](const std::function<double(double)>& f, double a, double b) {
-        const double ratio = (std::sqrt(5.0) - 1.0) / 2.0;
-        while (b - a > 1e-7) {
-            const double c = b - ratio * (b - a);
-            const double d = a + ratio * (b - a);
-            if (f(c) > f(d))
-                b = d;
-            else
-                a = c;
-        }
-        return f(0.5 * (a + b));
-    };
+    using ds::test::maximise;
+
     const auto deceleration = [&](double t) { return conditions(state_at(t)).deceleration_g; };
     const auto heat_flux = [&](double t) {
         return conditions(state_at(t)).convective_heat_flux_W_m2;

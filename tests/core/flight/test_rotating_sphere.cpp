@@ -60,19 +60,7 @@ ds::Stage entry_stage(double lift_to_drag, double bank_deg) {
     return s;
 }
 
-/// Golden-section search for the maximum of f on [a, b] (f unimodal there).
-double maximise(const std::function<double(double)>& f, double a, double b) {
-    const double ratio = (std::sqrt(5.0) - 1.0) / 2.0;
-    while (b - a > 1e-7) {
-        const double c = b - ratio * (b - a);
-        const double d = a + ratio * (b - a);
-        if (f(c) > f(d))
-            b = d;
-        else
-            a = c;
-    }
-    return f(0.5 * (a + b));
-}
+using ds::test::maximise;
 
 /// What a reference integration reports: the deploy (Mach falling through 1.8) and the peaks.
 template <class State>
