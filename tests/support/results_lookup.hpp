@@ -27,14 +27,20 @@ inline const TimelineEvent* find_event(const Results& r, std::string_view name) 
     return it == r.timeline.events.end() ? nullptr : &*it;
 }
 
-/// The check `id` is there with `status`, and its message says `words`.
-inline void check_says(const Results& r, std::string_view id, CheckStatus status,
-                       std::string_view words) {
+/// The check `id`, which must be there, checked to have `status`.
+inline const Check& require_check(const Results& r, std::string_view id, CheckStatus status) {
     CAPTURE(id);
     const Check* c = find_check(r, id);
     REQUIRE(c);
     CHECK(c->status == status);
-    CHECK(c->message.find(words) != std::string::npos);
+    return *c;
+}
+
+/// The check `id` is there with `status`, and its message says `words`.
+inline void check_says(const Results& r, std::string_view id, CheckStatus status,
+                       std::string_view words) {
+    const Check& c = require_check(r, id, status);
+    CHECK(c.message.find(words) != std::string::npos);
 }
 
 }  // namespace ds::test

@@ -161,9 +161,7 @@ TEST_CASE("thrust below weight cannot land: a failing check with the impact spee
     ds::Design d = sample("small-ballistic-station");
     d.terminal.throttle = 0.35;  // 0.35 x 2.5 = 0.875 of the weight
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "terminal_burn");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
+    const ds::Check* c = &ds::test::require_check(r, "terminal_burn", ds::CheckStatus::fail);
     CHECK(c->value > 10.0);
     CHECK(find_check(r, "touchdown_velocity")->status == ds::CheckStatus::fail);
 }
@@ -284,9 +282,7 @@ TEST_CASE("parts heavier than the vehicle fail drop_mass, with no negative thrus
     ds::Design d = sample("small-ballistic-station");
     d.parachute.mass_kg = 600.0;
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "drop_mass");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
+    const ds::Check* c = &ds::test::require_check(r, "drop_mass", ds::CheckStatus::fail);
     // Dropped: the heat shield, the backshell (an estimate) and the canopy; the sum is exact up
     // to round-off.
     const double dropped = item_kg(r, "heat shield") + item_kg(r, "backshell") +

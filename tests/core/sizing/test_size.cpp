@@ -184,9 +184,7 @@ TEST_CASE("a limit set in the design changes the check (peak deceleration over a
     ds::Design d = sample("small-ballistic-station");
     d.limits.peak_deceleration_max_g = 5.0;
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "peak_deceleration");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
+    const ds::Check* c = &ds::test::require_check(r, "peak_deceleration", ds::CheckStatus::fail);
     CHECK(c->limit == 5.0);
 }
 
