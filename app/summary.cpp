@@ -8,6 +8,8 @@
 
 #include <fmt/format.h>
 
+#include "enum_names.hpp"
+
 namespace ds {
 namespace {
 
@@ -37,16 +39,12 @@ void text_row(std::string& out, std::string_view label, std::string_view text) {
     fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12}\n", label, label_width, text);
 }
 
+constexpr Names<CheckStatus, 3> status_tags{{{CheckStatus::fail, "FAIL"},
+                                             {CheckStatus::marginal, "MARGINAL"},
+                                             {CheckStatus::pass, "pass"}}};
+
 std::string_view status_tag(CheckStatus status) {
-    switch (status) {
-        case CheckStatus::fail:
-            return "FAIL";
-        case CheckStatus::marginal:
-            return "MARGINAL";
-        case CheckStatus::pass:
-            return "pass";
-    }
-    return "";
+    return name_of(status_tags, status);
 }
 
 void write_header(std::string& out, const Design& design, const Results& results) {

@@ -1,13 +1,9 @@
 #include "design/design.hpp"
 
-#include <array>
-#include <utility>
+#include "enum_names.hpp"
 
 namespace ds {
 namespace {
-
-template <class Enum, std::size_t Count>
-using Names = std::array<std::pair<Enum, std::string_view>, Count>;
 
 constexpr Names<AtmosphereModel, 3> atmosphere_models{
     {{AtmosphereModel::exponential, "exponential"},
@@ -31,32 +27,6 @@ constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
 
 constexpr Names<VelocityFrame, 2> velocity_frames{
     {{VelocityFrame::relative, "relative"}, {VelocityFrame::inertial, "inertial"}}};
-
-template <class Enum, std::size_t Count>
-std::string_view name_of(const Names<Enum, Count>& names, Enum value) {
-    for (const auto& [e, name] : names) {
-        if (e == value)
-            return name;
-    }
-    return {};
-}
-
-template <class Enum, std::size_t Count>
-std::optional<Enum> value_of(const Names<Enum, Count>& names, std::string_view name) {
-    for (const auto& [e, n] : names) {
-        if (n == name)
-            return e;
-    }
-    return std::nullopt;
-}
-
-template <class Enum, std::size_t Count>
-std::vector<std::string_view> all_names(const Names<Enum, Count>& names) {
-    std::vector<std::string_view> all;
-    for (const auto& [e, name] : names)
-        all.push_back(name);
-    return all;
-}
 
 }  // namespace
 

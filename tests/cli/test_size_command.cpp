@@ -1,62 +1,36 @@
 // The `size` command as a user runs it: the binary, its exit codes and what it prints.
 
-#include <sys/wait.h>
-
 #include <cmath>
-#include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <functional>
-#include <sstream>
 #include <string>
 
 #include <doctest/doctest.h>
 #include <nlohmann/json.hpp>
 
+#include "support/command_line.hpp"
+
 namespace fs = std::filesystem;
 
 namespace {
 
-struct Run {
-    int exit_code = -1;
-    std::string out;
-    std::string err;
-};
-
-std::string slurp(const fs::path& file) {
-    std::ifstream in(file);
-    std::stringstream text;
-    text << in.rdbuf();
-    return text.str();
-}
+using ds::test::file_text;
+using ds::test::Run;
 
 Run run(const std::string& arguments) {
-    const fs::path dir = fs::temp_directory_path() / "descent-sizer-cli-test";
-    fs::create_directories(dir);
-    const fs::path out = dir / "stdout.txt";
-    const fs::path err = dir / "stderr.txt";
-    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments + " >'" +
-                                out.string() + "' 2>'" + err.string() + "'";
-    const int status = std::system(command.c_str());
-    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, slurp(out), slurp(err)};
+    return ds::test::run_binary(arguments, ds::test::scratch("descent-sizer-cli-test"));
 }
 
 std::string sample(const std::string& name) {
-    return std::string("'") + DESCENT_SIZER_SAMPLES_DIR + "/" + name + ".json'";
+    return ds::test::sample_argument(name);
 }
 
 /// The small station sample with one change, written to a temporary file.
 std::string variant(const std::string& name, const std::function<void(nlohmann::json&)>& edit) {
-    nlohmann::json doc = nlohmann::json::parse(
-        slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json"));
-    edit(doc);
-    const fs::path file = fs::temp_directory_path() / ("descent-sizer-" + name + ".json");
-    std::ofstream(file) << doc.dump(2);
-    // Appended rather than "'" + ...: GCC 12 at -O3 warns (-Wrestrict) on that operator+ by
-    // mistake (GCC bug 105329, from memory).
-    std::string quoted = "'";
-    quoted += file.string();
-    return quoted + "'";
+    return ds::test::variant_argument(
+        "small-ballistic-station",
+        std::filesystem::temp_directory_path() / ("descent-sizer-" + name + ".json"), edit);
 }
 
 }  // namespace
@@ -161,7 +135,7 @@ TEST_CASE("sheet writes the sizing sheet as HTML, CSV and PDF by the file's exte
             run("sheet " + sample("small-ballistic-station") + " -o '" + out.string() + "'");
         CHECK(r.exit_code == 0);
         REQUIRE(fs::exists(out));
-        const std::string text = slurp(out);
+        const std::string text = file_text(out);
         if (out.extension() == ".html") {
             CHECK(text.find("Sizing sheet: Small ballistic science station") != std::string::npos);
             CHECK(text.find("Conceptual sizing estimates") != std::string::npos);

@@ -2,50 +2,32 @@
 // binary, their numbers checked against the size command and against each other, and their
 // error exits.
 
-#include <sys/wait.h>
-
 #include <cmath>
-#include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <functional>
-#include <sstream>
 #include <string>
 
 #include <doctest/doctest.h>
 #include <nlohmann/json.hpp>
+
+#include "support/command_line.hpp"
 
 namespace fs = std::filesystem;
 using Json = nlohmann::json;
 
 namespace {
 
-struct Run {
-    int exit_code = -1;
-    std::string out;
-    std::string err;
-};
-
-std::string slurp(const fs::path& file) {
-    std::ifstream in(file);
-    std::stringstream text;
-    text << in.rdbuf();
-    return text.str();
-}
+using ds::test::file_text;
+using ds::test::quoted;
+using ds::test::Run;
 
 fs::path scratch() {
-    const fs::path dir = fs::temp_directory_path() / "descent-sizer-trade-cli-test";
-    fs::create_directories(dir);
-    return dir;
+    return ds::test::scratch("descent-sizer-trade-cli-test");
 }
 
 Run run(const std::string& arguments) {
-    const fs::path out = scratch() / "stdout.txt";
-    const fs::path err = scratch() / "stderr.txt";
-    const std::string command = std::string("'") + DESCENT_SIZER_BINARY + "' " + arguments + " >'" +
-                                out.string() + "' 2>'" + err.string() + "'";
-    const int status = std::system(command.c_str());
-    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, slurp(out), slurp(err)};
+    return ds::test::run_binary(arguments, scratch());
 }
 
 /// Runs a command that must succeed and returns what it printed.
@@ -56,26 +38,14 @@ std::string output(const std::string& arguments) {
     return r.out;
 }
 
-/// A path quoted for the shell. Appended rather than "'" + ...: GCC 12 at -O3 warns
-/// (-Wrestrict) on that operator+ by mistake (GCC bug 105329, from memory).
-std::string quoted(const fs::path& file) {
-    std::string text = "'";
-    text += file.string();
-    return text + "'";
-}
-
 std::string sample(const std::string& name) {
-    return std::string("'") + DESCENT_SIZER_SAMPLES_DIR + "/" + name + ".json'";
+    return ds::test::sample_argument(name);
 }
 
 /// A sample with one change, written to a scratch file.
 std::string variant(const std::string& base, const std::string& name,
                     const std::function<void(Json&)>& edit) {
-    Json doc = Json::parse(slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + base + ".json"));
-    edit(doc);
-    const fs::path file = scratch() / (name + ".json");
-    std::ofstream(file) << doc.dump(2);
-    return quoted(file);
+    return ds::test::variant_argument(base, scratch() / (name + ".json"), edit);
 }
 
 /// The text written to a scratch file, quoted for the command line.
@@ -183,8 +153,7 @@ TEST_CASE(
     // 40 draws put the sample mean within 4 standard errors, 4 * 0.5 / sqrt(40) = 0.32 kg.
     const Json& mass = one["summary"]["figures"]["entry_mass"];
     CHECK(mass["count"] == 40);
-    const Json design =
-        Json::parse(slurp(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/earth-return-capsule.json"));
+    const Json design = Json::parse(file_text(ds::test::sample_path("earth-return-capsule")));
     CHECK(std::abs(mass["mean"].get<double>() - design["mass"]["entry_kg"].get<double>()) < 0.32);
     const double p = one["summary"]["success_probability"].get<double>();
     CHECK(p >= 0.0);

@@ -117,47 +117,41 @@ constexpr std::array aliases{
     Alias{"\u00b0F", "F"},  Alias{"degF", "F"},         Alias{"kt", "kn"},
 };
 
-constexpr std::array all_dimensions{
-    Dimension::dimensionless, Dimension::length,      Dimension::mass,
-    Dimension::velocity,      Dimension::angle,       Dimension::pressure,
-    Dimension::density,       Dimension::temperature, Dimension::time,
-    Dimension::area_density,  Dimension::heat_flux,   Dimension::acceleration,
-    Dimension::angular_rate,  Dimension::force,
+/// Every dimension, in the order the messages list them: its units (the SI one first) and how
+/// the messages name it ("a length").
+struct DimensionRow {
+    Dimension dimension;
+    std::span<const Unit> units;
+    std::string_view description;
 };
+
+constexpr std::array<DimensionRow, 14> dimensions{{
+    {Dimension::dimensionless, dimensionless_units, "a bare number"},
+    {Dimension::length, length_units, "a length"},
+    {Dimension::mass, mass_units, "a mass"},
+    {Dimension::velocity, velocity_units, "a velocity"},
+    {Dimension::angle, angle_units, "an angle"},
+    {Dimension::pressure, pressure_units, "a pressure"},
+    {Dimension::density, density_units, "a density"},
+    {Dimension::temperature, temperature_units, "a temperature"},
+    {Dimension::time, time_units, "a time"},
+    {Dimension::area_density, area_density_units, "a mass per area"},
+    {Dimension::heat_flux, heat_flux_units, "a heat flux"},
+    {Dimension::acceleration, acceleration_units, "an acceleration"},
+    {Dimension::angular_rate, angular_rate_units, "an angular rate"},
+    {Dimension::force, force_units, "a force"},
+}};
+
+const DimensionRow& rowOf(Dimension dimension) {
+    const auto found =
+        std::find_if(dimensions.begin(), dimensions.end(),
+                     [dimension](const DimensionRow& row) { return row.dimension == dimension; });
+    return found == dimensions.end() ? dimensions.front() : *found;
+}
 
 /// "a length", as the messages name a dimension.
 std::string_view describe(Dimension dimension) {
-    switch (dimension) {
-        case Dimension::dimensionless:
-            return "a bare number";
-        case Dimension::length:
-            return "a length";
-        case Dimension::mass:
-            return "a mass";
-        case Dimension::velocity:
-            return "a velocity";
-        case Dimension::angle:
-            return "an angle";
-        case Dimension::pressure:
-            return "a pressure";
-        case Dimension::density:
-            return "a density";
-        case Dimension::temperature:
-            return "a temperature";
-        case Dimension::time:
-            return "a time";
-        case Dimension::area_density:
-            return "a mass per area";
-        case Dimension::heat_flux:
-            return "a heat flux";
-        case Dimension::acceleration:
-            return "an acceleration";
-        case Dimension::angular_rate:
-            return "an angular rate";
-        case Dimension::force:
-            return "a force";
-    }
-    return "a quantity";
+    return rowOf(dimension).description;
 }
 
 const Unit* findUnit(std::string_view symbol, Dimension dimension) {
@@ -195,9 +189,10 @@ std::string unitError(std::string_view symbol, Dimension dimension) {
         return message.append(" is not expected: type a bare number");
     }
     std::string others;
-    for (const auto other : all_dimensions) {
+    for (const auto& row : dimensions) {
+        const Dimension other = row.dimension;
         if (other != dimension && other != Dimension::dimensionless && findUnit(symbol, other)) {
-            others.append(others.empty() ? "" : " or ").append(describe(other));
+            others.append(others.empty() ? "" : " or ").append(row.description);
         }
     }
     if (!others.empty()) {
@@ -229,37 +224,7 @@ std::string trimZeros(std::string text) {
 }  // namespace
 
 std::span<const Unit> unitsOf(Dimension dimension) {
-    switch (dimension) {
-        case Dimension::dimensionless:
-            return dimensionless_units;
-        case Dimension::length:
-            return length_units;
-        case Dimension::mass:
-            return mass_units;
-        case Dimension::velocity:
-            return velocity_units;
-        case Dimension::angle:
-            return angle_units;
-        case Dimension::pressure:
-            return pressure_units;
-        case Dimension::density:
-            return density_units;
-        case Dimension::temperature:
-            return temperature_units;
-        case Dimension::time:
-            return time_units;
-        case Dimension::area_density:
-            return area_density_units;
-        case Dimension::heat_flux:
-            return heat_flux_units;
-        case Dimension::acceleration:
-            return acceleration_units;
-        case Dimension::angular_rate:
-            return angular_rate_units;
-        case Dimension::force:
-            return force_units;
-    }
-    return dimensionless_units;
+    return rowOf(dimension).units;
 }
 
 std::string_view siUnit(Dimension dimension) {

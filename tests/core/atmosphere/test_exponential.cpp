@@ -3,14 +3,13 @@
 #include <cmath>
 
 #include "atmosphere/exponential.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
 // Approx with a purely relative tolerance (doctest's default scale of 1 would make it absolute
 // for small densities).
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::relative;
 
 // A Mars-like exponential profile, the example of the design contract (design-file.md).
 constexpr ds::ExponentialAtmosphere::Parameters mars_like{

@@ -3,12 +3,11 @@
 #include <cmath>
 
 #include "atmosphere/mars_reference.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::relative;
 
 constexpr double mars_gas_constant_J_kgK = 191.8;  // 43.34 g/mol mixture, references.md (derived)
 constexpr double mars_gamma = 1.29;                // references.md (from memory)

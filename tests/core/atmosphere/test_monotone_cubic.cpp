@@ -7,12 +7,11 @@
 #include <vector>
 
 #include "atmosphere/monotone_cubic.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::relative;
 
 bool within(double value, double expected, double absolute_tolerance) {
     return std::abs(value - expected) <= absolute_tolerance;

@@ -4,12 +4,11 @@
 #include <initializer_list>
 
 #include "atmosphere/standard.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::relative;
 
 // Any gas: the presets other than Earth must pass it through to the speed of sound.
 constexpr double test_gas_constant_J_kgK = 191.8;

@@ -6,12 +6,11 @@
 #include <vector>
 
 #include "atmosphere/table.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::relative;
 
 constexpr double gas_constant_J_kgK = 188.9;  // CO2, references.md (derived)
 constexpr double gamma_co2 = 1.29;            // references.md (from memory)

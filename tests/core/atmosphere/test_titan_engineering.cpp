@@ -6,12 +6,13 @@
 #include "atmosphere/reference_profile.hpp"
 #include "atmosphere/titan_engineering.hpp"
 #include "body/body.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::layer_weight_Pa;
+using ds::test::printed_half_unit;
+using ds::test::relative;
 
 // Titan nominal engineering profile as quoted by Justus and Braun (2007) from Yelle et al.
 // (1997), listed in references.md (one secondary source): z, rho, T, with the density's
@@ -40,24 +41,6 @@ ds::ReferenceProfileAtmosphere titan() {
                                           nitrogen_gas_constant_J_kgK, nitrogen_gamma);
 }
 
-double printed_half_unit(double value, int figures) {
-    return 0.5 * std::pow(10.0, std::floor(std::log10(value)) - (figures - 1)) / value;
-}
-
-/// Simpson's rule of rho g over [h0, h1] on the model: the weight of the layer per m^2.
-double layer_weight_Pa(const ds::Atmosphere& atmosphere, const ds::Body& body, double h0,
-                       double h1) {
-    constexpr int intervals = 2000;  // even
-    const double step = (h1 - h0) / intervals;
-    double sum = 0.0;
-    for (int k = 0; k <= intervals; ++k) {
-        const double h = h0 + k * step;
-        const double weight = (k == 0 || k == intervals) ? 1.0 : (k % 2 == 1 ? 4.0 : 2.0);
-        sum += weight * atmosphere.at(h).density_kg_m3 * body.gravity_m_s2(h);
-    }
-    return sum * step / 3.0;
-}
-
 }  // namespace
 
 TEST_CASE(
@@ -80,21 +63,11 @@ TEST_CASE(
     "Titan density between the rows is continuous, monotone and without a kink in its "
     "slope (reference_profile.hpp construction)") {
     const auto atmosphere = titan();
-    double previous = atmosphere.at(-1000.0).density_kg_m3;
-    for (double h = -900.0; h <= 1500000.0; h += 100.0) {
-        CAPTURE(h);
-        const double rho = atmosphere.at(h).density_kg_m3;
-        CHECK(rho < previous);
-        previous = rho;
-    }
+    ds::test::check_density_falls(atmosphere, -1000.0, 1500000.0, 100.0);
     for (const TitanRow& row : titan_rows) {
         CAPTURE(row.altitude_m);
-        // Source: continuity by construction; 1e-9 relative across a 2e-6 m step.
-        CHECK(atmosphere.at(row.altitude_m + 1e-6).density_kg_m3 ==
-              relative(atmosphere.at(row.altitude_m - 1e-6).density_kg_m3, 1e-9));
-        // The slope 20 m either side of a row changes by the cubic's curvature only.
-        CHECK(atmosphere.log_density_slope_per_m(row.altitude_m + 20.0) ==
-              relative(atmosphere.log_density_slope_per_m(row.altitude_m - 20.0), 5e-3));
+        ds::test::check_density_continuous_at(atmosphere, row.altitude_m);
+        ds::test::check_no_slope_kink_at(atmosphere, row.altitude_m);
     }
 }
 

@@ -4,12 +4,11 @@
 #include <initializer_list>
 
 #include "atmosphere/us_standard_1976.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::relative;
 
 // US Standard Atmosphere, 1976 (NOAA/NASA/USAF) at geometric altitudes, as listed in
 // references.md ("derived from its constants").

@@ -6,12 +6,13 @@
 #include "atmosphere/reference_profile.hpp"
 #include "atmosphere/venus_reference.hpp"
 #include "body/body.hpp"
+#include "support/atmosphere_checks.hpp"
 
 namespace {
 
-doctest::Approx relative(double expected, double tolerance) {
-    return doctest::Approx(expected).epsilon(tolerance).scale(0.0);
-}
+using ds::test::layer_weight_Pa;
+using ds::test::printed_half_unit;
+using ds::test::relative;
 
 // Venus International Reference Atmosphere, Seiff et al., Adv. Space Res. 5(11), 1985, as
 // quoted in references.md (secondary): z, T, p, rho, with the number of printed significant
@@ -51,25 +52,6 @@ ds::Body venus_body() {
     return *ds::body_preset("venus");
 }
 
-/// Half a unit in the last printed figure, relative to the value.
-double printed_half_unit(double value, int figures) {
-    return 0.5 * std::pow(10.0, std::floor(std::log10(value)) - (figures - 1)) / value;
-}
-
-/// Simpson's rule of rho g over [h0, h1] on the model: the weight of the layer per m^2.
-double layer_weight_Pa(const ds::Atmosphere& atmosphere, const ds::Body& body, double h0,
-                       double h1) {
-    constexpr int intervals = 2000;  // even
-    const double step = (h1 - h0) / intervals;
-    double sum = 0.0;
-    for (int k = 0; k <= intervals; ++k) {
-        const double h = h0 + k * step;
-        const double weight = (k == 0 || k == intervals) ? 1.0 : (k % 2 == 1 ? 4.0 : 2.0);
-        sum += weight * atmosphere.at(h).density_kg_m3 * body.gravity_m_s2(h);
-    }
-    return sum * step / 3.0;
-}
-
 }  // namespace
 
 TEST_CASE(
@@ -107,18 +89,10 @@ TEST_CASE(
     "Venus density between the VIRA rows is continuous and falls monotonically "
     "(reference_profile.hpp construction)") {
     const auto atmosphere = venus();
-    double previous = atmosphere.at(-2000.0).density_kg_m3;
-    for (double h = -1900.0; h <= 250000.0; h += 100.0) {
-        CAPTURE(h);
-        const double rho = atmosphere.at(h).density_kg_m3;
-        CHECK(rho < previous);
-        previous = rho;
-    }
+    ds::test::check_density_falls(atmosphere, -2000.0, 250000.0, 100.0);
     for (const ViraRow& row : vira) {
         CAPTURE(row.altitude_m);
-        // Source: continuity by construction; 1e-9 relative across a 2e-6 m step.
-        CHECK(atmosphere.at(row.altitude_m + 1e-6).density_kg_m3 ==
-              relative(atmosphere.at(row.altitude_m - 1e-6).density_kg_m3, 1e-9));
+        ds::test::check_density_continuous_at(atmosphere, row.altitude_m);
         CHECK(atmosphere.at(row.altitude_m + 1e-6).temperature_K ==
               relative(atmosphere.at(row.altitude_m - 1e-6).temperature_K, 1e-9));
     }
@@ -130,12 +104,9 @@ TEST_CASE(
     const auto atmosphere = venus();
     for (const ViraRow& row : vira) {
         CAPTURE(row.altitude_m);
-        // The slope 20 m either side of a row: a log-linear table would step by 13-41 %
-        // here (the layers' mean slopes differ that much); the cubic changes by its
-        // curvature over 40 m only, well under 0.5 %.
-        const double below = atmosphere.log_density_slope_per_m(row.altitude_m - 20.0);
-        const double above = atmosphere.log_density_slope_per_m(row.altitude_m + 20.0);
-        CHECK(above == relative(below, 5e-3));
+        // A log-linear table would step by 13-41 % here (the layers' mean slopes differ that
+        // much).
+        ds::test::check_no_slope_kink_at(atmosphere, row.altitude_m);
     }
 }
 

@@ -59,25 +59,32 @@ TEST_CASE("a CSV table reads with comments, blank lines, spaces and columns in a
     CHECK(table.lines == std::vector<int>{4, 6, 8});
 }
 
-TEST_CASE("the CSV header must name exactly the three columns") {
-    CHECK(read_error("unknown.csv", "altitude_m,density_kg_m3,temperature_K,pressure_Pa\n") ==
-          "line 1: unknown column pressure_Pa");
-    CHECK(read_error("short_header.csv", "# comment\naltitude_m,density_kg_m3\n0,1,200\n") ==
-          "line 2: missing column temperature_K");
-    CHECK(read_error("twice.csv", "altitude_m,altitude_m,temperature_K\n") ==
-          "line 1: column altitude_m given twice");
-    CHECK(read_error("empty.csv", "# nothing here\n\n") ==
-          "no header line naming the columns altitude_m, density_kg_m3, temperature_K");
-}
-
-TEST_CASE("a CSV row with too few or too many values names its line") {
-    CHECK(read_error("few.csv",
-                     "altitude_m,density_kg_m3,temperature_K\n0,0.02,210\n\n1000,0.018\n") ==
-          "line 4: missing column temperature_K");
-    CHECK(read_error("many.csv", "altitude_m,density_kg_m3,temperature_K\n0,0.02,210,5\n") ==
-          "line 2: 4 values for 3 columns");
-    CHECK(read_error("blank_value.csv", "altitude_m,density_kg_m3,temperature_K\n0,,210\n") ==
-          "line 2: empty value in column density_kg_m3");
+TEST_CASE("a CSV header must name exactly the three columns, and a row must give all three") {
+    struct BadCsv {
+        const char* file;
+        const char* text;
+        const char* error;
+    };
+    const BadCsv cases[] = {
+        {"unknown.csv", "altitude_m,density_kg_m3,temperature_K,pressure_Pa\n",
+         "line 1: unknown column pressure_Pa"},
+        {"short_header.csv", "# comment\naltitude_m,density_kg_m3\n0,1,200\n",
+         "line 2: missing column temperature_K"},
+        {"twice.csv", "altitude_m,altitude_m,temperature_K\n",
+         "line 1: column altitude_m given twice"},
+        {"empty.csv", "# nothing here\n\n",
+         "no header line naming the columns altitude_m, density_kg_m3, temperature_K"},
+        {"few.csv", "altitude_m,density_kg_m3,temperature_K\n0,0.02,210\n\n1000,0.018\n",
+         "line 4: missing column temperature_K"},
+        {"many.csv", "altitude_m,density_kg_m3,temperature_K\n0,0.02,210,5\n",
+         "line 2: 4 values for 3 columns"},
+        {"blank_value.csv", "altitude_m,density_kg_m3,temperature_K\n0,,210\n",
+         "line 2: empty value in column density_kg_m3"},
+    };
+    for (const BadCsv& bad : cases) {
+        CAPTURE(bad.file);
+        CHECK(read_error(bad.file, bad.text) == bad.error);
+    }
 }
 
 TEST_CASE("every CSV value must be a finite number") {

@@ -15,6 +15,7 @@
 #include "body/body.hpp"
 #include "constants.hpp"
 #include "flight/phase.hpp"
+#include "support/project_flight.hpp"
 
 namespace odeint = boost::numeric::odeint;
 
@@ -84,19 +85,8 @@ Reference odeint_reference(const Scenario& s) {
         stepper.calc_state(t, probe);
         return probe;
     };
-    // Golden-section search for the maximum of f on [a, b] (f unimodal there).
-    const auto maximise = [&](const std::function<double(double)>& f, double a, double b) {
-        const double ratio = (std::sqrt(5.0) - 1.0) / 2.0;
-        while (b - a > 1e-7) {
-            const double c = b - ratio * (b - a);
-            const double d = a + ratio * (b - a);
-            if (f(c) > f(d))
-                b = d;
-            else
-                a = c;
-        }
-        return f(0.5 * (a + b));
-    };
+    using ds::test::maximise;
+
     const auto deceleration = [&](double t) { return conditions(state_at(t)).deceleration_g; };
     const auto heat_flux = [&](double t) {
         return conditions(state_at(t)).convective_heat_flux_W_m2;
@@ -133,27 +123,9 @@ Reference odeint_reference(const Scenario& s) {
     }
 }
 
-struct ProjectFlight {
-    ds::PhaseOutcome outcome;
-    double peak_deceleration_g = 0.0;
-    double peak_heat_flux = 0.0;
-};
-
-ProjectFlight project_flight(const Scenario& s) {
-    ds::Phase phase;
-    phase.stage = s.stage;
-    phase.ends = {{"deploy", ds::FlightQuantity::mach, s.deploy_mach, ds::EventDirection::falling}};
-    phase.peaks = {{"decel", ds::FlightQuantity::deceleration},
-                   {"heat", ds::FlightQuantity::heat_flux}};
-    const ds::FlightModel model{s.body, s.atmosphere};
-    ProjectFlight f;
-    f.outcome = ds::fly_phase(model, phase, 0.0, s.y0, 2000.0,
-                              ds::flight_integrator_settings(1e-8, 100000));
-    for (const ds::PeakHit& hit : f.outcome.peaks) {
-        double& slot = hit.peak == 0 ? f.peak_deceleration_g : f.peak_heat_flux;
-        slot = std::max(slot, hit.value);
-    }
-    return f;
+ds::test::ProjectFlight project_flight(const Scenario& s) {
+    return ds::test::project_flight(ds::FlightModel{s.body, s.atmosphere}, s.stage, s.y0,
+                                    s.deploy_mach, 1e-8, 100000);
 }
 
 }  // namespace
@@ -161,7 +133,7 @@ ProjectFlight project_flight(const Scenario& s) {
 TEST_CASE("deploy time and state agree with Boost.Odeint to 1e-5 on a lifting Mars entry") {
     const Scenario s = lifting_mars_entry();
     const Reference ref = odeint_reference(s);
-    const ProjectFlight f = project_flight(s);
+    const ds::test::ProjectFlight f = project_flight(s);
     REQUIRE(f.outcome.reason == ds::StopReason::terminal_event);
     CHECK(f.outcome.time_s == doctest::Approx(ref.deploy_time).epsilon(1e-5));
     CHECK(f.outcome.y[ds::StateIndex::altitude] ==
@@ -179,7 +151,7 @@ TEST_CASE("deploy time and state agree with Boost.Odeint to 1e-5 on a lifting Ma
 TEST_CASE("peak deceleration and peak heat flux agree with Boost.Odeint to 1e-5") {
     const Scenario s = lifting_mars_entry();
     const Reference ref = odeint_reference(s);
-    const ProjectFlight f = project_flight(s);
+    const ds::test::ProjectFlight f = project_flight(s);
     REQUIRE(ref.peak_deceleration_g > 0.0);
     REQUIRE(ref.peak_heat_flux > 0.0);
     CHECK(f.peak_deceleration_g == doctest::Approx(ref.peak_deceleration_g).epsilon(1e-5));

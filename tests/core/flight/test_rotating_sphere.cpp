@@ -30,6 +30,8 @@
 #include "heating/sutton_graves.hpp"
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
+#include "support/project_flight.hpp"
+#include "support/samples.hpp"
 
 namespace odeint = boost::numeric::odeint;
 
@@ -58,19 +60,7 @@ ds::Stage entry_stage(double lift_to_drag, double bank_deg) {
     return s;
 }
 
-/// Golden-section search for the maximum of f on [a, b] (f unimodal there).
-double maximise(const std::function<double(double)>& f, double a, double b) {
-    const double ratio = (std::sqrt(5.0) - 1.0) / 2.0;
-    while (b - a > 1e-7) {
-        const double c = b - ratio * (b - a);
-        const double d = a + ratio * (b - a);
-        if (f(c) > f(d))
-            b = d;
-        else
-            a = c;
-    }
-    return f(0.5 * (a + b));
-}
+using ds::test::maximise;
 
 /// What a reference integration reports: the deploy (Mach falling through 1.8) and the peaks.
 template <class State>
@@ -125,27 +115,9 @@ Reference<State> odeint_flight(const System& system, State x, const Mach& mach,
 }
 
 /// The project's flight from the same start: the deploy and its peaks.
-struct ProjectFlight {
-    ds::PhaseOutcome outcome;
-    double peak_deceleration_g = 0.0;
-    double peak_heat_flux = 0.0;
-};
-
-ProjectFlight project_flight(const ds::FlightModel& model, const ds::Stage& stage,
-                             const ds::FlightState& y0) {
-    ds::Phase phase;
-    phase.stage = stage;
-    phase.ends = {{"deploy", ds::FlightQuantity::mach, deploy_mach, ds::EventDirection::falling}};
-    phase.peaks = {{"decel", ds::FlightQuantity::deceleration},
-                   {"heat", ds::FlightQuantity::heat_flux}};
-    ProjectFlight f;
-    f.outcome =
-        ds::fly_phase(model, phase, 0.0, y0, 2000.0, ds::flight_integrator_settings(1e-10, 200000));
-    for (const ds::PeakHit& hit : f.outcome.peaks) {
-        double& slot = hit.peak == 0 ? f.peak_deceleration_g : f.peak_heat_flux;
-        slot = std::max(slot, hit.value);
-    }
-    return f;
+ds::test::ProjectFlight project_flight(const ds::FlightModel& model, const ds::Stage& stage,
+                                       const ds::FlightState& y0) {
+    return ds::test::project_flight(model, stage, y0, deploy_mach, 1e-10, 200000);
 }
 
 // ---- the planar reference --------------------------------------------------------------
@@ -290,7 +262,7 @@ TEST_CASE(
         const double lat = ds::degrees_to_radians(lat_deg);
         const double lon = ds::degrees_to_radians(-40.0);
         const double azimuth = ds::degrees_to_radians(azimuth_deg);
-        const ProjectFlight f = project_flight(
+        const ds::test::ProjectFlight f = project_flight(
             model, planar.stage, ds::make_flight_state(h0, lat, lon, v0, gamma0, azimuth, m0));
         REQUIRE(f.outcome.reason == ds::StopReason::terminal_event);
         const ds::FlightState& y = f.outcome.y;
@@ -325,7 +297,7 @@ TEST_CASE(
     REQUIRE(ref.deploy_time > 0.0);
 
     const ds::FlightModel model{cartesian.body, cartesian.air, &cartesian.wind};
-    const ProjectFlight f = project_flight(
+    const ds::test::ProjectFlight f = project_flight(
         model, cartesian.stage, ds::make_flight_state(h0, lat0, lon0, v0, gamma0, azimuth0, m0));
     REQUIRE(f.outcome.reason == ds::StopReason::terminal_event);
     const ds::FlightState& y = f.outcome.y;
@@ -404,10 +376,7 @@ TEST_CASE(
 TEST_CASE(
     "an inertial entry state is turned planet-relative by v_rel = v_in - w x r (hand "
     "values)") {
-    ds::DesignReadResult read = ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) +
-                                                     "/small-ballistic-station.json");
-    REQUIRE(read.ok());
-    ds::Design d = *read.design;
+    ds::Design d = ds::test::sample("small-ballistic-station");
     d.entry.latitude_deg = 0.0;
     d.entry.longitude_deg = 0.0;
     d.entry.velocity_frame = ds::VelocityFrame::inertial;

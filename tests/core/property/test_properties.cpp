@@ -24,9 +24,12 @@
 #include "design/writer.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
+#include "support/results_lookup.hpp"
+#include "support/samples.hpp"
 
 namespace {
 
+using ds::test::find_event;
 using Json = nlohmann::ordered_json;
 
 // The run: 2000 designs take about 4 s in a Release build, 20 s allowed (our choice).
@@ -100,10 +103,7 @@ constexpr std::array triggers{ds::TriggerKind::mach, ds::TriggerKind::mach,
                               ds::TriggerKind::dynamic_pressure, ds::TriggerKind::altitude};
 
 ds::Design base_design() {
-    const ds::DesignReadResult read = ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) +
-                                                           "/small-ballistic-station.json");
-    REQUIRE_MESSAGE(read.ok(), (read.errors.empty() ? "" : read.errors.front().text()));
-    return *read.design;
+    return ds::test::sample("small-ballistic-station");
 }
 
 /// The base design with its inputs drawn within plausible ranges (our choice of ranges), on a
@@ -297,12 +297,6 @@ std::string first_non_finite_optional(const ds::Results& r) {
             return name;
     }
     return {};
-}
-
-const ds::TimelineEvent* find_event(const ds::Results& r, std::string_view name) {
-    const auto it = std::find_if(r.timeline.events.begin(), r.timeline.events.end(),
-                                 [&](const ds::TimelineEvent& e) { return e.name == name; });
-    return it == r.timeline.events.end() ? nullptr : &*it;
 }
 
 bool failed(const ds::Results& r, std::string_view check) {

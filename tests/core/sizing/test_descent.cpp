@@ -11,27 +11,14 @@
 #include "design/reader.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "support/results_lookup.hpp"
+#include "support/samples.hpp"
 
 namespace {
 
-ds::Design sample(const std::string& name) {
-    const ds::DesignReadResult read =
-        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
-    REQUIRE(read.ok());
-    return *read.design;
-}
-
-const ds::Check* find_check(const ds::Results& r, const std::string& id) {
-    const auto it = std::find_if(r.checks.begin(), r.checks.end(),
-                                 [&](const ds::Check& c) { return c.id == id; });
-    return it == r.checks.end() ? nullptr : &*it;
-}
-
-const ds::TimelineEvent* find_event(const ds::Results& r, const std::string& name) {
-    const auto it = std::find_if(r.timeline.events.begin(), r.timeline.events.end(),
-                                 [&](const ds::TimelineEvent& e) { return e.name == name; });
-    return it == r.timeline.events.end() ? nullptr : &*it;
-}
+using ds::test::find_check;
+using ds::test::find_event;
+using ds::test::sample;
 
 double item_kg(const ds::Results& r, const std::string& name) {
     for (const ds::MassItem& item : r.mass.items) {
@@ -105,10 +92,7 @@ TEST_CASE("a budget that cannot close fails its check instead of hanging") {
     d.terminal.isp_s = 3.0;  // propellant grows faster than the mass it brakes
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.converged);
-    const ds::Check* c = find_check(r, "mass_closure");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("does not close") != std::string::npos);
+    ds::test::check_says(r, "mass_closure", ds::CheckStatus::fail, "does not close");
 }
 
 TEST_CASE("the retro lander touches down at its touchdown velocity, at the site, to 0.05 m/s") {
@@ -178,9 +162,7 @@ TEST_CASE("thrust below weight cannot land: a failing check with the impact spee
     ds::Design d = sample("small-ballistic-station");
     d.terminal.throttle = 0.35;  // 0.35 x 2.5 = 0.875 of the weight
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "terminal_burn");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
+    const ds::Check* c = &ds::test::require_check(r, "terminal_burn", ds::CheckStatus::fail);
     CHECK(c->value > 10.0);
     CHECK(find_check(r, "touchdown_velocity")->status == ds::CheckStatus::fail);
 }
@@ -292,10 +274,8 @@ TEST_CASE("an inflatable decelerator deploys at its trigger and opens the parach
 
 TEST_CASE("a landed mass over the heritage 0.6 t is marginal, naming the technology it needs") {
     const ds::Results r = ds::size_design(sample("lifting-rover-carrier"));
-    const ds::Check* c = find_check(r, "landed_mass");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::marginal);
-    CHECK(c->message.find("supersonic retro-propulsion") != std::string::npos);
+    ds::test::check_says(r, "landed_mass", ds::CheckStatus::marginal,
+                         "supersonic retro-propulsion");
 }
 
 TEST_CASE("a jettison due after the backshell separation is not reached, nor listed after it") {
@@ -317,10 +297,8 @@ TEST_CASE("a jettison due after the backshell separation is not reached, nor lis
     CHECK(separation_after_deploy < 175.0 - 1.0);
     CHECK_FALSE(find_event(r, "heat-shield jettison"));
     CHECK_FALSE(r.parachute.heat_shield_jettison_time_s);
+    ds::test::check_says(r, "heat_shield_jettison", ds::CheckStatus::fail, "not reached");
     const ds::Check* c = find_check(r, "heat_shield_jettison");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("not reached") != std::string::npos);
     // The jettison's delay against the separation, both after deploy: the delay ends the phase
     // exactly, so both differ from the timeline only by round-off (1e-9 s).
     CHECK(std::abs(c->value - 175.0) < 1e-9);
@@ -345,9 +323,7 @@ TEST_CASE("parts heavier than the vehicle fail drop_mass, with no negative thrus
     ds::Design d = sample("small-ballistic-station");
     d.parachute.mass_kg = 600.0;
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "drop_mass");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
+    const ds::Check* c = &ds::test::require_check(r, "drop_mass", ds::CheckStatus::fail);
     // Dropped: the heat shield, the backshell (an estimate) and the canopy; the sum is exact up
     // to round-off.
     const double dropped = item_kg(r, "heat shield") + item_kg(r, "backshell") +

@@ -13,8 +13,11 @@
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
 #include "sizing/size.hpp"
+#include "support/samples.hpp"
 
 namespace {
+
+using ds::test::sample;
 
 // Agreement asked of the two descents (our bounds). Measured: floor times within 0.7 ms,
 // speeds within 3.2e-6, ignition altitudes within 0.03 mm. The full equations' own error at the
@@ -23,13 +26,6 @@ constexpr double floor_time_tolerance_s = 0.01;
 constexpr double floor_speed_tolerance = 1e-5;  // relative
 constexpr double jettison_time_tolerance_s = 1e-9;
 constexpr double ignition_altitude_tolerance_m = 1e-3;
-
-ds::Design sample(const std::string& name) {
-    const ds::DesignReadResult read =
-        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
-    REQUIRE(read.ok());
-    return *read.design;
-}
 
 /// A design flown at its sized entry mass, with its descent flown again on the full equations
 /// from the same deploy, and the retro burn (when it has one) solved on both records.

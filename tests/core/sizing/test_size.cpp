@@ -9,21 +9,13 @@
 #include "design/reader.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "support/results_lookup.hpp"
+#include "support/samples.hpp"
 
 namespace {
 
-ds::Design sample(const std::string& name) {
-    const ds::DesignReadResult read =
-        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
-    REQUIRE_MESSAGE(read.ok(), (read.errors.empty() ? "" : read.errors.front().text()));
-    return *read.design;
-}
-
-const ds::Check* find_check(const ds::Results& r, const std::string& id) {
-    const auto it = std::find_if(r.checks.begin(), r.checks.end(),
-                                 [&](const ds::Check& c) { return c.id == id; });
-    return it == r.checks.end() ? nullptr : &*it;
-}
+using ds::test::find_check;
+using ds::test::sample;
 
 }  // namespace
 
@@ -115,10 +107,7 @@ TEST_CASE("a design that reaches the ground before its trigger fails with where 
     d.parachute.trigger_value = 0.2;  // Mach 0.2 is never reached above the site
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.parachute.deployed);
-    const ds::Check* c = find_check(r, "parachute_trigger");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("reaches the ground at") != std::string::npos);
+    ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "reaches the ground at");
     CHECK(r.checks.front().status == ds::CheckStatus::fail);
     CHECK(r.timeline.events.back().name == "ground impact");
     CHECK(r.timeline.events.back().altitude_m == doctest::Approx(-1500.0).epsilon(1e-6));
@@ -130,10 +119,7 @@ TEST_CASE("a shallow lifting entry that skips out fails and says so") {
     d.entry.lift_to_drag = 0.6;
     d.entry.velocity_m_s = 6500.0;
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "parachute_trigger");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("skips out") != std::string::npos);
+    ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "skips out");
 }
 
 TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on a skip's climb") {
@@ -149,10 +135,7 @@ TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on 
     // The dynamic pressure rose through 250 Pa (to some 840 Pa) and fell back through it.
     CHECK(r.entry.peak_dynamic_pressure_Pa > 2.0 * 250.0);
     CHECK_FALSE(r.parachute.deployed);
-    const ds::Check* c = find_check(r, "parachute_trigger");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("skips out") != std::string::npos);
+    ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "skips out");
     // The entry ends at the interface altitude, located to 1e-7 s (well under 1 cm here).
     CHECK(r.timeline.events.back().name == "atmospheric exit");
     CHECK(std::abs(r.timeline.events.back().altitude_m - 125000.0) < 0.01);
@@ -177,10 +160,7 @@ TEST_CASE("an exhausted step budget is a failing check and an unconverged result
     d.solver.max_steps = 10;
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.converged);
-    const ds::Check* c = find_check(r, "trajectory");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
-    CHECK(c->message.find("step budget") != std::string::npos);
+    ds::test::check_says(r, "trajectory", ds::CheckStatus::fail, "step budget");
 }
 
 TEST_CASE("a denser atmosphere deploys the parachute higher (trend)") {
@@ -204,9 +184,7 @@ TEST_CASE("a limit set in the design changes the check (peak deceleration over a
     ds::Design d = sample("small-ballistic-station");
     d.limits.peak_deceleration_max_g = 5.0;
     const ds::Results r = ds::size_design(d);
-    const ds::Check* c = find_check(r, "peak_deceleration");
-    REQUIRE(c);
-    CHECK(c->status == ds::CheckStatus::fail);
+    const ds::Check* c = &ds::test::require_check(r, "peak_deceleration", ds::CheckStatus::fail);
     CHECK(c->limit == 5.0);
 }
 

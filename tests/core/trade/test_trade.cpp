@@ -11,18 +11,14 @@
 #include "design/reader.hpp"
 #include "results/key_figures.hpp"
 #include "sizing/size.hpp"
+#include "support/samples.hpp"
 #include "trade/dispersion.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
 
 namespace {
 
-ds::Design sample(const std::string& name) {
-    const ds::DesignReadResult read =
-        ds::read_design_file(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/" + name + ".json");
-    REQUIRE(read.ok());
-    return *read.design;
-}
+using ds::test::sample;
 
 std::size_t figure_index(const std::string& id) {
     const auto index = ds::key_figure_index(id);
