@@ -169,11 +169,14 @@ void TradeView::buildPages() {
     m_summary->setTextInteractionFlags(Qt::TextSelectableByMouse);
     m_histogram = chartView(dispersionResults);
     m_scatter = chartView(dispersionResults);
+    m_landing = chartView(dispersionResults);
+    m_landing->setObjectName(QStringLiteral("landingEllipse"));
     auto* dispersionGrid = new QGridLayout(dispersionResults);
     dispersionGrid->setContentsMargins(0, 0, 0, 0);
-    dispersionGrid->addWidget(m_summary, 0, 0, 1, 2);
+    dispersionGrid->addWidget(m_summary, 0, 0, 1, 3);
     dispersionGrid->addWidget(m_histogram, 1, 0);
     dispersionGrid->addWidget(m_scatter, 1, 1);
+    dispersionGrid->addWidget(m_landing, 1, 2);
     dispersionGrid->setRowStretch(1, 1);
     m_sensitivity = chartView(this);
     m_pages->insertWidget(introPage, intro);
@@ -466,6 +469,7 @@ void TradeView::showOutcome() {
             m_summary->setText(summary);
             replaceChart(m_histogram, dispersionHistogramChart(outcome, figure()));
             replaceChart(m_scatter, deployScatterChart(outcome));
+            replaceChart(m_landing, landingEllipseChart(outcome));
             m_pages->setCurrentIndex(dispersionPage);
             break;
         }
