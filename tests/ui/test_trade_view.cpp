@@ -2,6 +2,7 @@
 // worker threads and shows its plot, the window's numbers are the core's, a cancel answers at
 // once, the study exports to CSV and goes into the sizing sheet, and an edit makes it stale.
 
+#include <cmath>
 #include <fstream>
 
 #include <QChart>
@@ -20,6 +21,7 @@
 #include <QTemporaryDir>
 #include <QTest>
 #include <QUndoStack>
+#include <QValueAxis>
 
 #include "design/reader.hpp"
 #include "main_window.hpp"
@@ -207,6 +209,57 @@ private slots:
         const int shown = std::max(0, pointsIn(scatter.get(), "succeeded")) +
                           std::max(0, pointsIn(scatter.get(), "a check failed"));
         QCOMPARE(shown, deployed);
+
+        // The landing chart: a point per case that came down, and the ellipse with the
+        // summary's axes (its farthest and nearest points from the mean are the semi-axes).
+        QVERIFY(outcome->summary.landing_ellipse);
+        const LandingEllipse& ellipse = *outcome->summary.landing_ellipse;
+        std::unique_ptr<QChart> landing(landingEllipseChart(*outcome));
+        QLineSeries* outline = nullptr;
+        QList<QPointF> points;
+        for (QAbstractSeries* series : landing->series()) {
+            if (series->name().startsWith("99 % ellipse"))
+                outline = static_cast<QLineSeries*>(series);
+            if (series->name() == "succeeded" || series->name() == "a check failed")
+                points << static_cast<QScatterSeries*>(series)->points();
+        }
+        QVERIFY(outline);
+        QCOMPARE(points.size(), static_cast<int>(ellipse.count));
+        double farthest = 0.0, nearest = 1e300;
+        QPointF far;
+        for (const QPointF& p : outline->points()) {
+            const double r = std::hypot(p.x(), p.y());
+            if (r > farthest)
+                far = p;
+            farthest = std::max(farthest, r);
+            nearest = std::min(nearest, r);
+        }
+        QVERIFY(std::abs(farthest - ellipse.axes.semi_major_km) < 1e-9 * farthest);
+        QVERIFY(std::abs(nearest - ellipse.axes.semi_minor_km) < 1e-9 * farthest);
+        const double azimuth = std::fmod(std::atan2(far.x(), far.y()) * 180.0 / M_PI + 360.0, 180.0);
+        QVERIFY(std::abs(azimuth - ellipse.axes.major_axis_azimuth_deg) < 1e-6);
+        // The plotted points are the ones the ellipse was computed from: their sample standard
+        // deviations east and north are the summary's (n - 1).
+        double meanEast = 0.0, meanNorth = 0.0;
+        for (const QPointF& p : points) {
+            meanEast += p.x() / points.size();
+            meanNorth += p.y() / points.size();
+        }
+        double varEast = 0.0, varNorth = 0.0;
+        for (const QPointF& p : points) {
+            varEast += (p.x() - meanEast) * (p.x() - meanEast) / (points.size() - 1);
+            varNorth += (p.y() - meanNorth) * (p.y() - meanNorth) / (points.size() - 1);
+        }
+        QVERIFY(std::abs(std::sqrt(varEast) - ellipse.axes.east_sigma_km) <
+                1e-6 * ellipse.axes.east_sigma_km);
+        QVERIFY(std::abs(std::sqrt(varNorth) - ellipse.axes.north_sigma_km) <
+                1e-6 * ellipse.axes.north_sigma_km);
+        // One span on both axes: to scale.
+        const auto axes = landing->axes();
+        QCOMPARE(axes.size(), 2);
+        const auto* a = static_cast<QValueAxis*>(axes[0]);
+        const auto* b = static_cast<QValueAxis*>(axes[1]);
+        QCOMPARE(a->max() - a->min(), b->max() - b->min());
         keepScreenshot(window, "trade-dispersions.png");
     }
 

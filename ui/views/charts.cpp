@@ -19,6 +19,8 @@
 #include <QGraphicsScene>
 #include <QGraphicsSimpleTextItem>
 #include <QGridLayout>
+#include <QTabWidget>
+#include <QVBoxLayout>
 #include <QLegendMarker>
 #include <QLineSeries>
 #include <QPainter>
@@ -568,14 +570,24 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     m_mass = makeView(QStringLiteral("Mass from entry to landing"));
     m_groundTrack = makeView(QStringLiteral("Ground track"));
 
-    auto* grid = new QGridLayout(this);
+    // The four profiles share a page; the ground track, wide and flat, has one of its own: a
+    // fifth chart in the grid leaves every chart too small to read at the window's usual size.
+    auto* profiles = new QWidget(this);
+    auto* grid = new QGridLayout(profiles);
     grid->setContentsMargins(0, 0, 0, 0);
-    // The ground track is wide (downrange) and flat (crossrange): it gets two columns.
     grid->addWidget(m_altitudeVelocity, 0, 0);
     grid->addWidget(m_loads, 0, 1);
-    grid->addWidget(m_machPressure, 0, 2);
-    grid->addWidget(m_mass, 1, 0);
-    grid->addWidget(m_groundTrack, 1, 1, 1, 2);
+    grid->addWidget(m_machPressure, 1, 0);
+    grid->addWidget(m_mass, 1, 1);
+    m_pages = new QTabWidget(this);
+    m_pages->setObjectName(QStringLiteral("flightPages"));
+    m_pages->setTabPosition(QTabWidget::South);
+    m_pages->setDocumentMode(true);
+    m_pages->addTab(profiles, tr("Profiles"));
+    m_pages->addTab(m_groundTrack, tr("Ground track"));
+    auto* layout = new QVBoxLayout(this);
+    layout->setContentsMargins(0, 0, 0, 0);
+    layout->addWidget(m_pages);
 }
 
 void ChartsView::setResults(const Design& design, const Results& results, const Results* baseline) {

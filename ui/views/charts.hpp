@@ -12,6 +12,7 @@
 QT_BEGIN_NAMESPACE
 class QChart;
 class QChartView;
+class QTabWidget;
 QT_END_NAMESPACE
 
 namespace ds {
@@ -32,7 +33,8 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
 /// A chart drawn into an image of the given size (for the sheet and screenshots).
 QImage renderChart(QChart* chart, QSize size);
 
-/// The five charts in a grid; setResults replaces them.
+/// The four profiles in a grid on one page, the ground track on another; setResults replaces
+/// them.
 class ChartsView : public QWidget {
     Q_OBJECT
 public:
@@ -46,6 +48,7 @@ private:
     QChartView* m_machPressure;
     QChartView* m_mass;
     QChartView* m_groundTrack;
+    QTabWidget* m_pages;
 };
 
 }  // namespace ds
