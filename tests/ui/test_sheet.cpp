@@ -143,7 +143,8 @@ private slots:
         // The 560 kg entry and 60 kg heat shield of the sample are in the mass budget.
         QVERIFY(html.contains(QStringLiteral("<td class=\"num\">560.0</td>")));
         QVERIFY(html.contains(QStringLiteral("<td class=\"num\">60.0</td>")));
-        QCOMPARE(countOf(html, QStringLiteral("src=\"data:image/png;base64,")), 4);
+        // The four profiles and the ground track.
+        QCOMPARE(countOf(html, QStringLiteral("src=\"data:image/png;base64,")), 5);
     }
 
     void inputsTakeTheirUnitFromTheKeySuffix() {
@@ -469,7 +470,7 @@ private slots:
         ChartsView view;
         view.resize(900, 700);
         const QList<QChartView*> views = view.findChildren<QChartView*>();
-        QCOMPARE(views.size(), 4);
+        QCOMPARE(views.size(), 5);
         QList<QPointer<QChart>> before;
         for (QChartView* chartView : views)
             before << QPointer<QChart>(chartView->chart());

@@ -376,14 +376,14 @@ private slots:
         const QString text = QString::fromUtf8(html.readAll());
         QVERIFY(text.contains("<h2>Trade study</h2>"));
         QVERIFY(text.contains("Sweep of entry.flight_path_angle_deg from -16 to -10 (4 values)"));
-        // The PDF is laid out from the same HTML: it holds one more chart than without a study.
+        // The PDF is laid out from the same HTML: the five flight charts and the sweep's.
         const QString pdf = dir.filePath("sheet.pdf");
         QVERIFY2(window.exportSheet(pdf, &error), qPrintable(error));
         QFile pdfFile(pdf);
         QVERIFY(pdfFile.open(QIODevice::ReadOnly));
         const QByteArray pdfBytes = pdfFile.readAll();
         QVERIFY(pdfBytes.startsWith("%PDF"));
-        QCOMPARE(pdfBytes.count("/Subtype /Image"), qsizetype(5));
+        QCOMPARE(pdfBytes.count("/Subtype /Image"), qsizetype(6));
 
         // An edit makes the study stale: it leaves the sheet until it is run again.
         window.document()->setValue("/entry/velocity_m_s", 5900.0, "velocity");
