@@ -469,7 +469,7 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
 
     QChart* chart = newChart(title);
     // Not to the same scale: the crossrange of an entry is a small fraction of its downrange,
-    // and at one scale the track would be a flat line.
+    // and at one scale the track would be a flat line. The axis titles say km on both.
     QValueAxis* downrangeAxis = addValueAxis(
         chart, QStringLiteral("downrange from the entry point (km)"), Qt::AlignBottom);
     QValueAxis* crossrangeAxis = addValueAxis(
@@ -485,11 +485,13 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
         crossrange.include(target->y());
     }
     crossrange.include(0.0);  // the entry's great circle is always in view
-    // A track with no crossrange still gets a readable axis around its line.
-    const double pad = std::max(1.0, 0.05 * (downrange.high - downrange.low));
-    if (crossrange.high - crossrange.low < 2.0 * pad) {
-        crossrange.include(crossrange.low - pad);
-        crossrange.include(crossrange.high + pad);
+    // The crossrange axis spans the crossrange only, to show the track's bend; a track with
+    // next to no crossrange still gets an axis a kilometre wide around its line.
+    constexpr double narrowestCrossrangeKm = 1.0;
+    if (crossrange.high - crossrange.low < narrowestCrossrangeKm) {
+        const double middle = 0.5 * (crossrange.high + crossrange.low);
+        crossrange.include(middle - 0.5 * narrowestCrossrangeKm);
+        crossrange.include(middle + 0.5 * narrowestCrossrangeKm);
     }
     setNiceRange(downrangeAxis, std::min(0.0, downrange.low), downrange.high);
     setNiceRange(crossrangeAxis, crossrange.low, crossrange.high);
