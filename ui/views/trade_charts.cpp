@@ -341,8 +341,8 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
 
     auto* success = caseSeries(QStringLiteral("succeeded"), passInk);
     auto* failure = caseSeries(QStringLiteral("a check failed"), failInk);
-    success->setMarkerSize(caseMarkerSize * 0.7);
-    failure->setMarkerSize(caseMarkerSize * 0.7);
+    success->setMarkerSize(caseMarkerSize * 0.5);
+    failure->setMarkerSize(caseMarkerSize * 0.5);
     double reach = 0.0;
     const auto include = [&](QPointF p) {
         reach = std::max({reach, std::abs(p.x()), std::abs(p.y())});
@@ -375,9 +375,8 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
             ? QStringLiteral("%1: %2 cases").arg(title).arg(landed)
             : QStringLiteral("%1: %2 cases (%3 did not come down)").arg(title).arg(landed).arg(missing));
     QValueAxis* eastAxis =
-        addValueAxis(chart, QStringLiteral("east of the mean landing point (km)"), Qt::AlignBottom);
-    QValueAxis* northAxis =
-        addValueAxis(chart, QStringLiteral("north of the mean landing point (km)"), Qt::AlignLeft);
+        addValueAxis(chart, QStringLiteral("east of the mean (km)"), Qt::AlignBottom);
+    QValueAxis* northAxis = addValueAxis(chart, QStringLiteral("north of the mean (km)"), Qt::AlignLeft);
     // One span on both axes: the scatter's shape is the landing's.
     setNiceRange(eastAxis, -reach, reach);
     setNiceRange(northAxis, -reach, reach);
@@ -388,17 +387,12 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
             hideFromLegend(chart, series);
     }
     attach(chart,
-           lineSeries(QStringLiteral("%1 % ellipse: %2 × %3 km, major axis at %4°")
-                          .arg(ellipse->probability * percent, 0, 'g', 3)
-                          .arg(2.0 * axes.semi_major_km, 0, 'f', 2)
-                          .arg(2.0 * axes.semi_minor_km, 0, 'f', 2)
-                          .arg(axes.major_axis_azimuth_deg, 0, 'f', 0),
+           lineSeries(QStringLiteral("%1 % ellipse")
+                          .arg(ellipse->probability * percent, 0, 'g', 3),
                       resultPen(primaryInk), outline),
            eastAxis, northAxis);
     auto* mean = new QScatterSeries;
-    mean->setName(QStringLiteral("mean (%1°, %2°)")
-                      .arg(ellipse->centre_latitude_deg, 0, 'f', 3)
-                      .arg(ellipse->centre_longitude_deg, 0, 'f', 3));
+    mean->setName(QStringLiteral("mean"));
     mean->setMarkerShape(QScatterSeries::MarkerShapeRectangle);
     mean->setMarkerSize(caseMarkerSize * 1.4);
     mean->setColor(primaryInk);
@@ -407,8 +401,7 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
     attach(chart, mean, eastAxis, northAxis);
     if (target) {
         auto* marker = new QScatterSeries;
-        marker->setName(QStringLiteral("target (%1 km from the mean)")
-                            .arg(std::hypot(target->x(), target->y()), 0, 'f', 2));
+        marker->setName(QStringLiteral("target"));
         marker->setMarkerShape(QScatterSeries::MarkerShapeStar);
         marker->setMarkerSize(caseMarkerSize * 2.2);
         marker->setColor(secondaryInk);

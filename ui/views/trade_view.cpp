@@ -466,6 +466,17 @@ void TradeView::showOutcome() {
                 }
                 summary += tr(" Failing most often: %1.").arg(failing.join(QStringLiteral(", ")));
             }
+            if (const auto& ellipse = s.landing_ellipse) {
+                summary += tr(" Landing ellipse (%1 %, %2 points): %3 × %4 km, major axis at "
+                              "%5° from north, centred at %6°, %7°.")
+                               .arg(ellipse->probability * 100.0, 0, 'g', 3)
+                               .arg(ellipse->count)
+                               .arg(2.0 * ellipse->axes.semi_major_km, 0, 'f', 2)
+                               .arg(2.0 * ellipse->axes.semi_minor_km, 0, 'f', 2)
+                               .arg(ellipse->axes.major_axis_azimuth_deg, 0, 'f', 0)
+                               .arg(ellipse->centre_latitude_deg, 0, 'f', 3)
+                               .arg(ellipse->centre_longitude_deg, 0, 'f', 3);
+            }
             m_summary->setText(summary);
             replaceChart(m_histogram, dispersionHistogramChart(outcome, figure()));
             replaceChart(m_scatter, deployScatterChart(outcome));
