@@ -54,21 +54,23 @@ WindTable::WindTable(DesignDocument* document, QWidget* parent)
     m_table->horizontalHeader()->setSectionResizeMode(QHeaderView::Stretch);
     m_table->verticalHeader()->setVisible(false);
     m_table->setSelectionBehavior(QAbstractItemView::SelectRows);
-    m_table->setMinimumHeight(110);
+    m_table->setMinimumHeight(90);
     m_table->setToolTip(
         tr("The wind the air moves with, toward the east and the north, by increasing "
            "altitude above the reference radius; linear between rows, held beyond them. "
            "Ctrl+V pastes rows copied from a spreadsheet."));
     m_table->installEventFilter(this);
 
-    auto* top = new QHBoxLayout;
-    top->addWidget(m_shape, 1);
-    top->addWidget(m_add);
-    top->addWidget(m_remove);
+    // The buttons under the table: the form's field column is narrow.
+    auto* buttons = new QHBoxLayout;
+    buttons->addWidget(m_add);
+    buttons->addWidget(m_remove);
+    buttons->addStretch(1);
     auto* layout = new QVBoxLayout(this);
     layout->setContentsMargins(0, 0, 0, 0);
-    layout->addLayout(top);
+    layout->addWidget(m_shape);
     layout->addWidget(m_table);
+    layout->addLayout(buttons);
 
     connect(m_shape, &QComboBox::activated, this, &WindTable::setShape);
     connect(m_add, &QPushButton::clicked, this, &WindTable::addRow);
@@ -113,9 +115,11 @@ void WindTable::load() {
     } else {
         m_table->setRowCount(0);
     }
-    m_table->setEnabled(shape != none);
-    m_add->setEnabled(shape == table);
-    m_remove->setEnabled(shape == table && m_table->rowCount() > 1);
+    // Without a wind the choice is all there is to show.
+    m_table->setVisible(shape != none);
+    m_add->setVisible(shape == table);
+    m_remove->setVisible(shape == table);
+    m_remove->setEnabled(m_table->rowCount() > 1);
     m_loading = false;
 }
 
