@@ -28,6 +28,7 @@
 #include "model/design_document.hpp"
 #include "model/trade_runner.hpp"
 #include "results/key_figures.hpp"
+#include "sheet/sheet_sections.hpp"
 #include "trade/contour.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/dispersion.hpp"
@@ -260,6 +261,11 @@ private slots:
         const auto* a = static_cast<QValueAxis*>(axes[0]);
         const auto* b = static_cast<QValueAxis*>(axes[1]);
         QCOMPARE(a->max() - a->min(), b->max() - b->min());
+        // The sheet's Landing section carries the ellipse's figures.
+        const QString section = sheet::landingSection(outcome->design, Results{}, outcome);
+        QVERIFY(section.contains("<th>landing ellipse</th>"));
+        QVERIFY(section.contains(QString::number(2.0 * ellipse.axes.semi_major_km, 'f', 2)));
+        QVERIFY(section.contains(QString::number(ellipse.axes.major_axis_azimuth_deg, 'f', 1)));
         keepScreenshot(window, "trade-dispersions.png");
     }
 
