@@ -49,7 +49,8 @@ private slots:
     void windTableWritesWhatTheReaderReadsBack() {
         DesignDocument document;
         QString error;
-        const QString rover = QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/lifting-rover-carrier.json");
+        const QString rover =
+            QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/lifting-rover-carrier.json");
         QVERIFY2(document.open(rover, &error), qPrintable(error));
         DesignForm form(&document);
         auto* wind = form.findChild<WindTable*>();

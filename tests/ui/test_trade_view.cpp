@@ -237,7 +237,8 @@ private slots:
         }
         QVERIFY(std::abs(farthest - ellipse.axes.semi_major_km) < 1e-9 * farthest);
         QVERIFY(std::abs(nearest - ellipse.axes.semi_minor_km) < 1e-9 * farthest);
-        const double azimuth = std::fmod(std::atan2(far.x(), far.y()) * 180.0 / M_PI + 360.0, 180.0);
+        const double azimuth =
+            std::fmod(std::atan2(far.x(), far.y()) * 180.0 / M_PI + 360.0, 180.0);
         QVERIFY(std::abs(azimuth - ellipse.axes.major_axis_azimuth_deg) < 1e-6);
         // The plotted points are the ones the ellipse was computed from: their sample standard
         // deviations east and north are the summary's (n - 1).

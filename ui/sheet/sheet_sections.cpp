@@ -293,8 +293,8 @@ QString landingSection(const Design& design, const Results& results, const Study
     if (trade && trade->request.kind == StudyKind::dispersions) {
         if (const auto& ellipse = trade->summary.landing_ellipse) {
             const EllipseAxes& axes = ellipse->axes;
-            HtmlTable table(
-                {QStringLiteral("landing ellipse"), QStringLiteral("value"), QStringLiteral("unit")});
+            HtmlTable table({QStringLiteral("landing ellipse"), QStringLiteral("value"),
+                             QStringLiteral("unit")});
             const auto row = [&](const QString& item, const QString& value, const QString& unit) {
                 table.addRow({{item, {}}, {value, numberCell}, {unit, {}}});
             };

@@ -370,13 +370,15 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
     reach = std::max(reach, 0.1);  // a campaign that lands on one spot still gets axes
 
     const std::size_t missing = outcome.campaign->cases.size() - landed;
-    QChart* chart = newChart(
-        missing == 0
-            ? QStringLiteral("%1: %2 cases").arg(title).arg(landed)
-            : QStringLiteral("%1: %2 cases (%3 did not come down)").arg(title).arg(landed).arg(missing));
+    QChart* chart = newChart(missing == 0 ? QStringLiteral("%1: %2 cases").arg(title).arg(landed)
+                                          : QStringLiteral("%1: %2 cases (%3 did not come down)")
+                                                .arg(title)
+                                                .arg(landed)
+                                                .arg(missing));
     QValueAxis* eastAxis =
         addValueAxis(chart, QStringLiteral("east of the mean (km)"), Qt::AlignBottom);
-    QValueAxis* northAxis = addValueAxis(chart, QStringLiteral("north of the mean (km)"), Qt::AlignLeft);
+    QValueAxis* northAxis =
+        addValueAxis(chart, QStringLiteral("north of the mean (km)"), Qt::AlignLeft);
     // One span on both axes: the scatter's shape is the landing's.
     setNiceRange(eastAxis, -reach, reach);
     setNiceRange(northAxis, -reach, reach);

@@ -99,7 +99,8 @@ void WindTable::load() {
     const auto setRow = [&](int row, const DesignDocument::Json& values) {
         m_table->setItem(row, altitudeColumn,
                          new QTableWidgetItem(numberText(field(values, "altitude_m"))));
-        m_table->setItem(row, eastColumn, new QTableWidgetItem(numberText(field(values, "east_m_s"))));
+        m_table->setItem(row, eastColumn,
+                         new QTableWidgetItem(numberText(field(values, "east_m_s"))));
         m_table->setItem(row, northColumn,
                          new QTableWidgetItem(numberText(field(values, "north_m_s"))));
     };
@@ -165,7 +166,8 @@ void WindTable::setShape(int shape) {
             }
         }
     }
-    const bool same = (shape == none && wind.is_null()) || (shape == constant && wind.is_object()) ||
+    const bool same = (shape == none && wind.is_null()) ||
+                      (shape == constant && wind.is_object()) ||
                       (shape == table && wind.is_array());
     if (!same)
         m_document->setValue(windPointer, next, tr("wind kind"));
