@@ -6,6 +6,7 @@
 #include <QCommandLineParser>
 #include <QDateTime>
 #include <QEventLoop>
+#include <QSize>
 #include <QTimer>
 
 #include "commands.hpp"
@@ -58,10 +59,15 @@ int runWindow(int argc, char** argv) {
     // Parse before a display is needed, so that a headless machine gets the terminal summary.
     QString file;
     QString screenshot;
+    QSize size;  // --size WxH: the window's size, to see how it lays out on a smaller screen
     for (int i = 1; i < argc; ++i) {
         const QString arg = QString::fromLocal8Bit(argv[i]);
         if (arg == "--screenshot" && i + 1 < argc) {
             screenshot = QString::fromLocal8Bit(argv[++i]);
+        } else if (arg == "--size" && i + 1 < argc) {
+            const QStringList parts = QString::fromLocal8Bit(argv[++i]).split(QLatin1Char('x'));
+            if (parts.size() == 2)
+                size = QSize(parts[0].toInt(), parts[1].toInt());
         } else if (!arg.startsWith("-")) {
             file = arg;
         }
@@ -80,6 +86,8 @@ int runWindow(int argc, char** argv) {
         fmt::print(stderr, "cannot open {}\n", file.toStdString());
         return exit_unreadable;
     }
+    if (size.isValid() && !size.isEmpty())
+        window.resize(size);
     window.show();
     if (screenshot.isEmpty()) {
         window.offerRecovery();  // work a crashed session left; never for a screenshot

@@ -3,6 +3,7 @@
 // schema's fallbacks, and rows shown only where they apply.
 
 #include <QComboBox>
+#include <QTableWidget>
 #include <QTest>
 #include <QUndoStack>
 
@@ -13,6 +14,7 @@
 #include "parachute/canopy.hpp"
 #include "views/design_form.hpp"
 #include "views/quantity_edit.hpp"
+#include "views/wind_table.hpp"
 
 using namespace ds;
 
@@ -44,6 +46,72 @@ bool shown(const DesignForm& form, const std::string& pointer) {
 class DesignFormTest : public QObject {
     Q_OBJECT
 private slots:
+    void windTableWritesWhatTheReaderReadsBack() {
+        DesignDocument document;
+        QString error;
+        const QString rover =
+            QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/lifting-rover-carrier.json");
+        QVERIFY2(document.open(rover, &error), qPrintable(error));
+        DesignForm form(&document);
+        auto* wind = form.findChild<WindTable*>();
+        QVERIFY(wind);
+        QTableWidget* table = wind->tableWidget();
+        // The sample's three rows, as the file gives them.
+        QCOMPARE(wind->shapeChoice()->currentIndex(), int(WindTable::table));
+        QCOMPARE(table->rowCount(), 3);
+        QCOMPARE(table->item(1, 0)->text(), QString("5000"));
+        QCOMPARE(table->item(2, 2)->text(), QString("8"));
+
+        // One edit, read back by the strict reader, undone in one step.
+        const int before = document.undoStack()->count();
+        table->item(1, 1)->setText("14.5");
+        QCOMPARE(document.undoStack()->count(), before + 1);
+        QVERIFY(document.design());
+        QCOMPARE(document.design()->atmosphere.wind->rows.size(), std::size_t(3));
+        QCOMPARE(document.design()->atmosphere.wind->rows[1].east_m_s, 14.5);
+        QCOMPARE(document.design()->atmosphere.wind->rows[1].altitude_m, 5000.0);
+        document.undoStack()->undo();
+        QCOMPARE(document.design()->atmosphere.wind->rows[1].east_m_s, 12.0);
+        QCOMPARE(table->item(1, 1)->text(), QString("12"));
+
+        // An altitude below the previous row's is the reader's to refuse.
+        table->item(2, 0)->setText("4000");
+        QVERIFY(!document.design());
+        document.undoStack()->undo();
+        QVERIFY(document.design());
+
+        // Rows pasted from a spreadsheet, its heading skipped: one edit.
+        QVERIFY(wind->pasteRows("altitude_m\teast_m_s\tnorth_m_s\n0\t1.5\t-2\n8000\t6\t2.25\n"));
+        QVERIFY(document.design());
+        const auto& rows = document.design()->atmosphere.wind->rows;
+        QCOMPARE(rows.size(), std::size_t(2));
+        QCOMPARE(rows[0].north_m_s, -2.0);
+        QCOMPARE(rows[1].altitude_m, 8000.0);
+        QCOMPARE(rows[1].north_m_s, 2.25);
+        QCOMPARE(table->rowCount(), 2);
+        QVERIFY(!wind->pasteRows("no numbers here"));
+
+        // One wind at every altitude: the table's lowest row's.
+        wind->shapeChoice()->setCurrentIndex(WindTable::constant);
+        emit wind->shapeChoice()->activated(WindTable::constant);
+        QVERIFY(document.design());
+        const auto& constant = document.design()->atmosphere.wind->constant;
+        QVERIFY(constant);
+        QCOMPARE(constant->east_m_s, 1.5);
+        QCOMPARE(constant->north_m_s, -2.0);
+        QVERIFY(document.value("/atmosphere/wind").is_object());
+        table->item(0, 2)->setText("3");
+        QCOMPARE(document.design()->atmosphere.wind->constant->north_m_s, 3.0);
+
+        // No wind: the key leaves the document.
+        wind->shapeChoice()->setCurrentIndex(WindTable::none);
+        emit wind->shapeChoice()->activated(WindTable::none);
+        QVERIFY(document.design());
+        QVERIFY(!document.design()->atmosphere.wind);
+        QVERIFY(document.value("/atmosphere/wind").is_null());
+        QCOMPARE(table->rowCount(), 0);
+    }
+
     void everyNumberKeyOfTheShownObjectsHasAField() {
         DesignDocument document;
         QString error;

@@ -16,6 +16,7 @@
 #include <QLineSeries>
 #include <QPointer>
 #include <QRegularExpression>
+#include <QScatterSeries>
 #include <QSet>
 #include <QStackedBarSeries>
 #include <QTemporaryDir>
@@ -32,7 +33,8 @@ using namespace ds;
 namespace {
 
 const QStringList sectionHeadings = {"Design",      "Caution",  "Inputs", "Key figures",
-                                     "Mass budget", "Timeline", "Checks", "Charts"};
+                                     "Mass budget", "Timeline", "Landing", "Checks",
+                                     "Charts"};
 
 const QStringList csvColumns = {"time_s",
                                 "altitude_m",
@@ -141,7 +143,8 @@ private slots:
         // The 560 kg entry and 60 kg heat shield of the sample are in the mass budget.
         QVERIFY(html.contains(QStringLiteral("<td class=\"num\">560.0</td>")));
         QVERIFY(html.contains(QStringLiteral("<td class=\"num\">60.0</td>")));
-        QCOMPARE(countOf(html, QStringLiteral("src=\"data:image/png;base64,")), 4);
+        // The four profiles and the ground track.
+        QCOMPARE(countOf(html, QStringLiteral("src=\"data:image/png;base64,")), 5);
     }
 
     void inputsTakeTheirUnitFromTheKeySuffix() {
@@ -265,6 +268,7 @@ private slots:
             std::unique_ptr<QChart>(loadsChart(m_results, nullptr)),
             std::unique_ptr<QChart>(machPressureChart(m_design, m_results, nullptr)),
             std::unique_ptr<QChart>(massWaterfallChart(m_results)),
+            std::unique_ptr<QChart>(groundTrackChart(m_results, &m_results)),
         };
         for (const auto& chart : charts) {
             QVERIFY(!chart->title().isEmpty());
@@ -293,6 +297,64 @@ private slots:
         QCOMPARE(trajectory->count(), static_cast<int>(m_results.history.size()));
         // First point: 5600 m/s at 125 km (the sample's entry interface).
         QCOMPARE(trajectory->at(0), QPointF(5600.0, 125.0));
+    }
+
+    void groundTrackHasAPointPerSampleTheEventsAndTheTarget() {
+        std::unique_ptr<QChart> chart(groundTrackChart(m_results, nullptr));
+        QLineSeries* track = nullptr;
+        QScatterSeries* target = nullptr;
+        QStringList numbers;
+        for (QAbstractSeries* series : chart->series()) {
+            if (series->name() == "ground track")
+                track = static_cast<QLineSeries*>(series);
+            else if (series->name().startsWith("target"))
+                target = static_cast<QScatterSeries*>(series);
+            else if (auto* marker = qobject_cast<QScatterSeries*>(series)) {
+                // An event marker: its numbers, at the first of its events.
+                const QStringList labels = marker->name().split(',');
+                const auto& event = m_results.timeline.events[labels.front().toInt() - 1];
+                QCOMPARE(marker->at(0), QPointF(event.downrange_m / 1000.0,
+                                                event.crossrange_m / 1000.0));
+                numbers << labels;
+            }
+        }
+        QVERIFY(track);
+        QCOMPARE(track->count(), static_cast<int>(m_results.history.size()));
+        for (int i = 0; i < track->count(); i += 25) {
+            const TrajectorySample& s = m_results.history[static_cast<std::size_t>(i)];
+            QCOMPARE(track->at(i), QPointF(s.downrange_m / 1000.0, s.crossrange_m / 1000.0));
+        }
+        // Every event once, numbered in time order.
+        QCOMPARE(numbers.size(), static_cast<int>(m_results.timeline.events.size()));
+        std::sort(numbers.begin(), numbers.end(),
+                  [](const QString& a, const QString& b) { return a.toInt() < b.toInt(); });
+        for (int i = 0; i < numbers.size(); ++i)
+            QCOMPARE(numbers[i].toInt(), i + 1);
+        // The sample has a target site: drawn where the landing less its miss puts it, about
+        // the miss distance from the track's end (flat to 1 % over a 2.4 km miss).
+        QVERIFY(m_results.landing && m_results.landing->miss_m);
+        QVERIFY(target);
+        const QPointF end = track->at(track->count() - 1);
+        const double apart = std::hypot(target->at(0).x() - end.x(), target->at(0).y() - end.y());
+        QVERIFY2(std::abs(apart - *m_results.landing->miss_m / 1000.0) <
+                     0.01 * *m_results.landing->miss_m / 1000.0,
+                 qPrintable(QString::number(apart)));
+    }
+
+    void landingSectionGivesThePointAndTheMiss() {
+        const QString html = sheetHtml(m_design, m_results, m_context);
+        const qsizetype at = html.indexOf("<h2>Landing</h2>");
+        QVERIFY(at >= 0);
+        const QString landing = html.mid(at, html.indexOf("<h2>", at + 4) - at);
+        const LandingResults& l = *m_results.landing;
+        QVERIFY(landing.contains(QString::number(l.latitude_deg, 'f', 4)));
+        QVERIFY(landing.contains(QString::number(l.longitude_deg, 'f', 4)));
+        QVERIFY(landing.contains(QString::number(l.downrange_m / 1000.0, 'f', 2)));
+        QVERIFY(landing.contains(QString::number(*l.miss_m / 1000.0, 'f', 2)));
+        QVERIFY(landing.contains(QString::number(*l.miss_crossrange_m / 1000.0, 'f', 2)));
+        QVERIFY(landing.contains("miss distance"));
+        // Without a dispersion study, no ellipse.
+        QVERIFY(!landing.contains("landing ellipse"));
     }
 
     void deployWindowOpensAtMach2Point1AndClosesAt250Pa() {
@@ -410,7 +472,7 @@ private slots:
         ChartsView view;
         view.resize(900, 700);
         const QList<QChartView*> views = view.findChildren<QChartView*>();
-        QCOMPARE(views.size(), 4);
+        QCOMPARE(views.size(), 5);
         QList<QPointer<QChart>> before;
         for (QChartView* chartView : views)
             before << QPointer<QChart>(chartView->chart());

@@ -2,6 +2,7 @@
 // worker threads and shows its plot, the window's numbers are the core's, a cancel answers at
 // once, the study exports to CSV and goes into the sizing sheet, and an edit makes it stale.
 
+#include <cmath>
 #include <fstream>
 
 #include <QChart>
@@ -20,12 +21,14 @@
 #include <QTemporaryDir>
 #include <QTest>
 #include <QUndoStack>
+#include <QValueAxis>
 
 #include "design/reader.hpp"
 #include "main_window.hpp"
 #include "model/design_document.hpp"
 #include "model/trade_runner.hpp"
 #include "results/key_figures.hpp"
+#include "sheet/sheet_sections.hpp"
 #include "trade/contour.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/dispersion.hpp"
@@ -207,6 +210,63 @@ private slots:
         const int shown = std::max(0, pointsIn(scatter.get(), "succeeded")) +
                           std::max(0, pointsIn(scatter.get(), "a check failed"));
         QCOMPARE(shown, deployed);
+
+        // The landing chart: a point per case that came down, and the ellipse with the
+        // summary's axes (its farthest and nearest points from the mean are the semi-axes).
+        QVERIFY(outcome->summary.landing_ellipse);
+        const LandingEllipse& ellipse = *outcome->summary.landing_ellipse;
+        std::unique_ptr<QChart> landing(landingEllipseChart(*outcome));
+        QLineSeries* outline = nullptr;
+        QList<QPointF> points;
+        for (QAbstractSeries* series : landing->series()) {
+            if (series->name().startsWith("99 % ellipse"))
+                outline = static_cast<QLineSeries*>(series);
+            if (series->name() == "succeeded" || series->name() == "a check failed")
+                points << static_cast<QScatterSeries*>(series)->points();
+        }
+        QVERIFY(outline);
+        QCOMPARE(points.size(), static_cast<int>(ellipse.count));
+        double farthest = 0.0, nearest = 1e300;
+        QPointF far;
+        for (const QPointF& p : outline->points()) {
+            const double r = std::hypot(p.x(), p.y());
+            if (r > farthest)
+                far = p;
+            farthest = std::max(farthest, r);
+            nearest = std::min(nearest, r);
+        }
+        QVERIFY(std::abs(farthest - ellipse.axes.semi_major_km) < 1e-9 * farthest);
+        QVERIFY(std::abs(nearest - ellipse.axes.semi_minor_km) < 1e-9 * farthest);
+        const double azimuth =
+            std::fmod(std::atan2(far.x(), far.y()) * 180.0 / M_PI + 360.0, 180.0);
+        QVERIFY(std::abs(azimuth - ellipse.axes.major_axis_azimuth_deg) < 1e-6);
+        // The plotted points are the ones the ellipse was computed from: their sample standard
+        // deviations east and north are the summary's (n - 1).
+        double meanEast = 0.0, meanNorth = 0.0;
+        for (const QPointF& p : points) {
+            meanEast += p.x() / points.size();
+            meanNorth += p.y() / points.size();
+        }
+        double varEast = 0.0, varNorth = 0.0;
+        for (const QPointF& p : points) {
+            varEast += (p.x() - meanEast) * (p.x() - meanEast) / (points.size() - 1);
+            varNorth += (p.y() - meanNorth) * (p.y() - meanNorth) / (points.size() - 1);
+        }
+        QVERIFY(std::abs(std::sqrt(varEast) - ellipse.axes.east_sigma_km) <
+                1e-6 * ellipse.axes.east_sigma_km);
+        QVERIFY(std::abs(std::sqrt(varNorth) - ellipse.axes.north_sigma_km) <
+                1e-6 * ellipse.axes.north_sigma_km);
+        // One span on both axes: to scale.
+        const auto axes = landing->axes();
+        QCOMPARE(axes.size(), 2);
+        const auto* a = static_cast<QValueAxis*>(axes[0]);
+        const auto* b = static_cast<QValueAxis*>(axes[1]);
+        QCOMPARE(a->max() - a->min(), b->max() - b->min());
+        // The sheet's Landing section carries the ellipse's figures.
+        const QString section = sheet::landingSection(outcome->design, Results{}, outcome);
+        QVERIFY(section.contains("<th>landing ellipse</th>"));
+        QVERIFY(section.contains(QString::number(2.0 * ellipse.axes.semi_major_km, 'f', 2)));
+        QVERIFY(section.contains(QString::number(ellipse.axes.major_axis_azimuth_deg, 'f', 1)));
         keepScreenshot(window, "trade-dispersions.png");
     }
 
@@ -323,14 +383,14 @@ private slots:
         const QString text = QString::fromUtf8(html.readAll());
         QVERIFY(text.contains("<h2>Trade study</h2>"));
         QVERIFY(text.contains("Sweep of entry.flight_path_angle_deg from -16 to -10 (4 values)"));
-        // The PDF is laid out from the same HTML: it holds one more chart than without a study.
+        // The PDF is laid out from the same HTML: the five flight charts and the sweep's.
         const QString pdf = dir.filePath("sheet.pdf");
         QVERIFY2(window.exportSheet(pdf, &error), qPrintable(error));
         QFile pdfFile(pdf);
         QVERIFY(pdfFile.open(QIODevice::ReadOnly));
         const QByteArray pdfBytes = pdfFile.readAll();
         QVERIFY(pdfBytes.startsWith("%PDF"));
-        QCOMPARE(pdfBytes.count("/Subtype /Image"), qsizetype(5));
+        QCOMPARE(pdfBytes.count("/Subtype /Image"), qsizetype(6));
 
         // An edit makes the study stale: it leaves the sheet until it is run again.
         window.document()->setValue("/entry/velocity_m_s", 5900.0, "velocity");

@@ -19,6 +19,7 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
     charts.emplace_back(loadsChart(results, nullptr));
     charts.emplace_back(machPressureChart(design, results, nullptr));
     charts.emplace_back(massWaterfallChart(results));
+    charts.emplace_back(groundTrackChart(results, nullptr));
     std::vector<SheetChart> drawn;
     for (const auto& chart : charts)
         drawn.push_back({chart->title(), renderChart(chart.get(), sheetChartSize)});
@@ -38,6 +39,7 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
             case StudyKind::dispersions:
                 add(dispersionHistogramChart(*trade, context.tradeFigure));
                 add(deployScatterChart(*trade));
+                add(landingEllipseChart(*trade));
                 break;
             case StudyKind::sensitivities:
                 add(sensitivityChart(*trade, context.tradeFigure));

@@ -9,6 +9,7 @@
 #include "results/caution.hpp"
 #include "results/key_figures.hpp"
 #include "sheet/sheet_format.hpp"
+#include "trade/study.hpp"
 
 namespace ds::sheet {
 namespace {
@@ -249,6 +250,79 @@ QString checksSection(const Results& results) {
                       {QString::fromStdString(check.source), {}}});
     }
     return section(QStringLiteral("Checks"), table.html());
+}
+
+QString landingSection(const Design& design, const Results& results, const StudyOutcome* trade) {
+    constexpr double km = 1e-3;
+    const auto kmText = [](const std::optional<double>& metres) {
+        return metres ? formatFixed(*metres * km, 2) : formatFixed(std::nullopt, 2);
+    };
+    QString body;
+    if (const auto& landing = results.landing) {
+        HtmlTable table({QStringLiteral("item"), QStringLiteral("value"), QStringLiteral("unit")});
+        const auto row = [&](const QString& item, const QString& value, const QString& unit) {
+            table.addRow({{item, {}}, {value, numberCell}, {unit, {}}});
+        };
+        row(QStringLiteral("latitude"), formatFixed(landing->latitude_deg, 4),
+            QStringLiteral("deg"));
+        row(QStringLiteral("longitude"), formatFixed(landing->longitude_deg, 4),
+            QStringLiteral("deg"));
+        row(QStringLiteral("downrange from the entry point"), kmText(landing->downrange_m),
+            QStringLiteral("km"));
+        row(QStringLiteral("crossrange (right of the entry heading)"),
+            kmText(landing->crossrange_m), QStringLiteral("km"));
+        if (design.site.latitude_deg && design.site.longitude_deg) {
+            row(QStringLiteral("target latitude"), formatFixed(*design.site.latitude_deg, 4),
+                QStringLiteral("deg"));
+            row(QStringLiteral("target longitude"), formatFixed(*design.site.longitude_deg, 4),
+                QStringLiteral("deg"));
+            row(QStringLiteral("miss distance"), kmText(landing->miss_m), QStringLiteral("km"));
+            row(QStringLiteral("miss downrange (long of the target when positive)"),
+                kmText(landing->miss_downrange_m), QStringLiteral("km"));
+            row(QStringLiteral("miss crossrange (right of the target when positive)"),
+                kmText(landing->miss_crossrange_m), QStringLiteral("km"));
+        }
+        body += table.html();
+        if (!(design.site.latitude_deg && design.site.longitude_deg))
+            body += paragraph(QStringLiteral(
+                "The design gives no target site (site.latitude_deg, site.longitude_deg): "
+                "no miss distance."));
+    } else {
+        body += paragraph(QStringLiteral("The lander does not come down: no landing point."));
+    }
+    if (trade && trade->request.kind == StudyKind::dispersions) {
+        if (const auto& ellipse = trade->summary.landing_ellipse) {
+            const EllipseAxes& axes = ellipse->axes;
+            HtmlTable table({QStringLiteral("landing ellipse"), QStringLiteral("value"),
+                             QStringLiteral("unit")});
+            const auto row = [&](const QString& item, const QString& value, const QString& unit) {
+                table.addRow({{item, {}}, {value, numberCell}, {unit, {}}});
+            };
+            row(QStringLiteral("probability held"), formatFixed(100.0 * ellipse->probability, 1),
+                QStringLiteral("%"));
+            row(QStringLiteral("landing points used"), QString::number(ellipse->count), {});
+            row(QStringLiteral("mean latitude"), formatFixed(ellipse->centre_latitude_deg, 4),
+                QStringLiteral("deg"));
+            row(QStringLiteral("mean longitude"), formatFixed(ellipse->centre_longitude_deg, 4),
+                QStringLiteral("deg"));
+            row(QStringLiteral("major axis (full length)"),
+                formatFixed(2.0 * axes.semi_major_km, 2), QStringLiteral("km"));
+            row(QStringLiteral("minor axis (full length)"),
+                formatFixed(2.0 * axes.semi_minor_km, 2), QStringLiteral("km"));
+            row(QStringLiteral("major axis azimuth (clockwise from north)"),
+                formatFixed(axes.major_axis_azimuth_deg, 1), QStringLiteral("deg"));
+            row(QStringLiteral("east standard deviation"), formatFixed(axes.east_sigma_km, 2),
+                QStringLiteral("km"));
+            row(QStringLiteral("north standard deviation"), formatFixed(axes.north_sigma_km, 2),
+                QStringLiteral("km"));
+            row(QStringLiteral("east-north correlation"), formatFixed(axes.correlation, 3), {});
+            body += table.html();
+        } else {
+            body += paragraph(QStringLiteral(
+                "The dispersion study has no landing ellipse: fewer than two cases came down."));
+        }
+    }
+    return section(QStringLiteral("Landing"), body);
 }
 
 }  // namespace ds::sheet

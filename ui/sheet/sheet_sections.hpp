@@ -5,6 +5,10 @@
 #include "design/design.hpp"
 #include "results/results.hpp"
 
+namespace ds {
+struct StudyOutcome;
+}
+
 namespace ds::sheet {
 
 /// The sheet's sections of the design and its results, each an HTML <section>.
@@ -17,5 +21,9 @@ QString keyFiguresSection(const Results& results);
 QString massSection(const Results& results);
 QString timelineSection(const Design& design, const Results& results);
 QString checksSection(const Results& results);
+/// Where the lander comes down: latitude, longitude, downrange and crossrange from the entry
+/// point, and with a target site the miss and its parts; with a dispersion study (`trade` may
+/// be null) its landing ellipse's figures.
+QString landingSection(const Design& design, const Results& results, const StudyOutcome* trade);
 
 }  // namespace ds::sheet

@@ -66,6 +66,7 @@ QString composeSheet(const Design& design, const Results& results, const SheetCo
     html += keyFiguresSection(results);
     html += massSection(results);
     html += timelineSection(design, results);
+    html += landingSection(design, results, context.trade);
     html += checksSection(results);
     html += section(QStringLiteral("Charts"), chartImages(charts, false, source, chartWidth));
     if (context.trade)

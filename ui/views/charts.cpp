@@ -5,6 +5,7 @@
 #include <functional>
 #include <limits>
 #include <memory>
+#include <optional>
 #include <utility>
 #include <vector>
 
@@ -18,6 +19,8 @@
 #include <QGraphicsScene>
 #include <QGraphicsSimpleTextItem>
 #include <QGridLayout>
+#include <QTabWidget>
+#include <QVBoxLayout>
 #include <QLegendMarker>
 #include <QLineSeries>
 #include <QPainter>
@@ -111,6 +114,38 @@ QScatterSeries* eventMarker(const QString& label, QPointF point) {
     return marker;
 }
 
+/// The timeline's events, numbered, with their names in a key in the plot's top-left corner.
+/// Events that fall on one spot (peak dynamic pressure and peak deceleration, the last
+/// seconds before touchdown) share a marker.
+void markEvents(QChart* chart, const std::vector<TimelineEvent>& events, QValueAxis* xAxis,
+                QValueAxis* yAxis, const std::function<QPointF(const TimelineEvent&)>& point) {
+    const double xTolerance = eventMergeFraction * (xAxis->max() - xAxis->min());
+    const double yTolerance = eventMergeFraction * (yAxis->max() - yAxis->min());
+    std::vector<std::pair<QStringList, QPointF>> marks;
+    QStringList key;
+    int number = 0;
+    for (const TimelineEvent& event : events) {
+        const QString label = QString::number(++number);
+        key << QStringLiteral("%1  %2").arg(label, QString::fromStdString(event.name));
+        const QPointF at = point(event);
+        const auto near = std::find_if(marks.begin(), marks.end(), [&](const auto& mark) {
+            return std::abs(mark.second.x() - at.x()) <= xTolerance &&
+                   std::abs(mark.second.y() - at.y()) <= yTolerance;
+        });
+        if (near != marks.end())
+            near->first << label;
+        else
+            marks.emplace_back(QStringList{label}, at);
+    }
+    for (const auto& [labels, at] : marks) {
+        QScatterSeries* marker = eventMarker(labels.join(QStringLiteral(",")), at);
+        attach(chart, marker, xAxis, yAxis);
+        hideFromLegend(chart, marker);
+    }
+    if (!key.isEmpty())
+        addKey(chart, key.join(QLatin1Char('\n')));
+}
+
 /// The time intervals over which the history lies inside the deploy window, with the
 /// crossings placed by linear interpolation between samples.
 std::vector<std::pair<double, double>> deployWindowIntervals(
@@ -190,35 +225,11 @@ std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Resu
         velocityAxis, altitudeAxis);
 
     // Each event is marked by its number, the key in the corner that an entry never reaches
-    // (slow and high). Events that fall on one spot (peak dynamic pressure and peak
-    // deceleration, the last seconds before touchdown) share a marker.
-    const double velocityTolerance =
-        eventMergeFraction * (velocityAxis->max() - velocityAxis->min());
-    const double altitudeTolerance =
-        eventMergeFraction * (altitudeAxis->max() - altitudeAxis->min());
-    std::vector<std::pair<QStringList, QPointF>> marks;
-    QStringList key;
-    int number = 0;
-    for (const TimelineEvent& event : results.timeline.events) {
-        const QString label = QString::number(++number);
-        key << QStringLiteral("%1  %2").arg(label, QString::fromStdString(event.name));
-        const QPointF at(event.velocity_m_s, event.altitude_m / metresPerKilometre);
-        const auto near = std::find_if(marks.begin(), marks.end(), [&](const auto& mark) {
-            return std::abs(mark.second.x() - at.x()) <= velocityTolerance &&
-                   std::abs(mark.second.y() - at.y()) <= altitudeTolerance;
-        });
-        if (near != marks.end())
-            near->first << label;
-        else
-            marks.emplace_back(QStringList{label}, at);
-    }
-    for (const auto& [labels, at] : marks) {
-        QScatterSeries* marker = eventMarker(labels.join(QStringLiteral(",")), at);
-        attach(chart, marker, velocityAxis, altitudeAxis);
-        hideFromLegend(chart, marker);
-    }
-    if (!key.isEmpty())
-        addKey(chart, key.join(QLatin1Char('\n')));
+    // (slow and high).
+    markEvents(chart, results.timeline.events, velocityAxis, altitudeAxis,
+               [](const TimelineEvent& event) {
+                   return QPointF(event.velocity_m_s, event.altitude_m / metresPerKilometre);
+               });
     return std::unique_ptr<QChart>(chart);
 }
 
@@ -444,6 +455,81 @@ std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
     return std::unique_ptr<QChart>(chart);
 }
 
+std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* baseline) {
+    const QString title = QStringLiteral("Ground track");
+    if (results.history.empty())
+        return std::unique_ptr<QChart>(emptyChart(title));
+
+    // The target, from the landing less its miss: downrange and crossrange on the same track.
+    std::optional<QPointF> target;
+    if (results.landing && results.landing->miss_downrange_m && results.landing->miss_crossrange_m)
+        target = QPointF(
+            (results.landing->downrange_m - *results.landing->miss_downrange_m) /
+                metresPerKilometre,
+            (results.landing->crossrange_m - *results.landing->miss_crossrange_m) /
+                metresPerKilometre);
+
+    QChart* chart = newChart(title);
+    // Not to the same scale: the crossrange of an entry is a small fraction of its downrange,
+    // and at one scale the track would be a flat line. The axis titles say km on both.
+    QValueAxis* downrangeAxis = addValueAxis(
+        chart, QStringLiteral("downrange from the entry point (km)"), Qt::AlignBottom);
+    QValueAxis* crossrangeAxis = addValueAxis(
+        chart, QStringLiteral("crossrange, right of the entry heading (km)"), Qt::AlignLeft);
+    Span downrange = spanOf(results, baseline, [](const TrajectorySample& s) {
+        return s.downrange_m / metresPerKilometre;
+    });
+    Span crossrange = spanOf(results, baseline, [](const TrajectorySample& s) {
+        return s.crossrange_m / metresPerKilometre;
+    });
+    if (target) {
+        downrange.include(target->x());
+        crossrange.include(target->y());
+    }
+    crossrange.include(0.0);  // the entry's great circle is always in view
+    // The crossrange axis spans the crossrange only, to show the track's bend; a track with
+    // next to no crossrange still gets an axis a kilometre wide around its line.
+    constexpr double narrowestCrossrangeKm = 1.0;
+    if (crossrange.high - crossrange.low < narrowestCrossrangeKm) {
+        const double middle = 0.5 * (crossrange.high + crossrange.low);
+        crossrange.include(middle - 0.5 * narrowestCrossrangeKm);
+        crossrange.include(middle + 0.5 * narrowestCrossrangeKm);
+    }
+    setNiceRange(downrangeAxis, std::min(0.0, downrange.low), downrange.high);
+    setNiceRange(crossrangeAxis, crossrange.low, crossrange.high);
+
+    const auto point = [](const TrajectorySample& s) {
+        return QPointF(s.downrange_m / metresPerKilometre, s.crossrange_m / metresPerKilometre);
+    };
+    if (baseline && !baseline->history.empty())
+        attach(chart,
+               historySeries(baseline->history, QStringLiteral("baseline"), baselinePen(), point),
+               downrangeAxis, crossrangeAxis);
+    attach(chart,
+           historySeries(results.history, QStringLiteral("ground track"), resultPen(primaryInk),
+                         point),
+           downrangeAxis, crossrangeAxis);
+    if (target) {
+        auto* site = new QScatterSeries;
+        site->setName(results.landing->miss_m
+                          ? QStringLiteral("target (missed by %1 km)")
+                                .arg(*results.landing->miss_m / metresPerKilometre, 0, 'f', 2)
+                          : QStringLiteral("target"));
+        site->setMarkerShape(QScatterSeries::MarkerShapeStar);
+        site->setMarkerSize(2.0 * eventMarkerSize);
+        site->setColor(secondaryInk);
+        site->setBorderColor(secondaryInk);
+        site->append(*target);
+        attach(chart, site, downrangeAxis, crossrangeAxis);
+    }
+    markEvents(chart, results.timeline.events, downrangeAxis, crossrangeAxis,
+               [](const TimelineEvent& event) {
+                   return QPointF(event.downrange_m / metresPerKilometre,
+                                  event.crossrange_m / metresPerKilometre);
+               });
+    return std::unique_ptr<QChart>(chart);
+}
+
 QImage renderChart(QChart* chart, QSize size) {
     QImage image(size, QImage::Format_ARGB32_Premultiplied);
     image.fill(Qt::white);
@@ -486,13 +572,26 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     m_loads = makeView(QStringLiteral("Deceleration and heat flux against time"));
     m_machPressure = makeView(QStringLiteral("Mach number and dynamic pressure against time"));
     m_mass = makeView(QStringLiteral("Mass from entry to landing"));
+    m_groundTrack = makeView(QStringLiteral("Ground track"));
 
-    auto* grid = new QGridLayout(this);
+    // The four profiles share a page; the ground track, wide and flat, has one of its own: a
+    // fifth chart in the grid leaves every chart too small to read at the window's usual size.
+    auto* profiles = new QWidget(this);
+    auto* grid = new QGridLayout(profiles);
     grid->setContentsMargins(0, 0, 0, 0);
     grid->addWidget(m_altitudeVelocity, 0, 0);
     grid->addWidget(m_loads, 0, 1);
     grid->addWidget(m_machPressure, 1, 0);
     grid->addWidget(m_mass, 1, 1);
+    m_pages = new QTabWidget(this);
+    m_pages->setObjectName(QStringLiteral("flightPages"));
+    m_pages->setTabPosition(QTabWidget::South);
+    m_pages->setDocumentMode(true);
+    m_pages->addTab(profiles, tr("Profiles"));
+    m_pages->addTab(m_groundTrack, tr("Ground track"));
+    auto* layout = new QVBoxLayout(this);
+    layout->setContentsMargins(0, 0, 0, 0);
+    layout->addWidget(m_pages);
 }
 
 void ChartsView::setResults(const Design& design, const Results& results, const Results* baseline) {
@@ -505,6 +604,7 @@ void ChartsView::setResults(const Design& design, const Results& results, const 
     replace(m_loads, loadsChart(results, baseline));
     replace(m_machPressure, machPressureChart(design, results, baseline));
     replace(m_mass, massWaterfallChart(results));
+    replace(m_groundTrack, groundTrackChart(results, baseline));
 }
 
 }  // namespace ds

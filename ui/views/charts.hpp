@@ -12,6 +12,7 @@
 QT_BEGIN_NAMESPACE
 class QChart;
 class QChartView;
+class QTabWidget;
 QT_END_NAMESPACE
 
 namespace ds {
@@ -24,11 +25,16 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
 std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
                                           const Results* baseline);
 std::unique_ptr<QChart> massWaterfallChart(const Results& results);
+/// Crossrange against downrange (km from the entry point along its great circle), one point
+/// per history sample, the timeline's events numbered as on the altitude chart, and the
+/// target site when the design has one.
+std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* baseline);
 
 /// A chart drawn into an image of the given size (for the sheet and screenshots).
 QImage renderChart(QChart* chart, QSize size);
 
-/// The four charts in a grid; setResults replaces them.
+/// The four profiles in a grid on one page, the ground track on another; setResults replaces
+/// them.
 class ChartsView : public QWidget {
     Q_OBJECT
 public:
@@ -41,6 +47,8 @@ private:
     QChartView* m_loads;
     QChartView* m_machPressure;
     QChartView* m_mass;
+    QChartView* m_groundTrack;
+    QTabWidget* m_pages;
 };
 
 }  // namespace ds

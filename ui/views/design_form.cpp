@@ -17,6 +17,7 @@
 #include "design/key_path.hpp"
 #include "design/schema.hpp"
 #include "model/design_document.hpp"
+#include "views/wind_table.hpp"
 
 namespace ds {
 namespace {
@@ -312,6 +313,8 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
             case KeyKind::by_hand:
                 if (key->path() == "mass.items")
                     buildItems(form);
+                else if (key->path() == "atmosphere.wind")
+                    form->addRow(tr("Wind"), new WindTable(m_document, this));
                 break;
             case KeyKind::text:
                 break;

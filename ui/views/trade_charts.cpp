@@ -15,6 +15,8 @@
 #include <QScatterSeries>
 #include <QValueAxis>
 
+#include "constants.hpp"
+#include "flight/ground_track.hpp"
 #include "results/key_figures.hpp"
 #include "trade/study.hpp"
 #include "views/chart_style.hpp"
@@ -297,6 +299,117 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
         attach(chart, series, qAxis, machAxis);
         if (series->count() == 0)
             hideFromLegend(chart, series);
+    }
+    return chart;
+}
+
+QList<QPointF> ellipseOutline(double semiMajorKm, double semiMinorKm, double azimuthDeg,
+                              int points) {
+    // The major axis's unit vector (east, north) at the azimuth clockwise from north, and the
+    // minor axis's a right angle clockwise of it.
+    const double azimuth = degrees_to_radians(azimuthDeg);
+    const QPointF major(std::sin(azimuth), std::cos(azimuth));
+    const QPointF minor(std::cos(azimuth), -std::sin(azimuth));
+    QList<QPointF> outline;
+    outline.reserve(points + 1);
+    for (int i = 0; i <= points; ++i) {  // closed: the last point is the first
+        const double t = 2.0 * pi * i / points;
+        outline.append(semiMajorKm * std::cos(t) * major + semiMinorKm * std::sin(t) * minor);
+    }
+    return outline;
+}
+
+QChart* landingEllipseChart(const StudyOutcome& outcome) {
+    const QString title = QStringLiteral("Landing points");
+    if (!outcome.campaign)
+        return emptyChart(title, QStringLiteral("no cases"));
+    const std::optional<LandingEllipse>& ellipse = outcome.summary.landing_ellipse;
+    if (!ellipse)
+        return emptyChart(title, QStringLiteral("fewer than two cases came down"));
+
+    const double radius = outcome.campaign->body_radius_m;
+    const GroundPoint centre{degrees_to_radians(ellipse->centre_latitude_deg),
+                             degrees_to_radians(ellipse->centre_longitude_deg)};
+    constexpr double km = 1e-3;
+    // East and north of the mean point, as the ellipse was computed (trade/landing_ellipse).
+    const auto local = [&](double latitudeDeg, double longitudeDeg) {
+        const GroundPoint p{degrees_to_radians(latitudeDeg), degrees_to_radians(longitudeDeg)};
+        const double d = great_circle_distance_m(centre, p, radius) * km;
+        const double azimuth = initial_azimuth_rad(centre, p);
+        return QPointF(d * std::sin(azimuth), d * std::cos(azimuth));
+    };
+
+    auto* success = caseSeries(QStringLiteral("succeeded"), passInk);
+    auto* failure = caseSeries(QStringLiteral("a check failed"), failInk);
+    success->setMarkerSize(caseMarkerSize * 0.5);
+    failure->setMarkerSize(caseMarkerSize * 0.5);
+    double reach = 0.0;
+    const auto include = [&](QPointF p) {
+        reach = std::max({reach, std::abs(p.x()), std::abs(p.y())});
+    };
+    std::size_t landed = 0;
+    for (const DispersedCase& c : outcome.campaign->cases) {
+        if (!c.landing)
+            continue;
+        const QPointF p = local(c.landing->latitude_deg, c.landing->longitude_deg);
+        (c.success ? success : failure)->append(p);
+        include(p);
+        ++landed;
+    }
+    const EllipseAxes& axes = ellipse->axes;
+    const QList<QPointF> outline =
+        ellipseOutline(axes.semi_major_km, axes.semi_minor_km, axes.major_axis_azimuth_deg);
+    for (const QPointF& p : outline)
+        include(p);
+    const SiteDesign& site = outcome.design.site;
+    std::optional<QPointF> target;
+    if (site.latitude_deg && site.longitude_deg) {
+        target = local(*site.latitude_deg, *site.longitude_deg);
+        include(*target);
+    }
+    reach = std::max(reach, 0.1);  // a campaign that lands on one spot still gets axes
+
+    const std::size_t missing = outcome.campaign->cases.size() - landed;
+    QChart* chart = newChart(missing == 0 ? QStringLiteral("%1: %2 cases").arg(title).arg(landed)
+                                          : QStringLiteral("%1: %2 cases (%3 did not come down)")
+                                                .arg(title)
+                                                .arg(landed)
+                                                .arg(missing));
+    QValueAxis* eastAxis =
+        addValueAxis(chart, QStringLiteral("east of the mean (km)"), Qt::AlignBottom);
+    QValueAxis* northAxis =
+        addValueAxis(chart, QStringLiteral("north of the mean (km)"), Qt::AlignLeft);
+    // One span on both axes: the scatter's shape is the landing's.
+    setNiceRange(eastAxis, -reach, reach);
+    setNiceRange(northAxis, -reach, reach);
+
+    for (QScatterSeries* series : {success, failure}) {
+        attach(chart, series, eastAxis, northAxis);
+        if (series->count() == 0)
+            hideFromLegend(chart, series);
+    }
+    attach(chart,
+           lineSeries(QStringLiteral("%1 % ellipse")
+                          .arg(ellipse->probability * percent, 0, 'g', 3),
+                      resultPen(primaryInk), outline),
+           eastAxis, northAxis);
+    auto* mean = new QScatterSeries;
+    mean->setName(QStringLiteral("mean"));
+    mean->setMarkerShape(QScatterSeries::MarkerShapeRectangle);
+    mean->setMarkerSize(caseMarkerSize * 1.4);
+    mean->setColor(primaryInk);
+    mean->setBorderColor(primaryInk);
+    mean->append(0.0, 0.0);
+    attach(chart, mean, eastAxis, northAxis);
+    if (target) {
+        auto* marker = new QScatterSeries;
+        marker->setName(QStringLiteral("target"));
+        marker->setMarkerShape(QScatterSeries::MarkerShapeStar);
+        marker->setMarkerSize(caseMarkerSize * 2.2);
+        marker->setColor(secondaryInk);
+        marker->setBorderColor(secondaryInk);
+        marker->append(*target);
+        attach(chart, marker, eastAxis, northAxis);
     }
     return chart;
 }

@@ -2,6 +2,8 @@
 
 #include <string>
 
+#include <QList>
+#include <QPointF>
 #include <QtGlobal>
 
 // The trade tab and the sizing sheet draw the feasibility map beside these charts.
@@ -26,6 +28,14 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
 /// Dispersions: deploy Mach number against deploy dynamic pressure, each case marked by
 /// success, over the design's deploy window.
 QChart* deployScatterChart(const StudyOutcome& outcome);
+/// Dispersions: every case's landing point, km east and north of the cases' mean landing
+/// point (the azimuthal equidistant projection the ellipse is computed in), with the landing
+/// ellipse, the mean point and the design's target site; both axes to the same km span.
+QChart* landingEllipseChart(const StudyOutcome& outcome);
+/// The ellipse's outline in that chart's frame: semi-axes in km, the major axis's azimuth
+/// clockwise from north; `points` around it.
+QList<QPointF> ellipseOutline(double semiMajorKm, double semiMinorKm, double azimuthDeg,
+                              int points = 120);
 /// Sensitivities: the inputs that drive the figure most, largest first.
 QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure);
 

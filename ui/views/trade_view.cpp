@@ -169,11 +169,14 @@ void TradeView::buildPages() {
     m_summary->setTextInteractionFlags(Qt::TextSelectableByMouse);
     m_histogram = chartView(dispersionResults);
     m_scatter = chartView(dispersionResults);
+    m_landing = chartView(dispersionResults);
+    m_landing->setObjectName(QStringLiteral("landingEllipse"));
     auto* dispersionGrid = new QGridLayout(dispersionResults);
     dispersionGrid->setContentsMargins(0, 0, 0, 0);
-    dispersionGrid->addWidget(m_summary, 0, 0, 1, 2);
+    dispersionGrid->addWidget(m_summary, 0, 0, 1, 3);
     dispersionGrid->addWidget(m_histogram, 1, 0);
     dispersionGrid->addWidget(m_scatter, 1, 1);
+    dispersionGrid->addWidget(m_landing, 1, 2);
     dispersionGrid->setRowStretch(1, 1);
     m_sensitivity = chartView(this);
     m_pages->insertWidget(introPage, intro);
@@ -463,9 +466,21 @@ void TradeView::showOutcome() {
                 }
                 summary += tr(" Failing most often: %1.").arg(failing.join(QStringLiteral(", ")));
             }
+            if (const auto& ellipse = s.landing_ellipse) {
+                summary += tr(" Landing ellipse (%1 %, %2 points): %3 × %4 km, major axis at "
+                              "%5° from north, centred at %6°, %7°.")
+                               .arg(ellipse->probability * 100.0, 0, 'g', 3)
+                               .arg(ellipse->count)
+                               .arg(2.0 * ellipse->axes.semi_major_km, 0, 'f', 2)
+                               .arg(2.0 * ellipse->axes.semi_minor_km, 0, 'f', 2)
+                               .arg(ellipse->axes.major_axis_azimuth_deg, 0, 'f', 0)
+                               .arg(ellipse->centre_latitude_deg, 0, 'f', 3)
+                               .arg(ellipse->centre_longitude_deg, 0, 'f', 3);
+            }
             m_summary->setText(summary);
             replaceChart(m_histogram, dispersionHistogramChart(outcome, figure()));
             replaceChart(m_scatter, deployScatterChart(outcome));
+            replaceChart(m_landing, landingEllipseChart(outcome));
             m_pages->setCurrentIndex(dispersionPage);
             break;
         }

@@ -104,6 +104,7 @@ private:
     QLabel* m_summary;
     QChartView* m_histogram;
     QChartView* m_scatter;
+    QChartView* m_landing;  ///< the landing points and their ellipse
     QChartView* m_sensitivity;
     QStringList m_keyNames;
     bool m_stale = false;
