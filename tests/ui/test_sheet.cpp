@@ -32,9 +32,8 @@ using namespace ds;
 
 namespace {
 
-const QStringList sectionHeadings = {"Design",      "Caution",  "Inputs", "Key figures",
-                                     "Mass budget", "Timeline", "Landing", "Checks",
-                                     "Charts"};
+const QStringList sectionHeadings = {"Design",   "Caution", "Inputs", "Key figures", "Mass budget",
+                                     "Timeline", "Landing", "Checks", "Charts"};
 
 const QStringList csvColumns = {"time_s",
                                 "altitude_m",
@@ -313,8 +312,8 @@ private slots:
                 // An event marker: its numbers, at the first of its events.
                 const QStringList labels = marker->name().split(',');
                 const auto& event = m_results.timeline.events[labels.front().toInt() - 1];
-                QCOMPARE(marker->at(0), QPointF(event.downrange_m / 1000.0,
-                                                event.crossrange_m / 1000.0));
+                QCOMPARE(marker->at(0),
+                         QPointF(event.downrange_m / 1000.0, event.crossrange_m / 1000.0));
                 numbers << labels;
             }
         }

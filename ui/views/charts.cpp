@@ -19,13 +19,13 @@
 #include <QGraphicsScene>
 #include <QGraphicsSimpleTextItem>
 #include <QGridLayout>
-#include <QTabWidget>
-#include <QVBoxLayout>
 #include <QLegendMarker>
 #include <QLineSeries>
 #include <QPainter>
 #include <QScatterSeries>
 #include <QStackedBarSeries>
+#include <QTabWidget>
+#include <QVBoxLayout>
 #include <QValueAxis>
 
 #include "sizing/landed_mass.hpp"
@@ -463,17 +463,16 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
     // The target, from the landing less its miss: downrange and crossrange on the same track.
     std::optional<QPointF> target;
     if (results.landing && results.landing->miss_downrange_m && results.landing->miss_crossrange_m)
-        target = QPointF(
-            (results.landing->downrange_m - *results.landing->miss_downrange_m) /
-                metresPerKilometre,
-            (results.landing->crossrange_m - *results.landing->miss_crossrange_m) /
-                metresPerKilometre);
+        target = QPointF((results.landing->downrange_m - *results.landing->miss_downrange_m) /
+                             metresPerKilometre,
+                         (results.landing->crossrange_m - *results.landing->miss_crossrange_m) /
+                             metresPerKilometre);
 
     QChart* chart = newChart(title);
     // Not to the same scale: the crossrange of an entry is a small fraction of its downrange,
     // and at one scale the track would be a flat line. The axis titles say km on both.
-    QValueAxis* downrangeAxis = addValueAxis(
-        chart, QStringLiteral("downrange from the entry point (km)"), Qt::AlignBottom);
+    QValueAxis* downrangeAxis =
+        addValueAxis(chart, QStringLiteral("downrange from the entry point (km)"), Qt::AlignBottom);
     QValueAxis* crossrangeAxis = addValueAxis(
         chart, QStringLiteral("crossrange, right of the entry heading (km)"), Qt::AlignLeft);
     Span downrange = spanOf(results, baseline, [](const TrajectorySample& s) {

@@ -389,8 +389,7 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
             hideFromLegend(chart, series);
     }
     attach(chart,
-           lineSeries(QStringLiteral("%1 % ellipse")
-                          .arg(ellipse->probability * percent, 0, 'g', 3),
+           lineSeries(QStringLiteral("%1 % ellipse").arg(ellipse->probability * percent, 0, 'g', 3),
                       resultPen(primaryInk), outline),
            eastAxis, northAxis);
     auto* mean = new QScatterSeries;

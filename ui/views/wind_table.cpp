@@ -89,9 +89,7 @@ void WindTable::load() {
         return;  // an edit elsewhere in the design
     m_shown = wind;
     m_loading = true;
-    const Shape shape = wind.is_object()  ? constant
-                        : wind.is_array() ? table
-                                          : none;
+    const Shape shape = wind.is_object() ? constant : wind.is_array() ? table : none;
     m_shape->setCurrentIndex(shape);
     const auto field = [](const DesignDocument::Json& row, const char* name) {
         return row.is_object() && row.contains(name) ? row.at(name) : DesignDocument::Json();
@@ -201,8 +199,8 @@ void WindTable::removeRow() {
 bool WindTable::pasteRows(const QString& text) {
     static const QRegularExpression separators(QStringLiteral("[\\t,;]"));
     DesignDocument::Json rows = DesignDocument::Json::array();
-    for (const QString& line : text.split(QRegularExpression(QStringLiteral("[\\r\\n]+")),
-                                          Qt::SkipEmptyParts)) {
+    for (const QString& line :
+         text.split(QRegularExpression(QStringLiteral("[\\r\\n]+")), Qt::SkipEmptyParts)) {
         const QStringList cells = line.split(separators);
         if (cells.size() < columnCount)
             continue;
