@@ -1,6 +1,7 @@
 #include "summary.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <iterator>
 #include <optional>
 #include <string_view>
@@ -164,6 +165,12 @@ void write_terminal(std::string& out, const TerminalResults& t) {
         row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
 }
 
+/// Metres in km, with a rounding-level negative (-0.000) shown as zero.
+double kilometres(double metres) {
+    const double km = metres * 1e-3;
+    return std::abs(km) < 5e-4 ? 0.0 : km;
+}
+
 void write_timeline(std::string& out, const Results& results) {
     heading(out, "Timeline");
     fmt::format_to(std::back_inserter(out),
@@ -174,7 +181,7 @@ void write_timeline(std::string& out, const Results& results) {
                        "  {:>9.2f} s  {:<28} {:>10.0f} m {:>9.1f} m/s {:>9.4f} {:>9.4f} {:>10.3f} "
                        "{:>10.3f}\n",
                        ev.time_s, ev.name, ev.altitude_m, ev.velocity_m_s, ev.latitude_deg,
-                       ev.longitude_deg, ev.downrange_m * 1e-3, ev.crossrange_m * 1e-3);
+                       ev.longitude_deg, kilometres(ev.downrange_m), kilometres(ev.crossrange_m));
     }
     row(out, "time from deploy to the burn", results.timeline.available_s, "s", 1);
     row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
