@@ -316,7 +316,8 @@ TEST_CASE("the parachute's opening load is checked in g against the payload's li
     CHECK(c->value == *r.parachute.opening_load_g);
     // A payload qualified to half the opening load fails.
     d.limits.peak_deceleration_max_g = 0.5 * *r.parachute.opening_load_g;
-    const ds::Check* low = find_check(ds::size_design(d), "opening_load");
+    const ds::Results weak = ds::size_design(d);
+    const ds::Check* low = find_check(weak, "opening_load");
     REQUIRE(low);
     CHECK(low->status == ds::CheckStatus::fail);
 }
