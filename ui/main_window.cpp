@@ -25,6 +25,7 @@
 #include "views/charts.hpp"
 #include "views/checks_view.hpp"
 #include "views/design_form.hpp"
+#include "views/export_dialog.hpp"
 #include "views/figures_view.hpp"
 #include "views/trade_view.hpp"
 
@@ -128,14 +129,10 @@ void MainWindow::buildMenus() {
             saveAs(path);
     });
     file->addAction(tr("&Export sheet..."), QKeySequence(tr("Ctrl+E")), this, [this] {
-        const QString path = QFileDialog::getSaveFileName(
-            this, tr("Export sizing sheet"), m_settings.lastDirectory(),
-            tr("PDF (*.pdf);;HTML (*.html);;Trajectory CSV (*.csv)"));
-        if (path.isEmpty())
-            return;
-        QString error;
-        if (!exportSheet(path, &error))
-            QMessageBox::warning(this, tr("Export sheet"), error);
+        exportThroughDialog(
+            this, tr("Export sizing sheet"), tr("Export sheet"), m_settings.lastDirectory(),
+            tr("PDF (*.pdf);;HTML (*.html);;Trajectory CSV (*.csv)"),
+            [this](const QString& path, QString* error) { return exportSheet(path, error); });
     });
     file->addSeparator();
     file->addAction(tr("&Quit"), QKeySequence::Quit, this, &QWidget::close);

@@ -121,6 +121,13 @@ Equilibrium equilibrium_of(const Vec3& v) {
     return e;
 }
 
+/// The balance at the state's latitude, mass and velocity, `dh` above its altitude.
+Vec3 balance_near(const FlightModel& model, const Stage& stage, const FlightState& y, double dh,
+                  const Vec3& follow) {
+    return balance(model, stage, y[StateIndex::altitude] + dh, y[StateIndex::latitude],
+                   y[StateIndex::mass], follow, velocity_of(y));
+}
+
 }  // namespace
 
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
@@ -205,15 +212,11 @@ double unsettled_rate(const FlightModel& model, const Stage& stage, const Flight
 
 Equilibrium quasi_steady_equilibrium(const FlightModel& model, const Stage& stage,
                                      const FlightState& y) {
-    const double h = y[StateIndex::altitude];
-    const double lat = y[StateIndex::latitude];
-    const double m = y[StateIndex::mass];
-    const Vec3 v = velocity_of(y);
     const double step = equilibrium_step_m;
     const Vec3 zero = Vec3::Zero();
-    const Vec3 following = following_term_m_s2(balance(model, stage, h - step, lat, m, zero, v),
-                                               balance(model, stage, h + step, lat, m, zero, v));
-    return equilibrium_of(balance(model, stage, h, lat, m, following, v));
+    const Vec3 following = following_term_m_s2(balance_near(model, stage, y, -step, zero),
+                                               balance_near(model, stage, y, step, zero));
+    return equilibrium_of(balance_near(model, stage, y, 0.0, following));
 }
 
 FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y) {
@@ -227,18 +230,14 @@ FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const
 
 FlightState quasi_steady_derivative(const FlightModel& model, const Stage& stage,
                                     const FlightState& y) {
-    const double h = y[StateIndex::altitude];
-    const double lat = y[StateIndex::latitude];
-    const double m = y[StateIndex::mass];
-    const Vec3 v = velocity_of(y);
     const double step = equilibrium_step_m;
     const Vec3 zero = Vec3::Zero();
     // The first-order equilibrium a step either side, each with its own following term.
-    const Vec3 low = balance(model, stage, h - 2.0 * step, lat, m, zero, v);
-    const Vec3 mid = balance(model, stage, h, lat, m, zero, v);
-    const Vec3 high = balance(model, stage, h + 2.0 * step, lat, m, zero, v);
-    const Vec3 below = balance(model, stage, h - step, lat, m, following_term_m_s2(low, mid), v);
-    const Vec3 above = balance(model, stage, h + step, lat, m, following_term_m_s2(mid, high), v);
+    const Vec3 low = balance_near(model, stage, y, -2.0 * step, zero);
+    const Vec3 mid = balance_near(model, stage, y, 0.0, zero);
+    const Vec3 high = balance_near(model, stage, y, 2.0 * step, zero);
+    const Vec3 below = balance_near(model, stage, y, -step, following_term_m_s2(low, mid));
+    const Vec3 above = balance_near(model, stage, y, step, following_term_m_s2(mid, high));
 
     FlightState dy = FlightState::Zero();
     position_rates(model, y, dy);

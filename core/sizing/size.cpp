@@ -325,6 +325,21 @@ void push_terminal_events(const Evaluation& e, const Design& design,
     }
 }
 
+/// The timeline event that ends the entry flight.
+const char* entry_end_event(EntryEnd end) {
+    switch (end) {
+        case EntryEnd::deployed:
+            return "parachute deploy";
+        case EntryEnd::ground:
+            return "ground impact";
+        case EntryEnd::skip_out:
+            return "atmospheric exit";
+        case EntryEnd::stopped:
+            break;
+    }
+    return "integration stopped";
+}
+
 void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline) {
     std::vector<TimelineEvent>& events = timeline.events;
     const EntryFlight& f = e.entry;
@@ -338,20 +353,7 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
     events.push_back(event_at("peak deceleration", f.deceleration.time_s, f.deceleration.y));
     events.push_back(
         event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
-    switch (f.end) {
-        case EntryEnd::deployed:
-            events.push_back(event_at("parachute deploy", f.end_time_s, f.end_state));
-            break;
-        case EntryEnd::ground:
-            events.push_back(event_at("ground impact", f.end_time_s, f.end_state));
-            break;
-        case EntryEnd::skip_out:
-            events.push_back(event_at("atmospheric exit", f.end_time_s, f.end_state));
-            break;
-        case EntryEnd::stopped:
-            events.push_back(event_at("integration stopped", f.end_time_s, f.end_state));
-            break;
-    }
+    events.push_back(event_at(entry_end_event(f.end), f.end_time_s, f.end_state));
     if (jettison_reached(e)) {
         events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
                                   e.descent->jettison_state));

@@ -26,6 +26,7 @@
 #include "results/caution.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "sizing/size.hpp"
+#include "support/history_columns.hpp"
 #include "views/charts.hpp"
 
 using namespace ds;
@@ -35,20 +36,14 @@ namespace {
 const QStringList sectionHeadings = {"Design",   "Caution", "Inputs", "Key figures", "Mass budget",
                                      "Timeline", "Landing", "Checks", "Charts"};
 
-const QStringList csvColumns = {"time_s",
-                                "altitude_m",
-                                "downrange_m",
-                                "velocity_m_s",
-                                "flight_path_angle_deg",
-                                "mach",
-                                "dynamic_pressure_Pa",
-                                "deceleration_g",
-                                "heat_flux_W_cm2",
-                                "radiative_heat_flux_W_cm2",
-                                "latitude_deg",
-                                "longitude_deg",
-                                "azimuth_deg",
-                                "crossrange_m"};
+QStringList csvColumnNames() {
+    QStringList names;
+    for (const char* name : test::history_columns)
+        names << QString::fromLatin1(name);
+    return names;
+}
+
+const QStringList csvColumns = csvColumnNames();
 
 /// A quantity of the history at a time, by linear interpolation between samples.
 double interpolate(const Results& results, double time_s, double TrajectorySample::*quantity) {

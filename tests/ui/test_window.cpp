@@ -23,23 +23,24 @@ namespace {
 
 const QString sample = QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/small-ballistic-station.json");
 
-/// The figure's value as shown, by its id.
-QString figure(const MainWindow& window, const QString& id) {
+/// The text in `column` of the figure's row, by its id.
+QString figureCell(const MainWindow& window, const QString& id, int column) {
     const FiguresView* view = window.figures();
     for (int row = 0; row < view->rowCount(); ++row) {
         if (view->item(row, 0)->data(Qt::UserRole).toString() == id)
-            return view->item(row, 1)->text();
+            return view->item(row, column)->text();
     }
     return {};
 }
 
+/// The figure's value as shown, by its id.
+QString figure(const MainWindow& window, const QString& id) {
+    return figureCell(window, id, 1);
+}
+
+/// The figure's change as shown, by its id.
 QString change(const MainWindow& window, const QString& id) {
-    const FiguresView* view = window.figures();
-    for (int row = 0; row < view->rowCount(); ++row) {
-        if (view->item(row, 0)->data(Qt::UserRole).toString() == id)
-            return view->item(row, 3)->text();
-    }
-    return {};
+    return figureCell(window, id, 3);
 }
 
 QuantityEdit* field(const MainWindow& window, const std::string& pointer) {

@@ -87,6 +87,19 @@ QLineSeries* lineSeries(const QString& name, const QPen& pen, const QList<QPoint
     return series;
 }
 
+/// A series of one point, drawn as a marker of its own shape, size and colour.
+QScatterSeries* pointMarker(const QString& name, QScatterSeries::MarkerShape shape, double size,
+                            const QColor& colour, QPointF at) {
+    auto* marker = new QScatterSeries;
+    marker->setName(name);
+    marker->setMarkerShape(shape);
+    marker->setMarkerSize(size);
+    marker->setColor(colour);
+    marker->setBorderColor(colour);
+    marker->append(at);
+    return marker;
+}
+
 }  // namespace
 
 QChart* sweepLineChart(const StudyOutcome& outcome, const std::string& figure) {
@@ -392,23 +405,15 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
            lineSeries(QStringLiteral("%1 % ellipse").arg(ellipse->probability * percent, 0, 'g', 3),
                       resultPen(primaryInk), outline),
            eastAxis, northAxis);
-    auto* mean = new QScatterSeries;
-    mean->setName(QStringLiteral("mean"));
-    mean->setMarkerShape(QScatterSeries::MarkerShapeRectangle);
-    mean->setMarkerSize(caseMarkerSize * 1.4);
-    mean->setColor(primaryInk);
-    mean->setBorderColor(primaryInk);
-    mean->append(0.0, 0.0);
-    attach(chart, mean, eastAxis, northAxis);
+    attach(chart,
+           pointMarker(QStringLiteral("mean"), QScatterSeries::MarkerShapeRectangle,
+                       caseMarkerSize * 1.4, primaryInk, QPointF(0.0, 0.0)),
+           eastAxis, northAxis);
     if (target) {
-        auto* marker = new QScatterSeries;
-        marker->setName(QStringLiteral("target"));
-        marker->setMarkerShape(QScatterSeries::MarkerShapeStar);
-        marker->setMarkerSize(caseMarkerSize * 2.2);
-        marker->setColor(secondaryInk);
-        marker->setBorderColor(secondaryInk);
-        marker->append(*target);
-        attach(chart, marker, eastAxis, northAxis);
+        attach(chart,
+               pointMarker(QStringLiteral("target"), QScatterSeries::MarkerShapeStar,
+                           caseMarkerSize * 2.2, secondaryInk, *target),
+               eastAxis, northAxis);
     }
     return chart;
 }

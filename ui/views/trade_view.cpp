@@ -29,6 +29,7 @@
 #include "trade/design_variants.hpp"
 #include "trade/success_probability.hpp"
 #include "views/dispersion_table.hpp"
+#include "views/export_dialog.hpp"
 #include "views/trade_charts.hpp"
 
 namespace ds {
@@ -195,13 +196,9 @@ void TradeView::connectControls() {
     connect(m_run, &QPushButton::clicked, this, &TradeView::run);
     connect(m_cancel, &QPushButton::clicked, this, &TradeView::cancel);
     connect(m_export, &QPushButton::clicked, this, [this] {
-        const QString path = QFileDialog::getSaveFileName(this, tr("Export trade study"), QString(),
-                                                          tr("CSV (*.csv)"));
-        if (path.isEmpty())
-            return;
-        QString error;
-        if (!exportCsv(path, &error))
-            QMessageBox::warning(this, tr("Export trade study"), error);
+        exportThroughDialog(
+            this, tr("Export trade study"), tr("Export trade study"), QString(), tr("CSV (*.csv)"),
+            [this](const QString& path, QString* error) { return exportCsv(path, error); });
     });
 }
 

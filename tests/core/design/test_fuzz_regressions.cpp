@@ -24,6 +24,22 @@ std::string nested(std::size_t depth) {
     return "{\"name\": " + std::string(depth, '[') + std::string(depth, ']') + "}";
 }
 
+/// A 560 kg capsule entering at Mars, named `name`: the document up to its mass, then `rest`
+/// (the parachute, terminal and solver members).
+std::string mars_capsule(const std::string& name, const std::string& rest) {
+    return R"({
+      "format": "descent-sizer/design", "version": 1, "name": ")" +
+           name + R"(", "body": "mars",
+      "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
+                      "scale_height_m": 11100, "temperature_K": 210 },
+      "site": { "elevation_m": -1500 },
+      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
+                 "flight_path_angle_deg": -13.0 },
+      "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65 },
+      "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+)" + rest + "}";
+}
+
 }  // namespace
 
 TEST_CASE("a NaN velocity gives a NaN radiative heat flux, not a read past the f(V) table") {
@@ -79,21 +95,12 @@ TEST_CASE("a lander already slower than its burn's end velocity does not burn, a
     // of its 250 s budget at 7.7 km, where the lander falls at 76-84 m/s, below the 90 m/s the
     // burn is to end at. The burn's end (the velocity falling through 90 m/s) never came: the
     // engine stopped the lander, lifted it for an hour of thrust and the budget diverged.
-    const std::string design = R"({
-      "format": "descent-sizer/design", "version": 1, "name": "slow burn", "body": "mars",
-      "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
-                      "scale_height_m": 11100, "temperature_K": 210 },
-      "site": { "elevation_m": -1500 },
-      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
-                 "flight_path_angle_deg": -13.0 },
-      "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65 },
-      "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+    const std::string design = mars_capsule("slow burn", R"(
       "parachute": { "type": "disk-gap-band", "diameter_m": 12.0, "drag_coefficient": 0.55,
                      "deploy_mach": 1.8 },
       "terminal": { "method": "retro", "isp_s": 220, "thrust_to_weight": 2.5,
                     "touchdown_velocity_m_s": 90.0 },
-      "solver": { "max_time_s": 250 }
-    })";
+      "solver": { "max_time_s": 250 })");
     const ds::DesignReadResult read = ds::read_design(design);
     REQUIRE(read.ok());
     const ds::Results r = ds::size_design(*read.design);
@@ -150,20 +157,11 @@ TEST_CASE("a stiff descent under a 10 km canopy stops at the step budget and say
     // settled the descent now flies quasi-steady and lands in some 120 steps (see
     // sizing/test_quasi_steady_descent.cpp), so the budget is set below the some 105 steps of
     // the canopy's opening transient and above the entry's 44.
-    const std::string design = R"({
-      "format": "descent-sizer/design", "version": 1, "name": "stiff", "body": "mars",
-      "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
-                      "scale_height_m": 11100, "temperature_K": 210 },
-      "site": { "elevation_m": -1500 },
-      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
-                 "flight_path_angle_deg": -13.0 },
-      "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65 },
-      "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+    const std::string design = mars_capsule("stiff", R"(
       "parachute": { "type": "disk-gap-band", "diameter_m": 10000.0, "mass_kg": 20,
                      "deploy_mach": 1.8 },
       "terminal": { "method": "none" },
-      "solver": { "max_time_s": 1e12, "max_steps": 60 }
-    })";
+      "solver": { "max_time_s": 1e12, "max_steps": 60 })");
     const ds::DesignReadResult read = ds::read_design(design);
     REQUIRE(read.ok());
     const ds::Results r = ds::size_design(*read.design);

@@ -8,6 +8,7 @@
 #include <nlohmann/json.hpp>
 
 #include "results/writer.hpp"
+#include "support/history_columns.hpp"
 
 namespace {
 
@@ -292,20 +293,8 @@ TEST_CASE("the trajectory history is written only when asked for") {
     std::vector<std::string> keys;
     for (const auto& item : sample.items())
         keys.push_back(item.key());
-    const std::vector<std::string> expected{"time_s",
-                                            "altitude_m",
-                                            "downrange_m",
-                                            "velocity_m_s",
-                                            "flight_path_angle_deg",
-                                            "mach",
-                                            "dynamic_pressure_Pa",
-                                            "deceleration_g",
-                                            "heat_flux_W_cm2",
-                                            "radiative_heat_flux_W_cm2",
-                                            "latitude_deg",
-                                            "longitude_deg",
-                                            "azimuth_deg",
-                                            "crossrange_m"};
+    const std::vector<std::string> expected(ds::test::history_columns.begin(),
+                                            ds::test::history_columns.end());
     CHECK(keys == expected);
     CHECK(sample["altitude_m"] == 120000.0);
     CHECK(sample["flight_path_angle_deg"] == -13.1);
