@@ -101,8 +101,12 @@ void write_entry(std::string& out, const EntryResults& e) {
     row(out, "peak convective heat flux", e.peak_heat_flux_W_cm2, "W/cm^2", 2);
     row(out, "  at altitude", e.peak_heat_flux_altitude_m, "m", 0);
     row(out, "convective heat load", e.heat_load_J_cm2, "J/cm^2", 0);
-    row(out, "peak radiative heat flux", e.peak_radiative_heat_flux_W_cm2, "W/cm^2", 2);
-    row(out, "radiative heat load", e.radiative_heat_load_J_cm2, "J/cm^2", 0);
+    if (e.radiative_heating == radiative_heating_not_modelled) {
+        text_row(out, "radiative heating", radiative_heating_not_modelled);
+    } else {
+        row(out, "peak radiative heat flux", e.peak_radiative_heat_flux_W_cm2, "W/cm^2", 2);
+        row(out, "radiative heat load", e.radiative_heat_load_J_cm2, "J/cm^2", 0);
+    }
     row(out, "peak dynamic pressure", e.peak_dynamic_pressure_Pa, "Pa", 0);
     row(out, "  at altitude", e.peak_dynamic_pressure_altitude_m, "m", 0);
     row(out, "heat-shield TPS mass fraction", e.heat_shield_mass_fraction * 100.0, "%", 2);

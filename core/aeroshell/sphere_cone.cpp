@@ -35,6 +35,23 @@ double stagnation_pressure_coefficient_limit(double gamma) {
            (gamma + 1.0);
 }
 
+double stagnation_pressure_coefficient_at(double gamma, double mach) {
+    if (mach >= 1.0)
+        return stagnation_pressure_coefficient(gamma, mach);
+    const double m2 = mach * mach;
+    // (p0/p - 1) / (g M^2 / 2) = 1 + M^2/4 + ...: the series where the difference cancels.
+    constexpr double series_below = 1e-3;
+    if (std::abs(mach) < series_below)
+        return 1.0 + 0.25 * m2;
+    const double isentropic_ratio = std::pow(1.0 + 0.5 * (gamma - 1.0) * m2, gamma / (gamma - 1.0));
+    return (isentropic_ratio - 1.0) / (0.5 * gamma * m2);
+}
+
+double stagnation_pressure_ratio_to_limit(double gamma, double mach) {
+    return stagnation_pressure_coefficient_at(gamma, mach) /
+           stagnation_pressure_coefficient_limit(gamma);
+}
+
 double modified_newtonian_sphere_cone_drag_coefficient(double half_angle_rad, double bluntness,
                                                        double gamma) {
     return newtonian_sphere_cone_drag_coefficient(half_angle_rad, bluntness) *

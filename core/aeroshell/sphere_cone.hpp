@@ -20,6 +20,17 @@ double stagnation_pressure_coefficient(double gamma, double mach);
 /// Its hypersonic limit (Mach to infinity): ((g+1)^2 / (4 g))^(g/(g-1)) * 4 / (g+1).
 double stagnation_pressure_coefficient_limit(double gamma);
 
+/// The stagnation pressure coefficient at any Mach number: behind the normal shock (Rayleigh
+/// pitot formula) from Mach 1 up, the isentropic compression below it (1 at Mach 0); the two
+/// meet at Mach 1.
+double stagnation_pressure_coefficient_at(double gamma, double mach);
+
+/// The Mach law of a blunt body's drag in modified Newtonian theory: the pressure on the face
+/// scales with the stagnation pressure coefficient, so Cd(M) / Cd(hypersonic) is
+/// Cp_max(M) / Cp_max(infinity). It leaves out the base pressure (which adds drag at low
+/// supersonic and subsonic speeds), so it is a conceptual estimate, low rather than high there.
+double stagnation_pressure_ratio_to_limit(double gamma, double mach);
+
 /// Modified Newtonian drag coefficient of a sphere-cone (hypersonic): the Newtonian value
 /// scaled by Cp_max / 2 with the hypersonic-limit Cp_max of the gas.
 double modified_newtonian_sphere_cone_drag_coefficient(double half_angle_rad, double bluntness,

@@ -28,6 +28,9 @@ constexpr Names<Maturity, 6> maturities{{{Maturity::estimated, "estimated"},
 constexpr Names<VelocityFrame, 2> velocity_frames{
     {{VelocityFrame::relative, "relative"}, {VelocityFrame::inertial, "inertial"}}};
 
+constexpr Names<DragMachLaw, 2> drag_mach_laws{
+    {{DragMachLaw::modified_newtonian, "modified_newtonian"}, {DragMachLaw::constant, "constant"}}};
+
 }  // namespace
 
 std::string_view to_string(AtmosphereModel model) {
@@ -76,6 +79,16 @@ std::string_view to_string(VelocityFrame frame) {
 }
 std::optional<VelocityFrame> velocity_frame_from(std::string_view name) {
     return value_of(velocity_frames, name);
+}
+
+std::vector<std::string_view> drag_mach_law_names() {
+    return all_names(drag_mach_laws);
+}
+std::string_view to_string(DragMachLaw law) {
+    return name_of(drag_mach_laws, law);
+}
+std::optional<DragMachLaw> drag_mach_law_from(std::string_view name) {
+    return value_of(drag_mach_laws, name);
 }
 
 }  // namespace ds

@@ -90,12 +90,19 @@ struct EntryDesign {
     bool operator==(const EntryDesign&) const = default;
 };
 
+/// How the aeroshell's drag coefficient varies with Mach below its hypersonic value.
+enum class DragMachLaw {
+    modified_newtonian,  ///< scaled by the stagnation-pressure coefficient at the Mach number
+    constant,            ///< held at the hypersonic value
+};
+
 struct AeroshellDesign {
     std::optional<double> diameter_m;  ///< empty when sized for a ballistic coefficient
     std::optional<double> size_for_ballistic_coefficient_kg_m2;
     double half_angle_deg = 70.0;
     double nose_radius_m = 0.0;
-    std::optional<double> drag_coefficient;  ///< empty: modified Newtonian theory
+    std::optional<double> drag_coefficient;  ///< hypersonic; empty: modified Newtonian theory
+    DragMachLaw drag_against_mach = DragMachLaw::modified_newtonian;
 
     bool operator==(const AeroshellDesign&) const = default;
 };
@@ -214,6 +221,9 @@ std::vector<std::string_view> terminal_method_names();
 std::vector<std::string_view> mass_group_names();
 std::vector<std::string_view> maturity_names();
 std::vector<std::string_view> velocity_frame_names();
+std::vector<std::string_view> drag_mach_law_names();
+std::string_view to_string(DragMachLaw law);
+std::optional<DragMachLaw> drag_mach_law_from(std::string_view name);
 std::string_view to_string(VelocityFrame frame);
 std::optional<VelocityFrame> velocity_frame_from(std::string_view name);
 

@@ -175,6 +175,15 @@ constexpr TextAccess velocity_frame{
         return frame.has_value();
     }};
 
+constexpr TextAccess drag_mach_law{
+    [](const Design& d) { return to_string(d.aeroshell.drag_against_mach); },
+    [](Design& d, std::string_view name) {
+        const auto law = drag_mach_law_from(name);
+        if (law)
+            d.aeroshell.drag_against_mach = *law;
+        return law.has_value();
+    }};
+
 std::vector<std::string_view> canopy_names() {
     std::vector<std::string_view> names;
     for (const CanopyType& type : canopy_types())
@@ -221,6 +230,10 @@ constexpr std::array atmosphere_texts{
 constexpr std::array frame_texts{
     ChoiceText{"relative", "planet-relative"},
     ChoiceText{"inertial", "inertial (turned planet-relative at the interface)"},
+};
+constexpr std::array drag_mach_texts{
+    ChoiceText{"modified_newtonian", "falls with Mach (modified Newtonian)"},
+    ChoiceText{"constant", "held at the hypersonic value"},
 };
 constexpr std::array method_texts{
     ChoiceText{"retro", "retro-rockets to touchdown"},
@@ -491,9 +504,17 @@ const std::array keys{
            .need = KeyNeed::optional,
            .range = positive,
            .number = member<&Design::aeroshell, &AeroshellDesign::drag_coefficient>,
-           .label = "Drag coefficient",
+           .label = "Hypersonic drag coefficient",
            .typical = {{1.5, 1.7}},
            .placeholder = "modified Newtonian"},
+    KeyRow{.section = "aeroshell",
+           .key = "drag_against_mach",
+           .kind = KeyKind::choice,
+           .need = KeyNeed::defaulted,
+           .text = drag_mach_law,
+           .choices = &drag_mach_law_names,
+           .label = "Drag coefficient below hypersonic",
+           .choice_texts = drag_mach_texts},
 
     KeyRow{.section = "mass",
            .key = "entry_kg",

@@ -1,6 +1,7 @@
 #include "flight/flight_model.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 
@@ -21,6 +22,8 @@ constexpr double equilibrium_step_m = 1.0;
 /// stops when a pass moves the velocity by a few units of rounding, or after this many passes
 /// (our bounds).
 constexpr int equilibrium_passes = 60;
+/// The most orders slow_manifold_equilibrium makes (each gains a factor of the deceleration in g).
+constexpr int max_equilibrium_orders = 8;
 constexpr double equilibrium_rounding = 4.0 * std::numeric_limits<double>::epsilon();
 
 using Vec3 = Eigen::Vector3d;
@@ -212,11 +215,31 @@ double unsettled_rate(const FlightModel& model, const Stage& stage, const Flight
 
 Equilibrium quasi_steady_equilibrium(const FlightModel& model, const Stage& stage,
                                      const FlightState& y) {
+    return slow_manifold_equilibrium(model, stage, y, 1);
+}
+
+Equilibrium slow_manifold_equilibrium(const FlightModel& model, const Stage& stage,
+                                      const FlightState& y, int orders) {
+    // Each order's velocities at altitudes a step apart, on a stencil that narrows by a step
+    // either side per order: the zeroth at -orders..orders steps, the last at the state alone.
+    orders = std::clamp(orders, 0, max_equilibrium_orders);
     const double step = equilibrium_step_m;
-    const Vec3 zero = Vec3::Zero();
-    const Vec3 following = following_term_m_s2(balance_near(model, stage, y, -step, zero),
-                                               balance_near(model, stage, y, step, zero));
-    return equilibrium_of(balance_near(model, stage, y, 0.0, following));
+    std::array<Vec3, 2 * max_equilibrium_orders + 1> level;
+    for (int j = -orders; j <= orders; ++j) {
+        level[static_cast<std::size_t>(j + orders)] =
+            balance_near(model, stage, y, j * step, Vec3::Zero());
+    }
+    // In place, left to right: the entry at i + 1 is still the previous order's when the new
+    // one at i is made from it and the one at i + 2.
+    for (int order = 1; order <= orders; ++order) {
+        const int reach = orders - order;
+        for (int j = -reach; j <= reach; ++j) {
+            const auto i = static_cast<std::size_t>(j + reach);
+            level[i] = balance_near(model, stage, y, j * step,
+                                    following_term_m_s2(level[i], level[i + 2]));
+        }
+    }
+    return equilibrium_of(level.front());
 }
 
 FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y) {

@@ -3,23 +3,37 @@
 #include <algorithm>
 #include <cmath>
 
+#include "aeroshell/sphere_cone.hpp"
+
 namespace ds {
 
-double DragDevice::drag_coefficient_at(double mach) const {
+namespace {
+
+/// The table's factor at a Mach number: linear between points, flat outside them.
+double table_factor(std::span<const MachPoint> mach_factor, double mach) {
     if (mach_factor.empty())
-        return drag_coefficient;
+        return 1.0;
     // NaN compares false with every entry: without this the search below runs off the table.
     if (std::isnan(mach))
         return mach;
     if (mach <= mach_factor.front().mach)
-        return drag_coefficient * mach_factor.front().factor;
+        return mach_factor.front().factor;
     if (mach >= mach_factor.back().mach)
-        return drag_coefficient * mach_factor.back().factor;
+        return mach_factor.back().factor;
     const auto upper = std::upper_bound(mach_factor.begin(), mach_factor.end(), mach,
                                         [](double m, const MachPoint& p) { return m < p.mach; });
     const auto lower = upper - 1;
     const double w = (mach - lower->mach) / (upper->mach - lower->mach);
-    return drag_coefficient * (lower->factor + w * (upper->factor - lower->factor));
+    return lower->factor + w * (upper->factor - lower->factor);
+}
+
+}  // namespace
+
+double DragDevice::drag_coefficient_at(double mach) const {
+    double cd = drag_coefficient * table_factor(mach_factor, mach);
+    if (stagnation_gamma > 0.0)
+        cd *= stagnation_pressure_ratio_to_limit(stagnation_gamma, mach);
+    return cd;
 }
 
 double Stage::drag_area_m2(double mach) const {

@@ -18,6 +18,10 @@ struct DragDevice {
     /// Cd / nominal against Mach, linear between points and held flat outside them; empty for
     /// a constant Cd. The table must outlive the device (the catalogues' tables are static).
     std::span<const MachPoint> mach_factor;
+    /// When positive, the ratio of specific heats of a blunt body's Mach law: Cd further
+    /// scales with the stagnation-pressure coefficient at the Mach number over its hypersonic
+    /// limit (modified Newtonian theory, see stagnation_pressure_ratio_to_limit); 0 for none.
+    double stagnation_gamma = 0.0;
 
     double drag_coefficient_at(double mach) const;
     double drag_area_m2(double mach) const { return drag_coefficient_at(mach) * area_m2; }

@@ -24,7 +24,7 @@ struct KeyFigureDefinition {
 /// The key figures, in the order they are shown: the one list of them. A figure added here is
 /// in the window's table, the sheet, the trade rows, the dispersion statistics and the trade
 /// tab's figure list at once.
-inline constexpr std::array<KeyFigureDefinition, 15> key_figure_table{{
+inline constexpr std::array<KeyFigureDefinition, 18> key_figure_table{{
     {"entry_mass", "entry mass", "kg", 1,
      [](const Results& r) -> std::optional<double> { return r.mass.entry_kg; }},
     {"landed_mass", "landed mass", "kg", 1, [](const Results& r) { return r.mass.landed_kg; }},
@@ -45,10 +45,28 @@ inline constexpr std::array<KeyFigureDefinition, 15> key_figure_table{{
      [](const Results& r) { return r.parachute.deploy_dynamic_pressure_Pa; }},
     {"parachute_diameter", "parachute diameter", "m", 2,
      [](const Results& r) { return r.parachute.diameter_m; }},
+    {"opening_load", "parachute opening load", "kN", 1,
+     [](const Results& r) -> std::optional<double> {
+         if (!r.parachute.opening_load_N)
+             return std::nullopt;
+         return *r.parachute.opening_load_N / 1e3;
+     }},
     {"propellant", "propellant (loaded)", "kg", 1,
      [](const Results& r) { return r.terminal.propellant_kg; }},
     {"burned_propellant", "propellant burned", "kg", 1,
      [](const Results& r) { return r.terminal.burned_propellant_kg; }},
+    // What meets the ground: the lander at touchdown, or the airbags at impact.
+    {"touchdown_speed", "touchdown speed", "m/s", 2,
+     [](const Results& r) {
+         return r.terminal.touchdown_velocity_m_s ? r.terminal.touchdown_velocity_m_s
+                                                  : r.terminal.impact_velocity_m_s;
+     }},
+    {"landing_downrange", "landing downrange from entry", "km", 2,
+     [](const Results& r) -> std::optional<double> {
+         if (!r.landing)
+             return std::nullopt;
+         return r.landing->downrange_m / 1e3;
+     }},
     {"timeline_margin", "timeline margin", "s", 1,
      [](const Results& r) { return r.timeline.margin_s; }},
     {"max_site_elevation", "highest feasible site elevation", "m", 0,

@@ -45,6 +45,9 @@ struct EntryInterface {
     EntryVelocity inertial;
 };
 
+/// What the results say of the radiative heating of a body that has no correlation for it.
+inline constexpr std::string_view radiative_heating_not_modelled = "not modelled";
+
 struct EntryResults {
     EntryInterface interface;
     double mass_kg = 0.0;
@@ -58,6 +61,9 @@ struct EntryResults {
     double peak_heat_flux_W_cm2 = 0.0;  ///< convective, Sutton-Graves
     double peak_heat_flux_altitude_m = 0.0;
     double heat_load_J_cm2 = 0.0;  ///< convective
+    /// The radiative-heating correlation flown ("Tauber-Sutton, mars"), or "not modelled"
+    /// (then the two figures below are empty and the heat flux and load are convective only).
+    std::string radiative_heating{radiative_heating_not_modelled};
     std::optional<double> peak_radiative_heat_flux_W_cm2;
     std::optional<double> radiative_heat_load_J_cm2;
     double peak_dynamic_pressure_Pa = 0.0;

@@ -52,6 +52,7 @@ Json entry_to_json(const EntryResults& entry) {
     out["peak_heat_flux_W_cm2"] = number(entry.peak_heat_flux_W_cm2);
     out["peak_heat_flux_altitude_m"] = number(entry.peak_heat_flux_altitude_m);
     out["heat_load_J_cm2"] = number(entry.heat_load_J_cm2);
+    out["radiative_heating"] = entry.radiative_heating;
     out["peak_radiative_heat_flux_W_cm2"] = number(entry.peak_radiative_heat_flux_W_cm2);
     out["radiative_heat_load_J_cm2"] = number(entry.radiative_heat_load_J_cm2);
     out["peak_dynamic_pressure_Pa"] = number(entry.peak_dynamic_pressure_Pa);

@@ -6,7 +6,7 @@ namespace {
 Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
     Phase phase;
     phase.name = "parachute";
-    phase.stage.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
+    phase.stage.drag_devices = {plan.canopy, plan.entry_vehicle};
     phase.ends = {{"floor", FlightQuantity::altitude, floor_altitude_m, EventDirection::falling}};
     phase.quasi_steady_when_settled = plan.quasi_steady;
     return phase;
@@ -60,6 +60,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     FlightState y = first.y;
     y[StateIndex::mass] -= plan.jettison_mass_kg;
     under_canopy.ends.resize(1);  // the floor only
+    under_canopy.stage.drag_devices.back() = {plan.body_drag_area_m2, 1.0, {}};
     const PhaseOutcome second =
         fly_phase(model, under_canopy, first.time_s, y, t_budget, settings, recording);
     out.quasi_steady_steps += second.quasi_steady_steps;

@@ -10,7 +10,8 @@ namespace ds {
 /// What hangs under the canopy, and what it drops.
 struct DescentPlan {
     DragDevice canopy;
-    double body_drag_area_m2 = 0.0;  ///< Cd A of the suspended vehicle
+    DragDevice entry_vehicle;        ///< the vehicle under the canopy, heat shield on
+    double body_drag_area_m2 = 0.0;  ///< Cd A of the vehicle under it after heat-shield jettison
     double jettison_mass_kg = 0.0;   ///< dropped at heat-shield jettison
     double floor_altitude_m = 0.0;   ///< flown down to here
     /// Fly the settled descent on the quasi-steady equations (Phase::quasi_steady_when_settled);

@@ -137,9 +137,16 @@ std::string describe_trigger(TriggerKind kind, double value) {
     return {};
 }
 
+DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeroshell) {
+    DragDevice device{frontal_area_m2(aeroshell.diameter_m), aeroshell.drag_coefficient, {}};
+    if (design.aeroshell.drag_against_mach == DragMachLaw::modified_newtonian)
+        device.stagnation_gamma = design_gamma(design);
+    return device;
+}
+
 Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell) {
     Stage stage;
-    stage.drag_devices = {{frontal_area_m2(aeroshell.diameter_m), aeroshell.drag_coefficient, {}}};
+    stage.drag_devices = {aeroshell_device(design, aeroshell)};
     stage.lift_to_drag = design.entry.lift_to_drag;
     stage.bank_angle_rad = degrees_to_radians(design.entry.bank_angle_deg);
     stage.nose_radius_m = design.aeroshell.nose_radius_m;

@@ -79,6 +79,10 @@ struct EntryFlight {
 };
 
 /// The stage of the entry vehicle: the aeroshell, with its lift and nose.
+/// The aeroshell as a drag device: its hypersonic Cd on its frontal area, with the design's law
+/// of Cd against Mach.
+DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeroshell);
+
 Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell);
 
 /// Flies from the entry interface to the parachute trigger (through the decelerator phase when

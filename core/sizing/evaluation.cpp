@@ -1,6 +1,9 @@
 #include "sizing/evaluation.hpp"
 
 #include <cmath>
+#include <cstdint>
+
+#include <boost/math/tools/roots.hpp>
 
 #include <fmt/format.h>
 
@@ -73,21 +76,66 @@ void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_
     });
 }
 
-void size_canopy(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
-                 Evaluation& e, double body_drag_area_m2) {
+/// The nominal diameter at which the vehicle under the canopy, heat shield gone, passes the
+/// requested height at the requested speed through the air, on the flown (quasi-steady)
+/// descent: the equilibrium speed there, with the term that keeps it following the thickening
+/// air (the vehicle still slows as it falls, so it needs more drag than the balance m g = q CdA
+/// at that height). Starts from that balance and brackets the root outward from it. The
+/// position is the deploy point's (or the entry interface's), at the requested height.
+/// Returns 0 when the vehicle alone already descends slower.
+/// Orders of the slow manifold a canopy is sized on: within 1e-5 of the flown speed under a
+/// canopy on Mars, where the first order is 0.3 % off.
+constexpr int sizing_equilibrium_orders = 4;
+
+double canopy_diameter_for_flown_speed(const FlightModel& model, const DragDevice& canopy_shape,
+                                       double body_drag_area_m2, double suspended_kg,
+                                       FlightState where, double target_m_s) {
+    const double balance = canopy_diameter_for_velocity(
+        suspended_kg, model.body.gravity_m_s2(where[StateIndex::altitude]),
+        model.atmosphere.at(where[StateIndex::altitude]).density_kg_m3, target_m_s,
+        canopy_shape.drag_coefficient, body_drag_area_m2);
+    if (balance <= 0.0)
+        return 0.0;
+    where[StateIndex::mass] = suspended_kg;
+    where[StateIndex::east_velocity] = 0.0;
+    where[StateIndex::north_velocity] = 0.0;
+    where[StateIndex::up_velocity] = -target_m_s;
+    Stage stage;
+    stage.drag_devices = {canopy_shape, {body_drag_area_m2, 1.0, {}}};
+    const auto excess_speed = [&](double diameter_m) {
+        stage.drag_devices.front().area_m2 = frontal_area_m2(diameter_m);
+        const Equilibrium flown =
+            slow_manifold_equilibrium(model, stage, where, sizing_equilibrium_orders);
+        FlightState settled = where;
+        settled[StateIndex::east_velocity] = flown.velocity_enu_m_s.x();
+        settled[StateIndex::north_velocity] = flown.velocity_enu_m_s.y();
+        settled[StateIndex::up_velocity] = flown.velocity_enu_m_s.z();
+        return flight_conditions(model, stage, settled).air_speed_m_s - target_m_s;
+    };
+    // The speed falls as the canopy grows; 1e-10 of the diameter is far inside the 0.1 % the
+    // request is held to.
+    constexpr double growth = 1.05;
+    const auto close = [](double a, double b) { return std::abs(b - a) <= 1e-10 * a; };
+    std::uintmax_t iterations = 100;
+    const auto [low, high] = boost::math::tools::bracket_and_solve_root(
+        excess_speed, balance, growth, false, close, iterations);
+    return 0.5 * (low + high);
+}
+
+void size_canopy(const Design& design, const FlightModel& model, Evaluation& e,
+                 double body_drag_area_m2) {
     const ParachuteDesign& p = design.parachute;
     e.canopy = *canopy_type(p.type);
     e.canopy_drag_coefficient = p.drag_coefficient.value_or(e.canopy.drag_coefficient);
     if (p.diameter_m) {
         e.canopy_diameter_m = *p.diameter_m;
     } else {
-        // Terminal-velocity balance at the requested height, heat shield gone, with the drag
-        // of the body under the canopy.
-        const double h = design.site.elevation_m + *p.at_height_above_site_m;
-        const double suspended = e.entry_kg - e.budget.group_kg(MassGroup::heat_shield);
-        e.canopy_diameter_m = canopy_diameter_for_velocity(
-            suspended, model.body.gravity_m_s2(h), atmosphere.at(h).density_kg_m3,
-            *p.size_for_velocity_m_s, e.canopy_drag_coefficient, body_drag_area_m2);
+        FlightState where = e.entry.end == EntryEnd::deployed ? e.entry.end_state : e.entry.start;
+        where[StateIndex::altitude] = design.site.elevation_m + *p.at_height_above_site_m;
+        e.canopy_diameter_m = canopy_diameter_for_flown_speed(
+            model, canopy_device(e.canopy, 1.0, e.canopy_drag_coefficient), body_drag_area_m2,
+            e.entry_kg - e.budget.group_kg(MassGroup::heat_shield), where,
+            *p.size_for_velocity_m_s);
     }
     const std::string name = fmt::format("parachute ({})", p.type);
     const double before = e.budget.total_kg();
@@ -263,8 +311,7 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
 
 }  // namespace
 
-Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosphere& atmosphere,
-                    double entry_kg) {
+Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg) {
     Evaluation e;
     e.entry_kg = entry_kg;
     e.aeroshell = resolve_aeroshell(design, entry_kg);
@@ -285,7 +332,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     const double area = frontal_area_m2(e.aeroshell.diameter_m);
     const double body_drag_area = MassEstimates::suspended_body_drag_coefficient * area;
     add_drop_masses(design, e, area);
-    size_canopy(design, model, atmosphere, e, body_drag_area);
+    size_canopy(design, model, e, body_drag_area);
     e.lander_kg = entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
                   e.budget.group_kg(MassGroup::backshell);
     // Parts that weigh as much as the vehicle leave nothing to land: no thrust, propellant or
@@ -298,6 +345,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, const Atmosp
     if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0 && under_canopy) {
         DescentPlan plan;
         plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
+        plan.entry_vehicle = aeroshell_device(design, e.aeroshell);
         plan.body_drag_area_m2 = body_drag_area;
         plan.jettison_mass_kg = e.budget.group_kg(MassGroup::heat_shield);
         plan.floor_altitude_m = design.site.elevation_m;

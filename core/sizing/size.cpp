@@ -38,19 +38,19 @@ struct Closure {
 
 /// Closes the budget: finds the entry mass m with m = budget(m), by the secant method on
 /// r(m) = budget(m) - m, started with one fixed-point step.
-Closure close_budget(const Design& design, const FlightModel& model, const Atmosphere& atmosphere) {
+Closure close_budget(const Design& design, const FlightModel& model) {
     double itemised = 0.0;
     for (const MassItemDesign& item : design.mass.items)
         itemised += item.mass_kg;
     double m0 = itemised / first_guess_itemised_share;
-    Closure c{evaluate(design, model, atmosphere, m0), {}};
+    Closure c{evaluate(design, model, m0), {}};
     double r0 = c.evaluation.budget_kg() - m0;
     double m1 = c.evaluation.budget_kg();
     for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
         c.report.iterations = iteration;
         if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg)
             break;
-        c.evaluation = evaluate(design, model, atmosphere, m1);
+        c.evaluation = evaluate(design, model, m1);
         const double r1 = c.evaluation.budget_kg() - m1;
         c.report.residual_kg = r1;
         if (std::abs(r1) < closure_tolerance_kg) {
@@ -215,6 +215,8 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.peak_heat_flux_altitude_m = altitude(f.heat_flux);
     entry.heat_load_J_cm2 = f.end_state[StateIndex::convective_heat_load] * per_cm2;
     if (!design.body.body.gas.radiative_correlation.empty()) {
+        entry.radiative_heating =
+            fmt::format("Tauber-Sutton, {}", design.body.body.gas.radiative_correlation);
         entry.peak_radiative_heat_flux_W_cm2 = f.radiative_heat_flux.value * per_cm2;
         entry.radiative_heat_load_J_cm2 = f.end_state[StateIndex::radiative_heat_load] * per_cm2;
     }
@@ -652,20 +654,18 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
 }
 
 /// The evaluation at the design's entry mass: the fixed one, or the closed one.
-Closure sized_evaluation(const Design& design, const FlightModel& model,
-                         const Atmosphere& atmosphere) {
+Closure sized_evaluation(const Design& design, const FlightModel& model) {
     if (design.mass.entry_kg)
-        return {evaluate(design, model, atmosphere, *design.mass.entry_kg), {}};
-    return close_budget(design, model, atmosphere);
+        return {evaluate(design, model, *design.mass.entry_kg), {}};
+    return close_budget(design, model);
 }
 
 }  // namespace
 
 Design freeze_design(const Design& design) {
     const FlightEnvironment environment = make_environment(design);
-    const Atmosphere* atmosphere = environment.atmosphere.get();
     const FlightModel model = environment.model();
-    const Evaluation e = sized_evaluation(design, model, *atmosphere).evaluation;
+    const Evaluation e = sized_evaluation(design, model).evaluation;
     Design frozen = design;
     frozen.mass.entry_kg = e.entry_kg;
     frozen.mass.heat_shield_kg = e.heat_shield_kg;
@@ -692,11 +692,10 @@ Design freeze_design(const Design& design) {
 
 Results size_design(const Design& design, SizingOptions options) {
     const FlightEnvironment environment = make_environment(design);
-    const Atmosphere* atmosphere = environment.atmosphere.get();
     const FlightModel model = environment.model();
 
     Results results;
-    Closure sized = sized_evaluation(design, model, *atmosphere);
+    Closure sized = sized_evaluation(design, model);
     Evaluation& e = sized.evaluation;
     const std::optional<MassClosure> closure =
         design.mass.entry_kg ? std::nullopt : std::optional<MassClosure>(sized.report);
@@ -742,6 +741,13 @@ Results size_design(const Design& design, SizingOptions options) {
         "Mass estimates marked \"estimate\" are rules of thumb: replace them with itemised "
         "masses as the design matures.");
     add_frame_notes(design, e.entry.interface, results);
+    if (results.entry.radiative_heating == radiative_heating_not_modelled) {
+        results.notes.push_back(
+            "Radiative heating is not modelled for this body (no published correlation is "
+            "carried for its gas): the heat flux, the heat load and the heat-shield mass are "
+            "convective only. At high entry speeds, and in some gases, the shock layer's "
+            "radiation can be a large part of the heating: confirm it by analysis.");
+    }
 
     std::vector<Check> checks = flight_checks(e, design, closure);
     if (e.aeroshell.diameter_m > 0.0) {

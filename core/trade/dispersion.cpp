@@ -195,11 +195,16 @@ DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_p
         if (!values.empty()) {
             std::sort(values.begin(), values.end());
             const double n = static_cast<double>(values.size());
-            st.mean = std::accumulate(values.begin(), values.end(), 0.0) / n;
+            // A figure every case shares (a frozen diameter) has that mean and no spread, not
+            // the rounding of a sum of equal values.
+            const bool all_equal = values.front() == values.back();
+            st.mean = all_equal ? values.front()
+                                : std::accumulate(values.begin(), values.end(), 0.0) / n;
             double squares = 0.0;
             for (const double v : values)
                 squares += (v - st.mean) * (v - st.mean);
-            st.standard_deviation = values.size() > 1 ? std::sqrt(squares / (n - 1.0)) : 0.0;
+            st.standard_deviation =
+                values.size() > 1 && !all_equal ? std::sqrt(squares / (n - 1.0)) : 0.0;
             st.p01 = quantile(values, 0.01);
             st.p50 = quantile(values, 0.50);
             st.p99 = quantile(values, 0.99);

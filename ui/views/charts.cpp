@@ -275,7 +275,13 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
            historySeries(results.history, QStringLiteral("convective heat flux"),
                          resultPen(secondaryInk), convective),
            timeAxis, heatAxis);
-    if (radiative) {
+    if (results.entry.radiative_heating == radiative_heating_not_modelled) {
+        // A legend entry only: the flux drawn is convective, and the reader should know why.
+        auto* note = new QLineSeries;
+        note->setName(QStringLiteral("radiative heating not modelled for this body"));
+        note->setPen(Qt::NoPen);
+        attach(chart, note, timeAxis, heatAxis);
+    } else if (radiative) {
         QPen pen = resultPen(secondaryInk);
         pen.setStyle(Qt::DotLine);
         attach(chart,

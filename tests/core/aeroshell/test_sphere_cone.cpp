@@ -38,6 +38,38 @@ TEST_CASE("Cp_max at Mach 2 in air is 1.656 and tends to its limit at high Mach 
           doctest::Approx(ds::stagnation_pressure_coefficient_limit(1.4)).epsilon(1e-6));
 }
 
+TEST_CASE("Cp_max below Mach 1 is the isentropic compression: 1.064 at Mach 0.5 (NACA 1135)") {
+    // p/p0 = 0.8430 at M = 0.5, gamma = 1.4 (NACA Report 1135 isentropic table, from memory):
+    // Cp = (1 / 0.8430 - 1) / (0.7 * 0.25) = 1.0641.
+    CHECK(ds::stagnation_pressure_coefficient_at(1.4, 0.5) ==
+          doctest::Approx(1.0641).epsilon(5e-4));
+    // Incompressible limit: the stagnation pressure is the dynamic pressure (Bernoulli).
+    CHECK(ds::stagnation_pressure_coefficient_at(1.4, 0.0) == doctest::Approx(1.0).epsilon(1e-15));
+    CHECK(ds::stagnation_pressure_coefficient_at(1.29, 1e-2) ==
+          doctest::Approx(1.0 + 0.25e-4).epsilon(1e-7));
+    // The normal shock vanishes at Mach 1: the two branches meet there.
+    CHECK(ds::stagnation_pressure_coefficient_at(1.29, 1.0 - 1e-9) ==
+          doctest::Approx(ds::stagnation_pressure_coefficient(1.29, 1.0)).epsilon(1e-8));
+    // Above Mach 1 it is the Rayleigh pitot formula.
+    CHECK(ds::stagnation_pressure_coefficient_at(1.4, 2.0) ==
+          ds::stagnation_pressure_coefficient(1.4, 2.0));
+    CHECK(std::isnan(ds::stagnation_pressure_coefficient_at(1.4, std::nan(""))));
+}
+
+TEST_CASE("the blunt body's Mach law: Cd(M) / Cd(hypersonic) = Cp_max(M) / Cp_max(infinity)") {
+    // 1.657 / 1.839 at Mach 2 in air (the two values above); 1 at high Mach; rising with Mach.
+    CHECK(ds::stagnation_pressure_ratio_to_limit(1.4, 2.0) ==
+          doctest::Approx(1.657 / 1.8394).epsilon(2e-3));
+    CHECK(ds::stagnation_pressure_ratio_to_limit(1.29, 30.0) == doctest::Approx(1.0).epsilon(2e-3));
+    double previous = 0.0;
+    for (double mach = 0.1; mach < 10.0; mach += 0.1) {
+        const double ratio = ds::stagnation_pressure_ratio_to_limit(1.29, mach);
+        CHECK(ratio > previous);
+        CHECK(ratio < 1.0);
+        previous = ratio;
+    }
+}
+
 TEST_CASE("modified Newtonian Cd of a 70 deg, e = 0.5 cone lies in the published 1.63-1.69 band") {
     // references.md: modified Newtonian 1.63-1.69 for 70 deg, e = 0.5 (derived); published
     // hypersonic Cd of 70 deg sphere-cones in CO2 about 1.65-1.70 (from memory).

@@ -39,7 +39,7 @@ struct Comparison {
         : design(std::move(d)), environment(ds::make_environment(design)) {
         const ds::FlightModel model = environment.model();
         const double entry_kg = ds::size_design(design).mass.entry_kg;
-        evaluation = ds::evaluate(design, model, *environment.atmosphere, entry_kg);
+        evaluation = ds::evaluate(design, model, entry_kg);
         REQUIRE(evaluation.descent);
         ds::DescentPlan plan = evaluation.descent->plan;
         plan.quasi_steady = false;
@@ -187,7 +187,7 @@ TEST_CASE("a descent under a 10 km canopy settles and lands at the hand terminal
     d.solver.max_steps = 2000;
     const auto atmosphere = ds::make_atmosphere(d);
     const ds::FlightModel model{d.body.body, *atmosphere};
-    const ds::Evaluation e = ds::evaluate(d, model, *atmosphere, 560.0);
+    const ds::Evaluation e = ds::evaluate(d, model, 560.0);
     REQUIRE(e.descent);
     CHECK(e.descent->reached_floor);
     CHECK(e.descent->record.steps().size() < 200);

@@ -54,6 +54,30 @@ TEST_CASE("quantiles interpolate between order statistics (Hyndman and Fan type 
     CHECK(ds::quantile(v, 1.0) == 5.0);
 }
 
+TEST_CASE("a figure every case shares has that mean and a standard deviation of exactly zero") {
+    // Regression: three cases of 0.1 summed to 0.30000000000000004, so the mean was
+    // 0.10000000000000002 and the deviation 1.7e-17, printed as such in the summary.
+    ds::DispersionCampaign campaign;
+    campaign.runs = 3;
+    campaign.figure_ids = {"shared", "spread"};
+    campaign.figure_units = {"m", "m"};
+    for (const double spread : {1.0, 2.0, 3.0}) {
+        ds::DispersedCase c;
+        c.figures = {0.1, spread};
+        c.success = true;
+        campaign.cases.push_back(c);
+    }
+    const ds::DispersionSummary s = ds::summarize(campaign);
+    REQUIRE(s.figures.size() == 2);
+    const ds::FigureStatistics& shared = s.figures[0];
+    const ds::FigureStatistics& spread = s.figures[1];
+    CHECK(shared.mean == 0.1);
+    CHECK(shared.standard_deviation == 0.0);
+    // Sample standard deviation of 1, 2, 3 (n - 1): 1.
+    CHECK(spread.mean == doctest::Approx(2.0).epsilon(1e-15));
+    CHECK(spread.standard_deviation == doctest::Approx(1.0).epsilon(1e-15));
+}
+
 TEST_CASE("the percentiles of a figure linear in a normal draw are those of the normal") {
     // The ballistic coefficient m / (Cd A) is linear in the entry mass: with the mass drawn
     // N(560, 3^2), beta is N(beta0, (3 beta0 / 560)^2) and its 1 % and 99 % points lie
