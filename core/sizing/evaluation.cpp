@@ -335,10 +335,13 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     size_canopy(design, model, e, body_drag_area);
     e.lander_kg = entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
                   e.budget.group_kg(MassGroup::backshell);
+    e.landing_kg = e.lander_kg + (backshell_separates(design.terminal.method)
+                                      ? 0.0
+                                      : e.budget.group_kg(MassGroup::backshell));
     // Parts that weigh as much as the vehicle leave nothing to land: no thrust, propellant or
     // landed mass is made from a lander of zero mass or less (the drop_mass check says why).
     // The vehicle still hangs under its canopy, unless the heat shield alone outweighs it.
-    const bool has_lander = e.lander_kg > 0.0;
+    const bool has_lander = e.landing_kg > 0.0;
     const bool under_canopy = entry_kg > e.budget.group_kg(MassGroup::heat_shield);
 
     const bool fires_engines = design.terminal.method != TerminalMethod::none;

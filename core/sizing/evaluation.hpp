@@ -30,7 +30,10 @@ struct Evaluation {
     double decelerator_kg = 0.0;
     double backshell_kg = 0.0;
     double parachute_kg = 0.0;
-    double lander_kg = 0.0;  ///< what separates from the backshell; 0 or less: nothing lands
+    double lander_kg = 0.0;  ///< what separates from the backshell (for a burn)
+    /// What comes down to the ground before any burn: the lander, and for "none" the backshell
+    /// and the parachute it never leaves; 0 or less: nothing is left to land.
+    double landing_kg = 0.0;
     double landed_kg = 0.0;
     /// Analysis mode: the fixed entry mass less everything itemised or estimated (negative
     /// when the budget does not fit in it).

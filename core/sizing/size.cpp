@@ -15,6 +15,7 @@
 #include "results/caution.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
+#include "sizing/landed_mass.hpp"
 #include "sizing/limit_checks.hpp"
 
 namespace ds {
@@ -408,14 +409,15 @@ Check jettison_check(const Evaluation& e) {
 }
 
 /// Parts dropped before landing that weigh as much as the vehicle leave nothing to land.
-Check drop_mass_check(const Evaluation& e) {
-    const double dropped = e.entry_kg - e.lander_kg;
+Check drop_mass_check(const Evaluation& e, const Design& design) {
+    const double dropped = e.entry_kg - e.landing_kg;
     return flight_check(
         "drop_mass", CheckStatus::fail, dropped, e.entry_kg, "kg",
-        fmt::format("the masses dropped before landing ({:.1f} kg: heat shield, backshell, "
-                    "parachute{}) {} the entry mass ({:.1f} kg): nothing is left to land, and "
-                    "no landed mass, thrust or propellant is computed",
+        fmt::format("the masses dropped before landing ({:.1f} kg: heat shield{}{}) {} the "
+                    "entry mass ({:.1f} kg): nothing is left to land, and no landed mass, thrust "
+                    "or propellant is computed",
                     dropped, e.decelerator_kg > 0.0 ? ", decelerator" : "",
+                    backshell_separates(design.terminal.method) ? ", backshell, parachute" : "",
                     dropped > e.entry_kg ? "exceed" : "equal", e.entry_kg),
         "mass budget");
 }
@@ -582,8 +584,8 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
     std::vector<Check> checks;
     if (!sizing_request_checks(e, design, checks))
         return checks;
-    if (e.lander_kg <= 0.0)
-        checks.push_back(drop_mass_check(e));
+    if (e.landing_kg <= 0.0)
+        checks.push_back(drop_mass_check(e, design));
     checks.push_back(entry_end_check(e, design));
     descent_checks(e, design, checks);
     if (std::optional<Check> budget = budget_check(e, closure))
@@ -727,7 +729,7 @@ Results size_design(const Design& design, SizingOptions options) {
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
     // Nothing lands from a descent that stopped in the air (the "descent stopped" event).
-    if (e.descent && e.lander_kg > 0.0 && !stopped_in_air(e))
+    if (e.descent && e.landing_kg > 0.0 && !stopped_in_air(e))
         results.mass.landed_kg = e.landed_kg;
     if (options.capability) {
         results.capability.max_site_elevation_m = max_site_elevation(design, model, e);

@@ -246,6 +246,23 @@ TEST_CASE("none: a descent that stops in the air lands nothing") {
     CHECK_FALSE(r.mass.landed_kg);
 }
 
+TEST_CASE("none: a backshell heavier than the lander inside it still lands, with it") {
+    // Regression: the drop_mass check counted the backshell and the parachute as dropped for a
+    // lander on its canopy, which never leaves them: a 40 kg backshell on the 48 kg capsule left
+    // "nothing to land" and no landed mass, though all 48 kg come down together.
+    ds::Design d = sample("earth-return-capsule");
+    d.mass.backshell_kg = 40.0;
+    const ds::Results r = ds::size_design(d);
+    CHECK_FALSE(find_check(r, "drop_mass"));
+    REQUIRE(r.mass.landed_kg);
+    CHECK(*r.mass.landed_kg == doctest::Approx(48.0).epsilon(1e-12));
+    // A heat shield that outweighs the vehicle still leaves nothing to land.
+    d.mass.heat_shield_kg = 48.0;
+    const ds::Results none_left = ds::size_design(d);
+    REQUIRE(find_check(none_left, "drop_mass"));
+    CHECK(find_check(none_left, "drop_mass")->message.find("backshell") == std::string::npos);
+}
+
 TEST_CASE("heat-shield jettison by dynamic pressure happens as the pressure falls through it") {
     ds::Design d = sample("small-ballistic-station");
     d.sequence.heat_shield_jettison_dynamic_pressure_Pa = 100.0;

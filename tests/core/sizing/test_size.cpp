@@ -405,7 +405,8 @@ TEST_CASE("the key figures of the landing: touchdown speed, downrange and openin
           bounced.terminal.impact_velocity_m_s);
 }
 
-TEST_CASE("radiative heating is named where a correlation is flown, and \"not modelled\" elsewhere") {
+TEST_CASE(
+    "radiative heating is named where a correlation is flown, and \"not modelled\" elsewhere") {
     const ds::Results mars = ds::size_design(sample("small-ballistic-station"));
     CHECK(mars.entry.radiative_heating == "Tauber-Sutton, mars");
     CHECK(mars.entry.peak_radiative_heat_flux_W_cm2);
