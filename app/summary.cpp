@@ -123,8 +123,11 @@ void write_decelerator(std::string& out, const DeceleratorResults& d) {
     row(out, "deploy dynamic pressure", d.deploy_dynamic_pressure_Pa, "Pa", 0);
 }
 
-void write_parachute(std::string& out, const ParachuteResults& p) {
-    heading(out, "Parachute");
+/// A canopy: the main parachute, or the drogue (which has no descent, jettison or drift of its
+/// own: the rows of those are the main's).
+void write_parachute(std::string& out, std::string_view title, const ParachuteResults& p,
+                     bool main) {
+    heading(out, title);
     text_row(out, "deployed", p.deployed ? "yes" : "no");
     row(out, "diameter", p.diameter_m, "m", 2);
     row(out, "drag coefficient (subsonic)", p.drag_coefficient, "", 3);
@@ -136,13 +139,18 @@ void write_parachute(std::string& out, const ParachuteResults& p) {
     row(out, "deploy dynamic pressure", p.deploy_dynamic_pressure_Pa, "Pa", 1);
     row(out, "deploy velocity", p.deploy_velocity_m_s, "m/s", 1);
     row(out, "opening load", p.opening_load_N, "N", 0);
+    row(out, "  on what hangs under it", p.opening_load_g, "g", 2);
     row(out, "inflation time", p.inflation_time_s, "s", 2);
-    row(out, "heat-shield jettison time", p.heat_shield_jettison_time_s, "s", 1);
-    row(out, "descent velocity under canopy", p.descent_velocity_m_s, "m/s", 1);
+    if (main) {
+        row(out, "heat-shield jettison time", p.heat_shield_jettison_time_s, "s", 1);
+        row(out, "descent velocity under canopy", p.descent_velocity_m_s, "m/s", 1);
+    }
     row(out, "deploy latitude", p.deploy_latitude_deg, "deg", 4);
     row(out, "deploy longitude", p.deploy_longitude_deg, "deg", 4);
-    row(out, "drift under the canopy", p.drift_m, "m", 0);
-    row(out, "  towards azimuth", p.drift_azimuth_deg, "deg", 1);
+    if (main) {
+        row(out, "drift under the canopy", p.drift_m, "m", 0);
+        row(out, "  towards azimuth", p.drift_azimuth_deg, "deg", 1);
+    }
 }
 
 void write_terminal(std::string& out, const TerminalResults& t) {
@@ -239,7 +247,9 @@ std::string format_summary(const Design& design, const Results& results) {
     write_entry(out, results.entry);
     if (results.decelerator)
         write_decelerator(out, *results.decelerator);
-    write_parachute(out, results.parachute);
+    if (results.drogue)
+        write_parachute(out, "Drogue", *results.drogue, false);
+    write_parachute(out, "Parachute", results.parachute, true);
     write_terminal(out, results.terminal);
     write_timeline(out, results);
     write_landing(out, results.landing);

@@ -157,6 +157,21 @@ struct DeceleratorDesign {
     bool operator==(const DeceleratorDesign&) const = default;
 };
 
+/// An optional drogue: a first canopy, deployed on its own trigger, that slows and steadies the
+/// vehicle until the main parachute deploys on the main's trigger (the staging trigger). At the
+/// main's deploy the drogue stops dragging (it is released, or extracts the main); its mass
+/// stays with the backshell.
+struct DrogueDesign {
+    std::string type = "disk-gap-band";
+    double diameter_m = 0.0;
+    std::optional<double> drag_coefficient;  ///< empty: the type's nominal value
+    TriggerKind trigger = TriggerKind::mach;
+    double trigger_value = 0.0;
+    std::optional<double> mass_kg;  ///< estimated when absent
+
+    bool operator==(const DrogueDesign&) const = default;
+};
+
 /// The events between parachute deploy and the terminal burn, and the time each needs.
 struct SequenceDesign {
     /// The heat-shield jettison delay after parachute deploy when the design gives neither a
@@ -251,6 +266,7 @@ struct Design {
     AeroshellDesign aeroshell;
     MassDesign mass;
     std::optional<DeceleratorDesign> decelerator;
+    std::optional<DrogueDesign> drogue;
     ParachuteDesign parachute;
     SequenceDesign sequence;
     TerminalDesign terminal;

@@ -198,6 +198,9 @@ struct Results {
     bool converged = false;
     EntryResults entry;
     std::optional<DeceleratorResults> decelerator;
+    /// The drogue, when the design has one: its deploy, opening load and mass (the fields of the
+    /// main's descent and jettison stay empty).
+    std::optional<ParachuteResults> drogue;
     ParachuteResults parachute;
     TerminalResults terminal;
     Timeline timeline;

@@ -239,6 +239,7 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
     out["converged"] = results.converged;
     out["entry"] = entry_to_json(results.entry);
     out["decelerator"] = decelerator_to_json(results.decelerator);
+    out["drogue"] = results.drogue ? parachute_to_json(*results.drogue) : Json(nullptr);
     out["parachute"] = parachute_to_json(results.parachute);
     out["terminal"] = terminal_to_json(results.terminal);
     out["timeline"] = timeline_to_json(results.timeline);

@@ -6,6 +6,7 @@
 
 #include "aeroshell/sphere_cone.hpp"
 #include "constants.hpp"
+#include "parachute/canopy.hpp"
 #include "sizing/environment.hpp"
 
 namespace ds {
@@ -144,6 +145,12 @@ DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeros
     return device;
 }
 
+DragDevice drogue_device(const Design& design) {
+    const DrogueDesign& d = *design.drogue;
+    const CanopyType type = *canopy_type(d.type);
+    return canopy_device(type, d.diameter_m, d.drag_coefficient.value_or(type.drag_coefficient));
+}
+
 Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell) {
     Stage stage;
     stage.drag_devices = {aeroshell_device(design, aeroshell)};
@@ -177,16 +184,28 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
     const Trigger chute = deploy_trigger("parachute deploy", design.parachute.trigger,
                                          design.parachute.trigger_value);
 
-    // With a decelerator, the entry ends at its trigger and a second phase, with the
-    // decelerator's drag added, flies on to the parachute's.
+    // With a decelerator, the entry ends at its trigger and a phase with its drag added flies
+    // on; with a drogue, a phase under the drogue (without lift) flies on to the parachute's
+    // trigger. Each phase but the last ends at the next one's deploy, recorded in `deployed`.
     std::vector<Phase> phases;
+    std::vector<std::optional<Deployment>*> deployed;
     if (design.decelerator) {
         const DeceleratorDesign& d = *design.decelerator;
         phase.ends = {deploy_trigger("decelerator deploy", d.trigger, d.trigger_value), ground,
                       exit};
         phases.push_back(phase);
+        deployed.push_back(&out.decelerator);
         phase.name = "decelerator";
         phase.stage.drag_devices.push_back({frontal_area_m2(d.diameter_m), d.drag_coefficient, {}});
+    }
+    if (design.drogue) {
+        const DrogueDesign& d = *design.drogue;
+        phase.ends = {deploy_trigger("drogue deploy", d.trigger, d.trigger_value), ground, exit};
+        phases.push_back(phase);
+        deployed.push_back(&out.drogue);
+        phase.name = "drogue";
+        phase.stage.drag_devices.push_back(drogue_device(design));
+        phase.stage.lift_to_drag = 0.0;
     }
     phase.ends = {chute, ground, exit};
     phases.push_back(phase);
@@ -218,12 +237,8 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
             out.end = EntryEnd::skip_out;
             return out;
         }
-        if (i + 1 < phases.size()) {
-            out.decelerator_deployed = true;
-            out.decelerator_time_s = flown.time_s;
-            out.decelerator_state = flown.y;
-            out.decelerator_conditions = out.end_conditions;
-        }
+        if (i < deployed.size())
+            *deployed[i] = Deployment{flown.time_s, flown.y, out.end_conditions};
         t = flown.time_s;
         y = flown.y;
     }

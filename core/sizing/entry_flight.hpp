@@ -59,7 +59,16 @@ struct PeakValue {
 /// How the flight from the interface to the parachute trigger went.
 enum class EntryEnd { deployed, ground, skip_out, stopped };
 
-/// The entry, and the inflatable decelerator phase when the design has one.
+/// Where a device deployed on the way to the parachute (the decelerator, the drogue): the state
+/// and the conditions at its trigger.
+struct Deployment {
+    double time_s = 0.0;
+    FlightState state;
+    FlightConditions conditions;
+};
+
+/// The entry, and the inflatable decelerator's and the drogue's phases when the design has
+/// them.
 struct EntryFlight {
     ResolvedAeroshell aeroshell;
     InterfaceState interface;
@@ -71,17 +80,17 @@ struct EntryFlight {
     FlightState end_state;  ///< at the parachute trigger when deployed
     FlightConditions end_conditions;
     PeakValue dynamic_pressure, deceleration, heat_flux, radiative_heat_flux;
-    // The decelerator, when flown.
-    bool decelerator_deployed = false;
-    double decelerator_time_s = 0.0;
-    FlightState decelerator_state;
-    FlightConditions decelerator_conditions;
+    std::optional<Deployment> decelerator;  ///< when it deployed
+    std::optional<Deployment> drogue;       ///< when it deployed
 };
 
 /// The stage of the entry vehicle: the aeroshell, with its lift and nose.
 /// The aeroshell as a drag device: its hypersonic Cd on its frontal area, with the design's law
 /// of Cd against Mach.
 DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeroshell);
+
+/// The drogue as a drag device, with its type's drag against Mach (the design must have one).
+DragDevice drogue_device(const Design& design);
 
 Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell);
 

@@ -122,6 +122,22 @@ double canopy_diameter_for_flown_speed(const FlightModel& model, const DragDevic
     return 0.5 * (low + high);
 }
 
+/// A canopy's mass in the backshell group: given, or estimated from its nominal area. Returns it
+/// with its growth allowance.
+double add_canopy_mass(const std::string& name, const CanopyType& type, double diameter_m,
+                       const std::optional<double>& given_kg, MassBudget& budget) {
+    const double before = budget.total_kg();
+    if (given_kg) {
+        budget.add_given(name, *given_kg, MassGroup::backshell);
+    } else {
+        budget.add_estimate(name, canopy_mass_kg(type, diameter_m), MassGroup::backshell,
+                            fmt::format("{:.2f} kg/m^2 of nominal area (common practice, from "
+                                        "memory)",
+                                        type.areal_mass_kg_m2));
+    }
+    return budget.total_kg() - before;
+}
+
 void size_canopy(const Design& design, const FlightModel& model, Evaluation& e,
                  double body_drag_area_m2) {
     const ParachuteDesign& p = design.parachute;
@@ -137,18 +153,17 @@ void size_canopy(const Design& design, const FlightModel& model, Evaluation& e,
             e.entry_kg - e.budget.group_kg(MassGroup::heat_shield), where,
             *p.size_for_velocity_m_s);
     }
-    const std::string name = fmt::format("parachute ({})", p.type);
-    const double before = e.budget.total_kg();
-    if (p.mass_kg) {
-        e.budget.add_given(name, *p.mass_kg, MassGroup::backshell);
-    } else {
-        e.budget.add_estimate(name, canopy_mass_kg(e.canopy, e.canopy_diameter_m),
-                              MassGroup::backshell,
-                              fmt::format("{:.2f} kg/m^2 of nominal area (common practice, from "
-                                          "memory)",
-                                          e.canopy.areal_mass_kg_m2));
-    }
-    e.parachute_kg = e.budget.total_kg() - before;
+    e.parachute_kg = add_canopy_mass(fmt::format("parachute ({})", p.type), e.canopy,
+                                     e.canopy_diameter_m, p.mass_kg, e.budget);
+}
+
+/// The drogue's mass, with the backshell's (it rides down with it).
+void add_drogue_mass(const Design& design, Evaluation& e) {
+    if (!design.drogue)
+        return;
+    const DrogueDesign& d = *design.drogue;
+    e.drogue_kg = add_canopy_mass(fmt::format("drogue ({})", d.type), *canopy_type(d.type),
+                                  d.diameter_m, d.mass_kg, e.budget);
 }
 
 /// The burn the lander flies: full thrust as given, or thrust-to-weight at the site times the
@@ -332,6 +347,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     const double area = frontal_area_m2(e.aeroshell.diameter_m);
     const double body_drag_area = MassEstimates::suspended_body_drag_coefficient * area;
     add_drop_masses(design, e, area);
+    add_drogue_mass(design, e);
     size_canopy(design, model, e, body_drag_area);
     e.lander_kg = entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
                   e.budget.group_kg(MassGroup::backshell);

@@ -30,6 +30,7 @@ struct Evaluation {
     double decelerator_kg = 0.0;
     double backshell_kg = 0.0;
     double parachute_kg = 0.0;
+    double drogue_kg = 0.0;
     double lander_kg = 0.0;  ///< what separates from the backshell (for a burn)
     /// What comes down to the ground before any burn: the lander, and for "none" the backshell
     /// and the parachute it never leaves; 0 or less: nothing is left to land.

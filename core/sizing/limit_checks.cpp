@@ -103,78 +103,90 @@ void mars_envelope_checks(const Design& design, const Results& results, const Li
     }
 }
 
-/// The parachute's deploy window: Mach and dynamic pressure at deploy. The window is that of
+/// Which canopy a check is of: the ids of a drogue's checks start "drogue_", and its words say
+/// "drogue" where the main's say "parachute".
+struct CanopyChecked {
+    std::string_view id_prefix;  ///< "" or "drogue_"
+    std::string_view name;       ///< "parachute" or "drogue"
+    std::string_view type;       ///< the design's canopy type
+    const ParachuteResults& results;
+
+    std::string id(std::string_view check) const { return fmt::format("{}{}", id_prefix, check); }
+    std::string words(std::string_view format) const {
+        return fmt::format(fmt::runtime(format), name);
+    }
+};
+
+/// The first canopy's deploy window: Mach and dynamic pressure at deploy. The window is that of
 /// supersonic parachutes at Mars: it holds on Mars, and elsewhere only for the bounds the design
 /// sets itself (a value other than the Mars default). A body with no bound of its own gets one
 /// check that says the window is not checked, with the deploy conditions.
-void deploy_checks(const Design& design, const ParachuteResults& parachute, const Limits& lim,
+void deploy_checks(const Design& design, const CanopyChecked& canopy, const Limits& lim,
                    std::vector<Check>& checks) {
+    const ParachuteResults& parachute = canopy.results;
     const double band = lim.marginal_band;
-    const Limits mars;
-    const bool on_mars = design.body.preset == "mars";
-    const bool mach_set = on_mars || lim.deploy_mach_max != mars.deploy_mach_max;
-    const bool high_set =
-        on_mars || lim.deploy_dynamic_pressure_max_Pa != mars.deploy_dynamic_pressure_max_Pa;
-    const bool low_set =
-        on_mars || lim.deploy_dynamic_pressure_min_Pa != mars.deploy_dynamic_pressure_min_Pa;
-    const std::string window{on_mars ? std::string(deploy_window_source)
-                                     : std::string("the design's own limit")};
-    if (mach_set) {
-        checks.push_back(check_at_most(
-            {"deploy_mach", "Mach number at parachute deploy", "", Severity::physics, window},
-            *parachute.deploy_mach, lim.deploy_mach_max, band));
+    const DeployWindow w = deploy_window(design);
+    const std::string window{design.body.preset == "mars" ? std::string(deploy_window_source)
+                                                          : std::string("the design's own limit")};
+    const std::string mach_words = canopy.words("Mach number at {} deploy");
+    const std::string pressure_words = canopy.words("dynamic pressure at {} deploy");
+    if (w.mach_max) {
+        checks.push_back(
+            check_at_most({canopy.id("deploy_mach"), mach_words, "", Severity::physics, window},
+                          *parachute.deploy_mach, *w.mach_max, band));
     }
-    if (high_set) {
-        checks.push_back(check_at_most(
-            {"deploy_dynamic_pressure_high", "dynamic pressure at parachute deploy", "Pa",
-             Severity::physics, window},
-            *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_max_Pa, band));
+    if (w.dynamic_pressure_max_Pa) {
+        checks.push_back(check_at_most({canopy.id("deploy_dynamic_pressure_high"), pressure_words,
+                                        "Pa", Severity::physics, window},
+                                       *parachute.deploy_dynamic_pressure_Pa,
+                                       *w.dynamic_pressure_max_Pa, band));
     }
-    if (low_set) {
-        checks.push_back(check_at_least(
-            {"deploy_dynamic_pressure_low", "dynamic pressure at parachute deploy", "Pa",
-             Severity::physics, window},
-            *parachute.deploy_dynamic_pressure_Pa, lim.deploy_dynamic_pressure_min_Pa, band));
+    if (w.dynamic_pressure_min_Pa) {
+        checks.push_back(check_at_least({canopy.id("deploy_dynamic_pressure_low"), pressure_words,
+                                         "Pa", Severity::physics, window},
+                                        *parachute.deploy_dynamic_pressure_Pa,
+                                        *w.dynamic_pressure_min_Pa, band));
     }
-    if (!mach_set && !high_set && !low_set) {
+    if (!w.any()) {
+        const Limits mars;
         checks.push_back(Check{
-            "deploy_window",
+            canopy.id("deploy_window"),
             CheckStatus::pass,
             *parachute.deploy_mach,
             0.0,
             "",
             fmt::format("not checked: no deploy window is known for {} (the Mars supersonic "
                         "window, Mach up to {:.4g} and {:.4g}-{:.4g} Pa, applies to Mars only); "
-                        "deploy at Mach {:.2f} and {:.0f} Pa: set deploy_mach_max and the deploy "
-                        "dynamic pressures in \"limits\" to check them",
+                        "{} deploy at Mach {:.2f} and {:.0f} Pa: set deploy_mach_max and the "
+                        "deploy dynamic pressures in \"limits\" to check them",
                         design.body.preset.empty() ? "a custom body" : design.body.preset,
                         mars.deploy_mach_max, mars.deploy_dynamic_pressure_min_Pa,
-                        mars.deploy_dynamic_pressure_max_Pa, *parachute.deploy_mach,
+                        mars.deploy_dynamic_pressure_max_Pa, canopy.name, *parachute.deploy_mach,
                         *parachute.deploy_dynamic_pressure_Pa),
             "no source for this body",
             {}});
     }
 }
 
-/// What the canopy and the heat shield's jettison ask of the vehicle: the opening load on the
-/// payload, a subsonic canopy kept subsonic, and a jettison subsonic at low dynamic pressure.
-/// Common practice, on every body.
-void canopy_load_checks(const Design& design, const ParachuteResults& parachute, const Limits& lim,
+/// What a canopy asks of the vehicle: the opening load on what hangs under it, and a subsonic
+/// canopy kept subsonic. Common practice, on every body.
+void canopy_load_checks(const CanopyChecked& canopy, const Limits& lim,
                         std::vector<Check>& checks) {
+    const ParachuteResults& parachute = canopy.results;
     const double band = lim.marginal_band;
     if (parachute.opening_load_g) {
         checks.push_back(check_at_most(
-            {"opening_load", "parachute opening load on what hangs under it", "g",
+            {canopy.id("opening_load"), canopy.words("{} opening load on what hangs under it"), "g",
              Severity::physics,
              "the payload's qualified load (peak_deceleration_max_g; the opening force by "
              "Knacke's load factor, NWC TP 6575, from memory)"},
             *parachute.opening_load_g, lim.peak_deceleration_max_g, band));
     }
-    const auto type = canopy_type(design.parachute.type);
+    const auto type = canopy_type(canopy.type);
     if (type && !type->supersonic && parachute.deploy_mach) {
         Check c = check_at_most(
-            {"subsonic_canopy_mach", "Mach number at deploy of a subsonic canopy", "",
-             Severity::physics,
+            {canopy.id("subsonic_canopy_mach"),
+             canopy.words("Mach number at {} deploy of a subsonic canopy"), "", Severity::physics,
              "a subsonic canopy type has no supersonic qualification (common practice)"},
             *parachute.deploy_mach, lim.subsonic_canopy_deploy_mach_max, band);
         if (c.status == CheckStatus::fail) {
@@ -185,18 +197,44 @@ void canopy_load_checks(const Design& design, const ParachuteResults& parachute,
         }
         checks.push_back(c);
     }
-    if (parachute.heat_shield_jettison_mach) {
-        const std::string source =
-            "a clean separation of the heat shield, subsonic at low dynamic pressure (common "
-            "practice: set the design's own)";
-        checks.push_back(check_at_most(
-            {"jettison_mach", "Mach number at heat-shield jettison", "", Severity::physics, source},
-            *parachute.heat_shield_jettison_mach, lim.jettison_mach_max, band));
-        checks.push_back(
-            check_at_most({"jettison_dynamic_pressure", "dynamic pressure at heat-shield jettison",
-                           "Pa", Severity::physics, source},
-                          *parachute.heat_shield_jettison_dynamic_pressure_Pa,
-                          lim.jettison_dynamic_pressure_max_Pa, band));
+}
+
+/// A clean heat-shield jettison: subsonic, at low dynamic pressure. Common practice.
+void jettison_checks(const ParachuteResults& parachute, const Limits& lim,
+                     std::vector<Check>& checks) {
+    if (!parachute.heat_shield_jettison_mach)
+        return;
+    const double band = lim.marginal_band;
+    const std::string source =
+        "a clean separation of the heat shield, subsonic at low dynamic pressure (common "
+        "practice: set the design's own)";
+    checks.push_back(check_at_most(
+        {"jettison_mach", "Mach number at heat-shield jettison", "", Severity::physics, source},
+        *parachute.heat_shield_jettison_mach, lim.jettison_mach_max, band));
+    checks.push_back(
+        check_at_most({"jettison_dynamic_pressure", "dynamic pressure at heat-shield jettison",
+                       "Pa", Severity::physics, source},
+                      *parachute.heat_shield_jettison_dynamic_pressure_Pa,
+                      lim.jettison_dynamic_pressure_max_Pa, band));
+}
+
+/// The canopies' checks: the deploy window of the first one out (the drogue when there is one:
+/// the main then deploys under it, below the window's speeds), and each one's loads.
+void parachute_checks(const Design& design, const Results& results, const Limits& lim,
+                      std::vector<Check>& checks) {
+    const CanopyChecked main{"", "parachute", design.parachute.type, results.parachute};
+    if (results.drogue && design.drogue) {
+        const CanopyChecked drogue{"drogue_", "drogue", design.drogue->type, *results.drogue};
+        if (results.drogue->deployed) {
+            deploy_checks(design, drogue, lim, checks);
+            canopy_load_checks(drogue, lim, checks);
+        }
+    } else if (results.parachute.deployed) {
+        deploy_checks(design, main, lim, checks);
+    }
+    if (results.parachute.deployed) {
+        canopy_load_checks(main, lim, checks);
+        jettison_checks(results.parachute, lim, checks);
     }
 }
 
@@ -274,6 +312,20 @@ void landing_checks(const TerminalResults& terminal, const Limits& lim,
 
 }  // namespace
 
+DeployWindow deploy_window(const Design& design) {
+    const Limits& lim = design.limits;
+    const Limits mars;
+    const bool on_mars = design.body.preset == "mars";
+    const auto bound = [on_mars](double value, double mars_value) -> std::optional<double> {
+        if (on_mars || value != mars_value)
+            return value;
+        return std::nullopt;
+    };
+    return {bound(lim.deploy_mach_max, mars.deploy_mach_max),
+            bound(lim.deploy_dynamic_pressure_min_Pa, mars.deploy_dynamic_pressure_min_Pa),
+            bound(lim.deploy_dynamic_pressure_max_Pa, mars.deploy_dynamic_pressure_max_Pa)};
+}
+
 std::vector<Check> limit_checks(const Design& design, const Results& results) {
     const Limits& lim = design.limits;
     const std::string heritage{heritage_source};
@@ -281,10 +333,7 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
     fairing_check(results, lim, heritage, checks);
     if (design.body.preset == "mars")
         mars_envelope_checks(design, results, lim, heritage, checks);
-    if (results.parachute.deployed)
-        deploy_checks(design, results.parachute, lim, checks);
-    if (results.parachute.deployed)
-        canopy_load_checks(design, results.parachute, lim, checks);
+    parachute_checks(design, results, lim, checks);
     entry_load_checks(results.entry, lim, checks);
     landing_checks(results.terminal, lim, checks);
     if (results.timeline.margin_s) {

@@ -225,6 +225,42 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
 }
 
+/// A canopy's deploy: where and how fast, its drag coefficient there, its opening load (on what
+/// hangs under it: the whole vehicle at that moment) and its inflation time.
+void fill_canopy_deploy(const CanopyType& type, double diameter_m, double drag_coefficient,
+                        const Deployment& at, ParachuteResults& p) {
+    const FlightConditions& c = at.conditions;
+    p.deploy_time_s = at.time_s;
+    p.deploy_altitude_m = at.state[StateIndex::altitude];
+    p.deploy_mach = c.mach;
+    p.deploy_dynamic_pressure_Pa = c.dynamic_pressure_Pa;
+    p.deploy_velocity_m_s = speed(at.state);
+    p.drag_coefficient_at_deploy =
+        canopy_device(type, diameter_m, drag_coefficient).drag_coefficient_at(c.mach);
+    p.opening_load_N =
+        opening_load_N(type, c.dynamic_pressure_Pa, c.mach, diameter_m, drag_coefficient);
+    const double hanging_kg = at.state[StateIndex::mass];
+    if (hanging_kg > 0.0)
+        p.opening_load_g = *p.opening_load_N / (hanging_kg * standard_gravity_m_s2);
+    p.inflation_time_s = inflation_time_s(type, diameter_m, c.air_speed_m_s);
+    p.deploy_latitude_deg = radians_to_degrees(at.state[StateIndex::latitude]);
+    p.deploy_longitude_deg = radians_to_degrees(at.state[StateIndex::longitude]);
+}
+
+/// The drogue: its deploy, and its release at the main parachute's (when that deployed).
+ParachuteResults drogue_results(const Evaluation& e, const DrogueDesign& design) {
+    ParachuteResults p;
+    const CanopyType type = *canopy_type(design.type);
+    const double drag_coefficient = design.drag_coefficient.value_or(type.drag_coefficient);
+    p.diameter_m = design.diameter_m;
+    p.drag_coefficient = drag_coefficient;
+    p.mass_kg = e.drogue_kg;
+    p.deployed = e.entry.drogue.has_value();
+    if (p.deployed)
+        fill_canopy_deploy(type, design.diameter_m, drag_coefficient, *e.entry.drogue, p);
+    return p;
+}
+
 void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResults& p) {
     const double radius_m = model.body.radius_m;
     p.drag_coefficient = e.canopy_drag_coefficient;
@@ -233,24 +269,8 @@ void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResu
     p.deployed = e.entry.end == EntryEnd::deployed;
     if (!p.deployed)
         return;
-    const FlightConditions& c = e.entry.end_conditions;
-    const double v = speed(e.entry.end_state);
-    p.deploy_time_s = e.entry.end_time_s;
-    p.deploy_altitude_m = e.entry.end_state[StateIndex::altitude];
-    p.deploy_mach = c.mach;
-    p.deploy_dynamic_pressure_Pa = c.dynamic_pressure_Pa;
-    p.deploy_velocity_m_s = v;
-    const DragDevice canopy =
-        canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
-    p.drag_coefficient_at_deploy = canopy.drag_coefficient_at(c.mach);
-    p.opening_load_N = opening_load_N(e.canopy, c.dynamic_pressure_Pa, c.mach, e.canopy_diameter_m,
-                                      e.canopy_drag_coefficient);
-    const double hanging_kg = e.entry.end_state[StateIndex::mass];
-    if (hanging_kg > 0.0)
-        p.opening_load_g = *p.opening_load_N / (hanging_kg * standard_gravity_m_s2);
-    p.inflation_time_s = inflation_time_s(e.canopy, e.canopy_diameter_m, c.air_speed_m_s);
-    p.deploy_latitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::latitude]);
-    p.deploy_longitude_deg = radians_to_degrees(e.entry.end_state[StateIndex::longitude]);
+    fill_canopy_deploy(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient,
+                       {e.entry.end_time_s, e.entry.end_state, e.entry.end_conditions}, p);
     if (e.canopy_exit_state && !terminal_cut_short(e)) {
         const GroundPoint deploy{e.entry.end_state[StateIndex::latitude],
                                  e.entry.end_state[StateIndex::longitude]};
@@ -349,13 +369,15 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
     events.push_back(event_at("entry interface", 0.0, f.start));
     if (e.aeroshell.diameter_m <= 0.0)
         return;
-    if (f.decelerator_deployed) {
-        events.push_back(event_at("decelerator deploy", f.decelerator_time_s, f.decelerator_state));
-    }
+    if (f.decelerator)
+        events.push_back(
+            event_at("decelerator deploy", f.decelerator->time_s, f.decelerator->state));
     events.push_back(event_at("peak heat flux", f.heat_flux.time_s, f.heat_flux.y));
     events.push_back(event_at("peak deceleration", f.deceleration.time_s, f.deceleration.y));
     events.push_back(
         event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
+    if (f.drogue)
+        events.push_back(event_at("drogue deploy", f.drogue->time_s, f.drogue->state));
     events.push_back(event_at(entry_end_event(f.end), f.end_time_s, f.end_state));
     if (jettison_reached(e)) {
         events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
@@ -675,6 +697,8 @@ Design freeze_design(const Design& design) {
     frozen.parachute.mass_kg = e.parachute_kg;
     if (frozen.decelerator)
         frozen.decelerator->mass_kg = e.decelerator_kg;
+    if (frozen.drogue)
+        frozen.drogue->mass_kg = e.drogue_kg;
     if (e.aeroshell.diameter_m > 0.0) {
         frozen.aeroshell.diameter_m = e.aeroshell.diameter_m;
         frozen.aeroshell.size_for_ballistic_coefficient_kg_m2.reset();
@@ -709,15 +733,17 @@ Results size_design(const Design& design, SizingOptions options) {
         DeceleratorResults d;
         d.diameter_m = design.decelerator->diameter_m;
         d.mass_kg = e.decelerator_kg;
-        d.deployed = e.entry.decelerator_deployed;
-        if (d.deployed) {
-            d.deploy_time_s = e.entry.decelerator_time_s;
-            d.deploy_altitude_m = e.entry.decelerator_state[StateIndex::altitude];
-            d.deploy_mach = e.entry.decelerator_conditions.mach;
-            d.deploy_dynamic_pressure_Pa = e.entry.decelerator_conditions.dynamic_pressure_Pa;
+        d.deployed = e.entry.decelerator.has_value();
+        if (const auto& at = e.entry.decelerator) {
+            d.deploy_time_s = at->time_s;
+            d.deploy_altitude_m = at->state[StateIndex::altitude];
+            d.deploy_mach = at->conditions.mach;
+            d.deploy_dynamic_pressure_Pa = at->conditions.dynamic_pressure_Pa;
         }
         results.decelerator = d;
     }
+    if (design.drogue)
+        results.drogue = drogue_results(e, *design.drogue);
     fill_parachute(e, model, results.parachute);
     fill_terminal(e, design, results.terminal);
     fill_timeline(e, design, results.timeline);

@@ -352,7 +352,7 @@ private slots:
     }
 
     void deployWindowOpensAtMach2Point1AndClosesAt250Pa() {
-        // The sample's deploy (Mach 1.8, about 537 Pa) lies inside the default window of Mach
+        // The sample's deploy (Mach 1.8, about 568 Pa) lies inside the default window of Mach
         // 2.1 and 250-850 Pa; falling through it, the Mach limit is met first (q is below
         // 850 Pa by then) and the window shuts when q falls through 250 Pa.
         std::unique_ptr<QChart> chart(machPressureChart(m_design, m_results, nullptr));
@@ -376,6 +376,37 @@ private slots:
                 qOpen < limits.deploy_dynamic_pressure_max_Pa);
         QVERIFY(std::abs(interpolate(m_results, closes, &TrajectorySample::dynamic_pressure_Pa) -
                          limits.deploy_dynamic_pressure_min_Pa) < 1e-6);
+    }
+
+    void deployWindowIsShadedOnlyWhereItApplies() {
+        // Regression: the Mars supersonic window shaded the whole descent of a Venus probe. Off
+        // Mars, only bounds the design sets itself are drawn.
+        const auto read = read_design_file(std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR) /
+                                           "venus-atmospheric-probe.json");
+        QVERIFY(read.ok());
+        Design venus = *read.design;
+        const auto bandOf = [](QChart* chart) -> QAreaSeries* {
+            for (QAbstractSeries* series : chart->series()) {
+                if (auto* area = qobject_cast<QAreaSeries*>(series))
+                    return area;
+            }
+            return nullptr;
+        };
+        const Results flown = size_design(venus);
+        std::unique_ptr<QChart> bare(machPressureChart(venus, flown, nullptr));
+        QVERIFY(!bandOf(bare.get()));
+        venus.limits.deploy_dynamic_pressure_max_Pa = 5000.0;
+        std::unique_ptr<QChart> own(machPressureChart(venus, flown, nullptr));
+        QAreaSeries* band = bandOf(own.get());
+        QVERIFY(band);
+        QCOMPARE(band->name(), QStringLiteral("deploy window (≤ 5000 Pa)"));
+        // Radiative heating is not modelled for Venus: the heat-flux chart says so in its legend.
+        std::unique_ptr<QChart> loads(loadsChart(flown, nullptr));
+        bool said = false;
+        for (QAbstractSeries* series : loads->series())
+            said = said ||
+                   series->name() == QStringLiteral("radiative heating not modelled for this body");
+        QVERIFY(said);
     }
 
     void waterfallOfTheStationDropsHeatShieldBackshellAndBurnedPropellant() {

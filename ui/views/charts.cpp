@@ -29,6 +29,7 @@
 #include <QValueAxis>
 
 #include "sizing/landed_mass.hpp"
+#include "sizing/limit_checks.hpp"
 #include "views/chart_style.hpp"
 
 namespace ds {
@@ -149,7 +150,7 @@ void markEvents(QChart* chart, const std::vector<TimelineEvent>& events, QValueA
 /// The time intervals over which the history lies inside the deploy window, with the
 /// crossings placed by linear interpolation between samples.
 std::vector<std::pair<double, double>> deployWindowIntervals(
-    const std::vector<TrajectorySample>& history, const Limits& limits) {
+    const std::vector<TrajectorySample>& history, const DeployWindow& window) {
     std::vector<std::pair<double, double>> intervals;
     for (std::size_t i = 1; i < history.size(); ++i) {
         const TrajectorySample& a = history[i - 1];
@@ -157,7 +158,11 @@ std::vector<std::pair<double, double>> deployWindowIntervals(
         // Each condition is linear in s in [0, 1] along the segment; intersect their s-ranges.
         double sLow = 0.0;
         double sHigh = 1.0;
-        const auto keep = [&](double from, double to, double bound, bool atMost) {
+        const auto keep = [&](double from, double to, const std::optional<double>& limit,
+                              bool atMost) {
+            if (!limit)
+                return;
+            const double bound = *limit;
             const double slope = to - from;
             if (slope == 0.0) {
                 const bool inside = atMost ? from <= bound : from >= bound;
@@ -171,11 +176,9 @@ std::vector<std::pair<double, double>> deployWindowIntervals(
             else
                 sLow = std::max(sLow, s);
         };
-        keep(a.mach, b.mach, limits.deploy_mach_max, true);
-        keep(a.dynamic_pressure_Pa, b.dynamic_pressure_Pa, limits.deploy_dynamic_pressure_min_Pa,
-             false);
-        keep(a.dynamic_pressure_Pa, b.dynamic_pressure_Pa, limits.deploy_dynamic_pressure_max_Pa,
-             true);
+        keep(a.mach, b.mach, window.mach_max, true);
+        keep(a.dynamic_pressure_Pa, b.dynamic_pressure_Pa, window.dynamic_pressure_min_Pa, false);
+        keep(a.dynamic_pressure_Pa, b.dynamic_pressure_Pa, window.dynamic_pressure_max_Pa, true);
         if (sLow > sHigh)
             continue;
         const double dt = b.time_s - a.time_s;
@@ -187,6 +190,22 @@ std::vector<std::pair<double, double>> deployWindowIntervals(
             intervals.emplace_back(start, end);
     }
     return intervals;
+}
+
+/// "deploy window (Mach ≤ 2.1, 250–850 Pa)", with the bounds that apply.
+QString windowName(const DeployWindow& window) {
+    QStringList parts;
+    if (window.mach_max)
+        parts << QStringLiteral("Mach ≤ %1").arg(*window.mach_max);
+    const auto& low = window.dynamic_pressure_min_Pa;
+    const auto& high = window.dynamic_pressure_max_Pa;
+    if (low && high)
+        parts << QStringLiteral("%1–%2 Pa").arg(*low).arg(*high);
+    else if (low)
+        parts << QStringLiteral("≥ %1 Pa").arg(*low);
+    else if (high)
+        parts << QStringLiteral("≤ %1 Pa").arg(*high);
+    return QStringLiteral("deploy window (%1)").arg(parts.join(QStringLiteral(", ")));
 }
 
 QString kgText(double value) {
@@ -315,9 +334,11 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
     setNiceRange(machAxis, 0.0, mach.high);
     setNiceRange(pressureAxis, 0.0, pressure.high);
 
-    // The deploy window, shaded over the full height: a step outline on the Mach axis.
-    const Limits& limits = design.limits;
-    const auto intervals = deployWindowIntervals(results.history, limits);
+    // The deploy window where one applies (Mars, or the design's own bounds), shaded over the
+    // full height: a step outline on the Mach axis.
+    const DeployWindow window = deploy_window(design);
+    const auto intervals = window.any() ? deployWindowIntervals(results.history, window)
+                                        : std::vector<std::pair<double, double>>{};
     if (!intervals.empty()) {
         auto* band = new QAreaSeries;
         auto* outline = new QLineSeries(band);
@@ -330,10 +351,7 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
             outline->append(end, bottom);
         }
         band->setUpperSeries(outline);
-        band->setName(QStringLiteral("deploy window (Mach ≤ %1, %2–%3 Pa)")
-                          .arg(limits.deploy_mach_max)
-                          .arg(limits.deploy_dynamic_pressure_min_Pa)
-                          .arg(limits.deploy_dynamic_pressure_max_Pa));
+        band->setName(windowName(window));
         band->setBrush(windowFill);
         band->setPen(Qt::NoPen);
         attach(chart, band, timeAxis, machAxis);
@@ -355,22 +373,25 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
                          resultPen(secondaryInk), pressurePoint),
            timeAxis, pressureAxis);
 
+    // A marker at each device's deploy, on the Mach curve.
+    const auto markDeploy = [&](const QString& name, bool deployed,
+                                const std::optional<double>& time_s,
+                                const std::optional<double>& deploy_mach) {
+        if (!deployed || !time_s || !deploy_mach)
+            return;
+        QScatterSeries* marker = eventMarker(name, QPointF(*time_s, *deploy_mach));
+        attach(chart, marker, timeAxis, machAxis);
+        hideFromLegend(chart, marker);
+    };
     const ParachuteResults& parachute = results.parachute;
-    if (parachute.deployed && parachute.deploy_time_s && parachute.deploy_mach) {
-        QScatterSeries* marker =
-            eventMarker(QStringLiteral("parachute deploy"),
-                        QPointF(*parachute.deploy_time_s, *parachute.deploy_mach));
-        attach(chart, marker, timeAxis, machAxis);
-        hideFromLegend(chart, marker);
+    markDeploy(QStringLiteral("parachute deploy"), parachute.deployed, parachute.deploy_time_s,
+               parachute.deploy_mach);
+    if (const auto& d = results.decelerator) {
+        markDeploy(QStringLiteral("decelerator inflation"), d->deployed, d->deploy_time_s,
+                   d->deploy_mach);
     }
-    if (results.decelerator && results.decelerator->deployed &&
-        results.decelerator->deploy_time_s && results.decelerator->deploy_mach) {
-        QScatterSeries* marker = eventMarker(
-            QStringLiteral("decelerator inflation"),
-            QPointF(*results.decelerator->deploy_time_s, *results.decelerator->deploy_mach));
-        attach(chart, marker, timeAxis, machAxis);
-        hideFromLegend(chart, marker);
-    }
+    if (const auto& d = results.drogue)
+        markDeploy(QStringLiteral("drogue deploy"), d->deployed, d->deploy_time_s, d->deploy_mach);
     return std::unique_ptr<QChart>(chart);
 }
 

@@ -34,7 +34,7 @@ const std::vector<FormSection> formSections{
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Body and landing site"), {"body", "site", "atmosphere"}},
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Entry state"), {"entry"}},
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Aeroshell"), {"aeroshell"}},
-    {QT_TRANSLATE_NOOP("ds::DesignForm", "Drag devices"), {"parachute", "decelerator"}},
+    {QT_TRANSLATE_NOOP("ds::DesignForm", "Drag devices"), {"decelerator", "drogue", "parachute"}},
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Terminal descent"), {"terminal"}},
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Sequence after deploy"), {"sequence"}},
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Mass budget"), {"mass"}},

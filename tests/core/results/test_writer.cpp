@@ -216,8 +216,8 @@ TEST_CASE("the results sections come in the order of the flight") {
     for (const auto& item : document.items())
         keys.push_back(item.key());
     const std::vector<std::string> expected{
-        "format",   "version", "converged", "entry",      "decelerator", "parachute", "terminal",
-        "timeline", "landing", "mass",      "capability", "checks",      "notes"};
+        "format",   "version",  "converged", "entry",      "decelerator", "drogue", "parachute",
+        "terminal", "timeline", "landing",   "mass",       "capability",  "checks", "notes"};
     CHECK(keys == expected);
 }
 
