@@ -14,7 +14,8 @@ constexpr Names<TerminalMethod, 4> terminal_methods{{{TerminalMethod::retro, "re
                                                      {TerminalMethod::tethered, "tethered"},
                                                      {TerminalMethod::none, "none"}}};
 
-constexpr Names<MassGroup, 4> mass_groups{{{MassGroup::heat_shield, "heat shield"},
+constexpr Names<MassGroup, 5> mass_groups{{{MassGroup::deorbit_stage, "deorbit stage"},
+                                           {MassGroup::heat_shield, "heat shield"},
                                            {MassGroup::backshell, "backshell"},
                                            {MassGroup::descent_stage, "descent stage"},
                                            {MassGroup::payload, "payload"}}};
