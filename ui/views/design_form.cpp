@@ -495,6 +495,7 @@ void DesignForm::addGroup(QFormLayout* form, const KeyRow& first) {
             if (!values.empty())
                 m_document->setValues(values, tr("Change the %1").arg(fromView(group->name)));
         });
+    m_shapes.back().part = &first;
     for (const KeyRow* key : members)
         addNumber(form, *key);
 }
@@ -568,14 +569,25 @@ void DesignForm::buildItems(QFormLayout* form) {
     });
 }
 
-bool DesignForm::applies(const KeyRow& key) const {
-    const auto present = [&](const KeyRow& k) {
-        return !m_document->value(pointerOf(k)).is_null();
-    };
+bool DesignForm::partPresent(const KeyRow& key) const {
     if (const SectionRow* section = find_section(key.section); section && section->present) {
         if (!m_document->value(pointerOf(*section)).is_object())
             return false;
     }
+    if (!key.parent.empty()) {
+        return m_document
+            ->value(key_to_pointer(std::string(key.section) + "." + std::string(key.parent)))
+            .is_object();
+    }
+    return true;
+}
+
+bool DesignForm::applies(const KeyRow& key) const {
+    const auto present = [&](const KeyRow& k) {
+        return !m_document->value(pointerOf(k)).is_null();
+    };
+    if (!partPresent(key))
+        return false;
     if (key.model) {
         const Json model = m_document->value("/atmosphere/model");
         if (!model.is_string() || !belongsTo(key, model.get<std::string>()))
@@ -600,11 +612,6 @@ bool DesignForm::applies(const KeyRow& key) const {
     for (const KeyRow* object : replacements_of(key)) {
         if (m_document->value(pointerOf(*object)).is_object())
             return false;
-    }
-    if (!key.parent.empty()) {
-        return m_document
-            ->value(key_to_pointer(std::string(key.section) + "." + std::string(key.parent)))
-            .is_object();
     }
     return true;
 }
@@ -635,6 +642,10 @@ void DesignForm::refresh() {
     // Show the rows the document's shape has.
     for (NumberBinding& b : m_numbers)
         setRowVisible(b.pointer, applies(*b.key));
+    for (ShapeBinding& s : m_shapes) {
+        if (s.part)
+            setFieldVisible(s.combo, partPresent(*s.part));
+    }
     refreshItems();
 
     // Errors of the reader at their fields; the rest above the forms.
@@ -718,14 +729,16 @@ void DesignForm::writeItems() {
 
 void DesignForm::setRowVisible(const std::string& pointer, bool visible) {
     for (NumberBinding& b : m_numbers) {
-        if (b.pointer != pointer)
-            continue;
-        b.row->setVisible(visible);
-        auto* form = qobject_cast<QFormLayout*>(b.row->parentWidget()->layout());
-        if (form) {
-            if (QWidget* label = form->labelForField(b.row))
-                label->setVisible(visible);
-        }
+        if (b.pointer == pointer)
+            setFieldVisible(b.row, visible);
+    }
+}
+
+void DesignForm::setFieldVisible(QWidget* field, bool visible) {
+    field->setVisible(visible);
+    if (auto* form = qobject_cast<QFormLayout*>(field->parentWidget()->layout())) {
+        if (QWidget* label = form->labelForField(field))
+            label->setVisible(visible);
     }
 }
 

@@ -62,6 +62,9 @@ private:
         QComboBox* combo;
         std::function<int()> current;
         std::function<void(int)> select;
+        /// A key of the part the choice is made in (a trigger of the decelerator, an aim of the
+        /// approach): the choice shows only while the part is there; null: always.
+        const KeyRow* part = nullptr;
     };
 
     QFormLayout* addSection(const QString& title);
@@ -91,11 +94,16 @@ private:
     void buildItems(QFormLayout* form);
     /// Whether a key applies to the document as it is (its model, method, group and shape).
     bool applies(const KeyRow& key) const;
+    /// Whether the part a key sits in is there: its section (the decelerator), and the object
+    /// or the sizing request it is a key of.
+    bool partPresent(const KeyRow& key) const;
 
     void refresh();
     void refreshItems();
     void writeItems();
     void setRowVisible(const std::string& pointer, bool visible);
+    /// Shows or hides a field of the form with its label.
+    void setFieldVisible(QWidget* field, bool visible);
 
     DesignDocument* m_document;
     QVBoxLayout* m_sections;
