@@ -2,7 +2,7 @@
 //   descent-sizer [FILE] [--screenshot OUT.png]   the window (the demo design without FILE)
 //   descent-sizer size DESIGN [--json [--history]] the sizing, printed
 //   descent-sizer sheet DESIGN -o OUT.pdf|.html|.csv the sizing sheet (builds with the window)
-//   descent-sizer sweep|disperse|merge|sensitivity     trade studies
+//   descent-sizer sweep|disperse|merge|sensitivity|corridor  trade studies
 
 #include <cstdlib>
 #include <cstring>
@@ -15,8 +15,8 @@ namespace {
 
 bool isCommand(std::string_view word) {
     return word == "size" || word == "sheet" || word == "sweep" || word == "disperse" ||
-           word == "merge" || word == "sensitivity" || word == "--help" || word == "-h" ||
-           word == "--version";
+           word == "merge" || word == "sensitivity" || word == "corridor" || word == "--help" ||
+           word == "-h" || word == "--version";
 }
 
 }  // namespace

@@ -17,6 +17,7 @@
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
 #include "trade/trade_csv.hpp"
+#include "trade/value_list.hpp"
 
 namespace ds {
 namespace {
@@ -280,6 +281,117 @@ void printSensitivities(const StudyOutcome& outcome, Format format) {
     }
 }
 
+Json boundJson(const std::optional<CorridorBound>& bound) {
+    if (!bound)
+        return nullptr;
+    return Json{{"angle_deg", bound->angle_deg},
+                {"relative_angle_deg", bound->relative_angle_deg},
+                {"inertial_angle_deg", bound->inertial_angle_deg},
+                {"closed", bound->closed},
+                {"feasibility_margin", bound->margin},
+                {"failing_angle_deg", bound->closed ? Json(bound->failing_deg) : Json()},
+                {"binding_check", bound->binding_check},
+                {"binding_message", bound->binding_message}};
+}
+
+Json dispersedJson(const std::optional<DispersedAngle>& d) {
+    if (!d)
+        return nullptr;
+    return Json{{"angle_deg", d->angle_deg},
+                {"runs", d->runs},
+                {"successes", d->successes},
+                {"success_probability", d->success_probability},
+                {"success_interval_95", {d->wilson_low, d->wilson_high}}};
+}
+
+Json corridorJson(const EntryCorridor& c) {
+    Json rows = Json::array();
+    for (const CorridorSpeed& row : c.speeds) {
+        const bool found = row.shallow && row.steep;
+        rows.push_back(Json{{"speed", row.speed},
+                            {"relative_speed_m_s", row.relative_speed_m_s},
+                            {"inertial_speed_m_s", row.inertial_speed_m_s},
+                            {"shallow", boundJson(row.shallow)},
+                            {"steep", boundJson(row.steep)},
+                            {"width_deg", found ? Json(row.width_deg()) : Json()},
+                            {"centre_deg", found ? Json(row.centre_deg()) : Json()},
+                            {"dispersed",
+                             {{"shallow", dispersedJson(row.dispersed_shallow)},
+                              {"centre", dispersedJson(row.dispersed_centre)},
+                              {"steep", dispersedJson(row.dispersed_steep)}}},
+                            {"sizings", row.sizings},
+                            {"error", row.error}});
+    }
+    return Json{{"angle_key", c.angle_key},
+                {"speed_key", c.speed_key.empty() ? Json() : Json(c.speed_key)},
+                {"frame", c.frame},
+                {"angle_tolerance_deg", corridor_angle_tolerance_deg},
+                {"nominal_speed", c.nominal_speed},
+                {"nominal_angle_deg", c.nominal_angle_deg},
+                {"speeds", rows}};
+}
+
+std::string dispersedText(const std::optional<DispersedAngle>& d) {
+    return d ? fmt::format("{:.1f} % ({:.1f} to {:.1f})", 100.0 * d->success_probability,
+                           100.0 * d->wilson_low, 100.0 * d->wilson_high)
+             : std::string("-");
+}
+
+void printCorridorTable(const EntryCorridor& c) {
+    const std::string speedName = c.speed_key.empty() ? "speed (inertial)" : c.speed_key;
+    fmt::print(
+        "Entry corridor in {} ({}), each bound root-found to {} deg on the feasibility margin; "
+        "the design at {:g} and {:.2f} deg\n\n",
+        c.angle_key, c.frame, corridor_angle_tolerance_deg, c.nominal_speed, c.nominal_angle_deg);
+    fmt::print("{:>26} {:>11} {:<30} {:>11} {:<30} {:>9}\n", speedName, "shallow deg", "binds",
+               "steep deg", "binds", "width deg");
+    const auto side = [](const std::optional<CorridorBound>& b) {
+        return b->closed ? b->binding_check : std::string("(open: passes to the range's end)");
+    };
+    for (const CorridorSpeed& row : c.speeds) {
+        if (!row.shallow || !row.steep) {
+            fmt::print("{:>26.6g} no corridor: {}\n", row.speed, row.error);
+            continue;
+        }
+        fmt::print("{:>26.6g} {:>11.3f} {:<30} {:>11.3f} {:<30} {:>9.3f}\n", row.speed,
+                   row.shallow->angle_deg, side(row.shallow), row.steep->angle_deg, side(row.steep),
+                   row.width_deg());
+    }
+    for (const CorridorSpeed& row : c.speeds) {
+        if (!row.shallow || !row.steep)
+            continue;
+        fmt::print("\nat {:g} (interface {:.1f} m/s planet-relative, {:.1f} m/s inertial):\n",
+                   row.speed, row.relative_speed_m_s, row.inertial_speed_m_s);
+        for (const auto& [name, bound] :
+             {std::pair{"shallow", row.shallow}, std::pair{"steep", row.steep}}) {
+            fmt::print("  {:<8} {:.3f} deg ({:.3f} planet-relative, {:.3f} inertial){}{}\n", name,
+                       bound->angle_deg, bound->relative_angle_deg, bound->inertial_angle_deg,
+                       bound->closed ? "; past it: " : "", bound->binding_message);
+        }
+        if (row.dispersed_centre) {
+            fmt::print(
+                "  success with the dispersions ({} cases each; 95 % Wilson interval): shallow "
+                "bound {}, centre {}, steep bound {}\n",
+                row.dispersed_centre->runs, dispersedText(row.dispersed_shallow),
+                dispersedText(row.dispersed_centre), dispersedText(row.dispersed_steep));
+        }
+    }
+}
+
+void printCorridor(const StudyOutcome& outcome, Format format) {
+    switch (format) {
+        case Format::json:
+            fmt::print("{}\n", corridorJson(*outcome.corridor).dump(2));
+            break;
+        case Format::csv:
+            fmt::print("{}", outcome.csv());
+            break;
+        case Format::text:
+            printCorridorTable(*outcome.corridor);
+            break;
+    }
+}
+
 struct Options {
     std::string design;
     std::vector<std::string> vary;
@@ -292,6 +404,7 @@ struct Options {
     std::vector<std::string> parts;
     std::vector<std::string> inputs;
     double ellipse_probability = default_ellipse_probability;
+    std::string speeds;
 };
 
 int sweepCommand(const Options& o) {
@@ -382,6 +495,28 @@ int sensitivityCommand(const Options& o) {
     return 0;
 }
 
+int corridorCommand(const Options& o) {
+    StudyRequest request;
+    request.kind = StudyKind::corridor;
+    std::string error;
+    const auto speeds = parse_value_list(o.speeds, &error);
+    if (!speeds) {
+        fmt::print(stderr, "--speeds: {}\n", error);
+        return exit_usage;
+    }
+    request.speeds = *speeds;
+    request.runs = o.runs;
+    request.seed = o.seed;
+    const auto file = readStudyDesign(o.design);
+    if (!file)
+        return exit_unreadable;
+    const auto outcome = runStudyOn(*file, request, o.threads);
+    if (!outcome)
+        return exit_unreadable;
+    printCorridor(*outcome, formatOf(o.json, o.csv));
+    return 0;
+}
+
 }  // namespace
 
 std::function<int()> addTradeCommands(CLI::App& app) {
@@ -437,6 +572,27 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     sensitivity->add_flag("--csv", o->csv, "The matrix as CSV, a row per figure");
     sensitivity->add_option("--threads", o->threads, "Threads (default: one per core)");
 
+    CLI::App* corridor = app.add_subcommand(
+        "corridor",
+        "The entry corridor: the shallowest and steepest flight-path angles at which every check "
+        "passes, and what binds each side");
+    corridor->add_option("design", o->design, "Design document")
+        ->required()
+        ->check(CLI::ExistingFile);
+    corridor->add_option(
+        "--speeds", o->speeds,
+        "Entry speeds (arrival excess speeds for an approach): values separated by "
+        "commas, or FROM:TO:N (default: the design's own)");
+    corridor
+        ->add_option("--runs", o->runs,
+                     "Dispersed cases at each bound and at the centre, with the design's "
+                     "dispersions (0: none)")
+        ->default_val(500);
+    corridor->add_option("--seed", o->seed, "Seed of the dispersed cases")->default_val(1);
+    corridor->add_option("--threads", o->threads, "Threads (default: one per core)");
+    corridor->add_flag("--json", o->json, "The corridor as JSON");
+    corridor->add_flag("--csv", o->csv, "A row per speed as CSV");
+
     return [=]() -> int {
         if (*sweep)
             return sweepCommand(*o);
@@ -446,6 +602,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
             return mergeCommand(*o);
         if (*sensitivity)
             return sensitivityCommand(*o);
+        if (*corridor)
+            return corridorCommand(*o);
         return -1;
     };
 }

@@ -55,6 +55,19 @@ void run_sensitivity_study(const StudyInput& in, StudyOutcome& out) {
                                       in.request.inputs, in.threads, &in.progress);
 }
 
+void run_corridor_study(const StudyInput& in, StudyOutcome& out) {
+    CorridorSettings settings;
+    settings.speeds = in.request.speeds;
+    settings.runs = in.request.runs;
+    settings.seed = in.request.seed;
+    settings.threads = in.threads;
+    settings.progress = &in.progress;
+    auto [corridor, error] = find_corridor(DesignVariants(in.document, in.base_directory),
+                                           in.design, in.base_directory, settings);
+    out.corridor = std::move(corridor);
+    out.error = error;
+}
+
 std::string describe_sweep(const StudyRequest& request) {
     std::string axes;
     for (const SweepAxis& a : request.axes) {
@@ -71,6 +84,18 @@ std::string describe_dispersions(const StudyRequest& request) {
 
 std::string describe_sensitivities(const StudyRequest&) {
     return "Normalised sensitivities of the key figures";
+}
+
+std::string describe_corridor(const StudyRequest& request) {
+    if (request.speeds.empty())
+        return "Entry corridor at the design's speed";
+    const auto [low, high] = std::minmax_element(request.speeds.begin(), request.speeds.end());
+    return fmt::format("Entry corridor over {} speeds from {:g} to {:g}", request.speeds.size(),
+                       *low, *high);
+}
+
+std::string corridor_rows(const StudyOutcome& outcome) {
+    return outcome.corridor ? corridor_csv(*outcome.corridor) : std::string();
 }
 
 std::string sweep_rows(const StudyOutcome& outcome) {
@@ -97,6 +122,7 @@ constexpr StudyKindDefinition study_kinds[] = {
     {StudyKind::sweep, run_sweep_study, describe_sweep, sweep_rows},
     {StudyKind::dispersions, run_dispersion_study, describe_dispersions, campaign_rows},
     {StudyKind::sensitivities, run_sensitivity_study, describe_sensitivities, sensitivity_rows},
+    {StudyKind::corridor, run_corridor_study, describe_corridor, corridor_rows},
 };
 
 const StudyKindDefinition& definition(StudyKind kind) {

@@ -11,6 +11,7 @@
 
 #include "design/design.hpp"
 #include "progress.hpp"
+#include "trade/corridor.hpp"
 #include "trade/dispersion.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
@@ -20,20 +21,24 @@ namespace ds {
 /// The trade studies. A new kind (a corridor, an optimiser) is one more entry here, its
 /// settings in StudyRequest, its results in StudyOutcome and one row of the kinds' table in
 /// study.cpp (how it runs, how it is described, its CSV).
-enum class StudyKind { sweep, dispersions, sensitivities };
+enum class StudyKind { sweep, dispersions, sensitivities, corridor };
 
 /// A trade study as the window or the command line asks for it: a sweep of one or two keys,
-/// the design's dispersions, or the sensitivities of the key figures to numeric inputs.
+/// the design's dispersions, the sensitivities of the key figures to numeric inputs, or the
+/// entry corridor.
 struct StudyRequest {
     StudyKind kind = StudyKind::sweep;
     std::vector<SweepAxis> axes;  ///< sweep: one (a line) or two (a grid)
-    std::size_t runs = 1000;      ///< dispersions
-    std::uint64_t seed = 1;       ///< dispersions
+    std::size_t runs = 1000;      ///< dispersions; corridor: at each bound and the centre
+    std::uint64_t seed = 1;       ///< dispersions, corridor
     std::size_t shard_index = 0;  ///< dispersions: the slice of the cases this run flies
     std::size_t shard_count = 1;
     std::vector<std::string> inputs;  ///< sensitivities: the keys varied, empty for every number
     /// Dispersions: the probability the landing ellipse holds.
     double ellipse_probability = default_ellipse_probability;
+    /// Corridor: values of the speed key (entry speed, or arrival excess speed); empty for the
+    /// design's own.
+    std::vector<double> speeds;
 };
 
 /// A finished study: what was asked, of which design, and what it gave.
@@ -46,6 +51,7 @@ struct StudyOutcome {
     std::optional<DispersionCampaign> campaign;
     DispersionSummary summary;
     std::optional<SensitivityTable> sensitivities;
+    std::optional<EntryCorridor> corridor;
     std::string error;  ///< why the study could not run; empty when it ran
     double seconds = 0.0;
 

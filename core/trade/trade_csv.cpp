@@ -157,4 +157,43 @@ std::string sensitivity_csv(const SensitivityTable& table) {
     return out;
 }
 
+std::string corridor_csv(const EntryCorridor& corridor) {
+    Row head;
+    head << (corridor.speed_key.empty() ? std::string("inertial_speed_m_s") : corridor.speed_key)
+         << std::string("relative_speed_m_s") << std::string("inertial_speed_m_s");
+    for (const char* side : {"shallow", "steep"}) {
+        for (const char* column : {"_deg", "_relative_deg", "_inertial_deg", "_closed", "_check"})
+            head << fmt::format("{}{}", side, column);
+    }
+    head << std::string("width_deg") << std::string("centre_deg");
+    for (const char* at : {"shallow", "centre", "steep"})
+        head << fmt::format("success_{}", at);
+    head << std::string("sizings") << std::string("error");
+    std::string out = head.line();
+    const auto success = [](const std::optional<DispersedAngle>& d) {
+        return d ? std::optional<double>(d->success_probability) : std::nullopt;
+    };
+    for (const CorridorSpeed& c : corridor.speeds) {
+        Row row;
+        row << c.speed << c.relative_speed_m_s << c.inertial_speed_m_s;
+        for (const std::optional<CorridorBound>& bound : {c.shallow, c.steep}) {
+            if (bound) {
+                row << bound->angle_deg << bound->relative_angle_deg << bound->inertial_angle_deg
+                    << std::string(bound->closed ? "yes" : "no") << bound->binding_check;
+            } else {
+                for (int i = 0; i < 3; ++i)
+                    row << std::optional<double>{};
+                row << std::string() << std::string();
+            }
+        }
+        const bool found = c.shallow && c.steep;
+        row << (found ? std::optional(c.width_deg()) : std::nullopt)
+            << (found ? std::optional(c.centre_deg()) : std::nullopt)
+            << success(c.dispersed_shallow) << success(c.dispersed_centre)
+            << success(c.dispersed_steep) << static_cast<double>(c.sizings) << c.error;
+        out += row.line();
+    }
+    return out;
+}
+
 }  // namespace ds

@@ -3,6 +3,7 @@
 #include <string>
 #include <vector>
 
+#include "trade/corridor.hpp"
 #include "trade/dispersion.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
@@ -26,5 +27,11 @@ std::string summary_csv(const DispersionSummary& summary);
 
 /// One row per key figure, one column per input: d ln F / d ln x.
 std::string sensitivity_csv(const SensitivityTable& table);
+
+/// One row per speed of an entry corridor: the speed key's value and the interface speed in
+/// both frames, each bound (in the design's key and in both frames, the check that binds it and
+/// whether it closed), the width, and with dispersions the success probability at the shallow
+/// bound, the centre and the steep bound.
+std::string corridor_csv(const EntryCorridor& corridor);
 
 }  // namespace ds

@@ -1,7 +1,8 @@
-// The trade commands as a user runs them: sweep, disperse, merge and sensitivity through the
-// binary, their numbers checked against the size command and against each other, and their
+// The trade commands as a user runs them: sweep, disperse, merge, sensitivity and corridor through
+// the binary, their numbers checked against the size command and against each other, and their
 // error exits.
 
+#include <algorithm>
 #include <cmath>
 #include <filesystem>
 #include <fstream>
@@ -314,4 +315,84 @@ TEST_CASE("merge: parts that are not shards of one campaign exit 2 and say why")
     const Run design = run("merge " + sample("earth-return-capsule"));
     CHECK(design.exit_code == 2);
     CHECK(design.err.find("not a dispersion campaign") != std::string::npos);
+}
+
+TEST_CASE("corridor: each bound passes through the size command and fails just past it") {
+    const Json corridor = Json::parse(
+        output("corridor " + sample("small-ballistic-station") + " --runs 0 --json --threads 2"));
+    CHECK(corridor["angle_key"] == "entry.flight_path_angle_deg");
+    CHECK(corridor["speed_key"] == "entry.velocity_m_s");
+    CHECK(corridor["frame"] == "planet-relative");
+    CHECK(corridor["angle_tolerance_deg"].get<double>() == 0.01);
+    REQUIRE(corridor["speeds"].size() == 1);
+    const Json& row = corridor["speeds"][0];
+    CHECK(row["speed"].get<double>() == 5600.0);
+    CHECK(row["dispersed"]["centre"].is_null());
+    const auto failing_at = [&](double angle) {
+        const std::string file = variant("small-ballistic-station", "corridor-angle", [&](Json& d) {
+            d["entry"]["flight_path_angle_deg"] = angle;
+        });
+        const Json results = Json::parse(output("size " + file + " --json"));
+        std::vector<std::string> ids;
+        for (const Json& c : results["checks"]) {
+            if (c["status"] == "fail")
+                ids.push_back(c["id"].get<std::string>());
+        }
+        return ids;
+    };
+    for (const char* side : {"shallow", "steep"}) {
+        CAPTURE(side);
+        const Json& bound = row[side];
+        CHECK(bound["closed"] == true);
+        CHECK(failing_at(bound["angle_deg"].get<double>()).empty());
+        const auto past = failing_at(bound["failing_angle_deg"].get<double>());
+        CHECK(std::find(past.begin(), past.end(), bound["binding_check"].get<std::string>()) !=
+              past.end());
+        CHECK(std::abs(bound["failing_angle_deg"].get<double>() -
+                       bound["angle_deg"].get<double>()) <= 0.01);
+    }
+    CHECK(row["shallow"]["binding_check"] == "parachute_trigger");
+    CHECK(row["steep"]["binding_check"] == "peak_deceleration");
+    checkSame(
+        row["width_deg"],
+        Json(row["shallow"]["angle_deg"].get<double>() - row["steep"]["angle_deg"].get<double>()),
+        "width");
+}
+
+TEST_CASE("corridor: a list of speeds as CSV, the text table, and the dispersed success") {
+    const std::string csv = output("corridor " + sample("small-ballistic-station") +
+                                   " --speeds 5200,5800 --runs 0 --csv");
+    CHECK(csv.rfind("entry.velocity_m_s,relative_speed_m_s,inertial_speed_m_s,shallow_deg,", 0) ==
+          0);
+    CHECK(std::count(csv.begin(), csv.end(), '\n') == 3);
+    CHECK(csv.find("\n5200,") != std::string::npos);
+    CHECK(csv.find("\n5800,") != std::string::npos);
+
+    const std::string text =
+        output("corridor " + sample("small-ballistic-station") + " --runs 60 --seed 3");
+    CHECK(text.find("Entry corridor in entry.flight_path_angle_deg (planet-relative)") !=
+          std::string::npos);
+    CHECK(text.find("peak_deceleration") != std::string::npos);
+    CHECK(text.find("success with the dispersions (60 cases each") != std::string::npos);
+}
+
+TEST_CASE("corridor: bad speeds, and a list of speeds for an entry from orbit, are refused") {
+    const Run bad = run("corridor " + sample("small-ballistic-station") + " --speeds 5000:x");
+    CHECK(bad.exit_code == 1);
+    CHECK(bad.err.find("--speeds") != std::string::npos);
+    const std::string orbiting = variant("small-ballistic-station", "corridor-orbit", [](Json& d) {
+        d["entry"].erase("velocity_m_s");
+        d["entry"].erase("flight_path_angle_deg");
+        d["entry"]["orbit"] = {{"periapsis_altitude_m", 250000},
+                               {"apoapsis_altitude_m", 400000},
+                               {"flight_path_angle_deg", -13.0},
+                               {"isp_s", 225}};
+    });
+    const Run listed = run("corridor " + orbiting + " --speeds 3000 --runs 0");
+    CHECK(listed.exit_code == 2);
+    CHECK(listed.err.find("takes its speed from its orbit") != std::string::npos);
+    const Json own = Json::parse(output("corridor " + orbiting + " --runs 0 --json"));
+    CHECK(own["angle_key"] == "entry.orbit.flight_path_angle_deg");
+    CHECK(own["speed_key"].is_null());
+    CHECK(own["frame"] == "inertial");
 }

@@ -30,6 +30,7 @@
 #include "results/key_figures.hpp"
 #include "sheet/sheet_sections.hpp"
 #include "trade/contour.hpp"
+#include "trade/corridor.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/dispersion.hpp"
 #include "views/dispersion_table.hpp"
@@ -356,6 +357,58 @@ private slots:
             }
         }
         keepScreenshot(window, "trade-sensitivities.png");
+    }
+
+    void theCorridorIsTheCoresDrawnAsABandWithTheDesignMarked() {
+        MainWindow window;
+        QVERIFY(window.openFile(sample, true));
+        TradeView* trades = window.trades();
+        trades->setCorridor(QStringLiteral("5000:6200:3"), 0);
+        QVERIFY(trades->run());
+        QVERIFY(waitForStudy(trades));
+        const StudyOutcome* outcome = trades->currentOutcome();
+        QVERIFY(outcome && outcome->corridor);
+        QCOMPARE(outcome->corridor->speeds.size(), std::size_t(3));
+        // The window's corridor is the core's, to the last digit.
+        std::ifstream in(sample.toStdString());
+        const Design design = *read_design_file(sample.toStdString()).design;
+        CorridorSettings settings;
+        settings.speeds = {5000.0, 5600.0, 6200.0};
+        const auto direct = find_corridor(DesignVariants(nlohmann::ordered_json::parse(in), {}),
+                                          design, DESCENT_SIZER_SAMPLES_DIR, settings)
+                                .first;
+        QVERIFY(direct);
+        for (std::size_t i = 0; i < 3; ++i) {
+            QCOMPARE(outcome->corridor->speeds[i].shallow->angle_deg,
+                     direct->speeds[i].shallow->angle_deg);
+            QCOMPARE(outcome->corridor->speeds[i].steep->binding_check,
+                     direct->speeds[i].steep->binding_check);
+        }
+        auto* view = trades->findChild<QChartView*>("corridorBand");
+        QVERIFY(view);
+        const QChart* chart = view->chart();
+        QCOMPARE(pointsIn(chart, QStringLiteral("every check passes")), -1);  // an area
+        QCOMPARE(pointsIn(chart, QStringLiteral("steep bound (deploy_dynamic_pressure_high, "
+                                                "peak_deceleration)")),
+                 3);
+        QCOMPARE(pointsIn(chart, QStringLiteral("shallow bound (parachute_trigger)")), 3);
+        QCOMPARE(pointsIn(chart, QStringLiteral("this design (5600, -13.00 deg)")), 1);
+        keepScreenshot(window, "trade-corridor.png");
+
+        // Into the sheet, with its table.
+        QTemporaryDir dir;
+        QString error;
+        const QString sheet = dir.filePath("sheet.html");
+        QVERIFY(QTest::qWaitFor([&] { return window.exportSheet(sheet, &error); }, 10000));
+        QFile html(sheet);
+        QVERIFY(html.open(QIODevice::ReadOnly));
+        const QString text = QString::fromUtf8(html.readAll());
+        QVERIFY(text.contains("Entry corridor over 3 speeds from 5000 to 6200"));
+        QVERIFY(text.contains("peak_deceleration"));
+
+        // Speeds the parser refuses are said, and nothing runs.
+        trades->setCorridor(QStringLiteral("5000:six"), 0);
+        QVERIFY(!trades->run());
     }
 
     void exportsCsvAndFillsTheSheetUntilTheDesignChanges() {

@@ -44,6 +44,9 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
             case StudyKind::sensitivities:
                 add(sensitivityChart(*trade, context.tradeFigure));
                 break;
+            case StudyKind::corridor:
+                add(corridorChart(*trade));
+                break;
         }
     }
     return drawn;

@@ -1,5 +1,6 @@
 #include "sheet/sheet_trade_section.hpp"
 
+#include <algorithm>
 #include <string>
 
 #include "model/trade_runner.hpp"
@@ -116,6 +117,67 @@ QString sensitivityTable(const StudyOutcome& trade) {
     return html.html();
 }
 
+QString successCell(const std::optional<DispersedAngle>& d) {
+    return d ? QStringLiteral("%1 (%2–%3)")
+                   .arg(100.0 * d->success_probability, 0, 'f', 1)
+                   .arg(100.0 * d->wilson_low, 0, 'f', 1)
+                   .arg(100.0 * d->wilson_high, 0, 'f', 1)
+             : QStringLiteral("—");
+}
+
+/// A row per speed: each bound and what binds it, the width, and the dispersed success.
+QString corridorTable(const StudyOutcome& trade) {
+    const EntryCorridor& c = *trade.corridor;
+    QString body = paragraph(
+        QStringLiteral("Flight-path angles in %1 (%2); each bound root-found to %3 deg on the "
+                       "feasibility margin; the design at %4 and %5 deg.")
+            .arg(QString::fromStdString(c.angle_key), QString::fromStdString(c.frame))
+            .arg(corridor_angle_tolerance_deg)
+            .arg(formatValue(c.nominal_speed))
+            .arg(c.nominal_angle_deg, 0, 'f', 2));
+    const bool dispersed = std::any_of(c.speeds.begin(), c.speeds.end(),
+                                       [](const CorridorSpeed& r) { return r.dispersed_centre; });
+    QStringList headings{c.speed_key.empty() ? QStringLiteral("speed (inertial, m/s)")
+                                             : QString::fromStdString(c.speed_key),
+                         QStringLiteral("shallow (deg)"),
+                         QStringLiteral("binds"),
+                         QStringLiteral("steep (deg)"),
+                         QStringLiteral("binds"),
+                         QStringLiteral("width (deg)")};
+    if (dispersed)
+        headings << QStringLiteral("success at shallow, centre, steep (%, 95 % interval)");
+    HtmlTable table(headings);
+    const auto binds = [](const std::optional<CorridorBound>& b) {
+        return b->closed ? QString::fromStdString(b->binding_check)
+                         : QStringLiteral("open to the range's end");
+    };
+    for (const CorridorSpeed& row : c.speeds) {
+        std::vector<std::pair<QString, QString>> cells{{formatValue(row.speed), numberCell}};
+        if (!row.shallow || !row.steep) {
+            cells.push_back(
+                {QStringLiteral("no corridor: %1").arg(QString::fromStdString(row.error)),
+                 QStringLiteral("fail")});
+            for (int i = 0; i < 4; ++i)
+                cells.push_back({QStringLiteral("—"), numberCell});
+        } else {
+            cells.push_back({QString::number(row.shallow->angle_deg, 'f', 3), numberCell});
+            cells.push_back({binds(row.shallow), {}});
+            cells.push_back({QString::number(row.steep->angle_deg, 'f', 3), numberCell});
+            cells.push_back({binds(row.steep), {}});
+            cells.push_back({QString::number(row.width_deg(), 'f', 3), numberCell});
+        }
+        if (dispersed) {
+            cells.push_back(
+                {QStringLiteral("%1; %2; %3")
+                     .arg(successCell(row.dispersed_shallow), successCell(row.dispersed_centre),
+                          successCell(row.dispersed_steep)),
+                 {}});
+        }
+        table.addRow(cells);
+    }
+    return body + table.html();
+}
+
 }  // namespace
 
 QString tradeSection(const SheetContext& context, const std::vector<SheetChart>& charts,
@@ -139,6 +201,9 @@ QString tradeSection(const SheetContext& context, const std::vector<SheetChart>&
             break;
         case StudyKind::sensitivities:
             body += sensitivityTable(trade);
+            break;
+        case StudyKind::corridor:
+            body += corridorTable(trade);
             break;
     }
     return section(QStringLiteral("Trade study"), body);

@@ -418,6 +418,97 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
     return chart;
 }
 
+QChart* corridorChart(const StudyOutcome& outcome) {
+    const QString title = QStringLiteral("Entry corridor");
+    if (!outcome.corridor)
+        return emptyChart(title, QStringLiteral("not computed"));
+    const EntryCorridor& c = *outcome.corridor;
+    QList<QPointF> shallow, steep;
+    Span speeds, angles;
+    for (const CorridorSpeed& row : c.speeds) {
+        if (!row.shallow || !row.steep)
+            continue;
+        shallow.append({row.speed, row.shallow->angle_deg});
+        steep.append({row.speed, row.steep->angle_deg});
+        speeds.include(row.speed);
+        angles.include(row.shallow->angle_deg);
+        angles.include(row.steep->angle_deg);
+    }
+    if (shallow.isEmpty())
+        return emptyChart(title, QStringLiteral("no angle passes every check"));
+    speeds.include(c.nominal_speed);
+    angles.include(c.nominal_angle_deg);
+
+    const QString frame = QString::fromStdString(c.frame);
+    QChart* chart = newChart(shallow.size() == 1
+                                 ? QStringLiteral("%1: %2 to %3 deg (%4), %5 deg wide")
+                                       .arg(title)
+                                       .arg(steep.front().y(), 0, 'f', 2)
+                                       .arg(shallow.front().y(), 0, 'f', 2)
+                                       .arg(frame)
+                                       .arg(shallow.front().y() - steep.front().y(), 0, 'f', 2)
+                                 : QStringLiteral("%1 (%2 flight-path angles)").arg(title, frame));
+    const QString speedTitle = c.speed_key.empty()
+                                   ? QStringLiteral("interface speed, inertial (m/s)")
+                                   : QString::fromStdString(c.speed_key);
+    QValueAxis* speedAxis = addValueAxis(chart, speedTitle, Qt::AlignBottom);
+    QValueAxis* angleAxis =
+        addValueAxis(chart, QStringLiteral("flight-path angle (deg)"), Qt::AlignLeft);
+    // One speed is a bar: the axis is widened around it.
+    const double pad = speeds.high > speeds.low ? 0.0 : std::max(1.0, 0.05 * speeds.high);
+    setNiceRange(speedAxis, speeds.low - pad, speeds.high + pad);
+    setNiceRange(angleAxis, angles.low, angles.high);
+
+    if (shallow.size() > 1) {
+        auto* upper = new QLineSeries;
+        upper->replace(shallow);
+        auto* lower = new QLineSeries;
+        lower->replace(steep);
+        auto* band = new QAreaSeries(upper, lower);
+        band->setName(QStringLiteral("every check passes"));
+        band->setBrush(windowFill);
+        band->setPen(Qt::NoPen);
+        attach(chart, band, speedAxis, angleAxis);
+    } else {
+        QPen bar(windowFill.darker(110), 14.0);
+        bar.setCapStyle(Qt::FlatCap);
+        attach(
+            chart,
+            lineSeries(QStringLiteral("every check passes"), bar, {shallow.front(), steep.front()}),
+            speedAxis, angleAxis);
+    }
+    // Each bound named by the checks that bind it, slowest speed first.
+    const auto binds = [&](bool shallowSide) {
+        QStringList checks;
+        for (const CorridorSpeed& row : c.speeds) {
+            const auto& bound = shallowSide ? row.shallow : row.steep;
+            const QString check = bound && bound->closed
+                                      ? QString::fromStdString(bound->binding_check)
+                                      : QStringLiteral("open");
+            if (bound && !checks.contains(check))
+                checks << check;
+        }
+        return checks.isEmpty() ? QString()
+                                : QStringLiteral(" (%1)").arg(checks.join(QStringLiteral(", ")));
+    };
+    auto* shallowLine = lineSeries(QStringLiteral("shallow bound%1").arg(binds(true)),
+                                   resultPen(primaryInk), shallow);
+    auto* steepLine = lineSeries(QStringLiteral("steep bound%1").arg(binds(false)),
+                                 resultPen(secondaryInk), steep);
+    for (QLineSeries* line : {shallowLine, steepLine}) {
+        line->setPointsVisible(true);
+        attach(chart, line, speedAxis, angleAxis);
+    }
+    attach(chart,
+           pointMarker(QStringLiteral("this design (%1, %2 deg)")
+                           .arg(c.nominal_speed, 0, 'g', 6)
+                           .arg(c.nominal_angle_deg, 0, 'f', 2),
+                       QScatterSeries::MarkerShapeStar, caseMarkerSize * 2.2, eventInk,
+                       QPointF(c.nominal_speed, c.nominal_angle_deg)),
+           speedAxis, angleAxis);
+    return chart;
+}
+
 QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure) {
     const auto info = figureInfo(figure);
     const QString title = info ? QStringLiteral("What drives the %1").arg(info->label)

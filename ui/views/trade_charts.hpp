@@ -36,6 +36,9 @@ QChart* landingEllipseChart(const StudyOutcome& outcome);
 /// clockwise from north; `points` around it.
 QList<QPointF> ellipseOutline(double semiMajorKm, double semiMinorKm, double azimuthDeg,
                               int points = 120);
+/// The entry corridor: the band of passing flight-path angles against the speed (the design's
+/// speed key), its shallow and steep bounds, the design marked; one speed is a bar.
+QChart* corridorChart(const StudyOutcome& outcome);
 /// Sensitivities: the inputs that drive the figure most, largest first.
 QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure);
 

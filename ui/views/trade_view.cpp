@@ -8,6 +8,7 @@
 #include <QChart>
 #include <QChartView>
 #include <QComboBox>
+#include <QCoreApplication>
 #include <QDoubleValidator>
 #include <QFileDialog>
 #include <QGridLayout>
@@ -28,6 +29,7 @@
 #include "results/key_figures.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/success_probability.hpp"
+#include "trade/value_list.hpp"
 #include "views/dispersion_table.hpp"
 #include "views/export_dialog.hpp"
 #include "views/trade_charts.hpp"
@@ -35,8 +37,8 @@
 namespace ds {
 namespace {
 
-enum Page { introPage, linePage, mapPage, dispersionPage, sensitivityPage };
-enum KindIndex { oneKeyIndex, twoKeyIndex, dispersionIndex, sensitivityIndex };
+enum Page { introPage, linePage, mapPage, dispersionPage, sensitivityPage, corridorPage };
+enum KindIndex { oneKeyIndex, twoKeyIndex, dispersionIndex, sensitivityIndex, corridorIndex };
 
 // Defaults: a line fine enough to show a trend, a grid coarse enough to run in about a second
 // (225 sizings), a campaign big enough for percentiles (our choices).
@@ -44,6 +46,9 @@ constexpr int defaultLineCount = 21;
 constexpr int defaultGridCount = 15;
 constexpr int mostSweepValues = 201;
 constexpr int defaultRuns = 1000;
+/// Dispersed cases at each of the corridor's bounds and its centre (our choice: three
+/// campaigns of this size take a few seconds).
+constexpr int defaultCorridorRuns = 500;
 constexpr int mostRuns = 1000000;
 /// A key's suggested sweep: its value less and more this fraction.
 constexpr double suggestedSpread = 0.2;
@@ -71,6 +76,48 @@ QChartView* chartView(QWidget* parent) {
     return view;
 }
 
+QString percentText(const std::optional<DispersedAngle>& d) {
+    return d ? QStringLiteral("%1 %").arg(100.0 * d->success_probability, 0, 'f', 1)
+             : QStringLiteral("–");
+}
+
+/// Each speed's bounds in words, what binds them, and the dispersed success.
+QString corridorSummary(const EntryCorridor& c) {
+    QStringList lines;
+    for (const CorridorSpeed& row : c.speeds) {
+        const QString speed = QLocale::c().toString(row.speed, 'g', 6);
+        if (!row.shallow || !row.steep) {
+            lines << QCoreApplication::translate("ds::TradeView", "At %1: no corridor (%2).")
+                         .arg(speed, text(row.error).toHtmlEscaped());
+            continue;
+        }
+        const auto bound = [](const CorridorBound& b) {
+            return b.closed ? QStringLiteral("%1 deg (past it: %2)")
+                                  .arg(b.angle_deg, 0, 'f', 2)
+                                  .arg(text(b.binding_check).toHtmlEscaped())
+                            : QStringLiteral("%1 deg (open: passes to the range's end)")
+                                  .arg(b.angle_deg, 0, 'f', 2);
+        };
+        QString line =
+            QCoreApplication::translate("ds::TradeView", "At %1: from %2 to %3, %4 deg wide.")
+                .arg(speed, bound(*row.steep), bound(*row.shallow))
+                .arg(row.width_deg(), 0, 'f', 2);
+        if (row.dispersed_centre) {
+            line += QCoreApplication::translate(
+                        "ds::TradeView",
+                        " With the dispersions (%1 cases each), success %2 at the steep bound, "
+                        "%3 at the centre, %4 at the shallow bound.")
+                        .arg(row.dispersed_centre->runs)
+                        .arg(percentText(row.dispersed_steep), percentText(row.dispersed_centre),
+                             percentText(row.dispersed_shallow));
+        }
+        lines << line;
+    }
+    return QCoreApplication::translate("ds::TradeView", "Angles in %1 (%2).")
+               .arg(text(c.angle_key), text(c.frame)) +
+           QStringLiteral("<br>") + lines.join(QStringLiteral("<br>"));
+}
+
 }  // namespace
 
 TradeView::TradeView(DesignDocument* document, QWidget* parent)
@@ -79,6 +126,7 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     m_axes[0] = addAxisRow(tr("Vary"), 0);
     m_axes[1] = addAxisRow(tr("and"), 1);
     buildDispersionRow();
+    buildCorridorRow();
     m_status = new QLabel(this);
     m_status->setWordWrap(true);
     buildPages();
@@ -88,6 +136,7 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     layout->addWidget(m_axes[0].row);
     layout->addWidget(m_axes[1].row);
     layout->addWidget(m_dispersionRow);
+    layout->addWidget(m_corridorRow);
     layout->addWidget(m_status);
     layout->addWidget(m_pages, 1);
 
@@ -101,7 +150,7 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
 QHBoxLayout* TradeView::buildControls() {
     m_kind = new QComboBox(this);
     m_kind->addItems({tr("Sweep one input"), tr("Sweep two inputs (feasibility map)"),
-                      tr("Dispersions (Monte Carlo)"), tr("Sensitivities")});
+                      tr("Dispersions (Monte Carlo)"), tr("Sensitivities"), tr("Entry corridor")});
     m_figure = new QComboBox(this);
     for (const KeyFigureDefinition& f : key_figure_table)
         m_figure->addItem(text(f.label), text(f.id));
@@ -152,12 +201,36 @@ void TradeView::buildDispersionRow() {
     dispersion->setRowStretch(2, 1);
 }
 
+void TradeView::buildCorridorRow() {
+    m_corridorRow = new QWidget(this);
+    auto* row = new QHBoxLayout(m_corridorRow);
+    row->setContentsMargins(0, 0, 0, 0);
+    m_speeds = new QLineEdit(m_corridorRow);
+    m_speeds->setObjectName(QStringLiteral("corridorSpeeds"));
+    m_speeds->setPlaceholderText(tr("the design's own"));
+    m_speeds->setToolTip(
+        tr("Entry speeds, or arrival excess speeds for an approach: values separated by commas, "
+           "or FROM:TO:N for N values"));
+    m_corridorRuns = new QSpinBox(m_corridorRow);
+    m_corridorRuns->setRange(0, mostRuns);
+    m_corridorRuns->setSingleStep(100);
+    m_corridorRuns->setValue(defaultCorridorRuns);
+    m_corridorRuns->setToolTip(
+        tr("With the design's dispersions: cases flown at each bound and at the centre, from "
+           "the dispersion study's seed (0: none)"));
+    row->addWidget(new QLabel(tr("Speeds"), m_corridorRow));
+    row->addWidget(m_speeds, 1);
+    row->addWidget(new QLabel(tr("Dispersed cases per angle"), m_corridorRow));
+    row->addWidget(m_corridorRuns);
+}
+
 void TradeView::buildPages() {
     m_pages = new QStackedWidget(this);
     auto* intro = new QLabel(
         tr("Choose a study and press Run. A sweep sizes the design over one or two inputs; "
            "dispersions fly the design's declared dispersions; sensitivities rank what drives "
-           "each key figure. Studies run on the design as it is when Run is pressed."),
+           "each key figure; the entry corridor finds the shallowest and steepest entry angles "
+           "that pass every check. Studies run on the design as it is when Run is pressed."),
         this);
     intro->setWordWrap(true);
     intro->setAlignment(Qt::AlignCenter);
@@ -180,11 +253,22 @@ void TradeView::buildPages() {
     dispersionGrid->addWidget(m_landing, 1, 2);
     dispersionGrid->setRowStretch(1, 1);
     m_sensitivity = chartView(this);
+    auto* corridorResults = new QWidget(this);
+    m_corridorSummary = new QLabel(corridorResults);
+    m_corridorSummary->setWordWrap(true);
+    m_corridorSummary->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    m_corridor = chartView(corridorResults);
+    m_corridor->setObjectName(QStringLiteral("corridorBand"));
+    auto* corridorLayout = new QVBoxLayout(corridorResults);
+    corridorLayout->setContentsMargins(0, 0, 0, 0);
+    corridorLayout->addWidget(m_corridorSummary);
+    corridorLayout->addWidget(m_corridor, 1);
     m_pages->insertWidget(introPage, intro);
     m_pages->insertWidget(linePage, m_line);
     m_pages->insertWidget(mapPage, m_map);
     m_pages->insertWidget(dispersionPage, dispersionResults);
     m_pages->insertWidget(sensitivityPage, m_sensitivity);
+    m_pages->insertWidget(corridorPage, corridorResults);
 }
 
 void TradeView::connectControls() {
@@ -297,7 +381,8 @@ void TradeView::kindChanged() {
         axis.count->setValue(kind == twoKeyIndex ? defaultGridCount : defaultLineCount);
     }
     m_dispersionRow->setVisible(kind == dispersionIndex);
-    m_figure->setEnabled(kind != twoKeyIndex);
+    m_corridorRow->setVisible(kind == corridorIndex);
+    m_figure->setEnabled(kind != twoKeyIndex && kind != corridorIndex);
 }
 
 void TradeView::documentChanged() {
@@ -332,6 +417,12 @@ void TradeView::setDispersions(std::size_t runs, std::uint64_t seed) {
 
 void TradeView::setSensitivities() {
     m_kind->setCurrentIndex(sensitivityIndex);
+}
+
+void TradeView::setCorridor(const QString& speeds, int runs) {
+    m_kind->setCurrentIndex(corridorIndex);
+    m_speeds->setText(speeds);
+    m_corridorRuns->setValue(runs);
 }
 
 void TradeView::setFigure(const std::string& id) {
@@ -388,6 +479,17 @@ bool TradeView::run() {
         request.kind = StudyKind::dispersions;
         request.runs = static_cast<std::size_t>(m_runs->value());
         request.seed = static_cast<std::uint64_t>(m_seed->value());
+    } else if (kind == corridorIndex) {
+        std::string error;
+        const auto speeds = parse_value_list(m_speeds->text().toStdString(), &error);
+        if (!speeds) {
+            m_status->setText(tr("Speeds: %1.").arg(text(error)));
+            return false;
+        }
+        request.kind = StudyKind::corridor;
+        request.speeds = *speeds;
+        request.runs = static_cast<std::size_t>(m_corridorRuns->value());
+        request.seed = static_cast<std::uint64_t>(m_seed->value());
     } else {
         request.kind = StudyKind::sensitivities;
     }
@@ -423,6 +525,12 @@ void TradeView::studyFinished() {
         size = tr("%1 sizings").arg(outcome.campaign->cases.size());
     if (outcome.sensitivities)
         size = tr("%1 inputs").arg(outcome.sensitivities->inputs.size());
+    if (outcome.corridor) {
+        std::size_t sizings = 0;
+        for (const CorridorSpeed& row : outcome.corridor->speeds)
+            sizings += row.sizings;
+        size = tr("%1 sizings").arg(sizings);
+    }
     m_status->setText(tr("%1: %2 in %3 s.")
                           .arg(QString::fromStdString(outcome.description()), size)
                           .arg(outcome.seconds, 0, 'f', 2));
@@ -484,6 +592,11 @@ void TradeView::showOutcome() {
         case StudyKind::sensitivities:
             replaceChart(m_sensitivity, sensitivityChart(outcome, figure()));
             m_pages->setCurrentIndex(sensitivityPage);
+            break;
+        case StudyKind::corridor:
+            m_corridorSummary->setText(corridorSummary(*outcome.corridor));
+            replaceChart(m_corridor, corridorChart(outcome));
+            m_pages->setCurrentIndex(corridorPage);
             break;
     }
 }

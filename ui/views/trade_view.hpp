@@ -30,11 +30,11 @@ class FeasibilityMap;
 class TradeRunner;
 struct StudyOutcome;
 
-/// The trade study page: choose a sweep of one or two keys, the design's dispersions or the
-/// sensitivities, run it on worker threads with a progress bar and a cancel that answers at
-/// once, and read it as a line plot, a feasibility map, histograms with the deploy scatter,
-/// or ranked sensitivities. Studies run on the design as it is when Run is pressed; an edit
-/// afterwards marks the study as out of date.
+/// The trade study page: choose a sweep of one or two keys, the design's dispersions, the
+/// sensitivities or the entry corridor, run it on worker threads with a progress bar and a cancel
+/// that answers at once, and read it as a line plot, a feasibility map, histograms with the deploy
+/// scatter, or ranked sensitivities. Studies run on the design as it is when Run is pressed; an
+/// edit afterwards marks the study as out of date.
 class TradeView : public QWidget {
     Q_OBJECT
 public:
@@ -48,6 +48,9 @@ public:
     void setSweep(const std::vector<SweepAxis>& axes);
     void setDispersions(std::size_t runs, std::uint64_t seed);
     void setSensitivities();
+    /// The entry corridor over a list of speeds ("5000:6500:7"; empty for the design's own),
+    /// with `runs` dispersed cases at its bounds and centre.
+    void setCorridor(const QString& speeds, int runs);
     void setFigure(const std::string& id);
     /// The key figure the plots show ("peak_deceleration").
     std::string figure() const;
@@ -73,6 +76,7 @@ private:
     QHBoxLayout* buildControls();
     AxisControls addAxisRow(const QString& label, int index);
     void buildDispersionRow();
+    void buildCorridorRow();
     void buildPages();
     void connectControls();
     void connectRunner();
@@ -93,6 +97,9 @@ private:
     QSpinBox* m_runs;
     QSpinBox* m_seed;
     DispersionTable* m_dispersions;
+    QWidget* m_corridorRow;
+    QLineEdit* m_speeds;
+    QSpinBox* m_corridorRuns;
     QPushButton* m_run;
     QPushButton* m_cancel;
     QPushButton* m_export;
@@ -106,6 +113,8 @@ private:
     QChartView* m_scatter;
     QChartView* m_landing;  ///< the landing points and their ellipse
     QChartView* m_sensitivity;
+    QLabel* m_corridorSummary;
+    QChartView* m_corridor;
     QStringList m_keyNames;
     bool m_stale = false;
 };

@@ -1,0 +1,62 @@
+#include "trade/value_list.hpp"
+
+#include <charconv>
+#include <cmath>
+
+#include <fmt/format.h>
+
+#include "trade/sweep.hpp"
+
+namespace ds {
+namespace {
+
+std::optional<double> number(std::string_view text) {
+    double v = 0.0;
+    const auto [end, error] = std::from_chars(text.data(), text.data() + text.size(), v);
+    if (error != std::errc() || end != text.data() + text.size() || !std::isfinite(v))
+        return std::nullopt;
+    return v;
+}
+
+}  // namespace
+
+std::optional<std::vector<double>> parse_value_list(std::string_view text, std::string* error) {
+    std::vector<double> values;
+    std::size_t at = 0;
+    while (at < text.size()) {
+        const std::size_t end = text.find_first_of(", \t", at);
+        const std::string_view item =
+            text.substr(at, end == std::string_view::npos ? std::string_view::npos : end - at);
+        at = end == std::string_view::npos ? text.size() : end + 1;
+        if (item.empty())
+            continue;
+        const std::size_t first = item.find(':');
+        if (first == std::string_view::npos) {
+            const auto v = number(item);
+            if (!v) {
+                *error = fmt::format("\"{}\" is not a number", item);
+                return std::nullopt;
+            }
+            values.push_back(*v);
+            continue;
+        }
+        const std::size_t second = item.find(':', first + 1);
+        const auto from = number(item.substr(0, first));
+        const auto to = second == std::string_view::npos
+                            ? std::nullopt
+                            : number(item.substr(first + 1, second - first - 1));
+        const auto count =
+            second == std::string_view::npos ? std::nullopt : number(item.substr(second + 1));
+        if (!from || !to || !count || *count < 1.0 || *count != std::floor(*count)) {
+            *error =
+                fmt::format("\"{}\": expected FROM:TO:N with N a whole number of at least 1", item);
+            return std::nullopt;
+        }
+        const SweepAxis range{{}, *from, *to, static_cast<int>(*count)};
+        for (int i = 0; i < range.count; ++i)
+            values.push_back(range.value(i));
+    }
+    return values;
+}
+
+}  // namespace ds
