@@ -4,7 +4,9 @@
 //    tolerance (1e-8 relative), as the design gives it and again with a direction over the
 //    rotating body ("rotating"), and
 //  - the whole sizing: entry, descent, terminal burn, mass closure iterations, the highest
-//    feasible site elevation and the checks, as `descent-sizer size` runs it.
+//    feasible site elevation and the checks, as `descent-sizer size` runs it, and
+//  - the entry corridor at the design's speed (both bounds root-found, no dispersions), as
+//    `descent-sizer corridor --runs 0` finds it.
 
 #include <algorithm>
 #include <chrono>
@@ -20,6 +22,7 @@
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "trade/corridor.hpp"
 #include "trade/dispersion.hpp"
 
 namespace {
@@ -93,6 +96,23 @@ int main(int argc, char** argv) {
         const Timing whole = measure([&] { (void)ds::size_design(design); }, repetitions);
         fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", "", "sizing",
                    whole.median_ms, whole.p10_ms, whole.p90_ms, "");
+        // The corridor flies a few dozen sizings: fewer repetitions. The "steps" column gives
+        // the sizings.
+        constexpr int corridor_repetitions = 20;
+        const ds::DesignVariants variants = ds::DesignVariants::of(design, file.parent_path());
+        ds::CorridorSettings corridor_settings;
+        corridor_settings.threads = 1;
+        std::size_t sizings = 0;
+        const Timing corridor = measure(
+            [&] {
+                const auto found =
+                    ds::find_corridor(variants, design, file.parent_path(), corridor_settings)
+                        .first;
+                sizings = found ? found->speeds.front().sizings : 0;
+            },
+            corridor_repetitions);
+        fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", "", "corridor",
+                   corridor.median_ms, corridor.p10_ms, corridor.p90_ms, sizings);
     }
 
     // Dispersions: 10,000 dispersed flights of each sample with dispersions, on one thread and

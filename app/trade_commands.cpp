@@ -170,16 +170,19 @@ void printSweepTable(const StudyOutcome& outcome) {
     }
 }
 
-void printSweep(const StudyOutcome& outcome, Format format) {
+/// Prints a study in the format asked for: its JSON, its CSV (the study's own, as the window
+/// exports it) or its text.
+template <class JsonOf, class PrintText>
+void printStudy(const StudyOutcome& outcome, Format format, JsonOf json, PrintText text) {
     switch (format) {
         case Format::json:
-            fmt::print("{}\n", sweepJson(outcome).dump(2));
+            fmt::print("{}\n", json().dump(2));
             break;
         case Format::csv:
             fmt::print("{}", outcome.csv());
             break;
         case Format::text:
-            printSweepTable(outcome);
+            text();
             break;
     }
 }
@@ -267,20 +270,6 @@ void printSensitivityRanking(const SensitivityTable& table) {
     }
 }
 
-void printSensitivities(const StudyOutcome& outcome, Format format) {
-    switch (format) {
-        case Format::json:
-            fmt::print("{}\n", sensitivityJson(*outcome.sensitivities).dump(2));
-            break;
-        case Format::csv:
-            fmt::print("{}", outcome.csv());
-            break;
-        case Format::text:
-            printSensitivityRanking(*outcome.sensitivities);
-            break;
-    }
-}
-
 Json boundJson(const std::optional<CorridorBound>& bound) {
     if (!bound)
         return nullptr;
@@ -339,21 +328,21 @@ std::string dispersedText(const std::optional<DispersedAngle>& d) {
 
 void printCorridorTable(const EntryCorridor& c) {
     const std::string speedName = c.speed_key.empty() ? "speed (inertial)" : c.speed_key;
-    fmt::print(
-        "Entry corridor in {} ({}), each bound root-found to {} deg on the feasibility margin; "
-        "the design at {:g} and {:.2f} deg\n\n",
-        c.angle_key, c.frame, corridor_angle_tolerance_deg, c.nominal_speed, c.nominal_angle_deg);
-    fmt::print("{:>26} {:>11} {:<30} {:>11} {:<30} {:>9}\n", speedName, "shallow deg", "binds",
+    fmt::print("Entry corridor in {} ({}); the design at {:g} and {:.2f} deg.\n", c.angle_key,
+               c.frame, c.nominal_speed, c.nominal_angle_deg);
+    fmt::print("Each bound root-found to {} deg on the feasibility margin.\n\n",
+               corridor_angle_tolerance_deg);
+    fmt::print("{:>20} {:>11}  {:<28} {:>11}  {:<28} {:>9}\n", speedName, "shallow deg", "binds",
                "steep deg", "binds", "width deg");
     const auto side = [](const std::optional<CorridorBound>& b) {
         return b->closed ? b->binding_check : std::string("(open: passes to the range's end)");
     };
     for (const CorridorSpeed& row : c.speeds) {
         if (!row.shallow || !row.steep) {
-            fmt::print("{:>26.6g} no corridor: {}\n", row.speed, row.error);
+            fmt::print("{:>20.6g} no corridor: {}\n", row.speed, row.error);
             continue;
         }
-        fmt::print("{:>26.6g} {:>11.3f} {:<30} {:>11.3f} {:<30} {:>9.3f}\n", row.speed,
+        fmt::print("{:>20.6g} {:>11.3f}  {:<28} {:>11.3f}  {:<28} {:>9.3f}\n", row.speed,
                    row.shallow->angle_deg, side(row.shallow), row.steep->angle_deg, side(row.steep),
                    row.width_deg());
     }
@@ -364,31 +353,18 @@ void printCorridorTable(const EntryCorridor& c) {
                    row.speed, row.relative_speed_m_s, row.inertial_speed_m_s);
         for (const auto& [name, bound] :
              {std::pair{"shallow", row.shallow}, std::pair{"steep", row.steep}}) {
-            fmt::print("  {:<8} {:.3f} deg ({:.3f} planet-relative, {:.3f} inertial){}{}\n", name,
-                       bound->angle_deg, bound->relative_angle_deg, bound->inertial_angle_deg,
-                       bound->closed ? "; past it: " : "", bound->binding_message);
+            fmt::print("  {:<8} {:.3f} deg ({:.3f} planet-relative, {:.3f} inertial)\n", name,
+                       bound->angle_deg, bound->relative_angle_deg, bound->inertial_angle_deg);
+            fmt::print("           {}\n", bound->closed ? "past it: " + bound->binding_message
+                                                        : "open: passes to the range's end");
         }
         if (row.dispersed_centre) {
             fmt::print(
-                "  success with the dispersions ({} cases each; 95 % Wilson interval): shallow "
-                "bound {}, centre {}, steep bound {}\n",
+                "  success with the dispersions ({} cases each; 95 % Wilson interval):\n"
+                "           shallow bound {}, centre {}, steep bound {}\n",
                 row.dispersed_centre->runs, dispersedText(row.dispersed_shallow),
                 dispersedText(row.dispersed_centre), dispersedText(row.dispersed_steep));
         }
-    }
-}
-
-void printCorridor(const StudyOutcome& outcome, Format format) {
-    switch (format) {
-        case Format::json:
-            fmt::print("{}\n", corridorJson(*outcome.corridor).dump(2));
-            break;
-        case Format::csv:
-            fmt::print("{}", outcome.csv());
-            break;
-        case Format::text:
-            printCorridorTable(*outcome.corridor);
-            break;
     }
 }
 
@@ -425,7 +401,9 @@ int sweepCommand(const Options& o) {
     const auto outcome = runStudyOn(*file, request, o.threads);
     if (!outcome)
         return exit_unreadable;
-    printSweep(*outcome, formatOf(o.json, o.csv));
+    printStudy(
+        *outcome, formatOf(o.json, o.csv), [&] { return sweepJson(*outcome); },
+        [&] { printSweepTable(*outcome); });
     return 0;
 }
 
@@ -491,7 +469,9 @@ int sensitivityCommand(const Options& o) {
     const auto outcome = runStudyOn(*file, request, o.threads);
     if (!outcome)
         return exit_unreadable;
-    printSensitivities(*outcome, formatOf(o.json, o.csv));
+    printStudy(
+        *outcome, formatOf(o.json, o.csv), [&] { return sensitivityJson(*outcome->sensitivities); },
+        [&] { printSensitivityRanking(*outcome->sensitivities); });
     return 0;
 }
 
@@ -513,7 +493,9 @@ int corridorCommand(const Options& o) {
     const auto outcome = runStudyOn(*file, request, o.threads);
     if (!outcome)
         return exit_unreadable;
-    printCorridor(*outcome, formatOf(o.json, o.csv));
+    printStudy(
+        *outcome, formatOf(o.json, o.csv), [&] { return corridorJson(*outcome->corridor); },
+        [&] { printCorridorTable(*outcome->corridor); });
     return 0;
 }
 

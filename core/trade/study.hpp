@@ -18,7 +18,7 @@
 
 namespace ds {
 
-/// The trade studies. A new kind (a corridor, an optimiser) is one more entry here, its
+/// The trade studies. A new kind (an optimiser) is one more entry here, its
 /// settings in StudyRequest, its results in StudyOutcome and one row of the kinds' table in
 /// study.cpp (how it runs, how it is described, its CSV).
 enum class StudyKind { sweep, dispersions, sensitivities, corridor };

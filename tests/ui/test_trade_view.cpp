@@ -61,6 +61,15 @@ void keepScreenshot(MainWindow& window, const QString& name) {
     window.grab().save(QString::fromLocal8Bit(folder) + QLatin1Char('/') + name);
 }
 
+/// The sizing sheet the window writes to `path`, as HTML (empty when it could not write it).
+QString sheetHtml(MainWindow& window, const QString& path) {
+    QString error;
+    if (!QTest::qWaitFor([&] { return window.exportSheet(path, &error); }, 10000))
+        return {};
+    QFile html(path);
+    return html.open(QIODevice::ReadOnly) ? QString::fromUtf8(html.readAll()) : QString();
+}
+
 int pointsIn(const QChart* chart, const QString& seriesName) {
     for (QAbstractSeries* s : chart->series()) {
         if (s->name() == seriesName) {
@@ -397,12 +406,7 @@ private slots:
 
         // Into the sheet, with its table.
         QTemporaryDir dir;
-        QString error;
-        const QString sheet = dir.filePath("sheet.html");
-        QVERIFY(QTest::qWaitFor([&] { return window.exportSheet(sheet, &error); }, 10000));
-        QFile html(sheet);
-        QVERIFY(html.open(QIODevice::ReadOnly));
-        const QString text = QString::fromUtf8(html.readAll());
+        const QString text = sheetHtml(window, dir.filePath("sheet.html"));
         QVERIFY(text.contains("Entry corridor over 3 speeds from 5000 to 6200"));
         QVERIFY(text.contains("peak_deceleration"));
 
@@ -430,10 +434,7 @@ private slots:
         QVERIFY(lines[0].startsWith("entry.flight_path_angle_deg,"));
 
         const QString sheet = dir.filePath("sheet.html");
-        QVERIFY(QTest::qWaitFor([&] { return window.exportSheet(sheet, &error); }, 10000));
-        QFile html(sheet);
-        QVERIFY(html.open(QIODevice::ReadOnly));
-        const QString text = QString::fromUtf8(html.readAll());
+        const QString text = sheetHtml(window, sheet);
         QVERIFY(text.contains("<h2>Trade study</h2>"));
         QVERIFY(text.contains("Sweep of entry.flight_path_angle_deg from -16 to -10 (4 values)"));
         // The PDF is laid out from the same HTML: the five flight charts and the sweep's.

@@ -23,6 +23,23 @@ double deg(double rad) {
     return ds::radians_to_degrees(rad);
 }
 
+/// Where an ellipse of apoapsis r_a and periapsis r_p crosses the interface, by hand:
+/// a = (r_a + r_p) / 2, e = (r_a - r_p) / (r_a + r_p), h = sqrt(mu a (1 - e^2)), v_E from
+/// vis-viva, cos(gamma) = h / (r_E v_E).
+struct Crossing {
+    double eccentricity;
+    double speed_m_s;
+    double flight_path_angle_rad;
+};
+
+Crossing crossing(double ra, double rp) {
+    const double a = 0.5 * (ra + rp);
+    const double e = (ra - rp) / (ra + rp);
+    const double h = std::sqrt(mars_mu * a * (1.0 - e * e));
+    const double ve = std::sqrt(mars_mu * (2.0 / interface_radius - 1.0 / a));
+    return {e, ve, -std::acos(h / (interface_radius * ve))};
+}
+
 }  // namespace
 
 TEST_CASE("vis-viva at the interface of a 3 km/s arrival is 5776.87 m/s (by hand, Mars GM)") {
@@ -84,25 +101,20 @@ TEST_CASE("the two forms of an arrival are each other's inverse, and the conic's
 
 TEST_CASE("from a circular orbit the deorbit burn is the first impulse of a Hohmann transfer") {
     // A 300 km circular orbit lowered to a periapsis 40 km below the reference radius. The
-    // Hohmann closed form: dv = sqrt(mu / r_a) (1 - sqrt(2 r_p / (r_a + r_p))). The interface
-    // angle of that ellipse by hand: a = (r_a + r_p) / 2, e = (r_a - r_p) / (r_a + r_p),
-    // h = sqrt(mu a (1 - e^2)), v_E from vis-viva, cos(gamma) = h / (r_E v_E).
+    // Hohmann closed form: dv = sqrt(mu / r_a) (1 - sqrt(2 r_p / (r_a + r_p))).
     const double ra = mars_radius + 300e3;
     const double rp = mars_radius - 40e3;
-    const double a = 0.5 * (ra + rp);
-    const double e = (ra - rp) / (ra + rp);
-    const double h = std::sqrt(mars_mu * a * (1.0 - e * e));
-    const double ve = std::sqrt(mars_mu * (2.0 / interface_radius - 1.0 / a));
-    const double gamma = -std::acos(h / (interface_radius * ve));
-
-    const ds::DeorbitBurn burn = ds::deorbit_at_apoapsis(mars_mu, ra, ra, interface_radius, gamma);
+    const Crossing at = crossing(ra, rp);
+    const ds::DeorbitBurn burn =
+        ds::deorbit_at_apoapsis(mars_mu, ra, ra, interface_radius, at.flight_path_angle_rad);
     const double hohmann = std::sqrt(mars_mu / ra) * (1.0 - std::sqrt(2.0 * rp / (ra + rp)));
     CHECK(burn.delta_v_m_s == doctest::Approx(hohmann).epsilon(1e-9));
     CHECK(burn.speed_before_m_s == doctest::Approx(std::sqrt(mars_mu / ra)).epsilon(1e-12));
     CHECK(burn.transfer_periapsis_radius_m == doctest::Approx(rp).epsilon(1e-9));
-    CHECK(burn.transfer_eccentricity == doctest::Approx(e).epsilon(1e-9));
-    CHECK(burn.interface_speed_m_s == doctest::Approx(ve).epsilon(1e-12));
-    CHECK(burn.interface_flight_path_angle_rad == doctest::Approx(gamma).epsilon(1e-9));
+    CHECK(burn.transfer_eccentricity == doctest::Approx(at.eccentricity).epsilon(1e-9));
+    CHECK(burn.interface_speed_m_s == doctest::Approx(at.speed_m_s).epsilon(1e-12));
+    CHECK(burn.interface_flight_path_angle_rad ==
+          doctest::Approx(at.flight_path_angle_rad).epsilon(1e-9));
     // 83.30 m/s from 300 km: sqrt(mu / r_a) = 3418.6 m/s times 1 - sqrt(2 r_p / (r_a + r_p)).
     CHECK(burn.delta_v_m_s == doctest::Approx(83.303).epsilon(1e-4));
 }
@@ -116,13 +128,8 @@ TEST_CASE("from an elliptical orbit the burn is the difference of the two apoaps
     const auto apoapsis_speed = [&](double rp) {
         return std::sqrt(2.0 * mars_mu * rp / (ra * (ra + rp)));
     };
-    const double a = 0.5 * (ra + rp1);
-    const double e = (ra - rp1) / (ra + rp1);
-    const double h = std::sqrt(mars_mu * a * (1.0 - e * e));
-    const double ve = std::sqrt(mars_mu * (2.0 / interface_radius - 1.0 / a));
-    const double gamma = -std::acos(h / (interface_radius * ve));
-
-    const ds::DeorbitBurn burn = ds::deorbit_at_apoapsis(mars_mu, rp0, ra, interface_radius, gamma);
+    const ds::DeorbitBurn burn = ds::deorbit_at_apoapsis(mars_mu, rp0, ra, interface_radius,
+                                                         crossing(ra, rp1).flight_path_angle_rad);
     CHECK(burn.speed_before_m_s == doctest::Approx(apoapsis_speed(rp0)).epsilon(1e-12));
     CHECK(burn.speed_after_m_s == doctest::Approx(apoapsis_speed(rp1)).epsilon(1e-9));
     CHECK(burn.delta_v_m_s ==

@@ -15,6 +15,7 @@
 #include "support/samples.hpp"
 #include "trade/corridor.hpp"
 #include "trade/study.hpp"
+#include "trade/value_list.hpp"
 
 namespace {
 
@@ -263,4 +264,19 @@ TEST_CASE("the corridor is a study: run_study fills it, and its CSV has a row pe
     CHECK(csv.rfind("entry.velocity_m_s,relative_speed_m_s,inertial_speed_m_s,shallow_deg,", 0) ==
           0);
     CHECK(std::count(csv.begin(), csv.end(), '\n') == 3);
+}
+
+TEST_CASE("a list of speeds as typed: values and FROM:TO:N ranges") {
+    std::string error;
+    const auto values = ds::parse_value_list("5000, 5600 6000:6600:3", &error);
+    REQUIRE(values);
+    CHECK(*values == std::vector<double>{5000.0, 5600.0, 6000.0, 6300.0, 6600.0});
+    CHECK(ds::parse_value_list("", &error)->empty());
+    CHECK(*ds::parse_value_list("7:7:1", &error) == std::vector<double>{7.0});
+    for (const char* bad : {"5000,abc", "5000:6000", "5000:6000:0", "1:2:2.5", "1e999"}) {
+        CAPTURE(bad);
+        error.clear();
+        CHECK_FALSE(ds::parse_value_list(bad, &error));
+        CHECK_FALSE(error.empty());
+    }
 }
