@@ -144,7 +144,7 @@ constexpr TextAccess design_name{[](const Design& d) { return std::string_view(d
 
 constexpr TextAccess atmosphere_model{[](const Design& d) { return to_string(d.atmosphere.model); },
                                       [](Design& d, std::string_view name) {
-                                          const auto model = atmosphere_model_from(name);
+                                          const auto model = enum_from<AtmosphereModel>(name);
                                           if (model)
                                               d.atmosphere.model = *model;
                                           return model.has_value();
@@ -160,7 +160,7 @@ constexpr TextAccess canopy{[](const Design& d) { return std::string_view(d.para
 
 constexpr TextAccess terminal_method{[](const Design& d) { return to_string(d.terminal.method); },
                                      [](Design& d, std::string_view name) {
-                                         const auto method = terminal_method_from(name);
+                                         const auto method = enum_from<TerminalMethod>(name);
                                          if (method)
                                              d.terminal.method = *method;
                                          return method.has_value();
@@ -169,7 +169,7 @@ constexpr TextAccess terminal_method{[](const Design& d) { return to_string(d.te
 constexpr TextAccess velocity_frame{
     [](const Design& d) { return to_string(d.entry.velocity_frame); },
     [](Design& d, std::string_view name) {
-        const auto frame = velocity_frame_from(name);
+        const auto frame = enum_from<VelocityFrame>(name);
         if (frame)
             d.entry.velocity_frame = *frame;
         return frame.has_value();
@@ -280,7 +280,7 @@ const std::array keys{
            .key = "model",
            .kind = KeyKind::choice,
            .text = atmosphere_model,
-           .choices = &atmosphere_model_names,
+           .choices = &enum_names<AtmosphereModel>,
            .label = "Atmosphere",
            .choice_texts = atmosphere_texts},
     KeyRow{.section = "atmosphere",
@@ -446,7 +446,7 @@ const std::array keys{
            .kind = KeyKind::choice,
            .need = KeyNeed::defaulted,
            .text = velocity_frame,
-           .choices = &velocity_frame_names,
+           .choices = &enum_names<VelocityFrame>,
            .label = "Entry state is",
            .choice_texts = frame_texts},
 
@@ -711,7 +711,7 @@ const std::array keys{
            .key = "method",
            .kind = KeyKind::choice,
            .text = terminal_method,
-           .choices = &terminal_method_names,
+           .choices = &enum_names<TerminalMethod>,
            .label = "Method",
            .choice_texts = method_texts},
     KeyRow{.section = "terminal",

@@ -321,7 +321,7 @@ TEST_CASE("the fuzz dictionary holds every key, section and name of the schema")
         CAPTURE(name);
         CHECK(has_name(name));
     }
-    for (const auto& names : {ds::mass_group_names(), ds::maturity_names()}) {
+    for (const auto& names : {ds::enum_names<ds::MassGroup>(), ds::enum_names<ds::Maturity>()}) {
         for (const std::string_view name : names) {
             CAPTURE(name);
             CHECK(has_name(name));
