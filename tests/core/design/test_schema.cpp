@@ -19,6 +19,7 @@
 #include "design/schema.hpp"
 #include "design/writer.hpp"
 #include "parachute/canopy.hpp"
+#include "support/preset_body.hpp"
 
 namespace {
 
@@ -99,8 +100,7 @@ std::vector<Shape> every_shape() {
 ds::Design design_of(const Shape& shape) {
     ds::Design d;
     d.name = "every key";
-    d.body.preset = "mars";
-    d.body.body = *ds::body_preset("mars");
+    d.body = ds::test::preset_body("mars");
     d.mass.items = {{"lander", 120.5, ds::MassGroup::descent_stage, ds::Maturity::layout}};
     d.dispersions = {{"entry.flight_path_angle_deg", ds::DistributionKind::normal, 0.25, 0, 0},
                      {"atmosphere.density_scale", ds::DistributionKind::uniform, 0, 0.85, 1.15}};
