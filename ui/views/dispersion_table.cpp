@@ -1,11 +1,8 @@
 #include "views/dispersion_table.hpp"
 
 #include <QComboBox>
-#include <QHBoxLayout>
 #include <QHeaderView>
-#include <QPushButton>
 #include <QTableWidget>
-#include <QVBoxLayout>
 
 #include "model/design_document.hpp"
 
@@ -30,19 +27,7 @@ DispersionTable::DispersionTable(DesignDocument* document, QWidget* parent)
     m_table->setToolTip(
         tr("Normal: a standard deviation in the key's own unit. Uniform: its "
            "lower and upper bounds."));
-    auto* add = new QPushButton(tr("Add"), this);
-    auto* remove = new QPushButton(tr("Remove"), this);
-    auto* buttons = new QVBoxLayout;
-    buttons->addWidget(add);
-    buttons->addWidget(remove);
-    buttons->addStretch(1);
-    auto* layout = new QHBoxLayout(this);
-    layout->setContentsMargins(0, 0, 0, 0);
-    layout->addWidget(m_table, 1);
-    layout->addLayout(buttons);
-
-    connect(add, &QPushButton::clicked, this, &DispersionTable::addRow);
-    connect(remove, &QPushButton::clicked, this, &DispersionTable::removeRow);
+    layOut(tr("Add"), tr("Remove"), Qt::Vertical);
     load();
 }
 

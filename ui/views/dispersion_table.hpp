@@ -16,8 +16,8 @@ public:
 private:
     void showValue(const Json& list) override;
     Json cellsValue() const override;
-    void addRow();
-    void removeRow();
+    void addRow() override;
+    void removeRow() override;
 };
 
 }  // namespace ds

@@ -2,8 +2,10 @@
 
 #include <utility>
 
+#include <QBoxLayout>
 #include <QHeaderView>
 #include <QLocale>
+#include <QPushButton>
 #include <QTableWidget>
 
 namespace ds {
@@ -22,6 +24,25 @@ DocumentTable::DocumentTable(DesignDocument* document, std::string pointer, cons
             store(editName);
     });
     connect(m_document, &DesignDocument::changed, this, &DocumentTable::load);
+}
+
+void DocumentTable::layOut(const QString& addText, const QString& removeText,
+                           Qt::Orientation buttons, QWidget* above) {
+    m_add = new QPushButton(addText, this);
+    m_remove = new QPushButton(removeText, this);
+    const bool beside = buttons == Qt::Vertical;
+    auto* row = new QBoxLayout(beside ? QBoxLayout::TopToBottom : QBoxLayout::LeftToRight);
+    row->addWidget(m_add);
+    row->addWidget(m_remove);
+    row->addStretch(1);
+    auto* layout = new QBoxLayout(beside ? QBoxLayout::LeftToRight : QBoxLayout::TopToBottom, this);
+    layout->setContentsMargins(0, 0, 0, 0);
+    if (above)
+        layout->addWidget(above);
+    layout->addWidget(m_table, beside ? 1 : 0);
+    layout->addLayout(row);
+    connect(m_add, &QPushButton::clicked, this, &DocumentTable::addRow);
+    connect(m_remove, &QPushButton::clicked, this, &DocumentTable::removeRow);
 }
 
 void DocumentTable::load() {

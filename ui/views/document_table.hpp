@@ -8,6 +8,7 @@
 #include "model/design_document.hpp"
 
 QT_BEGIN_NAMESPACE
+class QPushButton;
 class QTableWidget;
 QT_END_NAMESPACE
 
@@ -32,6 +33,14 @@ protected:
     virtual void showValue(const Json& value) = 0;
     /// The document's value as the table's cells give it.
     virtual Json cellsValue() const = 0;
+    /// What the add and remove buttons do: each one undoable edit.
+    virtual void addRow() = 0;
+    virtual void removeRow() = 0;
+
+    /// Lays the table out with its add and remove buttons, in a column beside it
+    /// (Qt::Vertical) or in a row under it (Qt::Horizontal); `above`, if any, over both.
+    void layOut(const QString& addText, const QString& removeText, Qt::Orientation buttons,
+                QWidget* above = nullptr);
 
     /// Shows the document's value, unless the table shows it already (an edit elsewhere).
     void load();
@@ -52,6 +61,8 @@ protected:
 
     DesignDocument* m_document;
     QTableWidget* m_table;
+    QPushButton* m_add = nullptr;
+    QPushButton* m_remove = nullptr;
 
 private:
     std::string m_pointer;

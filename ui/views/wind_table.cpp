@@ -4,14 +4,12 @@
 #include <QClipboard>
 #include <QComboBox>
 #include <QEvent>
-#include <QHBoxLayout>
 #include <QHeaderView>
 #include <QKeyEvent>
 #include <QLocale>
 #include <QPushButton>
 #include <QRegularExpression>
 #include <QTableWidget>
-#include <QVBoxLayout>
 
 #include "model/design_document.hpp"
 
@@ -33,9 +31,7 @@ const DocumentTable::Json newConstant = {{"east_m_s", 5.0}, {"north_m_s", 0.0}};
 WindTable::WindTable(DesignDocument* document, QWidget* parent)
     : DocumentTable(document, windPointer, tr("wind"),
                     {tr("Altitude (m)"), tr("East (m/s)"), tr("North (m/s)")}, parent),
-      m_shape(new QComboBox(this)),
-      m_add(new QPushButton(tr("Add row"), this)),
-      m_remove(new QPushButton(tr("Remove row"), this)) {
+      m_shape(new QComboBox(this)) {
     setObjectName(QStringLiteral("/atmosphere/wind"));
     m_shape->addItems({tr("no wind"), tr("one wind at every altitude"), tr("wind by altitude")});
     m_table->horizontalHeader()->setSectionResizeMode(QHeaderView::Stretch);
@@ -47,19 +43,9 @@ WindTable::WindTable(DesignDocument* document, QWidget* parent)
     m_table->installEventFilter(this);
 
     // The buttons under the table: the form's field column is narrow.
-    auto* buttons = new QHBoxLayout;
-    buttons->addWidget(m_add);
-    buttons->addWidget(m_remove);
-    buttons->addStretch(1);
-    auto* layout = new QVBoxLayout(this);
-    layout->setContentsMargins(0, 0, 0, 0);
-    layout->addWidget(m_shape);
-    layout->addWidget(m_table);
-    layout->addLayout(buttons);
+    layOut(tr("Add row"), tr("Remove row"), Qt::Horizontal, m_shape);
 
     connect(m_shape, &QComboBox::activated, this, &WindTable::setShape);
-    connect(m_add, &QPushButton::clicked, this, &WindTable::addRow);
-    connect(m_remove, &QPushButton::clicked, this, &WindTable::removeRow);
     load();
 }
 

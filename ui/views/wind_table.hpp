@@ -4,7 +4,6 @@
 
 QT_BEGIN_NAMESPACE
 class QComboBox;
-class QPushButton;
 QT_END_NAMESPACE
 
 namespace ds {
@@ -34,12 +33,10 @@ private:
     void showValue(const Json& wind) override;
     Json cellsValue() const override;
     void setShape(int shape);
-    void addRow();
-    void removeRow();
+    void addRow() override;
+    void removeRow() override;
 
     QComboBox* m_shape;
-    QPushButton* m_add;
-    QPushButton* m_remove;
 };
 
 }  // namespace ds
