@@ -115,24 +115,20 @@ Check flight_check(std::string id, CheckStatus status, double value, double limi
             std::move(source), std::nullopt};
 }
 
+constexpr Names<StopReason, 5> stop_reason_texts{
+    {{StopReason::reached_end, "the flight-time budget ran out"},
+     {StopReason::step_budget, "the integration step budget ran out"},
+     {StopReason::step_collapse,
+      "the integration step collapsed (the equations are stiff or singular here)"},
+     {StopReason::not_finite, "the equations gave a non-finite value"},
+     {StopReason::terminal_event, "a terminal event"}}};
+
 std::string_view stop_reason_text(StopReason reason) {
-    switch (reason) {
-        case StopReason::reached_end:
-            return "the flight-time budget ran out";
-        case StopReason::step_budget:
-            return "the integration step budget ran out";
-        case StopReason::step_collapse:
-            return "the integration step collapsed (the equations are stiff or singular here)";
-        case StopReason::not_finite:
-            return "the equations gave a non-finite value";
-        case StopReason::terminal_event:
-            return "a terminal event";
-    }
-    return "";
+    return name_of(stop_reason_texts, reason);
 }
 
 TimelineEvent event_at(std::string name, double t, const FlightState& y) {
-    TimelineEvent event{std::move(name), t, y[StateIndex::altitude], speed(y)};
+    TimelineEvent event{{}, std::move(name), t, y[StateIndex::altitude], speed(y)};
     event.latitude_deg = radians_to_degrees(y[StateIndex::latitude]);
     event.longitude_deg = radians_to_degrees(y[StateIndex::longitude]);
     return event;
@@ -141,7 +137,7 @@ TimelineEvent event_at(std::string name, double t, const FlightState& y) {
 /// An event with no state of its own, at a point of the ground.
 TimelineEvent event_on_ground(std::string name, double t, double altitude_m, double velocity_m_s,
                               const std::optional<GroundPoint>& point) {
-    TimelineEvent event{std::move(name), t, altitude_m, velocity_m_s};
+    TimelineEvent event{{}, std::move(name), t, altitude_m, velocity_m_s};
     if (point) {
         event.latitude_deg = radians_to_degrees(point->latitude_rad);
         event.longitude_deg = radians_to_degrees(point->longitude_rad);
@@ -225,15 +221,21 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
 }
 
+/// A drag device deployed: where, when, and in what air.
+void set_deployed(DeployResults& d, const Deployment& at) {
+    d.deployed = true;
+    d.deploy_time_s = at.time_s;
+    d.deploy_altitude_m = at.state[StateIndex::altitude];
+    d.deploy_mach = at.conditions.mach;
+    d.deploy_dynamic_pressure_Pa = at.conditions.dynamic_pressure_Pa;
+}
+
 /// A canopy's deploy: where and how fast, its drag coefficient there, its opening load (on what
 /// hangs under it: the whole vehicle at that moment) and its inflation time.
 void fill_canopy_deploy(const CanopyType& type, double diameter_m, double drag_coefficient,
                         const Deployment& at, ParachuteResults& p) {
     const FlightConditions& c = at.conditions;
-    p.deploy_time_s = at.time_s;
-    p.deploy_altitude_m = at.state[StateIndex::altitude];
-    p.deploy_mach = c.mach;
-    p.deploy_dynamic_pressure_Pa = c.dynamic_pressure_Pa;
+    set_deployed(p, at);
     p.deploy_velocity_m_s = speed(at.state);
     p.drag_coefficient_at_deploy =
         canopy_device(type, diameter_m, drag_coefficient).drag_coefficient_at(c.mach);
@@ -255,8 +257,7 @@ ParachuteResults drogue_results(const Evaluation& e, const DrogueDesign& design)
     p.diameter_m = design.diameter_m;
     p.drag_coefficient = drag_coefficient;
     p.mass_kg = e.drogue_kg;
-    p.deployed = e.entry.drogue.has_value();
-    if (p.deployed)
+    if (e.entry.drogue)
         fill_canopy_deploy(type, design.diameter_m, drag_coefficient, *e.entry.drogue, p);
     return p;
 }
@@ -266,8 +267,7 @@ void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResu
     p.drag_coefficient = e.canopy_drag_coefficient;
     p.diameter_m = e.canopy_diameter_m;
     p.mass_kg = e.parachute_kg;
-    p.deployed = e.entry.end == EntryEnd::deployed;
-    if (!p.deployed)
+    if (e.entry.end != EntryEnd::deployed)
         return;
     fill_canopy_deploy(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient,
                        {e.entry.end_time_s, e.entry.end_state, e.entry.end_conditions}, p);
@@ -349,19 +349,10 @@ void push_terminal_events(const Evaluation& e, const Design& design,
 }
 
 /// The timeline event that ends the entry flight.
-const char* entry_end_event(EntryEnd end) {
-    switch (end) {
-        case EntryEnd::deployed:
-            return "parachute deploy";
-        case EntryEnd::ground:
-            return "ground impact";
-        case EntryEnd::skip_out:
-            return "atmospheric exit";
-        case EntryEnd::stopped:
-            break;
-    }
-    return "integration stopped";
-}
+constexpr Names<EntryEnd, 4> entry_end_events{{{EntryEnd::deployed, "parachute deploy"},
+                                               {EntryEnd::ground, "ground impact"},
+                                               {EntryEnd::skip_out, "atmospheric exit"},
+                                               {EntryEnd::stopped, "integration stopped"}}};
 
 void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline) {
     std::vector<TimelineEvent>& events = timeline.events;
@@ -378,7 +369,8 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
         event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
     if (f.drogue)
         events.push_back(event_at("drogue deploy", f.drogue->time_s, f.drogue->state));
-    events.push_back(event_at(entry_end_event(f.end), f.end_time_s, f.end_state));
+    events.push_back(
+        event_at(std::string(name_of(entry_end_events, f.end)), f.end_time_s, f.end_state));
     if (jettison_reached(e)) {
         events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
                                   e.descent->jettison_state));
@@ -733,13 +725,8 @@ Results size_design(const Design& design, SizingOptions options) {
         DeceleratorResults d;
         d.diameter_m = design.decelerator->diameter_m;
         d.mass_kg = e.decelerator_kg;
-        d.deployed = e.entry.decelerator.has_value();
-        if (const auto& at = e.entry.decelerator) {
-            d.deploy_time_s = at->time_s;
-            d.deploy_altitude_m = at->state[StateIndex::altitude];
-            d.deploy_mach = at->conditions.mach;
-            d.deploy_dynamic_pressure_Pa = at->conditions.dynamic_pressure_Pa;
-        }
+        if (const auto& at = e.entry.decelerator)
+            set_deployed(d, *at);
         results.decelerator = d;
     }
     if (design.drogue)
