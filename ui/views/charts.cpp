@@ -328,8 +328,8 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
     if (results.entry.radiative_heating == radiative_heating_not_modelled) {
         // A legend entry only: the flux drawn is convective, and the reader should know why.
         auto* note = new QLineSeries;
-        note->setName(QStringLiteral("radiative heating not modelled for this body"));
-        note->setPen(Qt::NoPen);
+        note->setName(QStringLiteral("radiative: not modelled"));
+        note->setColor(Qt::transparent);  // no swatch: a note, not a curve
         attach(c.chart, note, c.time, c.right);
     } else if (radiative) {
         QPen pen = resultPen(secondaryInk);
