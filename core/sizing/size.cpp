@@ -12,6 +12,7 @@
 #include "checks/rule_set.hpp"
 #include "constants.hpp"
 #include "heating/heat_shield_mass.hpp"
+#include "numerics/illinois.hpp"
 #include "results/caution.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
@@ -70,6 +71,32 @@ Closure close_budget(const Design& design, const FlightModel& model) {
 /// The highest site elevation with a timeline margin of zero or more, on the evaluation's own
 /// descent (the masses held at their closed values). The descent reaches the design's site;
 /// only when the design cannot land there is it flown further down to look below.
+/// Where the timeline margin runs out, by the nominal burn: the site at which separating
+/// `needed` after deploy (less the coast) leaves the nominal separation height above it, and the
+/// descent's speed there (the margin's slope against the site is about -1/v).
+struct CapabilityGuess {
+    double site_m = 0.0;
+    double descent_speed_m_s = 0.0;
+};
+
+std::optional<CapabilityGuess> capability_guess(const Design& design, const FlightModel& model,
+                                                const Evaluation& e) {
+    if (!e.burn || !e.burn->stops_in_time || !e.descent)
+        return std::nullopt;
+    const auto nominal = timeline_margin(design, model, e, design.site.elevation_m);
+    if (!nominal)
+        return std::nullopt;
+    const DescentFlight& d = *e.descent;
+    const double t_separation =
+        d.deploy_time_s + nominal->needed_s - design.sequence.separation_coast_s;
+    if (!(t_separation > d.record.start_time() && t_separation < d.record.end_time()))
+        return std::nullopt;
+    const double separation_height =
+        e.burn->separation_state[StateIndex::altitude] - design.site.elevation_m;
+    const FlightState at = d.record.state_at(t_separation);
+    return CapabilityGuess{at[StateIndex::altitude] - separation_height, speed(at)};
+}
+
 std::optional<double> max_site_elevation(const Design& design, const FlightModel& model,
                                          const Evaluation& evaluation) {
     if (!evaluation.descent || !evaluation.descent->jettisoned ||
@@ -99,14 +126,43 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         evaluation.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
     if (!(high > low))
         return std::nullopt;
-    const double margin_high = margin_at(high);
-    if (margin_high >= 0.0)
-        return high;
-    std::uintmax_t iterations = 60;
-    const auto close = [](double a, double b) { return b - a <= capability_tolerance_m; };
-    return boost::math::tools::toms748_solve(margin_at, low, high, margin_low, margin_high, close,
-                                             iterations)
-        .first;
+
+    // Two guided points first: the margin runs out where the separation comes `needed` after
+    // deploy, and the nominal burn separates at about the same height above any site (it needs
+    // the same distance to stop); then the margin falls by about 1/v a metre the site rises.
+    double stops = low;  // the highest site known to close the timeline, and its margin
+    double stops_margin = margin_low;
+    std::optional<double> fails;  // the lowest known not to, and its margin
+    double fails_margin = 0.0;
+    const auto try_site = [&](double site) {
+        const double m = margin_at(site);
+        if (m >= 0.0 && site > stops) {
+            stops = site;
+            stops_margin = m;
+        } else if (m < 0.0 && (!fails || site < *fails)) {
+            fails = site;
+            fails_margin = m;
+        }
+        return m;
+    };
+    if (const auto guess = capability_guess(design, model, *e)) {
+        const double inside = capability_tolerance_m;
+        const double first = std::clamp(guess->site_m, low + inside, high - inside);
+        const double m = try_site(first);
+        const double second =
+            std::clamp(first + m * guess->descent_speed_m_s, low + inside, high - inside);
+        if (std::abs(second - first) > inside)
+            try_site(second);
+    }
+    if (!fails) {
+        const double margin_high = margin_at(high);
+        if (margin_high >= 0.0)
+            return high;
+        fails = high;
+        fails_margin = margin_high;
+    }
+    return illinois_last_nonnegative(margin_at, stops, stops_margin, *fails, fails_margin,
+                                     capability_tolerance_m);
 }
 
 Check flight_check(std::string id, CheckStatus status, double value, double limit, std::string unit,

@@ -10,6 +10,7 @@
 #include <boost/math/tools/toms748_solve.hpp>
 
 #include "constants.hpp"
+#include "numerics/illinois.hpp"
 
 namespace ds {
 namespace {
@@ -176,47 +177,6 @@ std::optional<double> walk_back(const std::function<double(double)>& miss_at, do
     return std::nullopt;
 }
 
-/// The latest separation that stops in time, to the tolerance, from a bracket of flown misses:
-/// the Illinois method (regula falsi that halves the value kept twice on one side), which
-/// converges superlinearly on the nearly linear miss. Done when the bracket is within the
-/// tolerance, or when the stopping end's miss is below what the tolerance's worth of
-/// separation time moves it by (the root is then within the tolerance of that end).
-double solve_in_bracket(const std::function<double(double)>& miss_at, const Bracket& b,
-                        double tolerance) {
-    double a = b.stops_at;
-    double c = b.late;
-    double miss_a = *b.stopping_miss;  // the flown misses at the two ends
-    double miss_c = b.late_miss;
-    double weight_a = miss_a;  // the values the interpolation uses (halved by Illinois)
-    double weight_c = miss_c;
-    int kept = 0;  // +1: the last two flights stopped; -1: both were late
-    constexpr int most_flights = 60;
-    for (int flight = 0; flight < most_flights && c - a > tolerance; ++flight) {
-        const double slope = (miss_a - miss_c) / (c - a);
-        if (miss_a <= slope * tolerance)
-            break;
-        double t = (a * weight_c - c * weight_a) / (weight_c - weight_a);
-        if (!(t > a && t < c))
-            t = 0.5 * (a + c);
-        t = std::clamp(t, a + 0.25 * tolerance, c - 0.25 * tolerance);
-        const double m = miss_at(t);
-        if (m >= 0.0) {
-            a = t;
-            miss_a = weight_a = m;
-            if (kept == 1)
-                weight_c *= 0.5;
-            kept = 1;
-        } else {
-            c = t;
-            miss_c = weight_c = m;
-            if (kept == -1)
-                weight_a *= 0.5;
-            kept = -1;
-        }
-    }
-    return a;
-}
-
 }  // namespace
 
 BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory& descent,
@@ -272,7 +232,8 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
             offset = m - modelled(t_next);
         }
         if (b.stopping_miss) {
-            t_solution = solve_in_bracket(flown_miss, b, tolerance);
+            t_solution = illinois_last_nonnegative(flown_miss, b.stops_at, *b.stopping_miss, b.late,
+                                                   b.late_miss, tolerance);
         } else {
             t_solution = walk_back(flown_miss, earliest, b.late, b.late_miss, tolerance);
         }
