@@ -52,11 +52,19 @@ void write_header(std::string& out, const Design& design, const Results& results
     auto it = std::back_inserter(out);
     fmt::format_to(it, "Descent Sizer: {}\n",
                    design.name.empty() ? "(unnamed design)" : design.name);
+    // The entry state as the design gives it, or as its conic gives it (inertial).
+    const EntryDesign& entry = design.entry;
+    const EntryVelocity& conic = results.entry.interface.inertial;
     fmt::format_to(it,
-                   "body {}, site elevation {:.0f} m, entry {:.0f} m/s at {:.2f} deg from "
+                   "body {}, site elevation {:.0f} m, entry {:.0f} m/s at {:.2f} deg{} from "
                    "{:.0f} m\n",
-                   design.body.body.name, design.site.elevation_m, design.entry.velocity_m_s,
-                   design.entry.flight_path_angle_deg, design.entry.interface_altitude_m);
+                   design.body.body.name, design.site.elevation_m,
+                   entry.from_conic() ? conic.velocity_m_s : entry.velocity_m_s,
+                   entry.from_conic() ? conic.flight_path_angle_deg : entry.flight_path_angle_deg,
+                   entry.approach ? " (inertial, from the approach)"
+                   : entry.orbit  ? " (inertial, from orbit)"
+                                  : "",
+                   entry.interface_altitude_m);
     const std::size_t failing = static_cast<std::size_t>(
         std::count_if(results.checks.begin(), results.checks.end(),
                       [](const Check& c) { return c.status == CheckStatus::fail; }));
@@ -76,6 +84,47 @@ void write_checks(std::string& out, const std::vector<Check>& checks) {
     }
 }
 
+void write_frames(std::string& out, const EntryVelocity& relative, const EntryVelocity& inertial) {
+    for (const auto& [frame, v] :
+         {std::pair<std::string_view, const EntryVelocity&>{"planet-relative", relative},
+          std::pair<std::string_view, const EntryVelocity&>{"inertial", inertial}}) {
+        fmt::format_to(std::back_inserter(out),
+                       "  {:<{}} {:>12.1f} m/s at {:.3f} deg, azimuth {:.3f} deg\n",
+                       fmt::format("entry state, {}", frame), label_width, v.velocity_m_s,
+                       v.flight_path_angle_deg, v.azimuth_deg);
+    }
+}
+
+void write_approach(std::string& out, const ApproachResults& a) {
+    heading(out, "Approach (hyperbolic arrival)");
+    row(out, "excess speed (v infinity)", a.v_infinity_m_s, "m/s", 1);
+    row(out, "semi-major axis", a.semi_major_axis_m * 1e-3, "km", 1);
+    row(out, "eccentricity", a.eccentricity, "", 5);
+    row(out, "periapsis altitude (in vacuum)", a.periapsis_altitude_m, "m", 0);
+    row(out, "impact parameter", a.impact_parameter_m * 1e-3, "km", 1);
+    row(out, "turn angle", a.turn_angle_deg, "deg", 2);
+    row(out, "true anomaly at the interface", a.interface_true_anomaly_deg, "deg", 3);
+    write_frames(out, a.relative, a.inertial);
+}
+
+void write_orbit(std::string& out, const OrbitResults& o) {
+    heading(out, "Deorbit burn");
+    row(out, "orbit periapsis altitude", o.periapsis_altitude_m, "m", 0);
+    row(out, "orbit apoapsis altitude", o.apoapsis_altitude_m, "m", 0);
+    row(out, "speed at apoapsis before the burn", o.speed_before_burn_m_s, "m/s", 2);
+    row(out, "speed at apoapsis after the burn", o.speed_after_burn_m_s, "m/s", 2);
+    row(out, "delta-v (impulsive)", o.delta_v_m_s, "m/s", 2);
+    row(out, "specific impulse", o.isp_s, "s", 0);
+    row(out, "propellant", o.propellant_kg, "kg", 1);
+    row(out, "deorbit stage (dropped before entry)", o.stage_kg, "kg", 1);
+    row(out, "mass before the burn", o.mass_before_burn_kg, "kg", 1);
+    row(out, "transfer periapsis (in vacuum)", o.transfer_periapsis_altitude_m, "m", 0);
+    row(out, "transfer eccentricity", o.transfer_eccentricity, "", 5);
+    row(out, "angle from the burn to the interface", o.transfer_angle_deg, "deg", 2);
+    row(out, "coast from the burn to the interface", o.coast_s, "s", 1);
+    write_frames(out, o.relative, o.inertial);
+}
+
 void write_entry(std::string& out, const EntryResults& e) {
     heading(out, "Entry");
     auto it = std::back_inserter(out);
@@ -83,13 +132,7 @@ void write_entry(std::string& out, const EntryResults& e) {
     fmt::format_to(it, "  {:<{}} {:>12.4f} {:>12.4f} deg{}\n", "interface latitude, longitude",
                    label_width, in.latitude_deg, in.longitude_deg,
                    in.rotation_flown ? "" : " (body flown without rotation)");
-    for (const auto& [frame, v] :
-         {std::pair<std::string_view, const EntryVelocity&>{"planet-relative", in.relative},
-          std::pair<std::string_view, const EntryVelocity&>{"inertial", in.inertial}}) {
-        fmt::format_to(it, "  {:<{}} {:>12.1f} m/s at {:.3f} deg, azimuth {:.3f} deg\n",
-                       fmt::format("entry state, {}", frame), label_width, v.velocity_m_s,
-                       v.flight_path_angle_deg, v.azimuth_deg);
-    }
+    write_frames(out, in.relative, in.inertial);
     row(out, "entry mass", e.mass_kg, "kg", 1);
     row(out, "aeroshell diameter", e.diameter_m, "m", 3);
     row(out, "nose radius", e.nose_radius_m, "m", 3);
@@ -244,6 +287,10 @@ std::string format_summary(const Design& design, const Results& results) {
     std::string out;
     write_header(out, design, results);
     write_checks(out, results.checks);
+    if (results.approach)
+        write_approach(out, *results.approach);
+    if (results.orbit)
+        write_orbit(out, *results.orbit);
     write_entry(out, results.entry);
     if (results.decelerator)
         write_decelerator(out, *results.decelerator);

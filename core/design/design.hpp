@@ -73,10 +73,36 @@ struct SiteDesign {
 /// The frame of the entry state's speed, flight-path angle and azimuth.
 enum class VelocityFrame { relative, inertial };
 
+/// An arrival on a hyperbola: its excess speed, and one of its vacuum periapsis altitude or the
+/// flight-path angle at which it crosses the interface (inertial).
+struct ApproachDesign {
+    double v_infinity_m_s = 0.0;
+    std::optional<double> periapsis_altitude_m;
+    std::optional<double> flight_path_angle_deg;
+
+    bool operator==(const ApproachDesign&) const = default;
+};
+
+/// An entry from orbit: a tangential burn at the orbit's apoapsis lowers its periapsis so that
+/// the vehicle crosses the interface at the flight-path angle wanted (inertial). The burn's
+/// stage ("deorbit stage" items) and propellant leave before the interface.
+struct OrbitDesign {
+    double periapsis_altitude_m = 0.0;
+    double apoapsis_altitude_m = 0.0;
+    double flight_path_angle_deg = 0.0;
+    double isp_s = 0.0;
+
+    bool operator==(const OrbitDesign&) const = default;
+};
+
 struct EntryDesign {
     double interface_altitude_m = 0.0;
-    double velocity_m_s = 0.0;           ///< in velocity_frame
+    /// The entry state at the interface, in velocity_frame; a design with an approach or an
+    /// orbit gives neither (both stay 0): its conic gives the inertial state.
+    double velocity_m_s = 0.0;
     double flight_path_angle_deg = 0.0;  ///< negative below the local horizontal
+    std::optional<ApproachDesign> approach;
+    std::optional<OrbitDesign> orbit;
     double lift_to_drag = 0.0;
     double bank_angle_deg = 0.0;          ///< positive turns the lift to the right of the flight
     std::optional<double> latitude_deg;   ///< of the entry point; default 0
@@ -85,8 +111,12 @@ struct EntryDesign {
     /// flown without rotation, heading east for the ground track and the winds.
     std::optional<double> azimuth_deg;
     /// "relative" (planet-relative, default) or "inertial" (turned into the planet-relative
-    /// state at the interface, v_rel = v_in - w x r).
+    /// state at the interface, v_rel = v_in - w x r). Always inertial with an approach or an
+    /// orbit.
     VelocityFrame velocity_frame = VelocityFrame::relative;
+
+    /// Whether the interface state comes from a conic (an approach or an orbit).
+    bool from_conic() const { return approach.has_value() || orbit.has_value(); }
 
     bool operator==(const EntryDesign&) const = default;
 };
@@ -235,8 +265,9 @@ constexpr Names<TerminalMethod, 4> name_table(TerminalMethod) {
              {TerminalMethod::tethered, "tethered"},
              {TerminalMethod::none, "none"}}};
 }
-constexpr Names<MassGroup, 4> name_table(MassGroup) {
-    return {{{MassGroup::heat_shield, "heat shield"},
+constexpr Names<MassGroup, 5> name_table(MassGroup) {
+    return {{{MassGroup::deorbit_stage, "deorbit stage"},
+             {MassGroup::heat_shield, "heat shield"},
              {MassGroup::backshell, "backshell"},
              {MassGroup::descent_stage, "descent stage"},
              {MassGroup::payload, "payload"}}};

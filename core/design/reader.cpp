@@ -257,6 +257,7 @@ public:
         check_custom_body_gas();
         check_standard_atmosphere();
         check_interface_above_site();
+        check_conic_entry();
         check_table_coverage();
         return design_;
     }
@@ -327,11 +328,15 @@ private:
         }
     }
 
-    /// Reads the schema's keys of a section that are not read yet, in the schema's order.
-    void read_keys(Fields& f, std::string_view section, const Selection& selection) {
+    /// Reads the schema's keys of a section (or of an object of it, `parent`) that are not read
+    /// yet, in the schema's order. Keys an object given stands in place of are refused.
+    void read_keys(Fields& f, std::string_view section, const Selection& selection,
+                   std::string_view parent = {}) {
         std::vector<const KeyGroup*> groups_read;
         for (const KeyRow* row : keys_of(section)) {
-            if (!row->parent.empty() || f.asked(row->key))
+            if (row->parent != parent || f.asked(row->key))
+                continue;
+            if (refuse_replaced(f, *row))
                 continue;
             if (row->group) {
                 if (std::find(groups_read.begin(), groups_read.end(), row->group) ==
@@ -343,6 +348,37 @@ private:
             }
             read_key(f, *row, selection);
         }
+    }
+
+    /// A key given alongside an object that stands in place of it (the interface speed with an
+    /// approach), or an object given with another that stands in place of the same keys, is
+    /// refused; a key an object stands in place of is not missing. Returns whether the key is
+    /// settled so.
+    bool refuse_replaced(Fields& f, const KeyRow& row) {
+        for (const KeyRow* object : replacements_of(row)) {
+            if (!f.has(object->key))
+                continue;
+            if (f.has(row.key)) {
+                f.value(row.key, Need::optional);
+                f.report(row.key, fmt::format("not with {}: it gives the {}", object->key,
+                                              fmt::join(object->replaces, " and ")));
+            }
+            return true;
+        }
+        if (row.kind != KeyKind::object || row.replaces.empty())
+            return false;
+        for (const KeyRow* other :
+             replacements_of(*find_key(fmt::format("{}.{}", row.section, row.replaces.front())))) {
+            if (other == &row)
+                break;
+            if (f.has(other->key) && f.has(row.key)) {
+                f.value(row.key, Need::optional);
+                f.report(row.key,
+                         fmt::format("not with {}: the entry starts from one of them", other->key));
+                return true;
+            }
+        }
+        return false;
     }
 
     /// Reads the alternatives of a group: their values, then whether one (or at most one)
@@ -446,6 +482,14 @@ private:
             case KeyKind::number_or_request:
                 read_number_or_request(f, row, range, asked);
                 break;
+            case KeyKind::object:
+                if (auto object = f.object(key, asked)) {
+                    row.part.add(design_);
+                    read_keys(*object, row.section, selection, row.key);
+                    object->report_unknown();
+                    read_ok_.push_back(&row);
+                }
+                break;
             case KeyKind::by_hand:
                 break;
         }
@@ -462,23 +506,19 @@ private:
         if (!value)
             return;
         const Place place = f.place_of(row.key);
-        std::vector<const KeyRow*> request;
-        for (const KeyRow* key : keys_of(row.section)) {
-            if (key->parent == row.key)
-                request.push_back(key);
-        }
         if (value->is_object()) {
             Fields fields(*value, place, *issues_);
-            for (const KeyRow* key : request)
-                read_key(fields, *key, {});
+            read_keys(fields, row.section, {}, row.key);
             fields.report_unknown();
         } else if (value->is_number()) {
             if (auto v = to_number(*value, place, range, *issues_))
                 set_number(row, *v);
         } else {
             std::vector<std::string> keys;
-            for (const KeyRow* key : request)
-                keys.push_back(fmt::format("\"{}\": ...", key->key));
+            for (const KeyRow* key : keys_of(row.section)) {
+                if (key->parent == row.key)
+                    keys.push_back(fmt::format("\"{}\": ...", key->key));
+            }
             issues_->add(place, fmt::format("must be a number or a sizing request {{{}}}, got {}",
                                             fmt::join(keys, ", "), value->type_name()));
         }
@@ -789,6 +829,11 @@ private:
             if (auto name = f.string("group")) {
                 if (auto group = enum_from<MassGroup>(*name)) {
                     item.group = *group;
+                    if (leaves_before_entry(*group) && !design_.entry.orbit) {
+                        f.report("group", fmt::format("\"{}\" needs entry.orbit: it is the "
+                                                      "stage the deorbit burn drops before entry",
+                                                      *name));
+                    }
                 } else {
                     f.report("group", fmt::format("unknown group \"{}\"; expected one of: {}",
                                                   *name, fmt::join(enum_names<MassGroup>(), ", ")));
@@ -894,6 +939,57 @@ private:
             entry_->report("interface_altitude_m",
                            fmt::format("must be above the site elevation ({} m), got {}", site,
                                        entry_interface));
+        }
+    }
+
+    /// An approach's or an orbit's altitudes against the body and the interface, and its frame.
+    void check_conic_entry() {
+        EntryDesign& entry = design_.entry;
+        if (!entry.from_conic())
+            return;
+        const char* object = entry.approach ? "approach" : "orbit";
+        if (entry_->has("velocity_frame") && read_ok("entry.velocity_frame") &&
+            entry.velocity_frame != VelocityFrame::inertial) {
+            entry_->report("velocity_frame",
+                           fmt::format("must be \"inertial\" with entry.{}: its conic gives the "
+                                       "inertial state (leave the key out)",
+                                       object));
+        }
+        entry.velocity_frame = VelocityFrame::inertial;
+        if (!read_ok("entry.interface_altitude_m"))
+            return;
+        const double interface = entry.interface_altitude_m;
+        const auto report = [&](std::string_view key, std::string message) {
+            issues_->add(entry_->place_of(object).key(key, 0), std::move(message));
+        };
+        if (entry.approach && read_ok("entry.approach.periapsis_altitude_m")) {
+            const double periapsis = *entry.approach->periapsis_altitude_m;
+            const double radius = design_.body.body.radius_m;
+            if (periapsis >= interface) {
+                report("periapsis_altitude_m",
+                       fmt::format("must be below the interface altitude ({} m): the arrival "
+                                   "would miss the atmosphere, got {}",
+                                   interface, periapsis));
+            } else if (radius > 0.0 && periapsis < -radius) {
+                report("periapsis_altitude_m",
+                       fmt::format("must be at least minus the body's radius ({} m), got {}",
+                                   -radius, periapsis));
+            }
+        }
+        if (entry.orbit && read_ok("entry.orbit.periapsis_altitude_m")) {
+            const OrbitDesign& orbit = *entry.orbit;
+            if (orbit.periapsis_altitude_m <= interface) {
+                report("periapsis_altitude_m",
+                       fmt::format("must be above the interface altitude ({} m): the orbit must "
+                                   "stay out of the atmosphere, got {}",
+                                   interface, orbit.periapsis_altitude_m));
+            }
+            if (read_ok("entry.orbit.apoapsis_altitude_m") &&
+                orbit.apoapsis_altitude_m < orbit.periapsis_altitude_m) {
+                report("apoapsis_altitude_m",
+                       fmt::format("must be at least the periapsis altitude ({} m), got {}",
+                                   orbit.periapsis_altitude_m, orbit.apoapsis_altitude_m));
+            }
         }
     }
 

@@ -42,12 +42,12 @@ std::string ValueRange::requirement() const {
 
 std::string KeyRow::path() const {
     std::string path(section);
-    for (const std::string_view part : {parent, key}) {
-        if (part.empty())
+    for (const std::string_view name : {parent, key}) {
+        if (name.empty())
             continue;
         if (!path.empty())
             path += '.';
-        path += part;
+        path += name;
     }
     return path;
 }
@@ -116,6 +116,46 @@ void set_member(Design& design, double value) {
 /// A number member of a section: `member<&Design::entry, &EntryDesign::velocity_m_s>`.
 template <auto section, auto field>
 constexpr NumberAccess member{&get_member<section, field>, &set_member<section, field>};
+
+template <auto section, auto part, auto field>
+std::optional<double> get_nested(const Design& design) {
+    const auto& object = part_of<section>(design)->*part;
+    if (!object)
+        return std::nullopt;
+    return as_number((*object).*field);
+}
+
+template <auto section, auto part, auto field>
+void set_nested(Design& design, double value) {
+    auto& object = part_for<section>(design).*part;
+    if (!object)
+        object.emplace();
+    (*object).*field = value;
+}
+
+/// A number member of an optional object of a section:
+/// `nested<&Design::entry, &EntryDesign::approach, &ApproachDesign::v_infinity_m_s>`.
+template <auto section, auto part, auto field>
+constexpr NumberAccess nested{&get_nested<section, part, field>, &set_nested<section, part, field>};
+
+/// An optional object of a section, as an object key.
+template <auto section, auto part>
+constexpr PartAccess object_part{
+    [](const Design& d) { return (part_of<section>(d)->*part).has_value(); },
+    [](Design& d) {
+        auto& object = part_for<section>(d).*part;
+        if (!object)
+            object.emplace();
+    }};
+
+/// The entry state given at the interface: absent from a design whose conic gives it.
+template <auto field>
+constexpr NumberAccess given_state{[](const Design& d) -> std::optional<double> {
+                                       if (d.entry.from_conic())
+                                           return std::nullopt;
+                                       return d.entry.*field;
+                                   },
+                                   &set_member<&Design::entry, field>};
 
 template <auto section, TriggerKind kind>
 std::optional<double> get_trigger(const Design& design) {
@@ -225,6 +265,15 @@ constexpr std::array airbag_method{TerminalMethod::airbag};
 constexpr std::array tethered_method{TerminalMethod::tethered};
 
 const KeyGroup deploy_trigger{"deploy trigger", true, "Deploy when"};
+const KeyGroup approach_aim{"approach aim", true, "Aimed at"};
+// What an approach or an orbit gives in place of the interface state.
+constexpr std::array<std::string_view, 2> interface_state_keys{"velocity_m_s",
+                                                               "flight_path_angle_deg"};
+// Conic entries: periapsis altitudes down to the centre are admitted by the reader's check
+// against the body's radius; an orbit's altitudes are above the interface by that check too.
+// An interface flight-path angle of an arrival is below the horizontal (it is crossed on the
+// way in).
+constexpr ValueRange inbound_angle{.above = -90.0, .below = 0.0};
 const KeyGroup jettison_rule{"heat-shield jettison rule", false, "Heat-shield jettison"};
 
 constexpr std::array atmosphere_texts{
@@ -443,16 +492,111 @@ const std::array keys{
            .key = "velocity_m_s",
            .range = positive,
            .unit = "m/s",
-           .number = member<&Design::entry, &EntryDesign::velocity_m_s>,
+           .number = given_state<&EntryDesign::velocity_m_s>,
            .label = "Velocity",
-           .typical = {{4500, 7500}}},
+           .typical = {{4500, 7500}},
+           .fallback = 5600,
+           .shape_text = "given at the interface"},
     KeyRow{.section = "entry",
            .key = "flight_path_angle_deg",
            .range = {.above = -90.0, .below = 90.0},
            .unit = "deg",
-           .number = member<&Design::entry, &EntryDesign::flight_path_angle_deg>,
+           .number = given_state<&EntryDesign::flight_path_angle_deg>,
            .label = "Flight-path angle",
-           .typical = {{-18, -10}}},
+           .typical = {{-18, -10}},
+           .fallback = -13.0},
+    KeyRow{.section = "entry",
+           .key = "approach",
+           .kind = KeyKind::object,
+           .need = KeyNeed::optional,
+           .part = object_part<&Design::entry, &EntryDesign::approach>,
+           .replaces = interface_state_keys,
+           .label = "Approach",
+           .shape_text = "from the approach (hyperbolic arrival)"},
+    KeyRow{
+        .section = "entry",
+        .key = "v_infinity_m_s",
+        .parent = "approach",
+        .range = positive,
+        .unit = "m/s",
+        .number = nested<&Design::entry, &EntryDesign::approach, &ApproachDesign::v_infinity_m_s>,
+        .label = "Arrival excess speed",
+        .typical = {{2000, 7000}},
+        .fallback = 3000},
+    KeyRow{
+        .section = "entry",
+        .key = "periapsis_altitude_m",
+        .parent = "approach",
+        .need = KeyNeed::optional,
+        .range = any_finite,
+        .unit = "m",
+        .number =
+            nested<&Design::entry, &EntryDesign::approach, &ApproachDesign::periapsis_altitude_m>,
+        .group = &approach_aim,
+        .label = "Vacuum periapsis altitude",
+        .typical = {{-50000, 60000}},
+        .fallback = 20000,
+        .shape_text = "a vacuum periapsis"},
+    KeyRow{
+        .section = "entry",
+        .key = "flight_path_angle_deg",
+        .parent = "approach",
+        .need = KeyNeed::optional,
+        .range = inbound_angle,
+        .unit = "deg",
+        .number =
+            nested<&Design::entry, &EntryDesign::approach, &ApproachDesign::flight_path_angle_deg>,
+        .group = &approach_aim,
+        .label = "Interface flight-path angle (inertial)",
+        .typical = {{-18, -10}},
+        .fallback = -12.0,
+        .shape_text = "a flight-path angle at the interface"},
+    KeyRow{.section = "entry",
+           .key = "orbit",
+           .kind = KeyKind::object,
+           .need = KeyNeed::optional,
+           .part = object_part<&Design::entry, &EntryDesign::orbit>,
+           .replaces = interface_state_keys,
+           .label = "Orbit",
+           .shape_text = "from orbit (deorbit burn)"},
+    KeyRow{
+        .section = "entry",
+        .key = "periapsis_altitude_m",
+        .parent = "orbit",
+        .range = positive,
+        .unit = "m",
+        .number = nested<&Design::entry, &EntryDesign::orbit, &OrbitDesign::periapsis_altitude_m>,
+        .label = "Orbit periapsis altitude",
+        .typical = {{200000, 500000}},
+        .fallback = 300000},
+    KeyRow{.section = "entry",
+           .key = "apoapsis_altitude_m",
+           .parent = "orbit",
+           .range = positive,
+           .unit = "m",
+           .number = nested<&Design::entry, &EntryDesign::orbit, &OrbitDesign::apoapsis_altitude_m>,
+           .label = "Orbit apoapsis altitude",
+           .typical = {{200000, 2000000}},
+           .fallback = 300000},
+    KeyRow{
+        .section = "entry",
+        .key = "flight_path_angle_deg",
+        .parent = "orbit",
+        .range = inbound_angle,
+        .unit = "deg",
+        .number = nested<&Design::entry, &EntryDesign::orbit, &OrbitDesign::flight_path_angle_deg>,
+        .label = "Interface flight-path angle wanted (inertial)",
+        .typical = {{-18, -10}},
+        .fallback = -12.0},
+    KeyRow{.section = "entry",
+           .key = "isp_s",
+           .parent = "orbit",
+           .range = positive,
+           .unit = "s",
+           .number = nested<&Design::entry, &EntryDesign::orbit, &OrbitDesign::isp_s>,
+           .label = "Deorbit specific impulse",
+           .typical = {{210, 325}},
+           .fallback = 220},
     KeyRow{.section = "entry",
            .key = "lift_to_drag",
            .need = KeyNeed::defaulted,
@@ -1060,6 +1204,18 @@ const KeyRow* find_key(std::string_view path) {
             return &row;
     }
     return nullptr;
+}
+
+std::vector<const KeyRow*> replacements_of(const KeyRow& row) {
+    std::vector<const KeyRow*> found;
+    for (const KeyRow& object : keys) {
+        if (object.section == row.section && object.parent == row.parent &&
+            std::find(object.replaces.begin(), object.replaces.end(), row.key) !=
+                object.replaces.end()) {
+            found.push_back(&object);
+        }
+    }
+    return found;
 }
 
 std::string label_of(const KeyRow& row) {

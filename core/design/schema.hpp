@@ -37,6 +37,7 @@ enum class KeyKind {
     choice,             ///< one of the names of a table ("retro", "disk-gap-band")
     text,               ///< free text
     number_or_request,  ///< a number, or a sizing request: an object of the rows whose parent it is
+    object,   ///< an object of the rows whose parent it is, which the design may lack (an approach)
     by_hand,  ///< read and written by hand (table rows, mass items); the row gives its place
 };
 
@@ -58,6 +59,12 @@ struct NumberAccess {
 struct TextAccess {
     std::string_view (*get)(const Design&) = nullptr;
     bool (*set)(Design&, std::string_view) = nullptr;
+};
+
+/// Where an object key lives (entry.approach): whether the design has it, and adding it.
+struct PartAccess {
+    bool (*present)(const Design&) = nullptr;
+    void (*add)(Design&) = nullptr;
 };
 
 /// Keys of which a document gives one (a deploy trigger: exactly one) or at most one (the
@@ -104,6 +111,11 @@ struct KeyRow {
     std::optional<double> default_value;
     NumberAccess number;  ///< number, integer and number_or_request keys
     TextAccess text;      ///< choice and text keys
+    PartAccess part;      ///< object keys
+    /// The keys of its object that an object key stands in place of (the interface speed and
+    /// angle, for an approach): given with it they are refused, and without them they are not
+    /// missing. Two objects that stand in place of the same keys exclude each other.
+    std::span<const std::string_view> replaces;
     /// A choice's names, from the one name table of its enumeration.
     std::vector<std::string_view> (*choices)() = nullptr;
     /// The atmosphere model the key belongs to; empty: every model.
@@ -166,6 +178,10 @@ std::span<const KeyRow> design_keys();
 std::vector<const KeyRow*> keys_of(std::string_view section);
 /// The row of a key path ("entry.velocity_m_s"), or null.
 const KeyRow* find_key(std::string_view path);
+
+/// The object keys given in place of a key of the same object ("velocity_m_s" for
+/// "entry.approach" and "entry.orbit"), in order.
+std::vector<const KeyRow*> replacements_of(const KeyRow& row);
 
 /// The label the form shows for a key: its label, or its key with spaces.
 std::string label_of(const KeyRow& row);

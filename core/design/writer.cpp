@@ -112,11 +112,13 @@ Json number_or_request(const KeyRow& row, const Design& design) {
     return value ? number(*value) : Json(nullptr);
 }
 
-/// The keys of one section (empty: the top level) in the schema's order, each when the design
-/// has it: defaulted keys always, optional keys only when given.
-void put_keys(Json& out, std::string_view section, const Design& design) {
+/// The keys of one section (empty: the top level), or of an object of it (`parent`), in the
+/// schema's order, each when the design has it: defaulted keys always, optional keys only when
+/// given.
+void put_keys(Json& out, std::string_view section, const Design& design,
+              std::string_view parent = {}) {
     for (const KeyRow* row : keys_of(section)) {
-        if (!row->parent.empty() || !belongs(*row, design))
+        if (row->parent != parent || !belongs(*row, design))
             continue;
         const std::string key(row->key);
         switch (row->kind) {
@@ -134,6 +136,13 @@ void put_keys(Json& out, std::string_view section, const Design& design) {
                 break;
             case KeyKind::number_or_request:
                 out[key] = number_or_request(*row, design);
+                break;
+            case KeyKind::object:
+                if (row->part.present(design)) {
+                    Json object = Json::object();
+                    put_keys(object, section, design, row->key);
+                    out[key] = std::move(object);
+                }
                 break;
             case KeyKind::by_hand:
                 if (section == "atmosphere")

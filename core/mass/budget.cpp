@@ -36,6 +36,15 @@ double MassBudget::total_kg() const {
     return sum;
 }
 
+double MassBudget::entry_kg() const {
+    double sum = 0.0;
+    for (const MassItem& item : items_) {
+        if (!leaves_before_entry(item.group))
+            sum += item.mass_kg;
+    }
+    return sum;
+}
+
 double MassBudget::group_kg(MassGroup group) const {
     double sum = 0.0;
     for (const MassItem& item : items_) {

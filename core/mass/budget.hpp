@@ -23,6 +23,9 @@ public:
     void add_computed(std::string name, double mass_kg, MassGroup group, std::string source);
 
     double total_kg() const;
+    /// What is still on the vehicle at the entry interface: the total less the groups that
+    /// leave before it (the deorbit stage).
+    double entry_kg() const;
     double group_kg(MassGroup group) const;
 
     const std::vector<MassItem>& items() const { return items_; }

@@ -46,6 +46,41 @@ struct EntryInterface {
     EntryVelocity inertial;
 };
 
+/// The hyperbolic arrival the entry starts from (entry.approach), and the interface state it
+/// gives in both frames (the same as entry.interface's).
+struct ApproachResults {
+    double v_infinity_m_s = 0.0;
+    double semi_major_axis_m = 0.0;  ///< negative: a hyperbola
+    double eccentricity = 0.0;
+    double periapsis_altitude_m = 0.0;        ///< in vacuum: the atmosphere cuts the conic short
+    double impact_parameter_m = 0.0;          ///< the asymptote's miss distance from the centre
+    double turn_angle_deg = 0.0;              ///< between the asymptotes
+    double interface_true_anomaly_deg = 0.0;  ///< negative: before periapsis
+    EntryVelocity inertial;
+    EntryVelocity relative;
+};
+
+/// The orbit the entry starts from (entry.orbit), the deorbit burn at its apoapsis, the
+/// transfer to the interface, and the interface state in both frames.
+struct OrbitResults {
+    double periapsis_altitude_m = 0.0;  ///< of the orbit before the burn
+    double apoapsis_altitude_m = 0.0;
+    double speed_before_burn_m_s = 0.0;  ///< inertial, at apoapsis
+    double speed_after_burn_m_s = 0.0;
+    double delta_v_m_s = 0.0;  ///< impulsive, tangential
+    double isp_s = 0.0;
+    double propellant_kg = 0.0;        ///< burned: the rocket equation on the stack
+    double stage_kg = 0.0;             ///< the deorbit stage dropped before entry, propellant in
+    double mass_before_burn_kg = 0.0;  ///< entry mass plus the stage
+    double transfer_periapsis_altitude_m = 0.0;  ///< of the transfer ellipse, in vacuum
+    double transfer_eccentricity = 0.0;
+    double transfer_angle_deg = 0.0;  ///< about the centre, from the burn to the interface
+    double coast_s = 0.0;             ///< from the burn to the interface
+    double interface_true_anomaly_deg = 0.0;
+    EntryVelocity inertial;
+    EntryVelocity relative;
+};
+
 /// What the results say of the radiative heating of a body that has no correlation for it.
 inline constexpr std::string_view radiative_heating_not_modelled = "not modelled";
 
@@ -198,6 +233,8 @@ struct Capability {
 struct Results {
     int version = results_format_version;
     bool converged = false;
+    std::optional<ApproachResults> approach;  ///< with entry.approach
+    std::optional<OrbitResults> orbit;        ///< with entry.orbit
     EntryResults entry;
     std::optional<DeceleratorResults> decelerator;
     /// The drogue, when the design has one: its deploy, opening load and mass (the fields of the

@@ -45,6 +45,47 @@ Json interface_to_json(const EntryInterface& i) {
     return out;
 }
 
+/// The arrival, or null for a design without one.
+Json approach_to_json(const std::optional<ApproachResults>& approach) {
+    if (!approach)
+        return nullptr;
+    Json out;
+    out["v_infinity_m_s"] = number(approach->v_infinity_m_s);
+    out["semi_major_axis_m"] = number(approach->semi_major_axis_m);
+    out["eccentricity"] = number(approach->eccentricity);
+    out["periapsis_altitude_m"] = number(approach->periapsis_altitude_m);
+    out["impact_parameter_m"] = number(approach->impact_parameter_m);
+    out["turn_angle_deg"] = number(approach->turn_angle_deg);
+    out["interface_true_anomaly_deg"] = number(approach->interface_true_anomaly_deg);
+    out["inertial"] = entry_velocity_to_json(approach->inertial);
+    out["relative"] = entry_velocity_to_json(approach->relative);
+    return out;
+}
+
+/// The orbit and its deorbit burn, or null for a design without one.
+Json orbit_to_json(const std::optional<OrbitResults>& orbit) {
+    if (!orbit)
+        return nullptr;
+    Json out;
+    out["periapsis_altitude_m"] = number(orbit->periapsis_altitude_m);
+    out["apoapsis_altitude_m"] = number(orbit->apoapsis_altitude_m);
+    out["speed_before_burn_m_s"] = number(orbit->speed_before_burn_m_s);
+    out["speed_after_burn_m_s"] = number(orbit->speed_after_burn_m_s);
+    out["delta_v_m_s"] = number(orbit->delta_v_m_s);
+    out["isp_s"] = number(orbit->isp_s);
+    out["propellant_kg"] = number(orbit->propellant_kg);
+    out["stage_kg"] = number(orbit->stage_kg);
+    out["mass_before_burn_kg"] = number(orbit->mass_before_burn_kg);
+    out["transfer_periapsis_altitude_m"] = number(orbit->transfer_periapsis_altitude_m);
+    out["transfer_eccentricity"] = number(orbit->transfer_eccentricity);
+    out["transfer_angle_deg"] = number(orbit->transfer_angle_deg);
+    out["coast_s"] = number(orbit->coast_s);
+    out["interface_true_anomaly_deg"] = number(orbit->interface_true_anomaly_deg);
+    out["inertial"] = entry_velocity_to_json(orbit->inertial);
+    out["relative"] = entry_velocity_to_json(orbit->relative);
+    return out;
+}
+
 Json entry_to_json(const EntryResults& entry) {
     Json out;
     out["mass_kg"] = number(entry.mass_kg);
@@ -213,6 +254,8 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
     out["format"] = results_format_id;
     out["version"] = results_format_version;
     out["converged"] = results.converged;
+    out["approach"] = approach_to_json(results.approach);
+    out["orbit"] = orbit_to_json(results.orbit);
     out["entry"] = entry_to_json(results.entry);
     // The decelerator and the drogue: null without one.
     out["decelerator"] = object_or_null(results.decelerator, decelerator_to_json);

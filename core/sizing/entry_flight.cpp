@@ -7,6 +7,7 @@
 #include "aeroshell/sphere_cone.hpp"
 #include "constants.hpp"
 #include "parachute/canopy.hpp"
+#include "sizing/entry_conic.hpp"
 #include "sizing/environment.hpp"
 
 namespace ds {
@@ -65,16 +66,24 @@ InterfaceState interface_state(const Design& design, const Body& flown_body) {
                  degrees_to_radians(e.longitude_deg.value_or(0.0))};
     out.altitude_m = e.interface_altitude_m;
     out.rotation_flown = e.azimuth_deg.has_value() && flown_body.rotation_rad_s != 0.0;
-    const double gamma = degrees_to_radians(e.flight_path_angle_deg);
+    // The state given, or the inertial one of the approach's or the orbit's conic.
+    double v = e.velocity_m_s;
+    double gamma = degrees_to_radians(e.flight_path_angle_deg);
+    bool inertial = e.velocity_frame == VelocityFrame::inertial;
+    if (const auto conic = entry_conic(design, flown_body)) {
+        v = conic->speed_m_s;
+        gamma = conic->flight_path_angle_rad;
+        inertial = true;
+    }
     const double azimuth = degrees_to_radians(e.azimuth_deg.value_or(default_entry_azimuth_deg));
-    const double east = e.velocity_m_s * std::cos(gamma) * std::sin(azimuth);
-    const double north = e.velocity_m_s * std::cos(gamma) * std::cos(azimuth);
-    const double up = e.velocity_m_s * std::sin(gamma);
+    const double east = v * std::cos(gamma) * std::sin(azimuth);
+    const double north = v * std::cos(gamma) * std::cos(azimuth);
+    const double up = v * std::sin(gamma);
     // w x r at the entry point: the body's surface speed there, to the east.
     const double carried = flown_body.rotation_rad_s * (flown_body.radius_m + out.altitude_m) *
                            std::cos(out.point.latitude_rad);
     const SpeedAndAngles given = speed_and_angles(east, north, up);
-    if (e.velocity_frame == VelocityFrame::inertial) {
+    if (inertial) {
         out.inertial = given;
         out.relative = speed_and_angles(east - carried, north, up);
     } else {

@@ -76,6 +76,19 @@ void add_drop_masses(const Design& design, Evaluation& e, double aeroshell_area_
     });
 }
 
+/// The deorbit burn's propellant, into the deorbit stage: burned from the stack of the entry
+/// vehicle and the stage's own items (the design's, in that group), which the burn pushes too.
+void add_deorbit_propellant(const Design& design, Evaluation& e) {
+    const OrbitDesign& orbit = *design.entry.orbit;
+    const double delta_v = e.conic->deorbit->delta_v_m_s;
+    const double stage_dry = e.budget.group_kg(MassGroup::deorbit_stage);
+    e.deorbit_propellant_kg = deorbit_propellant_kg(e.entry_kg + stage_dry, delta_v, orbit.isp_s);
+    e.budget.add_computed("deorbit propellant", e.deorbit_propellant_kg, MassGroup::deorbit_stage,
+                          fmt::format("rocket equation: {:.2f} m/s at apoapsis, Isp {:.0f} s, "
+                                      "impulsive, no reserve",
+                                      delta_v, orbit.isp_s));
+}
+
 /// Orders of the slow manifold a canopy is sized on: within 1e-5 of the flown speed under a
 /// canopy on Mars, where the first order is 0.3 % off.
 constexpr int sizing_equilibrium_orders = 4;
@@ -340,6 +353,9 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     for (const MassItemDesign& item : design.mass.items)
         e.budget.add_item(item.name, item.mass_kg, item.group, item.maturity);
     e.entry.interface = interface_state(design, model.body);  // reported even when not flown
+    e.conic = entry_conic(design, model.body);
+    if (e.conic && e.conic->deorbit)
+        add_deorbit_propellant(design, e);
     if (e.aeroshell.diameter_m <= 0.0)
         return e;
 
@@ -399,7 +415,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
         }
     }
     if (design.mass.entry_kg) {
-        e.unallocated_kg = entry_kg - e.budget.total_kg();
+        e.unallocated_kg = entry_kg - e.budget.entry_kg();
         e.budget.add_computed("unallocated (entry mass less the budget)", *e.unallocated_kg,
                               MassGroup::payload, "entry mass fixed by the design");
     }

@@ -6,6 +6,7 @@
 #include "mass/budget.hpp"
 #include "parachute/canopy.hpp"
 #include "sizing/descent_flight.hpp"
+#include "sizing/entry_conic.hpp"
 #include "sizing/entry_flight.hpp"
 #include "sizing/terminal_burn.hpp"
 
@@ -22,6 +23,10 @@ struct Evaluation {
     CanopyType canopy;
     double canopy_drag_coefficient = 0.0;
     double canopy_diameter_m = 0.0;  ///< 0: the sizing request has no solution
+
+    /// The approach's or the orbit's conic, when the entry starts from one.
+    std::optional<EntryConic> conic;
+    double deorbit_propellant_kg = 0.0;  ///< with an orbit
 
     MassBudget budget;
     // The lumps of the budget as flown (given, or estimated with growth), besides the design's
@@ -61,8 +66,9 @@ struct Evaluation {
 
     std::vector<TrajectorySample> history;
 
-    /// The entry mass the budget adds up to: what the closure drives to entry_kg.
-    double budget_kg() const { return budget.total_kg(); }
+    /// The entry mass the budget adds up to (without the deorbit stage, which leaves before
+    /// the interface): what the closure drives to entry_kg.
+    double budget_kg() const { return budget.entry_kg(); }
 };
 
 /// When the design cannot land at its own site, the highest feasible site is looked for down

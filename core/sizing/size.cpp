@@ -42,8 +42,10 @@ struct Closure {
 /// r(m) = budget(m) - m, started with one fixed-point step.
 Closure close_budget(const Design& design, const FlightModel& model) {
     double itemised = 0.0;
-    for (const MassItemDesign& item : design.mass.items)
-        itemised += item.mass_kg;
+    for (const MassItemDesign& item : design.mass.items) {
+        if (!leaves_before_entry(item.group))
+            itemised += item.mass_kg;
+    }
     double m0 = itemised / first_guess_itemised_share;
     Closure c{evaluate(design, model, m0), {}};
     double r0 = c.evaluation.budget_kg() - m0;
@@ -410,9 +412,36 @@ constexpr Names<EntryEnd, 4> entry_end_events{{{EntryEnd::deployed, "parachute d
                                                {EntryEnd::skip_out, "atmospheric exit"},
                                                {EntryEnd::stopped, "integration stopped"}}};
 
-void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline) {
+/// The deorbit burn, a coast before the interface: at the orbit's apoapsis, the transfer angle
+/// back along the inertial great circle through the entry point, where the body stood then
+/// (it turns under the orbit during the coast). Its speed is the planet-relative one after the
+/// burn, as every event's.
+TimelineEvent deorbit_event(const Evaluation& e, const Body& body) {
+    const DeorbitBurn& burn = *e.conic->deorbit;
+    const InterfaceState& entry = e.entry.interface;
+    const GroundPoint at_burn = destination(entry.point, entry.inertial.azimuth_rad + pi,
+                                            burn.transfer_angle_rad * body.radius_m, body.radius_m);
+    const double heading = initial_azimuth_rad(at_burn, entry.point);
+    const double carried =
+        body.rotation_rad_s * burn.orbit_apoapsis_radius_m * std::cos(at_burn.latitude_rad);
+    const double v = burn.speed_after_m_s;
+    TimelineEvent event{{},
+                        "deorbit burn",
+                        -burn.coast_s,
+                        burn.orbit_apoapsis_radius_m - body.radius_m,
+                        std::hypot(v * std::sin(heading) - carried, v * std::cos(heading))};
+    event.latitude_deg = radians_to_degrees(at_burn.latitude_rad);
+    event.longitude_deg =
+        radians_to_degrees(at_burn.longitude_rad + body.rotation_rad_s * burn.coast_s);
+    return event;
+}
+
+void fill_timeline(const Evaluation& e, const Design& design, const Body& body,
+                   Timeline& timeline) {
     std::vector<TimelineEvent>& events = timeline.events;
     const EntryFlight& f = e.entry;
+    if (e.conic && e.conic->deorbit)
+        events.push_back(deorbit_event(e, body));
     events.push_back(event_at("entry interface", 0.0, f.start));
     if (e.aeroshell.diameter_m <= 0.0)
         return;
@@ -450,6 +479,48 @@ void fill_timeline(const Evaluation& e, const Design& design, Timeline& timeline
     std::stable_sort(
         events.begin(), events.end(),
         [](const TimelineEvent& a, const TimelineEvent& b) { return a.time_s < b.time_s; });
+}
+
+/// The approach's or the orbit's figures, with the interface state in both frames (the
+/// entry's, filled before).
+void fill_conic(const Evaluation& e, const Design& design, const Body& body, Results& results) {
+    if (!e.conic)
+        return;
+    const EntryInterface& at = results.entry.interface;
+    const double radius = body.radius_m;
+    if (const auto& a = e.conic->arrival) {
+        ApproachResults r;
+        r.v_infinity_m_s = a->v_infinity_m_s;
+        r.semi_major_axis_m = a->semi_major_axis_m;
+        r.eccentricity = a->eccentricity;
+        r.periapsis_altitude_m = a->periapsis_radius_m - radius;
+        r.impact_parameter_m = a->impact_parameter_m;
+        r.turn_angle_deg = radians_to_degrees(a->turn_angle_rad);
+        r.interface_true_anomaly_deg = radians_to_degrees(a->interface_true_anomaly_rad);
+        r.inertial = at.inertial;
+        r.relative = at.relative;
+        results.approach = r;
+    }
+    if (const auto& b = e.conic->deorbit) {
+        OrbitResults r;
+        r.periapsis_altitude_m = b->orbit_periapsis_radius_m - radius;
+        r.apoapsis_altitude_m = b->orbit_apoapsis_radius_m - radius;
+        r.speed_before_burn_m_s = b->speed_before_m_s;
+        r.speed_after_burn_m_s = b->speed_after_m_s;
+        r.delta_v_m_s = b->delta_v_m_s;
+        r.isp_s = design.entry.orbit->isp_s;
+        r.propellant_kg = e.deorbit_propellant_kg;
+        r.stage_kg = e.budget.group_kg(MassGroup::deorbit_stage);
+        r.mass_before_burn_kg = e.entry_kg + r.stage_kg;
+        r.transfer_periapsis_altitude_m = b->transfer_periapsis_radius_m - radius;
+        r.transfer_eccentricity = b->transfer_eccentricity;
+        r.transfer_angle_deg = radians_to_degrees(b->transfer_angle_rad);
+        r.coast_s = b->coast_s;
+        r.interface_true_anomaly_deg = radians_to_degrees(b->interface_true_anomaly_rad);
+        r.inertial = at.inertial;
+        r.relative = at.relative;
+        results.orbit = r;
+    }
 }
 
 /// The heat shield's jettison, when it does not come before the lander leaves: never in the
@@ -716,12 +787,21 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
         results.notes.push_back(fmt::format(
             "The body's rotation is flown: the entry state is {:.1f} m/s at {:.2f} deg, azimuth "
             "{:.2f} deg planet-relative, {:.1f} m/s at {:.2f} deg, azimuth {:.2f} deg inertial "
-            "({} given).",
+            "({}).",
             entry.relative.speed_m_s, radians_to_degrees(entry.relative.flight_path_angle_rad),
             radians_to_degrees(entry.relative.azimuth_rad), entry.inertial.speed_m_s,
             radians_to_degrees(entry.inertial.flight_path_angle_rad),
             radians_to_degrees(entry.inertial.azimuth_rad),
-            to_string(design.entry.velocity_frame)));
+            design.entry.approach ? "the approach's conic gives the inertial one"
+            : design.entry.orbit
+                ? "the deorbit burn's conic gives the inertial one"
+                : fmt::format("{} given", to_string(design.entry.velocity_frame))));
+    }
+    if (design.entry.orbit) {
+        results.notes.push_back(
+            "The deorbit burn is impulsive and tangential at the orbit's apoapsis; its stage "
+            "(the design's \"deorbit stage\" items and the burn's propellant) leaves before the "
+            "interface and is not part of the entry mass.");
     }
 }
 
@@ -789,7 +869,8 @@ Results size_design(const Design& design, SizingOptions options) {
         results.drogue = drogue_results(e, *design.drogue);
     fill_parachute(e, model, results.parachute);
     fill_terminal(e, design, results.terminal);
-    fill_timeline(e, design, results.timeline);
+    fill_conic(e, design, model.body, results);
+    fill_timeline(e, design, model.body, results.timeline);
     if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {
         results.timeline.margin_s = margin->margin_s;
         results.timeline.available_s = margin->available_s;

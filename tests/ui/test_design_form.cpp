@@ -281,6 +281,47 @@ private slots:
         QVERIFY(document.design().has_value());
     }
 
+    void theEntryStartsAtTheInterfaceFromTheApproachOrFromOrbit() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        QComboBox* start = shape(form, "/entry#start");
+        QVERIFY(start);
+        QCOMPARE(start->count(), 3);
+        QCOMPARE(start->currentIndex(), 0);
+        QVERIFY(shown(form, "/entry/velocity_m_s"));
+        QVERIFY(!shown(form, "/entry/approach/v_infinity_m_s"));
+
+        // From the approach: the speed and angle go, the approach comes with its fallbacks and
+        // the first of its aims, and the inertial frame is the reader's.
+        start->setCurrentIndex(1);
+        QVERIFY(document.value("/entry/velocity_m_s").is_null());
+        QVERIFY(document.value("/entry/flight_path_angle_deg").is_null());
+        QVERIFY(document.value("/entry/approach") ==
+                (Json{{"v_infinity_m_s", 3000.0}, {"periapsis_altitude_m", 20000.0}}));
+        QVERIFY2(document.design().has_value(), "the approach reads");
+        QCOMPARE(document.design()->entry.velocity_frame, VelocityFrame::inertial);
+        QVERIFY(shown(form, "/entry/approach/v_infinity_m_s"));
+        QVERIFY(shown(form, "/entry/approach/periapsis_altitude_m"));
+        QVERIFY(!shown(form, "/entry/approach/flight_path_angle_deg"));
+        QVERIFY(!shown(form, "/entry/velocity_m_s"));
+        shape(form, "/entry#approach aim")->setCurrentIndex(1);
+        QCOMPARE(document.value("/entry/approach/flight_path_angle_deg").get<double>(), -12.0);
+        QVERIFY(document.design().has_value());
+
+        // From orbit, then back to a state at the interface.
+        start->setCurrentIndex(2);
+        QVERIFY(document.value("/entry/approach").is_null());
+        QVERIFY(shown(form, "/entry/orbit/isp_s"));
+        QVERIFY2(document.design().has_value(), "the orbit reads");
+        QVERIFY(document.design()->entry.orbit.has_value());
+        start->setCurrentIndex(0);
+        QVERIFY(document.value("/entry/orbit").is_null());
+        QCOMPARE(document.value("/entry/velocity_m_s").get<double>(), 5600.0);
+        QVERIFY(document.design().has_value());
+    }
+
     void everyCheckPointsAtAField() {
         DesignDocument document;
         QString error;

@@ -141,6 +141,45 @@ QString keyFiguresSection(const Results& results) {
     return section(QStringLiteral("Key figures"), table.html());
 }
 
+QString entryStartSection(const Results& results) {
+    if (!results.approach && !results.orbit)
+        return {};
+    HtmlTable table({QStringLiteral("figure"), QStringLiteral("value"), QStringLiteral("unit")});
+    const auto add = [&](const char* label, double value, int decimals, const char* unit) {
+        table.addRow({{QString::fromUtf8(label), {}},
+                      {formatFixed(value, decimals), numberCell},
+                      {QString::fromUtf8(unit), {}}});
+    };
+    const auto frames = [&](const EntryVelocity& relative, const EntryVelocity& inertial) {
+        add("interface speed, planet-relative", relative.velocity_m_s, 1, "m/s");
+        add("interface flight-path angle, planet-relative", relative.flight_path_angle_deg, 3,
+            "deg");
+        add("interface speed, inertial", inertial.velocity_m_s, 1, "m/s");
+        add("interface flight-path angle, inertial", inertial.flight_path_angle_deg, 3, "deg");
+    };
+    if (const auto& a = results.approach) {
+        add("excess speed (v infinity)", a->v_infinity_m_s, 1, "m/s");
+        add("semi-major axis", a->semi_major_axis_m / 1000.0, 1, "km");
+        add("eccentricity", a->eccentricity, 5, "");
+        add("periapsis altitude (in vacuum)", a->periapsis_altitude_m, 0, "m");
+        add("impact parameter", a->impact_parameter_m / 1000.0, 1, "km");
+        add("turn angle", a->turn_angle_deg, 2, "deg");
+        frames(a->relative, a->inertial);
+        return section(QStringLiteral("Approach"), table.html());
+    }
+    const OrbitResults& o = *results.orbit;
+    add("orbit periapsis altitude", o.periapsis_altitude_m, 0, "m");
+    add("orbit apoapsis altitude", o.apoapsis_altitude_m, 0, "m");
+    add("deorbit delta-v (impulsive, at apoapsis)", o.delta_v_m_s, 2, "m/s");
+    add("propellant", o.propellant_kg, 1, "kg");
+    add("deorbit stage, dropped before entry", o.stage_kg, 1, "kg");
+    add("mass before the burn", o.mass_before_burn_kg, 1, "kg");
+    add("transfer periapsis altitude (in vacuum)", o.transfer_periapsis_altitude_m, 0, "m");
+    add("coast from the burn to the interface", o.coast_s, 1, "s");
+    frames(o.relative, o.inertial);
+    return section(QStringLiteral("Deorbit burn"), table.html());
+}
+
 QString massSection(const Results& results) {
     const MassResults& mass = results.mass;
     HtmlTable table({QStringLiteral("item"), QStringLiteral("group"), QStringLiteral("maturity"),

@@ -18,6 +18,9 @@ QString cautionSection(const Results& results);
 /// The design document flattened into key, value and unit (units from the keys' suffixes).
 QString inputsSection(const Design& design);
 QString keyFiguresSection(const Results& results);
+/// Where the entry starts, for a design entering from an approach or an orbit (empty
+/// otherwise): the conic's figures, the deorbit burn, the interface state in both frames.
+QString entryStartSection(const Results& results);
 QString massSection(const Results& results);
 QString timelineSection(const Design& design, const Results& results);
 QString checksSection(const Results& results);

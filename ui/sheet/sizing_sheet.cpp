@@ -64,6 +64,7 @@ QString composeSheet(const Design& design, const Results& results, const SheetCo
     html += cautionSection(results);
     html += inputsSection(design);
     html += keyFiguresSection(results);
+    html += entryStartSection(results);
     html += massSection(results);
     html += timelineSection(design, results);
     html += landingSection(design, results, context.trade);

@@ -166,7 +166,8 @@ void markDeploy(const TimeChart& c, const QString& label, const DeployResults& d
     hideFromLegend(c.chart, marker);
 }
 
-/// The timeline's events, numbered, with their names in a key in the plot's top-left corner.
+/// The timeline's events from the interface on, numbered, with their names in a key in the
+/// plot's top-left corner.
 /// Events that fall on one spot (peak dynamic pressure and peak deceleration, the last
 /// seconds before touchdown) share a marker.
 void markEvents(QChart* chart, const std::vector<TimelineEvent>& events, QValueAxis* xAxis,
@@ -177,6 +178,8 @@ void markEvents(QChart* chart, const std::vector<TimelineEvent>& events, QValueA
     QStringList key;
     int number = 0;
     for (const TimelineEvent& event : events) {
+        if (event.time_s < 0.0)
+            continue;  // before the interface (a deorbit burn): off the flight's charts
         const QString label = QString::number(++number);
         key << QStringLiteral("%1  %2").arg(label, QString::fromStdString(event.name));
         const QPointF at = point(event);

@@ -129,6 +129,21 @@ std::vector<const KeyRow*> requestOf(const KeyRow& key) {
     return request;
 }
 
+/// A part of the document with the keys it needs at their fallbacks: the required keys of the
+/// object (a section, or an object key of it: `parent`) and the first of each group it needs.
+Json partWithFallbacks(std::string_view section, std::string_view parent) {
+    Json part = Json::object();
+    for (const KeyRow* key : keys_of(section)) {
+        if (key->parent != parent)
+            continue;
+        const bool needed = key->group ? key->group->required && membersOf(*key).front() == key
+                                       : key->need == KeyNeed::required;
+        if (needed && key->fallback)
+            part[std::string(key->key)] = *key->fallback;
+    }
+    return part;
+}
+
 /// A choice's names in the order the form offers them: its display texts' first.
 std::vector<std::string_view> offeredNames(const KeyRow& key) {
     std::vector<std::string_view> names;
@@ -286,11 +301,15 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
         addPresence(form, section);
     for (const KeyRow* key : keys_of(section.name)) {
         if (!key->parent.empty())
-            continue;  // with their number
+            continue;  // with their number or their object
         if (key->group) {
             if (membersOf(*key).front() == key)
                 addGroup(form, *key);
             continue;
+        }
+        if (const auto objects = replacements_of(*key);
+            !objects.empty() && objects.front()->replaces.front() == key->key) {
+            addStart(form, *key);
         }
         switch (key->kind) {
             case KeyKind::number:
@@ -299,6 +318,16 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
                 break;
             case KeyKind::number_or_request:
                 addNumberOrRequest(form, *key);
+                break;
+            case KeyKind::object:
+                for (const KeyRow* k : keys_of(key->section)) {
+                    if (k->parent != key->key)
+                        continue;
+                    if (!k->group)
+                        addNumber(form, *k);
+                    else if (membersOf(*k).front() == k)
+                        addGroup(form, *k);
+                }
                 break;
             case KeyKind::choice:
                 if (!key->choice_texts.empty()) {
@@ -332,19 +361,59 @@ void DesignForm::addPresence(QFormLayout* form, const SectionRow& section) {
         [this, pointer, label, &section](int shape) {
             const bool present = m_document->value(pointer).is_object();
             if (shape == 1 && !present) {
-                // Its required keys, and the first of each group it needs, at their fallbacks.
-                Json part = Json::object();
-                for (const KeyRow* key : keys_of(section.name)) {
-                    const bool needed = key->group
-                                            ? key->group->required && membersOf(*key).front() == key
-                                            : key->need == KeyNeed::required;
-                    if (needed && key->fallback)
-                        part[std::string(key->key)] = *key->fallback;
-                }
-                m_document->setValue(pointer, part, tr("Add the %1").arg(label.toLower()));
+                m_document->setValue(pointer, partWithFallbacks(section.name, {}),
+                                     tr("Add the %1").arg(label.toLower()));
             } else if (shape == 0 && present) {
                 m_document->setValue(pointer, Json(), tr("Remove the %1").arg(label.toLower()));
             }
+        });
+}
+
+void DesignForm::addStart(QFormLayout* form, const KeyRow& first) {
+    const std::vector<const KeyRow*> objects = replacements_of(first);
+    std::vector<std::string> replaced;
+    for (const std::string_view key : objects.front()->replaces)
+        replaced.push_back(
+            pointerOf(*find_key(std::string(first.section) + "." + std::string(key))));
+    QStringList shapes{words(first.shape_text)};
+    for (const KeyRow* object : objects)
+        shapes << words(object->shape_text);
+    const std::string frame = key_to_pointer(std::string(first.section) + ".velocity_frame");
+    addShape(
+        form, QString::fromStdString(key_to_pointer(first.section)) + "#start", tr("Entry state"),
+        shapes,
+        [this, objects] {
+            for (std::size_t i = 0; i < objects.size(); ++i) {
+                if (m_document->value(pointerOf(*objects[i])).is_object())
+                    return static_cast<int>(i + 1);
+            }
+            return 0;
+        },
+        [this, objects, replaced, frame](int shape) {
+            std::vector<std::pair<std::string, Json>> values;
+            for (std::size_t i = 0; i < objects.size(); ++i) {
+                const std::string pointer = pointerOf(*objects[i]);
+                const bool chosen = static_cast<int>(i + 1) == shape;
+                const bool present = m_document->value(pointer).is_object();
+                if (!chosen && present)
+                    values.emplace_back(pointer, Json());
+                if (chosen && !present)
+                    values.emplace_back(pointer,
+                                        partWithFallbacks(objects[i]->section, objects[i]->key));
+            }
+            for (const std::string& pointer : replaced) {
+                const bool there = !m_document->value(pointer).is_null();
+                const KeyRow* key = find_key(pointer_to_key(pointer));
+                if (shape != 0 && there)
+                    values.emplace_back(pointer, Json());
+                if (shape == 0 && !there && key->fallback)
+                    values.emplace_back(pointer, *key->fallback);
+            }
+            // A conic gives the inertial state: the frame it is read in (the key left out).
+            if (shape != 0 && !m_document->value(frame).is_null())
+                values.emplace_back(frame, Json());
+            if (!values.empty())
+                m_document->setValues(values, tr("Change where the entry starts"));
         });
 }
 
@@ -528,6 +597,10 @@ bool DesignForm::applies(const KeyRow& key) const {
     }
     if (key.kind == KeyKind::number_or_request)
         return !m_document->value(pointerOf(key)).is_object();
+    for (const KeyRow* object : replacements_of(key)) {
+        if (m_document->value(pointerOf(*object)).is_object())
+            return false;
+    }
     if (!key.parent.empty()) {
         return m_document
             ->value(key_to_pointer(std::string(key.section) + "." + std::string(key.parent)))

@@ -83,6 +83,9 @@ private:
     void addSelector(QFormLayout* form, const KeyRow& selector);
     /// One key of a group of alternatives (a trigger, a jettison rule).
     void addGroup(QFormLayout* form, const KeyRow& first);
+    /// Where the entry starts: the state given at the interface (`first`, the first key the
+    /// objects stand in place of), or one of the objects (an approach, an orbit).
+    void addStart(QFormLayout* form, const KeyRow& first);
     /// A number or a sizing request.
     void addNumberOrRequest(QFormLayout* form, const KeyRow& key);
     void buildItems(QFormLayout* form);

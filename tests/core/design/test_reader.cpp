@@ -622,7 +622,8 @@ TEST_CASE("mass item errors name the item's index and list the accepted names") 
     CHECK(has_error(result, "mass.items[1].name", "must not be empty"));
     CHECK(has_error(result, "mass.items[1].mass_kg", "must not be negative, got -3"));
     CHECK(has_error(result, "mass.items[2].group",
-                    "unknown group \"cruise stage\"; expected one of: heat shield, backshell, "
+                    "unknown group \"cruise stage\"; expected one of: deorbit stage, heat shield, "
+                    "backshell, "
                     "descent stage, payload"));
     CHECK(has_error(result, "mass.items[2].maturity",
                     "unknown maturity \"guessed\"; expected one of: estimated, layout, "
@@ -915,4 +916,122 @@ TEST_CASE("a wind reads as rows (objects or [altitude, east, north]) or as one c
         read(with(baseline(), "/atmosphere/wind", {{"east_m_s", 1.0}, {"up_m_s", 2.0}}));
     CHECK(has_error(unknown, "atmosphere.wind.up_m_s", "unknown key"));
     CHECK(has_error(unknown, "atmosphere.wind.north_m_s", "missing"));
+}
+
+namespace {
+
+/// The baseline entering from an arrival (or an orbit) instead of a given interface state.
+Json conic_entry(const std::string& object, Json value) {
+    Json document =
+        without(without(baseline(), "/entry/velocity_m_s"), "/entry/flight_path_angle_deg");
+    return with(document, "/entry/" + object, std::move(value));
+}
+
+}  // namespace
+
+TEST_CASE("an approach or an orbit stands in place of the interface speed and angle") {
+    SUBCASE("an approach aimed at a periapsis, read as inertial") {
+        const auto result = read(
+            conic_entry("approach", {{"v_infinity_m_s", 3000}, {"periapsis_altitude_m", 2e4}}));
+        INFO(error_list(result));
+        REQUIRE(result.ok());
+        const ds::EntryDesign& entry = result.design->entry;
+        REQUIRE(entry.approach);
+        CHECK(entry.approach->v_infinity_m_s == 3000.0);
+        CHECK(entry.approach->periapsis_altitude_m == 2e4);
+        CHECK_FALSE(entry.approach->flight_path_angle_deg);
+        CHECK_FALSE(entry.orbit);
+        CHECK(entry.velocity_frame == ds::VelocityFrame::inertial);
+    }
+    SUBCASE("an orbit") {
+        const auto result = read(conic_entry("orbit", {{"periapsis_altitude_m", 3e5},
+                                                       {"apoapsis_altitude_m", 5e5},
+                                                       {"flight_path_angle_deg", -12.5},
+                                                       {"isp_s", 230}}));
+        INFO(error_list(result));
+        REQUIRE(result.ok());
+        REQUIRE(result.design->entry.orbit);
+        CHECK(*result.design->entry.orbit == ds::OrbitDesign{3e5, 5e5, -12.5, 230.0});
+    }
+    SUBCASE("the speed given beside an approach is refused") {
+        const auto result = read(with(baseline(), "/entry/approach",
+                                      {{"v_infinity_m_s", 3000}, {"flight_path_angle_deg", -12}}));
+        CHECK(has_error(result, "entry.velocity_m_s", "not with approach"));
+        CHECK(has_error(result, "entry.flight_path_angle_deg", "not with approach"));
+        CHECK(result.errors.size() == 2);
+    }
+    SUBCASE("an approach and an orbit together") {
+        Json document =
+            conic_entry("approach", {{"v_infinity_m_s", 3000}, {"flight_path_angle_deg", -12}});
+        document["entry"]["orbit"] = {{"periapsis_altitude_m", 3e5},
+                                      {"apoapsis_altitude_m", 3e5},
+                                      {"flight_path_angle_deg", -12},
+                                      {"isp_s", 220}};
+        CHECK(only_error(read(document), "entry.orbit", "not with approach"));
+    }
+    SUBCASE("an approach aims at one of a periapsis or an angle") {
+        CHECK(only_error(read(conic_entry("approach", {{"v_infinity_m_s", 3000}})),
+                         "entry.approach",
+                         "needs one approach aim: periapsis_altitude_m or flight_path_angle_deg"));
+        CHECK(only_error(read(conic_entry("approach", {{"v_infinity_m_s", 3000},
+                                                       {"periapsis_altitude_m", 1e4},
+                                                       {"flight_path_angle_deg", -12}})),
+                         "entry.approach", "takes one approach aim"));
+    }
+    SUBCASE("its keys are judged where they sit") {
+        CHECK(only_error(
+            read(conic_entry("approach", {{"v_infinity_m_s", -1}, {"flight_path_angle_deg", -12}})),
+            "entry.approach.v_infinity_m_s", "must be positive"));
+        CHECK(only_error(
+            read(conic_entry("approach", {{"v_infinity_m_s", 3000}, {"flight_path_angle_deg", 5}})),
+            "entry.approach.flight_path_angle_deg", "less than 0"));
+        CHECK(only_error(read(conic_entry("approach", {{"v_infinity_m_s", 3000},
+                                                       {"flight_path_angle_deg", -12},
+                                                       {"colour", 1}})),
+                         "entry.approach.colour", "unknown key"));
+        CHECK(only_error(read(conic_entry("orbit", {{"periapsis_altitude_m", 3e5},
+                                                    {"apoapsis_altitude_m", 3e5},
+                                                    {"flight_path_angle_deg", -12}})),
+                         "entry.orbit.isp_s", "missing"));
+    }
+    SUBCASE("a periapsis above the interface misses the atmosphere; below the centre is none") {
+        CHECK(only_error(read(conic_entry("approach", {{"v_infinity_m_s", 3000},
+                                                       {"periapsis_altitude_m", 130000}})),
+                         "entry.approach.periapsis_altitude_m",
+                         "must be below the interface altitude (125000 m)"));
+        CHECK(only_error(
+            read(conic_entry("approach",
+                             {{"v_infinity_m_s", 3000}, {"periapsis_altitude_m", -4e6}})),
+            "entry.approach.periapsis_altitude_m", "must be at least minus the body's radius"));
+    }
+    SUBCASE("an orbit stays above the interface, its apoapsis at its periapsis or higher") {
+        CHECK(only_error(read(conic_entry("orbit", {{"periapsis_altitude_m", 1e5},
+                                                    {"apoapsis_altitude_m", 3e5},
+                                                    {"flight_path_angle_deg", -12},
+                                                    {"isp_s", 220}})),
+                         "entry.orbit.periapsis_altitude_m",
+                         "must be above the interface altitude (125000 m)"));
+        CHECK(only_error(read(conic_entry("orbit", {{"periapsis_altitude_m", 4e5},
+                                                    {"apoapsis_altitude_m", 3e5},
+                                                    {"flight_path_angle_deg", -12},
+                                                    {"isp_s", 220}})),
+                         "entry.orbit.apoapsis_altitude_m",
+                         "must be at least the periapsis altitude (400000 m)"));
+    }
+    SUBCASE("a conic gives the inertial state: a relative frame is refused") {
+        Json document =
+            conic_entry("approach", {{"v_infinity_m_s", 3000}, {"flight_path_angle_deg", -12}});
+        document["entry"]["velocity_frame"] = "relative";
+        CHECK(only_error(read(document), "entry.velocity_frame", "must be \"inertial\""));
+        document["entry"]["velocity_frame"] = "inertial";
+        CHECK(read(document).ok());
+    }
+    SUBCASE("a deorbit stage needs an orbit to leave from") {
+        Json document = with(
+            baseline(), "/mass/items",
+            Json::array(
+                {{{"name", "cruise structure"}, {"mass_kg", 40}, {"group", "deorbit stage"}}}));
+        CHECK(only_error(read(document), "mass.items[0].group",
+                         "\"deorbit stage\" needs entry.orbit"));
+    }
 }

@@ -40,13 +40,25 @@ double value_in(const ds::ValueRange& range, std::size_t salt) {
 }
 
 /// The shape of a design: the name of each choice, the one key given of each group, whether
-/// each number-or-request key is a request, whether the decelerator is there.
+/// each number-or-request key is a request, which objects (an approach, an orbit) it has,
+/// whether the decelerator is there.
 struct Shape {
     std::map<std::string, std::string> choice;
     std::map<std::string, std::string> member;  ///< "section/group name" -> key
     std::map<std::string, bool> request;
+    std::map<std::string, bool> object;
     bool decelerator = true;
 };
+
+/// "entry.approach" for a key of the approach.
+std::string parent_path(const ds::KeyRow& row) {
+    return std::string(row.section) + "." + std::string(row.parent);
+}
+
+bool is_object(const std::string& path) {
+    const ds::KeyRow* row = ds::find_key(path);
+    return row && row->kind == ds::KeyKind::object;
+}
 
 std::string group_id(const ds::KeyRow& row) {
     return std::string(row.section) + "/" + std::string(row.group->name);
@@ -62,6 +74,8 @@ Shape first_shape() {
             shape.member.emplace(group_id(row), std::string(row.key));
         if (row.kind == ds::KeyKind::number_or_request)
             shape.request.emplace(row.path(), false);
+        if (row.kind == ds::KeyKind::object)
+            shape.object.emplace(row.path(), false);
     }
     return shape;
 }
@@ -81,6 +95,13 @@ std::vector<Shape> every_shape() {
         if (row.group) {
             Shape shape = first_shape();
             shape.member[group_id(row)] = std::string(row.key);
+            if (!row.parent.empty() && is_object(parent_path(row)))
+                shape.object[parent_path(row)] = true;
+            shapes.push_back(shape);
+        }
+        if (row.kind == ds::KeyKind::object) {
+            Shape shape = first_shape();
+            shape.object[row.path()] = true;
             shapes.push_back(shape);
         }
         if (row.kind == ds::KeyKind::number_or_request) {
@@ -126,8 +147,19 @@ ds::Design design_of(const Shape& shape) {
             continue;
         if (row.kind == ds::KeyKind::number_or_request && shape.request.at(row.path()))
             continue;
-        if (!row.parent.empty() &&
-            !shape.request.at(std::string(row.section) + "." + std::string(row.parent)))
+        if (row.kind == ds::KeyKind::object) {
+            if (shape.object.at(row.path()))
+                row.part.add(d);
+            continue;
+        }
+        if (!row.parent.empty()) {
+            const std::string parent = parent_path(row);
+            if (is_object(parent) ? !shape.object.at(parent) : !shape.request.at(parent))
+                continue;
+        }
+        const auto replacements = ds::replacements_of(row);
+        if (std::any_of(replacements.begin(), replacements.end(),
+                        [&](const ds::KeyRow* object) { return shape.object.at(object->path()); }))
             continue;
         const bool canopy = row.on_canopy && d.terminal.method == ds::TerminalMethod::none;
         double value = value_in(canopy ? row.on_canopy->range : row.range, salt);
@@ -141,6 +173,15 @@ ds::Design design_of(const Shape& shape) {
         d.aeroshell.nose_radius_m = *d.aeroshell.diameter_m / 4.0;
     d.mass.entry_kg = 2500.0;
     d.entry.interface_altitude_m = 125000.0;
+    // An entry from a conic is inertial; an orbit lies above the interface and drops its stage.
+    if (d.entry.from_conic())
+        d.entry.velocity_frame = ds::VelocityFrame::inertial;
+    if (d.entry.orbit) {
+        d.entry.orbit->periapsis_altitude_m = 250000.0;
+        d.entry.orbit->apoapsis_altitude_m = 420000.0;
+        d.mass.items.push_back(
+            {"cruise structure", 80.0, ds::MassGroup::deorbit_stage, ds::Maturity::estimated});
+    }
     if (d.atmosphere.model == ds::AtmosphereModel::table)
         d.atmosphere.rows = {
             {-8000.0, 0.03, 220.0}, {60000.0, 1e-4, 170.0}, {130000.0, 2e-9, 150.0}};

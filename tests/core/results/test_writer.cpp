@@ -188,6 +188,48 @@ TEST_CASE("the decelerator, the chain's new figures and the capability are writt
     CHECK(document["capability"] == Json{{"max_site_elevation_m", 1250.0}});
 }
 
+TEST_CASE("the approach and the orbit are written by value, with both frames") {
+    ds::Results r = sample_results();
+    const ds::EntryVelocity inertial{5776.9, -11.2, 95.0};
+    const ds::EntryVelocity relative{5539.0, -11.69, 95.22};
+    r.approach = ds::ApproachResults{3000.0, -4758.7e3, 1.716,    19904.0, 6638.7e3,
+                                     71.27,  -17.7,     inertial, relative};
+    r.orbit = ds::OrbitResults{250e3, 400e3,   3327.7, 2806.3, 521.4, 225.0,  167.2,    234.4,
+                               794.4, -1363e3, 0.303,  34.9,   781.9, -145.1, inertial, relative};
+    const Json document = ds::results_to_json(r);
+    const Json frames{
+        {"velocity_m_s", 5776.9}, {"flight_path_angle_deg", -11.2}, {"azimuth_deg", 95.0}};
+    CHECK(document["approach"] == Json{{"v_infinity_m_s", 3000.0},
+                                       {"semi_major_axis_m", -4758.7e3},
+                                       {"eccentricity", 1.716},
+                                       {"periapsis_altitude_m", 19904.0},
+                                       {"impact_parameter_m", 6638.7e3},
+                                       {"turn_angle_deg", 71.27},
+                                       {"interface_true_anomaly_deg", -17.7},
+                                       {"inertial", frames},
+                                       {"relative",
+                                        {{"velocity_m_s", 5539.0},
+                                         {"flight_path_angle_deg", -11.69},
+                                         {"azimuth_deg", 95.22}}}});
+    const Json& orbit = document["orbit"];
+    CHECK(orbit["periapsis_altitude_m"] == 250e3);
+    CHECK(orbit["apoapsis_altitude_m"] == 400e3);
+    CHECK(orbit["speed_before_burn_m_s"] == 3327.7);
+    CHECK(orbit["speed_after_burn_m_s"] == 2806.3);
+    CHECK(orbit["delta_v_m_s"] == 521.4);
+    CHECK(orbit["isp_s"] == 225.0);
+    CHECK(orbit["propellant_kg"] == 167.2);
+    CHECK(orbit["stage_kg"] == 234.4);
+    CHECK(orbit["mass_before_burn_kg"] == 794.4);
+    CHECK(orbit["transfer_periapsis_altitude_m"] == -1363e3);
+    CHECK(orbit["transfer_eccentricity"] == 0.303);
+    CHECK(orbit["transfer_angle_deg"] == 34.9);
+    CHECK(orbit["coast_s"] == 781.9);
+    CHECK(orbit["interface_true_anomaly_deg"] == -145.1);
+    CHECK(orbit["inertial"] == frames);
+    CHECK(orbit["relative"]["velocity_m_s"] == 5539.0);
+}
+
 TEST_CASE("the mass budget is written with its mode, item details and closure") {
     const Json document = ds::results_to_json(sample_results());
     const Json& mass = document["mass"];
@@ -215,9 +257,10 @@ TEST_CASE("the results sections come in the order of the flight") {
     std::vector<std::string> keys;
     for (const auto& item : document.items())
         keys.push_back(item.key());
-    const std::vector<std::string> expected{
-        "format",   "version",  "converged", "entry", "decelerator", "drogue", "parachute",
-        "terminal", "timeline", "landing",   "mass",  "capability",  "checks", "notes"};
+    const std::vector<std::string> expected{"format",    "version",    "converged",   "approach",
+                                            "orbit",     "entry",      "decelerator", "drogue",
+                                            "parachute", "terminal",   "timeline",    "landing",
+                                            "mass",      "capability", "checks",      "notes"};
     CHECK(keys == expected);
 }
 
@@ -258,6 +301,8 @@ TEST_CASE("absent figures and non-finite numbers are written as null") {
                             "/timeline/available_s",
                             "/timeline/needed_s",
                             "/decelerator",
+                            "/approach",
+                            "/orbit",
                             "/mass/closure",
                             "/capability/max_site_elevation_m",
                             "/entry/peak_radiative_heat_flux_W_cm2",
