@@ -12,6 +12,7 @@
 #include "sizing/size.hpp"
 #include "summary.hpp"
 #include "trade_commands.hpp"
+#include "window_program.hpp"
 
 namespace ds {
 namespace {
@@ -82,16 +83,8 @@ int runCommand(int argc, char** argv) {
             return code;
         if (*size)
             return runSize(sizeOptions);
-        if (*sheet) {
-#ifdef DESCENT_SIZER_WITH_GUI
-            return writeSheetCommand(argc, argv, sheetDesign.c_str(), sheetOutput.c_str());
-#else
-            fmt::print(stderr,
-                       "the sizing sheet needs the window's libraries: build with "
-                       "-DDESCENT_SIZER_BUILD_GUI=ON\n");
-            return 1;
-#endif
-        }
+        if (*sheet)
+            return startWindowProgram({"sheet", sheetDesign, "--output", sheetOutput});
     } catch (const std::exception& e) {
         fmt::print(stderr, "internal error: {}\n", e.what());
         return exit_internal;

@@ -1,15 +1,18 @@
-// descent-sizer: the window, or a command.
-//   descent-sizer [FILE] [--screenshot OUT.png]   the window (the demo design without FILE)
+// descent-sizer: a command, or the window.
 //   descent-sizer size DESIGN [--json [--history]] the sizing, printed
-//   descent-sizer sheet DESIGN -o OUT.pdf|.html|.csv the sizing sheet (builds with the window)
+//   descent-sizer sheet DESIGN -o OUT.pdf|.html|.csv the sizing sheet (by the window's program)
 //   descent-sizer sweep|disperse|merge|sensitivity|corridor  trade studies
+//   descent-sizer [FILE] [--screenshot OUT.png]   the window (the demo design without FILE)
+// This program does not load Qt, so a command starts at once; the window and the sheet are
+// descent-sizer-window's, which it starts with the same arguments.
 
-#include <cstdlib>
-#include <cstring>
+#include <string>
 #include <string_view>
+#include <vector>
 
 #include "allocator.hpp"
 #include "commands.hpp"
+#include "window_program.hpp"
 
 namespace {
 
@@ -25,9 +28,5 @@ int main(int argc, char** argv) {
     ds::tuneAllocator();
     if (argc > 1 && isCommand(argv[1]))
         return ds::runCommand(argc, argv);
-#ifdef DESCENT_SIZER_WITH_GUI
-    return ds::runWindow(argc, argv);
-#else
-    return ds::runCommand(argc, argv);
-#endif
+    return ds::startWindowProgram(std::vector<std::string>(argv + 1, argv + argc));
 }

@@ -4,7 +4,9 @@
 #include <cmath>
 #include <cstdio>
 #include <fstream>
+#include <functional>
 #include <memory>
+#include <optional>
 #include <sstream>
 #include <string>
 #include <vector>
@@ -12,6 +14,7 @@
 #include <fmt/format.h>
 
 #include "design/reader.hpp"
+#include "json_values.hpp"
 #include "results/key_figures.hpp"
 #include "results/writer.hpp"
 #include "trade/study.hpp"
@@ -244,7 +247,7 @@ Json sensitivityJson(const SensitivityTable& table) {
         Json row = Json::array();
         for (Eigen::Index i = 0; i < table.normalized.cols(); ++i) {
             const double s = table.normalized(f, i);
-            row.push_back(std::isfinite(s) ? Json(s) : Json());
+            row.push_back(json::number(s));
         }
         matrix.push_back(row);
     }
@@ -383,6 +386,29 @@ struct Options {
     std::string speeds;
 };
 
+/// Completes a request once the design is read, or refuses it with an exit code.
+using PrepareStudy = std::function<std::optional<int>(const StudyDesign&, StudyRequest&)>;
+
+/// What a study command does once its options are read: read the study's design, let
+/// `prepare` complete the request or refuse it, run the request on the design and print the
+/// outcome. Returns the command's exit code.
+int runStudyCommand(const Options& o, StudyRequest request,
+                    const std::function<void(const StudyOutcome&)>& print,
+                    const PrepareStudy& prepare = nullptr) {
+    const auto file = readStudyDesign(o.design);
+    if (!file)
+        return exit_unreadable;
+    if (prepare) {
+        if (const std::optional<int> code = prepare(*file, request))
+            return *code;
+    }
+    const auto outcome = runStudyOn(*file, request, o.threads);
+    if (!outcome)
+        return exit_unreadable;
+    print(*outcome);
+    return 0;
+}
+
 int sweepCommand(const Options& o) {
     StudyRequest request;
     request.kind = StudyKind::sweep;
@@ -395,41 +421,38 @@ int sweepCommand(const Options& o) {
         }
         request.axes.push_back(*axis);
     }
-    const auto file = readStudyDesign(o.design);
-    if (!file)
-        return exit_unreadable;
-    const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome)
-        return exit_unreadable;
-    printStudy(
-        *outcome, formatOf(o.json, o.csv), [&] { return sweepJson(*outcome); },
-        [&] { printSweepTable(*outcome); });
-    return 0;
+    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
+        printStudy(
+            outcome, formatOf(o.json, o.csv), [&] { return sweepJson(outcome); },
+            [&] { printSweepTable(outcome); });
+    });
 }
 
 int disperseCommand(const Options& o) {
-    const auto file = readStudyDesign(o.design);
-    if (!file)
-        return exit_unreadable;
     StudyRequest request;
     request.kind = StudyKind::dispersions;
     request.runs = o.runs;
     request.seed = o.seed;
     request.ellipse_probability = o.ellipse_probability;
-    if (std::sscanf(o.shard.c_str(), "%zu/%zu", &request.shard_index, &request.shard_count) != 2 ||
-        request.shard_count == 0 || request.shard_index >= request.shard_count) {
-        fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o.shard);
-        return exit_usage;
-    }
-    if (file->design.dispersions.empty()) {
-        fmt::print(stderr, "{}: the design has no \"dispersions\"\n", o.design);
-        return exit_usage;
-    }
-    const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome)
-        return exit_unreadable;
-    printCampaign(*outcome->campaign, outcome->summary, formatOf(o.json, o.csv));
-    return 0;
+    // Checked once the design has been read: an unreadable design is reported first.
+    const auto prepare = [&](const StudyDesign& file, StudyRequest& r) -> std::optional<int> {
+        if (std::sscanf(o.shard.c_str(), "%zu/%zu", &r.shard_index, &r.shard_count) != 2 ||
+            r.shard_count == 0 || r.shard_index >= r.shard_count) {
+            fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o.shard);
+            return exit_usage;
+        }
+        if (file.design.dispersions.empty()) {
+            fmt::print(stderr, "{}: the design has no \"dispersions\"\n", o.design);
+            return exit_usage;
+        }
+        return std::nullopt;
+    };
+    return runStudyCommand(
+        o, request,
+        [&](const StudyOutcome& outcome) {
+            printCampaign(*outcome.campaign, outcome.summary, formatOf(o.json, o.csv));
+        },
+        prepare);
 }
 
 int mergeCommand(const Options& o) {
@@ -460,19 +483,15 @@ int mergeCommand(const Options& o) {
 }
 
 int sensitivityCommand(const Options& o) {
-    const auto file = readStudyDesign(o.design);
-    if (!file)
-        return exit_unreadable;
     StudyRequest request;
     request.kind = StudyKind::sensitivities;
     request.inputs = o.inputs;
-    const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome)
-        return exit_unreadable;
-    printStudy(
-        *outcome, formatOf(o.json, o.csv), [&] { return sensitivityJson(*outcome->sensitivities); },
-        [&] { printSensitivityRanking(*outcome->sensitivities); });
-    return 0;
+    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
+        printStudy(
+            outcome, formatOf(o.json, o.csv),
+            [&] { return sensitivityJson(*outcome.sensitivities); },
+            [&] { printSensitivityRanking(*outcome.sensitivities); });
+    });
 }
 
 int corridorCommand(const Options& o) {
@@ -487,16 +506,11 @@ int corridorCommand(const Options& o) {
     request.speeds = *speeds;
     request.runs = o.runs;
     request.seed = o.seed;
-    const auto file = readStudyDesign(o.design);
-    if (!file)
-        return exit_unreadable;
-    const auto outcome = runStudyOn(*file, request, o.threads);
-    if (!outcome)
-        return exit_unreadable;
-    printStudy(
-        *outcome, formatOf(o.json, o.csv), [&] { return corridorJson(*outcome->corridor); },
-        [&] { printCorridorTable(*outcome->corridor); });
-    return 0;
+    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
+        printStudy(
+            outcome, formatOf(o.json, o.csv), [&] { return corridorJson(*outcome.corridor); },
+            [&] { printCorridorTable(*outcome.corridor); });
+    });
 }
 
 }  // namespace

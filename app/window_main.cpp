@@ -1,5 +1,6 @@
 #include <cstdio>
 #include <cstdlib>
+#include <string_view>
 
 #include <fmt/format.h>
 #include <QApplication>
@@ -9,7 +10,7 @@
 #include <QSize>
 #include <QTimer>
 
-#include "commands.hpp"
+#include "allocator.hpp"
 #include "design/reader.hpp"
 #include "main_window.hpp"
 #include "sheet/sizing_sheet.hpp"
@@ -53,8 +54,7 @@ int sizeDemoToTerminal(const QString& file) {
     return 0;
 }
 
-}  // namespace
-
+/// The window. Without a display it sizes the demo design to the terminal instead.
 int runWindow(int argc, char** argv) {
     // Parse before a display is needed, so that a headless machine gets the terminal summary.
     QString file;
@@ -107,6 +107,7 @@ int runWindow(int argc, char** argv) {
     return 0;
 }
 
+/// Writes the sizing sheet of a design (needs Qt to draw the charts and the PDF).
 int writeSheetCommand(int argc, char** argv, const char* designPath, const char* output) {
     const DesignReadResult read = read_design_file(designPath);
     if (!read.ok()) {
@@ -130,4 +131,17 @@ int writeSheetCommand(int argc, char** argv, const char* designPath, const char*
     return 0;
 }
 
+}  // namespace
+
 }  // namespace ds
+
+// descent-sizer-window: the window, and the sizing sheet. descent-sizer starts it for both:
+//   descent-sizer-window [FILE] [--screenshot OUT.png] [--size WxH]
+//   descent-sizer-window sheet DESIGN --output OUT     (as descent-sizer's sheet command gives it)
+int main(int argc, char** argv) {
+    ds::tuneAllocator();
+    if (argc == 5 && std::string_view(argv[1]) == "sheet" &&
+        std::string_view(argv[3]) == "--output")
+        return ds::writeSheetCommand(argc, argv, argv[2], argv[4]);
+    return ds::runWindow(argc, argv);
+}

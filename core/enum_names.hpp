@@ -4,6 +4,7 @@
 #include <cstddef>
 #include <optional>
 #include <string_view>
+#include <type_traits>
 #include <utility>
 #include <vector>
 
@@ -42,6 +43,32 @@ std::vector<std::string_view> all_names(const Names<Enum, Count>& names) {
     for (const auto& [e, name] : names)
         all.push_back(name);
     return all;
+}
+
+/// An enumeration whose table is given by a `name_table(Enum)` beside it (found by
+/// argument-dependent lookup): the three functions below then serve it, with no functions of
+/// its own.
+template <class Enum>
+concept NamedEnum = std::is_enum_v<Enum> && requires(Enum e) {
+    name_table(e);
+};
+
+/// The document's name of `value`.
+template <NamedEnum Enum>
+constexpr std::string_view to_string(Enum value) {
+    return name_of(name_table(value), value);
+}
+
+/// The enumerator a document names `name`, or nothing for a name the table lacks.
+template <NamedEnum Enum>
+constexpr std::optional<Enum> enum_from(std::string_view name) {
+    return value_of(name_table(Enum{}), name);
+}
+
+/// Every name of the enumeration, in its table's order, for choices and messages.
+template <NamedEnum Enum>
+std::vector<std::string_view> enum_names() {
+    return all_names(name_table(Enum{}));
 }
 
 }  // namespace ds

@@ -4,11 +4,18 @@
 #include <string>
 #include <string_view>
 
+#include "enum_names.hpp"
+
 namespace ds {
 
 enum class CheckStatus { pass, marginal, fail };
 
-std::string_view to_string(CheckStatus status);
+/// The document's names of the statuses.
+constexpr Names<CheckStatus, 3> name_table(CheckStatus) {
+    return {{{CheckStatus::pass, "pass"},
+             {CheckStatus::marginal, "marginal"},
+             {CheckStatus::fail, "fail"}}};
+}
 
 /// The outcome of one named check: the value, the limit it was held against, and why.
 struct Check {

@@ -9,6 +9,7 @@
 #include "atmosphere/wind.hpp"
 #include "body/body.hpp"
 #include "checks/limits.hpp"
+#include "enum_names.hpp"
 #include "mass/group.hpp"
 #include "mass/maturity.hpp"
 
@@ -251,26 +252,41 @@ struct SolverDesign {
     bool operator==(const SolverDesign&) const = default;
 };
 
-/// The document's names for the enumerations, one table each for reading and writing.
-std::string_view to_string(AtmosphereModel model);
-std::string_view to_string(TerminalMethod method);
-std::optional<AtmosphereModel> atmosphere_model_from(std::string_view name);
-std::optional<TerminalMethod> terminal_method_from(std::string_view name);
-std::string_view to_string(MassGroup group);
-std::string_view to_string(Maturity maturity);
-std::optional<MassGroup> mass_group_from(std::string_view name);
-std::optional<Maturity> maturity_from(std::string_view name);
-/// Every name of each table, in order, for choices and messages.
-std::vector<std::string_view> atmosphere_model_names();
-std::vector<std::string_view> terminal_method_names();
-std::vector<std::string_view> mass_group_names();
-std::vector<std::string_view> maturity_names();
-std::vector<std::string_view> velocity_frame_names();
-std::vector<std::string_view> drag_mach_law_names();
-std::string_view to_string(DragMachLaw law);
-std::optional<DragMachLaw> drag_mach_law_from(std::string_view name);
-std::string_view to_string(VelocityFrame frame);
-std::optional<VelocityFrame> velocity_frame_from(std::string_view name);
+/// The document's names for the enumerations, one table each for reading and writing
+/// (`to_string`, `enum_from` and `enum_names` of enum_names.hpp read them).
+constexpr Names<AtmosphereModel, 3> name_table(AtmosphereModel) {
+    return {{{AtmosphereModel::exponential, "exponential"},
+             {AtmosphereModel::table, "table"},
+             {AtmosphereModel::standard, "standard"}}};
+}
+constexpr Names<TerminalMethod, 4> name_table(TerminalMethod) {
+    return {{{TerminalMethod::retro, "retro"},
+             {TerminalMethod::airbag, "airbag"},
+             {TerminalMethod::tethered, "tethered"},
+             {TerminalMethod::none, "none"}}};
+}
+constexpr Names<MassGroup, 5> name_table(MassGroup) {
+    return {{{MassGroup::deorbit_stage, "deorbit stage"},
+             {MassGroup::heat_shield, "heat shield"},
+             {MassGroup::backshell, "backshell"},
+             {MassGroup::descent_stage, "descent stage"},
+             {MassGroup::payload, "payload"}}};
+}
+constexpr Names<Maturity, 6> name_table(Maturity) {
+    return {{{Maturity::estimated, "estimated"},
+             {Maturity::layout, "layout"},
+             {Maturity::pre_release, "pre-release"},
+             {Maturity::released, "released"},
+             {Maturity::existing, "existing"},
+             {Maturity::actual, "actual"}}};
+}
+constexpr Names<VelocityFrame, 2> name_table(VelocityFrame) {
+    return {{{VelocityFrame::relative, "relative"}, {VelocityFrame::inertial, "inertial"}}};
+}
+constexpr Names<DragMachLaw, 2> name_table(DragMachLaw) {
+    return {{{DragMachLaw::modified_newtonian, "modified_newtonian"},
+             {DragMachLaw::constant, "constant"}}};
+}
 
 enum class DistributionKind { normal, uniform };
 

@@ -827,7 +827,7 @@ private:
             if (auto v = f.number("mass_kg", non_negative))
                 item.mass_kg = *v;
             if (auto name = f.string("group")) {
-                if (auto group = mass_group_from(*name)) {
+                if (auto group = enum_from<MassGroup>(*name)) {
                     item.group = *group;
                     if (leaves_before_entry(*group) && !design_.entry.orbit) {
                         f.report("group", fmt::format("\"{}\" needs entry.orbit: it is the "
@@ -836,15 +836,16 @@ private:
                     }
                 } else {
                     f.report("group", fmt::format("unknown group \"{}\"; expected one of: {}",
-                                                  *name, fmt::join(mass_group_names(), ", ")));
+                                                  *name, fmt::join(enum_names<MassGroup>(), ", ")));
                 }
             }
             if (auto name = f.string("maturity", Need::optional)) {
-                if (auto maturity = maturity_from(*name)) {
+                if (auto maturity = enum_from<Maturity>(*name)) {
                     item.maturity = *maturity;
                 } else {
-                    f.report("maturity", fmt::format("unknown maturity \"{}\"; expected one of: {}",
-                                                     *name, fmt::join(maturity_names(), ", ")));
+                    f.report("maturity",
+                             fmt::format("unknown maturity \"{}\"; expected one of: {}", *name,
+                                         fmt::join(enum_names<Maturity>(), ", ")));
                 }
             }
             f.report_unknown();

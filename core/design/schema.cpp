@@ -184,7 +184,7 @@ constexpr TextAccess design_name{[](const Design& d) { return std::string_view(d
 
 constexpr TextAccess atmosphere_model{[](const Design& d) { return to_string(d.atmosphere.model); },
                                       [](Design& d, std::string_view name) {
-                                          const auto model = atmosphere_model_from(name);
+                                          const auto model = enum_from<AtmosphereModel>(name);
                                           if (model)
                                               d.atmosphere.model = *model;
                                           return model.has_value();
@@ -205,7 +205,7 @@ constexpr TextAccess canopy{[](const Design& d) {
 
 constexpr TextAccess terminal_method{[](const Design& d) { return to_string(d.terminal.method); },
                                      [](Design& d, std::string_view name) {
-                                         const auto method = terminal_method_from(name);
+                                         const auto method = enum_from<TerminalMethod>(name);
                                          if (method)
                                              d.terminal.method = *method;
                                          return method.has_value();
@@ -214,7 +214,7 @@ constexpr TextAccess terminal_method{[](const Design& d) { return to_string(d.te
 constexpr TextAccess velocity_frame{
     [](const Design& d) { return to_string(d.entry.velocity_frame); },
     [](Design& d, std::string_view name) {
-        const auto frame = velocity_frame_from(name);
+        const auto frame = enum_from<VelocityFrame>(name);
         if (frame)
             d.entry.velocity_frame = *frame;
         return frame.has_value();
@@ -223,7 +223,7 @@ constexpr TextAccess velocity_frame{
 constexpr TextAccess drag_mach_law{
     [](const Design& d) { return to_string(d.aeroshell.drag_against_mach); },
     [](Design& d, std::string_view name) {
-        const auto law = drag_mach_law_from(name);
+        const auto law = enum_from<DragMachLaw>(name);
         if (law)
             d.aeroshell.drag_against_mach = *law;
         return law.has_value();
@@ -298,8 +298,36 @@ constexpr std::array method_texts{
 
 // ---- The document's objects ------------------------------------------------------------------
 
+// The keys of the parts read by hand, with their units.
+constexpr std::array custom_body_keys{
+    ElementKey{"name", ""},
+    ElementKey{"radius_m", "m"},
+    ElementKey{"mu_m3_s2", "m^3/s^2"},
+    ElementKey{"rotation_rad_s", "rad/s"},
+    ElementKey{"gas_constant_J_kgK", "J/(kg K)"},
+    ElementKey{"gamma", ""},
+    ElementKey{"sutton_graves_k", ""},
+};
+constexpr std::array atmosphere_row_keys{
+    ElementKey{"altitude_m", "m"},
+    ElementKey{"density_kg_m3", "kg/m^3"},
+    ElementKey{"temperature_K", "K"},
+};
+// A wind row, or the constant wind's two of them.
+constexpr std::array wind_keys{
+    ElementKey{"altitude_m", "m"},
+    ElementKey{"east_m_s", "m/s"},
+    ElementKey{"north_m_s", "m/s"},
+};
+constexpr std::array mass_item_keys{
+    ElementKey{"name", ""},
+    ElementKey{"mass_kg", "kg"},
+    ElementKey{"group", ""},
+    ElementKey{"maturity", ""},
+};
+
 const std::array sections{
-    SectionRow{.name = "body", .by_hand = true},
+    SectionRow{.name = "body", .by_hand = true, .elements = custom_body_keys},
     SectionRow{.name = "atmosphere"},
     SectionRow{.name = "site"},
     SectionRow{.name = "entry"},
@@ -354,7 +382,7 @@ const std::array keys{
            .key = "model",
            .kind = KeyKind::choice,
            .text = atmosphere_model,
-           .choices = &atmosphere_model_names,
+           .choices = &enum_names<AtmosphereModel>,
            .label = "Atmosphere",
            .choice_texts = atmosphere_texts},
     KeyRow{.section = "atmosphere",
@@ -387,7 +415,8 @@ const std::array keys{
     KeyRow{.section = "atmosphere",
            .key = "rows",
            .kind = KeyKind::by_hand,
-           .model = AtmosphereModel::table},
+           .model = AtmosphereModel::table,
+           .elements = atmosphere_row_keys},
     KeyRow{.section = "atmosphere",
            .key = "csv_file",
            .kind = KeyKind::by_hand,
@@ -396,7 +425,7 @@ const std::array keys{
            .key = "gas_constant_J_kgK",
            .need = KeyNeed::optional,
            .range = positive,
-           .unit = "J/kgK",
+           .unit = "J/(kg K)",
            .number = member<&Design::atmosphere, &AtmosphereDesign::gas_constant_J_kgK>,
            .label = "Gas constant",
            .typical = {{150, 300}},
@@ -417,7 +446,7 @@ const std::array keys{
            .label = "Density scale",
            .typical = {{0.8, 1.2}}},
     // A table [{altitude_m, east_m_s, north_m_s}, ...] or a constant {east_m_s, north_m_s}.
-    KeyRow{.section = "atmosphere", .key = "wind", .kind = KeyKind::by_hand},
+    KeyRow{.section = "atmosphere", .key = "wind", .kind = KeyKind::by_hand, .elements = wind_keys},
     KeyRow{.section = "atmosphere",
            .key = "wind_scale",
            .need = KeyNeed::defaulted,
@@ -615,7 +644,7 @@ const std::array keys{
            .kind = KeyKind::choice,
            .need = KeyNeed::defaulted,
            .text = velocity_frame,
-           .choices = &velocity_frame_names,
+           .choices = &enum_names<VelocityFrame>,
            .label = "Entry state is",
            .choice_texts = frame_texts},
 
@@ -668,7 +697,7 @@ const std::array keys{
            .kind = KeyKind::choice,
            .need = KeyNeed::defaulted,
            .text = drag_mach_law,
-           .choices = &drag_mach_law_names,
+           .choices = &enum_names<DragMachLaw>,
            .label = "Drag coefficient below hypersonic",
            .choice_texts = drag_mach_texts},
 
@@ -699,7 +728,7 @@ const std::array keys{
            .label = "Backshell",
            .typical = {{30, 300}},
            .placeholder = "estimated"},
-    KeyRow{.section = "mass", .key = "items", .kind = KeyKind::by_hand},
+    KeyRow{.section = "mass", .key = "items", .kind = KeyKind::by_hand, .elements = mass_item_keys},
 
     KeyRow{.section = "decelerator",
            .key = "diameter_m",
@@ -952,7 +981,7 @@ const std::array keys{
            .key = "method",
            .kind = KeyKind::choice,
            .text = terminal_method,
-           .choices = &terminal_method_names,
+           .choices = &enum_names<TerminalMethod>,
            .label = "Method",
            .choice_texts = method_texts},
     KeyRow{.section = "terminal",
@@ -1195,6 +1224,46 @@ std::string label_of(const KeyRow& row) {
     std::string label(row.key);
     std::replace(label.begin(), label.end(), '_', ' ');
     return label;
+}
+
+std::string_view unit_of_path(std::string_view path) {
+    std::string plain;  // the path without its array indices
+    for (std::size_t i = 0; i < path.size(); ++i) {
+        if (path[i] == '[')
+            i = path.find(']', i);
+        else
+            plain += path[i];
+        if (i == std::string_view::npos)
+            return {};
+    }
+    if (const KeyRow* row = find_key(plain))
+        return row->unit;
+    const std::size_t dot = plain.rfind('.');
+    if (dot == std::string::npos)
+        return {};
+    const std::string_view owner = std::string_view(plain).substr(0, dot);
+    const std::string_view key = std::string_view(plain).substr(dot + 1);
+    std::span<const ElementKey> elements;
+    if (const KeyRow* row = find_key(owner))
+        elements = row->elements;
+    else if (const SectionRow* section = find_section(owner))
+        elements = section->elements;
+    for (const ElementKey& element : elements) {
+        if (element.key == key)
+            return element.unit;
+    }
+    return {};
+}
+
+std::string unit_in_key_name(std::string_view unit) {
+    std::string name;
+    for (const char c : unit) {
+        if (c == '/')
+            name += '_';
+        else if (c != '^' && c != '(' && c != ')' && c != ' ')
+            name += c;
+    }
+    return name;
 }
 
 std::span<const CheckField> check_fields() {

@@ -88,6 +88,13 @@ struct ChoiceText {
     std::string_view text;
 };
 
+/// A key of the objects that a part read by hand holds (a wind row, a mass item, a custom
+/// body), with its unit: for what shows the document (the sizing sheet).
+struct ElementKey {
+    std::string_view key;   ///< "east_m_s"
+    std::string_view unit;  ///< "m/s"; empty: none
+};
+
 /// One key of the design document.
 struct KeyRow {
     std::string_view section;  ///< "entry"; empty at the document's top level
@@ -97,7 +104,9 @@ struct KeyRow {
     KeyKind kind = KeyKind::number;
     KeyNeed need = KeyNeed::required;
     ValueRange range;
-    std::string_view unit;  ///< the SI unit the key's name carries ("m/s"); empty: none
+    /// The SI unit the key's name carries ("m/s"), as it is shown; empty: none. The name
+    /// spells it with `unit_in_key_name` ("velocity_m_s").
+    std::string_view unit;
     /// The value a defaulted key takes when left out (a limit's default, a throttle of 1).
     std::optional<double> default_value;
     NumberAccess number;  ///< number, integer and number_or_request keys
@@ -132,6 +141,8 @@ struct KeyRow {
     std::string_view shape_text;
     /// Display texts of a choice's values; a name without one is shown as it is.
     std::span<const ChoiceText> choice_texts;
+    /// A by-hand key's own keys, in each of its rows or in its object (a wind row).
+    std::span<const ElementKey> elements;
 
     /// "parachute.diameter_m.size_for_velocity_m_s": the reader's path of the key.
     std::string path() const;
@@ -152,6 +163,8 @@ struct SectionRow {
     std::string_view label;         ///< "Inflatable decelerator"
     std::string_view absent_text;   ///< "none"
     std::string_view present_text;  ///< "before the parachute"
+    /// A part read by hand: its own keys (the custom body's).
+    std::span<const ElementKey> elements;
 };
 
 /// The document's objects, in the writer's order.
@@ -172,6 +185,14 @@ std::vector<const KeyRow*> replacements_of(const KeyRow& row);
 
 /// The label the form shows for a key: its label, or its key with spaces.
 std::string label_of(const KeyRow& row);
+
+/// The unit of any key of the document by its path, array indices included
+/// ("atmosphere.wind[2].east_m_s": "m/s"); empty for a key without one.
+std::string_view unit_of_path(std::string_view path);
+
+/// How a key's name spells a unit (design-file.md: units are in the key names): "m/s" is
+/// "m_s", "kg/m^3" "kg_m3", "J/(kg K)" "J_kgK".
+std::string unit_in_key_name(std::string_view unit);
 
 /// The key a check points at, for the window to take the user there (a check's id, a key path).
 struct CheckField {

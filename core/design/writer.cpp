@@ -1,22 +1,19 @@
 #include "design/writer.hpp"
 
 #include <algorithm>
-#include <cmath>
 #include <cstdint>
 #include <optional>
 #include <string_view>
 
 #include "design/schema.hpp"
+#include "json_values.hpp"
 
 namespace ds {
 namespace {
 
-using Json = nlohmann::ordered_json;
-
-/// A number, or null when it is not finite: JSON has no NaN or infinity.
-Json number(double value) {
-    return std::isfinite(value) ? Json(value) : Json(nullptr);
-}
+using json::array_of;
+using json::Json;
+using json::number;
 
 // A custom body's gas values of zero are the ones the document left to the atmosphere.
 void put_if_set(Json& object, std::string_view key, double value) {
@@ -46,58 +43,42 @@ void put_table(Json& out, const KeyRow& row, const AtmosphereDesign& atmosphere)
             out["wind"] = Json{{"east_m_s", number(atmosphere.wind->constant->east_m_s)},
                                {"north_m_s", number(atmosphere.wind->constant->north_m_s)}};
         } else if (atmosphere.wind) {
-            Json rows = Json::array();
-            for (const WindRow& w : atmosphere.wind->rows) {
-                rows.push_back(Json{{"altitude_m", number(w.altitude_m)},
-                                    {"east_m_s", number(w.east_m_s)},
-                                    {"north_m_s", number(w.north_m_s)}});
-            }
-            out["wind"] = std::move(rows);
+            out["wind"] = array_of(atmosphere.wind->rows, [](const WindRow& w) {
+                return Json{{"altitude_m", number(w.altitude_m)},
+                            {"east_m_s", number(w.east_m_s)},
+                            {"north_m_s", number(w.north_m_s)}};
+            });
         }
     } else if (row.key == "csv_file" && !atmosphere.csv_file.empty()) {
         out["csv_file"] = atmosphere.csv_file;
     } else if (row.key == "rows" && atmosphere.csv_file.empty()) {
-        Json rows = Json::array();
-        for (const auto& table_row : atmosphere.rows) {
-            Json item;
-            item["altitude_m"] = number(table_row.altitude_m);
-            item["density_kg_m3"] = number(table_row.density_kg_m3);
-            item["temperature_K"] = number(table_row.temperature_K);
-            rows.push_back(std::move(item));
-        }
-        out["rows"] = std::move(rows);
+        out["rows"] = array_of(atmosphere.rows, [](const AtmosphereRow& r) {
+            return Json{{"altitude_m", number(r.altitude_m)},
+                        {"density_kg_m3", number(r.density_kg_m3)},
+                        {"temperature_K", number(r.temperature_K)}};
+        });
     }
 }
 
-Json items_to_json(const MassDesign& mass) {
-    Json items = Json::array();
-    for (const auto& item : mass.items) {
-        Json entry;
-        entry["name"] = item.name;
-        entry["mass_kg"] = number(item.mass_kg);
-        entry["group"] = to_string(item.group);
-        entry["maturity"] = to_string(item.maturity);
-        items.push_back(std::move(entry));
-    }
-    return items;
+Json item_to_json(const MassItemDesign& item) {
+    return Json{{"name", item.name},
+                {"mass_kg", number(item.mass_kg)},
+                {"group", to_string(item.group)},
+                {"maturity", to_string(item.maturity)}};
 }
 
-Json dispersions_to_json(const std::vector<DispersionDesign>& dispersions) {
-    Json list = Json::array();
-    for (const DispersionDesign& d : dispersions) {
-        Json entry;
-        entry["key"] = d.key;
-        if (d.distribution == DistributionKind::normal) {
-            entry["distribution"] = "normal";
-            entry["sigma"] = number(d.sigma);
-        } else {
-            entry["distribution"] = "uniform";
-            entry["min"] = number(d.min);
-            entry["max"] = number(d.max);
-        }
-        list.push_back(entry);
+Json dispersion_to_json(const DispersionDesign& d) {
+    Json out;
+    out["key"] = d.key;
+    if (d.distribution == DistributionKind::normal) {
+        out["distribution"] = "normal";
+        out["sigma"] = number(d.sigma);
+    } else {
+        out["distribution"] = "uniform";
+        out["min"] = number(d.min);
+        out["max"] = number(d.max);
     }
-    return list;
+    return out;
 }
 
 /// Whether a key belongs to the design's atmosphere model and terminal method: each carries
@@ -167,7 +148,7 @@ void put_keys(Json& out, std::string_view section, const Design& design,
                 if (section == "atmosphere")
                     put_table(out, *row, design.atmosphere);
                 else if (row->path() == "mass.items")
-                    out[key] = items_to_json(design.mass);
+                    out[key] = array_of(design.mass.items, item_to_json);
                 break;
         }
     }
@@ -186,7 +167,7 @@ nlohmann::ordered_json design_to_json(const Design& design) {
             out[name] = body_to_json(design.body);
         } else if (section.name == "dispersions") {
             if (!design.dispersions.empty())
-                out[name] = dispersions_to_json(design.dispersions);
+                out[name] = array_of(design.dispersions, dispersion_to_json);
         } else if (!section.present || section.present(design)) {
             Json part = Json::object();
             put_keys(part, section.name, design);

@@ -75,12 +75,17 @@ struct LocalFrame {
 };
 
 /// The rates of the position: altitude, latitude, longitude.
-void position_rates(const FlightModel& model, const FlightState& y, FlightState& dy) {
+/// With the cosine of the latitude when the caller has it.
+void position_rates(const FlightModel& model, const FlightState& y, double cos_latitude,
+                    FlightState& dy) {
     const double r = model.body.radius_m + y[StateIndex::altitude];
     dy[StateIndex::altitude] = y[StateIndex::up_velocity];
     dy[StateIndex::latitude] = y[StateIndex::north_velocity] / r;
-    dy[StateIndex::longitude] =
-        y[StateIndex::east_velocity] / (r * std::cos(y[StateIndex::latitude]));
+    dy[StateIndex::longitude] = y[StateIndex::east_velocity] / (r * cos_latitude);
+}
+
+void position_rates(const FlightModel& model, const FlightState& y, FlightState& dy) {
+    position_rates(model, y, std::cos(y[StateIndex::latitude]), dy);
 }
 
 /// The equilibrium velocity at an altitude (and latitude, mass) where the drag against the
@@ -167,8 +172,8 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
     const FlightConditions c = flight_conditions(model, stage, y);
     const double m = y[StateIndex::mass];
     const Vec3 v = velocity_of(y);
-    Vec3 a =
-        LocalFrame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]).acceleration(v);
+    const LocalFrame frame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]);
+    Vec3 a = frame.acceleration(v);
     if (c.air_speed_m_s > 0.0) {
         const Vec3 along = c.air_velocity_m_s / c.air_speed_m_s;
         a -= (c.drag_N / m) * along;
@@ -191,7 +196,7 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
     }
 
     FlightState dy;
-    position_rates(model, y, dy);
+    position_rates(model, y, frame.cos_lat, dy);
     dy[StateIndex::east_velocity] = a.x();
     dy[StateIndex::north_velocity] = a.y();
     dy[StateIndex::up_velocity] = a.z();

@@ -1,6 +1,7 @@
 #include "flight/phase.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <optional>
 
@@ -122,6 +123,38 @@ Event<flight_state_size> change_of_equations(const FlightModel& model, const Sta
             EventDirection::rising, true};
 }
 
+/// The last few states a phase's equations or its events were evaluated at, with what was
+/// computed there: the integrator's last stage of a step is the step's end (first same as
+/// last), where every event is then asked, and each peak's rate looks at the same two states
+/// either side of it. Keyed on the state itself, so a hit gives the very numbers a fresh
+/// evaluation would.
+template <class Value, std::size_t Slots>
+class StateMemo {
+public:
+    template <class Compute>
+    const Value& get(const FlightState& y, Compute&& compute) {
+        for (Slot& slot : slots_) {
+            if (slot.filled && slot.y == y)
+                return slot.value;
+        }
+        Slot& slot = slots_[next_];
+        next_ = (next_ + 1) % Slots;
+        slot.y = y;
+        slot.value = compute(y);
+        slot.filled = true;
+        return slot.value;
+    }
+
+private:
+    struct Slot {
+        bool filled = false;
+        FlightState y;
+        Value value;
+    };
+    std::array<Slot, Slots> slots_{};
+    std::size_t next_ = 0;
+};
+
 /// Flies a phase on one set of equations until a trigger, t_max or the step budget, or (with
 /// `may_change`) until its equations should change: that event comes after the peaks.
 IntegrationOutcome<flight_state_size> fly_stretch(
@@ -129,12 +162,18 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     const FlightState& y0, double t_max, const IntegratorSettings<flight_state_size>& settings,
     PhaseRecording recording) {
     const Stage& stage = phase.stage;
+    StateMemo<FlightState, 1> rates;
+    StateMemo<FlightConditions, 3> conditions;
     const auto rhs = [&](double, const FlightState& y) {
-        return equations == Equations::full ? flight_derivative(model, stage, y)
-                                            : quasi_steady_derivative(model, stage, y);
+        return rates.get(y, [&](const FlightState& at) {
+            return equations == Equations::full ? flight_derivative(model, stage, at)
+                                                : quasi_steady_derivative(model, stage, at);
+        });
     };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
-        return quantity_at(model, stage, q, y);
+        const FlightConditions& c = conditions.get(
+            y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
+        return flight_quantity(q, c, y);
     };
 
     std::vector<Event<flight_state_size>> events;

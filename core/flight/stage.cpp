@@ -29,10 +29,15 @@ double table_factor(std::span<const MachPoint> mach_factor, double mach) {
 
 }  // namespace
 
+void DragDevice::follow_stagnation_pressure(double gamma) {
+    stagnation_gamma = gamma;
+    stagnation_limit = stagnation_pressure_coefficient_limit(gamma);
+}
+
 double DragDevice::drag_coefficient_at(double mach) const {
     double cd = drag_coefficient * table_factor(mach_factor, mach);
     if (stagnation_gamma > 0.0)
-        cd *= stagnation_pressure_ratio_to_limit(stagnation_gamma, mach);
+        cd *= stagnation_pressure_coefficient_at(stagnation_gamma, mach) / stagnation_limit;
     return cd;
 }
 

@@ -21,7 +21,11 @@ struct DragDevice {
     /// When positive, the ratio of specific heats of a blunt body's Mach law: Cd further
     /// scales with the stagnation-pressure coefficient at the Mach number over its hypersonic
     /// limit (modified Newtonian theory, see stagnation_pressure_ratio_to_limit); 0 for none.
+    /// Set with follow_stagnation_pressure, which keeps the limit beside it.
     double stagnation_gamma = 0.0;
+    double stagnation_limit = 0.0;  ///< Cp_max at infinite Mach for stagnation_gamma
+
+    void follow_stagnation_pressure(double gamma);
 
     double drag_coefficient_at(double mach) const;
     double drag_area_m2(double mach) const { return drag_coefficient_at(mach) * area_m2; }

@@ -1,23 +1,27 @@
 #include "mass/growth.hpp"
 
+#include <array>
+#include <utility>
+
 namespace ds {
+namespace {
+
+/// Each maturity's allowance, in the order of growth.hpp's list.
+constexpr std::array<std::pair<Maturity, double>, 6> allowances{{{Maturity::estimated, 0.18},
+                                                                 {Maturity::layout, 0.12},
+                                                                 {Maturity::pre_release, 0.08},
+                                                                 {Maturity::released, 0.04},
+                                                                 {Maturity::existing, 0.02},
+                                                                 {Maturity::actual, 0.0}}};
+
+}  // namespace
 
 double growth_allowance(Maturity maturity) {
-    switch (maturity) {
-        case Maturity::estimated:
-            return 0.18;
-        case Maturity::layout:
-            return 0.12;
-        case Maturity::pre_release:
-            return 0.08;
-        case Maturity::released:
-            return 0.04;
-        case Maturity::existing:
-            return 0.02;
-        case Maturity::actual:
-            return 0.0;
+    for (const auto& [m, allowance] : allowances) {
+        if (m == maturity)
+            return allowance;
     }
-    return 0.18;
+    return allowances.front().second;  // not reached: every maturity has a row
 }
 
 }  // namespace ds

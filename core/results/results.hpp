@@ -7,6 +7,7 @@
 
 #include "checks/check.hpp"
 #include "design/design.hpp"
+#include "enum_names.hpp"
 #include "flight/trajectory_sample.hpp"
 #include "mass/item.hpp"
 
@@ -15,7 +16,7 @@ namespace ds {
 /// The results document (design-file.md, version 1) as plain values, SI units throughout.
 /// An empty optional is a figure this design did not produce (written as null). Enumerations
 /// stay enumerations here; `to_string` gives each one's document name, one table per enum (the
-/// design's enums keep theirs in design.cpp, the results' own in results.cpp).
+/// design's enums keep theirs in design.hpp, the results' own at the end of this file).
 
 /// The document's "format" and "version" keys.
 inline constexpr std::string_view results_format_id = "descent-sizer/results";
@@ -107,12 +108,17 @@ struct EntryResults {
     double heat_shield_tps_kg = 0.0;
 };
 
-struct ParachuteResults {
+/// Where a drag device (the decelerator, the parachute) deploys, when it does: its figures
+/// stay empty when it does not.
+struct DeployResults {
     bool deployed = false;
     std::optional<double> deploy_time_s;
     std::optional<double> deploy_altitude_m;
     std::optional<double> deploy_mach;
     std::optional<double> deploy_dynamic_pressure_Pa;
+};
+
+struct ParachuteResults : DeployResults {
     std::optional<double> deploy_velocity_m_s;
     std::optional<double> diameter_m;
     std::optional<double> drag_coefficient;  ///< nominal (subsonic), referred to pi D^2 / 4
@@ -137,12 +143,7 @@ struct ParachuteResults {
 };
 
 /// The supersonic inflatable decelerator, when the design has one.
-struct DeceleratorResults {
-    bool deployed = false;
-    std::optional<double> deploy_time_s;
-    std::optional<double> deploy_altitude_m;
-    std::optional<double> deploy_mach;
-    std::optional<double> deploy_dynamic_pressure_Pa;
+struct DeceleratorResults : DeployResults {
     double diameter_m = 0.0;
     double mass_kg = 0.0;
 };
@@ -167,12 +168,16 @@ struct TerminalResults {
     std::optional<double> touchdown_horizontal_velocity_m_s;
 };
 
-/// Where the lander (the payload, for airbag and tethered) comes down, when it does.
-struct LandingResults {
+/// A place on the ground under the flight: where it is and where it lies on the entry's track.
+struct TrackPlace {
     double latitude_deg = 0.0;
     double longitude_deg = 0.0;
     double downrange_m = 0.0;   ///< from the entry point, along the entry's great circle
     double crossrange_m = 0.0;  ///< positive to the right of it
+};
+
+/// Where the lander (the payload, for airbag and tethered) comes down, when it does.
+struct LandingResults : TrackPlace {
     /// With a target site (site.latitude_deg, site.longitude_deg): the great-circle distance to
     /// it, and the landing's downrange and crossrange less the target's.
     std::optional<double> miss_m;
@@ -180,15 +185,12 @@ struct LandingResults {
     std::optional<double> miss_crossrange_m;
 };
 
-struct TimelineEvent {
+/// An event of the flight and the place under it.
+struct TimelineEvent : TrackPlace {
     std::string name;
     double time_s = 0.0;
     double altitude_m = 0.0;
     double velocity_m_s = 0.0;
-    double latitude_deg = 0.0;
-    double longitude_deg = 0.0;
-    double downrange_m = 0.0;   ///< from the entry point, along the entry's great circle
-    double crossrange_m = 0.0;  ///< positive to the right of it
 };
 
 struct Timeline {
@@ -249,9 +251,18 @@ struct Results {
     std::vector<std::string> notes;  ///< what the results do not cover, in words
 };
 
-/// The document's names of the results' enumerations.
-std::string_view to_string(DragCoefficientSource source);
-std::string_view to_string(GrowthBasis basis);
-std::string_view to_string(MassMode mode);
+/// The document's names of the results' enumerations (`to_string` of enum_names.hpp).
+constexpr Names<DragCoefficientSource, 2> name_table(DragCoefficientSource) {
+    return {{{DragCoefficientSource::design, "design"},
+             {DragCoefficientSource::modified_newtonian, "modified Newtonian"}}};
+}
+constexpr Names<GrowthBasis, 3> name_table(GrowthBasis) {
+    return {{{GrowthBasis::maturity, "maturity"},
+             {GrowthBasis::given, "given"},
+             {GrowthBasis::computed, "computed"}}};
+}
+constexpr Names<MassMode, 2> name_table(MassMode) {
+    return {{{MassMode::analysis, "analysis"}, {MassMode::sizing, "sizing"}}};
+}
 
 }  // namespace ds

@@ -1,24 +1,30 @@
 #include "results/writer.hpp"
 
-#include <cmath>
-#include <optional>
-
+#include "json_values.hpp"
 #include "results/history_columns.hpp"
 
 namespace ds {
 namespace {
 
-using Json = nlohmann::ordered_json;
+using json::array_of;
+using json::Json;
+using json::number;
+using json::object_or_null;
 
-/// A number, or null when it is not finite: JSON has no NaN or infinity, and a figure that
-/// could not be computed must not pass for one.
-Json number(double value) {
-    return std::isfinite(value) ? Json(value) : Json(nullptr);
+/// The deploy figures a drag device's object starts with.
+void put_deploy(Json& out, const DeployResults& deploy) {
+    out["deployed"] = deploy.deployed;
+    out["deploy_time_s"] = number(deploy.deploy_time_s);
+    out["deploy_altitude_m"] = number(deploy.deploy_altitude_m);
+    out["deploy_mach"] = number(deploy.deploy_mach);
+    out["deploy_dynamic_pressure_Pa"] = number(deploy.deploy_dynamic_pressure_Pa);
 }
 
-/// An absent figure is null: the key is always there, so readers need not guess.
-Json number(const std::optional<double>& value) {
-    return value ? number(*value) : Json(nullptr);
+void put_place(Json& out, const TrackPlace& place) {
+    out["latitude_deg"] = number(place.latitude_deg);
+    out["longitude_deg"] = number(place.longitude_deg);
+    out["downrange_m"] = number(place.downrange_m);
+    out["crossrange_m"] = number(place.crossrange_m);
 }
 
 Json entry_velocity_to_json(const EntryVelocity& v) {
@@ -106,11 +112,7 @@ Json entry_to_json(const EntryResults& entry) {
 
 Json parachute_to_json(const ParachuteResults& parachute) {
     Json out;
-    out["deployed"] = parachute.deployed;
-    out["deploy_time_s"] = number(parachute.deploy_time_s);
-    out["deploy_altitude_m"] = number(parachute.deploy_altitude_m);
-    out["deploy_mach"] = number(parachute.deploy_mach);
-    out["deploy_dynamic_pressure_Pa"] = number(parachute.deploy_dynamic_pressure_Pa);
+    put_deploy(out, parachute);
     out["deploy_velocity_m_s"] = number(parachute.deploy_velocity_m_s);
     out["diameter_m"] = number(parachute.diameter_m);
     out["drag_coefficient"] = number(parachute.drag_coefficient);
@@ -131,18 +133,11 @@ Json parachute_to_json(const ParachuteResults& parachute) {
     return out;
 }
 
-/// The decelerator, or null for a design without one.
-Json decelerator_to_json(const std::optional<DeceleratorResults>& decelerator) {
-    if (!decelerator)
-        return nullptr;
+Json decelerator_to_json(const DeceleratorResults& decelerator) {
     Json out;
-    out["deployed"] = decelerator->deployed;
-    out["deploy_time_s"] = number(decelerator->deploy_time_s);
-    out["deploy_altitude_m"] = number(decelerator->deploy_altitude_m);
-    out["deploy_mach"] = number(decelerator->deploy_mach);
-    out["deploy_dynamic_pressure_Pa"] = number(decelerator->deploy_dynamic_pressure_Pa);
-    out["diameter_m"] = number(decelerator->diameter_m);
-    out["mass_kg"] = number(decelerator->mass_kg);
+    put_deploy(out, decelerator);
+    out["diameter_m"] = number(decelerator.diameter_m);
+    out["mass_kg"] = number(decelerator.mass_kg);
     return out;
 }
 
@@ -166,73 +161,62 @@ Json terminal_to_json(const TerminalResults& terminal) {
     return out;
 }
 
-/// Where it lands, or null when it does not come down.
-Json landing_to_json(const std::optional<LandingResults>& landing) {
-    if (!landing)
-        return nullptr;
+Json landing_to_json(const LandingResults& landing) {
     Json out;
-    out["latitude_deg"] = number(landing->latitude_deg);
-    out["longitude_deg"] = number(landing->longitude_deg);
-    out["downrange_m"] = number(landing->downrange_m);
-    out["crossrange_m"] = number(landing->crossrange_m);
-    out["miss_m"] = number(landing->miss_m);
-    out["miss_downrange_m"] = number(landing->miss_downrange_m);
-    out["miss_crossrange_m"] = number(landing->miss_crossrange_m);
+    put_place(out, landing);
+    out["miss_m"] = number(landing.miss_m);
+    out["miss_downrange_m"] = number(landing.miss_downrange_m);
+    out["miss_crossrange_m"] = number(landing.miss_crossrange_m);
+    return out;
+}
+
+Json event_to_json(const TimelineEvent& event) {
+    Json out;
+    out["name"] = event.name;
+    out["time_s"] = number(event.time_s);
+    out["altitude_m"] = number(event.altitude_m);
+    out["velocity_m_s"] = number(event.velocity_m_s);
+    put_place(out, event);
     return out;
 }
 
 Json timeline_to_json(const Timeline& timeline) {
-    Json events = Json::array();
-    for (const auto& event : timeline.events) {
-        Json item;
-        item["name"] = event.name;
-        item["time_s"] = number(event.time_s);
-        item["altitude_m"] = number(event.altitude_m);
-        item["velocity_m_s"] = number(event.velocity_m_s);
-        item["latitude_deg"] = number(event.latitude_deg);
-        item["longitude_deg"] = number(event.longitude_deg);
-        item["downrange_m"] = number(event.downrange_m);
-        item["crossrange_m"] = number(event.crossrange_m);
-        events.push_back(std::move(item));
-    }
     Json out;
-    out["events"] = std::move(events);
+    out["events"] = array_of(timeline.events, event_to_json);
     out["margin_s"] = number(timeline.margin_s);
     out["available_s"] = number(timeline.available_s);
     out["needed_s"] = number(timeline.needed_s);
     return out;
 }
 
-/// The closure of a sized budget, or null for a fixed entry mass.
-Json closure_to_json(const std::optional<MassClosure>& closure) {
-    if (!closure)
-        return nullptr;
+Json closure_to_json(const MassClosure& closure) {
     Json out;
-    out["converged"] = closure->converged;
-    out["iterations"] = closure->iterations;
-    out["residual_kg"] = number(closure->residual_kg);
+    out["converged"] = closure.converged;
+    out["iterations"] = closure.iterations;
+    out["residual_kg"] = number(closure.residual_kg);
+    return out;
+}
+
+Json item_to_json(const MassItem& item) {
+    Json out;
+    out["name"] = item.name;
+    out["mass_kg"] = number(item.mass_kg);
+    out["basic_kg"] = number(item.basic_kg);
+    out["growth_fraction"] = number(item.growth_fraction);
+    out["group"] = to_string(item.group);
+    out["maturity"] = maturity_name(item);
+    out["source"] = item.source;
     return out;
 }
 
 Json mass_to_json(const MassResults& mass) {
-    Json items = Json::array();
-    for (const auto& item : mass.items) {
-        Json entry;
-        entry["name"] = item.name;
-        entry["mass_kg"] = number(item.mass_kg);
-        entry["basic_kg"] = number(item.basic_kg);
-        entry["growth_fraction"] = number(item.growth_fraction);
-        entry["group"] = to_string(item.group);
-        entry["maturity"] = maturity_name(item);
-        entry["source"] = item.source;
-        items.push_back(std::move(entry));
-    }
     Json out;
     out["mode"] = to_string(mass.mode);
     out["entry_kg"] = number(mass.entry_kg);
     out["landed_kg"] = number(mass.landed_kg);
-    out["items"] = std::move(items);
-    out["closure"] = closure_to_json(mass.closure);
+    out["items"] = array_of(mass.items, item_to_json);
+    // The closure of a sized budget; null for a fixed entry mass.
+    out["closure"] = object_or_null(mass.closure, closure_to_json);
     return out;
 }
 
@@ -242,32 +226,24 @@ Json capability_to_json(const Capability& capability) {
     return out;
 }
 
-Json checks_to_json(const std::vector<Check>& checks) {
-    Json out = Json::array();
-    for (const auto& check : checks) {
-        Json item;
-        item["id"] = check.id;
-        item["status"] = to_string(check.status);
-        item["value"] = number(check.value);
-        item["limit"] = number(check.limit);
-        item["unit"] = check.unit;
-        item["message"] = check.message;
-        item["source"] = check.source;
-        if (check.margin)
-            item["margin"] = number(*check.margin);
-        out.push_back(std::move(item));
-    }
+Json check_to_json(const Check& check) {
+    Json out;
+    out["id"] = check.id;
+    out["status"] = to_string(check.status);
+    out["value"] = number(check.value);
+    out["limit"] = number(check.limit);
+    out["unit"] = check.unit;
+    out["message"] = check.message;
+    out["source"] = check.source;
+    if (check.margin)
+        out["margin"] = number(*check.margin);
     return out;
 }
 
-Json history_to_json(const std::vector<TrajectorySample>& history) {
-    Json out = Json::array();
-    for (const auto& sample : history) {
-        Json item;
-        for (const HistoryColumn& column : history_columns)
-            item[column.key] = number(sample.*column.value);
-        out.push_back(std::move(item));
-    }
+Json sample_to_json(const TrajectorySample& sample) {
+    Json out;
+    for (const HistoryColumn& column : history_columns)
+        out[column.key] = number(sample.*column.value);
     return out;
 }
 
@@ -281,18 +257,19 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
     out["approach"] = approach_to_json(results.approach);
     out["orbit"] = orbit_to_json(results.orbit);
     out["entry"] = entry_to_json(results.entry);
-    out["decelerator"] = decelerator_to_json(results.decelerator);
-    out["drogue"] = results.drogue ? parachute_to_json(*results.drogue) : Json(nullptr);
+    // The decelerator and the drogue: null without one.
+    out["decelerator"] = object_or_null(results.decelerator, decelerator_to_json);
+    out["drogue"] = object_or_null(results.drogue, parachute_to_json);
     out["parachute"] = parachute_to_json(results.parachute);
     out["terminal"] = terminal_to_json(results.terminal);
     out["timeline"] = timeline_to_json(results.timeline);
-    out["landing"] = landing_to_json(results.landing);
+    out["landing"] = object_or_null(results.landing, landing_to_json);
     out["mass"] = mass_to_json(results.mass);
     out["capability"] = capability_to_json(results.capability);
-    out["checks"] = checks_to_json(results.checks);
+    out["checks"] = array_of(results.checks, check_to_json);
     out["notes"] = results.notes;
     if (options.include_history)
-        out["history"] = history_to_json(results.history);
+        out["history"] = array_of(results.history, sample_to_json);
     return out;
 }
 

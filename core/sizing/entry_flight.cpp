@@ -150,7 +150,7 @@ std::string describe_trigger(TriggerKind kind, double value) {
 DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeroshell) {
     DragDevice device{frontal_area_m2(aeroshell.diameter_m), aeroshell.drag_coefficient, {}};
     if (design.aeroshell.drag_against_mach == DragMachLaw::modified_newtonian)
-        device.stagnation_gamma = design_gamma(design);
+        device.follow_stagnation_pressure(design_gamma(design));
     return device;
 }
 

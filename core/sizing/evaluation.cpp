@@ -89,16 +89,18 @@ void add_deorbit_propellant(const Design& design, Evaluation& e) {
                                       delta_v, orbit.isp_s));
 }
 
+/// Orders of the slow manifold a canopy is sized on: within 1e-5 of the flown speed under a
+/// canopy on Mars, where the first order is 0.3 % off.
+constexpr int sizing_equilibrium_orders = 4;
+
 /// The nominal diameter at which the vehicle under the canopy, heat shield gone, passes the
 /// requested height at the requested speed through the air, on the flown (quasi-steady)
 /// descent: the equilibrium speed there, with the term that keeps it following the thickening
 /// air (the vehicle still slows as it falls, so it needs more drag than the balance m g = q CdA
 /// at that height). Starts from that balance and brackets the root outward from it. The
 /// position is the deploy point's (or the entry interface's), at the requested height.
-/// Returns 0 when the vehicle alone already descends slower.
-/// Orders of the slow manifold a canopy is sized on: within 1e-5 of the flown speed under a
-/// canopy on Mars, where the first order is 0.3 % off.
-constexpr int sizing_equilibrium_orders = 4;
+/// Returns 0 when the vehicle alone already descends slower, and the balance itself when the
+/// equilibrium cannot be bracketed (a degenerate design: the checks report it).
 
 double canopy_diameter_for_flown_speed(const FlightModel& model, const DragDevice& canopy_shape,
                                        double body_drag_area_m2, double suspended_kg,
@@ -130,9 +132,14 @@ double canopy_diameter_for_flown_speed(const FlightModel& model, const DragDevic
     constexpr double growth = 1.05;
     const auto close = [](double a, double b) { return std::abs(b - a) <= 1e-10 * a; };
     std::uintmax_t iterations = 100;
-    const auto [low, high] = boost::math::tools::bracket_and_solve_root(
-        excess_speed, balance, growth, false, close, iterations);
-    return 0.5 * (low + high);
+    try {
+        const auto [low, high] = boost::math::tools::bracket_and_solve_root(
+            excess_speed, balance, growth, false, close, iterations);
+        const double diameter = 0.5 * (low + high);
+        return std::isfinite(diameter) ? diameter : balance;
+    } catch (const boost::math::evaluation_error&) {
+        return balance;
+    }
 }
 
 /// A canopy's mass in the backshell group: given, or estimated from its nominal area. Returns it

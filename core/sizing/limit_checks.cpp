@@ -1,5 +1,6 @@
 #include "sizing/limit_checks.hpp"
 
+#include <array>
 #include <cmath>
 #include <string>
 #include <string_view>
@@ -255,40 +256,48 @@ void entry_load_checks(const EntryResults& entry, const Limits& lim, std::vector
         peak_total_flux, lim.peak_heat_flux_max_W_cm2, band));
 }
 
-/// How the payload meets the ground: its touchdown speed (a tethered payload's is the
-/// lowering speed, not an impact), or the airbags' impact.
+/// The horizontal speed at touchdown of each terminal method: what is measured, its limit and
+/// where the limit's default comes from.
+struct HorizontalSpeedRule {
+    TerminalMethod method;
+    std::string_view what;
+    double Limits::*limit;
+    std::string_view source;
+};
+
+constexpr std::array<HorizontalSpeedRule, 4> horizontal_speed_rules{{
+    {TerminalMethod::retro, "horizontal speed at touchdown",
+     &Limits::touchdown_horizontal_velocity_max_m_s,
+     "the landing legs' qualified horizontal speed (default 1 m/s: common practice, set your "
+     "own)"},
+    {TerminalMethod::airbag, "horizontal speed at airbag release",
+     &Limits::airbag_release_horizontal_velocity_max_m_s,
+     "the airbags' qualified horizontal speed (default 20 m/s: from memory, common practice, "
+     "set your own)"},
+    {TerminalMethod::tethered, "horizontal speed of the hovering stage at payload touchdown",
+     &Limits::tethered_horizontal_velocity_max_m_s,
+     "the payload's qualified horizontal speed on the tether (default 0.5 m/s: common "
+     "practice, set your own)"},
+    {TerminalMethod::none, "horizontal speed at touchdown under the canopy",
+     &Limits::canopy_touchdown_horizontal_velocity_max_m_s,
+     "the vehicle's qualified horizontal touchdown speed (default 15 m/s: common practice, set "
+     "your own)"},
+}};
+
 /// The horizontal speed at touchdown against the limit of the terminal method.
 Check touchdown_horizontal_check(const TerminalResults& terminal, const Limits& lim, double band) {
-    const auto rule = [](std::string words, std::string source) {
-        return LimitRule{"touchdown_horizontal_velocity", std::move(words), "m/s",
-                         Severity::physics, std::move(source)};
-    };
-    const double v = *terminal.touchdown_horizontal_velocity_m_s;
-    switch (terminal.method) {
-        case TerminalMethod::airbag:
-            return check_at_most(rule("horizontal speed at airbag release",
-                                      "the airbags' qualified horizontal speed (default 20 m/s: "
-                                      "from memory, common practice, set your own)"),
-                                 v, lim.airbag_release_horizontal_velocity_max_m_s, band);
-        case TerminalMethod::tethered:
-            return check_at_most(rule("horizontal speed of the hovering stage at payload touchdown",
-                                      "the payload's qualified horizontal speed on the tether "
-                                      "(default 0.5 m/s: common practice, set your own)"),
-                                 v, lim.tethered_horizontal_velocity_max_m_s, band);
-        case TerminalMethod::none:
-            return check_at_most(rule("horizontal speed at touchdown under the canopy",
-                                      "the vehicle's qualified horizontal touchdown speed (default "
-                                      "15 m/s: common practice, set your own)"),
-                                 v, lim.canopy_touchdown_horizontal_velocity_max_m_s, band);
-        case TerminalMethod::retro:
-            break;
+    const HorizontalSpeedRule* rule = &horizontal_speed_rules.front();
+    for (const HorizontalSpeedRule& r : horizontal_speed_rules) {
+        if (r.method == terminal.method)
+            rule = &r;
     }
-    return check_at_most(rule("horizontal speed at touchdown",
-                              "the landing legs' qualified horizontal speed (default 1 m/s: "
-                              "common practice, set your own)"),
-                         v, lim.touchdown_horizontal_velocity_max_m_s, band);
+    return check_at_most({"touchdown_horizontal_velocity", std::string(rule->what), "m/s",
+                          Severity::physics, std::string(rule->source)},
+                         *terminal.touchdown_horizontal_velocity_m_s, lim.*(rule->limit), band);
 }
 
+/// How the payload meets the ground: its touchdown speed (a tethered payload's is the
+/// lowering speed, not an impact), or the airbags' impact.
 void landing_checks(const TerminalResults& terminal, const Limits& lim,
                     std::vector<Check>& checks) {
     const double band = lim.marginal_band;

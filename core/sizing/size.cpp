@@ -12,6 +12,7 @@
 #include "checks/rule_set.hpp"
 #include "constants.hpp"
 #include "heating/heat_shield_mass.hpp"
+#include "numerics/illinois.hpp"
 #include "results/caution.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
@@ -72,6 +73,32 @@ Closure close_budget(const Design& design, const FlightModel& model) {
 /// The highest site elevation with a timeline margin of zero or more, on the evaluation's own
 /// descent (the masses held at their closed values). The descent reaches the design's site;
 /// only when the design cannot land there is it flown further down to look below.
+/// Where the timeline margin runs out, by the nominal burn: the site at which separating
+/// `needed` after deploy (less the coast) leaves the nominal separation height above it, and the
+/// descent's speed there (the margin's slope against the site is about -1/v).
+struct CapabilityGuess {
+    double site_m = 0.0;
+    double descent_speed_m_s = 0.0;
+};
+
+std::optional<CapabilityGuess> capability_guess(const Design& design, const FlightModel& model,
+                                                const Evaluation& e) {
+    if (!e.burn || !e.burn->stops_in_time || !e.descent)
+        return std::nullopt;
+    const auto nominal = timeline_margin(design, model, e, design.site.elevation_m);
+    if (!nominal)
+        return std::nullopt;
+    const DescentFlight& d = *e.descent;
+    const double t_separation =
+        d.deploy_time_s + nominal->needed_s - design.sequence.separation_coast_s;
+    if (!(t_separation > d.record.start_time() && t_separation < d.record.end_time()))
+        return std::nullopt;
+    const double separation_height =
+        e.burn->separation_state[StateIndex::altitude] - design.site.elevation_m;
+    const FlightState at = d.record.state_at(t_separation);
+    return CapabilityGuess{at[StateIndex::altitude] - separation_height, speed(at)};
+}
+
 std::optional<double> max_site_elevation(const Design& design, const FlightModel& model,
                                          const Evaluation& evaluation) {
     if (!evaluation.descent || !evaluation.descent->jettisoned ||
@@ -101,14 +128,43 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         evaluation.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
     if (!(high > low))
         return std::nullopt;
-    const double margin_high = margin_at(high);
-    if (margin_high >= 0.0)
-        return high;
-    std::uintmax_t iterations = 60;
-    const auto close = [](double a, double b) { return b - a <= capability_tolerance_m; };
-    return boost::math::tools::toms748_solve(margin_at, low, high, margin_low, margin_high, close,
-                                             iterations)
-        .first;
+
+    // Two guided points first: the margin runs out where the separation comes `needed` after
+    // deploy, and the nominal burn separates at about the same height above any site (it needs
+    // the same distance to stop); then the margin falls by about 1/v a metre the site rises.
+    double stops = low;  // the highest site known to close the timeline, and its margin
+    double stops_margin = margin_low;
+    std::optional<double> fails;  // the lowest known not to, and its margin
+    double fails_margin = 0.0;
+    const auto try_site = [&](double site) {
+        const double m = margin_at(site);
+        if (m >= 0.0 && site > stops) {
+            stops = site;
+            stops_margin = m;
+        } else if (m < 0.0 && (!fails || site < *fails)) {
+            fails = site;
+            fails_margin = m;
+        }
+        return m;
+    };
+    if (const auto guess = capability_guess(design, model, *e)) {
+        const double inside = capability_tolerance_m;
+        const double first = std::clamp(guess->site_m, low + inside, high - inside);
+        const double m = try_site(first);
+        const double second =
+            std::clamp(first + m * guess->descent_speed_m_s, low + inside, high - inside);
+        if (std::abs(second - first) > inside)
+            try_site(second);
+    }
+    if (!fails) {
+        const double margin_high = margin_at(high);
+        if (margin_high >= 0.0)
+            return high;
+        fails = high;
+        fails_margin = margin_high;
+    }
+    return illinois_last_nonnegative(margin_at, stops, stops_margin, *fails, fails_margin,
+                                     capability_tolerance_m);
 }
 
 Check flight_check(std::string id, CheckStatus status, double value, double limit, std::string unit,
@@ -117,24 +173,20 @@ Check flight_check(std::string id, CheckStatus status, double value, double limi
             std::move(source), std::nullopt};
 }
 
+constexpr Names<StopReason, 5> stop_reason_texts{
+    {{StopReason::reached_end, "the flight-time budget ran out"},
+     {StopReason::step_budget, "the integration step budget ran out"},
+     {StopReason::step_collapse,
+      "the integration step collapsed (the equations are stiff or singular here)"},
+     {StopReason::not_finite, "the equations gave a non-finite value"},
+     {StopReason::terminal_event, "a terminal event"}}};
+
 std::string_view stop_reason_text(StopReason reason) {
-    switch (reason) {
-        case StopReason::reached_end:
-            return "the flight-time budget ran out";
-        case StopReason::step_budget:
-            return "the integration step budget ran out";
-        case StopReason::step_collapse:
-            return "the integration step collapsed (the equations are stiff or singular here)";
-        case StopReason::not_finite:
-            return "the equations gave a non-finite value";
-        case StopReason::terminal_event:
-            return "a terminal event";
-    }
-    return "";
+    return name_of(stop_reason_texts, reason);
 }
 
 TimelineEvent event_at(std::string name, double t, const FlightState& y) {
-    TimelineEvent event{std::move(name), t, y[StateIndex::altitude], speed(y)};
+    TimelineEvent event{{}, std::move(name), t, y[StateIndex::altitude], speed(y)};
     event.latitude_deg = radians_to_degrees(y[StateIndex::latitude]);
     event.longitude_deg = radians_to_degrees(y[StateIndex::longitude]);
     return event;
@@ -143,7 +195,7 @@ TimelineEvent event_at(std::string name, double t, const FlightState& y) {
 /// An event with no state of its own, at a point of the ground.
 TimelineEvent event_on_ground(std::string name, double t, double altitude_m, double velocity_m_s,
                               const std::optional<GroundPoint>& point) {
-    TimelineEvent event{std::move(name), t, altitude_m, velocity_m_s};
+    TimelineEvent event{{}, std::move(name), t, altitude_m, velocity_m_s};
     if (point) {
         event.latitude_deg = radians_to_degrees(point->latitude_rad);
         event.longitude_deg = radians_to_degrees(point->longitude_rad);
@@ -227,15 +279,21 @@ void fill_entry(const Evaluation& e, const Design& design, EntryResults& entry) 
     entry.heat_shield_tps_kg = entry.heat_shield_mass_fraction * e.entry_kg;
 }
 
+/// A drag device deployed: where, when, and in what air.
+void set_deployed(DeployResults& d, const Deployment& at) {
+    d.deployed = true;
+    d.deploy_time_s = at.time_s;
+    d.deploy_altitude_m = at.state[StateIndex::altitude];
+    d.deploy_mach = at.conditions.mach;
+    d.deploy_dynamic_pressure_Pa = at.conditions.dynamic_pressure_Pa;
+}
+
 /// A canopy's deploy: where and how fast, its drag coefficient there, its opening load (on what
 /// hangs under it: the whole vehicle at that moment) and its inflation time.
 void fill_canopy_deploy(const CanopyType& type, double diameter_m, double drag_coefficient,
                         const Deployment& at, ParachuteResults& p) {
     const FlightConditions& c = at.conditions;
-    p.deploy_time_s = at.time_s;
-    p.deploy_altitude_m = at.state[StateIndex::altitude];
-    p.deploy_mach = c.mach;
-    p.deploy_dynamic_pressure_Pa = c.dynamic_pressure_Pa;
+    set_deployed(p, at);
     p.deploy_velocity_m_s = speed(at.state);
     p.drag_coefficient_at_deploy =
         canopy_device(type, diameter_m, drag_coefficient).drag_coefficient_at(c.mach);
@@ -257,8 +315,7 @@ ParachuteResults drogue_results(const Evaluation& e, const DrogueDesign& design)
     p.diameter_m = design.diameter_m;
     p.drag_coefficient = drag_coefficient;
     p.mass_kg = e.drogue_kg;
-    p.deployed = e.entry.drogue.has_value();
-    if (p.deployed)
+    if (e.entry.drogue)
         fill_canopy_deploy(type, design.diameter_m, drag_coefficient, *e.entry.drogue, p);
     return p;
 }
@@ -268,8 +325,7 @@ void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResu
     p.drag_coefficient = e.canopy_drag_coefficient;
     p.diameter_m = e.canopy_diameter_m;
     p.mass_kg = e.parachute_kg;
-    p.deployed = e.entry.end == EntryEnd::deployed;
-    if (!p.deployed)
+    if (e.entry.end != EntryEnd::deployed)
         return;
     fill_canopy_deploy(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient,
                        {e.entry.end_time_s, e.entry.end_state, e.entry.end_conditions}, p);
@@ -351,19 +407,10 @@ void push_terminal_events(const Evaluation& e, const Design& design,
 }
 
 /// The timeline event that ends the entry flight.
-const char* entry_end_event(EntryEnd end) {
-    switch (end) {
-        case EntryEnd::deployed:
-            return "parachute deploy";
-        case EntryEnd::ground:
-            return "ground impact";
-        case EntryEnd::skip_out:
-            return "atmospheric exit";
-        case EntryEnd::stopped:
-            break;
-    }
-    return "integration stopped";
-}
+constexpr Names<EntryEnd, 4> entry_end_events{{{EntryEnd::deployed, "parachute deploy"},
+                                               {EntryEnd::ground, "ground impact"},
+                                               {EntryEnd::skip_out, "atmospheric exit"},
+                                               {EntryEnd::stopped, "integration stopped"}}};
 
 /// The deorbit burn, a coast before the interface: at the orbit's apoapsis, the transfer angle
 /// back along the inertial great circle through the entry point, where the body stood then
@@ -378,7 +425,10 @@ TimelineEvent deorbit_event(const Evaluation& e, const Body& body) {
     const double carried =
         body.rotation_rad_s * burn.orbit_apoapsis_radius_m * std::cos(at_burn.latitude_rad);
     const double v = burn.speed_after_m_s;
-    TimelineEvent event{"deorbit burn", -burn.coast_s, burn.orbit_apoapsis_radius_m - body.radius_m,
+    TimelineEvent event{{},
+                        "deorbit burn",
+                        -burn.coast_s,
+                        burn.orbit_apoapsis_radius_m - body.radius_m,
                         std::hypot(v * std::sin(heading) - carried, v * std::cos(heading))};
     event.latitude_deg = radians_to_degrees(at_burn.latitude_rad);
     event.longitude_deg =
@@ -404,7 +454,8 @@ void fill_timeline(const Evaluation& e, const Design& design, const Body& body,
         event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
     if (f.drogue)
         events.push_back(event_at("drogue deploy", f.drogue->time_s, f.drogue->state));
-    events.push_back(event_at(entry_end_event(f.end), f.end_time_s, f.end_state));
+    events.push_back(
+        event_at(std::string(name_of(entry_end_events, f.end)), f.end_time_s, f.end_state));
     if (jettison_reached(e)) {
         events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
                                   e.descent->jettison_state));
@@ -810,13 +861,8 @@ Results size_design(const Design& design, SizingOptions options) {
         DeceleratorResults d;
         d.diameter_m = design.decelerator->diameter_m;
         d.mass_kg = e.decelerator_kg;
-        d.deployed = e.entry.decelerator.has_value();
-        if (const auto& at = e.entry.decelerator) {
-            d.deploy_time_s = at->time_s;
-            d.deploy_altitude_m = at->state[StateIndex::altitude];
-            d.deploy_mach = at->conditions.mach;
-            d.deploy_dynamic_pressure_Pa = at->conditions.dynamic_pressure_Pa;
-        }
+        if (const auto& at = e.entry.decelerator)
+            set_deployed(d, *at);
         results.decelerator = d;
     }
     if (design.drogue)

@@ -1,18 +1,21 @@
 #include "sizing/terminal_burn.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <functional>
+#include <limits>
+#include <optional>
 
 #include <boost/math/tools/toms748_solve.hpp>
 
 #include "constants.hpp"
+#include "numerics/illinois.hpp"
 
 namespace ds {
 namespace {
 
 constexpr double flight_time_limit_s = 3600.0;
-constexpr double first_step_back_s = 2.0;  // search step back from the latest separation  // after
-                                           // separation: a burn never lasts this long
 
 struct Attempt {
     bool reached_velocity = false;
@@ -89,6 +92,91 @@ double miss(const Attempt& a, const BurnRequest& r) {
     return height - (speed(a.burn.end_state) - r.end_velocity_m_s) * seconds;
 }
 
+/// The miss of the burn in closed form, from the separation state on the descent: a coast in
+/// free fall under the gravity there, then a constant deceleration T/m - g (no mass loss, no
+/// drag, the speed taken as vertical) from the coasted speed to the end speed. Not the flown
+/// miss, but close to it by a nearly constant offset along the descent: the solver corrects it
+/// by what the flights measure.
+double modelled_miss(const FlightModel& model, const DenseTrajectory& descent, const BurnRequest& r,
+                     double t_s) {
+    const FlightState y = descent.state_at(t_s);
+    const double g = model.body.gravity_m_s2(y[StateIndex::altitude]);
+    const double v = speed(y) + g * r.coast_s;
+    const double h =
+        y[StateIndex::altitude] - speed(y) * r.coast_s - 0.5 * g * r.coast_s * r.coast_s;
+    const double braking = r.thrust_N / r.lander_mass_kg - g;
+    const double target = r.site_elevation_m + r.end_height_above_site_m;
+    if (!(braking > 0.0))
+        return h - target - v * v;  // cannot brake: a miss that only falls with time
+    return h - target - (v * v - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking);
+}
+
+/// The latest separation at which the modelled miss is largest: the burn the model likes best.
+/// The flown miss falls after it (a later separation leaves less height), and the solution lies
+/// there.
+double best_modelled_separation(const FlightModel& model, const DenseTrajectory& descent,
+                                const BurnRequest& r, double earliest, double latest) {
+    constexpr int samples = 64;
+    double best_t = latest;
+    double best = -std::numeric_limits<double>::infinity();
+    for (int i = 0; i <= samples; ++i) {
+        const double t = earliest + (latest - earliest) * i / samples;
+        const double m = modelled_miss(model, descent, r, t);
+        if (m >= best) {
+            best = m;
+            best_t = t;
+        }
+    }
+    return best_t;
+}
+
+/// What the flights have shown of the miss against the separation time, after the modelled
+/// best: the latest separation known to stop in time (miss >= 0) and the earliest known to be
+/// too late.
+struct Bracket {
+    double stops_at = 0.0;
+    std::optional<double> stopping_miss;  ///< empty while no flight has stopped in time
+    double late = 0.0;
+    double late_miss = 0.0;
+
+    void record(double t_s, double m) {
+        if (m >= 0.0 && t_s >= stops_at) {
+            stops_at = t_s;
+            stopping_miss = m;
+        } else if (m < 0.0 && t_s < late) {
+            late = t_s;
+            late_miss = m;
+        }
+    }
+    double width() const { return late - stops_at; }
+};
+
+/// The search of the solver before the model guided it: walk back from the latest separation,
+/// doubling the step, to a time that stops in time, then TOMS 748 between it and the step after.
+/// Kept for descents where the model does not find the stopping side.
+std::optional<double> walk_back(const std::function<double(double)>& miss_at, double earliest,
+                                double latest, double miss_latest, double tolerance) {
+    constexpr double first_step_back_s = 2.0;
+    double late = latest;
+    double miss_late = miss_latest;
+    double step = first_step_back_s;
+    while (late > earliest) {
+        const double early = std::max(earliest, late - step);
+        const double miss_early = miss_at(early);
+        if (miss_early >= 0.0) {
+            std::uintmax_t iterations = 100;
+            const auto close = [&](double a, double b) { return b - a <= tolerance; };
+            return boost::math::tools::toms748_solve(miss_at, early, late, miss_early, miss_late,
+                                                     close, iterations)
+                .first;
+        }
+        late = early;
+        miss_late = miss_early;
+        step *= 2.0;
+    }
+    return std::nullopt;
+}
+
 }  // namespace
 
 BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory& descent,
@@ -98,41 +186,61 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     const double earliest = descent.start_time();
     const auto latest_crossing = descent.time_descending_through(request.site_elevation_m);
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
-
-    const auto miss_at = [&](double t_s) {
+    const double tolerance = request.separation_time_tolerance_s;
+    const auto flown_miss = [&](double t_s) {
         return miss(attempt(model, descent, request, settings, t_s, nullptr), request);
     };
-    // Separating too early fails too (the lander is still fast, the canopy has not slowed it),
-    // so the search walks back from the latest separation, doubling its step, to the first
-    // time that still stops in time; the solution lies between that and the step after it.
-    double late = latest;
-    double miss_late = miss_at(late);
-    double t_solution = latest;
-    bool stops = miss_late >= 0.0;
-    double step = first_step_back_s;
-    while (!stops && late > earliest) {
-        const double early = std::max(earliest, late - step);
-        const double miss_early = miss_at(early);
-        if (miss_early >= 0.0) {
-            std::uintmax_t iterations = 100;
-            const auto close = [&](double a, double b) {
-                return b - a <= request.separation_time_tolerance_s;
-            };
-            // The earlier end of the bracket still stops in time.
-            t_solution = boost::math::tools::toms748_solve(miss_at, early, late, miss_early,
-                                                           miss_late, close, iterations)
+    const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
+
+    std::optional<double> t_solution;
+    const double miss_latest = flown_miss(latest);
+    if (miss_latest >= 0.0) {
+        t_solution = latest;
+    } else {
+        // The closed-form miss plus the offset the last flight measured, solved on the descent
+        // record (no flight), gives the next separation to fly: the offset changes slowly
+        // along the descent, so two such flights land either side of the solution, close to
+        // it. From a bracket of flown misses, TOMS 748 solves the flown miss itself. Without
+        // one after a few guided flights, the search walks back from the latest separation.
+        Bracket b{best_modelled_separation(model, descent, request, earliest, latest), std::nullopt,
+                  latest, miss_latest};
+        double offset = miss_latest - modelled(latest);
+        constexpr int guided_flights = 2;
+        constexpr int most_guided_flights = 4;
+        for (int flight = 0; flight < most_guided_flights && b.width() > tolerance; ++flight) {
+            if (flight >= guided_flights && b.stopping_miss)
+                break;
+            const auto corrected = [&](double t_s) { return modelled(t_s) + offset; };
+            const double at_low = corrected(b.stops_at);
+            const double at_high = corrected(b.late);
+            double t_next = 0.5 * (b.stops_at + b.late);
+            if (!(at_low >= 0.0) && !b.stopping_miss) {
+                t_next = b.stops_at;  // not even the best separation stops, by the model: try it
+            } else if (at_low >= 0.0 && at_high < 0.0) {
+                std::uintmax_t iterations = 100;
+                const auto close = [&](double x, double y) { return y - x <= 0.1 * tolerance; };
+                t_next = boost::math::tools::toms748_solve(corrected, b.stops_at, b.late, at_low,
+                                                           at_high, close, iterations)
                              .first;
-            stops = true;
-            break;
+                t_next =
+                    std::clamp(t_next, b.stops_at + 0.25 * tolerance, b.late - 0.25 * tolerance);
+            }
+            const double m = flown_miss(t_next);
+            b.record(t_next, m);
+            if (t_next == b.late && !b.stopping_miss)
+                break;  // the best separation fails too
+            offset = m - modelled(t_next);
         }
-        late = early;
-        miss_late = miss_early;
-        step *= 2.0;
+        if (b.stopping_miss) {
+            t_solution = illinois_last_nonnegative(flown_miss, b.stops_at, *b.stopping_miss, b.late,
+                                                   b.late_miss, tolerance);
+        } else {
+            t_solution = walk_back(flown_miss, earliest, b.late, b.late_miss, tolerance);
+        }
     }
-    if (!stops)
-        t_solution = earliest;
-    Attempt solved = attempt(model, descent, request, settings, t_solution, history);
-    solved.burn.stops_in_time = stops && solved.reached_velocity;
+    Attempt solved =
+        attempt(model, descent, request, settings, t_solution.value_or(earliest), history);
+    solved.burn.stops_in_time = t_solution.has_value() && solved.reached_velocity;
     return solved.burn;
 }
 

@@ -10,6 +10,7 @@
 #include <fmt/format.h>
 
 #include "constants.hpp"
+#include "json_values.hpp"
 #include "results/key_figures.hpp"
 #include "sizing/size.hpp"
 #include "trade/design_variants.hpp"
@@ -198,8 +199,8 @@ DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_p
             // A figure every case shares (a frozen diameter) has that mean and no spread, not
             // the rounding of a sum of equal values.
             const bool all_equal = values.front() == values.back();
-            st.mean = all_equal ? values.front()
-                                : std::accumulate(values.begin(), values.end(), 0.0) / n;
+            st.mean =
+                all_equal ? values.front() : std::accumulate(values.begin(), values.end(), 0.0) / n;
             double squares = 0.0;
             for (const double v : values)
                 squares += (v - st.mean) * (v - st.mean);
@@ -247,14 +248,12 @@ nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
     out["body_radius_m"] = c.body_radius_m;
     nlohmann::ordered_json cases = nlohmann::ordered_json::array();
     for (const DispersedCase& k : c.cases) {
-        nlohmann::ordered_json figures = nlohmann::ordered_json::array();
-        for (const auto& f : k.figures)
-            figures.push_back(f && std::isfinite(*f) ? nlohmann::ordered_json(*f)
-                                                     : nlohmann::ordered_json());
         cases.push_back(
             {{"index", k.index},
              {"draws", k.draws},
-             {"figures", figures},
+             {"figures",
+              json::array_of(k.figures,
+                             [](const std::optional<double>& f) { return json::number(f); })},
              {"success", k.success},
              {"failed_checks", k.failed_checks},
              {"error", k.error},

@@ -1,7 +1,8 @@
 #pragma once
 
 // What the atmosphere suites share: a relative tolerance, the tolerance of a printed figure, a
-// layer's weight by Simpson's rule, and the smoothness checks every tabulated profile passes.
+// layer's weight by Simpson's rule, the check of a published row, and the smoothness and
+// hydrostatic checks every tabulated profile passes.
 
 #include <cmath>
 
@@ -48,11 +49,13 @@ inline void check_density_falls(const Atmosphere& atmosphere, double from_m, dou
     }
 }
 
-/// The density is continuous at `altitude_m`. Source: continuity by construction; 1e-9
-/// relative across a 2e-6 m step.
-inline void check_density_continuous_at(const Atmosphere& atmosphere, double altitude_m) {
-    CHECK(atmosphere.at(altitude_m + 1e-6).density_kg_m3 ==
-          relative(atmosphere.at(altitude_m - 1e-6).density_kg_m3, 1e-9));
+/// The density and the temperature are continuous at `altitude_m`. Source: continuity by
+/// construction; 1e-9 relative across a 2e-6 m step.
+inline void check_continuous_at(const Atmosphere& atmosphere, double altitude_m) {
+    const AtmosphereSample below = atmosphere.at(altitude_m - 1e-6);
+    const AtmosphereSample above = atmosphere.at(altitude_m + 1e-6);
+    CHECK(above.density_kg_m3 == relative(below.density_kg_m3, 1e-9));
+    CHECK(above.temperature_K == relative(below.temperature_K, 1e-9));
 }
 
 /// The density's slope has no kink at `altitude_m`: 20 m either side it changes by the
@@ -61,6 +64,39 @@ inline void check_density_continuous_at(const Atmosphere& atmosphere, double alt
 inline void check_no_slope_kink_at(const Atmosphere& atmosphere, double altitude_m) {
     CHECK(atmosphere.log_density_slope_per_m(altitude_m + 20.0) ==
           relative(atmosphere.log_density_slope_per_m(altitude_m - 20.0), 5e-3));
+}
+
+/// A row of a published table as a model must give it back: the temperature within an
+/// absolute tolerance, the density within a relative one (each from how the table prints it).
+struct PublishedRow {
+    double altitude_m;
+    double temperature_K;
+    double temperature_tolerance_K;
+    double density_kg_m3;
+    double density_tolerance;
+};
+
+/// The model gives the row's temperature and density at its altitude.
+inline void check_published_row(const Atmosphere& atmosphere, const PublishedRow& row) {
+    CAPTURE(row.altitude_m);
+    const AtmosphereSample sample = atmosphere.at(row.altitude_m);
+    CHECK(std::abs(sample.temperature_K - row.temperature_K) <= row.temperature_tolerance_K);
+    CHECK(sample.density_kg_m3 == relative(row.density_kg_m3, row.density_tolerance));
+}
+
+/// Above `from_m` up to `to_m` (every `step_m`) the model is isothermal at `temperature_K` and
+/// hydrostatic in a gas of `gas_constant_J_kgK` under the body's inverse-square gravity:
+/// dp/dh = -rho g with p = rho R T gives d(ln rho)/dh = -g / (R T); 1e-6 relative (the model's
+/// slope is a 1 m central difference).
+inline void check_isothermal_hydrostatic(const Atmosphere& atmosphere, const Body& body,
+                                         double gas_constant_J_kgK, double temperature_K,
+                                         double from_m, double to_m, double step_m) {
+    for (double h = from_m; h <= to_m; h += step_m) {
+        CAPTURE(h);
+        CHECK(atmosphere.at(h).temperature_K == temperature_K);
+        CHECK(atmosphere.log_density_slope_per_m(h) ==
+              relative(-body.gravity_m_s2(h) / (gas_constant_J_kgK * temperature_K), 1e-6));
+    }
 }
 
 }  // namespace ds::test

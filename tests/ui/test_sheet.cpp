@@ -404,8 +404,7 @@ private slots:
         std::unique_ptr<QChart> loads(loadsChart(flown, nullptr));
         bool said = false;
         for (QAbstractSeries* series : loads->series())
-            said = said ||
-                   series->name() == QStringLiteral("radiative heating not modelled for this body");
+            said = said || series->name() == QStringLiteral("radiative: not modelled");
         QVERIFY(said);
     }
 

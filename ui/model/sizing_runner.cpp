@@ -5,19 +5,9 @@
 #include "sizing/size.hpp"
 
 namespace ds {
-namespace {
-
-/// Long enough to fold a burst of edits (an undo of several, a pasted table) into one sizing,
-/// short enough to feel live; fields commit on Enter, not on each keystroke (our choice).
-constexpr int default_debounce_ms = 10;
-
-}  // namespace
 
 SizingRunner::SizingRunner(QObject* parent) : QObject(parent) {
-    m_debounce.setSingleShot(true);
-    m_debounce.setInterval(default_debounce_ms);
     m_clock.start();
-    connect(&m_debounce, &QTimer::timeout, this, &SizingRunner::startPending);
     connect(&m_watcher, &QFutureWatcher<Results>::finished, this, &SizingRunner::finished);
 }
 
@@ -25,9 +15,12 @@ void SizingRunner::request(const Design& design) {
     const bool wasBusy = isBusy();
     m_pending = design;
     m_pendingSince = m_clock.elapsed();
-    m_debounce.start();
     if (!wasBusy)
         emit busyChanged(true);
+    // At once when the worker is idle; an edit that arrives while it works waits for it, and
+    // only the newest of those is sized next.
+    if (!m_watcher.isRunning())
+        startPending();
 }
 
 void SizingRunner::startPending() {
@@ -47,8 +40,7 @@ void SizingRunner::finished() {
         emit resultsReady();
     }
     m_running.reset();
-    if (m_pending && !m_debounce.isActive())
-        startPending();
+    startPending();
     if (!isBusy())
         emit busyChanged(false);
 }

@@ -5,6 +5,7 @@
 #include <string_view>
 #include <vector>
 
+#include "design/schema.hpp"
 #include "design/writer.hpp"
 #include "results/caution.hpp"
 #include "results/key_figures.hpp"
@@ -13,31 +14,6 @@
 
 namespace ds::sheet {
 namespace {
-
-/// The unit a design key's suffix carries (design-file.md: units are in the key names).
-struct UnitSuffix {
-    std::string_view suffix;
-    const char* unit;
-};
-
-constexpr UnitSuffix unitSuffixes[] = {
-    {"_m", "m"},           {"_kg", "kg"},       {"_m_s", "m/s"},
-    {"_deg", "deg"},       {"_Pa", "Pa"},       {"_kg_m3", "kg/m^3"},
-    {"_K", "K"},           {"_s", "s"},         {"_J_kgK", "J/(kg K)"},
-    {"_m3_s2", "m^3/s^2"}, {"_rad_s", "rad/s"}, {"_W_cm2", "W/cm^2"},
-    {"_kg_m2", "kg/m^2"},  {"_g", "g"},
-};
-
-/// The longest unit suffix a key ends with ("_m_s" before "_s"), or none.
-const UnitSuffix* unitSuffixOf(std::string_view key) {
-    const UnitSuffix* best = nullptr;
-    for (const UnitSuffix& entry : unitSuffixes) {
-        if (key.size() > entry.suffix.size() && key.ends_with(entry.suffix) &&
-            (!best || entry.suffix.size() > best->suffix.size()))
-            best = &entry;
-    }
-    return best;
-}
 
 struct InputRow {
     QString key;
@@ -60,23 +36,27 @@ QString jsonValueText(const nlohmann::ordered_json& value) {
     return QString::fromStdString(value.dump());
 }
 
-void flatten(const nlohmann::ordered_json& node, const std::string& path, const std::string& leaf,
+void flatten(const nlohmann::ordered_json& node, const std::string& path,
              std::vector<InputRow>& rows) {
     if (node.is_object() && !node.empty()) {
         for (const auto& [key, value] : node.items())
-            flatten(value, path.empty() ? key : path + "." + key, key, rows);
+            flatten(value, path.empty() ? key : path + "." + key, rows);
         return;
     }
     if (node.is_array() && !node.empty()) {
         for (std::size_t i = 0; i < node.size(); ++i)
-            flatten(node[i], path + "[" + std::to_string(i) + "]", leaf, rows);
+            flatten(node[i], path + "[" + std::to_string(i) + "]", rows);
         return;
     }
     InputRow row;
     std::string key = path;
-    if (const UnitSuffix* suffix = unitSuffixOf(leaf); suffix && path.ends_with(leaf)) {
-        key.resize(key.size() - suffix->suffix.size());
-        row.unit = QString::fromUtf8(suffix->unit);
+    // The unit from the schema, in its own column: the key is shown without it.
+    if (const std::string_view unit = unit_of_path(path); !unit.empty()) {
+        row.unit = QString::fromUtf8(unit.data(), static_cast<qsizetype>(unit.size()));
+        const std::string spelled = unit_in_key_name(unit);
+        if (key.ends_with(spelled) && key.size() > spelled.size() &&
+            key[key.size() - spelled.size() - 1] == '_')
+            key.resize(key.size() - spelled.size() - 1);
     }
     row.key = QString::fromStdString(key);
     row.numeric = node.is_number();
@@ -91,7 +71,7 @@ std::vector<InputRow> inputRows(const Design& design) {
     for (const auto& [key, value] : document.items()) {
         if (key == "format" || key == "version")
             continue;
-        flatten(value, key, key, rows);
+        flatten(value, key, rows);
     }
     return rows;
 }

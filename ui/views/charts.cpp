@@ -77,24 +77,65 @@ Span spanOf(const Results& results, const Results* baseline,
     return span;
 }
 
-/// One quantity of the baseline against time, on its own axis.
-struct BaselineCurve {
-    QString name;
-    std::function<QPointF(const TrajectorySample&)> point;
-    QValueAxis* axis;
+/// One quantity of a two-axis chart against time.
+struct TimeCurve {
+    QString name;          ///< "deceleration"
+    QString baselineName;  ///< "baseline deceleration"
+    QString axisTitle;     ///< "deceleration (g)"
+    std::function<double(const TrajectorySample&)> value;
+    /// What the axis must hold, when more than the curve (another curve on the same axis).
+    std::function<double(const TrajectorySample&)> reach = nullptr;
 };
 
-/// The baseline of a two-axis chart: the left quantity dashed, the right dash-dotted.
-void attachBaselinePair(QChart* chart, const Results* baseline, const BaselineCurve& left,
-                        const BaselineCurve& right, QValueAxis* timeAxis) {
-    if (!baseline || baseline->history.empty())
-        return;
-    attach(chart,
-           historySeries(baseline->history, left.name, baselinePen(Qt::DashLine), left.point),
-           timeAxis, left.axis);
-    attach(chart,
-           historySeries(baseline->history, right.name, baselinePen(Qt::DashDotLine), right.point),
-           timeAxis, right.axis);
+/// A chart of two quantities against time, each on its own axis: the left in the primary ink,
+/// the right in the secondary.
+struct TimeChart {
+    QChart* chart;
+    QValueAxis* time;
+    QValueAxis* left;
+    QValueAxis* right;
+};
+
+/// The chart and its axes, ranged over the results and the baseline; no curves yet, so that
+/// what lies beneath them can be drawn first.
+TimeChart timeChart(const QString& title, const Results& results, const Results* baseline,
+                    const TimeCurve& left, const TimeCurve& right) {
+    QChart* chart = newChart(title);
+    TimeChart c{chart, addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom),
+                addValueAxis(chart, left.axisTitle, Qt::AlignLeft, primaryInk),
+                addValueAxis(chart, right.axisTitle, Qt::AlignRight, secondaryInk)};
+    const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
+    setNiceRange(c.time, std::min(0.0, time.low), time.high);
+    setNiceRange(c.left, 0.0, spanOf(results, baseline, left.reach ? left.reach : left.value).high);
+    setNiceRange(c.right, 0.0,
+                 spanOf(results, baseline, right.reach ? right.reach : right.value).high);
+    return c;
+}
+
+/// The two curves of the results, with the baseline's behind them: the left dashed, the right
+/// dash-dotted.
+void attachTimeCurves(const TimeChart& c, const Results& results, const Results* baseline,
+                      const TimeCurve& left, const TimeCurve& right) {
+    const auto point = [](const TimeCurve& curve) {
+        return [value = curve.value](const TrajectorySample& s) {
+            return QPointF(s.time_s, value(s));
+        };
+    };
+    if (baseline && !baseline->history.empty()) {
+        attach(c.chart,
+               historySeries(baseline->history, left.baselineName, baselinePen(Qt::DashLine),
+                             point(left)),
+               c.time, c.left);
+        attach(c.chart,
+               historySeries(baseline->history, right.baselineName, baselinePen(Qt::DashDotLine),
+                             point(right)),
+               c.time, c.right);
+    }
+    attach(c.chart, historySeries(results.history, left.name, resultPen(primaryInk), point(left)),
+           c.time, c.left);
+    attach(c.chart,
+           historySeries(results.history, right.name, resultPen(secondaryInk), point(right)),
+           c.time, c.right);
 }
 
 /// A single marked point with its label written beside it; kept out of the legend.
@@ -113,6 +154,16 @@ QScatterSeries* eventMarker(const QString& label, QPointF point) {
     marker->setPointLabelsColor(eventInk);
     marker->setPointLabelsClipping(false);
     return marker;
+}
+
+/// Where a drag device deployed, on the Mach curve.
+void markDeploy(const TimeChart& c, const QString& label, const DeployResults& deploy) {
+    if (!deploy.deployed || !deploy.deploy_time_s || !deploy.deploy_mach)
+        return;
+    QScatterSeries* marker =
+        eventMarker(label, QPointF(*deploy.deploy_time_s, *deploy.deploy_mach));
+    attach(c.chart, marker, c.time, c.left);
+    hideFromLegend(c.chart, marker);
 }
 
 /// The timeline's events from the interface on, numbered, with their names in a key in the
@@ -260,60 +311,40 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
     if (results.history.empty())
         return std::unique_ptr<QChart>(emptyChart(title));
 
-    QChart* chart = newChart(title);
-    QValueAxis* timeAxis = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
-    QValueAxis* loadAxis =
-        addValueAxis(chart, QStringLiteral("deceleration (g)"), Qt::AlignLeft, primaryInk);
-    QValueAxis* heatAxis =
-        addValueAxis(chart, QStringLiteral("heat flux (W/cm²)"), Qt::AlignRight, secondaryInk);
-
+    const TimeCurve deceleration{QStringLiteral("deceleration"),
+                                 QStringLiteral("baseline deceleration"),
+                                 QStringLiteral("deceleration (g)"),
+                                 [](const TrajectorySample& s) { return s.deceleration_g; }};
+    // The heat-flux axis holds the radiative curve too.
+    const TimeCurve convective{QStringLiteral("convective heat flux"),
+                               QStringLiteral("baseline heat flux"),
+                               QStringLiteral("heat flux (W/cm²)"),
+                               [](const TrajectorySample& s) { return s.heat_flux_W_cm2; },
+                               [](const TrajectorySample& s) {
+                                   return std::max(s.heat_flux_W_cm2, s.radiative_heat_flux_W_cm2);
+                               }};
+    const TimeChart c = timeChart(title, results, baseline, deceleration, convective);
+    attachTimeCurves(c, results, baseline, deceleration, convective);
     const bool radiative =
         std::any_of(results.history.begin(), results.history.end(),
                     [](const TrajectorySample& s) { return s.radiative_heat_flux_W_cm2 > 0.0; });
-    const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
-    const Span load =
-        spanOf(results, baseline, [](const TrajectorySample& s) { return s.deceleration_g; });
-    const Span heat = spanOf(results, baseline, [](const TrajectorySample& s) {
-        return std::max(s.heat_flux_W_cm2, s.radiative_heat_flux_W_cm2);
-    });
-    setNiceRange(timeAxis, std::min(0.0, time.low), time.high);
-    setNiceRange(loadAxis, 0.0, load.high);
-    setNiceRange(heatAxis, 0.0, heat.high);
-
-    const auto deceleration = [](const TrajectorySample& s) {
-        return QPointF(s.time_s, s.deceleration_g);
-    };
-    const auto convective = [](const TrajectorySample& s) {
-        return QPointF(s.time_s, s.heat_flux_W_cm2);
-    };
-    attachBaselinePair(chart, baseline,
-                       {QStringLiteral("baseline deceleration"), deceleration, loadAxis},
-                       {QStringLiteral("baseline heat flux"), convective, heatAxis}, timeAxis);
-    attach(chart,
-           historySeries(results.history, QStringLiteral("deceleration"), resultPen(primaryInk),
-                         deceleration),
-           timeAxis, loadAxis);
-    attach(chart,
-           historySeries(results.history, QStringLiteral("convective heat flux"),
-                         resultPen(secondaryInk), convective),
-           timeAxis, heatAxis);
     if (results.entry.radiative_heating == radiative_heating_not_modelled) {
         // A legend entry only: the flux drawn is convective, and the reader should know why.
         auto* note = new QLineSeries;
-        note->setName(QStringLiteral("radiative heating not modelled for this body"));
-        note->setPen(Qt::NoPen);
-        attach(chart, note, timeAxis, heatAxis);
+        note->setName(QStringLiteral("radiative: not modelled"));
+        note->setColor(Qt::transparent);  // no swatch: a note, not a curve
+        attach(c.chart, note, c.time, c.right);
     } else if (radiative) {
         QPen pen = resultPen(secondaryInk);
         pen.setStyle(Qt::DotLine);
-        attach(chart,
+        attach(c.chart,
                historySeries(results.history, QStringLiteral("radiative heat flux"), pen,
                              [](const TrajectorySample& s) {
                                  return QPointF(s.time_s, s.radiative_heat_flux_W_cm2);
                              }),
-               timeAxis, heatAxis);
+               c.time, c.right);
     }
-    return std::unique_ptr<QChart>(chart);
+    return std::unique_ptr<QChart>(c.chart);
 }
 
 std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
@@ -322,20 +353,14 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
     if (results.history.empty())
         return std::unique_ptr<QChart>(emptyChart(title));
 
-    QChart* chart = newChart(title);
-    QValueAxis* timeAxis = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
-    QValueAxis* machAxis =
-        addValueAxis(chart, QStringLiteral("Mach number"), Qt::AlignLeft, primaryInk);
-    QValueAxis* pressureAxis =
-        addValueAxis(chart, QStringLiteral("dynamic pressure (kPa)"), Qt::AlignRight, secondaryInk);
-    const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
-    const Span mach = spanOf(results, baseline, [](const TrajectorySample& s) { return s.mach; });
-    const Span pressure = spanOf(results, baseline, [](const TrajectorySample& s) {
-        return s.dynamic_pressure_Pa / pascalsPerKilopascal;
-    });
-    setNiceRange(timeAxis, std::min(0.0, time.low), time.high);
-    setNiceRange(machAxis, 0.0, mach.high);
-    setNiceRange(pressureAxis, 0.0, pressure.high);
+    const TimeCurve mach{QStringLiteral("Mach number"), QStringLiteral("baseline Mach"),
+                         QStringLiteral("Mach number"),
+                         [](const TrajectorySample& s) { return s.mach; }};
+    const TimeCurve pressure{
+        QStringLiteral("dynamic pressure"), QStringLiteral("baseline pressure"),
+        QStringLiteral("dynamic pressure (kPa)"),
+        [](const TrajectorySample& s) { return s.dynamic_pressure_Pa / pascalsPerKilopascal; }};
+    const TimeChart c = timeChart(title, results, baseline, mach, pressure);
 
     // The deploy window where one applies (Mars, or the design's own bounds), shaded over the
     // full height: a step outline on the Mach axis.
@@ -345,8 +370,8 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
     if (!intervals.empty()) {
         auto* band = new QAreaSeries;
         auto* outline = new QLineSeries(band);
-        const double bottom = machAxis->min();
-        const double top = machAxis->max();
+        const double bottom = c.left->min();
+        const double top = c.left->max();
         for (const auto& [start, end] : intervals) {
             outline->append(start, bottom);
             outline->append(start, top);
@@ -357,45 +382,17 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         band->setName(windowName(window));
         band->setBrush(windowFill);
         band->setPen(Qt::NoPen);
-        attach(chart, band, timeAxis, machAxis);
+        attach(c.chart, band, c.time, c.left);
     }
 
-    const auto machPoint = [](const TrajectorySample& s) { return QPointF(s.time_s, s.mach); };
-    const auto pressurePoint = [](const TrajectorySample& s) {
-        return QPointF(s.time_s, s.dynamic_pressure_Pa / pascalsPerKilopascal);
-    };
-    attachBaselinePair(chart, baseline, {QStringLiteral("baseline Mach"), machPoint, machAxis},
-                       {QStringLiteral("baseline pressure"), pressurePoint, pressureAxis},
-                       timeAxis);
-    attach(chart,
-           historySeries(results.history, QStringLiteral("Mach number"), resultPen(primaryInk),
-                         machPoint),
-           timeAxis, machAxis);
-    attach(chart,
-           historySeries(results.history, QStringLiteral("dynamic pressure"),
-                         resultPen(secondaryInk), pressurePoint),
-           timeAxis, pressureAxis);
+    attachTimeCurves(c, results, baseline, mach, pressure);
 
-    // A marker at each device's deploy, on the Mach curve.
-    const auto markDeploy = [&](const QString& name, bool deployed,
-                                const std::optional<double>& time_s,
-                                const std::optional<double>& deploy_mach) {
-        if (!deployed || !time_s || !deploy_mach)
-            return;
-        QScatterSeries* marker = eventMarker(name, QPointF(*time_s, *deploy_mach));
-        attach(chart, marker, timeAxis, machAxis);
-        hideFromLegend(chart, marker);
-    };
-    const ParachuteResults& parachute = results.parachute;
-    markDeploy(QStringLiteral("parachute deploy"), parachute.deployed, parachute.deploy_time_s,
-               parachute.deploy_mach);
-    if (const auto& d = results.decelerator) {
-        markDeploy(QStringLiteral("decelerator inflation"), d->deployed, d->deploy_time_s,
-                   d->deploy_mach);
-    }
-    if (const auto& d = results.drogue)
-        markDeploy(QStringLiteral("drogue deploy"), d->deployed, d->deploy_time_s, d->deploy_mach);
-    return std::unique_ptr<QChart>(chart);
+    markDeploy(c, QStringLiteral("parachute deploy"), results.parachute);
+    if (results.decelerator)
+        markDeploy(c, QStringLiteral("decelerator inflation"), *results.decelerator);
+    if (results.drogue)
+        markDeploy(c, QStringLiteral("drogue deploy"), *results.drogue);
+    return std::unique_ptr<QChart>(c.chart);
 }
 
 std::unique_ptr<QChart> massWaterfallChart(const Results& results) {

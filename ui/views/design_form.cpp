@@ -684,11 +684,11 @@ void DesignForm::refreshItems() {
         m_items->setItem(row, 0, new QTableWidgetItem(text("name")));
         m_items->setItem(row, 1, new QTableWidgetItem(text("mass_kg")));
         auto* group = new QComboBox(m_items);
-        for (const std::string_view name : mass_group_names())
+        for (const std::string_view name : enum_names<MassGroup>())
             group->addItem(fromView(name));
         group->setCurrentText(text("group"));
         auto* maturity = new QComboBox(m_items);
-        for (const std::string_view name : maturity_names())
+        for (const std::string_view name : enum_names<Maturity>())
             maturity->addItem(fromView(name));
         maturity->setCurrentText(text("maturity").isEmpty()
                                      ? fromView(to_string(Maturity::estimated))

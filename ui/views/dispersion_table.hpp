@@ -1,22 +1,12 @@
 #pragma once
 
-#include <optional>
-
-#include <QWidget>
-#include <nlohmann/json.hpp>
-
-QT_BEGIN_NAMESPACE
-class QTableWidget;
-QT_END_NAMESPACE
+#include "views/document_table.hpp"
 
 namespace ds {
 
-class DesignDocument;
-
 /// The design's "dispersions" as an editable table: a row per dispersed key, its distribution
-/// (normal with a standard deviation, or uniform between two bounds). Every change is one
-/// undoable edit of the document, checked by the strict reader like any other.
-class DispersionTable : public QWidget {
+/// (normal with a standard deviation, or uniform between two bounds).
+class DispersionTable : public DocumentTable {
     Q_OBJECT
 public:
     explicit DispersionTable(DesignDocument* document, QWidget* parent = nullptr);
@@ -24,15 +14,10 @@ public:
     QTableWidget* table() const { return m_table; }
 
 private:
-    void load();
-    void store(const QString& description);
-    void addRow();
-    void removeRow();
-
-    DesignDocument* m_document;
-    QTableWidget* m_table;
-    std::optional<nlohmann::ordered_json> m_shown;  ///< the dispersions the table shows
-    bool m_loading = false;
+    void showValue(const Json& list) override;
+    Json cellsValue() const override;
+    void addRow() override;
+    void removeRow() override;
 };
 
 }  // namespace ds

@@ -4,14 +4,12 @@
 #include <QClipboard>
 #include <QComboBox>
 #include <QEvent>
-#include <QHBoxLayout>
 #include <QHeaderView>
 #include <QKeyEvent>
 #include <QLocale>
 #include <QPushButton>
 #include <QRegularExpression>
 #include <QTableWidget>
-#include <QVBoxLayout>
 
 #include "model/design_document.hpp"
 
@@ -23,37 +21,20 @@ enum Column { altitudeColumn, eastColumn, northColumn, columnCount };
 const char* const windPointer = "/atmosphere/wind";
 
 /// A new table's first rows: calm at the ground, a breeze aloft (our own example).
-const DesignDocument::Json newTable = DesignDocument::Json::array(
-    {{{"altitude_m", 0.0}, {"east_m_s", 0.0}, {"north_m_s", 0.0}},
-     {{"altitude_m", 10000.0}, {"east_m_s", 10.0}, {"north_m_s", 0.0}}});
-const DesignDocument::Json newConstant = {{"east_m_s", 5.0}, {"north_m_s", 0.0}};
-
-QString numberText(const DesignDocument::Json& value) {
-    return value.is_number() ? QLocale::c().toString(value.get<double>(), 'g', 10) : QString();
-}
-
-/// A number the user typed as a number; anything else as text, for the reader to refuse.
-DesignDocument::Json typed(const QString& text) {
-    bool ok = false;
-    const double value = QLocale::c().toDouble(text.trimmed(), &ok);
-    return ok ? DesignDocument::Json(value) : DesignDocument::Json(text.trimmed().toStdString());
-}
+const DocumentTable::Json newTable =
+    DocumentTable::Json::array({{{"altitude_m", 0.0}, {"east_m_s", 0.0}, {"north_m_s", 0.0}},
+                                {{"altitude_m", 10000.0}, {"east_m_s", 10.0}, {"north_m_s", 0.0}}});
+const DocumentTable::Json newConstant = {{"east_m_s", 5.0}, {"north_m_s", 0.0}};
 
 }  // namespace
 
 WindTable::WindTable(DesignDocument* document, QWidget* parent)
-    : QWidget(parent),
-      m_document(document),
-      m_shape(new QComboBox(this)),
-      m_table(new QTableWidget(0, columnCount, this)),
-      m_add(new QPushButton(tr("Add row"), this)),
-      m_remove(new QPushButton(tr("Remove row"), this)) {
+    : DocumentTable(document, windPointer, tr("wind"),
+                    {tr("Altitude (m)"), tr("East (m/s)"), tr("North (m/s)")}, parent),
+      m_shape(new QComboBox(this)) {
     setObjectName(QStringLiteral("/atmosphere/wind"));
     m_shape->addItems({tr("no wind"), tr("one wind at every altitude"), tr("wind by altitude")});
-    m_table->setHorizontalHeaderLabels({tr("Altitude (m)"), tr("East (m/s)"), tr("North (m/s)")});
     m_table->horizontalHeader()->setSectionResizeMode(QHeaderView::Stretch);
-    m_table->verticalHeader()->setVisible(false);
-    m_table->setSelectionBehavior(QAbstractItemView::SelectRows);
     m_table->setMinimumHeight(90);
     m_table->setToolTip(
         tr("The wind the air moves with, toward the east and the north, by increasing "
@@ -62,39 +43,16 @@ WindTable::WindTable(DesignDocument* document, QWidget* parent)
     m_table->installEventFilter(this);
 
     // The buttons under the table: the form's field column is narrow.
-    auto* buttons = new QHBoxLayout;
-    buttons->addWidget(m_add);
-    buttons->addWidget(m_remove);
-    buttons->addStretch(1);
-    auto* layout = new QVBoxLayout(this);
-    layout->setContentsMargins(0, 0, 0, 0);
-    layout->addWidget(m_shape);
-    layout->addWidget(m_table);
-    layout->addLayout(buttons);
+    layOut(tr("Add row"), tr("Remove row"), Qt::Horizontal, m_shape);
 
     connect(m_shape, &QComboBox::activated, this, &WindTable::setShape);
-    connect(m_add, &QPushButton::clicked, this, &WindTable::addRow);
-    connect(m_remove, &QPushButton::clicked, this, &WindTable::removeRow);
-    connect(m_table, &QTableWidget::itemChanged, this, [this] {
-        if (!m_loading)
-            store(tr("wind"));
-    });
-    connect(m_document, &DesignDocument::changed, this, &WindTable::load);
     load();
 }
 
-void WindTable::load() {
-    const DesignDocument::Json wind = m_document->value(windPointer);
-    if (m_shown && wind == *m_shown)
-        return;  // an edit elsewhere in the design
-    m_shown = wind;
-    m_loading = true;
+void WindTable::showValue(const Json& wind) {
     const Shape shape = wind.is_object() ? constant : wind.is_array() ? table : none;
     m_shape->setCurrentIndex(shape);
-    const auto field = [](const DesignDocument::Json& row, const char* name) {
-        return row.is_object() && row.contains(name) ? row.at(name) : DesignDocument::Json();
-    };
-    const auto setRow = [&](int row, const DesignDocument::Json& values) {
+    const auto setRow = [&](int row, const Json& values) {
         m_table->setItem(row, altitudeColumn,
                          new QTableWidgetItem(numberText(field(values, "altitude_m"))));
         m_table->setItem(row, eastColumn,
@@ -119,31 +77,26 @@ void WindTable::load() {
     m_add->setVisible(shape == table);
     m_remove->setVisible(shape == table);
     m_remove->setEnabled(m_table->rowCount() > 1);
-    m_loading = false;
 }
 
-void WindTable::store(const QString& description) {
-    const auto text = [&](int row, int column) {
-        const QTableWidgetItem* item = m_table->item(row, column);
-        return item ? item->text() : QString();
-    };
-    DesignDocument::Json wind;
+DocumentTable::Json WindTable::cellsValue() const {
     if (m_shape->currentIndex() == constant && m_table->rowCount() > 0) {
-        wind = {{"east_m_s", typed(text(0, eastColumn))},
-                {"north_m_s", typed(text(0, northColumn))}};
-    } else if (m_shape->currentIndex() == table) {
-        wind = DesignDocument::Json::array();
-        for (int row = 0; row < m_table->rowCount(); ++row)
-            wind.push_back({{"altitude_m", typed(text(row, altitudeColumn))},
-                            {"east_m_s", typed(text(row, eastColumn))},
-                            {"north_m_s", typed(text(row, northColumn))}});
+        return {{"east_m_s", typed(cellText(0, eastColumn))},
+                {"north_m_s", typed(cellText(0, northColumn))}};
     }
-    m_document->setValue(windPointer, wind, description);
+    if (m_shape->currentIndex() != table)
+        return Json();
+    Json wind = Json::array();
+    for (int row = 0; row < m_table->rowCount(); ++row)
+        wind.push_back({{"altitude_m", typed(cellText(row, altitudeColumn))},
+                        {"east_m_s", typed(cellText(row, eastColumn))},
+                        {"north_m_s", typed(cellText(row, northColumn))}});
+    return wind;
 }
 
 void WindTable::setShape(int shape) {
-    const DesignDocument::Json wind = m_document->value(windPointer);
-    DesignDocument::Json next;
+    const Json wind = value();
+    Json next;
     if (shape == constant) {
         // The table's lowest row becomes the constant wind, when there is one.
         next = newConstant;
@@ -168,37 +121,37 @@ void WindTable::setShape(int shape) {
                       (shape == constant && wind.is_object()) ||
                       (shape == table && wind.is_array());
     if (!same)
-        m_document->setValue(windPointer, next, tr("wind kind"));
+        setValue(next, tr("wind kind"));
 }
 
 void WindTable::addRow() {
-    DesignDocument::Json wind = m_document->value(windPointer);
+    Json wind = value();
     if (!wind.is_array())
         return;
     // A row above the last one, with its wind.
-    DesignDocument::Json row = {{"altitude_m", 1000.0}, {"east_m_s", 0.0}, {"north_m_s", 0.0}};
+    Json row = {{"altitude_m", 1000.0}, {"east_m_s", 0.0}, {"north_m_s", 0.0}};
     if (!wind.empty() && wind.back().is_object()) {
         row = wind.back();
         if (row.contains("altitude_m") && row.at("altitude_m").is_number())
             row["altitude_m"] = row.at("altitude_m").get<double>() + 5000.0;
     }
     wind.push_back(row);
-    m_document->setValue(windPointer, wind, tr("add a wind row"));
+    setValue(wind, tr("add a wind row"));
 }
 
 void WindTable::removeRow() {
-    DesignDocument::Json wind = m_document->value(windPointer);
+    Json wind = value();
     const int row = m_table->currentRow();
     // The reader wants a row at least: the last one goes by choosing no wind.
     if (!wind.is_array() || wind.size() < 2 || row < 0 || row >= static_cast<int>(wind.size()))
         return;
     wind.erase(wind.begin() + row);
-    m_document->setValue(windPointer, wind, tr("remove a wind row"));
+    setValue(wind, tr("remove a wind row"));
 }
 
 bool WindTable::pasteRows(const QString& text) {
     static const QRegularExpression separators(QStringLiteral("[\\t,;]"));
-    DesignDocument::Json rows = DesignDocument::Json::array();
+    Json rows = Json::array();
     for (const QString& line :
          text.split(QRegularExpression(QStringLiteral("[\\r\\n]+")), Qt::SkipEmptyParts)) {
         const QStringList cells = line.split(separators);
@@ -218,7 +171,7 @@ bool WindTable::pasteRows(const QString& text) {
     }
     if (rows.empty())
         return false;
-    m_document->setValue(windPointer, rows, tr("paste the wind"));
+    setValue(rows, tr("paste the wind"));
     return true;
 }
 
@@ -228,7 +181,7 @@ bool WindTable::eventFilter(QObject* watched, QEvent* event) {
         if (pasteRows(QApplication::clipboard()->text()))
             return true;
     }
-    return QWidget::eventFilter(watched, event);
+    return DocumentTable::eventFilter(watched, event);
 }
 
 }  // namespace ds

@@ -1,25 +1,17 @@
 #pragma once
 
-#include <optional>
-
-#include <QWidget>
-#include <nlohmann/json.hpp>
+#include "views/document_table.hpp"
 
 QT_BEGIN_NAMESPACE
 class QComboBox;
-class QPushButton;
-class QTableWidget;
 QT_END_NAMESPACE
 
 namespace ds {
 
-class DesignDocument;
-
 /// The design's "atmosphere.wind" as an editable table: none, one constant wind (east and
-/// north), or rows of altitude, east and north by increasing altitude. Every change is one
-/// undoable edit of the document, checked by the strict reader like any other. Rows copied
-/// from a spreadsheet (tab- or comma-separated) paste over the table with Ctrl+V.
-class WindTable : public QWidget {
+/// north), or rows of altitude, east and north by increasing altitude. Rows copied from a
+/// spreadsheet (tab- or comma-separated) paste over the table with Ctrl+V.
+class WindTable : public DocumentTable {
     Q_OBJECT
 public:
     enum Shape { none, constant, table };
@@ -38,19 +30,13 @@ protected:
     bool eventFilter(QObject* watched, QEvent* event) override;
 
 private:
-    void load();
-    void store(const QString& description);
+    void showValue(const Json& wind) override;
+    Json cellsValue() const override;
     void setShape(int shape);
-    void addRow();
-    void removeRow();
+    void addRow() override;
+    void removeRow() override;
 
-    DesignDocument* m_document;
     QComboBox* m_shape;
-    QTableWidget* m_table;
-    QPushButton* m_add;
-    QPushButton* m_remove;
-    std::optional<nlohmann::ordered_json> m_shown;  ///< the wind the table shows
-    bool m_loading = false;
 };
 
 }  // namespace ds

@@ -15,22 +15,21 @@ using ds::test::printed_half_unit;
 using ds::test::relative;
 
 // Titan nominal engineering profile as quoted by Justus and Braun (2007) from Yelle et al.
-// (1997), listed in references.md (one secondary source): z, rho, T, with the density's
-// printed significant figures.
+// (1997), listed in references.md (one secondary source): z, rho, T. Every density is printed
+// to four significant figures, every temperature to 0.01 K.
 struct TitanRow {
     double altitude_m;
     double density_kg_m3;
     double temperature_K;
-    int density_figures;
 };
 constexpr TitanRow titan_rows[] = {
-    {0.0, 5.270, 92.89, 4},          {10000.0, 3.467, 83.29, 4},
-    {20000.0, 2.144, 76.44, 4},      {30000.0, 1.233, 72.20, 4},
-    {40000.0, 0.6731, 70.51, 4},     {50000.0, 0.3575, 71.16, 4},
-    {60000.0, 0.1825, 76.62, 4},     {80000.0, 0.04788, 122.88, 4},
-    {100000.0, 0.02219, 140.80, 4},  {200000.0, 1.393e-3, 173.76, 4},
-    {300000.0, 1.673e-4, 181.72, 4}, {500000.0, 4.114e-6, 173.96, 4},
+    {0.0, 5.270, 92.89},          {10000.0, 3.467, 83.29},      {20000.0, 2.144, 76.44},
+    {30000.0, 1.233, 72.20},      {40000.0, 0.6731, 70.51},     {50000.0, 0.3575, 71.16},
+    {60000.0, 0.1825, 76.62},     {80000.0, 0.04788, 122.88},   {100000.0, 0.02219, 140.80},
+    {200000.0, 1.393e-3, 173.76}, {300000.0, 1.673e-4, 181.72}, {500000.0, 4.114e-6, 173.96},
 };
+constexpr int density_figures = 4;
+constexpr double temperature_half_unit_K = 0.005;
 
 // Nitrogen, 28.0134 g/mol: the body preset's gas (core/body/presets.cpp).
 constexpr double nitrogen_gas_constant_J_kgK = 8314.462618 / 28.0134;
@@ -48,13 +47,9 @@ TEST_CASE(
     "(Justus and Braun 2007 quoting Yelle et al. 1997, secondary, references.md)") {
     const auto atmosphere = titan();
     for (const TitanRow& row : titan_rows) {
-        CAPTURE(row.altitude_m);
-        const ds::AtmosphereSample sample = atmosphere.at(row.altitude_m);
-        CHECK(
-            sample.density_kg_m3 ==
-            relative(row.density_kg_m3, printed_half_unit(row.density_kg_m3, row.density_figures)));
-        // Temperatures are printed to 0.01 K.
-        CHECK(std::abs(sample.temperature_K - row.temperature_K) <= 0.005);
+        ds::test::check_published_row(
+            atmosphere, {row.altitude_m, row.temperature_K, temperature_half_unit_K,
+                         row.density_kg_m3, printed_half_unit(row.density_kg_m3, density_figures)});
     }
     CHECK(atmosphere.top_row_altitude_m() == 500000.0);
 }
@@ -66,7 +61,7 @@ TEST_CASE(
     ds::test::check_density_falls(atmosphere, -1000.0, 1500000.0, 100.0);
     for (const TitanRow& row : titan_rows) {
         CAPTURE(row.altitude_m);
-        ds::test::check_density_continuous_at(atmosphere, row.altitude_m);
+        ds::test::check_continuous_at(atmosphere, row.altitude_m);
         ds::test::check_no_slope_kink_at(atmosphere, row.altitude_m);
     }
 }
@@ -98,12 +93,8 @@ TEST_CASE(
     "(inverse-square gravity, NASA NSSDC Titan GM and radius, references.md)") {
     const auto atmosphere = titan();
     const ds::Body body = *ds::body_preset("titan");
-    for (double h = 500000.0 + 1.0; h <= 1500000.0; h += 50000.0) {
-        CAPTURE(h);
-        CHECK(atmosphere.at(h).temperature_K == 173.96);
-        CHECK(atmosphere.log_density_slope_per_m(h) ==
-              relative(-body.gravity_m_s2(h) / (nitrogen_gas_constant_J_kgK * 173.96), 1e-6));
-    }
+    ds::test::check_isothermal_hydrostatic(atmosphere, body, nitrogen_gas_constant_J_kgK, 173.96,
+                                           500000.0 + 1.0, 1500000.0, 50000.0);
     // Source: derived by hand. mu / (R T) (1/(r0 + 500 km) - 1/(r0 + 1000 km)) with
     // mu = 8.9781e12, r0 = 2574.7 km, R = 296.803, T = 173.96 gives 7.9103, so
     // rho(1000 km) = 4.114e-6 exp(-7.9103) = 1.5096e-9 kg/m^3; 1e-3 relative.

@@ -5,8 +5,10 @@
 #include <fstream>
 #include <map>
 #include <set>
+#include <span>
 #include <sstream>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include <nlohmann/json.hpp>
@@ -17,6 +19,7 @@
 #include "design/schema.hpp"
 #include "design/writer.hpp"
 #include "parachute/canopy.hpp"
+#include "support/preset_body.hpp"
 
 namespace {
 
@@ -118,8 +121,7 @@ std::vector<Shape> every_shape() {
 ds::Design design_of(const Shape& shape) {
     ds::Design d;
     d.name = "every key";
-    d.body.preset = "mars";
-    d.body.body = *ds::body_preset("mars");
+    d.body = ds::test::preset_body("mars");
     d.mass.items = {{"lander", 120.5, ds::MassGroup::descent_stage, ds::Maturity::layout}};
     d.dispersions = {{"entry.flight_path_angle_deg", ds::DistributionKind::normal, 0.25, 0, 0},
                      {"atmosphere.density_scale", ds::DistributionKind::uniform, 0, 0.85, 1.15}};
@@ -347,10 +349,18 @@ TEST_CASE("the fuzz dictionary holds every key, section and name of the schema")
     for (const ds::SectionRow& section : ds::design_sections()) {
         CAPTURE(section.name);
         CHECK(has_key(section.name));
+        for (const ds::ElementKey& element : section.elements) {
+            CAPTURE(element.key);
+            CHECK(has_key(element.key));
+        }
     }
     for (const ds::KeyRow& row : ds::design_keys()) {
         CAPTURE(row.path());
         CHECK(has_key(row.key));
+        for (const ds::ElementKey& element : row.elements) {
+            CAPTURE(element.key);
+            CHECK(has_key(element.key));
+        }
         if (row.kind == ds::KeyKind::choice) {
             for (const std::string_view name : row.choices()) {
                 CAPTURE(name);
@@ -362,12 +372,108 @@ TEST_CASE("the fuzz dictionary holds every key, section and name of the schema")
         CAPTURE(name);
         CHECK(has_name(name));
     }
-    for (const auto& names : {ds::mass_group_names(), ds::maturity_names()}) {
+    for (const auto& names : {ds::enum_names<ds::MassGroup>(), ds::enum_names<ds::Maturity>()}) {
         for (const std::string_view name : names) {
             CAPTURE(name);
             CHECK(has_name(name));
         }
     }
+}
+
+namespace {
+
+/// Every key of the schema with a unit, the by-hand parts' own keys included: path and unit.
+std::vector<std::pair<std::string, std::string_view>> keys_and_units() {
+    std::vector<std::pair<std::string, std::string_view>> all;
+    for (const ds::SectionRow& section : ds::design_sections()) {
+        for (const ds::ElementKey& element : section.elements)
+            all.emplace_back(std::string(section.name) + "." + std::string(element.key),
+                             element.unit);
+    }
+    for (const ds::KeyRow& row : ds::design_keys()) {
+        if (row.kind != ds::KeyKind::by_hand)
+            all.emplace_back(row.path(), row.unit);
+        for (const ds::ElementKey& element : row.elements)
+            all.emplace_back(row.path() + "." + std::string(element.key), element.unit);
+    }
+    return all;
+}
+
+}  // namespace
+
+TEST_CASE("every key's name spells its schema unit, and a key without one spells none") {
+    std::set<std::string> spellings;
+    for (const auto& [path, unit] : keys_and_units()) {
+        if (!unit.empty())
+            spellings.insert("_" + ds::unit_in_key_name(unit));
+    }
+    // design-file.md: the unit is the end of the key's name.
+    for (const auto& [path, unit] : keys_and_units()) {
+        CAPTURE(path);
+        CAPTURE(unit);
+        if (!unit.empty()) {
+            CHECK(path.ends_with("_" + ds::unit_in_key_name(unit)));
+            continue;
+        }
+        for (const std::string& spelled : spellings) {
+            CAPTURE(spelled);
+            CHECK_FALSE(path.ends_with(spelled));
+        }
+    }
+    CHECK(ds::unit_in_key_name("m/s") == "m_s");
+    CHECK(ds::unit_in_key_name("kg/m^3") == "kg_m3");
+    CHECK(ds::unit_in_key_name("J/(kg K)") == "J_kgK");
+    CHECK(ds::unit_in_key_name("m^3/s^2") == "m3_s2");
+}
+
+TEST_CASE("the unit of any key of a written document comes from the schema") {
+    // Paths as the sheet flattens a written document; an empty unit: none.
+    const std::pair<std::string_view, std::string_view> cases[] = {
+        {"entry.velocity_m_s", "m/s"},
+        {"parachute.diameter_m", "m"},
+        {"parachute.diameter_m.size_for_velocity_m_s", "m/s"},
+        {"atmosphere.gas_constant_J_kgK", "J/(kg K)"},
+        {"atmosphere.wind[12].east_m_s", "m/s"},
+        {"atmosphere.wind.north_m_s", "m/s"},  // the constant wind
+        {"atmosphere.rows[0].density_kg_m3", "kg/m^3"},
+        {"mass.items[3].mass_kg", "kg"},
+        {"body.mu_m3_s2", "m^3/s^2"},
+        {"limits.peak_deceleration_max_g", "g"},
+        {"entry.lift_to_drag", ""},
+        {"mass.items[0].name", ""},
+        {"dispersions[0].sigma", ""},
+        {"body", ""},
+        {"no_such.key_m", ""},
+    };
+    for (const auto& [path, unit] : cases) {
+        CAPTURE(path);
+        CHECK(ds::unit_of_path(path) == unit);
+    }
+
+    // Every key inside the parts written by hand is one of the schema's element keys.
+    ds::Design design;
+    design.body.body = ds::Body{"test sphere", 2.0e6, 3.0e12, 1.5e-5, {250.0, 1.35, 1.8e-4, ""}};
+    design.atmosphere.model = ds::AtmosphereModel::table;
+    design.atmosphere.rows = {{0.0, 0.02, 210.0}, {50000.0, 1e-4, 170.0}};
+    design.atmosphere.wind = ds::WindDesign{{{0.0, 5.0, -2.0}, {9000.0, 20.0, 3.5}}, std::nullopt};
+    design.mass.items = {{"lander", 120.5, ds::MassGroup::descent_stage, ds::Maturity::layout}};
+    const Json document = ds::design_to_json(design);
+    const auto check_listed = [](const std::string& owner, const Json& object,
+                                 std::span<const ds::ElementKey> elements) {
+        REQUIRE(object.is_object());
+        for (const auto& item : object.items()) {
+            CAPTURE(owner);
+            CAPTURE(item.key());
+            CHECK(std::any_of(elements.begin(), elements.end(),
+                              [&](const ds::ElementKey& e) { return e.key == item.key(); }));
+        }
+    };
+    check_listed("body", document["body"], ds::find_section("body")->elements);
+    check_listed("atmosphere.rows", document["atmosphere"]["rows"][0],
+                 ds::find_key("atmosphere.rows")->elements);
+    check_listed("atmosphere.wind", document["atmosphere"]["wind"][0],
+                 ds::find_key("atmosphere.wind")->elements);
+    check_listed("mass.items", document["mass"]["items"][0], ds::find_key("mass.items")->elements);
 }
 
 TEST_CASE("every check points at a key of the schema") {

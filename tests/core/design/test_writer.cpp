@@ -12,6 +12,7 @@
 #include "design/reader.hpp"
 #include "design/schema.hpp"
 #include "design/writer.hpp"
+#include "support/preset_body.hpp"
 
 namespace {
 
@@ -19,8 +20,7 @@ namespace {
 ds::Design example_design() {
     ds::Design d;
     d.name = "round trip";
-    d.body.preset = "mars";
-    d.body.body = *ds::body_preset("mars");
+    d.body = ds::test::preset_body("mars");
     d.atmosphere.model = ds::AtmosphereModel::exponential;
     d.atmosphere.surface_density_kg_m3 = 0.020;
     d.atmosphere.scale_height_m = 11100.0;
@@ -119,8 +119,7 @@ TEST_CASE("round trip of a custom body, table rows, sizing requests and changed 
 
 TEST_CASE("round trip of a standard atmosphere with gas overrides and a pressure trigger") {
     ds::Design design = example_design();
-    design.body.preset = "earth";
-    design.body.body = *ds::body_preset("earth");
+    design.body = ds::test::preset_body("earth");
     design.site.elevation_m = 250.0;
     design.atmosphere = {};
     design.atmosphere.model = ds::AtmosphereModel::standard;

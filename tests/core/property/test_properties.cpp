@@ -24,6 +24,7 @@
 #include "design/writer.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
+#include "support/preset_body.hpp"
 #include "support/results_lookup.hpp"
 #include "support/samples.hpp"
 
@@ -113,8 +114,7 @@ ds::Design random_design(const ds::Design& base, Draw& draw) {
     d.name = "random design";
 
     const BodyCase& body = draw.pick(body_cases);
-    d.body.preset = std::string(body.preset);
-    d.body.body = *ds::body_preset(body.preset);
+    d.body = ds::test::preset_body(std::string(body.preset));
     d.body.body.rotation_rad_s = 0.0;
     d.atmosphere = {};
     d.atmosphere.model = ds::AtmosphereModel::standard;

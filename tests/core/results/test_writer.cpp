@@ -49,7 +49,7 @@ ds::Results sample_results() {
     r.parachute.mass_kg = 14.5;
     r.parachute.heat_shield_jettison_time_s = 270.0;
     r.parachute.descent_velocity_m_s = 62.0;
-    r.decelerator = ds::DeceleratorResults{true, 180.0, 21000.0, 3.4, 2100.0, 6.0, 55.0};
+    r.decelerator = ds::DeceleratorResults{{true, 180.0, 21000.0, 3.4, 2100.0}, 6.0, 55.0};
     r.terminal.method = ds::TerminalMethod::retro;
     r.terminal.ignition_altitude_m = 1500.0;
     r.terminal.ignition_velocity_m_s = 80.0;
@@ -64,7 +64,7 @@ ds::Results sample_results() {
     r.terminal.impact_velocity_m_s = 16.5;
     r.terminal.impact_energy_J = 51000.0;
     r.terminal.hover_time_s = 14.0;
-    r.timeline.events = {{"parachute deploy", 250.0, 9000.0, 410.0}};
+    r.timeline.events = {{{}, "parachute deploy", 250.0, 9000.0, 410.0}};
     r.timeline.margin_s = 95.0;
     r.timeline.available_s = 130.0;
     r.timeline.needed_s = 35.0;

@@ -10,6 +10,7 @@
 #include "results/key_figures.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/size.hpp"
+#include "support/preset_body.hpp"
 #include "support/results_lookup.hpp"
 #include "support/samples.hpp"
 
@@ -198,8 +199,7 @@ TEST_CASE("radiative heating is reported for an Earth return at 11 km/s and abse
     CHECK(*earth.entry.peak_radiative_heat_flux_W_cm2 > 0.0);
     CHECK(*earth.entry.peak_radiative_heat_flux_W_cm2 < earth.entry.peak_heat_flux_W_cm2);
     ds::Design venus = sample("small-ballistic-station");
-    venus.body.preset = "venus";
-    venus.body.body = *ds::body_preset("venus");
+    venus.body = ds::test::preset_body("venus");
     venus.atmosphere.model = ds::AtmosphereModel::standard;
     venus.entry.interface_altitude_m = 200000.0;
     venus.entry.velocity_m_s = 10500.0;

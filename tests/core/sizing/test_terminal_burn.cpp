@@ -122,3 +122,39 @@ TEST_CASE("a burn that must end above the site ends there (an airbag release hei
     CHECK(b.end_state[ds::StateIndex::altitude] == doctest::Approx(12.0).epsilon(1e-3));
     CHECK(std::abs(ds::speed(b.end_state) - 0.5) < 0.05);
 }
+
+TEST_CASE("the separation is solved to its tolerance, the latest that stops in time") {
+    // Free fall from 6 km at 60 m/s with no drag, then a = 2.5 g braking at Isp 1e12 s: the
+    // closed form h(t) - (v(t)^2 - 2^2) / (2 (a - g)) = 0, with h(t) = 6000 - 60 t - g t^2 / 2 and
+    // v(t) = 60 + g t, gives the separation to the 1e-5 of the gravity's variation here (some
+    // 0.3 ms). Against a solve at 1e-9 s, a solve at each tolerance is within it, and never later
+    // (the solution is the stopping end of its bracket).
+    const VerticalDrop drop;
+    const double a = 2.5 * g;
+    const auto needed = [&](double t) {
+        const double v = 60.0 + g * t;
+        return 6000.0 - 60.0 * t - 0.5 * g * t * t - (v * v - 4.0) / (2.0 * (a - g));
+    };
+    double low = 0.0;  // the closed form's root, bisected by hand
+    double high = 60.0;
+    for (int i = 0; i < 200; ++i) {
+        const double mid = 0.5 * (low + high);
+        (needed(mid) >= 0.0 ? low : high) = mid;
+    }
+    const auto solve = [&](double tolerance) {
+        ds::BurnRequest r = request(a, 1e12);
+        r.separation_time_tolerance_s = tolerance;
+        const ds::BurnSolution b =
+            ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
+        REQUIRE(b.stops_in_time);
+        return b.separation_time_s;
+    };
+    const double reference = solve(1e-9);
+    CHECK(reference == doctest::Approx(low).epsilon(1e-3 / low));
+    for (const double tolerance : {1e-3, 1e-6}) {
+        CAPTURE(tolerance);
+        const double t = solve(tolerance);
+        CHECK(t <= reference + 1e-9);
+        CHECK(t >= reference - 1.5 * tolerance);
+    }
+}
