@@ -314,13 +314,15 @@ Json corridorJson(const EntryCorridor& c) {
                             {"sizings", row.sizings},
                             {"error", row.error}});
     }
-    return Json{{"angle_key", c.angle_key},
-                {"speed_key", c.speed_key.empty() ? Json() : Json(c.speed_key)},
-                {"frame", c.frame},
-                {"angle_tolerance_deg", corridor_angle_tolerance_deg},
-                {"nominal_speed", c.nominal_speed},
-                {"nominal_angle_deg", c.nominal_angle_deg},
-                {"speeds", rows}};
+    return Json{
+        {"angle_key", c.angle_key},
+        {"speed_key", c.speed_key.empty() ? Json() : Json(c.speed_key)},
+        {"frame", c.frame},
+        {"angle_tolerance_deg", corridor_angle_tolerance_deg},
+        {"nominal_speed", c.nominal_speed},
+        {"nominal_angle_deg", c.nominal_angle_deg},
+        {"dispersion_error", c.dispersion_error.empty() ? Json() : Json(c.dispersion_error)},
+        {"speeds", rows}};
 }
 
 std::string dispersedText(const std::optional<DispersedAngle>& d) {
@@ -349,6 +351,8 @@ void printCorridorTable(const EntryCorridor& c) {
                    row.shallow->angle_deg, side(row.shallow), row.steep->angle_deg, side(row.steep),
                    row.width_deg());
     }
+    if (!c.dispersion_error.empty())
+        fmt::print("\nthe dispersions could not be flown: {}\n", c.dispersion_error);
     for (const CorridorSpeed& row : c.speeds) {
         if (!row.shallow || !row.steep)
             continue;

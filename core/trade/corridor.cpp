@@ -202,27 +202,34 @@ private:
     double share_;
 };
 
-/// The design's dispersions flown about an angle.
+/// The design's dispersions flown about an angle; none, with why in `error`, when they cannot
+/// be (a dispersed key the corridor's document lacks), or when cancelled.
 std::optional<DispersedAngle> disperse_at(const DesignVariants& variants,
                                           const EntryCorridor& corridor, const CorridorSpeed& row,
                                           double angle_deg,
                                           const std::filesystem::path& base_directory,
-                                          const CorridorSettings& settings, Progress& progress) {
+                                          const CorridorSettings& settings, Progress& progress,
+                                          std::string& error) {
     std::vector<std::pair<std::string, double>> values;
     if (!corridor.speed_key.empty())
         values.emplace_back(corridor.speed_key, row.speed);
     values.emplace_back(corridor.angle_key, angle_deg);
     const DesignReadResult read = variants.with(values);
-    if (!read.ok())
+    if (!read.ok()) {
+        error = read.errors.front().text();
         return std::nullopt;
+    }
     DispersionSettings d;
     d.runs = settings.runs;
     d.seed = settings.seed;
     d.threads = settings.threads;
     d.progress = &progress;
-    const auto campaign = run_dispersions(*read.design, base_directory, d).first;
-    if (!campaign || campaign->cases.size() != settings.runs)
+    auto [campaign, why] = run_dispersions(*read.design, base_directory, d);
+    if (!campaign || campaign->cases.size() != settings.runs) {
+        if (!why.empty())
+            error = why;
         return std::nullopt;
+    }
     const DispersionSummary s = summarize(*campaign);
     return DispersedAngle{angle_deg,    s.runs,       s.successes, s.success_probability,
                           s.wilson_low, s.wilson_high};
@@ -297,7 +304,8 @@ std::pair<std::optional<EntryCorridor>, std::string> find_corridor(
                 from += share;
                 if (!row.shallow || part.cancelled())
                     continue;
-                *slot = disperse_at(varied, corridor, row, angle, base_directory, settings, part);
+                *slot = disperse_at(varied, corridor, row, angle, base_directory, settings, part,
+                                    corridor.dispersion_error);
             }
         }
     }

@@ -92,6 +92,10 @@ struct EntryCorridor {
     double nominal_speed = 0.0;
     double nominal_angle_deg = 0.0;
     std::vector<CorridorSpeed> speeds;
+    /// Why the dispersions could not be flown (a dispersed key the corridor's document lacks,
+    /// such as an approach's periapsis once the corridor aims it at its angle); empty when they
+    /// were, or were not asked for.
+    std::string dispersion_error;
 };
 
 struct CorridorSettings {

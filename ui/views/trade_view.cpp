@@ -113,6 +113,11 @@ QString corridorSummary(const EntryCorridor& c) {
         }
         lines << line;
     }
+    if (!c.dispersion_error.empty()) {
+        lines << QCoreApplication::translate("ds::TradeView",
+                                             "The dispersions could not be flown: %1.")
+                     .arg(text(c.dispersion_error).toHtmlEscaped());
+    }
     return QCoreApplication::translate("ds::TradeView", "Angles in %1 (%2).")
                .arg(text(c.angle_key), text(c.frame)) +
            QStringLiteral("<br>") + lines.join(QStringLiteral("<br>"));

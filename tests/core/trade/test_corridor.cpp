@@ -202,6 +202,17 @@ TEST_CASE("an arrival's corridor is in its inertial angle, a periapsis aim turne
           doctest::Approx(row.shallow->angle_deg).epsilon(1e-12));
     CHECK(row.shallow->relative_angle_deg < row.shallow->inertial_angle_deg);
     CHECK(row.inertial_speed_m_s > row.relative_speed_m_s);
+
+    // A dispersion of the periapsis the corridor no longer aims at cannot be flown: said, not
+    // left out in silence.
+    arrival.dispersions = {
+        {"entry.approach.periapsis_altitude_m", ds::DistributionKind::normal, 500.0, 0.0, 0.0}};
+    ds::CorridorSettings dispersed;
+    dispersed.runs = 20;
+    const ds::EntryCorridor without = corridor_of(arrival, dispersed);
+    CHECK_FALSE(without.speeds.front().dispersed_centre);
+    CHECK(without.dispersion_error.find("entry.approach.periapsis_altitude_m") !=
+          std::string::npos);
 }
 
 TEST_CASE("with dispersions, the success at the corridor's centre and at its bounds") {
