@@ -335,6 +335,34 @@ private slots:
                  qPrintable(QString::number(apart)));
     }
 
+    void anEntryFromOrbitHasItsSectionAndItsBurnIsOffTheFlightCharts() {
+        Design orbiting = m_design;
+        orbiting.entry.orbit = OrbitDesign{250e3, 400e3, -13.0, 225.0};
+        orbiting.entry.velocity_frame = VelocityFrame::inertial;
+        const Results results = size_design(orbiting);
+        QVERIFY(results.orbit);
+        QCOMPARE(QString::fromStdString(results.timeline.events.front().name),
+                 QStringLiteral("deorbit burn"));
+        const QString html = sheetHtml(orbiting, results, m_context);
+        const qsizetype at = html.indexOf("<h2>Deorbit burn</h2>");
+        QVERIFY(at > html.indexOf("<h2>Key figures</h2>"));
+        QVERIFY(at < html.indexOf("<h2>Mass budget</h2>"));
+        QVERIFY(html.indexOf(QStringLiteral("%1").arg(results.orbit->delta_v_m_s, 0, 'f', 2), at) >
+                at);
+        QVERIFY(!html.contains("<h2>Approach</h2>"));
+        QVERIFY(!sheetHtml(m_design, m_results, m_context).contains("<h2>Deorbit burn</h2>"));
+        // The ground track numbers the events from the interface on: the burn, thousands of km
+        // behind, is in the timeline's table but not on the chart.
+        std::unique_ptr<QChart> chart(groundTrackChart(results, nullptr));
+        int markers = 0;
+        for (QAbstractSeries* series : chart->series()) {
+            if (auto* marker = qobject_cast<QScatterSeries*>(series);
+                marker && !series->name().startsWith("target"))
+                markers += static_cast<int>(series->name().split(',').size());
+        }
+        QCOMPARE(markers, static_cast<int>(results.timeline.events.size()) - 1);
+    }
+
     void landingSectionGivesThePointAndTheMiss() {
         const QString html = sheetHtml(m_design, m_results, m_context);
         const qsizetype at = html.indexOf("<h2>Landing</h2>");
