@@ -2,10 +2,12 @@
 // number key, choices from the core's name tables, shapes that rewrite the document with the
 // schema's fallbacks, and rows shown only where they apply.
 
+#include <QApplication>
 #include <QComboBox>
 #include <QTableWidget>
 #include <QTest>
 #include <QUndoStack>
+#include <QWheelEvent>
 
 #include "body/body.hpp"
 #include "design/key_path.hpp"
@@ -110,6 +112,34 @@ private slots:
         QVERIFY(!document.design()->atmosphere.wind);
         QVERIFY(document.value("/atmosphere/wind").is_null());
         QCOMPARE(table->rowCount(), 0);
+    }
+
+    void theWheelPassesOverAChoiceThatHasNoFocus() {
+        // Regression: scrolling the form with the wheel switched the parachute type as the
+        // pointer passed over its box. Without focus the box ignores the wheel; focused, it
+        // takes it.
+        DesignDocument document;
+        QString error;
+        QVERIFY2(document.open(sample, &error), qPrintable(error));
+        DesignForm form(&document);
+        form.show();
+        auto* type = form.findChild<QComboBox*>(QStringLiteral("/parachute/type"));
+        QVERIFY(type);
+        const int before = type->currentIndex();
+        const auto wheel = [&] {
+            const QPointF at(type->width() / 2.0, type->height() / 2.0);
+            QWheelEvent event(at, type->mapToGlobal(at), QPoint(), QPoint(0, -120), Qt::NoButton,
+                              Qt::NoModifier, Qt::NoScrollPhase, false);
+            QApplication::sendEvent(type, &event);
+        };
+        type->clearFocus();
+        wheel();
+        QCOMPARE(type->currentIndex(), before);
+        QCOMPARE(type->focusPolicy(), Qt::StrongFocus);
+        type->setFocus();
+        QTRY_VERIFY(type->hasFocus());
+        wheel();
+        QVERIFY(type->currentIndex() != before);
     }
 
     void everyNumberKeyOfTheShownObjectsHasAField() {

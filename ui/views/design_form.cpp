@@ -17,6 +17,7 @@
 #include "design/key_path.hpp"
 #include "design/schema.hpp"
 #include "model/design_document.hpp"
+#include "views/wheel_guard.hpp"
 #include "views/wind_table.hpp"
 
 namespace ds {
@@ -253,6 +254,7 @@ QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
                                  const std::string& pointer,
                                  const std::vector<std::pair<QString, std::string>>& choices) {
     auto* combo = new QComboBox(this);
+    guardWheel(combo);
     combo->setObjectName(QString::fromStdString(pointer));
     std::vector<std::string> values;
     for (const auto& [shown, value] : choices) {
@@ -273,6 +275,7 @@ QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QS
                                 const QStringList& shapes, std::function<int()> current,
                                 std::function<void(int)> select) {
     auto* combo = new QComboBox(this);
+    guardWheel(combo);
     combo->setObjectName(name);
     combo->addItems(shapes);
     form->addRow(label, combo);
@@ -684,10 +687,12 @@ void DesignForm::refreshItems() {
         m_items->setItem(row, 0, new QTableWidgetItem(text("name")));
         m_items->setItem(row, 1, new QTableWidgetItem(text("mass_kg")));
         auto* group = new QComboBox(m_items);
+        guardWheel(group);
         for (const std::string_view name : enum_names<MassGroup>())
             group->addItem(fromView(name));
         group->setCurrentText(text("group"));
         auto* maturity = new QComboBox(m_items);
+        guardWheel(maturity);
         for (const std::string_view name : enum_names<Maturity>())
             maturity->addItem(fromView(name));
         maturity->setCurrentText(text("maturity").isEmpty()
