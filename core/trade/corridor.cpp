@@ -271,7 +271,11 @@ std::pair<EntryCorridor, Json> corridor_keys(const DesignVariants& variants, con
 std::pair<std::optional<EntryCorridor>, std::string> find_corridor(
     const DesignVariants& variants, const Design& design,
     const std::filesystem::path& base_directory, const CorridorSettings& settings) {
-    auto [corridor, document] = corridor_keys(variants, design);
+    // Named variables, not a structured binding: a lambda below captures the corridor, which
+    // clang 14 (the fuzzer's compiler) does not allow of a binding.
+    std::pair<EntryCorridor, Json> keys = corridor_keys(variants, design);
+    EntryCorridor& corridor = keys.first;
+    Json& document = keys.second;
     if (corridor.speed_key.empty() && !settings.speeds.empty()) {
         return {std::nullopt,
                 "an entry from orbit takes its speed from its orbit: its corridor is at the "
