@@ -117,6 +117,34 @@ TEST_CASE(
     CHECK(r.out.find("reaches the ground at") != std::string::npos);
 }
 
+TEST_CASE(
+    "without the window's program beside it, the window and the sheet say how to build them") {
+    // descent-sizer does not load Qt: it hands the window and the sheet to descent-sizer-window
+    // from its own folder. A copy of the command alone in a folder of its own has none.
+    const fs::path alone = ds::test::scratch("descent-sizer-cli-alone") / "descent-sizer";
+    fs::copy_file(DESCENT_SIZER_BINARY, alone, fs::copy_options::overwrite_existing);
+    const fs::path dir = alone.parent_path();
+    for (const std::string& arguments :
+         {std::string(), "sheet " + sample("small-ballistic-station") + " -o " +
+                             ds::test::quoted(dir / "sheet.html")}) {
+        CAPTURE(arguments);
+        const std::string command = ds::test::quoted(alone) + " " + arguments + " >" +
+                                    ds::test::quoted(dir / "out.txt") + " 2>" +
+                                    ds::test::quoted(dir / "err.txt");
+        const int status = std::system(command.c_str());
+        CHECK(WIFEXITED(status));
+        CHECK(WEXITSTATUS(status) == 1);
+        const std::string err = ds::test::file_text(dir / "err.txt");
+        CHECK(err.find("descent-sizer-window") != std::string::npos);
+        CHECK(err.find("-DDESCENT_SIZER_BUILD_GUI=ON") != std::string::npos);
+    }
+    // The commands themselves need nothing beside them.
+    const std::string size = ds::test::quoted(alone) + " size " +
+                             sample("small-ballistic-station") + " >" +
+                             ds::test::quoted(dir / "out.txt");
+    CHECK(std::system(size.c_str()) == 0);
+}
+
 TEST_CASE("a missing design file is refused with a non-zero exit") {
     const Run r = run("size /nonexistent/design.json");
     CHECK(r.exit_code != 0);
