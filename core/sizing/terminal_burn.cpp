@@ -200,8 +200,9 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
         // The closed-form miss plus the offset the last flight measured, solved on the descent
         // record (no flight), gives the next separation to fly: the offset changes slowly
         // along the descent, so two such flights land either side of the solution, close to
-        // it. From a bracket of flown misses, TOMS 748 solves the flown miss itself. Without
-        // one after a few guided flights, the search walks back from the latest separation.
+        // it. From a bracket of flown misses, the Illinois method solves the flown miss itself.
+        // Without one after a few guided flights, the search walks back from the latest
+        // separation.
         Bracket b{best_modelled_separation(model, descent, request, earliest, latest), std::nullopt,
                   latest, miss_latest};
         double offset = miss_latest - modelled(latest);
