@@ -247,8 +247,9 @@ Equilibrium slow_manifold_equilibrium(const FlightModel& model, const Stage& sta
     return equilibrium_of(level.front());
 }
 
-FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const Equilibrium e = quasi_steady_equilibrium(model, stage, y);
+FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y,
+                             int orders) {
+    const Equilibrium e = slow_manifold_equilibrium(model, stage, y, orders);
     FlightState out = y;
     out[StateIndex::east_velocity] = e.velocity_enu_m_s.x();
     out[StateIndex::north_velocity] = e.velocity_enu_m_s.y();

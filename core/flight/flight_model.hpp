@@ -85,8 +85,10 @@ Equilibrium quasi_steady_equilibrium(const FlightModel& model, const Stage& stag
 Equilibrium slow_manifold_equilibrium(const FlightModel& model, const Stage& stage,
                                       const FlightState& y, int orders);
 
-/// The state with its velocity replaced by the quasi-steady equilibrium.
-FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y);
+/// The state with its velocity replaced by the equilibrium (of the slow manifold's first order,
+/// the quasi-steady one, unless more are asked for).
+FlightState onto_equilibrium(const FlightModel& model, const Stage& stage, const FlightState& y,
+                             int orders = 1);
 
 /// The equations of the quasi-steady descent: position and heat loads as in flight_derivative;
 /// the velocity changes at the slope of its equilibrium in altitude times the sink rate, so a

@@ -119,12 +119,8 @@ double canopy_diameter_for_flown_speed(const FlightModel& model, const DragDevic
     stage.drag_devices = {canopy_shape, {body_drag_area_m2, 1.0, {}}};
     const auto excess_speed = [&](double diameter_m) {
         stage.drag_devices.front().area_m2 = frontal_area_m2(diameter_m);
-        const Equilibrium flown =
-            slow_manifold_equilibrium(model, stage, where, sizing_equilibrium_orders);
-        FlightState settled = where;
-        settled[StateIndex::east_velocity] = flown.velocity_enu_m_s.x();
-        settled[StateIndex::north_velocity] = flown.velocity_enu_m_s.y();
-        settled[StateIndex::up_velocity] = flown.velocity_enu_m_s.z();
+        const FlightState settled =
+            onto_equilibrium(model, stage, where, sizing_equilibrium_orders);
         return flight_conditions(model, stage, settled).air_speed_m_s - target_m_s;
     };
     // The speed falls as the canopy grows; 1e-10 of the diameter is far inside the 0.1 % the

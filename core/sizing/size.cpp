@@ -308,15 +308,17 @@ void fill_canopy_deploy(const CanopyType& type, double diameter_m, double drag_c
 }
 
 /// The drogue: its deploy, and its release at the main parachute's (when that deployed).
-ParachuteResults drogue_results(const Evaluation& e, const DrogueDesign& design) {
+ParachuteResults drogue_results(const Evaluation& e, const Design& design) {
     ParachuteResults p;
-    const CanopyType type = *canopy_type(design.type);
-    const double drag_coefficient = design.drag_coefficient.value_or(type.drag_coefficient);
-    p.diameter_m = design.diameter_m;
+    const DrogueDesign& drogue = *design.drogue;
+    const double drag_coefficient = drogue_device(design).drag_coefficient;
+    p.diameter_m = drogue.diameter_m;
     p.drag_coefficient = drag_coefficient;
     p.mass_kg = e.drogue_kg;
-    if (e.entry.drogue)
-        fill_canopy_deploy(type, design.diameter_m, drag_coefficient, *e.entry.drogue, p);
+    if (e.entry.drogue) {
+        fill_canopy_deploy(*canopy_type(drogue.type), drogue.diameter_m, drag_coefficient,
+                           *e.entry.drogue, p);
+    }
     return p;
 }
 
@@ -866,7 +868,7 @@ Results size_design(const Design& design, SizingOptions options) {
         results.decelerator = d;
     }
     if (design.drogue)
-        results.drogue = drogue_results(e, *design.drogue);
+        results.drogue = drogue_results(e, design);
     fill_parachute(e, model, results.parachute);
     fill_terminal(e, design, results.terminal);
     fill_conic(e, design, model.body, results);
