@@ -53,6 +53,19 @@ struct Limits {
     double subsonic_canopy_deploy_mach_max = 1.0;
     /// Timeline margin below this is marginal; below zero fails (common practice).
     double timeline_margin_min_s = 10.0;
+    /// A powered descent lit during the entry (supersonic retro-propulsion). Its ignition
+    /// envelope: wind-tunnel tests of retro-propulsion into a supersonic flow span about Mach
+    /// 2 to 4.6 (from memory), so Mach 4 is our bound; 15 kPa of dynamic pressure at ignition is
+    /// our default for the engines' start and the loads on the aeroshell (common practice: set
+    /// both to the vehicle's own analysis and test).
+    double ignition_mach_max = 4.0;
+    double ignition_dynamic_pressure_max_Pa = 15000.0;
+    /// Full thrust over the weight at ignition: margin over hovering to steer and to absorb the
+    /// gravity losses (common practice).
+    double thrust_to_weight_min = 1.5;
+    /// Loaded propellant over the entry mass: above about a third the budget grows faster than
+    /// what it lands (common practice).
+    double propellant_fraction_max = 0.35;
     /// A physics check within this fraction of its limit is "marginal" (common practice).
     double marginal_band = 0.10;
 

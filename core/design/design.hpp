@@ -220,7 +220,10 @@ struct SequenceDesign {
     bool operator==(const SequenceDesign&) const = default;
 };
 
-enum class TerminalMethod { retro, airbag, tethered, none };
+/// How the lander comes down at the end. All but `supersonic_retro` begin under the parachute;
+/// `supersonic_retro` lights its engines during the entry (or the decelerator's phase) and flies
+/// a powered descent to touchdown without a parachute.
+enum class TerminalMethod { retro, airbag, tethered, none, supersonic_retro };
 
 struct TerminalDesign {
     TerminalMethod method = TerminalMethod::retro;
@@ -239,6 +242,16 @@ struct TerminalDesign {
     /// need with its reserve and residual). A dispersion flies the nominal vehicle with both.
     std::optional<double> thrust_N;
     std::optional<double> propellant_loaded_kg;
+    /// supersonic_retro: the engines light when this trigger is crossed (Mach, Pa or m), and
+    /// the throttle is solved between min_throttle and `throttle` so that the burn ends at the
+    /// end-of-burn speed at the site.
+    TriggerKind trigger = TriggerKind::mach;
+    double trigger_value = 0.0;
+    double min_throttle = 0.3;
+    /// supersonic_retro: the share of the aeroshell's (and decelerator's) drag kept while the
+    /// engines fire into the flow, 0 to 1. The default 0 is the conservative case (common
+    /// practice; see DEVELOPERS.md for the published trend).
+    double drag_preservation = 0.0;
 
     bool operator==(const TerminalDesign&) const = default;
 };
@@ -259,11 +272,12 @@ constexpr Names<AtmosphereModel, 3> name_table(AtmosphereModel) {
              {AtmosphereModel::table, "table"},
              {AtmosphereModel::standard, "standard"}}};
 }
-constexpr Names<TerminalMethod, 4> name_table(TerminalMethod) {
+constexpr Names<TerminalMethod, 5> name_table(TerminalMethod) {
     return {{{TerminalMethod::retro, "retro"},
              {TerminalMethod::airbag, "airbag"},
              {TerminalMethod::tethered, "tethered"},
-             {TerminalMethod::none, "none"}}};
+             {TerminalMethod::none, "none"},
+             {TerminalMethod::supersonic_retro, "supersonic-retro"}}};
 }
 constexpr Names<MassGroup, 5> name_table(MassGroup) {
     return {{{MassGroup::deorbit_stage, "deorbit stage"},
@@ -313,7 +327,8 @@ struct Design {
     MassDesign mass;
     std::optional<DeceleratorDesign> decelerator;
     std::optional<DrogueDesign> drogue;
-    ParachuteDesign parachute;
+    /// None: no parachute (a supersonic retro-propulsive descent, or a ballistic impact).
+    std::optional<ParachuteDesign> parachute;
     SequenceDesign sequence;
     TerminalDesign terminal;
     Limits limits;

@@ -128,6 +128,12 @@ public:
 
     bool has(std::string_view key) const { return object_->contains(std::string(key)); }
 
+    /// A key's value without asking for it (null when absent).
+    const Json* peek(std::string_view key) const {
+        const auto it = object_->find(std::string(key));
+        return it == object_->end() ? nullptr : &*it;
+    }
+
     /// Whether a key was asked for already.
     bool asked(std::string_view key) const {
         return std::find(read_.begin(), read_.end(), key) != read_.end();
@@ -259,6 +265,7 @@ public:
         check_interface_above_site();
         check_conic_entry();
         check_table_coverage();
+        check_terminal_sequence();
         return design_;
     }
 
@@ -307,6 +314,15 @@ private:
         auto f = top.object(section.name, need);
         if (!f)
             return;
+        if (section.name == "parachute") {
+            parachute_ = f;
+            if (says_no_parachute(*f))
+                return;
+        }
+        if (section.name == "drogue")
+            drogue_ = f;
+        if (section.name == "terminal")
+            terminal_ = f;
         if (section.add)
             section.add(design_);
         if (section.name == "atmosphere") {
@@ -387,9 +403,12 @@ private:
                     const Selection& selection) {
         std::vector<std::string_view> members;
         std::vector<std::string_view> given;
+        const KeyRow* first = nullptr;
         for (const KeyRow* row : keys_of(section)) {
             if (row->group != &group)
                 continue;
+            if (!first)
+                first = row;
             members.push_back(row->key);
             if (f.has(row->key))
                 given.push_back(row->key);
@@ -398,7 +417,13 @@ private:
             if (row->group == &group)
                 read_key(f, *row, selection);
         }
-        if (group.required && given.empty()) {
+        // A group of another method's keys (an ignition trigger for a canopy method) is not
+        // needed; its keys, if given, have been refused.
+        const bool group_belongs =
+            first->methods.empty() ||
+            (selection.method && std::find(first->methods.begin(), first->methods.end(),
+                                           *selection.method) != first->methods.end());
+        if (group.required && given.empty() && group_belongs) {
             f.report_here(fmt::format("needs one {}: {}", group.name, alternatives(members)));
         } else if (given.size() > 1) {
             f.report_here(
@@ -772,6 +797,63 @@ private:
         f.report_unknown();
     }
 
+    /// `"parachute": {"type": "none"}` says what leaving the section out says: no parachute.
+    /// Any other key beside it is refused.
+    static bool says_no_parachute(Fields& f) {
+        const Json* type = f.peek("type");
+        if (!type || !type->is_string() || type->get<std::string>() != "none")
+            return false;
+        f.value("type", Need::required);
+        f.report_unknown();
+        return true;
+    }
+
+    /// The parachute against the terminal method: a method that begins under a canopy needs
+    /// one, a powered descent from the entry flies without one (and without a drogue), and a
+    /// drogue needs a main parachute to hand over to. A powered descent's deepest throttle is
+    /// no more than its throttle.
+    void check_terminal_sequence() {
+        if (drogue_ && design_.drogue && !design_.parachute) {
+            drogue_->report_here("a drogue needs a main parachute to hand over to: add a "
+                                 "parachute section, or remove the drogue");
+        }
+        if (!terminal_ || !read_ok("terminal.method"))
+            return;
+        const TerminalMethod method = design_.terminal.method;
+        const std::string name(to_string(method));
+        if (method == TerminalMethod::supersonic_retro) {
+            if (parachute_ && design_.parachute) {
+                parachute_->report_here(
+                    "not with terminal.method \"supersonic-retro\": a powered descent from the "
+                    "entry flies without a parachute (remove the section, or give \"type\": "
+                    "\"none\")");
+            }
+            if (drogue_ && design_.drogue) {
+                drogue_->report_here("not with terminal.method \"supersonic-retro\": a powered "
+                                     "descent from the entry flies without a drogue");
+            }
+            const TerminalDesign& t = design_.terminal;
+            if (t.min_throttle > t.throttle) {
+                if (read_ok("terminal.min_throttle")) {
+                    terminal_->report("min_throttle",
+                                      fmt::format("must be no more than the throttle ({}), got {}",
+                                                  t.throttle, t.min_throttle));
+                } else {
+                    terminal_->report("throttle",
+                                      fmt::format("must be at least the deepest throttle ({}, its "
+                                                  "default), got {}",
+                                                  t.min_throttle, t.throttle));
+                }
+            }
+        } else if (method != TerminalMethod::none && !design_.parachute) {
+            terminal_->report(
+                "method",
+                fmt::format("\"{}\" begins under a parachute: add a parachute section, or use "
+                            "\"supersonic-retro\" for a powered descent from the entry",
+                            name));
+        }
+    }
+
     void check_nose_radius(Fields& f) {
         const AeroshellDesign& aeroshell = design_.aeroshell;
         if (!read_ok("aeroshell.nose_radius_m") || !aeroshell.diameter_m)
@@ -1026,6 +1108,9 @@ private:
     std::optional<Fields> atmosphere_;
     std::optional<Fields> site_;
     std::optional<Fields> entry_;
+    std::optional<Fields> parachute_;
+    std::optional<Fields> drogue_;
+    std::optional<Fields> terminal_;
     bool table_ok_ = false;
     std::string_view table_key_;
     /// The keys read and set, for the checks that span two of them.

@@ -260,11 +260,13 @@ constexpr ValueRange longitude_range{.at_least = -360.0, .at_most = 360.0};
 constexpr double wind_scale_max = 10.0;
 
 constexpr std::array powered_methods{TerminalMethod::retro, TerminalMethod::airbag,
-                                     TerminalMethod::tethered};
+                                     TerminalMethod::tethered, TerminalMethod::supersonic_retro};
+constexpr std::array supersonic_retro_method{TerminalMethod::supersonic_retro};
 constexpr std::array airbag_method{TerminalMethod::airbag};
 constexpr std::array tethered_method{TerminalMethod::tethered};
 
 const KeyGroup deploy_trigger{"deploy trigger", true, "Deploy when"};
+const KeyGroup ignition_trigger{"ignition trigger", true, "Ignite when"};
 const KeyGroup approach_aim{"approach aim", true, "Aimed at"};
 // What an approach or an orbit gives in place of the interface state.
 constexpr std::array<std::string_view, 2> interface_state_keys{"velocity_m_s",
@@ -293,7 +295,8 @@ constexpr std::array method_texts{
     ChoiceText{"retro", "retro-rockets to touchdown"},
     ChoiceText{"airbag", "airbags"},
     ChoiceText{"tethered", "tethered lowering"},
-    ChoiceText{"none", "none (land on the canopy)"},
+    ChoiceText{"none", "none (land on the canopy, or strike the ground)"},
+    ChoiceText{"supersonic-retro", "supersonic retro-propulsion from the entry (no parachute)"},
 };
 
 // ---- The document's objects ------------------------------------------------------------------
@@ -347,7 +350,13 @@ const std::array sections{
                .label = "Drogue parachute",
                .absent_text = "none",
                .present_text = "before the main parachute"},
-    SectionRow{.name = "parachute"},
+    SectionRow{.name = "parachute",
+               .need = KeyNeed::optional,
+               .present = [](const Design& d) { return d.parachute.has_value(); },
+               .add = [](Design& d) { d.parachute.emplace(); },
+               .label = "Parachute",
+               .absent_text = "none (a powered descent from the entry, or a ballistic impact)",
+               .present_text = "main parachute"},
     SectionRow{.name = "sequence", .need = KeyNeed::optional},
     SectionRow{.name = "terminal"},
     SectionRow{.name = "limits", .need = KeyNeed::optional, .trade_inputs = false},
@@ -1013,6 +1022,41 @@ const std::array keys{
            .typical = {{0.5, 3.0}},
            .fallback = 2.0},
     KeyRow{.section = "terminal",
+           .key = "ignition_mach",
+           .need = KeyNeed::optional,
+           .range = positive,
+           .number = trigger<&Design::terminal, TriggerKind::mach>,
+           .methods = supersonic_retro_method,
+           .group = &ignition_trigger,
+           .label = "Ignition Mach",
+           .typical = {{2.0, 3.5}},
+           .fallback = 3.0,
+           .shape_text = "Mach falls to"},
+    KeyRow{.section = "terminal",
+           .key = "ignition_dynamic_pressure_Pa",
+           .need = KeyNeed::optional,
+           .range = positive,
+           .unit = "Pa",
+           .number = trigger<&Design::terminal, TriggerKind::dynamic_pressure>,
+           .methods = supersonic_retro_method,
+           .group = &ignition_trigger,
+           .label = "Ignition dynamic pressure",
+           .typical = {{2000, 10000}},
+           .fallback = 5000,
+           .shape_text = "dynamic pressure falls to"},
+    KeyRow{.section = "terminal",
+           .key = "ignition_altitude_m",
+           .need = KeyNeed::optional,
+           .range = any_finite,
+           .unit = "m",
+           .number = trigger<&Design::terminal, TriggerKind::altitude>,
+           .methods = supersonic_retro_method,
+           .group = &ignition_trigger,
+           .label = "Ignition altitude",
+           .typical = {{3000, 10000}},
+           .fallback = 6000,
+           .shape_text = "altitude falls to"},
+    KeyRow{.section = "terminal",
            .key = "throttle",
            .need = KeyNeed::defaulted,
            .range = {.above = 0.0, .at_most = 1.0},
@@ -1020,6 +1064,22 @@ const std::array keys{
            .methods = powered_methods,
            .label = "Throttle",
            .typical = {{0.6, 1.0}}},
+    KeyRow{.section = "terminal",
+           .key = "min_throttle",
+           .need = KeyNeed::defaulted,
+           .range = {.above = 0.0, .at_most = 1.0},
+           .number = member<&Design::terminal, &TerminalDesign::min_throttle>,
+           .methods = supersonic_retro_method,
+           .label = "Deepest throttle",
+           .typical = {{0.2, 0.5}}},
+    KeyRow{.section = "terminal",
+           .key = "drag_preservation",
+           .need = KeyNeed::defaulted,
+           .range = {.at_least = 0.0, .at_most = 1.0},
+           .number = member<&Design::terminal, &TerminalDesign::drag_preservation>,
+           .methods = supersonic_retro_method,
+           .label = "Drag kept under thrust",
+           .typical = {{0.0, 0.5}}},
     KeyRow{.section = "terminal",
            .key = "propellant_reserve_fraction",
            .need = KeyNeed::defaulted,
@@ -1111,6 +1171,10 @@ const std::array keys{
     limit<&Limits::jettison_dynamic_pressure_max_Pa>("jettison_dynamic_pressure_max_Pa", "Pa"),
     limit<&Limits::subsonic_canopy_deploy_mach_max>("subsonic_canopy_deploy_mach_max", ""),
     limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s"),
+    limit<&Limits::ignition_mach_max>("ignition_mach_max", ""),
+    limit<&Limits::ignition_dynamic_pressure_max_Pa>("ignition_dynamic_pressure_max_Pa", "Pa"),
+    limit<&Limits::thrust_to_weight_min>("thrust_to_weight_min", ""),
+    limit<&Limits::propellant_fraction_max>("propellant_fraction_max", ""),
     // A marginal band is a fraction of the limit (our bound).
     limit<&Limits::marginal_band>("marginal_band", "", fraction_of_one),
 
@@ -1169,6 +1233,13 @@ constexpr std::array checks{
     CheckField{"drop_mass", "parachute.mass_kg"},
     CheckField{"propellant_load", "terminal.propellant_reserve_fraction"},
     CheckField{"trajectory", "entry.flight_path_angle_deg"},
+    CheckField{"ignition_trigger", "terminal.ignition_mach"},
+    CheckField{"ignition_mach", "terminal.ignition_mach"},
+    CheckField{"ignition_dynamic_pressure", "terminal.ignition_mach"},
+    CheckField{"burn_deceleration", "terminal.thrust_to_weight"},
+    CheckField{"thrust_to_weight", "terminal.thrust_to_weight"},
+    CheckField{"propellant_fraction", "terminal.ignition_mach"},
+    CheckField{"ballistic_impact", "aeroshell.diameter_m"},
 };
 
 }  // namespace

@@ -159,6 +159,19 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     // the integrator's innermost loop.
     c.deceleration_g =
         std::sqrt(c.drag_N * c.drag_N + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
+    if (stage.thrust_N > 0.0) {
+        c.thrust_N = stage.thrust_N;
+        c.throttle = stage.throttle;
+        if (stage.thrust_reference_area_m2 > 0.0 && c.dynamic_pressure_Pa > 0.0) {
+            c.thrust_coefficient =
+                stage.thrust_N / (c.dynamic_pressure_Pa * stage.thrust_reference_area_m2);
+        }
+        const double along = c.drag_N + c.thrust_N;
+        c.sensed_deceleration_g =
+            std::sqrt(along * along + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
+    } else {
+        c.sensed_deceleration_g = c.deceleration_g;
+    }
     if (stage.nose_radius_m > 0.0) {
         c.convective_heat_flux_W_m2 = sutton_graves_heat_flux_W_m2(
             model.body.gas.sutton_graves_k, air.density_kg_m3, stage.nose_radius_m, velocity);
@@ -190,9 +203,14 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
         }
     }
     if (stage.thrust_N > 0.0) {
-        const double ground_speed = v.norm();
-        if (ground_speed > 0.0)
-            a -= (stage.thrust_N / (m * ground_speed)) * v;
+        if (stage.thrust_against_air) {
+            if (c.air_speed_m_s > 0.0)
+                a -= (stage.thrust_N / (m * c.air_speed_m_s)) * c.air_velocity_m_s;
+        } else {
+            const double ground_speed = v.norm();
+            if (ground_speed > 0.0)
+                a -= (stage.thrust_N / (m * ground_speed)) * v;
+        }
     }
 
     FlightState dy;

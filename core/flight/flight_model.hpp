@@ -34,6 +34,12 @@ struct FlightConditions {
     double deceleration_g = 0.0;  ///< sqrt(drag^2 + lift^2) / m / g0
     double convective_heat_flux_W_m2 = 0.0;
     double radiative_heat_flux_W_m2 = 0.0;
+    double thrust_N = 0.0;
+    double throttle = 0.0;            ///< thrust over full thrust (Stage::throttle)
+    double thrust_coefficient = 0.0;  ///< T / (q A) with the stage's reference area; 0: none
+    /// What the vehicle feels: sqrt((drag + thrust)^2 + lift^2) / m / g0, the thrust taken
+    /// along the drag (exact for a burn against the air velocity).
+    double sensed_deceleration_g = 0.0;
 };
 
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
@@ -49,7 +55,8 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
 /// lift is L/D x drag, perpendicular to that velocity in the vertical plane, rotated about it
 /// by the bank angle (a positive bank turns it to the right of the flight); with the air
 /// velocity vertical there is no vertical plane and no lift. Thrust acts against the
-/// planet-relative velocity. Singular at the poles (latitude +-90 deg).
+/// planet-relative velocity, or against the air-relative one (Stage::thrust_against_air).
+/// Singular at the poles (latitude +-90 deg).
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y);
 
 /// How far a flight is from settled, as the larger of |dV/dt| / g and |a_perp| / g, the

@@ -26,6 +26,10 @@ double flight_quantity(FlightQuantity quantity, const FlightConditions& conditio
             return conditions.convective_heat_flux_W_m2;
         case FlightQuantity::radiative_heat_flux:
             return conditions.radiative_heat_flux_W_m2;
+        case FlightQuantity::flight_path_angle:
+            return radians_to_degrees(flight_path_angle_rad(y));
+        case FlightQuantity::sensed_deceleration:
+            return conditions.sensed_deceleration_g;
     }
     return 0.0;
 }
@@ -45,6 +49,8 @@ TrajectorySample trajectory_sample(double time_s, const FlightConditions& c, con
     s.latitude_deg = radians_to_degrees(y[StateIndex::latitude]);
     s.longitude_deg = radians_to_degrees(y[StateIndex::longitude]);
     s.azimuth_deg = radians_to_degrees(azimuth_rad(y));
+    s.throttle = c.throttle;
+    s.thrust_coefficient = c.thrust_coefficient;
     return s;
 }
 

@@ -19,6 +19,8 @@ enum class FlightQuantity {
     deceleration,         ///< g
     heat_flux,            ///< W/m^2, convective
     radiative_heat_flux,  ///< W/m^2
+    flight_path_angle,    ///< deg, planet-relative
+    sensed_deceleration,  ///< g, thrust included (FlightConditions::sensed_deceleration_g)
 };
 
 double flight_quantity(FlightQuantity quantity, const FlightConditions& conditions,

@@ -39,6 +39,13 @@ struct Stage {
     double nose_radius_m = 0.0;  ///< 0: no stagnation heating is computed for this stage
     double thrust_N = 0.0;       ///< along the velocity vector, braking
     double specific_impulse_s = 0.0;
+    /// Thrust against the velocity through the air (a gravity turn flown into the flow)
+    /// instead of against the velocity over the ground.
+    bool thrust_against_air = false;
+    /// For the record: the thrust over the engines' full thrust, and the reference area of the
+    /// thrust coefficient C_T = T / (q A) (0: none is recorded).
+    double throttle = 0.0;
+    double thrust_reference_area_m2 = 0.0;
 
     /// Sum of Cd A over the devices at a Mach number, m^2.
     double drag_area_m2(double mach) const;

@@ -19,6 +19,9 @@ struct TrajectorySample {
     double longitude_deg = 0.0;
     double azimuth_deg = 0.0;   ///< clockwise from north
     double crossrange_m = 0.0;  ///< across the entry's great circle, positive to the right
+    double throttle = 0.0;      ///< thrust over full thrust; 0 with the engines off
+    /// T / (q A) on the aeroshell's frontal area, during a burn into the flow; 0 otherwise.
+    double thrust_coefficient = 0.0;
 };
 
 }  // namespace ds

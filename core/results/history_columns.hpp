@@ -15,7 +15,7 @@ struct HistoryColumn {
 };
 
 /// The history's figures in the order both documents write them.
-inline constexpr std::array<HistoryColumn, 14> history_columns{{
+inline constexpr std::array<HistoryColumn, 16> history_columns{{
     {"time_s", &TrajectorySample::time_s},
     {"altitude_m", &TrajectorySample::altitude_m},
     {"downrange_m", &TrajectorySample::downrange_m},
@@ -30,6 +30,8 @@ inline constexpr std::array<HistoryColumn, 14> history_columns{{
     {"longitude_deg", &TrajectorySample::longitude_deg},
     {"azimuth_deg", &TrajectorySample::azimuth_deg},
     {"crossrange_m", &TrajectorySample::crossrange_m},
+    {"throttle", &TrajectorySample::throttle},
+    {"thrust_coefficient", &TrajectorySample::thrust_coefficient},
 }};
 
 }  // namespace ds

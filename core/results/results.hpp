@@ -148,6 +148,26 @@ struct DeceleratorResults : DeployResults {
     double mass_kg = 0.0;
 };
 
+/// A powered descent lit during the entry (supersonic_retro): where the engines light, how they
+/// fly into the flow, and what the burn puts on the vehicle.
+struct PoweredDescentResults {
+    double ignition_mach = 0.0;
+    double ignition_dynamic_pressure_Pa = 0.0;
+    double ignition_flight_path_angle_deg = 0.0;
+    /// Full thrust over the vehicle's weight at ignition (local gravity there).
+    double thrust_to_weight_at_ignition = 0.0;
+    /// C_T = T / (q A) at ignition, on the aeroshell's frontal area, at the throttle flown.
+    double thrust_coefficient_at_ignition = 0.0;
+    double throttle = 0.0;  ///< solved, over full thrust
+    /// Even the deepest throttle stopped above the site at the trigger: the ignition was solved
+    /// later along the flight instead, at that throttle.
+    bool ignition_delayed = false;
+    double drag_preservation = 0.0;  ///< the design's share of aeroshell drag kept
+    double peak_deceleration_g = 0.0;  ///< sensed over the burn: thrust and drag
+    double peak_dynamic_pressure_Pa = 0.0;  ///< over the burn
+    double propellant_fraction = 0.0;  ///< loaded propellant over the entry mass
+};
+
 struct TerminalResults {
     TerminalMethod method = TerminalMethod::retro;
     std::optional<double> ignition_altitude_m;
@@ -166,6 +186,7 @@ struct TerminalResults {
     /// Planet-relative horizontal speed at touchdown (retro, none), at release (airbag), or of
     /// the hovering stage while the payload touches down (tethered).
     std::optional<double> touchdown_horizontal_velocity_m_s;
+    std::optional<PoweredDescentResults> powered_descent;  ///< supersonic_retro
 };
 
 /// A place on the ground under the flight: where it is and where it lies on the entry's track.

@@ -141,6 +141,22 @@ Json decelerator_to_json(const DeceleratorResults& decelerator) {
     return out;
 }
 
+Json powered_descent_to_json(const PoweredDescentResults& p) {
+    Json out;
+    out["ignition_mach"] = number(p.ignition_mach);
+    out["ignition_dynamic_pressure_Pa"] = number(p.ignition_dynamic_pressure_Pa);
+    out["ignition_flight_path_angle_deg"] = number(p.ignition_flight_path_angle_deg);
+    out["thrust_to_weight_at_ignition"] = number(p.thrust_to_weight_at_ignition);
+    out["thrust_coefficient_at_ignition"] = number(p.thrust_coefficient_at_ignition);
+    out["throttle"] = number(p.throttle);
+    out["ignition_delayed"] = p.ignition_delayed;
+    out["drag_preservation"] = number(p.drag_preservation);
+    out["peak_deceleration_g"] = number(p.peak_deceleration_g);
+    out["peak_dynamic_pressure_Pa"] = number(p.peak_dynamic_pressure_Pa);
+    out["propellant_fraction"] = number(p.propellant_fraction);
+    return out;
+}
+
 Json terminal_to_json(const TerminalResults& terminal) {
     Json out;
     out["method"] = to_string(terminal.method);
@@ -158,6 +174,7 @@ Json terminal_to_json(const TerminalResults& terminal) {
     out["impact_energy_J"] = number(terminal.impact_energy_J);
     out["hover_time_s"] = number(terminal.hover_time_s);
     out["touchdown_horizontal_velocity_m_s"] = number(terminal.touchdown_horizontal_velocity_m_s);
+    out["powered_descent"] = object_or_null(terminal.powered_descent, powered_descent_to_json);
     return out;
 }
 

@@ -28,8 +28,6 @@ std::vector<Peak> entry_peaks() {
             {"peak radiative heat flux", FlightQuantity::radiative_heat_flux}};
 }
 
-// Ends of an entry-like phase, in this order.
-enum EndIndex : std::size_t { trigger_end, ground_end, exit_end };
 
 /// Raises `best` to the phase's located maxima and its two ends (a quantity may still be
 /// rising when the phase ends).
@@ -135,6 +133,18 @@ Trigger deploy_trigger(std::string name, TriggerKind kind, double value) {
     return {};
 }
 
+std::optional<Trigger> entry_end_trigger(const Design& design) {
+    if (design.terminal.method == TerminalMethod::supersonic_retro) {
+        return deploy_trigger("engine ignition", design.terminal.trigger,
+                              design.terminal.trigger_value);
+    }
+    if (design.parachute) {
+        return deploy_trigger("parachute deploy", design.parachute->trigger,
+                              design.parachute->trigger_value);
+    }
+    return std::nullopt;
+}
+
 std::string describe_trigger(TriggerKind kind, double value) {
     switch (kind) {
         case TriggerKind::mach:
@@ -190,8 +200,7 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
                          EventDirection::falling};
     const Trigger exit{"atmospheric exit", FlightQuantity::altitude,
                        design.entry.interface_altitude_m, EventDirection::rising};
-    const Trigger chute = deploy_trigger("parachute deploy", design.parachute.trigger,
-                                         design.parachute.trigger_value);
+    const std::optional<Trigger> last = entry_end_trigger(design);
 
     // With a decelerator, the entry ends at its trigger and a phase with its drag added flies
     // on; with a drogue, a phase under the drogue (without lift) flies on to the parachute's
@@ -216,7 +225,9 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
         phase.stage.drag_devices.push_back(drogue_device(design));
         phase.stage.lift_to_drag = 0.0;
     }
-    phase.ends = {chute, ground, exit};
+    phase.ends = {ground, exit};
+    if (last)
+        phase.ends.insert(phase.ends.begin(), *last);
     phases.push_back(phase);
 
     double t = 0.0;
@@ -238,11 +249,12 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
             out.stop_reason = flown.reason;
             return out;
         }
-        if (*flown.ended_by == ground_end) {
+        const std::string& ended_by = p.ends[*flown.ended_by].name;
+        if (ended_by == ground.name) {
             out.end = EntryEnd::ground;
             return out;
         }
-        if (*flown.ended_by == exit_end) {
+        if (ended_by == exit.name) {
             out.end = EntryEnd::skip_out;
             return out;
         }

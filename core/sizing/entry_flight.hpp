@@ -56,7 +56,9 @@ struct PeakValue {
     FlightState y;
 };
 
-/// How the flight from the interface to the parachute trigger went.
+/// How the flight from the interface to its last trigger went: the parachute's deploy, or the
+/// ignition of a powered descent from the entry (`deployed` for both); without either, the
+/// entry flies to the ground.
 enum class EntryEnd { deployed, ground, skip_out, stopped };
 
 /// Where a device deployed on the way to the parachute (the decelerator, the drogue): the state
@@ -102,6 +104,10 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
 
 /// The design's trigger as a phase end, and in words ("Mach 1.8").
 Trigger deploy_trigger(std::string name, TriggerKind kind, double value);
+
+/// What ends the entry: the ignition of a supersonic retro-propulsive descent, else the
+/// parachute's deploy; none for a design with neither (it flies to the ground).
+std::optional<Trigger> entry_end_trigger(const Design& design);
 std::string describe_trigger(TriggerKind kind, double value);
 
 }  // namespace ds

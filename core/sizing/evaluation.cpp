@@ -156,7 +156,7 @@ double add_canopy_mass(const std::string& name, const CanopyType& type, double d
 
 void size_canopy(const Design& design, const FlightModel& model, Evaluation& e,
                  double body_drag_area_m2) {
-    const ParachuteDesign& p = design.parachute;
+    const ParachuteDesign& p = *design.parachute;
     e.canopy = *canopy_type(p.type);
     e.canopy_drag_coefficient = p.drag_coefficient.value_or(e.canopy.drag_coefficient);
     if (p.diameter_m) {
@@ -243,7 +243,6 @@ double finish_terminal_descent(const TerminalDesign& t, const BurnSolution& burn
                                double g_site, double engines, double radius_m, Evaluation& e) {
     const double end_height = burn.end_state[StateIndex::altitude] - site;
     const double end_velocity = speed(burn.end_state);
-    e.canopy_exit_state = burn.separation_state;
     // The payload comes down from the burn's end, carried on by its horizontal speed while it
     // falls (airbag) or is lowered (tethered).
     const GroundPoint end_point{burn.end_state[StateIndex::latitude],
@@ -257,6 +256,7 @@ double finish_terminal_descent(const TerminalDesign& t, const BurnSolution& burn
     double burned = burn.burned_kg;
     switch (t.method) {
         case TerminalMethod::retro:
+        case TerminalMethod::supersonic_retro:
             e.touchdown_time_s = burn.end_time_s;
             e.touchdown_velocity_m_s = end_velocity;
             e.landing_point = end_point;
@@ -316,10 +316,101 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     e.burn = burn;
     record_burn_history(burn, burn_samples, e);
 
+    e.canopy_exit_state = burn.separation_state;
     const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
     const double burned = finish_terminal_descent(design.terminal, burn, site, g_site, engines,
                                                   model.body.radius_m, e);
     add_propulsion(design.terminal, burned, engines, e);
+}
+
+/// The devices of the entry's last stage (the aeroshell, and the decelerator once it has
+/// deployed), their drag scaled by the share kept while the engines fire into the flow.
+std::vector<DragDevice> devices_under_thrust(const Design& design, const Evaluation& e) {
+    std::vector<DragDevice> devices{aeroshell_device(design, e.aeroshell)};
+    if (design.decelerator && e.entry.decelerator) {
+        devices.push_back(
+            {frontal_area_m2(design.decelerator->diameter_m), design.decelerator->drag_coefficient, {}});
+    }
+    for (DragDevice& device : devices)
+        device.drag_coefficient *= design.terminal.drag_preservation;
+    return devices;
+}
+
+/// The unpowered flight on from the ignition trigger down to the site, on the entry's last
+/// stage, kept dense: where a later ignition is looked for when even the deepest throttle would
+/// stop the vehicle above the site.
+DenseTrajectory coast_after_trigger(const Design& design, const FlightModel& model,
+                                    const Evaluation& e,
+                                    const IntegratorSettings<flight_state_size>& settings,
+                                    std::vector<TrajectorySample>& samples) {
+    Phase coast;
+    coast.name = "coast to ignition";
+    coast.stage = entry_stage(design, e.aeroshell);
+    if (design.decelerator && e.entry.decelerator) {
+        coast.stage.drag_devices.push_back(
+            {frontal_area_m2(design.decelerator->diameter_m), design.decelerator->drag_coefficient, {}});
+    }
+    coast.ends = {{"ground", FlightQuantity::altitude, design.site.elevation_m,
+                   EventDirection::falling}};
+    DenseTrajectory record;
+    fly_phase(model, coast, e.entry.end_time_s, e.entry.end_state, design.solver.max_time_s,
+              settings, {&samples, &record});
+    return record;
+}
+
+/// Supersonic retro-propulsion: the engines light at the ignition trigger of the entry and fly
+/// a gravity turn into the flow, then the terminal descent, to the end speed at the site. The
+/// throttle is solved for it; when even the deepest throttle stops above the site, the ignition
+/// comes later at that throttle (solved on the unpowered flight after the trigger). Nothing
+/// separates: the whole entry vehicle lands, less the propellant burned.
+void fly_powered_descent(const Design& design, const FlightModel& model, Evaluation& e) {
+    const TerminalDesign& t = design.terminal;
+    const double site = design.site.elevation_m;
+    const double g_site = model.body.gravity_m_s2(site);
+    e.full_thrust_N = t.thrust_N.value_or(t.thrust_to_weight * e.lander_kg * g_site);
+    BurnRequest request;
+    request.site_elevation_m = site;
+    request.end_velocity_m_s = t.touchdown_velocity_m_s;
+    request.lander_mass_kg = e.entry.end_state[StateIndex::mass];
+    request.thrust_N = t.throttle * e.full_thrust_N;
+    request.throttle = t.throttle;
+    request.specific_impulse_s = t.isp_s;
+    request.drag_devices = devices_under_thrust(design, e);
+    request.thrust_reference_area_m2 = frontal_area_m2(e.aeroshell.diameter_m);
+    request.gravity_turn = true;
+    const auto settings = flight_integrator_settings(
+        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    std::vector<TrajectorySample> burn_samples;
+    ThrottledBurn solved =
+        solve_burn_throttle(model, request, e.full_thrust_N, t.min_throttle, settings,
+                            e.entry.end_time_s, e.entry.end_state, &burn_samples);
+    if (solved.too_strong) {
+        std::vector<TrajectorySample> coast_samples;
+        const DenseTrajectory coast =
+            coast_after_trigger(design, model, e, settings, coast_samples);
+        request.throttle = t.min_throttle;
+        request.thrust_N = t.min_throttle * e.full_thrust_N;
+        burn_samples.clear();
+        if (!coast.empty()) {
+            solved.burn = solve_terminal_burn(model, coast, request, settings, &burn_samples);
+            solved.burn.throttle = t.min_throttle;
+        }
+        for (const TrajectorySample& s : coast_samples) {
+            if (s.time_s < solved.burn.ignition_time_s)
+                e.history.push_back(s);
+        }
+    }
+    request.throttle = solved.burn.throttle;
+    request.thrust_N = solved.burn.throttle * e.full_thrust_N;
+    e.ignition_delayed = solved.too_strong;
+    e.burn_request = request;
+    e.burn = solved.burn;
+    e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());
+
+    const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
+    const double burned =
+        finish_terminal_descent(t, *e.burn, site, g_site, engines, model.body.radius_m, e);
+    add_propulsion(t, burned, engines, e);
 }
 
 /// The descent under the canopy to the ground, with no burn: the method "none" touches down
@@ -359,6 +450,10 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     if (e.entry.end == EntryEnd::ground) {  // it comes down before the parachute: there
         e.landing_point = GroundPoint{e.entry.end_state[StateIndex::latitude],
                                       e.entry.end_state[StateIndex::longitude]};
+        if (!entry_end_trigger(design)) {  // a ballistic impact, by design: how hard
+            e.touchdown_velocity_m_s = speed(e.entry.end_state);
+            e.touchdown_horizontal_velocity_m_s = horizontal_speed(e.entry.end_state);
+        }
     }
     e.total_heat_load_J_cm2 = (e.entry.end_state[StateIndex::convective_heat_load] +
                                e.entry.end_state[StateIndex::radiative_heat_load]) *
@@ -367,10 +462,13 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     const double body_drag_area = MassEstimates::suspended_body_drag_coefficient * area;
     add_drop_masses(design, e, area);
     add_drogue_mass(design, e);
-    size_canopy(design, model, e, body_drag_area);
-    e.lander_kg = entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
-                  e.budget.group_kg(MassGroup::backshell);
-    e.landing_kg = e.lander_kg + (backshell_separates(design.terminal.method)
+    if (design.parachute)
+        size_canopy(design, model, e, body_drag_area);
+    const bool powered_from_entry = design.terminal.method == TerminalMethod::supersonic_retro;
+    e.lander_kg = powered_from_entry ? entry_kg
+                                     : entry_kg - e.budget.group_kg(MassGroup::heat_shield) -
+                                           e.budget.group_kg(MassGroup::backshell);
+    e.landing_kg = e.lander_kg + (backshell_separates(design.terminal.method) || powered_from_entry
                                       ? 0.0
                                       : e.budget.group_kg(MassGroup::backshell));
     // Parts that weigh as much as the vehicle leave nothing to land: no thrust, propellant or
@@ -380,7 +478,10 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     const bool under_canopy = entry_kg > e.budget.group_kg(MassGroup::heat_shield);
 
     const bool fires_engines = design.terminal.method != TerminalMethod::none;
-    if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0 && under_canopy) {
+    if (powered_from_entry) {
+        if (e.entry.end == EntryEnd::deployed && has_lander)
+            fly_powered_descent(design, model, e);
+    } else if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0 && under_canopy) {
         DescentPlan plan;
         plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
         plan.entry_vehicle = aeroshell_device(design, e.aeroshell);
@@ -397,10 +498,15 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     }
 
     // What reaches the ground (airbags, estimated below from it, included).
-    e.landed_kg = has_lander ? landed_mass_kg(design.terminal.method, e.lander_kg, e.burned_kg,
-                                              e.budget.group_kg(MassGroup::descent_stage),
-                                              e.budget.group_kg(MassGroup::backshell))
-                             : 0.0;
+    // (A powered descent from the entry lands the whole vehicle, less what it burned.)
+    if (powered_from_entry) {
+        e.landed_kg = e.lander_kg - e.burned_kg;
+    } else {
+        e.landed_kg = has_lander ? landed_mass_kg(design.terminal.method, e.lander_kg, e.burned_kg,
+                                                  e.budget.group_kg(MassGroup::descent_stage),
+                                                  e.budget.group_kg(MassGroup::backshell))
+                                 : 0.0;
+    }
     if (design.terminal.method == TerminalMethod::airbag) {
         e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,
                               MassGroup::payload,
@@ -420,6 +526,18 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
 
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
                                               const Evaluation& e, double site_elevation_m) {
+    if (design.terminal.method == TerminalMethod::supersonic_retro) {
+        if (!e.burn || site_elevation_m != design.site.elevation_m)
+            return std::nullopt;
+        TimelineMargin m;
+        m.available_s = e.burn->end_time_s - e.burn->ignition_time_s;
+        m.needed_s = design.sequence.ground_sensing_lock_s;
+        m.margin_s = m.available_s - m.needed_s;
+        if (!e.burn->stops_in_time)
+            m.margin_s = std::min(m.margin_s, 0.0) - (speed(e.burn->end_state) -
+                                                      e.burn_request->end_velocity_m_s);
+        return m;
+    }
     if (!e.descent || !e.descent->jettisoned)
         return std::nullopt;
     const bool fires_engines = design.terminal.method != TerminalMethod::none;

@@ -49,6 +49,9 @@ struct Evaluation {
     double full_thrust_N = 0.0;
     std::optional<BurnRequest> burn_request;
     std::optional<BurnSolution> burn;
+    /// supersonic_retro: even the deepest throttle stopped above the site at the trigger, so
+    /// the ignition was solved later along the flight (at that throttle).
+    bool ignition_delayed = false;
     double burned_kg = 0.0;  ///< every burn, hover and fly-away included
     double loaded_propellant_kg = 0.0;
     std::optional<double> hover_time_s;      ///< tethered
@@ -82,6 +85,8 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
 /// The timeline margin of an evaluation at a site elevation: time from parachute deploy to the
 /// start of the terminal burn (the touchdown for "none"), less the time the sequence needs.
 /// Negative also when the lander cannot stop in time there. Uses the evaluation's own descent.
+/// For a powered descent from the entry (supersonic_retro, design's site only): the time from
+/// ignition to touchdown, less the ground-sensing lock the terminal descent needs.
 struct TimelineMargin {
     double available_s = 0.0;
     double needed_s = 0.0;

@@ -6,6 +6,7 @@ bool descent_stage_lands(TerminalMethod method) {
     switch (method) {
         case TerminalMethod::retro:
         case TerminalMethod::none:
+        case TerminalMethod::supersonic_retro:
             return true;
         case TerminalMethod::airbag:
         case TerminalMethod::tethered:
@@ -15,7 +16,7 @@ bool descent_stage_lands(TerminalMethod method) {
 }
 
 bool backshell_separates(TerminalMethod method) {
-    return method != TerminalMethod::none;
+    return method != TerminalMethod::none && method != TerminalMethod::supersonic_retro;
 }
 
 double landed_mass_kg(TerminalMethod method, double lander_kg, double burned_kg,

@@ -5,13 +5,14 @@
 namespace ds {
 
 /// Whether the descent stage reaches the ground with the payload: it does for `retro` and
-/// `none` (the lander touches down whole); `airbag` drops the payload from it and `tethered`
+/// `none` and `supersonic_retro` (the lander touches down whole); `airbag` drops the payload from it and `tethered`
 /// lowers the payload and flies it away.
 bool descent_stage_lands(TerminalMethod method);
 
 /// Whether the lander separates from the backshell (which keeps the parachute): it does before
 /// every terminal burn; with `none` nothing separates and the vehicle lands on its canopy, the
-/// backshell and the parachute with it.
+/// backshell and the parachute with it; nor with `supersonic_retro`, where the whole entry
+/// vehicle flies its powered descent and lands.
 bool backshell_separates(TerminalMethod method);
 
 /// What reaches the ground: the lander less the propellant it burned when its descent stage

@@ -41,25 +41,33 @@ Check half_angle_check(double half_angle_deg, double heritage_deg, const std::st
     return c;
 }
 
-/// Negative margin fails (the sequence cannot complete); under the limit is marginal.
-Check timeline_check(double margin_s, double limit_s, double needed_s) {
+/// Negative margin fails (the sequence cannot complete); under the limit is marginal. The
+/// sequence is the one after parachute deploy, or a powered descent's from ignition to
+/// touchdown (`powered`).
+Check timeline_check(double margin_s, double limit_s, double needed_s, bool powered) {
     Check c{"timeline_margin", CheckStatus::pass, margin_s, limit_s, "s", "",
             "sequence times of the design; marginal below the limit (common practice)",
             // A sequence fails at zero margin: measured against the margin wanted.
             margin_s / (limit_s > 0.0 ? limit_s : 1.0)};
     if (margin_s < 0.0) {
         c.status = CheckStatus::fail;
-        c.message = fmt::format(
-            "the sequence after parachute deploy needs {:.1f} s but the descent leaves {:.1f} s "
-            "less than that: deploy higher, jettison sooner or land lower",
-            needed_s, -margin_s);
+        c.message =
+            powered ? fmt::format("the terminal descent needs {:.1f} s of ground sensing before "
+                                  "touchdown but the powered descent leaves {:.1f} s less than "
+                                  "that: ignite earlier or throttle deeper",
+                                  needed_s, -margin_s)
+                    : fmt::format("the sequence after parachute deploy needs {:.1f} s but the "
+                                  "descent leaves {:.1f} s less than that: deploy higher, "
+                                  "jettison sooner or land lower",
+                                  needed_s, -margin_s);
     } else if (margin_s < limit_s) {
         c.status = CheckStatus::marginal;
         c.message =
             fmt::format("timeline margin {:.1f} s is below the {:.4g} s wanted", margin_s, limit_s);
     } else {
-        c.message = fmt::format("timeline margin {:.1f} s after the {:.1f} s the sequence needs",
-                                margin_s, needed_s);
+        c.message = fmt::format("timeline margin {:.1f} s after the {:.1f} s the {} needs",
+                                margin_s, needed_s,
+                                powered ? "terminal descent's ground sensing" : "sequence");
     }
     return c;
 }
@@ -223,7 +231,9 @@ void jettison_checks(const ParachuteResults& parachute, const Limits& lim,
 /// the main then deploys under it, below the window's speeds), and each one's loads.
 void parachute_checks(const Design& design, const Results& results, const Limits& lim,
                       std::vector<Check>& checks) {
-    const CanopyChecked main{"", "parachute", design.parachute.type, results.parachute};
+    if (!design.parachute)
+        return;
+    const CanopyChecked main{"", "parachute", design.parachute->type, results.parachute};
     if (results.drogue && design.drogue) {
         const CanopyChecked drogue{"drogue_", "drogue", design.drogue->type, *results.drogue};
         if (results.drogue->deployed) {
@@ -237,6 +247,39 @@ void parachute_checks(const Design& design, const Results& results, const Limits
         canopy_load_checks(main, lim, checks);
         jettison_checks(results.parachute, lim, checks);
     }
+}
+
+/// A powered descent lit during the entry: its ignition against the envelope, its thrust
+/// against the weight, the load the burn puts on the vehicle and the propellant it costs.
+void powered_descent_checks(const Results& results, const Limits& lim,
+                            std::vector<Check>& checks) {
+    if (!results.terminal.powered_descent)
+        return;
+    const PoweredDescentResults& p = *results.terminal.powered_descent;
+    const double band = lim.marginal_band;
+    const std::string envelope =
+        "retro-propulsion ignition envelope (wind-tunnel tests into a supersonic flow span about "
+        "Mach 2 to 4.6, from memory; 15 kPa is our default; common practice: set the vehicle's "
+        "own)";
+    checks.push_back(check_at_most(
+        {"ignition_mach", "Mach number at ignition", "", Severity::physics, envelope},
+        p.ignition_mach, lim.ignition_mach_max, band));
+    checks.push_back(check_at_most({"ignition_dynamic_pressure", "dynamic pressure at ignition",
+                                    "Pa", Severity::physics, envelope},
+                                   p.ignition_dynamic_pressure_Pa,
+                                   lim.ignition_dynamic_pressure_max_Pa, band));
+    checks.push_back(check_at_least(
+        {"thrust_to_weight", "full thrust over the weight at ignition", "", Severity::physics,
+         "margin over hovering to steer and to absorb the gravity losses (common practice)"},
+        p.thrust_to_weight_at_ignition, lim.thrust_to_weight_min, band));
+    checks.push_back(check_at_most(
+        {"burn_deceleration", "peak deceleration of the powered descent (thrust and drag)", "g",
+         Severity::physics, "the payload's qualified load (peak_deceleration_max_g)"},
+        p.peak_deceleration_g, lim.peak_deceleration_max_g, band));
+    checks.push_back(check_at_most(
+        {"propellant_fraction", "loaded propellant over the entry mass", "", Severity::physics,
+         "a budget that grows faster than what it lands (common practice)"},
+        p.propellant_fraction, lim.propellant_fraction_max, band));
 }
 
 /// What the entry puts on the payload and the heat shield.
@@ -345,9 +388,11 @@ std::vector<Check> limit_checks(const Design& design, const Results& results) {
     parachute_checks(design, results, lim, checks);
     entry_load_checks(results.entry, lim, checks);
     landing_checks(results.terminal, lim, checks);
+    powered_descent_checks(results, lim, checks);
     if (results.timeline.margin_s) {
         checks.push_back(timeline_check(*results.timeline.margin_s, lim.timeline_margin_min_s,
-                                        results.timeline.needed_s.value_or(0.0)));
+                                        results.timeline.needed_s.value_or(0.0),
+                                        results.terminal.powered_descent.has_value()));
     }
     return checks;
 }

@@ -354,7 +354,37 @@ void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResu
     }
 }
 
-void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t) {
+/// The powered descent's ignition and burn: the air at ignition, the thrust against the weight
+/// and the flow there, and what the burn puts on the vehicle.
+PoweredDescentResults powered_descent_results(const Evaluation& e, const Design& design,
+                                              const FlightModel& model) {
+    const BurnSolution& b = *e.burn;
+    const BurnRequest& r = *e.burn_request;
+    Stage burning;
+    burning.drag_devices = r.drag_devices;
+    burning.thrust_N = r.thrust_N;
+    burning.specific_impulse_s = r.specific_impulse_s;
+    burning.throttle = r.throttle;
+    burning.thrust_reference_area_m2 = r.thrust_reference_area_m2;
+    const FlightConditions at = flight_conditions(model, burning, b.ignition_state);
+    PoweredDescentResults p;
+    p.ignition_mach = at.mach;
+    p.ignition_dynamic_pressure_Pa = at.dynamic_pressure_Pa;
+    p.ignition_flight_path_angle_deg = radians_to_degrees(flight_path_angle_rad(b.ignition_state));
+    p.thrust_to_weight_at_ignition =
+        e.full_thrust_N / (b.ignition_state[StateIndex::mass] * at.gravity_m_s2);
+    p.thrust_coefficient_at_ignition = at.thrust_coefficient;
+    p.throttle = b.throttle;
+    p.ignition_delayed = e.ignition_delayed;
+    p.drag_preservation = design.terminal.drag_preservation;
+    p.peak_deceleration_g = b.peak_sensed_deceleration_g;
+    p.peak_dynamic_pressure_Pa = b.peak_dynamic_pressure_Pa;
+    p.propellant_fraction = e.loaded_propellant_kg / e.entry_kg;
+    return p;
+}
+
+void fill_terminal(const Evaluation& e, const Design& design, const FlightModel& model,
+                   TerminalResults& t) {
     t.method = design.terminal.method;
     // A burn the descent's budget cut short never reached its end: no touchdown, impact or
     // hover figures to hold against their limits (the trajectory check says why).
@@ -377,6 +407,8 @@ void fill_terminal(const Evaluation& e, const Design& design, TerminalResults& t
     t.thrust_N = e.burn_request->thrust_N;
     t.burned_propellant_kg = e.burned_kg;
     t.propellant_kg = e.loaded_propellant_kg;
+    if (design.terminal.method == TerminalMethod::supersonic_retro)
+        t.powered_descent = powered_descent_results(e, design, model);
 }
 
 /// The events that end a terminal burn, by method: at its target, or at the ground.
@@ -402,6 +434,9 @@ void push_terminal_events(const Evaluation& e, const Design& design,
             if (e.touchdown_time_s) {
                 events.push_back(at_site("payload touchdown", *e.touchdown_time_s, 0.0));
             }
+            break;
+        case TerminalMethod::supersonic_retro:
+            events.push_back(event_at("touchdown", b.end_time_s, b.end_state));
             break;
         case TerminalMethod::none:
             break;
@@ -456,15 +491,26 @@ void fill_timeline(const Evaluation& e, const Design& design, const Body& body,
         event_at("peak dynamic pressure", f.dynamic_pressure.time_s, f.dynamic_pressure.y));
     if (f.drogue)
         events.push_back(event_at("drogue deploy", f.drogue->time_s, f.drogue->state));
-    events.push_back(
-        event_at(std::string(name_of(entry_end_events, f.end)), f.end_time_s, f.end_state));
+    // A powered descent lit at its trigger has the ignition as its event; one lit later keeps
+    // the trigger's moment too.
+    const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
+    if (powered && f.end == EntryEnd::deployed) {
+        if (e.ignition_delayed)
+            events.push_back(event_at("ignition trigger", f.end_time_s, f.end_state));
+    } else {
+        events.push_back(
+            event_at(std::string(name_of(entry_end_events, f.end)), f.end_time_s, f.end_state));
+    }
     if (jettison_reached(e)) {
         events.push_back(event_at("heat-shield jettison", e.descent->jettison_time_s,
                                   e.descent->jettison_state));
     }
     if (e.burn) {
         const BurnSolution& b = *e.burn;
-        events.push_back(event_at("backshell separation", b.separation_time_s, b.separation_state));
+        if (backshell_separates(design.terminal.method)) {
+            events.push_back(
+                event_at("backshell separation", b.separation_time_s, b.separation_state));
+        }
         events.push_back(event_at("ignition", b.ignition_time_s, b.ignition_state));
         if (terminal_cut_short(e)) {
             events.push_back(event_at("descent stopped", b.end_time_s, b.end_state));
@@ -604,9 +650,9 @@ bool sizing_request_checks(const Evaluation& e, const Design& design, std::vecto
         if (e.aeroshell.diameter_m <= 0.0)
             return false;
     }
-    if (!design.parachute.diameter_m && e.canopy_diameter_m <= 0.0) {
+    if (design.parachute && !design.parachute->diameter_m && e.canopy_diameter_m <= 0.0) {
         checks.push_back(flight_check(
-            "parachute_sizing", CheckStatus::fail, 0.0, *design.parachute.size_for_velocity_m_s,
+            "parachute_sizing", CheckStatus::fail, 0.0, *design.parachute->size_for_velocity_m_s,
             "m/s",
             "the vehicle under the canopy already descends slower than the requested speed: "
             "no canopy is needed, or the request is wrong",
@@ -615,35 +661,50 @@ bool sizing_request_checks(const Evaluation& e, const Design& design, std::vecto
     return true;
 }
 
-/// How the entry ended: at the parachute trigger, or short of it (ground, skip-out, stopped).
+/// How the entry ended: at its last trigger (the parachute's deploy, or a powered descent's
+/// ignition), or short of it (ground, skip-out, stopped). Without either, the entry flies to
+/// the ground, as a ballistic impact.
 Check entry_end_check(const Evaluation& e, const Design& design) {
     const EntryFlight& f = e.entry;
-    const std::string trigger =
-        describe_trigger(design.parachute.trigger, design.parachute.trigger_value);
+    const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
+    const std::string id = powered ? "ignition_trigger" : "parachute_trigger";
+    const std::string what = powered ? "ignition trigger" : "parachute trigger";
+    const std::optional<Trigger> last = entry_end_trigger(design);
+    const std::string trigger = powered ? describe_trigger(design.terminal.trigger,
+                                                           design.terminal.trigger_value)
+                                : design.parachute ? describe_trigger(design.parachute->trigger,
+                                                                      design.parachute->trigger_value)
+                                                   : std::string();
     const double v_end = speed(f.end_state);
     const double h_end = f.end_state[StateIndex::altitude];
+    if (!last && f.end == EntryEnd::ground) {
+        return flight_check("ballistic_impact", CheckStatus::pass, v_end, 0.0, "m/s",
+                            fmt::format("no parachute: the vehicle flies its entry to the ground "
+                                        "and strikes it at {:.1f} m/s, {:.1f} s after entry",
+                                        v_end, f.end_time_s),
+                            "design sequence");
+    }
     switch (f.end) {
         case EntryEnd::deployed:
             return flight_check(
-                "parachute_trigger", CheckStatus::pass, h_end - design.site.elevation_m, 0.0, "m",
-                fmt::format("parachute trigger ({}) reached {:.0f} m above the site, {:.1f} s "
-                            "after entry",
+                id, CheckStatus::pass, h_end - design.site.elevation_m, 0.0, "m",
+                fmt::format("{} ({}) reached {:.0f} m above the site, {:.1f} s after entry", what,
                             trigger, h_end - design.site.elevation_m, f.end_time_s),
                 "design trigger");
         case EntryEnd::ground:
             return flight_check(
-                "parachute_trigger", CheckStatus::fail, 0.0, 0.0, "m",
+                id, CheckStatus::fail, 0.0, 0.0, "m",
                 fmt::format("the vehicle reaches the ground at {:.1f} m/s (Mach {:.2f}), {:.1f} s "
-                            "after entry, before the parachute trigger ({})",
-                            v_end, f.end_conditions.mach, f.end_time_s, trigger),
+                            "after entry, before the {} ({})",
+                            v_end, f.end_conditions.mach, f.end_time_s, what, trigger),
                 "design trigger");
         case EntryEnd::skip_out:
             return flight_check(
-                "parachute_trigger", CheckStatus::fail, h_end - design.site.elevation_m, 0.0, "m",
+                id, CheckStatus::fail, h_end - design.site.elevation_m, 0.0, "m",
                 fmt::format("the vehicle skips out of the atmosphere at {:.0f} m/s, {:.1f} s after "
-                            "entry, before the parachute trigger ({}): steepen the entry or "
-                            "reduce the lift",
-                            v_end, f.end_time_s, trigger),
+                            "entry, before the {}{}: steepen the entry or reduce the lift",
+                            v_end, f.end_time_s, last ? what : "ground",
+                            last ? fmt::format(" ({})", trigger) : std::string()),
                 "design trigger");
         case EntryEnd::stopped:
             break;
@@ -669,13 +730,21 @@ void descent_checks(const Evaluation& e, const Design& design, std::vector<Check
     if (e.descent && !jettison_reached(e))
         checks.push_back(jettison_check(e));
     if (e.burn && !e.burn->stops_in_time) {
+        const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
         checks.push_back(flight_check(
             "terminal_burn", CheckStatus::fail, speed(e.burn->end_state),
             design.terminal.touchdown_velocity_m_s, "m/s",
-            fmt::format("even separating at parachute deploy, the burn cannot bring the lander to "
-                        "{:.2g} m/s in time: it reaches the ground at {:.1f} m/s; more thrust or "
-                        "an earlier, higher deploy is needed",
-                        design.terminal.touchdown_velocity_m_s, speed(e.burn->end_state)),
+            powered ? fmt::format("even at full throttle from its ignition, the powered descent "
+                                  "cannot bring the vehicle to {:.2g} m/s in time: it reaches the "
+                                  "ground at {:.1f} m/s; more thrust or an earlier, faster "
+                                  "ignition is needed",
+                                  design.terminal.touchdown_velocity_m_s,
+                                  speed(e.burn->end_state))
+                    : fmt::format("even separating at parachute deploy, the burn cannot bring the "
+                                  "lander to {:.2g} m/s in time: it reaches the ground at {:.1f} "
+                                  "m/s; more thrust or an earlier, higher deploy is needed",
+                                  design.terminal.touchdown_velocity_m_s,
+                                  speed(e.burn->end_state)),
             "terminal descent"));
     }
     if (design.terminal.propellant_loaded_kg && e.burned_kg > 0.0) {
@@ -824,7 +893,8 @@ Design freeze_design(const Design& design) {
     frozen.mass.entry_kg = e.entry_kg;
     frozen.mass.heat_shield_kg = e.heat_shield_kg;
     frozen.mass.backshell_kg = e.backshell_kg;
-    frozen.parachute.mass_kg = e.parachute_kg;
+    if (frozen.parachute)
+        frozen.parachute->mass_kg = e.parachute_kg;
     if (frozen.decelerator)
         frozen.decelerator->mass_kg = e.decelerator_kg;
     if (frozen.drogue)
@@ -838,10 +908,10 @@ Design freeze_design(const Design& design) {
         frozen.terminal.thrust_N = e.full_thrust_N;
     if (e.loaded_propellant_kg > 0.0)
         frozen.terminal.propellant_loaded_kg = e.loaded_propellant_kg;
-    if (e.canopy_diameter_m > 0.0) {
-        frozen.parachute.diameter_m = e.canopy_diameter_m;
-        frozen.parachute.size_for_velocity_m_s.reset();
-        frozen.parachute.at_height_above_site_m.reset();
+    if (frozen.parachute && e.canopy_diameter_m > 0.0) {
+        frozen.parachute->diameter_m = e.canopy_diameter_m;
+        frozen.parachute->size_for_velocity_m_s.reset();
+        frozen.parachute->at_height_above_site_m.reset();
     }
     return frozen;
 }
@@ -869,8 +939,9 @@ Results size_design(const Design& design, SizingOptions options) {
     }
     if (design.drogue)
         results.drogue = drogue_results(e, design);
-    fill_parachute(e, model, results.parachute);
-    fill_terminal(e, design, results.terminal);
+    if (design.parachute)
+        fill_parachute(e, model, results.parachute);
+    fill_terminal(e, design, model, results.terminal);
     fill_conic(e, design, model.body, results);
     fill_timeline(e, design, model.body, results.timeline);
     if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {
@@ -881,7 +952,9 @@ Results size_design(const Design& design, SizingOptions options) {
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
     // Nothing lands from a descent that stopped in the air (the "descent stopped" event).
-    if (e.descent && e.landing_kg > 0.0 && !stopped_in_air(e))
+    const bool powered_landing = e.burn && e.burn->stops_in_time &&
+                                 design.terminal.method == TerminalMethod::supersonic_retro;
+    if ((e.descent || powered_landing) && e.landing_kg > 0.0 && !stopped_in_air(e))
         results.mass.landed_kg = e.landed_kg;
     if (options.capability) {
         results.capability.max_site_elevation_m = max_site_elevation(design, model, e);

@@ -17,25 +17,37 @@ namespace {
 
 constexpr double flight_time_limit_s = 3600.0;
 
-struct Attempt {
-    bool reached_velocity = false;
-    BurnSolution burn;
-};
+/// Raises a burn's peaks to what a flown phase saw (its located maxima and its two ends).
+void raise_burn_peaks(const FlightModel& model, const Phase& phase, const FlightState& y0,
+                      const PhaseOutcome& flown, BurnSolution& b) {
+    const auto raise = [&](const FlightState& y) {
+        const FlightConditions c = flight_conditions(model, phase.stage, y);
+        b.peak_sensed_deceleration_g = std::max(b.peak_sensed_deceleration_g, c.sensed_deceleration_g);
+        b.peak_dynamic_pressure_Pa = std::max(b.peak_dynamic_pressure_Pa, c.dynamic_pressure_Pa);
+    };
+    raise(y0);
+    raise(flown.y);
+    for (const PeakHit& hit : flown.peaks)
+        raise(hit.y);
+}
 
-/// Separates at t_s, coasts, burns; stops at the end velocity or the ground.
-Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const BurnRequest& r,
-                const IntegratorSettings<flight_state_size>& settings, double t_s,
-                std::vector<TrajectorySample>* history) {
-    Attempt a;
+}  // namespace
+
+BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
+                     const IntegratorSettings<flight_state_size>& settings, double t_s,
+                     FlightState separation_state, std::vector<TrajectorySample>* history) {
+    BurnAttempt a;
     BurnSolution& b = a.burn;
+    b.throttle = r.throttle;
     b.separation_time_s = t_s;
-    b.separation_state = descent.state_at(t_s);
+    b.separation_state = separation_state;
     b.separation_state[StateIndex::mass] = r.lander_mass_kg;
     const Trigger ground{"ground", FlightQuantity::altitude, r.site_elevation_m,
                          EventDirection::falling};
 
     Phase coast;
     coast.name = "coast";
+    coast.stage.drag_devices = r.drag_devices;
     coast.ends = {ground};
     const PhaseOutcome coasted = fly_phase(model, coast, t_s, b.separation_state, t_s + r.coast_s,
                                            settings, {history, nullptr});
@@ -58,14 +70,41 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
 
     Phase burn;
     burn.name = "terminal burn";
+    burn.stage.drag_devices = r.drag_devices;
     burn.stage.thrust_N = r.thrust_N;
     burn.stage.specific_impulse_s = r.specific_impulse_s;
-    burn.ends = {
-        {"end of burn", FlightQuantity::velocity, r.end_velocity_m_s, EventDirection::falling},
-        ground};
-    const PhaseOutcome burned =
-        fly_phase(model, burn, coasted.time_s, coasted.y, coasted.time_s + flight_time_limit_s,
-                  settings, {history, nullptr});
+    burn.stage.throttle = r.throttle;
+    burn.stage.thrust_reference_area_m2 = r.thrust_reference_area_m2;
+    const Trigger end_of_burn{"end of burn", FlightQuantity::velocity, r.end_velocity_m_s,
+                              EventDirection::falling};
+    burn.ends = {end_of_burn, ground};
+    double t = coasted.time_s;
+    FlightState y = coasted.y;
+    PhaseOutcome burned;
+    if (r.gravity_turn) {
+        // Into the flow until nearly vertical, then against the velocity over the ground.
+        Phase turn = burn;
+        turn.name = "gravity turn";
+        turn.stage.thrust_against_air = true;
+        turn.ends.push_back({"nearly vertical", FlightQuantity::flight_path_angle,
+                             -90.0 + gravity_turn_end_deg, EventDirection::falling});
+        turn.peaks = {{"peak sensed deceleration", FlightQuantity::sensed_deceleration},
+                      {"peak dynamic pressure", FlightQuantity::dynamic_pressure}};
+        burned = fly_phase(model, turn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
+        raise_burn_peaks(model, turn, y, burned, b);
+        const bool turned = burned.reason == StopReason::terminal_event && burned.ended_by == 2u;
+        if (turned) {
+            t = burned.time_s;
+            y = burned.y;
+            burn.name = "terminal descent";
+            burn.peaks = turn.peaks;
+            burned = fly_phase(model, burn, t, y, coasted.time_s + flight_time_limit_s, settings,
+                               {history, nullptr});
+            raise_burn_peaks(model, burn, y, burned, b);
+        }
+    } else {
+        burned = fly_phase(model, burn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
+    }
     // Reaching the ground at the end velocity or slower is reaching it too: the two events
     // can fall within the event tolerance of each other when the solution is exact.
     a.reached_velocity = burned.ended_by == std::size_t{0} || speed(burned.y) <= r.end_velocity_m_s;
@@ -80,16 +119,22 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     return a;
 }
 
-/// How far above its target the burn ends (negative: below it, or at the ground too fast).
-/// Continuous across the two cases: at the ground, the excess speed counts as metres per
-/// (m/s) times one second.
-double miss(const Attempt& a, const BurnRequest& r) {
+double burn_miss(const BurnAttempt& a, const BurnRequest& r) {
     const double target = r.site_elevation_m + r.end_height_above_site_m;
     const double height = a.burn.end_state[StateIndex::altitude] - target;
     if (a.reached_velocity)
         return height;
     constexpr double seconds = 1.0;
     return height - (speed(a.burn.end_state) - r.end_velocity_m_s) * seconds;
+}
+
+namespace {
+
+/// Separates at t_s on the descent, coasts, burns.
+BurnAttempt attempt(const FlightModel& model, const DenseTrajectory& descent, const BurnRequest& r,
+                    const IntegratorSettings<flight_state_size>& settings, double t_s,
+                    std::vector<TrajectorySample>* history) {
+    return fly_burn(model, r, settings, t_s, descent.state_at(t_s), history);
 }
 
 /// The miss of the burn in closed form, from the separation state on the descent: a coast in
@@ -188,7 +233,7 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
     const double tolerance = request.separation_time_tolerance_s;
     const auto flown_miss = [&](double t_s) {
-        return miss(attempt(model, descent, request, settings, t_s, nullptr), request);
+        return burn_miss(attempt(model, descent, request, settings, t_s, nullptr), request);
     };
     const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
 
@@ -239,10 +284,47 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
             t_solution = walk_back(flown_miss, earliest, b.late, b.late_miss, tolerance);
         }
     }
-    Attempt solved =
+    BurnAttempt solved =
         attempt(model, descent, request, settings, t_solution.value_or(earliest), history);
     solved.burn.stops_in_time = t_solution.has_value() && solved.reached_velocity;
     return solved.burn;
+}
+
+ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& request,
+                                  double full_thrust_N, double min_throttle,
+                                  const IntegratorSettings<flight_state_size>& settings,
+                                  double ignition_time_s, const FlightState& ignition_state,
+                                  std::vector<TrajectorySample>* history) {
+    const auto fly_at = [&](double throttle, std::vector<TrajectorySample>* record) {
+        BurnRequest r = request;
+        r.throttle = throttle;
+        r.thrust_N = throttle * full_thrust_N;
+        return fly_burn(model, r, settings, ignition_time_s, ignition_state, record);
+    };
+    const double max_throttle = request.throttle;
+    ThrottledBurn out;
+    const double miss_max = burn_miss(fly_at(max_throttle, nullptr), request);
+    double throttle = max_throttle;
+    if (miss_max >= 0.0 && min_throttle < max_throttle) {
+        const double miss_min = burn_miss(fly_at(min_throttle, nullptr), request);
+        if (miss_min >= 0.0) {
+            out.too_strong = true;
+            throttle = min_throttle;
+        } else {
+            // The miss grows with the throttle: on x = -throttle it falls, as the method wants.
+            // A throttle to 1e-9 moves where the burn ends by well under a millimetre.
+            constexpr double throttle_tolerance = 1e-9;
+            const auto falling = [&](double x) {
+                return burn_miss(fly_at(-x, nullptr), request);
+            };
+            throttle = -illinois_last_nonnegative(falling, -max_throttle, miss_max, -min_throttle,
+                                                  miss_min, throttle_tolerance);
+        }
+    }
+    const BurnAttempt solved = fly_at(throttle, history);
+    out.burn = solved.burn;
+    out.burn.stops_in_time = miss_max >= 0.0 && solved.reached_velocity;
+    return out;
 }
 
 }  // namespace ds

@@ -16,7 +16,24 @@ struct BurnRequest {
     double specific_impulse_s = 0.0;
     double coast_s = 0.0;                       ///< free fall from separation to ignition
     double separation_time_tolerance_s = 1e-6;  ///< how closely the separation is solved
+    /// Thrust over the engines' full thrust (for the record).
+    double throttle = 1.0;
+    /// What drags during the coast and the burn: nothing for a lander that left its backshell;
+    /// the aeroshell (and decelerator), their drag scaled by the drag kept while the engines
+    /// fire, for a powered descent from the entry.
+    std::vector<DragDevice> drag_devices;
+    double thrust_reference_area_m2 = 0.0;  ///< of C_T in the history; 0: none
+    /// A powered descent from the entry: thrust against the air-relative velocity (a gravity
+    /// turn into the flow) until the flight is within gravity_turn_end_deg of the vertical,
+    /// then against the velocity over the ground to the end (which nulls the drift the wind
+    /// leaves). False: against the velocity over the ground throughout.
+    bool gravity_turn = false;
 };
+
+/// The gravity turn of a powered descent hands over to the terminal descent at this flight-path
+/// angle from the vertical (our choice: by then the velocity is nearly vertical and the two
+/// thrust directions differ only by the wind's share).
+inline constexpr double gravity_turn_end_deg = 10.0;
 
 /// The solved burn. When no separation time along the descent lets the lander stop in time,
 /// `stops_in_time` is false and the figures are those of separating at parachute deploy,
@@ -35,15 +52,50 @@ struct BurnSolution {
     /// Ideal delta-v less the speed it took off: the part spent holding against gravity (what
     /// the vehicle's own drag gives back is netted in; the lander flies without drag here).
     double gravity_loss_m_s = 0.0;
+    /// Over the burn: the largest sensed deceleration (thrust and drag, g) and dynamic pressure.
+    double peak_sensed_deceleration_g = 0.0;
+    double peak_dynamic_pressure_Pa = 0.0;
+    double throttle = 1.0;  ///< as flown
 };
 
 /// Finds the latest separation time along the descent under the canopy at which a
 /// constant-thrust burn against the velocity, after the coast, ends at the requested velocity
 /// at the requested height above the site (TOMS 748 on the separation time). With `history`, the
 /// solved coast and burn are appended to it.
+/// Flies one separation (or, with no coast, ignition) at t_s from the given state: the coast,
+/// then the burn to the request's end velocity or the ground. `reached_velocity` says which.
+struct BurnAttempt {
+    bool reached_velocity = false;
+    BurnSolution burn;
+};
+BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& request,
+                     const IntegratorSettings<flight_state_size>& settings, double t_s,
+                     FlightState separation_state, std::vector<TrajectorySample>* history = nullptr);
+
+/// How far above its target a burn ends (negative: below it, or at the ground too fast).
+/// Continuous across the two cases: at the ground, the excess speed counts as metres per
+/// (m/s) times one second.
+double burn_miss(const BurnAttempt& attempt, const BurnRequest& request);
+
 BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory& descent,
                                  const BurnRequest& request,
                                  const IntegratorSettings<flight_state_size>& settings,
                                  std::vector<TrajectorySample>* history = nullptr);
+
+/// A powered descent lit at a point of the entry (supersonic retro-propulsion): the throttle
+/// between min_throttle and the request's (the most the design flies) that ends the burn at the
+/// end velocity at the target height, by the Illinois method on the miss (which grows with the
+/// throttle). `too_strong` when even the deepest throttle stops above the target: the ignition
+/// must then come later. When even the most throttle does not stop in time, the burn at that
+/// throttle, with stops_in_time false.
+struct ThrottledBurn {
+    BurnSolution burn;
+    bool too_strong = false;
+};
+ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& request,
+                                  double full_thrust_N, double min_throttle,
+                                  const IntegratorSettings<flight_state_size>& settings,
+                                  double ignition_time_s, const FlightState& ignition_state,
+                                  std::vector<TrajectorySample>* history = nullptr);
 
 }  // namespace ds

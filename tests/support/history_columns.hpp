@@ -7,7 +7,7 @@
 
 namespace ds::test {
 
-inline constexpr std::array<const char*, 14> history_columns{"time_s",
+inline constexpr std::array<const char*, 16> history_columns{"time_s",
                                                              "altitude_m",
                                                              "downrange_m",
                                                              "velocity_m_s",
@@ -20,6 +20,8 @@ inline constexpr std::array<const char*, 14> history_columns{"time_s",
                                                              "latitude_deg",
                                                              "longitude_deg",
                                                              "azimuth_deg",
-                                                             "crossrange_m"};
+                                                             "crossrange_m",
+                                                             "throttle",
+                                                             "thrust_coefficient"};
 
 }  // namespace ds::test

@@ -150,18 +150,18 @@ TEST_CASE("the design example of design-file.md reads with the values it states"
     CHECK(d.aeroshell.drag_coefficient == 1.65);
     CHECK(d.mass.entry_kg == 560.0);
     CHECK(d.mass.heat_shield_kg == 60.0);
-    CHECK(d.parachute.type == "disk-gap-band");
-    CHECK(d.parachute.diameter_m == 12.0);
-    CHECK(d.parachute.drag_coefficient == 0.55);
-    CHECK(d.parachute.trigger == ds::TriggerKind::mach);
-    CHECK(d.parachute.trigger_value == 1.8);
+    CHECK(d.parachute->type == "disk-gap-band");
+    CHECK(d.parachute->diameter_m == 12.0);
+    CHECK(d.parachute->drag_coefficient == 0.55);
+    CHECK(d.parachute->trigger == ds::TriggerKind::mach);
+    CHECK(d.parachute->trigger_value == 1.8);
     CHECK(d.terminal.method == ds::TerminalMethod::retro);
     CHECK(d.terminal.isp_s == 220.0);
     CHECK(d.terminal.thrust_to_weight == 2.5);
     CHECK(d.terminal.touchdown_velocity_m_s == 2.0);
     // Absent sections and keys keep their defaults.
     CHECK(d.mass.items.empty());
-    CHECK_FALSE(d.parachute.mass_kg.has_value());
+    CHECK_FALSE(d.parachute->mass_kg.has_value());
     CHECK_FALSE(d.decelerator.has_value());
     CHECK_FALSE(d.sequence.heat_shield_jettison_delay_s.has_value());
     CHECK_FALSE(d.sequence.heat_shield_jettison_dynamic_pressure_Pa.has_value());
@@ -191,7 +191,7 @@ TEST_CASE("optional keys left out take the defaults of the design structs") {
     CHECK(result.design->aeroshell.half_angle_deg == 70.0);
     CHECK_FALSE(result.design->aeroshell.drag_coefficient.has_value());
     CHECK_FALSE(result.design->mass.heat_shield_kg.has_value());
-    CHECK_FALSE(result.design->parachute.drag_coefficient.has_value());
+    CHECK_FALSE(result.design->parachute->drag_coefficient.has_value());
 }
 
 TEST_CASE("a missing key is reported at its path as missing") {
@@ -531,9 +531,9 @@ TEST_CASE("diameters may be sizing requests in their object form") {
     const ds::Design& d = *result.design;
     CHECK_FALSE(d.aeroshell.diameter_m.has_value());
     CHECK(d.aeroshell.size_for_ballistic_coefficient_kg_m2 == 60.0);
-    CHECK_FALSE(d.parachute.diameter_m.has_value());
-    CHECK(d.parachute.size_for_velocity_m_s == 70.0);
-    CHECK(d.parachute.at_height_above_site_m == 2000.0);
+    CHECK_FALSE(d.parachute->diameter_m.has_value());
+    CHECK(d.parachute->size_for_velocity_m_s == 70.0);
+    CHECK(d.parachute->at_height_above_site_m == 2000.0);
 
     const auto incomplete =
         read(with(baseline(), "/parachute/diameter_m", {{"size_for_velocity_m_s", 70}, {"x", 1}}));
@@ -640,7 +640,7 @@ TEST_CASE("a parachute may state its own mass") {
     const auto result = read(with(baseline(), "/parachute/mass_kg", 14.5));
     INFO(error_list(result));
     REQUIRE(result.ok());
-    CHECK(result.design->parachute.mass_kg == 14.5);
+    CHECK(result.design->parachute->mass_kg == 14.5);
 }
 
 TEST_CASE("the parachute takes exactly one deploy trigger, and a known type") {
@@ -653,14 +653,14 @@ TEST_CASE("the parachute takes exactly one deploy trigger, and a known type") {
     const auto pressure = read(with(without(baseline(), "/parachute/deploy_mach"),
                                     "/parachute/deploy_dynamic_pressure_Pa", 600));
     REQUIRE(pressure.ok());
-    CHECK(pressure.design->parachute.trigger == ds::TriggerKind::dynamic_pressure);
-    CHECK(pressure.design->parachute.trigger_value == 600.0);
+    CHECK(pressure.design->parachute->trigger == ds::TriggerKind::dynamic_pressure);
+    CHECK(pressure.design->parachute->trigger_value == 600.0);
 
     const auto altitude = read(
         with(without(baseline(), "/parachute/deploy_mach"), "/parachute/deploy_altitude_m", -500));
     REQUIRE(altitude.ok());
-    CHECK(altitude.design->parachute.trigger == ds::TriggerKind::altitude);
-    CHECK(altitude.design->parachute.trigger_value == -500.0);
+    CHECK(altitude.design->parachute->trigger == ds::TriggerKind::altitude);
+    CHECK(altitude.design->parachute->trigger_value == -500.0);
 
     const auto type = read(with(baseline(), "/parachute/type", "cross"));
     CHECK(has_error(type, "parachute.type",
@@ -692,7 +692,8 @@ TEST_CASE("retro, airbag and tethered terminals need their engine and end speed;
 
     const auto unknown = read(with(baseline(), "/terminal/method", "legs"));
     CHECK(only_error(unknown, "terminal.method",
-                     "unknown method \"legs\"; expected one of: retro, airbag, tethered, none"));
+                     "unknown method \"legs\"; expected one of: retro, airbag, tethered, none, "
+                     "supersonic-retro"));
 }
 
 TEST_CASE("a powered terminal reads its throttle and propellant allowances") {
@@ -753,9 +754,11 @@ TEST_CASE("terminal keys of another method are errors naming the methods they be
     const auto engine = read(none);
     REQUIRE(engine.errors.size() == 2);
     CHECK(has_error(engine, "terminal.isp_s",
-                    "only for methods \"retro\", \"airbag\" and \"tethered\""));
+                    "only for methods \"retro\", \"airbag\", \"tethered\" and "
+                    "\"supersonic-retro\""));
     CHECK(has_error(engine, "terminal.throttle",
-                    "only for methods \"retro\", \"airbag\" and \"tethered\""));
+                    "only for methods \"retro\", \"airbag\", \"tethered\" and "
+                    "\"supersonic-retro\""));
 }
 
 TEST_CASE("a decelerator reads its size, drag, trigger and mass") {

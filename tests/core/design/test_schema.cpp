@@ -95,6 +95,9 @@ std::vector<Shape> every_shape() {
         if (row.group) {
             Shape shape = first_shape();
             shape.member[group_id(row)] = std::string(row.key);
+            // A group of one method's keys (the ignition trigger) in a design of that method.
+            if (!row.methods.empty())
+                shape.choice["terminal.method"] = std::string(ds::to_string(row.methods.front()));
             if (!row.parent.empty() && is_object(parent_path(row)))
                 shape.object[parent_path(row)] = true;
             shapes.push_back(shape);
@@ -166,6 +169,13 @@ ds::Design design_of(const Shape& shape) {
         if (row.kind == ds::KeyKind::integer)
             value = std::ceil(value);
         row.number.set(d, value);
+    }
+    // A powered descent from the entry flies without canopies, and throttles no deeper than
+    // its deepest throttle.
+    if (d.terminal.method == ds::TerminalMethod::supersonic_retro) {
+        d.parachute.reset();
+        d.drogue.reset();
+        d.terminal.min_throttle = std::min(d.terminal.min_throttle, d.terminal.throttle);
     }
     // What spans keys: a nose within the diameter, drops below the entry mass, the interface
     // above the site, a table that covers the flight.
@@ -296,7 +306,7 @@ TEST_CASE("schema rows: unique paths, access for every number, defaults and sugg
         CHECK(ds::find_key(row.path()) == &row);
     }
     // With the jettison's Mach and dynamic pressure and the subsonic canopy's Mach (issue 12).
-    CHECK(ds::keys_of("limits").size() == 22);
+    CHECK(ds::keys_of("limits").size() == 26);
 }
 
 TEST_CASE("the schema's choices come from the one name table of each enumeration") {
@@ -304,7 +314,8 @@ TEST_CASE("the schema's choices come from the one name table of each enumeration
     CHECK(names("atmosphere.model") ==
           std::vector<std::string_view>{"exponential", "table", "standard"});
     CHECK(names("terminal.method") ==
-          std::vector<std::string_view>{"retro", "airbag", "tethered", "none"});
+          std::vector<std::string_view>{"retro", "airbag", "tethered", "none",
+                                        "supersonic-retro"});
     std::vector<std::string_view> canopies;
     for (const ds::CanopyType& type : ds::canopy_types())
         canopies.push_back(type.name);

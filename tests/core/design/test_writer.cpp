@@ -37,11 +37,12 @@ ds::Design example_design() {
     d.aeroshell.drag_coefficient = 1.65;
     d.mass.entry_kg = 560.0;
     d.mass.heat_shield_kg = 60.0;
-    d.parachute.type = "disk-gap-band";
-    d.parachute.diameter_m = 12.0;
-    d.parachute.drag_coefficient = 0.55;
-    d.parachute.trigger = ds::TriggerKind::mach;
-    d.parachute.trigger_value = 1.8;
+    d.parachute.emplace();
+    d.parachute->type = "disk-gap-band";
+    d.parachute->diameter_m = 12.0;
+    d.parachute->drag_coefficient = 0.55;
+    d.parachute->trigger = ds::TriggerKind::mach;
+    d.parachute->trigger_value = 1.8;
     d.terminal.method = ds::TerminalMethod::retro;
     d.terminal.isp_s = 220.0;
     d.terminal.thrust_to_weight = 2.5;
@@ -99,13 +100,13 @@ TEST_CASE("round trip of a custom body, table rows, sizing requests and changed 
     design.aeroshell.size_for_ballistic_coefficient_kg_m2 = 72.5;
     design.aeroshell.drag_coefficient.reset();
     design.aeroshell.half_angle_deg = 60.0;
-    design.parachute.type = "ringsail";
-    design.parachute.diameter_m.reset();
-    design.parachute.size_for_velocity_m_s = 65.0;
-    design.parachute.at_height_above_site_m = 1500.0;
-    design.parachute.drag_coefficient.reset();
-    design.parachute.trigger = ds::TriggerKind::altitude;
-    design.parachute.trigger_value = 9000.0;
+    design.parachute->type = "ringsail";
+    design.parachute->diameter_m.reset();
+    design.parachute->size_for_velocity_m_s = 65.0;
+    design.parachute->at_height_above_site_m = 1500.0;
+    design.parachute->drag_coefficient.reset();
+    design.parachute->trigger = ds::TriggerKind::altitude;
+    design.parachute->trigger_value = 9000.0;
     design.terminal.method = ds::TerminalMethod::airbag;
     design.terminal.isp_s = 230.0;
     design.terminal.thrust_to_weight = 3.0;
@@ -125,8 +126,8 @@ TEST_CASE("round trip of a standard atmosphere with gas overrides and a pressure
     design.atmosphere.model = ds::AtmosphereModel::standard;
     design.atmosphere.gas_constant_J_kgK = 287.0;
     design.atmosphere.gamma = 1.4;
-    design.parachute.trigger = ds::TriggerKind::dynamic_pressure;
-    design.parachute.trigger_value = 700.0;
+    design.parachute->trigger = ds::TriggerKind::dynamic_pressure;
+    design.parachute->trigger_value = 700.0;
     design.terminal.method = ds::TerminalMethod::tethered;
     design.terminal.isp_s = 225.0;
     design.terminal.thrust_to_weight = 1.8;
@@ -147,7 +148,7 @@ TEST_CASE("round trip of a sized mass budget, a decelerator, a sequence and term
         {"camera", 0.0, ds::MassGroup::payload, ds::Maturity::actual},
     };
     design.decelerator = ds::DeceleratorDesign{6.0, 1.3, ds::TriggerKind::altitude, 18000.0, 55.0};
-    design.parachute.mass_kg = 14.5;
+    design.parachute->mass_kg = 14.5;
     design.sequence.heat_shield_jettison_dynamic_pressure_Pa = 320.0;
     design.sequence.ground_sensing_lock_s = 22.0;
     design.sequence.separation_coast_s = 1.25;
@@ -219,9 +220,9 @@ TEST_CASE("the written document follows the contract's key order and object form
     ds::Design design = example_design();
     design.aeroshell.diameter_m.reset();
     design.aeroshell.size_for_ballistic_coefficient_kg_m2 = 60.0;
-    design.parachute.diameter_m.reset();
-    design.parachute.size_for_velocity_m_s = 70.0;
-    design.parachute.at_height_above_site_m = 2000.0;
+    design.parachute->diameter_m.reset();
+    design.parachute->size_for_velocity_m_s = 70.0;
+    design.parachute->at_height_above_site_m = 2000.0;
     const nlohmann::ordered_json document = ds::design_to_json(design);
 
     std::vector<std::string> keys;

@@ -159,8 +159,7 @@ ds::Design random_design(const ds::Design& base, Draw& draw) {
             d.mass.heat_shield_kg = entry_kg * draw.uniform(0.05, 0.15);
     }
 
-    ds::ParachuteDesign& p = d.parachute;
-    p = {};
+    ds::ParachuteDesign& p = d.parachute.emplace();
     p.type = std::string(draw.pick(canopy_types));
     if (draw.chance(0.8)) {
         p.diameter_m = diameter * draw.uniform(3.0, 6.0);
@@ -340,6 +339,7 @@ std::string_view landing_event(ds::TerminalMethod method) {
     switch (method) {
         case ds::TerminalMethod::retro:
         case ds::TerminalMethod::none:
+        case ds::TerminalMethod::supersonic_retro:
             return "touchdown";
         case ds::TerminalMethod::airbag:
             return "airbag impact";

@@ -93,9 +93,9 @@ TEST_CASE("a canopy sized for 65 m/s at 2000 m above the site passes there at 65
     // (quasi-steady) descent, the request holds.
     for (const double at_height_m : {2000.0, 6000.0}) {
         ds::Design d = sample("small-ballistic-station");
-        d.parachute.diameter_m.reset();
-        d.parachute.size_for_velocity_m_s = 65.0;
-        d.parachute.at_height_above_site_m = at_height_m;
+        d.parachute->diameter_m.reset();
+        d.parachute->size_for_velocity_m_s = 65.0;
+        d.parachute->at_height_above_site_m = at_height_m;
         const Flown f(d);
         REQUIRE(f.evaluation.descent);
         const double h = d.site.elevation_m + at_height_m;

@@ -36,7 +36,7 @@ ds::Design hand_closable() {
     d.mass.entry_kg.reset();
     d.mass.heat_shield_kg = 30.0;
     d.mass.backshell_kg = 40.0;
-    d.parachute.mass_kg = 10.0;
+    d.parachute->mass_kg = 10.0;
     d.terminal = {};
     d.terminal.method = ds::TerminalMethod::none;
     d.limits.touchdown_velocity_max_m_s = 60.0;
@@ -128,7 +128,7 @@ TEST_CASE("the descent rate under the canopy is the hand terminal-velocity balan
 TEST_CASE("a larger canopy lowers the descent rate (trend)") {
     ds::Design d = sample("small-ballistic-station");
     const double small = *ds::size_design(d).parachute.descent_velocity_m_s;
-    d.parachute.diameter_m = 16.0;
+    d.parachute->diameter_m = 16.0;
     const double large = *ds::size_design(d).parachute.descent_velocity_m_s;
     CHECK(large < 0.85 * small);
 }
@@ -343,7 +343,7 @@ TEST_CASE("parts heavier than the vehicle fail drop_mass, with no negative thrus
     // Regression: a 600 kg canopy on the 560 kg station gave the lander a negative mass, and
     // with it a negative thrust and propellant; only the mass allocation said anything.
     ds::Design d = sample("small-ballistic-station");
-    d.parachute.mass_kg = 600.0;
+    d.parachute->mass_kg = 600.0;
     const ds::Results r = ds::size_design(d);
     const ds::Check* c = &ds::test::require_check(r, "drop_mass", ds::CheckStatus::fail);
     // Dropped: the heat shield, the backshell (an estimate) and the canopy; the sum is exact up

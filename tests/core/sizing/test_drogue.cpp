@@ -29,7 +29,7 @@ ds::Design station_with_drogue() {
     d.drogue->diameter_m = 4.0;
     d.drogue->trigger = ds::TriggerKind::mach;
     d.drogue->trigger_value = 2.0;
-    d.parachute.trigger_value = 0.8;
+    d.parachute->trigger_value = 0.8;
     return d;
 }
 

@@ -161,8 +161,8 @@ TEST_CASE("the Mars station under a 100 m canopy settles and agrees with the ful
     // solved on a record that is part full, part quasi-steady. The canopy's mass is given: its
     // estimate would outweigh the station.
     ds::Design d = sample("small-ballistic-station");
-    d.parachute.diameter_m = 100.0;
-    d.parachute.mass_kg = 30.0;
+    d.parachute->diameter_m = 100.0;
+    d.parachute->mass_kg = 30.0;
     const Comparison c(d);
     REQUIRE(c.evaluation.burn);
     CHECK(c.evaluation.burn->stops_in_time);
@@ -179,8 +179,8 @@ TEST_CASE("a descent under a 10 km canopy settles and lands at the hand terminal
     d.entry.latitude_deg.reset();
     d.entry.longitude_deg.reset();
     d.entry.azimuth_deg.reset();
-    d.parachute.diameter_m = 10000.0;
-    d.parachute.mass_kg = 20.0;
+    d.parachute->diameter_m = 10000.0;
+    d.parachute->mass_kg = 20.0;
     d.terminal = {};
     d.terminal.method = ds::TerminalMethod::none;
     d.solver.max_time_s = 1e12;

@@ -109,7 +109,7 @@ TEST_CASE("a parachute sized for a velocity holds it at the requested height by 
 
 TEST_CASE("a design that reaches the ground before its trigger fails with where and how fast") {
     ds::Design d = sample("small-ballistic-station");
-    d.parachute.trigger_value = 0.2;  // Mach 0.2 is never reached above the site
+    d.parachute->trigger_value = 0.2;  // Mach 0.2 is never reached above the site
     const ds::Results r = ds::size_design(d);
     CHECK_FALSE(r.parachute.deployed);
     ds::test::check_says(r, "parachute_trigger", ds::CheckStatus::fail, "reaches the ground at");
@@ -134,8 +134,8 @@ TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on 
     d.entry.flight_path_angle_deg = -10.0;
     d.entry.lift_to_drag = 0.6;
     d.entry.velocity_m_s = 6500.0;
-    d.parachute.trigger = ds::TriggerKind::dynamic_pressure;
-    d.parachute.trigger_value = 250.0;
+    d.parachute->trigger = ds::TriggerKind::dynamic_pressure;
+    d.parachute->trigger_value = 250.0;
     const ds::Results r = ds::size_design(d);
     // The dynamic pressure rose through 250 Pa (to some 840 Pa) and fell back through it.
     CHECK(r.entry.peak_dynamic_pressure_Pa > 2.0 * 250.0);
@@ -148,8 +148,8 @@ TEST_CASE("a dynamic-pressure trigger waits for descending flight: no deploy on 
 
 TEST_CASE("a dynamic-pressure trigger in descending flight deploys at its value, to 1e-6") {
     ds::Design d = sample("small-ballistic-station");
-    d.parachute.trigger = ds::TriggerKind::dynamic_pressure;
-    d.parachute.trigger_value = 600.0;
+    d.parachute->trigger = ds::TriggerKind::dynamic_pressure;
+    d.parachute->trigger_value = 600.0;
     const ds::Results r = ds::size_design(d);
     REQUIRE(r.parachute.deployed);
     CHECK(*r.parachute.deploy_dynamic_pressure_Pa == doctest::Approx(600.0).epsilon(1e-6));
@@ -203,7 +203,7 @@ TEST_CASE("radiative heating is reported for an Earth return at 11 km/s and abse
     venus.atmosphere.model = ds::AtmosphereModel::standard;
     venus.entry.interface_altitude_m = 200000.0;
     venus.entry.velocity_m_s = 10500.0;
-    venus.parachute.trigger_value = 0.8;
+    venus.parachute->trigger_value = 0.8;
     venus.site.elevation_m = 0.0;
     const ds::Results r = ds::size_design(venus);
     CHECK_FALSE(r.entry.peak_radiative_heat_flux_W_cm2);
@@ -258,7 +258,7 @@ TEST_CASE("the miss from a target splits into downrange and crossrange along the
 
 TEST_CASE("a vehicle that hits the ground before its trigger still has a landing point") {
     ds::Design d = sample("small-ballistic-station");
-    d.parachute.trigger_value = 0.2;  // Mach 0.2 is never reached above the site
+    d.parachute->trigger_value = 0.2;  // Mach 0.2 is never reached above the site
     const ds::Results r = ds::size_design(d);
     REQUIRE_FALSE(r.parachute.deployed);
     REQUIRE(r.landing);
@@ -330,8 +330,8 @@ TEST_CASE("a subsonic canopy (ringsail) deployed supersonic fails") {
     // Regression: a ringsail deployed at Mach 1.8 passed silently.
     ds::Design d = sample("small-ballistic-station");
     CHECK_FALSE(find_check(ds::size_design(d), "subsonic_canopy_mach"));  // a disk-gap-band
-    d.parachute.type = "ringsail";
-    d.parachute.drag_coefficient.reset();
+    d.parachute->type = "ringsail";
+    d.parachute->drag_coefficient.reset();
     const ds::Results r = ds::size_design(d);
     REQUIRE(r.parachute.deploy_mach);
     CHECK(*r.parachute.deploy_mach > 1.5);
