@@ -218,6 +218,21 @@ void write_terminal(std::string& out, const TerminalResults& t) {
     }
     if (t.hover_time_s)
         row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
+    if (const auto& p = t.powered_descent) {
+        text_row(out, "ignition", p->ignition_delayed
+                                      ? "after the trigger (the deepest throttle stops too high)"
+                                      : "at the trigger");
+        row(out, "ignition Mach", p->ignition_mach, "", 2);
+        row(out, "ignition dynamic pressure", p->ignition_dynamic_pressure_Pa, "Pa", 0);
+        row(out, "ignition flight-path angle", p->ignition_flight_path_angle_deg, "deg", 2);
+        row(out, "thrust-to-weight at ignition (full)", p->thrust_to_weight_at_ignition, "", 3);
+        row(out, "throttle (solved)", p->throttle, "", 4);
+        row(out, "thrust coefficient C_T at ignition", p->thrust_coefficient_at_ignition, "", 3);
+        row(out, "aeroshell drag kept under thrust", p->drag_preservation, "", 2);
+        row(out, "peak deceleration of the burn", p->peak_deceleration_g, "g", 3);
+        row(out, "peak dynamic pressure of the burn", p->peak_dynamic_pressure_Pa, "Pa", 0);
+        row(out, "propellant over entry mass", p->propellant_fraction * 100.0, "%", 2);
+    }
 }
 
 /// Metres in km, with a rounding-level negative (-0.000) shown as zero.
@@ -238,7 +253,10 @@ void write_timeline(std::string& out, const Results& results) {
                        ev.time_s, ev.name, ev.altitude_m, ev.velocity_m_s, ev.latitude_deg,
                        ev.longitude_deg, kilometres(ev.downrange_m), kilometres(ev.crossrange_m));
     }
-    row(out, "time from deploy to the burn", results.timeline.available_s, "s", 1);
+    row(out,
+        results.terminal.powered_descent ? "time from ignition to touchdown"
+                                         : "time from deploy to the burn",
+        results.timeline.available_s, "s", 1);
     row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
     row(out, "timeline margin", results.timeline.margin_s, "s", 1);
     row(out, "highest feasible site elevation", results.capability.max_site_elevation_m, "m", 0);
@@ -296,7 +314,12 @@ std::string format_summary(const Design& design, const Results& results) {
         write_decelerator(out, *results.decelerator);
     if (results.drogue)
         write_parachute(out, "Drogue", *results.drogue, false);
-    write_parachute(out, "Parachute", results.parachute, true);
+    if (design.parachute) {
+        write_parachute(out, "Parachute", results.parachute, true);
+    } else {
+        heading(out, "Parachute");
+        text_row(out, "parachute", "none");
+    }
     write_terminal(out, results.terminal);
     write_timeline(out, results);
     write_landing(out, results.landing);

@@ -24,7 +24,7 @@ struct KeyFigureDefinition {
 /// The key figures, in the order they are shown: the one list of them. A figure added here is
 /// in the window's table, the sheet, the trade rows, the dispersion statistics and the trade
 /// tab's figure list at once.
-inline constexpr std::array<KeyFigureDefinition, 18> key_figure_table{{
+inline constexpr std::array<KeyFigureDefinition, 19> key_figure_table{{
     {"entry_mass", "entry mass", "kg", 1,
      [](const Results& r) -> std::optional<double> { return r.mass.entry_kg; }},
     {"landed_mass", "landed mass", "kg", 1, [](const Results& r) { return r.mass.landed_kg; }},
@@ -51,6 +51,8 @@ inline constexpr std::array<KeyFigureDefinition, 18> key_figure_table{{
              return std::nullopt;
          return *r.parachute.opening_load_N / 1e3;
      }},
+    {"ignition_altitude", "terminal burn ignition altitude", "m", 0,
+     [](const Results& r) { return r.terminal.ignition_altitude_m; }},
     {"propellant", "propellant (loaded)", "kg", 1,
      [](const Results& r) { return r.terminal.propellant_kg; }},
     {"burned_propellant", "propellant burned", "kg", 1,

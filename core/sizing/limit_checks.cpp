@@ -105,8 +105,11 @@ void mars_envelope_checks(const Design& design, const Results& results, const Li
                           *results.mass.landed_kg, lim.landed_mass_max_kg, band);
         if (landed.status != CheckStatus::pass) {
             landed.message +=
-                "; a heavier lander needs supersonic retro-propulsion, larger "
-                "decelerators and an entry from orbit";
+                design.terminal.method == TerminalMethod::supersonic_retro
+                    ? "; sized here with supersonic retro-propulsion (terminal.method "
+                      "\"supersonic-retro\"), as a lander this heavy needs"
+                    : "; a heavier lander needs supersonic retro-propulsion (terminal.method "
+                      "\"supersonic-retro\"), larger decelerators and an entry from orbit";
         }
         checks.push_back(landed);
     }

@@ -10,6 +10,7 @@
 
 #include "body/body.hpp"
 #include "design/reader.hpp"
+#include "design/writer.hpp"
 
 namespace {
 
@@ -1037,4 +1038,57 @@ TEST_CASE("an approach or an orbit stands in place of the interface speed and an
         CHECK(only_error(read(document), "mass.items[0].group",
                          "\"deorbit stage\" needs entry.orbit"));
     }
+}
+
+TEST_CASE("a powered descent from the entry flies without a parachute; canopy methods need one") {
+    // The contract example with a supersonic retro-propulsive descent in place of its canopy.
+    Json powered = without(baseline(), "/parachute");
+    powered = with(powered, "/terminal/method", "supersonic-retro");
+    powered = with(powered, "/terminal/ignition_mach", 2.8);
+    powered = with(powered, "/terminal/min_throttle", 0.35);
+    powered = with(powered, "/terminal/drag_preservation", 0.25);
+    const auto read_powered = read(powered);
+    INFO(error_list(read_powered));
+    REQUIRE(read_powered.ok());
+    const ds::Design& d = *read_powered.design;
+    CHECK_FALSE(d.parachute.has_value());
+    CHECK(d.terminal.method == ds::TerminalMethod::supersonic_retro);
+    CHECK(d.terminal.trigger == ds::TriggerKind::mach);
+    CHECK(d.terminal.trigger_value == 2.8);
+    CHECK(d.terminal.min_throttle == 0.35);
+    CHECK(d.terminal.drag_preservation == 0.25);
+    // Written back, it reads the same.
+    CHECK(*ds::read_design(ds::write_design(d)).design == d);
+
+    // "type": "none" says what leaving the section out says; other keys beside it are refused.
+    const auto none = read(with(powered, "/parachute", {{"type", "none"}}));
+    INFO(error_list(none));
+    REQUIRE(none.ok());
+    CHECK_FALSE(none.design->parachute.has_value());
+    CHECK(has_error(read(with(powered, "/parachute", {{"type", "none"}, {"diameter_m", 12}})),
+                    "parachute.diameter_m", "unknown key"));
+
+    // One ignition trigger, and only for this method.
+    CHECK(only_error(read(without(powered, "/terminal/ignition_mach")), "terminal",
+                     "needs one ignition trigger"));
+    CHECK(has_error(read(with(baseline(), "/terminal/ignition_mach", 2.5)),
+                    "terminal.ignition_mach", "only for method \"supersonic-retro\""));
+    // The deepest throttle is no more than the throttle; the drag kept is a share.
+    CHECK(only_error(read(with(powered, "/terminal/throttle", 0.3)), "terminal.min_throttle",
+                     "must be no more than the throttle (0.3), got 0.35"));
+    CHECK(has_error(read(with(powered, "/terminal/drag_preservation", 1.5)),
+                    "terminal.drag_preservation", "must be at least 0 and at most 1, got 1.5"));
+
+    // A parachute or a drogue with a powered descent from the entry is refused.
+    CHECK(only_error(read(with(powered, "/parachute", baseline()["parachute"])), "parachute",
+                     "a powered descent from the entry flies without a parachute"));
+    // A canopy method without a parachute says what to do.
+    CHECK(only_error(read(without(baseline(), "/parachute")), "terminal.method",
+                     "\"retro\" begins under a parachute"));
+    // Landing on the canopy without one is a ballistic impact: read, and judged by the checks.
+    Json ballistic = without(baseline(), "/parachute");
+    ballistic["terminal"] = {{"method", "none"}};
+    const auto impact = read(ballistic);
+    INFO(error_list(impact));
+    CHECK(impact.ok());
 }
