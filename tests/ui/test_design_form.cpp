@@ -270,6 +270,34 @@ private slots:
         QCOMPARE(method->currentIndex(), 0);
     }
 
+    void aPoweredDescentFromTheEntryTakesTheParachuteAwayAndBack() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        QComboBox* method = shape(form, "/terminal/method");
+        method->setCurrentIndex(4);  // supersonic retro-propulsion from the entry
+        QVERIFY(document.value("/terminal/method") == Json("supersonic-retro"));
+        QVERIFY(document.value("/parachute").is_null());
+        // One trigger of the group, not every one.
+        QCOMPARE(document.value("/terminal/ignition_mach").get<double>(), 3.0);
+        QVERIFY(document.value("/terminal/ignition_altitude_m").is_null());
+        QVERIFY(shown(form, "/terminal/min_throttle"));
+        QVERIFY(shown(form, "/terminal/drag_preservation"));
+        QVERIFY(!shown(form, "/parachute/diameter_m"));
+        QVERIFY(!form.findChild<QComboBox*>("/parachute/type")->isVisibleTo(&form));
+        QVERIFY(document.design().has_value());
+
+        method->setCurrentIndex(0);  // retro: under a parachute again
+        QVERIFY(document.value("/parachute").is_object());
+        QVERIFY(document.value("/terminal/ignition_mach").is_null());
+        QVERIFY2(document.design().has_value(),
+                 document.errors().empty() ? "" : document.errors().front().text().c_str());
+        document.undoStack()->undo();
+        document.undoStack()->undo();
+        QCOMPARE(document.value("/parachute/diameter_m").get<double>(), 12.0);
+    }
+
     void aModelTheFormCannotFillIsLeftToTheFile() {
         DesignDocument document;
         QString error;

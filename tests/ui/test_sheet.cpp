@@ -384,9 +384,10 @@ private slots:
         // 2.1 and 250-850 Pa; falling through it, the Mach limit is met first (q is below
         // 850 Pa by then) and the window shuts when q falls through 250 Pa.
         std::unique_ptr<QChart> chart(machPressureChart(m_design, m_results, nullptr));
-        QAreaSeries* band = nullptr;
+        QAreaSeries* band = nullptr;  // the window's (the burn is shaded too)
         for (QAbstractSeries* series : chart->series()) {
-            if (auto* area = qobject_cast<QAreaSeries*>(series))
+            if (auto* area = qobject_cast<QAreaSeries*>(series);
+                area && area->name().startsWith("deploy window"))
                 band = area;
         }
         QVERIFY(band);
@@ -415,7 +416,8 @@ private slots:
         Design venus = *read.design;
         const auto bandOf = [](QChart* chart) -> QAreaSeries* {
             for (QAbstractSeries* series : chart->series()) {
-                if (auto* area = qobject_cast<QAreaSeries*>(series))
+                if (auto* area = qobject_cast<QAreaSeries*>(series);
+                    area && area->name().startsWith("deploy window"))
                     return area;
             }
             return nullptr;
@@ -434,6 +436,51 @@ private slots:
         for (QAbstractSeries* series : loads->series())
             said = said || series->name() == QStringLiteral("radiative: not modelled");
         QVERIFY(said);
+    }
+
+    void poweredDescentIsShadedChartedAndLandsWithItsHeatShield() {
+        // The heavy sample flies no canopy: no deploy window, its burn shaded from ignition to
+        // touchdown on the time charts, its throttle and C_T charted, and a waterfall that drops
+        // only the propellant burned (the heat shield lands with the vehicle).
+        const auto read = read_design_file(std::filesystem::path(DESCENT_SIZER_SAMPLES_DIR) /
+                                           "heavy-cargo-lander.json");
+        QVERIFY(read.ok());
+        const Design heavy = *read.design;
+        SizingOptions options;
+        options.history = true;
+        const Results flown = size_design(heavy, options);
+        QVERIFY(flown.terminal.powered_descent);
+        const double ignition = *flown.terminal.ignition_time_s;
+        const double end = ignition + *flown.terminal.burn_time_s;
+        std::unique_ptr<QChart> mach(machPressureChart(heavy, flown, nullptr));
+        QAreaSeries* burn = nullptr;
+        for (QAbstractSeries* series : mach->series()) {
+            auto* area = qobject_cast<QAreaSeries*>(series);
+            QVERIFY(!area || !area->name().startsWith("deploy window"));
+            if (area && area->name() == QStringLiteral("engines firing"))
+                burn = area;
+        }
+        QVERIFY(burn);
+        const QList<QPointF> outline = burn->upperSeries()->points();
+        QCOMPARE(outline.size(), 4);
+        QCOMPARE(outline[0].x(), ignition);
+        QCOMPARE(outline[3].x(), end);
+
+        std::unique_ptr<QChart> thrust(burnChart(flown, nullptr));
+        double most_throttle = 0.0;
+        for (QAbstractSeries* series : thrust->series()) {
+            if (series->name() != QStringLiteral("throttle"))
+                continue;
+            for (const QPointF& p : qobject_cast<QLineSeries*>(series)->points())
+                most_throttle = std::max(most_throttle, p.y());
+        }
+        QCOMPARE(most_throttle, flown.terminal.powered_descent->throttle);
+
+        std::unique_ptr<QChart> waterfall(massWaterfallChart(flown));
+        const QStringList steps =
+            qobject_cast<QBarCategoryAxis*>(waterfall->axes(Qt::Horizontal).front())->categories();
+        QCOMPARE(steps.size(), 3);  // entry, propellant burned, landed
+        QVERIFY(steps[1].startsWith("propellant"));
     }
 
     void waterfallOfTheStationDropsHeatShieldBackshellAndBurnedPropellant() {
@@ -508,6 +555,7 @@ private slots:
             std::unique_ptr<QChart>(loadsChart(empty, &m_results)),
             std::unique_ptr<QChart>(machPressureChart(m_design, empty, nullptr)),
             std::unique_ptr<QChart>(massWaterfallChart(empty)),
+            std::unique_ptr<QChart>(burnChart(empty, nullptr)),
         };
         for (const auto& chart : charts) {
             QVERIFY(!chart->title().isEmpty());
@@ -524,7 +572,7 @@ private slots:
         ChartsView view;
         view.resize(900, 700);
         const QList<QChartView*> views = view.findChildren<QChartView*>();
-        QCOMPARE(views.size(), 5);
+        QCOMPARE(views.size(), 6);
         QList<QPointer<QChart>> before;
         for (QChartView* chartView : views)
             before << QPointer<QChart>(chartView->chart());

@@ -20,6 +20,8 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
     charts.emplace_back(machPressureChart(design, results, nullptr));
     charts.emplace_back(massWaterfallChart(results));
     charts.emplace_back(groundTrackChart(results, nullptr));
+    if (results.terminal.powered_descent)
+        charts.emplace_back(burnChart(results, nullptr));
     std::vector<SheetChart> drawn;
     for (const auto& chart : charts)
         drawn.push_back({chart->title(), renderChart(chart.get(), sheetChartSize)});

@@ -22,6 +22,7 @@ inline const QColor secondaryInk(0xa0, 0x3a, 0x13);  // the right-axis quantity
 inline const QColor baselineInk(0x80, 0x80, 0x80);
 inline const QColor eventInk(0x20, 0x20, 0x20);
 inline const QColor windowFill(0x3c, 0x9d, 0x5d, 60);  // translucent: the lines stay readable
+inline const QColor burnFill(0xe0, 0x6c, 0x1a, 45);    // the engines firing, as translucent
 // A case by its checks: all pass, the worst marginal, one failing.
 inline const QColor passInk(0x2e, 0x8b, 0x57);
 inline const QColor marginalInk(0xd0, 0x90, 0x10);

@@ -138,6 +138,34 @@ void attachTimeCurves(const TimeChart& c, const Results& results, const Results*
            c.time, c.right);
 }
 
+/// The terminal burn's interval, ignition to its end, when the flight has one.
+std::optional<std::pair<double, double>> burnInterval(const Results& results) {
+    const TerminalResults& t = results.terminal;
+    if (!t.ignition_time_s || !t.burn_time_s || !(*t.burn_time_s > 0.0))
+        return std::nullopt;
+    return std::make_pair(*t.ignition_time_s, *t.ignition_time_s + *t.burn_time_s);
+}
+
+/// Shades the time the engines fire, over the chart's full height (on the left axis).
+void shadeBurn(const TimeChart& c, const Results& results) {
+    const auto burn = burnInterval(results);
+    if (!burn)
+        return;
+    auto* band = new QAreaSeries;
+    auto* outline = new QLineSeries(band);
+    const double bottom = c.left->min();
+    const double top = c.left->max();
+    outline->append(burn->first, bottom);
+    outline->append(burn->first, top);
+    outline->append(burn->second, top);
+    outline->append(burn->second, bottom);
+    band->setUpperSeries(outline);
+    band->setName(QStringLiteral("engines firing"));
+    band->setBrush(burnFill);
+    band->setPen(Qt::NoPen);
+    attach(c.chart, band, c.time, c.left);
+}
+
 /// A single marked point with its label written beside it; kept out of the legend.
 QScatterSeries* eventMarker(const QString& label, QPointF point) {
     auto* marker = new QScatterSeries;
@@ -324,6 +352,7 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
                                    return std::max(s.heat_flux_W_cm2, s.radiative_heat_flux_W_cm2);
                                }};
     const TimeChart c = timeChart(title, results, baseline, deceleration, convective);
+    shadeBurn(c, results);
     attachTimeCurves(c, results, baseline, deceleration, convective);
     const bool radiative =
         std::any_of(results.history.begin(), results.history.end(),
@@ -365,8 +394,9 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
     // The deploy window where one applies (Mars, or the design's own bounds), shaded over the
     // full height: a step outline on the Mach axis.
     const DeployWindow window = deploy_window(design);
-    const auto intervals = window.any() ? deployWindowIntervals(results.history, window)
-                                        : std::vector<std::pair<double, double>>{};
+    const auto intervals = window.any() && design.parachute
+                               ? deployWindowIntervals(results.history, window)
+                               : std::vector<std::pair<double, double>>{};
     if (!intervals.empty()) {
         auto* band = new QAreaSeries;
         auto* outline = new QLineSeries(band);
@@ -385,6 +415,7 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         attach(c.chart, band, c.time, c.left);
     }
 
+    shadeBurn(c, results);
     attachTimeCurves(c, results, baseline, mach, pressure);
 
     markDeploy(c, QStringLiteral("parachute deploy"), results.parachute);
@@ -392,6 +423,34 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         markDeploy(c, QStringLiteral("decelerator inflation"), *results.decelerator);
     if (results.drogue)
         markDeploy(c, QStringLiteral("drogue deploy"), *results.drogue);
+    return std::unique_ptr<QChart>(c.chart);
+}
+
+std::unique_ptr<QChart> burnChart(const Results& results, const Results* baseline) {
+    const QString title = QStringLiteral("Throttle and thrust coefficient during the burn");
+    const auto burn = burnInterval(results);
+    if (results.history.empty() || !burn)
+        return std::unique_ptr<QChart>(emptyChart(title, QStringLiteral("no burn")));
+
+    const TimeCurve throttle{QStringLiteral("throttle"), QStringLiteral("baseline throttle"),
+                             QStringLiteral("throttle (of full thrust)"),
+                             [](const TrajectorySample& s) { return s.throttle; },
+                             [](const TrajectorySample&) { return 1.0; }};
+    // C_T = T / (q A) grows without bound as the air slows: its axis holds what it reaches
+    // while the flow is still supersonic (where it says how the plume meets the flow), and the
+    // curve runs off the top below that.
+    const TimeCurve coefficient{
+        QStringLiteral("thrust coefficient C_T"), QStringLiteral("baseline C_T"),
+        QStringLiteral("C_T = T / (q A)"),
+        [](const TrajectorySample& s) { return s.thrust_coefficient; },
+        [](const TrajectorySample& s) { return s.mach >= 1.0 ? s.thrust_coefficient : 0.0; }};
+    const TimeChart c = timeChart(title, results, baseline, throttle, coefficient);
+    const double span = burn->second - burn->first;
+    setNiceRange(c.time, std::max(0.0, burn->first - 0.1 * span), burn->second + 0.05 * span);
+    if (!(c.right->max() > 0.0))
+        setNiceRange(c.right, 0.0, 1.0);  // no supersonic thrust: the canopy methods' burns
+    shadeBurn(c, results);
+    attachTimeCurves(c, results, baseline, throttle, coefficient);
     return std::unique_ptr<QChart>(c.chart);
 }
 
@@ -411,7 +470,12 @@ std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
     };
     // What leaves the vehicle, in the order it leaves.
     std::vector<std::pair<QString, double>> drops;
-    drops.emplace_back(QStringLiteral("heat-shield<br>jettison"), groupKg(MassGroup::heat_shield));
+    // The heat shield leaves only where it is jettisoned under the canopy; a powered descent
+    // from the entry lands with it.
+    if (results.parachute.heat_shield_jettison_time_s) {
+        drops.emplace_back(QStringLiteral("heat-shield<br>jettison"),
+                           groupKg(MassGroup::heat_shield));
+    }
     if (backshell_separates(results.terminal.method))
         drops.emplace_back(QStringLiteral("backshell<br>separation"),
                            groupKg(MassGroup::backshell));
@@ -599,6 +663,7 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     m_machPressure = makeView(QStringLiteral("Mach number and dynamic pressure against time"));
     m_mass = makeView(QStringLiteral("Mass from entry to landing"));
     m_groundTrack = makeView(QStringLiteral("Ground track"));
+    m_burn = makeView(QStringLiteral("Throttle and thrust coefficient during the burn"));
 
     // The four profiles share a page; the ground track, wide and flat, has one of its own: a
     // fifth chart in the grid leaves every chart too small to read at the window's usual size.
@@ -615,6 +680,7 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     m_pages->setDocumentMode(true);
     m_pages->addTab(profiles, tr("Profiles"));
     m_pages->addTab(m_groundTrack, tr("Ground track"));
+    m_pages->addTab(m_burn, tr("Burn"));
     auto* layout = new QVBoxLayout(this);
     layout->setContentsMargins(0, 0, 0, 0);
     layout->addWidget(m_pages);
@@ -631,6 +697,7 @@ void ChartsView::setResults(const Design& design, const Results& results, const 
     replace(m_machPressure, machPressureChart(design, results, baseline));
     replace(m_mass, massWaterfallChart(results));
     replace(m_groundTrack, groundTrackChart(results, baseline));
+    replace(m_burn, burnChart(results, baseline));
 }
 
 }  // namespace ds

@@ -25,6 +25,9 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
 std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
                                           const Results* baseline);
 std::unique_ptr<QChart> massWaterfallChart(const Results& results);
+/// The terminal burn's throttle and thrust coefficient against time, the burn shaded; an
+/// empty chart for a flight without a burn.
+std::unique_ptr<QChart> burnChart(const Results& results, const Results* baseline);
 /// Crossrange against downrange (km from the entry point along its great circle), one point
 /// per history sample, the timeline's events numbered as on the altitude chart, and the
 /// target site when the design has one.
@@ -48,6 +51,7 @@ private:
     QChartView* m_machPressure;
     QChartView* m_mass;
     QChartView* m_groundTrack;
+    QChartView* m_burn;
     QTabWidget* m_pages;
 };
 

@@ -141,6 +141,9 @@ Json partWithFallbacks(std::string_view section, std::string_view parent) {
                                        : key->need == KeyNeed::required;
         if (needed && key->fallback)
             part[std::string(key->key)] = *key->fallback;
+        // A choice the part needs takes the first of its names (a parachute's type).
+        if (needed && key->kind == KeyKind::choice && key->choices)
+            part[std::string(key->key)] = std::string(key->choices().front());
     }
     return part;
 }
@@ -451,7 +454,9 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
                 if (key == &selector || !key->parent.empty())
                     continue;
                 const std::string at = pointerOf(*key);
-                const bool wanted = belongsTo(*key, name);
+                // Of a group only its first key is filled in: one trigger, not every one.
+                const bool wanted =
+                    belongsTo(*key, name) && (!key->group || membersOf(*key).front() == key);
                 const bool there = !m_document->value(at).is_null();
                 const bool canopy = key->on_canopy && name == to_string(TerminalMethod::none);
                 const std::optional<double> fallback =
@@ -460,6 +465,18 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
                     values.emplace_back(at, Json());
                 if (wanted && !there && fallback)
                     values.emplace_back(at, *fallback);
+            }
+            // A powered descent from the entry flies without canopies; the other engines fire
+            // under a parachute: the sections follow the method in the same edit.
+            if (selector.path() == "terminal.method") {
+                const bool powered = name == to_string(TerminalMethod::supersonic_retro);
+                const bool none = name == to_string(TerminalMethod::none);
+                for (const char* canopy : {"/parachute", "/drogue"}) {
+                    if (powered && m_document->value(canopy).is_object())
+                        values.emplace_back(canopy, Json());
+                }
+                if (!powered && !none && !m_document->value("/parachute").is_object())
+                    values.emplace_back("/parachute", partWithFallbacks("parachute", {}));
             }
             m_document->setValues(
                 values,
@@ -525,6 +542,7 @@ void DesignForm::addNumberOrRequest(QFormLayout* form, const KeyRow& key) {
                     tr("Give the %1 %2").arg(fromView(key.section), fromView(key.key)));
             }
         });
+    m_shapes.back().part = &key;  // shown with its part (a parachute the design may lack)
     addNumber(form, key);
     for (const KeyRow* k : request)
         addNumber(form, *k);
@@ -648,6 +666,11 @@ void DesignForm::refresh() {
     for (ShapeBinding& s : m_shapes) {
         if (s.part)
             setFieldVisible(s.combo, partPresent(*s.part));
+    }
+    // The choices of a part the design lacks (a parachute's type) show with the part.
+    for (ChoiceBinding& c : m_choices) {
+        if (const KeyRow* key = find_key(pointer_to_key(c.pointer)))
+            setFieldVisible(c.combo, partPresent(*key));
     }
     refreshItems();
 
