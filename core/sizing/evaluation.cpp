@@ -527,15 +527,33 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
                                               const Evaluation& e, double site_elevation_m) {
     if (design.terminal.method == TerminalMethod::supersonic_retro) {
-        if (!e.burn || site_elevation_m != design.site.elevation_m)
+        if (!e.burn)
             return std::nullopt;
+        BurnSolution burn = *e.burn;
+        if (site_elevation_m != e.burn_request->site_elevation_m) {
+            // The powered descent lit at the trigger, its throttle solved for that site.
+            BurnRequest request = *e.burn_request;
+            request.site_elevation_m = site_elevation_m;
+            request.throttle = design.terminal.throttle;
+            burn = solve_burn_throttle(
+                       model, request, e.full_thrust_N, design.terminal.min_throttle,
+                       flight_integrator_settings(
+                           design.solver.relative_tolerance,
+                           static_cast<std::size_t>(design.solver.max_steps)),
+                       e.entry.end_time_s, e.entry.end_state)
+                       .burn;
+        }
         TimelineMargin m;
-        m.available_s = e.burn->end_time_s - e.burn->ignition_time_s;
+        m.available_s = burn.end_time_s - burn.ignition_time_s;
         m.needed_s = design.sequence.ground_sensing_lock_s;
         m.margin_s = m.available_s - m.needed_s;
-        if (!e.burn->stops_in_time)
-            m.margin_s = std::min(m.margin_s, 0.0) - (speed(e.burn->end_state) -
-                                                      e.burn_request->end_velocity_m_s);
+        if (!burn.stops_in_time) {
+            // As under a canopy: the excess speed counts against it, so the margin keeps
+            // falling as the site rises.
+            constexpr double seconds_per_m_s = 1.0;
+            m.margin_s = std::min(m.margin_s, 0.0) -
+                         seconds_per_m_s * (speed(burn.end_state) - e.burn_request->end_velocity_m_s);
+        }
         return m;
     }
     if (!e.descent || !e.descent->jettisoned)

@@ -101,8 +101,10 @@ std::optional<CapabilityGuess> capability_guess(const Design& design, const Flig
 
 std::optional<double> max_site_elevation(const Design& design, const FlightModel& model,
                                          const Evaluation& evaluation) {
-    if (!evaluation.descent || !evaluation.descent->jettisoned ||
-        !evaluation.descent->reached_floor) {
+    const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
+    if (powered ? !evaluation.burn
+                : !evaluation.descent || !evaluation.descent->jettisoned ||
+                      !evaluation.descent->reached_floor) {
         return std::nullopt;
     }
     const Evaluation* e = &evaluation;
@@ -114,18 +116,22 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
     double margin_low = margin_at(low);
     Evaluation deeper;
     if (!(margin_low >= 0.0)) {
-        deeper = evaluation;
         low = design.site.elevation_m - capability_depth_below_site_m;
-        extend_descent(design, model, *deeper.descent, low);
-        if (!deeper.descent->reached_floor)
-            return std::nullopt;
-        e = &deeper;
+        if (!powered) {  // the descent under the canopy is flown on down to look there
+            deeper = evaluation;
+            extend_descent(design, model, *deeper.descent, low);
+            if (!deeper.descent->reached_floor)
+                return std::nullopt;
+            e = &deeper;
+        }
         margin_low = margin_at(low);
         if (!(margin_low >= 0.0))
             return std::nullopt;
     }
-    const double high =
-        evaluation.descent->jettison_state[StateIndex::altitude] - capability_tolerance_m;
+    // Up to where the heat shield leaves (under a canopy), or where the engines light.
+    const double high = (powered ? evaluation.entry.end_state[StateIndex::altitude]
+                                 : evaluation.descent->jettison_state[StateIndex::altitude]) -
+                        capability_tolerance_m;
     if (!(high > low))
         return std::nullopt;
 
@@ -736,8 +742,8 @@ void descent_checks(const Evaluation& e, const Design& design, std::vector<Check
             design.terminal.touchdown_velocity_m_s, "m/s",
             powered ? fmt::format("even at full throttle from its ignition, the powered descent "
                                   "cannot bring the vehicle to {:.2g} m/s in time: it reaches the "
-                                  "ground at {:.1f} m/s; more thrust or an earlier, faster "
-                                  "ignition is needed",
+                                  "ground at {:.1f} m/s; more thrust, more drag kept under thrust, "
+                                  "or an ignition with more height for its speed is needed",
                                   design.terminal.touchdown_velocity_m_s,
                                   speed(e.burn->end_state))
                     : fmt::format("even separating at parachute deploy, the burn cannot bring the "
