@@ -324,6 +324,17 @@ std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Resu
         chart,
         historySeries(results.history, QStringLiteral("trajectory"), resultPen(primaryInk), point),
         velocityAxis, altitudeAxis);
+    // The stretch flown with the engines firing, over the trajectory in the burn's colour.
+    std::vector<TrajectorySample> firing;
+    std::copy_if(results.history.begin(), results.history.end(), std::back_inserter(firing),
+                 [](const TrajectorySample& s) { return s.throttle > 0.0; });
+    if (!firing.empty()) {
+        QPen pen = resultPen(burnFill);
+        pen.setColor(QColor(burnFill.red(), burnFill.green(), burnFill.blue()));
+        pen.setWidthF(pen.widthF() * 2.5);
+        attach(chart, historySeries(firing, QStringLiteral("engines firing"), pen, point),
+               velocityAxis, altitudeAxis);
+    }
 
     // Each event is marked by its number, the key in the corner that an entry never reaches
     // (slow and high).
