@@ -283,12 +283,22 @@ private slots:
     void altitudeVelocityChartDrawsTheWholeHistory() {
         std::unique_ptr<QChart> chart(altitudeVelocityChart(m_results, nullptr));
         QLineSeries* trajectory = nullptr;
+        QLineSeries* firing = nullptr;
         for (QAbstractSeries* series : chart->series()) {
-            if (series->type() == QAbstractSeries::SeriesTypeLine)
-                trajectory = static_cast<QLineSeries*>(series);
+            if (series->type() != QAbstractSeries::SeriesTypeLine)
+                continue;
+            (series->name() == QStringLiteral("engines firing") ? firing : trajectory) =
+                static_cast<QLineSeries*>(series);
         }
         QVERIFY(trajectory);
         QCOMPARE(trajectory->count(), static_cast<int>(m_results.history.size()));
+        // The burn drawn over it: the samples with the engines firing.
+        QVERIFY(firing);
+        const auto burning =
+            std::count_if(m_results.history.begin(), m_results.history.end(),
+                          [](const TrajectorySample& s) { return s.throttle > 0.0; });
+        QVERIFY(burning > 0);
+        QCOMPARE(firing->count(), static_cast<int>(burning));
         // First point: 5600 m/s at 125 km (the sample's entry interface).
         QCOMPARE(trajectory->at(0), QPointF(5600.0, 125.0));
     }
