@@ -219,9 +219,9 @@ void write_terminal(std::string& out, const TerminalResults& t) {
     if (t.hover_time_s)
         row(out, "hover time (lowering, fly-away)", t.hover_time_s, "s", 1);
     if (const auto& p = t.powered_descent) {
-        text_row(out, "ignition", p->ignition_delayed
-                                      ? "after the trigger (the deepest throttle stops too high)"
-                                      : "at the trigger");
+        text_row(out, "ignition",
+                 p->ignition_delayed ? "after the trigger (the deepest throttle stops too high)"
+                                     : "at the trigger");
         row(out, "ignition Mach", p->ignition_mach, "", 2);
         row(out, "ignition dynamic pressure", p->ignition_dynamic_pressure_Pa, "Pa", 0);
         row(out, "ignition flight-path angle", p->ignition_flight_path_angle_deg, "deg", 2);

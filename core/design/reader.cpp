@@ -814,8 +814,9 @@ private:
     /// no more than its throttle.
     void check_terminal_sequence() {
         if (drogue_ && design_.drogue && !design_.parachute) {
-            drogue_->report_here("a drogue needs a main parachute to hand over to: add a "
-                                 "parachute section, or remove the drogue");
+            drogue_->report_here(
+                "a drogue needs a main parachute to hand over to: add a "
+                "parachute section, or remove the drogue");
         }
         if (!terminal_ || !read_ok("terminal.method"))
             return;
@@ -829,8 +830,9 @@ private:
                     "\"none\")");
             }
             if (drogue_ && design_.drogue) {
-                drogue_->report_here("not with terminal.method \"supersonic-retro\": a powered "
-                                     "descent from the entry flies without a drogue");
+                drogue_->report_here(
+                    "not with terminal.method \"supersonic-retro\": a powered "
+                    "descent from the entry flies without a drogue");
             }
             const TerminalDesign& t = design_.terminal;
             if (t.min_throttle > t.throttle) {

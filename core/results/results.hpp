@@ -162,10 +162,10 @@ struct PoweredDescentResults {
     /// Even the deepest throttle stopped above the site at the trigger: the ignition was solved
     /// later along the flight instead, at that throttle.
     bool ignition_delayed = false;
-    double drag_preservation = 0.0;  ///< the design's share of aeroshell drag kept
-    double peak_deceleration_g = 0.0;  ///< sensed over the burn: thrust and drag
+    double drag_preservation = 0.0;         ///< the design's share of aeroshell drag kept
+    double peak_deceleration_g = 0.0;       ///< sensed over the burn: thrust and drag
     double peak_dynamic_pressure_Pa = 0.0;  ///< over the burn
-    double propellant_fraction = 0.0;  ///< loaded propellant over the entry mass
+    double propellant_fraction = 0.0;       ///< loaded propellant over the entry mass
 };
 
 struct TerminalResults {

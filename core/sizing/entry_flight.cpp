@@ -28,7 +28,6 @@ std::vector<Peak> entry_peaks() {
             {"peak radiative heat flux", FlightQuantity::radiative_heat_flux}};
 }
 
-
 /// Raises `best` to the phase's located maxima and its two ends (a quantity may still be
 /// rising when the phase ends).
 void raise_peak(PeakValue& best, const FlightModel& model, const Phase& phase, std::size_t peak,

@@ -328,8 +328,9 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
 std::vector<DragDevice> devices_under_thrust(const Design& design, const Evaluation& e) {
     std::vector<DragDevice> devices{aeroshell_device(design, e.aeroshell)};
     if (design.decelerator && e.entry.decelerator) {
-        devices.push_back(
-            {frontal_area_m2(design.decelerator->diameter_m), design.decelerator->drag_coefficient, {}});
+        devices.push_back({frontal_area_m2(design.decelerator->diameter_m),
+                           design.decelerator->drag_coefficient,
+                           {}});
     }
     for (DragDevice& device : devices)
         device.drag_coefficient *= design.terminal.drag_preservation;
@@ -347,11 +348,12 @@ DenseTrajectory coast_after_trigger(const Design& design, const FlightModel& mod
     coast.name = "coast to ignition";
     coast.stage = entry_stage(design, e.aeroshell);
     if (design.decelerator && e.entry.decelerator) {
-        coast.stage.drag_devices.push_back(
-            {frontal_area_m2(design.decelerator->diameter_m), design.decelerator->drag_coefficient, {}});
+        coast.stage.drag_devices.push_back({frontal_area_m2(design.decelerator->diameter_m),
+                                            design.decelerator->drag_coefficient,
+                                            {}});
     }
-    coast.ends = {{"ground", FlightQuantity::altitude, design.site.elevation_m,
-                   EventDirection::falling}};
+    coast.ends = {
+        {"ground", FlightQuantity::altitude, design.site.elevation_m, EventDirection::falling}};
     DenseTrajectory record;
     fly_phase(model, coast, e.entry.end_time_s, e.entry.end_state, design.solver.max_time_s,
               settings, {&samples, &record});
@@ -535,13 +537,13 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
             BurnRequest request = *e.burn_request;
             request.site_elevation_m = site_elevation_m;
             request.throttle = design.terminal.throttle;
-            burn = solve_burn_throttle(
-                       model, request, e.full_thrust_N, design.terminal.min_throttle,
-                       flight_integrator_settings(
-                           design.solver.relative_tolerance,
-                           static_cast<std::size_t>(design.solver.max_steps)),
-                       e.entry.end_time_s, e.entry.end_state)
-                       .burn;
+            burn =
+                solve_burn_throttle(
+                    model, request, e.full_thrust_N, design.terminal.min_throttle,
+                    flight_integrator_settings(design.solver.relative_tolerance,
+                                               static_cast<std::size_t>(design.solver.max_steps)),
+                    e.entry.end_time_s, e.entry.end_state)
+                    .burn;
         }
         TimelineMargin m;
         m.available_s = burn.end_time_s - burn.ignition_time_s;
@@ -551,8 +553,9 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
             // As under a canopy: the excess speed counts against it, so the margin keeps
             // falling as the site rises.
             constexpr double seconds_per_m_s = 1.0;
-            m.margin_s = std::min(m.margin_s, 0.0) -
-                         seconds_per_m_s * (speed(burn.end_state) - e.burn_request->end_velocity_m_s);
+            m.margin_s =
+                std::min(m.margin_s, 0.0) -
+                seconds_per_m_s * (speed(burn.end_state) - e.burn_request->end_velocity_m_s);
         }
         return m;
     }

@@ -5,8 +5,8 @@
 namespace ds {
 
 /// Whether the descent stage reaches the ground with the payload: it does for `retro` and
-/// `none` and `supersonic_retro` (the lander touches down whole); `airbag` drops the payload from it and `tethered`
-/// lowers the payload and flies it away.
+/// `none` and `supersonic_retro` (the lander touches down whole); `airbag` drops the payload from
+/// it and `tethered` lowers the payload and flies it away.
 bool descent_stage_lands(TerminalMethod method);
 
 /// Whether the lander separates from the backshell (which keeps the parachute): it does before

@@ -51,12 +51,13 @@ Check timeline_check(double margin_s, double limit_s, double needed_s, bool powe
             margin_s / (limit_s > 0.0 ? limit_s : 1.0)};
     if (margin_s < 0.0) {
         c.status = CheckStatus::fail;
-        c.message =
-            powered ? fmt::format("the terminal descent needs {:.1f} s of ground sensing before "
+        c.message = powered ? fmt::format(
+                                  "the terminal descent needs {:.1f} s of ground sensing before "
                                   "touchdown but the powered descent leaves {:.1f} s less than "
                                   "that: ignite earlier or throttle deeper",
                                   needed_s, -margin_s)
-                    : fmt::format("the sequence after parachute deploy needs {:.1f} s but the "
+                            : fmt::format(
+                                  "the sequence after parachute deploy needs {:.1f} s but the "
                                   "descent leaves {:.1f} s less than that: deploy higher, "
                                   "jettison sooner or land lower",
                                   needed_s, -margin_s);
@@ -65,9 +66,9 @@ Check timeline_check(double margin_s, double limit_s, double needed_s, bool powe
         c.message =
             fmt::format("timeline margin {:.1f} s is below the {:.4g} s wanted", margin_s, limit_s);
     } else {
-        c.message = fmt::format("timeline margin {:.1f} s after the {:.1f} s the {} needs",
-                                margin_s, needed_s,
-                                powered ? "terminal descent's ground sensing" : "sequence");
+        c.message =
+            fmt::format("timeline margin {:.1f} s after the {:.1f} s the {} needs", margin_s,
+                        needed_s, powered ? "terminal descent's ground sensing" : "sequence");
     }
     return c;
 }
@@ -254,8 +255,7 @@ void parachute_checks(const Design& design, const Results& results, const Limits
 
 /// A powered descent lit during the entry: its ignition against the envelope, its thrust
 /// against the weight, the load the burn puts on the vehicle and the propellant it costs.
-void powered_descent_checks(const Results& results, const Limits& lim,
-                            std::vector<Check>& checks) {
+void powered_descent_checks(const Results& results, const Limits& lim, std::vector<Check>& checks) {
     if (!results.terminal.powered_descent)
         return;
     const PoweredDescentResults& p = *results.terminal.powered_descent;
@@ -264,9 +264,9 @@ void powered_descent_checks(const Results& results, const Limits& lim,
         "retro-propulsion ignition envelope (wind-tunnel tests into a supersonic flow span about "
         "Mach 2 to 4.6, from memory; 15 kPa is our default; common practice: set the vehicle's "
         "own)";
-    checks.push_back(check_at_most(
-        {"ignition_mach", "Mach number at ignition", "", Severity::physics, envelope},
-        p.ignition_mach, lim.ignition_mach_max, band));
+    checks.push_back(
+        check_at_most({"ignition_mach", "Mach number at ignition", "", Severity::physics, envelope},
+                      p.ignition_mach, lim.ignition_mach_max, band));
     checks.push_back(check_at_most({"ignition_dynamic_pressure", "dynamic pressure at ignition",
                                     "Pa", Severity::physics, envelope},
                                    p.ignition_dynamic_pressure_Pa,

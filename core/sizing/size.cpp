@@ -676,11 +676,11 @@ Check entry_end_check(const Evaluation& e, const Design& design) {
     const std::string id = powered ? "ignition_trigger" : "parachute_trigger";
     const std::string what = powered ? "ignition trigger" : "parachute trigger";
     const std::optional<Trigger> last = entry_end_trigger(design);
-    const std::string trigger = powered ? describe_trigger(design.terminal.trigger,
-                                                           design.terminal.trigger_value)
-                                : design.parachute ? describe_trigger(design.parachute->trigger,
-                                                                      design.parachute->trigger_value)
-                                                   : std::string();
+    const std::string trigger =
+        powered ? describe_trigger(design.terminal.trigger, design.terminal.trigger_value)
+        : design.parachute
+            ? describe_trigger(design.parachute->trigger, design.parachute->trigger_value)
+            : std::string();
     const double v_end = speed(f.end_state);
     const double h_end = f.end_state[StateIndex::altitude];
     if (!last && f.end == EntryEnd::ground) {
@@ -744,13 +744,11 @@ void descent_checks(const Evaluation& e, const Design& design, std::vector<Check
                                   "cannot bring the vehicle to {:.2g} m/s in time: it reaches the "
                                   "ground at {:.1f} m/s; more thrust, more drag kept under thrust, "
                                   "or an ignition with more height for its speed is needed",
-                                  design.terminal.touchdown_velocity_m_s,
-                                  speed(e.burn->end_state))
+                                  design.terminal.touchdown_velocity_m_s, speed(e.burn->end_state))
                     : fmt::format("even separating at parachute deploy, the burn cannot bring the "
                                   "lander to {:.2g} m/s in time: it reaches the ground at {:.1f} "
                                   "m/s; more thrust or an earlier, higher deploy is needed",
-                                  design.terminal.touchdown_velocity_m_s,
-                                  speed(e.burn->end_state)),
+                                  design.terminal.touchdown_velocity_m_s, speed(e.burn->end_state)),
             "terminal descent"));
     }
     if (design.terminal.propellant_loaded_kg && e.burned_kg > 0.0) {

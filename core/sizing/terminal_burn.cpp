@@ -22,7 +22,8 @@ void raise_burn_peaks(const FlightModel& model, const Phase& phase, const Flight
                       const PhaseOutcome& flown, BurnSolution& b) {
     const auto raise = [&](const FlightState& y) {
         const FlightConditions c = flight_conditions(model, phase.stage, y);
-        b.peak_sensed_deceleration_g = std::max(b.peak_sensed_deceleration_g, c.sensed_deceleration_g);
+        b.peak_sensed_deceleration_g =
+            std::max(b.peak_sensed_deceleration_g, c.sensed_deceleration_g);
         b.peak_dynamic_pressure_Pa = std::max(b.peak_dynamic_pressure_Pa, c.dynamic_pressure_Pa);
     };
     raise(y0);
@@ -90,7 +91,8 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
                              -90.0 + gravity_turn_end_deg, EventDirection::falling});
         turn.peaks = {{"peak sensed deceleration", FlightQuantity::sensed_deceleration},
                       {"peak dynamic pressure", FlightQuantity::dynamic_pressure}};
-        burned = fly_phase(model, turn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
+        burned =
+            fly_phase(model, turn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
         raise_burn_peaks(model, turn, y, burned, b);
         const bool turned = burned.reason == StopReason::terminal_event && burned.ended_by == 2u;
         if (turned) {
@@ -103,7 +105,8 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
             raise_burn_peaks(model, burn, y, burned, b);
         }
     } else {
-        burned = fly_phase(model, burn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
+        burned =
+            fly_phase(model, burn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
     }
     // Reaching the ground at the end velocity or slower is reaching it too: the two events
     // can fall within the event tolerance of each other when the solution is exact.
@@ -314,9 +317,7 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             // The miss grows with the throttle: on x = -throttle it falls, as the method wants.
             // A throttle to 1e-9 moves where the burn ends by well under a millimetre.
             constexpr double throttle_tolerance = 1e-9;
-            const auto falling = [&](double x) {
-                return burn_miss(fly_at(-x, nullptr), request);
-            };
+            const auto falling = [&](double x) { return burn_miss(fly_at(-x, nullptr), request); };
             throttle = -illinois_last_nonnegative(falling, -max_throttle, miss_max, -min_throttle,
                                                   miss_min, throttle_tolerance);
         }

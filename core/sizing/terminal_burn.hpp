@@ -70,7 +70,8 @@ struct BurnAttempt {
 };
 BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& request,
                      const IntegratorSettings<flight_state_size>& settings, double t_s,
-                     FlightState separation_state, std::vector<TrajectorySample>* history = nullptr);
+                     FlightState separation_state,
+                     std::vector<TrajectorySample>* history = nullptr);
 
 /// How far above its target a burn ends (negative: below it, or at the ground too fast).
 /// Continuous across the two cases: at the ground, the excess speed counts as metres per

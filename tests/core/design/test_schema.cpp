@@ -314,8 +314,7 @@ TEST_CASE("the schema's choices come from the one name table of each enumeration
     CHECK(names("atmosphere.model") ==
           std::vector<std::string_view>{"exponential", "table", "standard"});
     CHECK(names("terminal.method") ==
-          std::vector<std::string_view>{"retro", "airbag", "tethered", "none",
-                                        "supersonic-retro"});
+          std::vector<std::string_view>{"retro", "airbag", "tethered", "none", "supersonic-retro"});
     std::vector<std::string_view> canopies;
     for (const ds::CanopyType& type : ds::canopy_types())
         canopies.push_back(type.name);

@@ -74,9 +74,8 @@ ClosedFormBurn vertical_burn(double m0, double v0, double v1, double thrust, dou
     const auto speed_at = [&](double t) { return v0 + g * t - c * std::log(m0 / (m0 - mdot * t)); };
     std::uintmax_t iterations = 200;
     const auto close = [](double a, double b) { return b - a < 1e-13; };
-    const double t = boost::math::tools::toms748_solve(
-                         [&](double s) { return speed_at(s) - v1; }, 0.0, 0.99 * m0 / mdot, close,
-                         iterations)
+    const double t = boost::math::tools::toms748_solve([&](double s) { return speed_at(s) - v1; },
+                                                       0.0, 0.99 * m0 / mdot, close, iterations)
                          .first;
     const double m1 = m0 - mdot * t;
     // The integral of ln(m0 / m) over the burn is t - (m1 / mdot) ln(m0 / m1).
@@ -95,8 +94,7 @@ TEST_CASE("a vertical powered descent in vacuum: throttle, burn time, propellant
     const double h0 = 3000.0;
     const double full = 3.0 * m0 * g;
     const double isp = 330.0;
-    const ds::FlightState ignition =
-        ds::make_flight_state(h0, 0.0, 0.0, v0, -M_PI / 2.0, 0.0, m0);
+    const ds::FlightState ignition = ds::make_flight_state(h0, 0.0, 0.0, v0, -M_PI / 2.0, 0.0, m0);
     const ds::ThrottledBurn solved = ds::solve_burn_throttle(
         v.model(), powered_request(m0, full, isp), full, 0.2, tight(), 100.0, ignition);
     REQUIRE(solved.burn.stops_in_time);
@@ -107,8 +105,8 @@ TEST_CASE("a vertical powered descent in vacuum: throttle, burn time, propellant
     const auto close = [](double a, double b) { return b - a < 1e-12; };
     const double throttle =
         boost::math::tools::toms748_solve(
-            [&](double x) { return vertical_burn(m0, v0, 2.0, x * full, isp).height_m - h0; },
-            0.3, 1.0, close, iterations)
+            [&](double x) { return vertical_burn(m0, v0, 2.0, x * full, isp).height_m - h0; }, 0.3,
+            1.0, close, iterations)
             .first;
     const ClosedFormBurn reference = vertical_burn(m0, v0, 2.0, throttle * full, isp);
     CHECK(solved.burn.throttle == doctest::Approx(throttle).epsilon(1e-6));
@@ -132,10 +130,9 @@ TEST_CASE("a powered descent whose deepest throttle stops too high asks for a la
     CHECK(solved.too_strong);
     CHECK(solved.burn.throttle == 0.5);
     // And one that cannot stop at all flies the most throttle and says so.
-    const ds::ThrottledBurn short_of =
-        ds::solve_burn_throttle(v.model(), powered_request(m0, full, 330.0), full, 0.5, tight(),
-                                0.0, ds::make_flight_state(300.0, 0.0, 0.0, 150.0, -M_PI / 2.0,
-                                                           0.0, m0));
+    const ds::ThrottledBurn short_of = ds::solve_burn_throttle(
+        v.model(), powered_request(m0, full, 330.0), full, 0.5, tight(), 0.0,
+        ds::make_flight_state(300.0, 0.0, 0.0, 150.0, -M_PI / 2.0, 0.0, m0));
     CHECK_FALSE(short_of.burn.stops_in_time);
     CHECK(short_of.burn.throttle == 1.0);
 }
@@ -153,9 +150,8 @@ struct GravityTurn {
     ds::ExponentialAtmosphere air{{0.020, 11100.0, 210.0}, 188.9, 1.29};
     double mass_kg = 20000.0;
     double full_thrust_N = 3.0 * 20000.0 * 3.71;
-    ds::FlightState ignition = ds::make_flight_state(9000.0, 0.0, 0.0, 600.0,
-                                                     ds::degrees_to_radians(-20.0), M_PI / 2.0,
-                                                     20000.0);
+    ds::FlightState ignition = ds::make_flight_state(
+        9000.0, 0.0, 0.0, 600.0, ds::degrees_to_radians(-20.0), M_PI / 2.0, 20000.0);
     ds::BurnRequest request(double drag_kept) const {
         ds::BurnRequest r = powered_request(mass_kg, full_thrust_N, 360.0);
         r.site_elevation_m = -2000.0;
@@ -245,8 +241,8 @@ double mechanical_energy(const ds::Body& body, const ds::FlightState& y) {
 TEST_CASE("a gravity turn into the flow with drag agrees with Boost.Odeint to 1e-5") {
     const GravityTurn s;
     const ds::BurnRequest r = s.request(0.5);
-    const ds::ThrottledBurn solved = ds::solve_burn_throttle(
-        s.model(), r, s.full_thrust_N, 0.2, tight(), 0.0, s.ignition);
+    const ds::ThrottledBurn solved =
+        ds::solve_burn_throttle(s.model(), r, s.full_thrust_N, 0.2, tight(), 0.0, s.ignition);
     REQUIRE(solved.burn.stops_in_time);
     REQUIRE_FALSE(solved.too_strong);
     CHECK(solved.burn.throttle > 0.2);
@@ -273,13 +269,13 @@ TEST_CASE("a gravity turn into the flow with drag agrees with Boost.Odeint to 1e
 TEST_CASE("with no drag kept, the mechanical energy lost over the burn is the thrust's work") {
     const GravityTurn s;
     const ds::BurnRequest r = s.request(0.0);
-    const ds::ThrottledBurn solved = ds::solve_burn_throttle(
-        s.model(), r, s.full_thrust_N, 0.2, tight(), 0.0, s.ignition);
+    const ds::ThrottledBurn solved =
+        ds::solve_burn_throttle(s.model(), r, s.full_thrust_N, 0.2, tight(), 0.0, s.ignition);
     REQUIRE(solved.burn.stops_in_time);
     const OdeintBurn reference = odeint_burn(s, r, solved.burn.throttle);
     const double work_per_kg = reference.end.back();
-    const double lost = mechanical_energy(s.body, s.ignition) -
-                        mechanical_energy(s.body, solved.burn.end_state);
+    const double lost =
+        mechanical_energy(s.body, s.ignition) - mechanical_energy(s.body, solved.burn.end_state);
     CHECK(lost == doctest::Approx(work_per_kg).epsilon(1e-6));
 }
 
@@ -299,9 +295,9 @@ TEST_CASE("the heavy cargo lander sizes from entry to touchdown with a closed bu
         CAPTURE(c.message);
         CHECK(c.status != ds::CheckStatus::fail);
     }
-    for (const char* id : {"ignition_trigger", "ignition_mach", "ignition_dynamic_pressure",
-                           "thrust_to_weight", "burn_deceleration", "propellant_fraction",
-                           "timeline_margin", "touchdown_velocity"}) {
+    for (const char* id :
+         {"ignition_trigger", "ignition_mach", "ignition_dynamic_pressure", "thrust_to_weight",
+          "burn_deceleration", "propellant_fraction", "timeline_margin", "touchdown_velocity"}) {
         CAPTURE(id);
         CHECK(ds::test::find_check(r, id) != nullptr);
     }
