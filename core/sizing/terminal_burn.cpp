@@ -308,12 +308,17 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
     ThrottledBurn out;
     const double miss_max = burn_miss(fly_at(max_throttle, nullptr), request);
     double throttle = max_throttle;
-    if (miss_max >= 0.0 && min_throttle < max_throttle) {
-        const double miss_min = burn_miss(fly_at(min_throttle, nullptr), request);
-        if (miss_min >= 0.0) {
+    if (miss_max >= 0.0) {
+        // With no range to throttle over (min_throttle at the throttle), the ignition is what is
+        // solved: the burn at the trigger stops too high unless it is already on target.
+        const double miss_min = min_throttle < max_throttle
+                                    ? burn_miss(fly_at(min_throttle, nullptr), request)
+                                    : miss_max;
+        constexpr double on_target_m = 0.01;
+        if (miss_min >= (min_throttle < max_throttle ? 0.0 : on_target_m)) {
             out.too_strong = true;
-            throttle = min_throttle;
-        } else {
+            throttle = std::min(min_throttle, max_throttle);
+        } else if (min_throttle < max_throttle) {
             // The miss grows with the throttle: on x = -throttle it falls, as the method wants.
             // A throttle to 1e-9 moves where the burn ends by well under a millimetre.
             constexpr double throttle_tolerance = 1e-9;

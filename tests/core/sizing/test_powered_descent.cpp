@@ -347,3 +347,18 @@ TEST_CASE("without a parachute, landing on the canopy is a ballistic impact judg
     CHECK(*r.terminal.touchdown_velocity_m_s > 30.0);  // far above any leg's qualification
     ds::test::require_check(r, "touchdown_velocity", ds::CheckStatus::fail);
 }
+
+TEST_CASE("with no throttle range the ignition point is what is solved") {
+    ds::Design design = ds::test::sample("heavy-cargo-lander");
+    design.terminal.min_throttle = 1.0;  // full thrust only: the burn starts where it must
+    const ds::Results r = ds::size_design(design);
+    REQUIRE(r.terminal.powered_descent);
+    CHECK(r.terminal.powered_descent->ignition_delayed);
+    CHECK(r.terminal.powered_descent->throttle == 1.0);
+    REQUIRE(r.terminal.touchdown_velocity_m_s);
+    CHECK(std::abs(*r.terminal.touchdown_velocity_m_s - 2.0) < 0.05);
+    // Lit later than the trigger's Mach 2.8, and burning less than the throttled descent.
+    CHECK(r.terminal.powered_descent->ignition_mach < 2.8);
+    const ds::Results throttled = ds::size_design(ds::test::sample("heavy-cargo-lander"));
+    CHECK(*r.terminal.burned_propellant_kg < *throttled.terminal.burned_propellant_kg);
+}
