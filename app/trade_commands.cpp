@@ -12,6 +12,7 @@
 #include <vector>
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include "design/reader.hpp"
 #include "json_values.hpp"
@@ -388,6 +389,12 @@ struct Options {
     std::vector<std::string> inputs;
     double ellipse_probability = default_ellipse_probability;
     std::string speeds;
+    std::string minimise;
+    std::string maximise;
+    std::size_t budget = 800;
+    std::size_t starts = 4;
+    double tolerance = 1e-4;
+    std::string write;
 };
 
 /// Completes a request once the design is read, or refuses it with an exit code.
@@ -517,6 +524,159 @@ int corridorCommand(const Options& o) {
     });
 }
 
+/// "KEY=LOW:HIGH".
+std::optional<OptimisedKey> parseBounds(const std::string& text, std::string* error) {
+    const auto equals = text.find('=');
+    const auto colon = text.find(':', equals == std::string::npos ? 0 : equals);
+    OptimisedKey k;
+    if (equals != std::string::npos && colon != std::string::npos) {
+        k.key = text.substr(0, equals);
+        std::string low_error;
+        std::string high_error;
+        const auto low = parse_value_list(text.substr(equals + 1, colon - equals - 1), &low_error);
+        const auto high = parse_value_list(text.substr(colon + 1), &high_error);
+        if (low && high && low->size() == 1 && high->size() == 1 && low->front() < high->front()) {
+            k.low = low->front();
+            k.high = high->front();
+            return k;
+        }
+    }
+    *error = fmt::format("--vary {}: expected KEY=LOW:HIGH with LOW below HIGH", text);
+    return std::nullopt;
+}
+
+/// The unit of an objective's figure ("kg"), for the text.
+std::string figureUnit(const std::string& figure) {
+    const auto index = key_figure_index(figure);
+    return index ? std::string(key_figure_table[*index].unit) : std::string();
+}
+
+Json optimisationJson(const Optimisation& o) {
+    Json keys = Json::array();
+    for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
+        const OptimisedKey& k = o.settings.keys[i];
+        keys.push_back(
+            {{"key", k.key},
+             {"low", k.low},
+             {"high", k.high},
+             {"design", o.start_inputs[i]},
+             {"optimum", o.feasible ? json::number(o.best_inputs[i]) : Json(nullptr)},
+             {"sensitivity", o.feasible ? json::number(o.sensitivities[i]) : Json(nullptr)}});
+    }
+    const auto checks = [](const std::vector<BindingCheck>& list) {
+        Json out = Json::array();
+        for (const BindingCheck& c : list)
+            out.push_back({{"id", c.id}, {"margin", c.margin}, {"message", c.message}});
+        return out;
+    };
+    return {{"objective",
+             {{"figure", o.settings.objective.figure},
+              {"sense", o.settings.objective.maximise ? "maximise" : "minimise"}}},
+            {"keys", keys},
+            {"feasible", o.feasible},
+            {"design_objective", json::number(o.start_objective)},
+            {"design_passes", o.start_feasible},
+            {"optimum_objective", json::number(o.best_objective)},
+            {"binding", checks(o.binding)},
+            {"keys_at_bounds", o.keys_at_bounds},
+            {"violated", checks(o.violated)},
+            {"sizings", o.sizings},
+            {"starts", o.settings.starts},
+            {"seed", o.settings.seed},
+            {"cancelled", o.cancelled},
+            {"optimum_design", o.feasible ? o.optimum_document : Json(nullptr)}};
+}
+
+void printOptimisation(const StudyOutcome& outcome) {
+    const Optimisation& o = *outcome.optimisation;
+    const std::string& figure = o.settings.objective.figure;
+    const std::string unit = figureUnit(figure);
+    fmt::print("{}: {} sizings in {} starts, {:.2f} s.\n\n", outcome.description(), o.sizings,
+               o.settings.starts, outcome.seconds);
+    fmt::print("{:<48} {:>12} {:>12} {:>12} {:>12}\n", "key", "low", "high", "design", "optimum");
+    for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
+        const OptimisedKey& k = o.settings.keys[i];
+        fmt::print("{:<48} {:>12.6g} {:>12.6g} {:>12.6g} {:>12}\n", k.key, k.low, k.high,
+                   o.start_inputs[i], o.feasible ? fmt::format("{:.6g}", o.best_inputs[i]) : "-");
+    }
+    fmt::print("\n{}: the design {} {} ({}), ", figure, valueText(o.start_objective, 2), unit,
+               o.start_feasible ? "passes every check" : "fails a check");
+    if (!o.feasible) {
+        fmt::print("no design passing every check was found.\n");
+        fmt::print("Still failing at the least failing design found:\n");
+        for (const BindingCheck& c : o.violated)
+            fmt::print("  {:<32} margin {:>8.2f} %  {}\n", c.id, 100.0 * c.margin, c.message);
+        return;
+    }
+    const double change = o.start_objective && *o.start_objective != 0.0
+                              ? 100.0 * (*o.best_objective / *o.start_objective - 1.0)
+                              : 0.0;
+    fmt::print("the optimum {} {} (passes every check), {:+.2f} %.\n",
+               valueText(o.best_objective, 2), unit, change);
+    fmt::print("\nWhat binds at the optimum (checks within {:g} % of their limits):\n",
+               100.0 * binding_margin);
+    if (o.binding.empty())
+        fmt::print("  no check\n");
+    for (const BindingCheck& c : o.binding)
+        fmt::print("  {:<32} margin {:>8.2f} %  {}\n", c.id, 100.0 * c.margin, c.message);
+    for (const std::string& k : o.keys_at_bounds)
+        fmt::print("  {}\n", k);
+    fmt::print("\nNormalised sensitivity of {} at the optimum, d ln {} / d ln key:\n", figure,
+               figure);
+    for (std::size_t i = 0; i < o.settings.keys.size(); ++i)
+        fmt::print("  {:<48} {:>+10.4f}\n", o.settings.keys[i].key,
+                   o.sensitivities[i].value_or(std::nan("")));
+}
+
+int optimiseCommand(const Options& o) {
+    StudyRequest request;
+    request.kind = StudyKind::optimisation;
+    for (const std::string& text : o.vary) {
+        std::string error;
+        const auto bounds = parseBounds(text, &error);
+        if (!bounds) {
+            fmt::print(stderr, "{}\n", error);
+            return exit_usage;
+        }
+        request.bounds.push_back(*bounds);
+    }
+    if (!o.minimise.empty() && !o.maximise.empty()) {
+        fmt::print(stderr, "--minimise and --maximise: give one\n");
+        return exit_usage;
+    }
+    request.objective.maximise = !o.maximise.empty();
+    request.objective.figure =
+        !o.maximise.empty() ? o.maximise : (o.minimise.empty() ? "entry_mass" : o.minimise);
+    if (!is_objective_figure(request.objective.figure)) {
+        std::vector<std::string> names;
+        for (const KeyFigureDefinition& f : key_figure_table)
+            names.emplace_back(f.id);
+        fmt::print(stderr, "unknown figure \"{}\"; the figures are {}\n", request.objective.figure,
+                   fmt::join(names, ", "));
+        return exit_usage;
+    }
+    request.budget = o.budget;
+    request.starts = o.starts;
+    request.tolerance = o.tolerance;
+    request.seed = o.seed;
+    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
+        const Optimisation& result = *outcome.optimisation;
+        printStudy(
+            outcome, formatOf(o.json, o.csv), [&] { return optimisationJson(result); },
+            [&] { printOptimisation(outcome); });
+        if (!o.write.empty() && result.feasible) {
+            std::ofstream out(o.write);
+            out << result.optimum_document.dump(2) << "\n";
+            if (!out) {
+                fmt::print(stderr, "cannot write {}\n", o.write);
+                return;
+            }
+            if (!o.json && !o.csv)
+                fmt::print("\nThe optimum design is written to {}.\n", o.write);
+        }
+    });
+}
+
 }  // namespace
 
 std::function<int()> addTradeCommands(CLI::App& app) {
@@ -593,7 +753,36 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     corridor->add_flag("--json", o->json, "The corridor as JSON");
     corridor->add_flag("--csv", o->csv, "A row per speed as CSV");
 
+    CLI::App* optimiseApp = app.add_subcommand(
+        "optimise",
+        "The design that minimises (or maximises) a figure over a few keys with every check "
+        "passing, and what binds there");
+    optimiseApp->add_option("design", o->design, "Design document")
+        ->required()
+        ->check(CLI::ExistingFile);
+    optimiseApp->add_option("--vary", o->vary, "KEY=LOW:HIGH, once per key varied")->required();
+    optimiseApp->add_option("--minimise", o->minimise,
+                            "Key figure to minimise (default: entry_mass)");
+    optimiseApp->add_option("--maximise", o->maximise,
+                            "Key figure to maximise (landed_mass, unallocated_mass, ...)");
+    optimiseApp->add_option("--budget", o->budget, "Most sizings, over every start")
+        ->default_val(800)
+        ->check(CLI::Range(10, 1000000));
+    optimiseApp->add_option("--starts", o->starts, "Starts: the design's values, then random")
+        ->default_val(4)
+        ->check(CLI::Range(1, 64));
+    optimiseApp->add_option("--tolerance", o->tolerance, "Relative tolerance on keys and figure")
+        ->default_val(1e-4)
+        ->check(CLI::Range(1e-10, 0.1));
+    optimiseApp->add_option("--seed", o->seed, "Seed of the random starts")->default_val(1);
+    optimiseApp->add_option("--threads", o->threads, "Threads (default: one per core)");
+    optimiseApp->add_option("--write", o->write, "Write the optimum as a design file");
+    optimiseApp->add_flag("--json", o->json, "The optimisation as JSON");
+    optimiseApp->add_flag("--csv", o->csv, "Every sizing of the search as CSV");
+
     return [=]() -> int {
+        if (*optimiseApp)
+            return optimiseCommand(*o);
         if (*sweep)
             return sweepCommand(*o);
         if (*disperse)

@@ -4,7 +4,7 @@
 set -eu
 
 packages="cmake ninja-build g++ pkg-config
-libeigen3-dev libfmt-dev nlohmann-json3-dev libboost-dev libcli11-dev doctest-dev
+libeigen3-dev libfmt-dev nlohmann-json3-dev libboost-dev libcli11-dev doctest-dev libnlopt-dev
 qt6-base-dev libqt6opengl6-dev qt6-charts-dev qt6-qpa-plugins fonts-dejavu-core"
 
 missing=""

@@ -24,10 +24,12 @@ struct KeyFigureDefinition {
 /// The key figures, in the order they are shown: the one list of them. A figure added here is
 /// in the window's table, the sheet, the trade rows, the dispersion statistics and the trade
 /// tab's figure list at once.
-inline constexpr std::array<KeyFigureDefinition, 19> key_figure_table{{
+inline constexpr std::array<KeyFigureDefinition, 20> key_figure_table{{
     {"entry_mass", "entry mass", "kg", 1,
      [](const Results& r) -> std::optional<double> { return r.mass.entry_kg; }},
     {"landed_mass", "landed mass", "kg", 1, [](const Results& r) { return r.mass.landed_kg; }},
+    {"unallocated_mass", "unallocated mass (fixed entry mass)", "kg", 1,
+     [](const Results& r) { return r.mass.unallocated_kg; }},
     {"aeroshell_diameter", "aeroshell diameter", "m", 2,
      [](const Results& r) -> std::optional<double> { return r.entry.diameter_m; }},
     {"ballistic_coefficient", "ballistic coefficient", "kg/m^2", 1,

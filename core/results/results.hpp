@@ -241,6 +241,9 @@ struct MassResults {
     MassMode mode = MassMode::analysis;
     double entry_kg = 0.0;
     std::optional<double> landed_kg;
+    /// Analysis mode: the fixed entry mass less everything itemised or estimated (negative when
+    /// the budget does not fit in it).
+    std::optional<double> unallocated_kg;
     std::vector<MassItem> items;
     std::optional<MassClosure> closure;  ///< sizing mode only
 };

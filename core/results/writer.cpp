@@ -231,6 +231,7 @@ Json mass_to_json(const MassResults& mass) {
     out["mode"] = to_string(mass.mode);
     out["entry_kg"] = number(mass.entry_kg);
     out["landed_kg"] = number(mass.landed_kg);
+    out["unallocated_kg"] = number(mass.unallocated_kg);
     out["items"] = array_of(mass.items, item_to_json);
     // The closure of a sized budget; null for a fixed entry mass.
     out["closure"] = object_or_null(mass.closure, closure_to_json);

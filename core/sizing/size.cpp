@@ -955,6 +955,7 @@ Results size_design(const Design& design, SizingOptions options) {
     }
     results.mass.entry_kg = e.entry_kg;
     results.mass.items = e.budget.items();
+    results.mass.unallocated_kg = e.unallocated_kg;
     // Nothing lands from a descent that stopped in the air (the "descent stopped" event).
     const bool powered_landing = e.burn && e.burn->stops_in_time &&
                                  design.terminal.method == TerminalMethod::supersonic_retro;

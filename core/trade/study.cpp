@@ -68,6 +68,22 @@ void run_corridor_study(const StudyInput& in, StudyOutcome& out) {
     out.error = error;
 }
 
+void run_optimisation_study(const StudyInput& in, StudyOutcome& out) {
+    OptimiseSettings settings;
+    settings.keys = in.request.bounds;
+    settings.objective = in.request.objective;
+    settings.max_sizings = in.request.budget;
+    settings.tolerance = in.request.tolerance;
+    settings.starts = in.request.starts;
+    settings.seed = in.request.seed;
+    try {
+        out.optimisation = optimise(DesignVariants(in.document, in.base_directory), settings,
+                                    in.threads, &in.progress);
+    } catch (const std::invalid_argument& e) {
+        out.error = e.what();
+    }
+}
+
 std::string describe_sweep(const StudyRequest& request) {
     std::string axes;
     for (const SweepAxis& a : request.axes) {
@@ -92,6 +108,21 @@ std::string describe_corridor(const StudyRequest& request) {
     const auto [low, high] = std::minmax_element(request.speeds.begin(), request.speeds.end());
     return fmt::format("Entry corridor over {} speeds from {:g} to {:g}", request.speeds.size(),
                        *low, *high);
+}
+
+std::string describe_optimisation(const StudyRequest& request) {
+    std::string keys;
+    for (const OptimisedKey& k : request.bounds) {
+        if (!keys.empty())
+            keys += ", ";
+        keys += fmt::format("{} in [{:g}, {:g}]", k.key, k.low, k.high);
+    }
+    return fmt::format("{} {} over {}", request.objective.maximise ? "Maximise" : "Minimise",
+                       request.objective.figure, keys);
+}
+
+std::string optimisation_rows(const StudyOutcome& outcome) {
+    return outcome.optimisation ? optimisation_csv(*outcome.optimisation) : std::string();
 }
 
 std::string corridor_rows(const StudyOutcome& outcome) {
@@ -123,6 +154,7 @@ constexpr StudyKindDefinition study_kinds[] = {
     {StudyKind::dispersions, run_dispersion_study, describe_dispersions, campaign_rows},
     {StudyKind::sensitivities, run_sensitivity_study, describe_sensitivities, sensitivity_rows},
     {StudyKind::corridor, run_corridor_study, describe_corridor, corridor_rows},
+    {StudyKind::optimisation, run_optimisation_study, describe_optimisation, optimisation_rows},
 };
 
 const StudyKindDefinition& definition(StudyKind kind) {

@@ -13,15 +13,16 @@
 #include "progress.hpp"
 #include "trade/corridor.hpp"
 #include "trade/dispersion.hpp"
+#include "trade/optimise.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
 
 namespace ds {
 
-/// The trade studies. A new kind (an optimiser) is one more entry here, its
-/// settings in StudyRequest, its results in StudyOutcome and one row of the kinds' table in
-/// study.cpp (how it runs, how it is described, its CSV).
-enum class StudyKind { sweep, dispersions, sensitivities, corridor };
+/// The trade studies. A new kind is one more entry here, its settings in StudyRequest, its
+/// results in StudyOutcome and one row of the kinds' table in study.cpp (how it runs, how it
+/// is described, its CSV).
+enum class StudyKind { sweep, dispersions, sensitivities, corridor, optimisation };
 
 /// A trade study as the window or the command line asks for it: a sweep of one or two keys,
 /// the design's dispersions, the sensitivities of the key figures to numeric inputs, or the
@@ -39,6 +40,13 @@ struct StudyRequest {
     /// Corridor: values of the speed key (entry speed, or arrival excess speed); empty for the
     /// design's own.
     std::vector<double> speeds;
+    /// Optimisation: the keys varied with their bounds, the figure, the budget of sizings, the
+    /// tolerance and the starts (its seed is `seed`).
+    std::vector<OptimisedKey> bounds;
+    OptimiseObjective objective;
+    std::size_t budget = 800;
+    double tolerance = 1e-4;
+    std::size_t starts = 4;
 };
 
 /// A finished study: what was asked, of which design, and what it gave.
@@ -52,6 +60,7 @@ struct StudyOutcome {
     DispersionSummary summary;
     std::optional<SensitivityTable> sensitivities;
     std::optional<EntryCorridor> corridor;
+    std::optional<Optimisation> optimisation;
     std::string error;  ///< why the study could not run; empty when it ran
     double seconds = 0.0;
 

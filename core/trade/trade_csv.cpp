@@ -196,4 +196,24 @@ std::string corridor_csv(const EntryCorridor& corridor) {
     return out;
 }
 
+std::string optimisation_csv(const Optimisation& optimisation) {
+    Row head;
+    head << std::string("sizing") << std::string("start");
+    for (const OptimisedKey& k : optimisation.settings.keys)
+        head << k.key;
+    head << optimisation.settings.objective.figure << std::string("feasibility_margin")
+         << std::string("passes");
+    std::string out = head.line();
+    for (std::size_t i = 0; i < optimisation.history.size(); ++i) {
+        const OptimiseStep& step = optimisation.history[i];
+        Row row;
+        row << static_cast<double>(i) << static_cast<double>(step.start);
+        for (const double x : step.inputs)
+            row << x;
+        row << step.objective << step.margin << std::string(step.feasible ? "yes" : "no");
+        out += row.line();
+    }
+    return out;
+}
+
 }  // namespace ds

@@ -5,6 +5,7 @@
 
 #include "trade/corridor.hpp"
 #include "trade/dispersion.hpp"
+#include "trade/optimise.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
 
@@ -33,5 +34,9 @@ std::string sensitivity_csv(const SensitivityTable& table);
 /// whether it closed), the width, and with dispersions the success probability at the shallow
 /// bound, the centre and the steep bound.
 std::string corridor_csv(const EntryCorridor& corridor);
+
+/// One row per sizing of an optimisation, in each start's order: the start, the value of each
+/// varied key, the figure, the feasibility margin and whether it passed.
+std::string optimisation_csv(const Optimisation& optimisation);
 
 }  // namespace ds

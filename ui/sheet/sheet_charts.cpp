@@ -43,6 +43,9 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
                 add(deployScatterChart(*trade));
                 add(landingEllipseChart(*trade));
                 break;
+            case StudyKind::optimisation:
+                add(convergenceChart(*trade));
+                break;
             case StudyKind::sensitivities:
                 add(sensitivityChart(*trade, context.tradeFigure));
                 break;

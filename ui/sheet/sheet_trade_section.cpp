@@ -178,6 +178,61 @@ QString corridorTable(const StudyOutcome& trade) {
     return body + table.html();
 }
 
+/// The optimisation: each key at the design and at the optimum, the figure at both, what binds.
+QString optimisationTable(const StudyOutcome& trade) {
+    const Optimisation& o = *trade.optimisation;
+    const QString figure = QString::fromStdString(o.settings.objective.figure);
+    const auto value = [](const std::optional<double>& v) {
+        return v ? formatValue(*v) : QStringLiteral("—");
+    };
+    QString body;
+    if (!o.feasible) {
+        QStringList failing;
+        for (const BindingCheck& c : o.violated)
+            failing << QString::fromStdString(c.id);
+        body += paragraph(QStringLiteral("No design passing every check was found in %1 sizings; "
+                                         "still failing at the least failing one: %2.")
+                              .arg(o.sizings)
+                              .arg(failing.join(QStringLiteral(", "))));
+    } else {
+        body += paragraph(
+            QStringLiteral("%1: %2 at the design (%3), %4 at the optimum (passes "
+                           "every check), in %5 sizings from %6 starts.")
+                .arg(figure, value(o.start_objective),
+                     o.start_feasible ? QStringLiteral("passes") : QStringLiteral("fails a check"),
+                     value(o.best_objective))
+                .arg(o.sizings)
+                .arg(o.settings.starts));
+    }
+    HtmlTable table({QStringLiteral("key"), QStringLiteral("low"), QStringLiteral("high"),
+                     QStringLiteral("design"), QStringLiteral("optimum"),
+                     QStringLiteral("sensitivity")});
+    for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
+        const OptimisedKey& k = o.settings.keys[i];
+        table.addRow(
+            {{QString::fromStdString(k.key), {}},
+             {formatValue(k.low), numberCell},
+             {formatValue(k.high), numberCell},
+             {formatValue(o.start_inputs[i]), numberCell},
+             {o.feasible ? formatValue(o.best_inputs[i]) : QStringLiteral("—"), numberCell},
+             {o.feasible ? value(o.sensitivities[i]) : QStringLiteral("—"), numberCell}});
+    }
+    body += table.html();
+    if (o.feasible) {
+        QStringList binds;
+        for (const BindingCheck& c : o.binding)
+            binds << QStringLiteral("%1 (margin %2 %)")
+                         .arg(QString::fromStdString(c.id))
+                         .arg(100.0 * c.margin, 0, 'f', 2);
+        for (const std::string& k : o.keys_at_bounds)
+            binds << QString::fromStdString(k);
+        body += paragraph(QStringLiteral("Binding at the optimum: %1.")
+                              .arg(binds.isEmpty() ? QStringLiteral("nothing within 2 %")
+                                                   : binds.join(QStringLiteral("; "))));
+    }
+    return body;
+}
+
 }  // namespace
 
 QString tradeSection(const SheetContext& context, const std::vector<SheetChart>& charts,
@@ -204,6 +259,9 @@ QString tradeSection(const SheetContext& context, const std::vector<SheetChart>&
             break;
         case StudyKind::corridor:
             body += corridorTable(trade);
+            break;
+        case StudyKind::optimisation:
+            body += optimisationTable(trade);
             break;
     }
     return section(QStringLiteral("Trade study"), body);

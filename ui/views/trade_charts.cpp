@@ -509,6 +509,64 @@ QChart* corridorChart(const StudyOutcome& outcome) {
     return chart;
 }
 
+QChart* convergenceChart(const StudyOutcome& outcome) {
+    const QString title = QStringLiteral("Convergence of the optimisation");
+    if (!outcome.optimisation || outcome.optimisation->history.empty())
+        return emptyChart(title, QStringLiteral("no sizings"));
+    const Optimisation& o = *outcome.optimisation;
+    const std::string& id = o.settings.objective.figure;
+    const auto info = figureInfo(id);
+    const QString label = info ? info->label : QString::fromStdString(id);
+
+    QChart* chart = newChart(title);
+    QValueAxis* xAxis = addValueAxis(chart, QStringLiteral("sizing"), Qt::AlignBottom);
+    QValueAxis* figureAxis =
+        addValueAxis(chart, info ? info->axisTitle() : label, Qt::AlignLeft, primaryInk);
+    // Each sizing as a point, passing or failing; the best passing figure so far as a line.
+    auto* pass = caseSeries(QStringLiteral("all checks pass"), passInk);
+    auto* fail = caseSeries(QStringLiteral("a check fails"), failInk);
+    QList<QPointF> best;
+    std::optional<double> bestSoFar;
+    Span ys;
+    for (std::size_t i = 0; i < o.history.size(); ++i) {
+        const OptimiseStep& step = o.history[i];
+        if (!step.objective)
+            continue;
+        const double x = static_cast<double>(i);
+        (step.feasible ? pass : fail)->append(x, *step.objective);
+        ys.include(*step.objective);
+        if (step.feasible) {
+            const bool better =
+                !bestSoFar || (o.settings.objective.maximise ? *step.objective > *bestSoFar
+                                                             : *step.objective < *bestSoFar);
+            if (better)
+                bestSoFar = step.objective;
+        }
+        if (bestSoFar)
+            best.append({x, *bestSoFar});
+    }
+    if (o.start_objective)
+        ys.include(*o.start_objective);
+    setNiceRange(xAxis, 0.0, static_cast<double>(o.history.size()));
+    setNiceRange(figureAxis, ys.low, ys.high);
+    for (QScatterSeries* series : {pass, fail}) {
+        series->setMarkerSize(5.0);
+        attach(chart, series, xAxis, figureAxis);
+        if (series->count() == 0)
+            hideFromLegend(chart, series);
+    }
+    attach(chart, lineSeries(QStringLiteral("best passing so far"), resultPen(primaryInk), best),
+           xAxis, figureAxis);
+    if (o.start_objective) {
+        attach(chart,
+               lineSeries(QStringLiteral("the design (%1)").arg(*o.start_objective, 0, 'g', 6),
+                          baselinePen(Qt::DashDotLine),
+                          {{xAxis->min(), *o.start_objective}, {xAxis->max(), *o.start_objective}}),
+               xAxis, figureAxis);
+    }
+    return chart;
+}
+
 QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure) {
     const auto info = figureInfo(figure);
     const QString title = info ? QStringLiteral("What drives the %1").arg(info->label)

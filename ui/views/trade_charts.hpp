@@ -41,5 +41,8 @@ QList<QPointF> ellipseOutline(double semiMajorKm, double semiMinorKm, double azi
 QChart* corridorChart(const StudyOutcome& outcome);
 /// Sensitivities: the inputs that drive the figure most, largest first.
 QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure);
+/// An optimisation's sizings against their order: each one's figure, passing or failing, and
+/// the best passing figure so far; the design's own figure as a line.
+QChart* convergenceChart(const StudyOutcome& outcome);
 
 }  // namespace ds

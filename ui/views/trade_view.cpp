@@ -23,6 +23,7 @@
 #include <QStackedWidget>
 #include <QVBoxLayout>
 
+#include "design/key_path.hpp"
 #include "model/atomic_file.hpp"
 #include "model/design_document.hpp"
 #include "model/trade_runner.hpp"
@@ -37,8 +38,23 @@
 namespace ds {
 namespace {
 
-enum Page { introPage, linePage, mapPage, dispersionPage, sensitivityPage, corridorPage };
-enum KindIndex { oneKeyIndex, twoKeyIndex, dispersionIndex, sensitivityIndex, corridorIndex };
+enum Page {
+    introPage,
+    linePage,
+    mapPage,
+    dispersionPage,
+    sensitivityPage,
+    corridorPage,
+    optimisationPage
+};
+enum KindIndex {
+    oneKeyIndex,
+    twoKeyIndex,
+    dispersionIndex,
+    sensitivityIndex,
+    corridorIndex,
+    optimisationIndex
+};
 
 // Defaults: a line fine enough to show a trend, a grid coarse enough to run in about a second
 // (225 sizings), a campaign big enough for percentiles (our choices).
@@ -123,15 +139,64 @@ QString corridorSummary(const EntryCorridor& c) {
            QStringLiteral("<br>") + lines.join(QStringLiteral("<br>"));
 }
 
+/// What an optimisation found, in words: the figure at the design and at the optimum, each
+/// key's optimum, what binds there; or that no passing design was found, and what still failed.
+QString optimisationSummary(const Optimisation& o) {
+    const auto value = [](const std::optional<double>& v) {
+        return v ? QLocale::c().toString(*v, 'g', 6) : QStringLiteral("—");
+    };
+    const QString figure = text(o.settings.objective.figure);
+    QStringList lines;
+    if (!o.feasible) {
+        QStringList failing;
+        for (const BindingCheck& c : o.violated)
+            failing << text(c.id);
+        lines << QCoreApplication::translate("ds::TradeView",
+                                             "No design passing every check was found in %1 "
+                                             "sizings; still failing at the least failing one: %2.")
+                     .arg(o.sizings)
+                     .arg(failing.join(QStringLiteral(", ")));
+        return lines.join(QStringLiteral("<br>"));
+    }
+    lines << QCoreApplication::translate("ds::TradeView",
+                                         "%1: %2 at the design (%3), %4 at the optimum, which "
+                                         "passes every check.")
+                 .arg(figure, value(o.start_objective),
+                      o.start_feasible
+                          ? QCoreApplication::translate("ds::TradeView", "passes")
+                          : QCoreApplication::translate("ds::TradeView", "fails a check"),
+                      value(o.best_objective));
+    QStringList keys;
+    for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
+        keys << QStringLiteral("%1 = %2 (was %3)")
+                    .arg(text(o.settings.keys[i].key), value(o.best_inputs[i]),
+                         value(o.start_inputs[i]));
+    }
+    lines << keys.join(QStringLiteral("; "));
+    QStringList binds;
+    for (const BindingCheck& c : o.binding) {
+        binds
+            << QStringLiteral("%1 (margin %2 %)").arg(text(c.id)).arg(100.0 * c.margin, 0, 'f', 2);
+    }
+    for (const std::string& k : o.keys_at_bounds)
+        binds << text(k);
+    lines << QCoreApplication::translate("ds::TradeView", "Binding: %1.")
+                 .arg(binds.isEmpty()
+                          ? QCoreApplication::translate("ds::TradeView", "nothing within 2 %")
+                          : binds.join(QStringLiteral(", ")));
+    return lines.join(QStringLiteral("<br>"));
+}
+
 }  // namespace
 
 TradeView::TradeView(DesignDocument* document, QWidget* parent)
     : QWidget(parent), m_document(document), m_runner(new TradeRunner(this)) {
     QHBoxLayout* controls = buildControls();
-    m_axes[0] = addAxisRow(tr("Vary"), 0);
-    m_axes[1] = addAxisRow(tr("and"), 1);
+    m_axes[0] = addAxisRow(tr("Vary"), &m_axes[0]);
+    m_axes[1] = addAxisRow(tr("and"), &m_axes[1]);
     buildDispersionRow();
     buildCorridorRow();
+    buildOptimisationRow();
     m_status = new QLabel(this);
     m_status->setWordWrap(true);
     buildPages();
@@ -142,6 +207,7 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
     layout->addWidget(m_axes[1].row);
     layout->addWidget(m_dispersionRow);
     layout->addWidget(m_corridorRow);
+    layout->addWidget(m_optimisationRow);
     layout->addWidget(m_status);
     layout->addWidget(m_pages, 1);
 
@@ -155,7 +221,8 @@ TradeView::TradeView(DesignDocument* document, QWidget* parent)
 QHBoxLayout* TradeView::buildControls() {
     m_kind = new QComboBox(this);
     m_kind->addItems({tr("Sweep one input"), tr("Sweep two inputs (feasibility map)"),
-                      tr("Dispersions (Monte Carlo)"), tr("Sensitivities"), tr("Entry corridor")});
+                      tr("Dispersions (Monte Carlo)"), tr("Sensitivities"), tr("Entry corridor"),
+                      tr("Optimise (every check passing)")});
     m_figure = new QComboBox(this);
     for (const KeyFigureDefinition& f : key_figure_table)
         m_figure->addItem(text(f.label), text(f.id));
@@ -229,6 +296,45 @@ void TradeView::buildCorridorRow() {
     row->addWidget(m_corridorRuns);
 }
 
+void TradeView::buildOptimisationRow() {
+    m_optimisationRow = new QWidget(this);
+    auto* layout = new QVBoxLayout(m_optimisationRow);
+    layout->setContentsMargins(0, 0, 0, 0);
+    for (int i = 0; i < optimisedRows; ++i) {
+        AxisControls& row = m_optimised[i];
+        row = addAxisRow(i == 0 ? tr("Vary") : tr("and"), &row);
+        row.count->hide();  // the optimiser chooses its own points
+        // The row's "in ... values" labels go with the count.
+        auto* rowLayout = static_cast<QHBoxLayout*>(row.row->layout());
+        rowLayout->itemAt(rowLayout->count() - 1)->widget()->hide();
+        rowLayout->itemAt(rowLayout->count() - 3)->widget()->hide();
+        row.key->setObjectName(QStringLiteral("optimisedKey%1").arg(i));
+        row.key->setToolTip(
+            tr("A numeric key of the design to vary within its bounds (leave "
+               "empty for none)"));
+        layout->addWidget(row.row);
+    }
+    auto* settings = new QHBoxLayout;
+    m_sense = new QComboBox(m_optimisationRow);
+    m_sense->addItems({tr("minimise the figure"), tr("maximise the figure")});
+    m_budget = new QSpinBox(m_optimisationRow);
+    m_budget->setRange(10, 100000);
+    m_budget->setSingleStep(100);
+    m_budget->setValue(800);
+    m_budget->setToolTip(tr("The most sizings over every start"));
+    m_starts = new QSpinBox(m_optimisationRow);
+    m_starts->setRange(1, 64);
+    m_starts->setValue(4);
+    m_starts->setToolTip(tr("The design's own values, then points drawn from the seed"));
+    settings->addWidget(m_sense);
+    settings->addWidget(new QLabel(tr("Sizings at most"), m_optimisationRow));
+    settings->addWidget(m_budget);
+    settings->addWidget(new QLabel(tr("Starts"), m_optimisationRow));
+    settings->addWidget(m_starts);
+    settings->addStretch(1);
+    layout->addLayout(settings);
+}
+
 void TradeView::buildPages() {
     m_pages = new QStackedWidget(this);
     auto* intro = new QLabel(
@@ -274,6 +380,27 @@ void TradeView::buildPages() {
     m_pages->insertWidget(dispersionPage, dispersionResults);
     m_pages->insertWidget(sensitivityPage, m_sensitivity);
     m_pages->insertWidget(corridorPage, corridorResults);
+
+    auto* optimisationResults = new QWidget(this);
+    m_optimisationSummary = new QLabel(optimisationResults);
+    m_optimisationSummary->setWordWrap(true);
+    m_optimisationSummary->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    m_convergence = chartView(optimisationResults);
+    m_convergence->setObjectName(QStringLiteral("convergence"));
+    m_applyOptimum = new QPushButton(tr("Apply the optimum to the design"), optimisationResults);
+    m_applyOptimum->setObjectName(QStringLiteral("applyOptimum"));
+    m_applyOptimum->setToolTip(
+        tr("Sets the varied keys to the optimum's values, as one edit "
+           "that Undo takes back"));
+    connect(m_applyOptimum, &QPushButton::clicked, this, &TradeView::applyOptimum);
+    auto* optimisationLayout = new QVBoxLayout(optimisationResults);
+    optimisationLayout->setContentsMargins(0, 0, 0, 0);
+    auto* top = new QHBoxLayout;
+    top->addWidget(m_optimisationSummary, 1);
+    top->addWidget(m_applyOptimum, 0, Qt::AlignTop);
+    optimisationLayout->addLayout(top);
+    optimisationLayout->addWidget(m_convergence, 1);
+    m_pages->insertWidget(optimisationPage, optimisationResults);
 }
 
 void TradeView::connectControls() {
@@ -306,7 +433,7 @@ void TradeView::connectRunner() {
     });
 }
 
-TradeView::AxisControls TradeView::addAxisRow(const QString& label, int index) {
+TradeView::AxisControls TradeView::addAxisRow(const QString& label, AxisControls* slot) {
     AxisControls axis;
     axis.row = new QWidget(this);
     auto* layout = new QHBoxLayout(axis.row);
@@ -338,7 +465,7 @@ TradeView::AxisControls TradeView::addAxisRow(const QString& label, int index) {
     layout->addWidget(axis.count);
     layout->addWidget(new QLabel(tr("values"), axis.row));
     // Choosing a key suggests a range around its value; typed ranges are kept.
-    connect(axis.key, &QComboBox::activated, this, [this, index] { suggestRange(m_axes[index]); });
+    connect(axis.key, &QComboBox::activated, this, [this, slot] { suggestRange(*slot); });
     return axis;
 }
 
@@ -351,6 +478,14 @@ void TradeView::refreshKeys() {
     if (names == m_keyNames)
         return;  // most edits change values, not keys
     m_keyNames = names;
+    for (AxisControls& row : m_optimised) {
+        const QString current = row.key->currentText();
+        const QSignalBlocker block(row.key);
+        row.key->clear();
+        row.key->addItem(QString());  // no key: the row is not varied
+        row.key->addItems(names);
+        row.key->setCurrentText(current);
+    }
     for (std::size_t i = 0; i < std::size(m_axes); ++i) {
         AxisControls& axis = m_axes[i];
         QString current = axis.key->currentText();
@@ -387,7 +522,11 @@ void TradeView::kindChanged() {
     }
     m_dispersionRow->setVisible(kind == dispersionIndex);
     m_corridorRow->setVisible(kind == corridorIndex);
+    m_optimisationRow->setVisible(kind == optimisationIndex);
     m_figure->setEnabled(kind != twoKeyIndex && kind != corridorIndex);
+    // The optimiser's usual figure is the entry mass.
+    if (kind == optimisationIndex && figure() == defaultFigure)
+        setFigure("entry_mass");
 }
 
 void TradeView::documentChanged() {
@@ -428,6 +567,20 @@ void TradeView::setCorridor(const QString& speeds, int runs) {
     m_kind->setCurrentIndex(corridorIndex);
     m_speeds->setText(speeds);
     m_corridorRuns->setValue(runs);
+}
+
+void TradeView::setOptimisation(const std::vector<OptimisedKey>& keys, const std::string& figure,
+                                bool maximise) {
+    m_kind->setCurrentIndex(optimisationIndex);
+    for (int i = 0; i < optimisedRows; ++i) {
+        AxisControls& row = m_optimised[i];
+        const bool given = static_cast<std::size_t>(i) < keys.size();
+        row.key->setCurrentText(given ? text(keys[i].key) : QString());
+        row.from->setText(given ? QLocale::c().toString(keys[i].low, 'g', 10) : QString());
+        row.to->setText(given ? QLocale::c().toString(keys[i].high, 'g', 10) : QString());
+    }
+    setFigure(figure);
+    m_sense->setCurrentIndex(maximise ? 1 : 0);
 }
 
 void TradeView::setFigure(const std::string& id) {
@@ -495,6 +648,39 @@ bool TradeView::run() {
         request.speeds = *speeds;
         request.runs = static_cast<std::size_t>(m_corridorRuns->value());
         request.seed = static_cast<std::uint64_t>(m_seed->value());
+    } else if (kind == optimisationIndex) {
+        request.kind = StudyKind::optimisation;
+        const DesignVariants variants(m_document->json(), m_document->baseDirectory());
+        for (const AxisControls& row : m_optimised) {
+            const std::string key = row.key->currentText().trimmed().toStdString();
+            if (key.empty())
+                continue;
+            bool lowOk = false;
+            bool highOk = false;
+            const OptimisedKey k{key, QLocale::c().toDouble(row.from->text(), &lowOk),
+                                 QLocale::c().toDouble(row.to->text(), &highOk)};
+            if (!variants.value(key)) {
+                m_status->setText(tr("'%1' is not a number of the design: choose one of the listed "
+                                     "keys.")
+                                      .arg(text(key)));
+                return false;
+            }
+            if (!lowOk || !highOk || !(k.low < k.high)) {
+                m_status->setText(
+                    tr("Give the bounds of %1 as two rising numbers.").arg(text(key)));
+                return false;
+            }
+            request.bounds.push_back(k);
+        }
+        if (request.bounds.empty()) {
+            m_status->setText(tr("Choose at least one key to vary, with its bounds."));
+            return false;
+        }
+        request.objective.figure = figure();
+        request.objective.maximise = m_sense->currentIndex() == 1;
+        request.budget = static_cast<std::size_t>(m_budget->value());
+        request.starts = static_cast<std::size_t>(m_starts->value());
+        request.seed = static_cast<std::uint64_t>(m_seed->value());
     } else {
         request.kind = StudyKind::sensitivities;
     }
@@ -530,6 +716,8 @@ void TradeView::studyFinished() {
         size = tr("%1 sizings").arg(outcome.campaign->cases.size());
     if (outcome.sensitivities)
         size = tr("%1 inputs").arg(outcome.sensitivities->inputs.size());
+    if (outcome.optimisation)
+        size = tr("%1 sizings").arg(outcome.optimisation->sizings);
     if (outcome.corridor) {
         std::size_t sizings = 0;
         for (const CorridorSpeed& row : outcome.corridor->speeds)
@@ -603,7 +791,24 @@ void TradeView::showOutcome() {
             replaceChart(m_corridor, corridorChart(outcome));
             m_pages->setCurrentIndex(corridorPage);
             break;
+        case StudyKind::optimisation:
+            m_optimisationSummary->setText(optimisationSummary(*outcome.optimisation));
+            m_applyOptimum->setEnabled(outcome.optimisation->feasible);
+            replaceChart(m_convergence, convergenceChart(outcome));
+            m_pages->setCurrentIndex(optimisationPage);
+            break;
     }
+}
+
+void TradeView::applyOptimum() {
+    const auto& outcome = m_runner->outcome();
+    if (!outcome || !outcome->optimisation || !outcome->optimisation->feasible)
+        return;
+    const Optimisation& o = *outcome->optimisation;
+    std::vector<std::pair<std::string, DesignDocument::Json>> values;
+    for (std::size_t i = 0; i < o.settings.keys.size(); ++i)
+        values.emplace_back(key_to_pointer(o.settings.keys[i].key), o.best_inputs[i]);
+    m_document->setValues(values, tr("Apply the optimum"));
 }
 
 bool TradeView::exportCsv(const QString& path, QString* error) const {

@@ -7,6 +7,7 @@
 #include <QStringList>
 #include <QWidget>
 
+#include "trade/optimise.hpp"
 #include "trade/sweep.hpp"
 
 QT_BEGIN_NAMESPACE
@@ -52,6 +53,9 @@ public:
     /// with `runs` dispersed cases at its bounds and centre.
     void setCorridor(const QString& speeds, int runs);
     void setFigure(const std::string& id);
+    /// An optimisation of up to four keys within their bounds, of a figure's minimum or maximum.
+    void setOptimisation(const std::vector<OptimisedKey>& keys, const std::string& figure,
+                         bool maximise);
     /// The key figure the plots show ("peak_deceleration").
     std::string figure() const;
     /// Starts the study the controls describe; false, with the reason shown, when it cannot.
@@ -74,7 +78,9 @@ private:
         QWidget* row;
     };
     QHBoxLayout* buildControls();
-    AxisControls addAxisRow(const QString& label, int index);
+    AxisControls addAxisRow(const QString& label, AxisControls* slot);
+    void buildOptimisationRow();
+    void applyOptimum();
     void buildDispersionRow();
     void buildCorridorRow();
     void buildPages();
@@ -115,6 +121,17 @@ private:
     QChartView* m_sensitivity;
     QLabel* m_corridorSummary;
     QChartView* m_corridor;
+    /// The optimiser's keys (a row without a key is not varied), its sense and budget; its
+    /// results: a summary, the convergence chart and the button that applies the optimum.
+    static constexpr int optimisedRows = 4;
+    QWidget* m_optimisationRow;
+    AxisControls m_optimised[optimisedRows];
+    QComboBox* m_sense;
+    QSpinBox* m_budget;
+    QSpinBox* m_starts;
+    QLabel* m_optimisationSummary;
+    QChartView* m_convergence;
+    QPushButton* m_applyOptimum;
     QStringList m_keyNames;
     bool m_stale = false;
 };
