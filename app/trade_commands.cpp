@@ -1,25 +1,22 @@
 #include "trade_commands.hpp"
 
 #include <algorithm>
-#include <cmath>
 #include <cstdio>
 #include <fstream>
 #include <functional>
 #include <memory>
 #include <optional>
-#include <sstream>
 #include <string>
 #include <vector>
 
 #include <fmt/format.h>
 
 #include "design/reader.hpp"
-#include "json_values.hpp"
 #include "results/key_figures.hpp"
-#include "results/writer.hpp"
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
 #include "trade/trade_csv.hpp"
+#include "trade/trade_json.hpp"
 #include "trade/value_list.hpp"
 
 namespace ds {
@@ -29,27 +26,6 @@ constexpr int exit_unreadable = 2;
 constexpr int exit_usage = 1;
 
 using Json = nlohmann::ordered_json;
-
-/// "KEY=FROM:TO:N".
-std::optional<SweepAxis> parseAxis(const std::string& text, std::string* error) {
-    const auto equals = text.find('=');
-    SweepAxis axis;
-    if (equals == std::string::npos) {
-        *error = fmt::format("--vary {}: expected KEY=FROM:TO:N", text);
-        return std::nullopt;
-    }
-    axis.key = text.substr(0, equals);
-    std::istringstream rest(text.substr(equals + 1));
-    char colon1 = 0;
-    char colon2 = 0;
-    rest >> axis.from >> colon1 >> axis.to >> colon2 >> axis.count;
-    if (!rest || colon1 != ':' || colon2 != ':' || axis.count < 1 || !std::isfinite(axis.from) ||
-        !std::isfinite(axis.to)) {
-        *error = fmt::format("--vary {}: expected KEY=FROM:TO:N with N at least 1", text);
-        return std::nullopt;
-    }
-    return axis;
-}
 
 std::optional<Design> readDesign(const std::string& path) {
     const DesignReadResult read = read_design_file(path);
@@ -105,39 +81,6 @@ std::string_view statusName(CheckStatus s) {
     return to_string(s);
 }
 
-Json sweepJson(const StudyOutcome& outcome) {
-    const std::vector<SweepAxis>& axes = outcome.request.axes;
-    Json rows = Json::array();
-    for (const SweepCase& c : outcome.sweep) {
-        Json row;
-        Json inputs;
-        for (std::size_t a = 0; a < axes.size(); ++a)
-            inputs[axes[a].key] = c.inputs[a];
-        row["inputs"] = inputs;
-        if (!c.results) {
-            row["error"] = c.error;
-            row["worst_status"] = "fail";
-            row["worst_check"] = "design";
-            row["feasibility_margin"] = nullptr;
-            row["margin_check"] = "design";
-        } else {
-            const Json r = results_to_json(*c.results);
-            for (const char* section : {"entry", "parachute", "terminal", "mass", "capability"}) {
-                row[section] = r[section];
-            }
-            row["mass"].erase("items");
-            const WorstCheck worst = worst_check(*c.results);
-            row["worst_status"] = statusName(worst.status);
-            row["worst_check"] = worst.id;
-            const FeasibilityMargin margin = feasibility_margin(*c.results);
-            row["feasibility_margin"] = margin.margin ? Json(*margin.margin) : Json();
-            row["margin_check"] = margin.id;
-        }
-        rows.push_back(row);
-    }
-    return Json{{"rows", rows}};
-}
-
 /// A readable table of the figures a trade is usually about.
 void printSweepTable(const StudyOutcome& outcome) {
     const std::vector<std::string_view> shown{
@@ -175,11 +118,11 @@ void printSweepTable(const StudyOutcome& outcome) {
 
 /// Prints a study in the format asked for: its JSON, its CSV (the study's own, as the window
 /// exports it) or its text.
-template <class JsonOf, class PrintText>
-void printStudy(const StudyOutcome& outcome, Format format, JsonOf json, PrintText text) {
+template <class PrintText>
+void printStudy(const StudyOutcome& outcome, Format format, PrintText text) {
     switch (format) {
         case Format::json:
-            fmt::print("{}\n", json().dump(2));
+            fmt::print("{}\n", outcome.json().dump(2));
             break;
         case Format::csv:
             fmt::print("{}", outcome.csv());
@@ -222,9 +165,7 @@ void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& 
                    Format format) {
     switch (format) {
         case Format::json:
-            fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
-                                    {"campaign", campaign_to_json(campaign)}}
-                                   .dump(1));
+            fmt::print("{}\n", campaign_document(campaign, summary).dump(1));
             break;
         case Format::csv:
             fmt::print("{}", campaign_csv(campaign));
@@ -241,22 +182,6 @@ void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& 
     }
 }
 
-Json sensitivityJson(const SensitivityTable& table) {
-    Json matrix = Json::array();
-    for (Eigen::Index f = 0; f < table.normalized.rows(); ++f) {
-        Json row = Json::array();
-        for (Eigen::Index i = 0; i < table.normalized.cols(); ++i) {
-            const double s = table.normalized(f, i);
-            row.push_back(json::number(s));
-        }
-        matrix.push_back(row);
-    }
-    return Json{{"relative_step", sensitivity_relative_step},
-                {"inputs", table.inputs},
-                {"figures", table.figures},
-                {"normalized", matrix}};
-}
-
 void printSensitivityRanking(const SensitivityTable& table) {
     fmt::print(
         "Normalised sensitivities d(ln figure)/d(ln input), central differences "
@@ -271,58 +196,6 @@ void printSensitivityRanking(const SensitivityTable& table) {
             fmt::print("  {:>+9.4f}  {}\n", ranked[k].second, ranked[k].first);
         }
     }
-}
-
-Json boundJson(const std::optional<CorridorBound>& bound) {
-    if (!bound)
-        return nullptr;
-    return Json{{"angle_deg", bound->angle_deg},
-                {"relative_angle_deg", bound->relative_angle_deg},
-                {"inertial_angle_deg", bound->inertial_angle_deg},
-                {"closed", bound->closed},
-                {"feasibility_margin", bound->margin},
-                {"failing_angle_deg", bound->closed ? Json(bound->failing_deg) : Json()},
-                {"binding_check", bound->binding_check},
-                {"binding_message", bound->binding_message}};
-}
-
-Json dispersedJson(const std::optional<DispersedAngle>& d) {
-    if (!d)
-        return nullptr;
-    return Json{{"angle_deg", d->angle_deg},
-                {"runs", d->runs},
-                {"successes", d->successes},
-                {"success_probability", d->success_probability},
-                {"success_interval_95", {d->wilson_low, d->wilson_high}}};
-}
-
-Json corridorJson(const EntryCorridor& c) {
-    Json rows = Json::array();
-    for (const CorridorSpeed& row : c.speeds) {
-        const bool found = row.shallow && row.steep;
-        rows.push_back(Json{{"speed", row.speed},
-                            {"relative_speed_m_s", row.relative_speed_m_s},
-                            {"inertial_speed_m_s", row.inertial_speed_m_s},
-                            {"shallow", boundJson(row.shallow)},
-                            {"steep", boundJson(row.steep)},
-                            {"width_deg", found ? Json(row.width_deg()) : Json()},
-                            {"centre_deg", found ? Json(row.centre_deg()) : Json()},
-                            {"dispersed",
-                             {{"shallow", dispersedJson(row.dispersed_shallow)},
-                              {"centre", dispersedJson(row.dispersed_centre)},
-                              {"steep", dispersedJson(row.dispersed_steep)}}},
-                            {"sizings", row.sizings},
-                            {"error", row.error}});
-    }
-    return Json{
-        {"angle_key", c.angle_key},
-        {"speed_key", c.speed_key.empty() ? Json() : Json(c.speed_key)},
-        {"frame", c.frame},
-        {"angle_tolerance_deg", corridor_angle_tolerance_deg},
-        {"nominal_speed", c.nominal_speed},
-        {"nominal_angle_deg", c.nominal_angle_deg},
-        {"dispersion_error", c.dispersion_error.empty() ? Json() : Json(c.dispersion_error)},
-        {"speeds", rows}};
 }
 
 std::string dispersedText(const std::optional<DispersedAngle>& d) {
@@ -418,17 +291,15 @@ int sweepCommand(const Options& o) {
     request.kind = StudyKind::sweep;
     for (const std::string& text : o.vary) {
         std::string error;
-        const auto axis = parseAxis(text, &error);
+        const auto axis = parse_sweep_axis(text, &error);
         if (!axis) {
-            fmt::print(stderr, "{}\n", error);
+            fmt::print(stderr, "--vary {}\n", error);
             return exit_usage;
         }
         request.axes.push_back(*axis);
     }
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(
-            outcome, formatOf(o.json, o.csv), [&] { return sweepJson(outcome); },
-            [&] { printSweepTable(outcome); });
+        printStudy(outcome, formatOf(o.json, o.csv), [&] { printSweepTable(outcome); });
     });
 }
 
@@ -440,11 +311,13 @@ int disperseCommand(const Options& o) {
     request.ellipse_probability = o.ellipse_probability;
     // Checked once the design has been read: an unreadable design is reported first.
     const auto prepare = [&](const StudyDesign& file, StudyRequest& r) -> std::optional<int> {
-        if (std::sscanf(o.shard.c_str(), "%zu/%zu", &r.shard_index, &r.shard_count) != 2 ||
-            r.shard_count == 0 || r.shard_index >= r.shard_count) {
+        const std::optional<Shard> shard = parse_shard(o.shard);
+        if (!shard) {
             fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o.shard);
             return exit_usage;
         }
+        r.shard_index = shard->index;
+        r.shard_count = shard->count;
         if (file.design.dispersions.empty()) {
             fmt::print(stderr, "{}: the design has no \"dispersions\"\n", o.design);
             return exit_usage;
@@ -491,10 +364,8 @@ int sensitivityCommand(const Options& o) {
     request.kind = StudyKind::sensitivities;
     request.inputs = o.inputs;
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(
-            outcome, formatOf(o.json, o.csv),
-            [&] { return sensitivityJson(*outcome.sensitivities); },
-            [&] { printSensitivityRanking(*outcome.sensitivities); });
+        printStudy(outcome, formatOf(o.json, o.csv),
+                   [&] { printSensitivityRanking(*outcome.sensitivities); });
     });
 }
 
@@ -511,9 +382,8 @@ int corridorCommand(const Options& o) {
     request.runs = o.runs;
     request.seed = o.seed;
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(
-            outcome, formatOf(o.json, o.csv), [&] { return corridorJson(*outcome.corridor); },
-            [&] { printCorridorTable(*outcome.corridor); });
+        printStudy(outcome, formatOf(o.json, o.csv),
+                   [&] { printCorridorTable(*outcome.corridor); });
     });
 }
 
