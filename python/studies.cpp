@@ -51,15 +51,20 @@ std::optional<std::string> base_of(const py::object& base_directory) {
     throw py::type_error("base_directory: expected a path");
 }
 
+/// What the command line's parser of an option makes of its text, or ValueError "option: why".
+template <class Parse>
+auto parse_option(py::handle text, std::string_view option, Parse&& parse) {
+    std::string error;
+    auto value = parse(text.cast<std::string>(), &error);
+    if (!value)
+        throw py::value_error(fmt::format("{}: {}", option, error));
+    return std::move(*value);
+}
+
 /// A swept key: "KEY=FROM:TO:N" as the command line takes it, or (key, from, to, n).
 SweepAxis axis_of(py::handle value) {
-    if (py::isinstance<py::str>(value)) {
-        std::string error;
-        const auto axis = parse_sweep_axis(value.cast<std::string>(), &error);
-        if (!axis)
-            throw py::value_error("vary: " + error);
-        return *axis;
-    }
+    if (py::isinstance<py::str>(value))
+        return parse_option(value, "vary", parse_sweep_axis);
     const auto items = value.cast<py::tuple>();
     if (items.size() != 4)
         throw py::value_error("vary: expected \"KEY=FROM:TO:N\" or (key, from, to, n)");
@@ -221,13 +226,8 @@ std::vector<std::string> inputs_of(const py::object& inputs) {
 std::vector<double> speeds_of(const py::object& speeds) {
     if (speeds.is_none())
         return {};
-    if (py::isinstance<py::str>(speeds)) {
-        std::string error;
-        const auto values = parse_value_list(speeds.cast<std::string>(), &error);
-        if (!values)
-            throw py::value_error("speeds: " + error);
-        return *values;
-    }
+    if (py::isinstance<py::str>(speeds))
+        return parse_option(speeds, "speeds", parse_value_list);
     return speeds.cast<std::vector<double>>();
 }
 
