@@ -165,10 +165,15 @@ py::dict case_columns(const DispersionCampaign& campaign) {
 /// campaign's "cases" are columns (case_columns) instead of a list of rows.
 py::object campaign_result(const DispersionCampaign& campaign, const DispersionSummary& summary,
                            bool columns) {
-    Json document = campaign_document(campaign, summary);
+    Json document;
+    {
+        const py::gil_scoped_release release;
+        document = campaign_document(campaign, summary);
+        if (columns)
+            document["campaign"].erase("cases");
+    }
     if (!columns)
         return to_python(document);
-    document["campaign"].erase("cases");
     py::object result = to_python(document);
     result["campaign"]["cases"] = case_columns(campaign);
     return result;
@@ -295,10 +300,17 @@ case numbers, draws, key figures and landing points, NaN where none; "success" a
             std::vector<DispersionCampaign> campaigns;
             for (const py::handle part : parts)
                 campaigns.push_back(campaign_of(part, campaigns.size()));
-            auto [merged, error] = merge_campaigns(campaigns);
-            if (!merged)
-                throw py::value_error(error);
-            return campaign_result(*merged, summarize(*merged, ellipse_probability), columns);
+            std::pair<std::optional<DispersionCampaign>, std::string> merged;
+            DispersionSummary summary;
+            {
+                const py::gil_scoped_release release;
+                merged = merge_campaigns(campaigns);
+                if (merged.first)
+                    summary = summarize(*merged.first, ellipse_probability);
+            }
+            if (!merged.first)
+                throw py::value_error(merged.second);
+            return campaign_result(*merged.first, summary, columns);
         },
         "parts"_a, py::kw_only(), "ellipse_probability"_a = default_ellipse_probability,
         "columns"_a = false,
