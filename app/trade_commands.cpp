@@ -419,7 +419,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->add_option("--ellipse-probability", o->ellipse_probability,
                      "Probability held by the landing ellipse (0 to 1)")
         ->default_val(default_ellipse_probability)
-        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
+        ->check(CLI::Range(lowest_ellipse_probability, highest_ellipse_probability));
 
     CLI::App* merge = app.add_subcommand("merge", "Combine the --json outputs of disperse shards");
     merge->add_option("parts", o->parts, "Shard outputs")->required()->check(CLI::ExistingFile);
@@ -429,7 +429,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->add_option("--ellipse-probability", o->ellipse_probability,
                      "Probability held by the landing ellipse (0 to 1)")
         ->default_val(default_ellipse_probability)
-        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
+        ->check(CLI::Range(lowest_ellipse_probability, highest_ellipse_probability));
 
     CLI::App* sensitivity = app.add_subcommand(
         "sensitivity", "Normalised sensitivity of each key figure to each numeric input");

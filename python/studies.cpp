@@ -27,10 +27,6 @@ using Json = nlohmann::ordered_json;
 
 namespace {
 
-/// The command line's range of --ellipse-probability.
-constexpr double lowest_ellipse_probability = 1e-6;
-constexpr double highest_ellipse_probability = 1.0 - 1e-9;
-
 /// Runs a study of the design with the GIL released, stopped by Ctrl-C; raises DesignError when
 /// it cannot run, as the command line reports it.
 StudyOutcome run(const DesignInput& input, const StudyRequest& request, unsigned threads) {
