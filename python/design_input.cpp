@@ -59,7 +59,7 @@ std::optional<std::filesystem::path> path_of(py::handle value) {
     return std::nullopt;
 }
 
-DesignInput read_design_input(py::handle design, const std::optional<std::string>& base_directory) {
+DesignInput read_design_input(py::handle design, py::handle base_directory) {
     if (const auto file = path_of(design)) {
         const DesignReadResult read = read_design_file(*file);
         if (!read.ok())
@@ -71,8 +71,13 @@ DesignInput read_design_input(py::handle design, const std::optional<std::string
         throw py::type_error("design: expected a dict (the design document) or a path");
     DesignInput input;
     input.document = from_python(design);
-    input.base_directory =
-        base_directory ? std::filesystem::path(*base_directory) : std::filesystem::current_path();
+    if (base_directory.is_none()) {
+        input.base_directory = std::filesystem::current_path();
+    } else if (const auto folder = path_of(base_directory)) {
+        input.base_directory = *folder;
+    } else {
+        throw py::type_error("base_directory: expected a path");
+    }
     const DesignReadResult read = read_design_document(input.document, input.base_directory);
     if (!read.ok())
         raise_design_error(read.errors);

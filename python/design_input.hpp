@@ -32,9 +32,8 @@ struct DesignInput {
 /// The design a Python argument gives: a dict (the design document) or a path (str or
 /// os.PathLike) to a design file, read as the command line reads it. A dict's relative paths
 /// (an atmosphere's csv_file) start from `base_directory`, by default the working folder; a
-/// file's from its own folder. Raises DesignError with every reader message.
-DesignInput read_design_input(pybind11::handle design,
-                              const std::optional<std::string>& base_directory);
+/// file's from its own folder (a path, or None). Raises DesignError with every reader message.
+DesignInput read_design_input(pybind11::handle design, pybind11::handle base_directory);
 
 /// A path given as str or os.PathLike, or nothing for any other object.
 std::optional<std::filesystem::path> path_of(pybind11::handle value);

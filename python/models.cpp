@@ -45,7 +45,7 @@ std::unique_ptr<Atmosphere> atmosphere_of(py::handle design_or_body) {
             return standard_atmosphere(name, body->gas.gas_constant_J_kgK, body->gas.gamma);
         }
     }
-    const DesignInput input = read_design_input(design_or_body, std::nullopt);
+    const DesignInput input = read_design_input(design_or_body, py::none());
     return make_atmosphere(input.design);
 }
 
@@ -64,7 +64,7 @@ CanopyType canopy_or_raise(const std::string& name) {
 void add_models(py::module_& m) {
     m.def(
         "atmosphere",
-        [](py::handle design_or_body, const Numbers& altitudes) {
+        [](py::object design_or_body, const Numbers& altitudes) {
             const std::unique_ptr<Atmosphere> atmosphere = atmosphere_of(design_or_body);
             const std::vector<py::ssize_t> shape(altitudes.shape(),
                                                  altitudes.shape() + altitudes.ndim());

@@ -8,7 +8,6 @@
 // dicts (studies: trade/trade_json.hpp, the results: results/writer.hpp). Long calls release
 // the GIL and stop on Ctrl-C (interruptible.hpp).
 
-#include <optional>
 #include <string>
 
 #include <pybind11/pybind11.h>
@@ -42,7 +41,7 @@ raises DesignError with every reader message.)";
 
     m.def(
         "read_design",
-        [](py::handle design, std::optional<std::string> base_directory) {
+        [](py::object design, py::object base_directory) {
             return ds::python::to_python(
                 ds::python::read_design_input(design, base_directory).document);
         },
@@ -52,7 +51,7 @@ raises DesignError with every reader message.)";
 
     m.def(
         "size",
-        [](py::handle design, bool history, std::optional<std::string> base_directory) {
+        [](py::object design, bool history, py::object base_directory) {
             const ds::python::DesignInput input =
                 ds::python::read_design_input(design, base_directory);
             nlohmann::ordered_json results;

@@ -39,14 +39,6 @@ StudyOutcome run(const DesignInput& input, const StudyRequest& request, unsigned
     return outcome;
 }
 
-std::optional<std::string> base_of(const py::object& base_directory) {
-    if (base_directory.is_none())
-        return std::nullopt;
-    if (const auto path = path_of(base_directory))
-        return path->string();
-    throw py::type_error("base_directory: expected a path");
-}
-
 /// What the command line's parser of an option makes of its text, or ValueError "option: why".
 template <class Parse>
 auto parse_option(py::handle text, std::string_view option, Parse&& parse) {
@@ -237,8 +229,8 @@ std::vector<double> speeds_of(const py::object& speeds) {
 void add_studies(py::module_& m) {
     m.def(
         "sweep",
-        [](py::handle design, py::object vary, unsigned threads, py::object base_directory) {
-            const DesignInput input = read_design_input(design, base_of(base_directory));
+        [](py::object design, py::object vary, unsigned threads, py::object base_directory) {
+            const DesignInput input = read_design_input(design, base_directory);
             StudyRequest request;
             request.kind = StudyKind::sweep;
             if (py::isinstance<py::str>(vary) || py::isinstance<py::tuple>(vary)) {
@@ -262,11 +254,11 @@ threads: 0 for one per core.)");
 
     m.def(
         "disperse",
-        [](py::handle design, std::size_t runs, std::uint64_t seed, py::object shard,
+        [](py::object design, std::size_t runs, std::uint64_t seed, py::object shard,
            unsigned threads, double ellipse_probability, bool columns, py::object base_directory) {
             check_ellipse_probability(ellipse_probability);
             const Shard slice = shard_of(shard);
-            const DesignInput input = read_design_input(design, base_of(base_directory));
+            const DesignInput input = read_design_input(design, base_directory);
             StudyRequest request;
             request.kind = StudyKind::dispersions;
             request.runs = runs;
@@ -317,8 +309,8 @@ parts: disperse() results (without columns), their campaigns, or paths to the co
 
     m.def(
         "sensitivity",
-        [](py::handle design, py::object inputs, unsigned threads, py::object base_directory) {
-            const DesignInput input = read_design_input(design, base_of(base_directory));
+        [](py::object design, py::object inputs, unsigned threads, py::object base_directory) {
+            const DesignInput input = read_design_input(design, base_directory);
             StudyRequest request;
             request.kind = StudyKind::sensitivities;
             request.inputs = inputs_of(inputs);
@@ -333,9 +325,9 @@ inputs: the keys to vary (a list, or "a,b,c"); None for every number of the desi
 
     m.def(
         "corridor",
-        [](py::handle design, py::object speeds, std::size_t runs, std::uint64_t seed,
+        [](py::object design, py::object speeds, std::size_t runs, std::uint64_t seed,
            unsigned threads, py::object base_directory) {
-            const DesignInput input = read_design_input(design, base_of(base_directory));
+            const DesignInput input = read_design_input(design, base_directory);
             StudyRequest request;
             request.kind = StudyKind::corridor;
             request.speeds = speeds_of(speeds);

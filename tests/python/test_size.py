@@ -103,3 +103,24 @@ def test_a_design_that_is_neither_a_dict_nor_a_path_is_a_type_error(ds):
 def test_read_design_gives_back_a_design_it_accepts(ds):
     design = sample_document("earth-return-capsule")
     assert ds.read_design(design) == design
+
+
+def test_a_dicts_relative_paths_start_from_base_directory(ds, tmp_path):
+    # A table atmosphere's csv_file, relative: found from base_directory (a str or a path), as
+    # a file's own folder serves for a design file.
+    design = sample_document("small-ballistic-station")
+    air = ds.atmosphere("mars", [-5000.0, 0.0, 20000.0, 40000.0, 60000.0, 80000.0, 125000.0])
+    rows = zip(air["altitude_m"], air["density_kg_m3"], air["temperature_K"])
+    (tmp_path / "air.csv").write_text(
+        "altitude_m,density_kg_m3,temperature_K\n"
+        + "".join(f"{h!r},{rho!r},{t!r}\n" for h, rho, t in rows))
+    design["atmosphere"] = {"model": "table", "csv_file": "air.csv"}
+    with pytest.raises(ds.DesignError):
+        ds.size(design)
+    results = ds.size(design, base_directory=tmp_path)
+    assert results == ds.size(design, base_directory=str(tmp_path))
+    file = tmp_path / "design.json"
+    file.write_text(json.dumps(design))
+    assert ds.size(file) == results
+    with pytest.raises(TypeError):
+        ds.size(design, base_directory=3)
