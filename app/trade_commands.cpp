@@ -1,13 +1,11 @@
 #include "trade_commands.hpp"
 
 #include <algorithm>
-#include <cmath>
 #include <cstdio>
 #include <fstream>
 #include <functional>
 #include <memory>
 #include <optional>
-#include <sstream>
 #include <string>
 #include <vector>
 
@@ -15,12 +13,11 @@
 #include <fmt/ranges.h>
 
 #include "design/reader.hpp"
-#include "json_values.hpp"
 #include "results/key_figures.hpp"
-#include "results/writer.hpp"
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
 #include "trade/trade_csv.hpp"
+#include "trade/trade_json.hpp"
 #include "trade/value_list.hpp"
 
 namespace ds {
@@ -30,27 +27,6 @@ constexpr int exit_unreadable = 2;
 constexpr int exit_usage = 1;
 
 using Json = nlohmann::ordered_json;
-
-/// "KEY=FROM:TO:N".
-std::optional<SweepAxis> parseAxis(const std::string& text, std::string* error) {
-    const auto equals = text.find('=');
-    SweepAxis axis;
-    if (equals == std::string::npos) {
-        *error = fmt::format("--vary {}: expected KEY=FROM:TO:N", text);
-        return std::nullopt;
-    }
-    axis.key = text.substr(0, equals);
-    std::istringstream rest(text.substr(equals + 1));
-    char colon1 = 0;
-    char colon2 = 0;
-    rest >> axis.from >> colon1 >> axis.to >> colon2 >> axis.count;
-    if (!rest || colon1 != ':' || colon2 != ':' || axis.count < 1 || !std::isfinite(axis.from) ||
-        !std::isfinite(axis.to)) {
-        *error = fmt::format("--vary {}: expected KEY=FROM:TO:N with N at least 1", text);
-        return std::nullopt;
-    }
-    return axis;
-}
 
 std::optional<Design> readDesign(const std::string& path) {
     const DesignReadResult read = read_design_file(path);
@@ -106,39 +82,6 @@ std::string_view statusName(CheckStatus s) {
     return to_string(s);
 }
 
-Json sweepJson(const StudyOutcome& outcome) {
-    const std::vector<SweepAxis>& axes = outcome.request.axes;
-    Json rows = Json::array();
-    for (const SweepCase& c : outcome.sweep) {
-        Json row;
-        Json inputs;
-        for (std::size_t a = 0; a < axes.size(); ++a)
-            inputs[axes[a].key] = c.inputs[a];
-        row["inputs"] = inputs;
-        if (!c.results) {
-            row["error"] = c.error;
-            row["worst_status"] = "fail";
-            row["worst_check"] = "design";
-            row["feasibility_margin"] = nullptr;
-            row["margin_check"] = "design";
-        } else {
-            const Json r = results_to_json(*c.results);
-            for (const char* section : {"entry", "parachute", "terminal", "mass", "capability"}) {
-                row[section] = r[section];
-            }
-            row["mass"].erase("items");
-            const WorstCheck worst = worst_check(*c.results);
-            row["worst_status"] = statusName(worst.status);
-            row["worst_check"] = worst.id;
-            const FeasibilityMargin margin = feasibility_margin(*c.results);
-            row["feasibility_margin"] = margin.margin ? Json(*margin.margin) : Json();
-            row["margin_check"] = margin.id;
-        }
-        rows.push_back(row);
-    }
-    return Json{{"rows", rows}};
-}
-
 /// A readable table of the figures a trade is usually about.
 void printSweepTable(const StudyOutcome& outcome) {
     const std::vector<std::string_view> shown{
@@ -176,11 +119,11 @@ void printSweepTable(const StudyOutcome& outcome) {
 
 /// Prints a study in the format asked for: its JSON, its CSV (the study's own, as the window
 /// exports it) or its text.
-template <class JsonOf, class PrintText>
-void printStudy(const StudyOutcome& outcome, Format format, JsonOf json, PrintText text) {
+template <class PrintText>
+void printStudy(const StudyOutcome& outcome, Format format, PrintText text) {
     switch (format) {
         case Format::json:
-            fmt::print("{}\n", json().dump(2));
+            fmt::print("{}\n", outcome.json().dump(2));
             break;
         case Format::csv:
             fmt::print("{}", outcome.csv());
@@ -223,9 +166,7 @@ void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& 
                    Format format) {
     switch (format) {
         case Format::json:
-            fmt::print("{}\n", Json{{"summary", summary_to_json(summary)},
-                                    {"campaign", campaign_to_json(campaign)}}
-                                   .dump(1));
+            fmt::print("{}\n", campaign_document(campaign, summary).dump(1));
             break;
         case Format::csv:
             fmt::print("{}", campaign_csv(campaign));
@@ -242,22 +183,6 @@ void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& 
     }
 }
 
-Json sensitivityJson(const SensitivityTable& table) {
-    Json matrix = Json::array();
-    for (Eigen::Index f = 0; f < table.normalized.rows(); ++f) {
-        Json row = Json::array();
-        for (Eigen::Index i = 0; i < table.normalized.cols(); ++i) {
-            const double s = table.normalized(f, i);
-            row.push_back(json::number(s));
-        }
-        matrix.push_back(row);
-    }
-    return Json{{"relative_step", sensitivity_relative_step},
-                {"inputs", table.inputs},
-                {"figures", table.figures},
-                {"normalized", matrix}};
-}
-
 void printSensitivityRanking(const SensitivityTable& table) {
     fmt::print(
         "Normalised sensitivities d(ln figure)/d(ln input), central differences "
@@ -272,58 +197,6 @@ void printSensitivityRanking(const SensitivityTable& table) {
             fmt::print("  {:>+9.4f}  {}\n", ranked[k].second, ranked[k].first);
         }
     }
-}
-
-Json boundJson(const std::optional<CorridorBound>& bound) {
-    if (!bound)
-        return nullptr;
-    return Json{{"angle_deg", bound->angle_deg},
-                {"relative_angle_deg", bound->relative_angle_deg},
-                {"inertial_angle_deg", bound->inertial_angle_deg},
-                {"closed", bound->closed},
-                {"feasibility_margin", bound->margin},
-                {"failing_angle_deg", bound->closed ? Json(bound->failing_deg) : Json()},
-                {"binding_check", bound->binding_check},
-                {"binding_message", bound->binding_message}};
-}
-
-Json dispersedJson(const std::optional<DispersedAngle>& d) {
-    if (!d)
-        return nullptr;
-    return Json{{"angle_deg", d->angle_deg},
-                {"runs", d->runs},
-                {"successes", d->successes},
-                {"success_probability", d->success_probability},
-                {"success_interval_95", {d->wilson_low, d->wilson_high}}};
-}
-
-Json corridorJson(const EntryCorridor& c) {
-    Json rows = Json::array();
-    for (const CorridorSpeed& row : c.speeds) {
-        const bool found = row.shallow && row.steep;
-        rows.push_back(Json{{"speed", row.speed},
-                            {"relative_speed_m_s", row.relative_speed_m_s},
-                            {"inertial_speed_m_s", row.inertial_speed_m_s},
-                            {"shallow", boundJson(row.shallow)},
-                            {"steep", boundJson(row.steep)},
-                            {"width_deg", found ? Json(row.width_deg()) : Json()},
-                            {"centre_deg", found ? Json(row.centre_deg()) : Json()},
-                            {"dispersed",
-                             {{"shallow", dispersedJson(row.dispersed_shallow)},
-                              {"centre", dispersedJson(row.dispersed_centre)},
-                              {"steep", dispersedJson(row.dispersed_steep)}}},
-                            {"sizings", row.sizings},
-                            {"error", row.error}});
-    }
-    return Json{
-        {"angle_key", c.angle_key},
-        {"speed_key", c.speed_key.empty() ? Json() : Json(c.speed_key)},
-        {"frame", c.frame},
-        {"angle_tolerance_deg", corridor_angle_tolerance_deg},
-        {"nominal_speed", c.nominal_speed},
-        {"nominal_angle_deg", c.nominal_angle_deg},
-        {"dispersion_error", c.dispersion_error.empty() ? Json() : Json(c.dispersion_error)},
-        {"speeds", rows}};
 }
 
 std::string dispersedText(const std::optional<DispersedAngle>& d) {
@@ -425,17 +298,15 @@ int sweepCommand(const Options& o) {
     request.kind = StudyKind::sweep;
     for (const std::string& text : o.vary) {
         std::string error;
-        const auto axis = parseAxis(text, &error);
+        const auto axis = parse_sweep_axis(text, &error);
         if (!axis) {
-            fmt::print(stderr, "{}\n", error);
+            fmt::print(stderr, "--vary {}\n", error);
             return exit_usage;
         }
         request.axes.push_back(*axis);
     }
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(
-            outcome, formatOf(o.json, o.csv), [&] { return sweepJson(outcome); },
-            [&] { printSweepTable(outcome); });
+        printStudy(outcome, formatOf(o.json, o.csv), [&] { printSweepTable(outcome); });
     });
 }
 
@@ -447,11 +318,13 @@ int disperseCommand(const Options& o) {
     request.ellipse_probability = o.ellipse_probability;
     // Checked once the design has been read: an unreadable design is reported first.
     const auto prepare = [&](const StudyDesign& file, StudyRequest& r) -> std::optional<int> {
-        if (std::sscanf(o.shard.c_str(), "%zu/%zu", &r.shard_index, &r.shard_count) != 2 ||
-            r.shard_count == 0 || r.shard_index >= r.shard_count) {
+        const std::optional<Shard> shard = parse_shard(o.shard);
+        if (!shard) {
             fmt::print(stderr, "--shard {}: expected I/N with 0 <= I < N\n", o.shard);
             return exit_usage;
         }
+        r.shard_index = shard->index;
+        r.shard_count = shard->count;
         if (file.design.dispersions.empty()) {
             fmt::print(stderr, "{}: the design has no \"dispersions\"\n", o.design);
             return exit_usage;
@@ -498,10 +371,8 @@ int sensitivityCommand(const Options& o) {
     request.kind = StudyKind::sensitivities;
     request.inputs = o.inputs;
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(
-            outcome, formatOf(o.json, o.csv),
-            [&] { return sensitivityJson(*outcome.sensitivities); },
-            [&] { printSensitivityRanking(*outcome.sensitivities); });
+        printStudy(outcome, formatOf(o.json, o.csv),
+                   [&] { printSensitivityRanking(*outcome.sensitivities); });
     });
 }
 
@@ -518,9 +389,8 @@ int corridorCommand(const Options& o) {
     request.runs = o.runs;
     request.seed = o.seed;
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(
-            outcome, formatOf(o.json, o.csv), [&] { return corridorJson(*outcome.corridor); },
-            [&] { printCorridorTable(*outcome.corridor); });
+        printStudy(outcome, formatOf(o.json, o.csv),
+                   [&] { printCorridorTable(*outcome.corridor); });
     });
 }
 
@@ -549,42 +419,6 @@ std::optional<OptimisedKey> parseBounds(const std::string& text, std::string* er
 std::string figureUnit(const std::string& figure) {
     const auto index = key_figure_index(figure);
     return index ? std::string(key_figure_table[*index].unit) : std::string();
-}
-
-Json optimisationJson(const Optimisation& o) {
-    Json keys = Json::array();
-    for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
-        const OptimisedKey& k = o.settings.keys[i];
-        keys.push_back(
-            {{"key", k.key},
-             {"low", k.low},
-             {"high", k.high},
-             {"design", o.start_inputs[i]},
-             {"optimum", o.feasible ? json::number(o.best_inputs[i]) : Json(nullptr)},
-             {"sensitivity", o.feasible ? json::number(o.sensitivities[i]) : Json(nullptr)}});
-    }
-    const auto checks = [](const std::vector<BindingCheck>& list) {
-        Json out = Json::array();
-        for (const BindingCheck& c : list)
-            out.push_back({{"id", c.id}, {"margin", c.margin}, {"message", c.message}});
-        return out;
-    };
-    return {{"objective",
-             {{"figure", o.settings.objective.figure},
-              {"sense", o.settings.objective.maximise ? "maximise" : "minimise"}}},
-            {"keys", keys},
-            {"feasible", o.feasible},
-            {"design_objective", json::number(o.start_objective)},
-            {"design_passes", o.start_feasible},
-            {"optimum_objective", json::number(o.best_objective)},
-            {"binding", checks(o.binding)},
-            {"keys_at_bounds", o.keys_at_bounds},
-            {"violated", checks(o.violated)},
-            {"sizings", o.sizings},
-            {"starts", o.settings.starts},
-            {"seed", o.settings.seed},
-            {"cancelled", o.cancelled},
-            {"optimum_design", o.feasible ? o.optimum_document : Json(nullptr)}};
 }
 
 void printOptimisation(const StudyOutcome& outcome) {
@@ -661,9 +495,7 @@ int optimiseCommand(const Options& o) {
     request.seed = o.seed;
     return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
         const Optimisation& result = *outcome.optimisation;
-        printStudy(
-            outcome, formatOf(o.json, o.csv), [&] { return optimisationJson(result); },
-            [&] { printOptimisation(outcome); });
+        printStudy(outcome, formatOf(o.json, o.csv), [&] { printOptimisation(outcome); });
         if (!o.write.empty() && result.feasible) {
             std::ofstream out(o.write);
             out << result.optimum_document.dump(2) << "\n";
@@ -709,7 +541,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->add_option("--ellipse-probability", o->ellipse_probability,
                      "Probability held by the landing ellipse (0 to 1)")
         ->default_val(default_ellipse_probability)
-        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
+        ->check(CLI::Range(lowest_ellipse_probability, highest_ellipse_probability));
 
     CLI::App* merge = app.add_subcommand("merge", "Combine the --json outputs of disperse shards");
     merge->add_option("parts", o->parts, "Shard outputs")->required()->check(CLI::ExistingFile);
@@ -719,7 +551,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->add_option("--ellipse-probability", o->ellipse_probability,
                      "Probability held by the landing ellipse (0 to 1)")
         ->default_val(default_ellipse_probability)
-        ->check(CLI::Range(1e-6, 1.0 - 1e-9));
+        ->check(CLI::Range(lowest_ellipse_probability, highest_ellipse_probability));
 
     CLI::App* sensitivity = app.add_subcommand(
         "sensitivity", "Normalised sensitivity of each key figure to each numeric input");

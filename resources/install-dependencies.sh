@@ -1,11 +1,13 @@
 #!/bin/sh
-# Installs what Descent Sizer needs to build and test, from Debian 12 packages.
+# Installs what Descent Sizer needs to build and test, from Debian 12 packages (the last line:
+# the Python module descent_sizer and its tests).
 # Runs apt-get as root, or through sudo for another user. Installing twice is harmless.
 set -eu
 
 packages="cmake ninja-build g++ pkg-config
 libeigen3-dev libfmt-dev nlohmann-json3-dev libboost-dev libcli11-dev doctest-dev libnlopt-dev
-qt6-base-dev libqt6opengl6-dev qt6-charts-dev qt6-qpa-plugins fonts-dejavu-core"
+qt6-base-dev libqt6opengl6-dev qt6-charts-dev qt6-qpa-plugins fonts-dejavu-core
+python3-dev pybind11-dev python3-numpy python3-pytest"
 
 missing=""
 for p in $packages; do

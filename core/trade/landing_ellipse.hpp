@@ -9,6 +9,10 @@ namespace ds {
 
 /// The default probability of a landing ellipse (common practice for site selection).
 inline constexpr double default_ellipse_probability = 0.99;
+/// The probabilities a landing ellipse may be asked for (the command line's and the Python
+/// module's range): above 0 and below 1, where its quantile is finite.
+inline constexpr double lowest_ellipse_probability = 1e-6;
+inline constexpr double highest_ellipse_probability = 1.0 - 1e-9;
 
 /// The chi-square quantile with two degrees of freedom: the squared Mahalanobis radius k^2
 /// inside which a bivariate normal holds a fraction p of its draws, k^2 = -2 ln(1 - p)

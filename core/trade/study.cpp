@@ -9,6 +9,7 @@
 
 #include "trade/design_variants.hpp"
 #include "trade/trade_csv.hpp"
+#include "trade/trade_json.hpp"
 
 namespace ds {
 namespace {
@@ -141,20 +142,47 @@ std::string sensitivity_rows(const StudyOutcome& outcome) {
     return outcome.sensitivities ? sensitivity_csv(*outcome.sensitivities) : std::string();
 }
 
+nlohmann::ordered_json sweep_document(const StudyOutcome& outcome) {
+    return sweep_to_json(outcome.request.axes, outcome.sweep);
+}
+
+nlohmann::ordered_json dispersion_document(const StudyOutcome& outcome) {
+    return outcome.campaign ? campaign_document(*outcome.campaign, outcome.summary)
+                            : nlohmann::ordered_json();
+}
+
+nlohmann::ordered_json sensitivity_document(const StudyOutcome& outcome) {
+    return outcome.sensitivities ? sensitivity_to_json(*outcome.sensitivities)
+                                 : nlohmann::ordered_json();
+}
+
+nlohmann::ordered_json optimisation_document(const StudyOutcome& outcome) {
+    return outcome.optimisation ? optimisation_to_json(*outcome.optimisation)
+                                : nlohmann::ordered_json();
+}
+
+nlohmann::ordered_json corridor_document(const StudyOutcome& outcome) {
+    return outcome.corridor ? corridor_to_json(*outcome.corridor) : nlohmann::ordered_json();
+}
+
 /// Everything that differs between the kinds of study, one row each.
 struct StudyKindDefinition {
     StudyKind kind;
     void (*run)(const StudyInput&, StudyOutcome&);
     std::string (*describe)(const StudyRequest&);
     std::string (*csv)(const StudyOutcome&);
+    nlohmann::ordered_json (*json)(const StudyOutcome&);
 };
 
 constexpr StudyKindDefinition study_kinds[] = {
-    {StudyKind::sweep, run_sweep_study, describe_sweep, sweep_rows},
-    {StudyKind::dispersions, run_dispersion_study, describe_dispersions, campaign_rows},
-    {StudyKind::sensitivities, run_sensitivity_study, describe_sensitivities, sensitivity_rows},
-    {StudyKind::corridor, run_corridor_study, describe_corridor, corridor_rows},
-    {StudyKind::optimisation, run_optimisation_study, describe_optimisation, optimisation_rows},
+    {StudyKind::sweep, run_sweep_study, describe_sweep, sweep_rows, sweep_document},
+    {StudyKind::dispersions, run_dispersion_study, describe_dispersions, campaign_rows,
+     dispersion_document},
+    {StudyKind::sensitivities, run_sensitivity_study, describe_sensitivities, sensitivity_rows,
+     sensitivity_document},
+    {StudyKind::corridor, run_corridor_study, describe_corridor, corridor_rows, corridor_document},
+    {StudyKind::optimisation, run_optimisation_study, describe_optimisation, optimisation_rows,
+     optimisation_document},
 };
 
 const StudyKindDefinition& definition(StudyKind kind) {
@@ -174,6 +202,10 @@ std::string StudyOutcome::description() const {
 
 std::string StudyOutcome::csv() const {
     return definition(request.kind).csv(*this);
+}
+
+nlohmann::ordered_json StudyOutcome::json() const {
+    return definition(request.kind).json(*this);
 }
 
 StudyOutcome run_study(const StudyRequest& request, const nlohmann::ordered_json& document,

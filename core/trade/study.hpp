@@ -69,6 +69,8 @@ struct StudyOutcome {
     /// The study as CSV (trade/trade_csv.hpp): sweep rows, dispersed cases or the
     /// sensitivity matrix.
     std::string csv() const;
+    /// The study as the JSON document the command line's --json prints (trade/trade_json.hpp).
+    nlohmann::ordered_json json() const;
 };
 
 /// Runs a study of a design: `document` is its JSON (sweeps and sensitivities vary its keys

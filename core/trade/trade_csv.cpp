@@ -82,18 +82,21 @@ std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<Swee
     return out;
 }
 
+std::vector<std::string> campaign_column_names(const DispersionCampaign& campaign) {
+    std::vector<std::string> names{"case"};
+    for (const DispersionDesign& d : campaign.dispersions)
+        names.push_back(d.key);
+    names.insert(names.end(), campaign.figure_ids.begin(), campaign.figure_ids.end());
+    names.insert(names.end(),
+                 {"landing_latitude_deg", "landing_longitude_deg", "landing_downrange_m",
+                  "landing_crossrange_m", "success", "failed_checks"});
+    return names;
+}
+
 std::string campaign_csv(const DispersionCampaign& campaign) {
     Row head;
-    head << std::string("case");
-    for (const DispersionDesign& d : campaign.dispersions)
-        head << d.key;
-    for (const std::string& id : campaign.figure_ids)
-        head << id;
-    for (const char* name : {"landing_latitude_deg", "landing_longitude_deg", "landing_downrange_m",
-                             "landing_crossrange_m"}) {
-        head << std::string(name);
-    }
-    head << std::string("success") << std::string("failed_checks");
+    for (const std::string& name : campaign_column_names(campaign))
+        head << name;
     std::string out = head.line();
     for (const DispersedCase& c : campaign.cases) {
         Row row;

@@ -23,6 +23,11 @@ std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<Swee
 /// figures, whether it succeeded and the checks that failed (separated by ";").
 std::string campaign_csv(const DispersionCampaign& campaign);
 
+/// The names of campaign_csv's columns: "case", each dispersed key, each key figure,
+/// "landing_latitude_deg", "landing_longitude_deg", "landing_downrange_m",
+/// "landing_crossrange_m", "success" and "failed_checks" (the Python module's columns too).
+std::vector<std::string> campaign_column_names(const DispersionCampaign& campaign);
+
 /// One row per key figure: count, mean, standard deviation and the 1st, 50th, 99th percentiles.
 std::string summary_csv(const DispersionSummary& summary);
 

@@ -2,10 +2,10 @@
 
 #include <charconv>
 #include <cmath>
+#include <cstdio>
+#include <sstream>
 
 #include <fmt/format.h>
-
-#include "trade/sweep.hpp"
 
 namespace ds {
 namespace {
@@ -57,6 +57,34 @@ std::optional<std::vector<double>> parse_value_list(std::string_view text, std::
             values.push_back(range.value(i));
     }
     return values;
+}
+
+std::optional<SweepAxis> parse_sweep_axis(const std::string& text, std::string* error) {
+    const auto equals = text.find('=');
+    SweepAxis axis;
+    if (equals == std::string::npos) {
+        *error = fmt::format("{}: expected KEY=FROM:TO:N", text);
+        return std::nullopt;
+    }
+    axis.key = text.substr(0, equals);
+    std::istringstream rest(text.substr(equals + 1));
+    char colon1 = 0;
+    char colon2 = 0;
+    rest >> axis.from >> colon1 >> axis.to >> colon2 >> axis.count;
+    if (!rest || colon1 != ':' || colon2 != ':' || axis.count < 1 || !std::isfinite(axis.from) ||
+        !std::isfinite(axis.to)) {
+        *error = fmt::format("{}: expected KEY=FROM:TO:N with N at least 1", text);
+        return std::nullopt;
+    }
+    return axis;
+}
+
+std::optional<Shard> parse_shard(const std::string& text) {
+    Shard shard;
+    if (std::sscanf(text.c_str(), "%zu/%zu", &shard.index, &shard.count) != 2 || shard.count == 0 ||
+        shard.index >= shard.count)
+        return std::nullopt;
+    return shard;
 }
 
 }  // namespace ds
