@@ -169,7 +169,10 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
 }
 
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const FlightConditions c = flight_conditions(model, stage, y);
+    // A stage with neither drag nor heating (a lander coasting or burning) feels no air: its
+    // conditions, all zero forces, are not computed.
+    const bool feels_air = !stage.drag_devices.empty() || stage.nose_radius_m > 0.0;
+    const FlightConditions c = feels_air ? flight_conditions(model, stage, y) : FlightConditions{};
     const double m = y[StateIndex::mass];
     const Vec3 v = velocity_of(y);
     const LocalFrame frame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]);

@@ -86,8 +86,15 @@ bool descending(const FlightState& y) {
     return y[StateIndex::up_velocity] < 0.0;
 }
 
+/// Altitude and speed are read off the state; the other quantities need its flight conditions.
+bool read_off_state(FlightQuantity q) {
+    return q == FlightQuantity::altitude || q == FlightQuantity::velocity;
+}
+
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
+    if (read_off_state(q))
+        return flight_quantity(q, FlightConditions{}, y);
     return flight_quantity(q, flight_conditions(model, stage, y), y);
 }
 
@@ -171,15 +178,19 @@ IntegrationOutcome<flight_state_size> fly_stretch(
         });
     };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
+        if (read_off_state(q))
+            return flight_quantity(q, FlightConditions{}, y);
         const FlightConditions& c = conditions.get(
             y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
         return flight_quantity(q, c, y);
     };
 
     std::vector<Event<flight_state_size>> events;
+    events.reserve(phase.ends.size() + phase.peaks.size() + 1);
+    // Each event's function holds pointers only, so std::function keeps it without allocating.
     for (const Trigger& trigger : phase.ends) {
-        events.push_back({[&, trigger](double, const FlightState& y) {
-                              return quantity(trigger.quantity, y) - trigger.value;
+        events.push_back({[&quantity, t = &trigger](double, const FlightState& y) {
+                              return quantity(t->quantity, y) - t->value;
                           },
                           trigger.direction, true});
         if (trigger.descending_only) {
@@ -189,12 +200,12 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     // A peak is where the logarithmic rate of its quantity falls through zero. The rate is a
     // central difference along the flow, y +- dt y', so every quantity, whatever its model,
     // is served by the same event.
-    constexpr double rate_step_s = 1e-3;
+    static constexpr double rate_step_s = 1e-3;
     for (const Peak& peak : phase.peaks) {
-        events.push_back({[&, peak](double, const FlightState& y) {
+        events.push_back({[&quantity, &rhs, q = peak.quantity](double, const FlightState& y) {
                               const FlightState dy = rate_step_s * rhs(0.0, y);
-                              const double ahead = quantity(peak.quantity, y + dy);
-                              const double behind = quantity(peak.quantity, y - dy);
+                              const double ahead = quantity(q, y + dy);
+                              const double behind = quantity(q, y - dy);
                               if (!(ahead > 0.0 && behind > 0.0))
                                   return 0.0;
                               return std::log(ahead / behind);

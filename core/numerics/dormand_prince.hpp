@@ -11,6 +11,7 @@
 #include <vector>
 
 #include <Eigen/Core>
+#include <boost/container/small_vector.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
 
 namespace ds {
@@ -84,6 +85,12 @@ struct DenseStep {
 
 namespace detail {
 
+/// The events' values and a step's hits are kept in place up to this many events (a flight
+/// phase has at most eight), so a step allocates nothing; more spill to the heap.
+inline constexpr std::size_t events_in_place = 8;
+template <class T>
+using EventValues = boost::container::small_vector<T, events_in_place>;
+
 /// Dormand and Prince, "A family of embedded Runge-Kutta formulae", J. Comp. Appl. Math. 6
 /// (1980); dense output coefficients of Hairer, Norsett and Wanner, Solving ODEs I (DOPRI5).
 struct DormandPrinceTableau {
@@ -147,7 +154,9 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
     ++out.evaluations;
     double h = std::min({settings.initial_step, settings.max_step, t_end - t0});
 
-    std::vector<double> g_before(events.size());
+    detail::EventValues<double> g_before(events.size());
+    detail::EventValues<double> g_after(events.size());
+    detail::EventValues<EventHit<N>> hits;
     for (std::size_t i = 0; i < events.size(); ++i)
         g_before[i] = events[i].function(t, y);
 
@@ -217,8 +226,7 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         if (dense_record)
             dense_record->push_back(dense);
 
-        std::vector<EventHit<N>> hits;
-        std::vector<double> g_after(events.size());
+        hits.clear();
         for (std::size_t i = 0; i < events.size(); ++i) {
             g_after[i] = events[i].function(t_new, y_new);
             if (!detail::crosses(g_before[i], g_after[i], events[i].direction))
@@ -262,7 +270,7 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         t = t_new;
         y = y_new;
         k1 = k7;  // first-same-as-last
-        g_before = std::move(g_after);
+        std::swap(g_before, g_after);
         on_step(t, y);
 
         const double factor = err > 0.0 ? std::clamp(safety * std::pow(err, -order_exponent),

@@ -39,6 +39,7 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     coast.ends = {ground};
     const PhaseOutcome coasted = fly_phase(model, coast, t_s, b.separation_state, t_s + r.coast_s,
                                            settings, {history, nullptr});
+    b.evaluations = coasted.evaluations;
     b.ignition_time_s = coasted.time_s;
     b.ignition_state = coasted.y;
     if (coasted.reason == StopReason::terminal_event) {  // hit the ground while coasting
@@ -66,6 +67,7 @@ Attempt attempt(const FlightModel& model, const DenseTrajectory& descent, const 
     const PhaseOutcome burned =
         fly_phase(model, burn, coasted.time_s, coasted.y, coasted.time_s + flight_time_limit_s,
                   settings, {history, nullptr});
+    b.evaluations += burned.evaluations;
     // Reaching the ground at the end velocity or slower is reaching it too: the two events
     // can fall within the event tolerance of each other when the solution is exact.
     a.reached_velocity = burned.ended_by == std::size_t{0} || speed(burned.y) <= r.end_velocity_m_s;
@@ -187,8 +189,14 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     const auto latest_crossing = descent.time_descending_through(request.site_elevation_m);
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
     const double tolerance = request.separation_time_tolerance_s;
+    // Every flight of the solve, kept: the solution is one of them, so without a history to
+    // record it is not flown again (a flight is a function of its separation time alone).
+    std::vector<Attempt> flown;
+    std::size_t evaluations = 0;
     const auto flown_miss = [&](double t_s) {
-        return miss(attempt(model, descent, request, settings, t_s, nullptr), request);
+        flown.push_back(attempt(model, descent, request, settings, t_s, nullptr));
+        evaluations += flown.back().burn.evaluations;
+        return miss(flown.back(), request);
     };
     const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
 
@@ -239,9 +247,22 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
             t_solution = walk_back(flown_miss, earliest, b.late, b.late_miss, tolerance);
         }
     }
-    Attempt solved =
-        attempt(model, descent, request, settings, t_solution.value_or(earliest), history);
+    const double t_solved = t_solution.value_or(earliest);
+    const auto kept = std::find_if(flown.begin(), flown.end(), [&](const Attempt& a) {
+        return a.burn.separation_time_s == t_solved;
+    });
+    std::size_t attempts = flown.size();
+    Attempt solved;
+    if (!history && kept != flown.end()) {
+        solved = *kept;
+    } else {
+        solved = attempt(model, descent, request, settings, t_solved, history);
+        evaluations += solved.burn.evaluations;
+        ++attempts;
+    }
     solved.burn.stops_in_time = t_solution.has_value() && solved.reached_velocity;
+    solved.burn.attempts = attempts;
+    solved.burn.evaluations = evaluations;
     return solved.burn;
 }
 

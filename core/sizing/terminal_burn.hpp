@@ -35,6 +35,10 @@ struct BurnSolution {
     /// Ideal delta-v less the speed it took off: the part spent holding against gravity (what
     /// the vehicle's own drag gives back is netted in; the lander flies without drag here).
     double gravity_loss_m_s = 0.0;
+    /// The flights the solve took (coast and burn from a separation time), the solved one's
+    /// included, and the evaluations of the equations they made (the integrator's).
+    std::size_t attempts = 0;
+    std::size_t evaluations = 0;
 };
 
 /// Finds the latest separation time along the descent under the canopy at which a
