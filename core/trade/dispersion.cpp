@@ -61,13 +61,16 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     const DispersionSettings& settings) {
     const DesignVariants variants = DesignVariants::of(freeze_design(design), base_directory);
     std::vector<double> nominal;
+    std::vector<std::string> keys;
     for (const DispersionDesign& d : design.dispersions) {
+        keys.push_back(d.key);
         const auto value = variants.value(d.key);
         if (!value)
             return {std::nullopt,
                     fmt::format("dispersions: {} is not a number of the design", d.key)};
         nominal.push_back(*value);
     }
+    const DesignVariants::Keys drawn = variants.prepare(std::move(keys));
 
     DispersionCampaign campaign;
     campaign.seed = settings.seed;
@@ -90,16 +93,14 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
         DispersedCase& c = campaign.cases[k];
         c.index = indices[k];
         std::mt19937_64 engine(split_mix(settings.seed ^ split_mix(c.index)));
-        std::vector<std::pair<std::string, double>> values;
         for (std::size_t j = 0; j < design.dispersions.size(); ++j) {
             const DispersionDesign& d = design.dispersions[j];
             const double draw = d.distribution == DistributionKind::normal
                                     ? nominal[j] + d.sigma * standard_normal(engine)
                                     : d.min + (d.max - d.min) * unit_uniform(engine);
             c.draws.push_back(draw);
-            values.emplace_back(d.key, draw);
         }
-        const DesignReadResult read = variants.with(values);
+        const DesignReadResult read = variants.with(drawn, c.draws);
         if (!read.ok()) {
             c.error = read.errors.front().text();
             return;

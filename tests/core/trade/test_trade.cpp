@@ -305,6 +305,48 @@ TEST_CASE("design variants: key paths, numeric keys and values") {
     CHECK(changed.design->entry.velocity_m_s == 6000.0);
 }
 
+TEST_CASE("a number set in the design itself gives the strict reader's design or first error") {
+    // The frozen station has a fixed entry mass and given heat-shield and backshell masses, so
+    // the rule between the masses is in play. Each row: the keys and values, the design and
+    // the first error through the document and the reader (the reference) and through the
+    // design (prepared keys).
+    ds::Design frozen = ds::freeze_design(sample("small-ballistic-station"));
+    const ds::DesignVariants variants = ds::DesignVariants::of(frozen);
+    const double heat_shield = *frozen.mass.heat_shield_kg;
+    const std::vector<std::vector<std::pair<std::string, double>>> cases{
+        {{"entry.velocity_m_s", 5700.0}, {"mass.entry_kg", 610.0}},
+        {{"entry.flight_path_angle_deg", -95.0}},                            // out of range
+        {{"atmosphere.density_scale", -1.0}, {"entry.velocity_m_s", -5.0}},  // two: document order
+        {{"mass.entry_kg", heat_shield}},                                    // the masses' rule
+        {{"mass.entry_kg", -1.0}},                                           // refused: no rule
+        {{"mass.heat_shield_kg", 1e6}, {"entry.velocity_m_s", 0.0}},
+        {{"entry.velocity_m_s", std::nan("")}},
+        {{"site.elevation_m", 2e5}},  // a rule between keys: through the document
+        {{"entry.nothing_m", 1.0}},   // not a key: through the document
+    };
+    for (const auto& values : cases) {
+        std::vector<std::string> paths;
+        std::vector<double> numbers;
+        for (const auto& [key, value] : values) {
+            paths.push_back(key);
+            numbers.push_back(value);
+        }
+        const ds::DesignReadResult reference = variants.with_document(values);
+        const ds::DesignReadResult direct = variants.with(variants.prepare(paths), numbers);
+        CAPTURE(paths.front());
+        REQUIRE(direct.ok() == reference.ok());
+        if (reference.ok()) {
+            CHECK(*direct.design == *reference.design);
+        } else {
+            REQUIRE_FALSE(direct.errors.empty());
+            CHECK(direct.errors.front().text() == reference.errors.front().text());
+        }
+    }
+    // The plain keys are set in the design; a key a rule between keys reads is not.
+    CHECK(variants.prepare({"entry.velocity_m_s", "mass.entry_kg"}).rows.size() == 2);
+    CHECK(variants.prepare({"entry.velocity_m_s", "site.elevation_m"}).rows.empty());
+}
+
 TEST_CASE("the reader takes dispersions and names what is wrong in one") {
     std::ifstream in(std::string(DESCENT_SIZER_SAMPLES_DIR) + "/small-ballistic-station.json");
     nlohmann::ordered_json doc = nlohmann::ordered_json::parse(in);
