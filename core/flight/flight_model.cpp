@@ -168,11 +168,20 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     return c;
 }
 
+bool feels_air(const Stage& stage) {
+    return !stage.drag_devices.empty() || stage.nose_radius_m > 0.0;
+}
+
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
     // A stage with neither drag nor heating (a lander coasting or burning) feels no air: its
     // conditions, all zero forces, are not computed.
-    const bool feels_air = !stage.drag_devices.empty() || stage.nose_radius_m > 0.0;
-    const FlightConditions c = feels_air ? flight_conditions(model, stage, y) : FlightConditions{};
+    return flight_derivative(
+        model, stage, y,
+        feels_air(stage) ? flight_conditions(model, stage, y) : FlightConditions{});
+}
+
+FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
+                              const FlightConditions& c) {
     const double m = y[StateIndex::mass];
     const Vec3 v = velocity_of(y);
     const LocalFrame frame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]);
@@ -212,7 +221,10 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
 }
 
 double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const FlightState dy = flight_derivative(model, stage, y);
+    return unsettled_rate(model, y, flight_derivative(model, stage, y));
+}
+
+double unsettled_rate(const FlightModel& model, const FlightState& y, const FlightState& dy) {
     const Vec3 v = velocity_of(y);
     const Vec3 a = velocity_of(dy);
     const Vec3 along = v / v.norm();

@@ -108,21 +108,29 @@ double quasi_steady_rate(const FlightModel& model, const Stage& stage, const Fli
 
 /// Negative once settled: of the sign of the larger of the two rates less settle_rate_g (the
 /// quasi-steady one is computed only when the fast rates are below it).
-double settling(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const double fast = unsettled_rate(model, stage, y);
+/// From the state's derivative by the full equations, dy.
+double settling(const FlightModel& model, const Stage& stage, const FlightState& y,
+                const FlightState& dy) {
+    const double fast = unsettled_rate(model, y, dy);
     if (!(fast < settle_rate_g))
         return fast - settle_rate_g;
     return std::max(fast, quasi_steady_rate(model, stage, y)) - settle_rate_g;
 }
 
-/// The event that says a stretch's equations should change: settled on the full equations,
-/// unsettled on the quasi-steady ones.
+double settling(const FlightModel& model, const Stage& stage, const FlightState& y) {
+    return settling(model, stage, y, flight_derivative(model, stage, y));
+}
+
+/// The event that says a stretch's equations should change: settled on the full equations
+/// (whose derivative `rhs` gives), unsettled on the quasi-steady ones.
+template <class Rhs>
 Event<flight_state_size> change_of_equations(const FlightModel& model, const Stage& stage,
-                                             Equations equations) {
+                                             Equations equations, const Rhs& rhs) {
     if (equations == Equations::full) {
-        return {
-            [&model, &stage](double, const FlightState& y) { return settling(model, stage, y); },
-            EventDirection::falling, true};
+        return {[&model, &stage, &rhs](double, const FlightState& y) {
+                    return settling(model, stage, y, rhs(0.0, y));
+                },
+                EventDirection::falling, true};
     }
     return {[&model, &stage](double, const FlightState& y) {
                 return quasi_steady_rate(model, stage, y) - unsettle_rate_g;
@@ -171,18 +179,24 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     const Stage& stage = phase.stage;
     StateMemo<FlightState, 1> rates;
     StateMemo<FlightConditions, 3> conditions;
+    const auto conditions_at = [&](const FlightState& y) -> const FlightConditions& {
+        return conditions.get(
+            y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
+    };
+    // The full equations take the conditions from the memo the events read too.
+    const bool air = feels_air(stage);
     const auto rhs = [&](double, const FlightState& y) {
         return rates.get(y, [&](const FlightState& at) {
-            return equations == Equations::full ? flight_derivative(model, stage, at)
-                                                : quasi_steady_derivative(model, stage, at);
+            if (equations == Equations::quasi_steady)
+                return quasi_steady_derivative(model, stage, at);
+            return air ? flight_derivative(model, stage, at, conditions_at(at))
+                       : flight_derivative(model, stage, at);
         });
     };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
         if (read_off_state(q))
             return flight_quantity(q, FlightConditions{}, y);
-        const FlightConditions& c = conditions.get(
-            y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
-        return flight_quantity(q, c, y);
+        return flight_quantity(q, conditions_at(y), y);
     };
 
     std::vector<Event<flight_state_size>> events;
@@ -213,7 +227,7 @@ IntegrationOutcome<flight_state_size> fly_stretch(
                           EventDirection::falling, false});
     }
     if (may_change)
-        events.push_back(change_of_equations(model, stage, equations));
+        events.push_back(change_of_equations(model, stage, equations, rhs));
 
     const auto on_step = [&](double t, const FlightState& y) {
         if (recording.history) {
