@@ -123,6 +123,35 @@ TEST_CASE("the same seed gives the same numbers to the last digit whatever the t
     CHECK(other->cases[0].draws != one->cases[0].draws);
 }
 
+TEST_CASE("a campaign that keeps no cases hands them on in order and sums up to the same summary") {
+    const ds::Design d = sample("small-ballistic-station");
+    ds::DispersionSettings settings;
+    settings.runs = 60;
+    settings.seed = 5;
+    settings.threads = 2;
+    settings.shard_index = 1;
+    settings.shard_count = 2;
+    const auto kept = ds::run_dispersions(d, {}, settings).first;
+    REQUIRE(kept);
+    ds::SummaryTally tally(ds::key_figure_table.size());
+    std::vector<std::size_t> handed;
+    settings.keep_cases = false;
+    settings.tally = &tally;
+    settings.on_case = [&](const ds::DispersionCampaign& campaign, const ds::DispersedCase& c) {
+        CHECK(campaign.cases.empty());
+        handed.push_back(c.index);
+    };
+    const auto streamed = ds::run_dispersions(d, {}, settings).first;
+    REQUIRE(streamed);
+    CHECK(streamed->cases.empty());
+    REQUIRE(handed.size() == kept->cases.size());
+    for (std::size_t i = 0; i < handed.size(); ++i)
+        CHECK(handed[i] == kept->cases[i].index);  // 1, 3, 5, ...: the shard's, in order
+    // Number for number: the tally runs the same sums in the same order.
+    CHECK(ds::summary_to_json(tally.summary(*streamed, 0.95)) ==
+          ds::summary_to_json(ds::summarize(*kept, 0.95)));
+}
+
 TEST_CASE("shards merged give the same campaign and summary as one run") {
     const ds::Design d = sample("small-ballistic-station");
     ds::DispersionSettings settings;
