@@ -211,26 +211,34 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
             continue;
         }
 
-        // Accepted: build the continuous extension, then look for events inside the step.
-        const Vector<N> ydiff = y_new - y;
-        const Vector<N> bspl = h * k1 - ydiff;
-        const DenseStep<N> dense{
-            t,
-            h,
-            y,
-            ydiff,
-            bspl,
-            ydiff - h * k7 - bspl,
-            h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 + T::d6 * k6 + T::d7 * k7)};
+        // Accepted: look for events inside the step on its continuous extension, built when
+        // a record keeps it or an event crosses.
+        std::optional<DenseStep<N>> dense_step;
+        const auto extension = [&]() -> const DenseStep<N>& {
+            if (!dense_step) {
+                const Vector<N> ydiff = y_new - y;
+                const Vector<N> bspl = h * k1 - ydiff;
+                dense_step = DenseStep<N>{t,
+                                          h,
+                                          y,
+                                          ydiff,
+                                          bspl,
+                                          ydiff - h * k7 - bspl,
+                                          h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 +
+                                               T::d6 * k6 + T::d7 * k7)};
+            }
+            return *dense_step;
+        };
         const double t_new = last ? t_end : t + h;
         if (dense_record)
-            dense_record->push_back(dense);
+            dense_record->push_back(extension());
 
         hits.clear();
         for (std::size_t i = 0; i < events.size(); ++i) {
             g_after[i] = events[i].function(t_new, y_new);
             if (!detail::crosses(g_before[i], g_after[i], events[i].direction))
                 continue;
+            const DenseStep<N>& dense = extension();
             const auto g = [&](double tau) { return events[i].function(tau, dense(tau)); };
             const auto close_enough = [&](double a, double b) {
                 return std::abs(b - a) <= settings.event_time_tolerance;
