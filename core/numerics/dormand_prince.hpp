@@ -154,11 +154,14 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
     ++out.evaluations;
     double h = std::min({settings.initial_step, settings.max_step, t_end - t0});
 
-    detail::EventValues<double> g_before(events.size());
-    detail::EventValues<double> g_after(events.size());
+    // The events' values at a step's start and end, in two buffers that trade places.
+    detail::EventValues<double> g_start(events.size());
+    detail::EventValues<double> g_end(events.size());
+    detail::EventValues<double>* before_values = &g_start;
+    detail::EventValues<double>* after_values = &g_end;
     detail::EventValues<EventHit<N>> hits;
     for (std::size_t i = 0; i < events.size(); ++i)
-        g_before[i] = events[i].function(t, y);
+        g_start[i] = events[i].function(t, y);
 
     on_step(t, y);
     while (t < t_end) {
@@ -234,6 +237,8 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
             dense_record->push_back(extension());
 
         hits.clear();
+        detail::EventValues<double>& g_before = *before_values;
+        detail::EventValues<double>& g_after = *after_values;
         for (std::size_t i = 0; i < events.size(); ++i) {
             g_after[i] = events[i].function(t_new, y_new);
             if (!detail::crosses(g_before[i], g_after[i], events[i].direction))
@@ -278,7 +283,7 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         t = t_new;
         y = y_new;
         k1 = k7;  // first-same-as-last
-        std::swap(g_before, g_after);
+        std::swap(before_values, after_values);
         on_step(t, y);
 
         const double factor = err > 0.0 ? std::clamp(safety * std::pow(err, -order_exponent),

@@ -12,6 +12,10 @@ Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
     return phase;
 }
 
+/// Room for the descent's record from the start, so it is seldom copied as it grows: a
+/// descent under a canopy takes some tens of steps (our choice).
+constexpr std::size_t expected_descent_steps = 128;
+
 IntegratorSettings<flight_state_size> descent_settings(const Design& design) {
     return flight_integrator_settings(design.solver.relative_tolerance,
                                       static_cast<std::size_t>(design.solver.max_steps));
@@ -27,6 +31,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     const auto settings = descent_settings(design);
     const double t_budget = design.solver.max_time_s;
     Phase under_canopy = under_canopy_phase(plan, plan.floor_altitude_m);
+    out.record.steps().reserve(expected_descent_steps);
     const PhaseRecording recording{plan.record_samples ? &out.samples : nullptr, &out.record};
 
     // With the heat shield: until the jettison delay runs out, or the dynamic pressure falls
