@@ -31,6 +31,14 @@ const ds::FigureStatistics& stats(const ds::DispersionSummary& s, const std::str
     return s.figures[figure_index(id)];
 }
 
+ds::DispersionSettings campaign_settings(std::size_t runs, std::uint64_t seed, unsigned threads) {
+    ds::DispersionSettings settings;
+    settings.runs = runs;
+    settings.seed = seed;
+    settings.threads = threads;
+    return settings;
+}
+
 }  // namespace
 
 TEST_CASE("Wilson 95 % interval of 8 successes in 10 is [0.4902, 0.9433] (hand-computed)") {
@@ -104,10 +112,7 @@ TEST_CASE("the percentiles of a figure linear in a normal draw are those of the 
 
 TEST_CASE("the same seed gives the same numbers to the last digit whatever the thread count") {
     const ds::Design d = sample("small-ballistic-station");
-    ds::DispersionSettings settings;
-    settings.runs = 120;
-    settings.seed = 9;
-    settings.threads = 1;
+    ds::DispersionSettings settings = campaign_settings(120, 9, 1);
     const auto one = ds::run_dispersions(d, {}, settings).first;
     settings.threads = 2;
     const auto two = ds::run_dispersions(d, {}, settings).first;
@@ -125,10 +130,7 @@ TEST_CASE("the same seed gives the same numbers to the last digit whatever the t
 
 TEST_CASE("a campaign that keeps no cases hands them on in order and sums up to the same summary") {
     const ds::Design d = sample("small-ballistic-station");
-    ds::DispersionSettings settings;
-    settings.runs = 60;
-    settings.seed = 5;
-    settings.threads = 2;
+    ds::DispersionSettings settings = campaign_settings(60, 5, 2);
     settings.shard_index = 1;
     settings.shard_count = 2;
     const auto kept = ds::run_dispersions(d, {}, settings).first;
