@@ -10,6 +10,7 @@
 
 #include <algorithm>
 #include <chrono>
+#include <ctime>
 #include <filesystem>
 #include <string>
 #include <thread>
@@ -21,8 +22,10 @@
 #include "design/reader.hpp"
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
+#include "sizing/evaluation.hpp"
 #include "sizing/size.hpp"
 #include "trade/corridor.hpp"
+#include "trade/design_variants.hpp"
 #include "trade/dispersion.hpp"
 
 namespace {
@@ -46,6 +49,141 @@ Timing measure(Work&& work, int repetitions) {
     std::sort(ms.begin(), ms.end());
     const auto at = [&](double q) { return ms[static_cast<std::size_t>(q * (ms.size() - 1))]; };
     return {at(0.5), at(0.1), at(0.9)};
+}
+
+/// CPU seconds of the process so far (every thread's).
+double cpu_seconds() {
+    return static_cast<double>(std::clock()) / CLOCKS_PER_SEC;
+}
+
+/// Nanoseconds of CPU per evaluation of the equations of a stage, over states spread along a
+/// flight (each evaluated many times over).
+double ns_per_evaluation(const ds::FlightModel& model, const ds::Stage& stage,
+                         const std::vector<ds::FlightState>& states) {
+    constexpr int rounds = 200;
+    double sink = 0.0;
+    const double start = cpu_seconds();
+    for (int round = 0; round < rounds; ++round) {
+        for (const ds::FlightState& y : states)
+            sink += ds::flight_derivative(model, stage, y)[ds::StateIndex::up_velocity];
+    }
+    const double seconds = cpu_seconds() - start;
+    if (sink == 12345.678)  // keeps the loop from being optimised away
+        fmt::print(" ");
+    return 1e9 * seconds / (rounds * static_cast<double>(states.size()));
+}
+
+/// States spread evenly in time along a dense record.
+std::vector<ds::FlightState> states_along(const ds::DenseTrajectory& record, double mass_kg = 0.0) {
+    constexpr int count = 200;
+    std::vector<ds::FlightState> states;
+    for (int i = 0; i < count; ++i) {
+        const double t =
+            record.start_time() + (record.end_time() - record.start_time()) * (i + 0.5) / count;
+        states.push_back(record.state_at(t));
+        if (mass_kg > 0.0)
+            states.back()[ds::StateIndex::mass] = mass_kg;
+    }
+    return states;
+}
+
+/// The dispersed flight against its floor: the CPU a case takes on one thread, the equations'
+/// evaluations the integrator makes in each phase (averaged over the first cases), the CPU an
+/// evaluation of each phase's equations takes, and the floor: the evaluations the flight
+/// needs (the entry's, the descent's and one burn attempt's) times their cost.
+void dispersed_flight_floor(const std::filesystem::path& file) {
+    const ds::DesignReadResult read = ds::read_design_file(file);
+    if (!read.ok() || read.design->dispersions.empty())
+        return;
+    const ds::Design& design = *read.design;
+    constexpr std::size_t runs = 4000;
+    ds::DispersionSettings settings;
+    settings.runs = runs;
+    settings.seed = 1;
+    settings.threads = 1;
+    double best_cpu = 1e300;
+    std::optional<ds::DispersionCampaign> campaign;
+    for (int round = 0; round < 2; ++round) {
+        const double start = cpu_seconds();
+        campaign = ds::run_dispersions(design, file.parent_path(), settings).first;
+        best_cpu = std::min(best_cpu, cpu_seconds() - start);
+    }
+    if (!campaign)
+        return;
+    const double us_per_case = 1e6 * best_cpu / runs;
+
+    // The same cases again, flown one by one to count what each phase takes.
+    const ds::Design frozen = ds::freeze_design(design);
+    const ds::DesignVariants variants = ds::DesignVariants::of(frozen, file.parent_path());
+    std::vector<std::string> keys;
+    for (const ds::DispersionDesign& d : design.dispersions)
+        keys.push_back(d.key);
+    const ds::DesignVariants::Keys drawn = variants.prepare(keys);
+    constexpr std::size_t counted = 200;
+    double entry = 0.0, descent = 0.0, attempts = 0.0, burn = 0.0;
+    std::size_t flown = 0;
+    for (std::size_t i = 0; i < counted && i < campaign->cases.size(); ++i) {
+        const ds::DesignReadResult variant = variants.with(drawn, campaign->cases[i].draws);
+        if (!variant.ok())
+            continue;
+        const ds::FlightEnvironment environment = ds::make_environment(*variant.design);
+        const ds::Evaluation e = ds::evaluate(*variant.design, environment.model(),
+                                              *variant.design->mass.entry_kg, false);
+        if (!e.descent || !e.burn)
+            continue;
+        ++flown;
+        entry += static_cast<double>(e.entry.evaluations);
+        descent += static_cast<double>(e.descent->evaluations);
+        attempts += static_cast<double>(e.burn->attempts);
+        burn += static_cast<double>(e.burn->evaluations);
+    }
+    if (flown == 0)
+        return;
+    const double n = static_cast<double>(flown);
+    entry /= n;
+    descent /= n;
+    attempts /= n;
+    burn /= n;
+    const double per_attempt = burn / attempts;
+
+    // The cost of an evaluation of each phase's equations, on the nominal vehicle's states.
+    const ds::FlightEnvironment environment = ds::make_environment(frozen);
+    const ds::FlightModel model = environment.model();
+    const ds::Evaluation nominal = ds::evaluate(frozen, model, *frozen.mass.entry_kg, false);
+    if (!nominal.descent || !nominal.burn_request)
+        return;
+    ds::Phase entry_phase;
+    entry_phase.stage = ds::entry_stage(frozen, nominal.aeroshell);
+    entry_phase.ends = {{"deploy", ds::FlightQuantity::altitude,
+                         nominal.entry.end_state[ds::StateIndex::altitude],
+                         ds::EventDirection::falling}};
+    ds::DenseTrajectory entry_record;
+    (void)ds::fly_phase(model, entry_phase, 0.0, nominal.entry.start, frozen.solver.max_time_s,
+                        ds::flight_integrator_settings(frozen.solver.relative_tolerance, 1000000),
+                        {nullptr, &entry_record});
+    const ds::DescentPlan& plan = nominal.descent->plan;
+    ds::Stage under_canopy;
+    under_canopy.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
+    ds::Stage lander;
+    lander.thrust_N = nominal.burn_request->thrust_N;
+    lander.specific_impulse_s = nominal.burn_request->specific_impulse_s;
+    const double ns_entry = ns_per_evaluation(model, entry_phase.stage, states_along(entry_record));
+    const double ns_descent =
+        ns_per_evaluation(model, under_canopy, states_along(nominal.descent->record));
+    const double ns_burn = ns_per_evaluation(
+        model, lander, states_along(nominal.descent->record, nominal.burn_request->lander_mass_kg));
+    const double floor_us =
+        1e-3 * (entry * ns_entry + descent * ns_descent + per_attempt * ns_burn);
+    fmt::print(
+        "{}: a dispersed flight takes {:.0f} us of CPU on one thread ({} cases, best of two)\n"
+        "  evaluations of the equations per case (mean of {}): entry {:.0f}, descent {:.0f}, "
+        "burn solve {:.0f} in {:.1f} attempts ({:.0f} an attempt)\n"
+        "  CPU per evaluation: entry {:.0f} ns, descent (full equations) {:.0f} ns, burn {:.0f} "
+        "ns\n"
+        "  floor (entry, descent and one burn attempt): {:.0f} us; the flight takes {:.1f} times "
+        "it\n",
+        file.stem().string(), us_per_case, runs, flown, entry, descent, burn, attempts, per_attempt,
+        ns_entry, ns_descent, ns_burn, floor_us, us_per_case / floor_us);
 }
 
 }  // namespace
@@ -113,6 +251,12 @@ int main(int argc, char** argv) {
             corridor_repetitions);
         fmt::print("{:<26} {:>8} {:>10.3f} {:>10.3f} {:>10.3f} {:>10}\n", "", "corridor",
                    corridor.median_ms, corridor.p10_ms, corridor.p90_ms, sizings);
+    }
+
+    // The small station's dispersed flight against its floor.
+    for (const auto& file : files) {
+        if (file.stem() == "small-ballistic-station")
+            dispersed_flight_floor(file);
     }
 
     // Dispersions: 10,000 dispersed flights of each sample with dispersions, on one thread and

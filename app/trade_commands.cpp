@@ -162,25 +162,80 @@ void printSummary(const DispersionSummary& s) {
 }
 
 /// A campaign (a dispersion run, a shard of one or merged shards) and its summary.
+/// Writes a campaign case by case as its cases come, then its summary: --json (the campaign
+/// with one case a line, then the summary: what merge reads), --csv (the cases), or the text
+/// summary. Nothing of a case is kept once written.
+class CampaignWriter {
+public:
+    explicit CampaignWriter(Format format) : format_(format) {}
+
+    void add(const DispersionCampaign& campaign, const DispersedCase& dispersed) {
+        start(campaign);
+        if (format_ == Format::json) {
+            fmt::print("{}\n   {}", cases_ == 0 ? "" : ",", case_to_json(dispersed).dump());
+        } else if (format_ == Format::csv) {
+            fmt::print("{}", case_csv_row(campaign, dispersed));
+        }
+        ++cases_;
+        std::fflush(stdout);
+    }
+
+    void finish(const DispersionCampaign& campaign, const DispersionSummary& summary) {
+        start(campaign);
+        switch (format_) {
+            case Format::json: {
+                std::string text = summary_to_json(summary).dump(1);
+                std::string indented;
+                for (const char c : text) {
+                    indented += c;
+                    if (c == '\n')
+                        indented += ' ';
+                }
+                fmt::print("{}  ]\n }},\n \"summary\": {}\n}}\n", cases_ == 0 ? "" : "\n",
+                           indented);
+                break;
+            }
+            case Format::csv:
+                break;
+            case Format::text:
+                if (campaign.shard_count > 1) {
+                    fmt::print(
+                        "shard {}/{} of the campaign (merge the --json outputs for the "
+                        "whole)\n",
+                        campaign.shard_index, campaign.shard_count);
+                }
+                printSummary(summary);
+                break;
+        }
+    }
+
+private:
+    void start(const DispersionCampaign& campaign) {
+        if (started_)
+            return;
+        started_ = true;
+        if (format_ == Format::json) {
+            fmt::print("{{\n \"campaign\": {{\n");
+            const Json head = campaign_head_to_json(campaign);
+            for (auto it = head.begin(); it != head.end(); ++it)
+                fmt::print("  {}: {},\n", Json(it.key()).dump(), it.value().dump());
+            fmt::print("  \"cases\": [");
+        } else if (format_ == Format::csv) {
+            fmt::print("{}", campaign_csv_head(campaign));
+        }
+    }
+
+    Format format_;
+    bool started_ = false;
+    std::size_t cases_ = 0;
+};
+
 void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& summary,
                    Format format) {
-    switch (format) {
-        case Format::json:
-            fmt::print("{}\n", campaign_document(campaign, summary).dump(1));
-            break;
-        case Format::csv:
-            fmt::print("{}", campaign_csv(campaign));
-            break;
-        case Format::text:
-            if (campaign.shard_count > 1) {
-                fmt::print(
-                    "shard {}/{} of the campaign (merge the --json outputs for the "
-                    "whole)\n",
-                    campaign.shard_index, campaign.shard_count);
-            }
-            printSummary(summary);
-            break;
-    }
+    CampaignWriter writer(format);
+    for (const DispersedCase& dispersed : campaign.cases)
+        writer.add(campaign, dispersed);
+    writer.finish(campaign, summary);
 }
 
 void printSensitivityRanking(const SensitivityTable& table) {
@@ -316,6 +371,13 @@ int disperseCommand(const Options& o) {
     request.runs = o.runs;
     request.seed = o.seed;
     request.ellipse_probability = o.ellipse_probability;
+    // The cases are written as they come and not kept: the summary needs only its tally.
+    const Format format = formatOf(o.json, o.csv);
+    CampaignWriter writer(format);
+    request.keep_cases = false;
+    request.on_case = [&](const DispersionCampaign& campaign, const DispersedCase& dispersed) {
+        writer.add(campaign, dispersed);
+    };
     // Checked once the design has been read: an unreadable design is reported first.
     const auto prepare = [&](const StudyDesign& file, StudyRequest& r) -> std::optional<int> {
         const std::optional<Shard> shard = parse_shard(o.shard);
@@ -333,9 +395,7 @@ int disperseCommand(const Options& o) {
     };
     return runStudyCommand(
         o, request,
-        [&](const StudyOutcome& outcome) {
-            printCampaign(*outcome.campaign, outcome.summary, formatOf(o.json, o.csv));
-        },
+        [&](const StudyOutcome& outcome) { writer.finish(*outcome.campaign, outcome.summary); },
         prepare);
 }
 

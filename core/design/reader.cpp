@@ -24,6 +24,28 @@ std::string ReadError::text() const {
     return path.empty() ? message : path + ": " + message;
 }
 
+std::optional<std::string> number_problem(const ValueRange& range, double x) {
+    // The parser already refuses NaN and overflow; the rule is kept for any other source.
+    if (!std::isfinite(x))
+        return "must be finite";
+    if (!range.contains(x))
+        return fmt::format("{}, got {}", range.requirement(), x);
+    return std::nullopt;
+}
+
+bool read_by_rules_between_keys(std::string_view path) {
+    // The keys check_interface_above_site, check_table_coverage, check_nose_radius and
+    // check_conic_entry read (keep this list with them).
+    constexpr std::array<std::string_view, 7> keys{"site.elevation_m",
+                                                   "entry.interface_altitude_m",
+                                                   "aeroshell.nose_radius_m",
+                                                   "aeroshell.diameter_m",
+                                                   "entry.approach.periapsis_altitude_m",
+                                                   "entry.orbit.periapsis_altitude_m",
+                                                   "entry.orbit.apoapsis_altitude_m"};
+    return std::find(keys.begin(), keys.end(), path) != keys.end();
+}
+
 namespace {
 
 // Parsed in insertion order so that errors can be listed in the order of the document.
@@ -93,16 +115,21 @@ std::optional<double> to_number(const Json& value, const Place& place, const Ran
         return std::nullopt;
     }
     const double x = value.get<double>();
-    // The parser already refuses NaN and overflow; the rule is kept for any other source.
-    if (!std::isfinite(x)) {
-        issues.add(place, "must be finite");
-        return std::nullopt;
-    }
-    if (!range.contains(x)) {
-        issues.add(place, fmt::format("{}, got {}", range.requirement(), x));
+    if (std::optional<std::string> problem = number_problem(range, x)) {
+        issues.add(place, std::move(*problem));
         return std::nullopt;
     }
     return x;
+}
+
+/// The dropped masses the rule between them and the entry mass reads, in the document's order.
+constexpr std::array dropped_masses{
+    std::pair{"heat_shield_kg", &MassDesign::heat_shield_kg},
+    std::pair{"backshell_kg", &MassDesign::backshell_kg},
+};
+
+std::string dropped_mass_message(double entry_kg, double value) {
+    return fmt::format("must be less than the entry mass ({} kg), got {}", entry_kg, value);
 }
 
 enum class Need { required, optional };
@@ -870,14 +897,11 @@ private:
     /// The dropped masses against the entry mass, and the items.
     void read_mass(Fields& f) {
         MassDesign& mass = design_.mass;
-        const auto below_entry = [&](std::string_view key, const std::optional<double>& value) {
-            if (read_ok(fmt::format("mass.{}", key)) && mass.entry_kg && *value >= *mass.entry_kg) {
-                f.report(key, fmt::format("must be less than the entry mass ({} kg), got {}",
-                                          *mass.entry_kg, *value));
-            }
-        };
-        below_entry("heat_shield_kg", mass.heat_shield_kg);
-        below_entry("backshell_kg", mass.backshell_kg);
+        for (const auto& [key, member] : dropped_masses) {
+            const std::optional<double>& value = mass.*member;
+            if (read_ok(fmt::format("mass.{}", key)) && mass.entry_kg && *value >= *mass.entry_kg)
+                f.report(key, dropped_mass_message(*mass.entry_kg, *value));
+        }
         const Json* items = f.value("items", Need::optional);
         if (items)
             read_mass_items(*items, f.place_of("items"));
@@ -1276,6 +1300,18 @@ DesignReadResult read_design(std::string_view json_text,
     }
 
     return read_parsed(document, base_directory, issues);
+}
+
+std::optional<ReadError> dropped_mass_error(const MassDesign& mass) {
+    if (!mass.entry_kg)
+        return std::nullopt;
+    for (const auto& [key, member] : dropped_masses) {
+        const std::optional<double>& value = mass.*member;
+        if (value && *value >= *mass.entry_kg)
+            return ReadError{fmt::format("mass.{}", key),
+                             dropped_mass_message(*mass.entry_kg, *value)};
+    }
+    return std::nullopt;
 }
 
 DesignReadResult read_design_document(const nlohmann::ordered_json& document,

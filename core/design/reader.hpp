@@ -44,4 +44,21 @@ DesignReadResult read_design_document(const nlohmann::ordered_json& document,
 /// Reads a design file; its folder is the base for relative paths inside it.
 DesignReadResult read_design_file(const std::filesystem::path& file);
 
+struct ValueRange;
+
+/// What the reader says of a finite or non-finite number given for a key of this range ("must
+/// be positive, got -3"); empty when it accepts it.
+std::optional<std::string> number_problem(const ValueRange& range, double x);
+
+/// The reader's rule for the dropped masses a design gives (`mass.heat_shield_kg`,
+/// `mass.backshell_kg`): each less than a fixed entry mass. The first one broken, in the
+/// document's order.
+std::optional<ReadError> dropped_mass_error(const MassDesign& mass);
+
+/// Whether one of the reader's rules between keys, other than the dropped masses', reads the
+/// number at this path (the interface above the site, the nose radius against the diameter, a
+/// conic's altitudes against the interface and the body). A number no such rule reads is
+/// judged by its range alone.
+bool read_by_rules_between_keys(std::string_view path);
+
 }  // namespace ds

@@ -181,8 +181,22 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     return c;
 }
 
+bool feels_air(const Stage& stage) {
+    return !stage.drag_devices.empty() || stage.nose_radius_m > 0.0 ||
+           (stage.thrust_N > 0.0 &&
+            (stage.thrust_against_air || stage.thrust_reference_area_m2 > 0.0));
+}
+
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const FlightConditions c = flight_conditions(model, stage, y);
+    // A stage with neither drag nor heating (a lander coasting or burning) feels no air: its
+    // conditions, all zero forces, are not computed.
+    return flight_derivative(
+        model, stage, y,
+        feels_air(stage) ? flight_conditions(model, stage, y) : FlightConditions{});
+}
+
+FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
+                              const FlightConditions& c) {
     const double m = y[StateIndex::mass];
     const Vec3 v = velocity_of(y);
     const LocalFrame frame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]);
@@ -227,7 +241,10 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
 }
 
 double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const FlightState dy = flight_derivative(model, stage, y);
+    return unsettled_rate(model, y, flight_derivative(model, stage, y));
+}
+
+double unsettled_rate(const FlightModel& model, const FlightState& y, const FlightState& dy) {
     const Vec3 v = velocity_of(y);
     const Vec3 a = velocity_of(dy);
     const Vec3 along = v / v.norm();

@@ -59,12 +59,24 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
 /// Singular at the poles (latitude +-90 deg).
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y);
 
+/// The same from the state's flight conditions, when the caller has them (flight_conditions of
+/// the same model, stage and state; a stage without drag or heating does not read them).
+FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
+                              const FlightConditions& conditions);
+
+/// Whether a stage's equations read the air: it has drag or heating, or thrusts against the
+/// air or records its thrust coefficient.
+bool feels_air(const Stage& stage);
+
 /// How far a flight is from settled, as the larger of |dV/dt| / g and |a_perp| / g, the
 /// acceleration of flight_derivative along the velocity and across it (V times the rate at
 /// which the velocity turns): near the equilibrium of a vehicle under its canopy these are,
 /// to first order, the speed's relative excess over its equilibrium times two and the
 /// direction's offset from its equilibrium in radians.
 double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y);
+
+/// The same from the state's derivative (flight_derivative), when the caller has it.
+double unsettled_rate(const FlightModel& model, const FlightState& y, const FlightState& dy);
 
 /// The planet-relative velocity of a stage without thrust or lift in quasi-steady descent.
 struct Equilibrium {

@@ -92,8 +92,17 @@ bool descending(const FlightState& y) {
     return y[StateIndex::up_velocity] < 0.0;
 }
 
+/// Altitude, speed and the flight-path angle are read off the state; the other quantities need
+/// its flight conditions.
+bool read_off_state(FlightQuantity q) {
+    return q == FlightQuantity::altitude || q == FlightQuantity::velocity ||
+           q == FlightQuantity::flight_path_angle;
+}
+
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
+    if (read_off_state(q))
+        return flight_quantity(q, FlightConditions{}, y);
     return flight_quantity(q, flight_conditions(model, stage, y), y);
 }
 
@@ -107,21 +116,29 @@ double quasi_steady_rate(const FlightModel& model, const Stage& stage, const Fli
 
 /// Negative once settled: of the sign of the larger of the two rates less settle_rate_g (the
 /// quasi-steady one is computed only when the fast rates are below it).
-double settling(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    const double fast = unsettled_rate(model, stage, y);
+/// From the state's derivative by the full equations, dy.
+double settling(const FlightModel& model, const Stage& stage, const FlightState& y,
+                const FlightState& dy) {
+    const double fast = unsettled_rate(model, y, dy);
     if (!(fast < settle_rate_g))
         return fast - settle_rate_g;
     return std::max(fast, quasi_steady_rate(model, stage, y)) - settle_rate_g;
 }
 
-/// The event that says a stretch's equations should change: settled on the full equations,
-/// unsettled on the quasi-steady ones.
+double settling(const FlightModel& model, const Stage& stage, const FlightState& y) {
+    return settling(model, stage, y, flight_derivative(model, stage, y));
+}
+
+/// The event that says a stretch's equations should change: settled on the full equations
+/// (whose derivative `rhs` gives), unsettled on the quasi-steady ones.
+template <class Rhs>
 Event<flight_state_size> change_of_equations(const FlightModel& model, const Stage& stage,
-                                             Equations equations) {
+                                             Equations equations, const Rhs& rhs) {
     if (equations == Equations::full) {
-        return {
-            [&model, &stage](double, const FlightState& y) { return settling(model, stage, y); },
-            EventDirection::falling, true};
+        return {[&model, &stage, &rhs](double, const FlightState& y) {
+                    return settling(model, stage, y, rhs(0.0, y));
+                },
+                EventDirection::falling, true};
     }
     return {[&model, &stage](double, const FlightState& y) {
                 return quasi_steady_rate(model, stage, y) - unsettle_rate_g;
@@ -170,22 +187,32 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     const Stage& stage = phase.stage;
     StateMemo<FlightState, 1> rates;
     StateMemo<FlightConditions, 3> conditions;
+    const auto conditions_at = [&](const FlightState& y) -> const FlightConditions& {
+        return conditions.get(
+            y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
+    };
+    // The full equations take the conditions from the memo the events read too.
+    const bool air = feels_air(stage);
     const auto rhs = [&](double, const FlightState& y) {
         return rates.get(y, [&](const FlightState& at) {
-            return equations == Equations::full ? flight_derivative(model, stage, at)
-                                                : quasi_steady_derivative(model, stage, at);
+            if (equations == Equations::quasi_steady)
+                return quasi_steady_derivative(model, stage, at);
+            return air ? flight_derivative(model, stage, at, conditions_at(at))
+                       : flight_derivative(model, stage, at);
         });
     };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
-        const FlightConditions& c = conditions.get(
-            y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
-        return flight_quantity(q, c, y);
+        if (read_off_state(q))
+            return flight_quantity(q, FlightConditions{}, y);
+        return flight_quantity(q, conditions_at(y), y);
     };
 
     std::vector<Event<flight_state_size>> events;
+    events.reserve(phase.ends.size() + phase.peaks.size() + 1);
+    // Each event's function holds pointers only, so std::function keeps it without allocating.
     for (const Trigger& trigger : phase.ends) {
-        events.push_back({[&, trigger](double, const FlightState& y) {
-                              return quantity(trigger.quantity, y) - trigger.value;
+        events.push_back({[&quantity, t = &trigger](double, const FlightState& y) {
+                              return quantity(t->quantity, y) - t->value;
                           },
                           trigger.direction, true});
         if (trigger.descending_only) {
@@ -195,12 +222,12 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     // A peak is where the logarithmic rate of its quantity falls through zero. The rate is a
     // central difference along the flow, y +- dt y', so every quantity, whatever its model,
     // is served by the same event.
-    constexpr double rate_step_s = 1e-3;
+    static constexpr double rate_step_s = 1e-3;
     for (const Peak& peak : phase.peaks) {
-        events.push_back({[&, peak](double, const FlightState& y) {
+        events.push_back({[&quantity, &rhs, q = peak.quantity](double, const FlightState& y) {
                               const FlightState dy = rate_step_s * rhs(0.0, y);
-                              const double ahead = quantity(peak.quantity, y + dy);
-                              const double behind = quantity(peak.quantity, y - dy);
+                              const double ahead = quantity(q, y + dy);
+                              const double behind = quantity(q, y - dy);
                               if (!(ahead > 0.0 && behind > 0.0))
                                   return 0.0;
                               return std::log(ahead / behind);
@@ -208,7 +235,7 @@ IntegrationOutcome<flight_state_size> fly_stretch(
                           EventDirection::falling, false});
     }
     if (may_change)
-        events.push_back(change_of_equations(model, stage, equations));
+        events.push_back(change_of_equations(model, stage, equations, rhs));
 
     const auto on_step = [&](double t, const FlightState& y) {
         if (recording.history) {

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include <Eigen/Core>
+#include <boost/container/small_vector.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
 
 namespace ds {
@@ -84,6 +85,12 @@ struct DenseStep {
 
 namespace detail {
 
+/// The events' values and a step's hits are kept in place up to this many events (a flight
+/// phase has at most eight), so a step allocates nothing; more spill to the heap.
+inline constexpr std::size_t events_in_place = 8;
+template <class T>
+using EventValues = boost::container::small_vector<T, events_in_place>;
+
 /// Dormand and Prince, "A family of embedded Runge-Kutta formulae", J. Comp. Appl. Math. 6
 /// (1980); dense output coefficients of Hairer, Norsett and Wanner, Solving ODEs I (DOPRI5).
 struct DormandPrinceTableau {
@@ -147,9 +154,14 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
     ++out.evaluations;
     double h = std::min({settings.initial_step, settings.max_step, t_end - t0});
 
-    std::vector<double> g_before(events.size());
+    // The events' values at a step's start and end, in two buffers that trade places.
+    detail::EventValues<double> g_start(events.size());
+    detail::EventValues<double> g_end(events.size());
+    detail::EventValues<double>* before_values = &g_start;
+    detail::EventValues<double>* after_values = &g_end;
+    detail::EventValues<EventHit<N>> hits;
     for (std::size_t i = 0; i < events.size(); ++i)
-        g_before[i] = events[i].function(t, y);
+        g_start[i] = events[i].function(t, y);
 
     on_step(t, y);
     while (t < t_end) {
@@ -202,27 +214,36 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
             continue;
         }
 
-        // Accepted: build the continuous extension, then look for events inside the step.
-        const Vector<N> ydiff = y_new - y;
-        const Vector<N> bspl = h * k1 - ydiff;
-        const DenseStep<N> dense{
-            t,
-            h,
-            y,
-            ydiff,
-            bspl,
-            ydiff - h * k7 - bspl,
-            h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 + T::d6 * k6 + T::d7 * k7)};
+        // Accepted: look for events inside the step on its continuous extension, built when
+        // a record keeps it or an event crosses.
+        std::optional<DenseStep<N>> dense_step;
+        const auto extension = [&]() -> const DenseStep<N>& {
+            if (!dense_step) {
+                const Vector<N> ydiff = y_new - y;
+                const Vector<N> bspl = h * k1 - ydiff;
+                dense_step = DenseStep<N>{t,
+                                          h,
+                                          y,
+                                          ydiff,
+                                          bspl,
+                                          ydiff - h * k7 - bspl,
+                                          h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 +
+                                               T::d6 * k6 + T::d7 * k7)};
+            }
+            return *dense_step;
+        };
         const double t_new = last ? t_end : t + h;
         if (dense_record)
-            dense_record->push_back(dense);
+            dense_record->push_back(extension());
 
-        std::vector<EventHit<N>> hits;
-        std::vector<double> g_after(events.size());
+        hits.clear();
+        detail::EventValues<double>& g_before = *before_values;
+        detail::EventValues<double>& g_after = *after_values;
         for (std::size_t i = 0; i < events.size(); ++i) {
             g_after[i] = events[i].function(t_new, y_new);
             if (!detail::crosses(g_before[i], g_after[i], events[i].direction))
                 continue;
+            const DenseStep<N>& dense = extension();
             const auto g = [&](double tau) { return events[i].function(tau, dense(tau)); };
             const auto close_enough = [&](double a, double b) {
                 return std::abs(b - a) <= settings.event_time_tolerance;
@@ -262,7 +283,7 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         t = t_new;
         y = y_new;
         k1 = k7;  // first-same-as-last
-        g_before = std::move(g_after);
+        std::swap(before_values, after_values);
         on_step(t, y);
 
         const double factor = err > 0.0 ? std::clamp(safety * std::pow(err, -order_exponent),

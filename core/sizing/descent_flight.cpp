@@ -12,6 +12,10 @@ Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
     return phase;
 }
 
+/// Room for the descent's record from the start, so it is seldom copied as it grows: a
+/// descent under a canopy takes some tens of steps (our choice).
+constexpr std::size_t expected_descent_steps = 128;
+
 IntegratorSettings<flight_state_size> descent_settings(const Design& design) {
     return flight_integrator_settings(design.solver.relative_tolerance,
                                       static_cast<std::size_t>(design.solver.max_steps));
@@ -27,7 +31,8 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     const auto settings = descent_settings(design);
     const double t_budget = design.solver.max_time_s;
     Phase under_canopy = under_canopy_phase(plan, plan.floor_altitude_m);
-    const PhaseRecording recording{&out.samples, &out.record};
+    out.record.steps().reserve(expected_descent_steps);
+    const PhaseRecording recording{plan.record_samples ? &out.samples : nullptr, &out.record};
 
     // With the heat shield: until the jettison delay runs out, or the dynamic pressure falls
     // through the design's jettison value.
@@ -44,6 +49,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     const PhaseOutcome first =
         fly_phase(model, under_canopy, deploy_time_s, deploy_state, t_end, settings, recording);
     out.quasi_steady_steps = first.quasi_steady_steps;
+    out.evaluations = first.evaluations;
     const bool floor_first = first.ended_by == std::size_t{0};
     const bool jettison_event = first.reason == StopReason::terminal_event && !floor_first;
     const bool jettison_delay = first.reason == StopReason::reached_end && t_end < t_budget;
@@ -64,6 +70,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     const PhaseOutcome second =
         fly_phase(model, under_canopy, first.time_s, y, t_budget, settings, recording);
     out.quasi_steady_steps += second.quasi_steady_steps;
+    out.evaluations += second.evaluations;
     out.reached_floor = second.reason == StopReason::terminal_event;
     out.stop_reason = second.reason;
     return out;
@@ -78,10 +85,12 @@ void extend_descent(const Design& design, const FlightModel& model, DescentFligh
     const double t = descent.record.end_time();
     const FlightState y = descent.record.state_at(t);
     descent.plan.floor_altitude_m = floor_altitude_m;
-    const PhaseOutcome more = fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m),
-                                        t, y, design.solver.max_time_s, descent_settings(design),
-                                        {&descent.samples, &descent.record});
+    const PhaseOutcome more =
+        fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m), t, y,
+                  design.solver.max_time_s, descent_settings(design),
+                  {descent.plan.record_samples ? &descent.samples : nullptr, &descent.record});
     descent.quasi_steady_steps += more.quasi_steady_steps;
+    descent.evaluations += more.evaluations;
     descent.reached_floor = more.reason == StopReason::terminal_event;
     descent.stop_reason = more.reason;
 }

@@ -17,6 +17,8 @@ struct DescentPlan {
     /// Fly the settled descent on the quasi-steady equations (Phase::quasi_steady_when_settled);
     /// false flies the full equations throughout, to check the one against the other.
     bool quasi_steady = true;
+    /// Keep a trajectory sample per step (DescentFlight::samples), for a history.
+    bool record_samples = true;
 };
 
 /// The descent under the canopy from deploy: with the heat shield until its jettison, then
@@ -30,8 +32,9 @@ struct DescentFlight {
     bool reached_floor = false;
     StopReason stop_reason = StopReason::terminal_event;  ///< why, when not reached_floor
     std::size_t quasi_steady_steps = 0;  ///< of the record's steps, on the quasi-steady equations
+    std::size_t evaluations = 0;  ///< of the equations by the integrator, rejected steps included
     DenseTrajectory record;
-    std::vector<TrajectorySample> samples;  ///< one per accepted step, deploy to floor
+    std::vector<TrajectorySample> samples;  ///< one per accepted step, deploy to floor (if asked)
 };
 
 DescentFlight fly_descent(const Design& design, const FlightModel& model, const DescentPlan& plan,

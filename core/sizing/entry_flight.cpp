@@ -240,6 +240,7 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
         raise_peak(out.heat_flux, model, p, heat_flux_peak, t, y, flown);
         raise_peak(out.radiative_heat_flux, model, p, radiative_peak, t, y, flown);
         out.steps += flown.steps;
+        out.evaluations += flown.evaluations;
         out.end_time_s = flown.time_s;
         out.end_state = flown.y;
         out.end_conditions = flight_conditions(model, p.stage, flown.y);

@@ -78,6 +78,7 @@ struct EntryFlight {
     EntryEnd end = EntryEnd::stopped;
     StopReason stop_reason = StopReason::reached_end;  ///< why, when `stopped`
     std::size_t steps = 0;
+    std::size_t evaluations = 0;  ///< of the equations by the integrator, rejected steps included
     double end_time_s = 0.0;
     FlightState end_state;  ///< at the parachute trigger when deployed
     FlightConditions end_conditions;

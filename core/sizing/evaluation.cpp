@@ -303,18 +303,20 @@ void add_propulsion(const TerminalDesign& t, double burned, double engines, Eval
 
 /// The burn, hover and fly-away of the methods that fire engines; fills the propellant and
 /// the propulsion estimates into the budget.
-void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluation& e) {
+void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluation& e,
+                       bool history) {
     const double site = design.site.elevation_m;
     const double g_site = model.body.gravity_m_s2(site);
     const BurnRequest request = burn_request(design, g_site, e);
     const auto settings = flight_integrator_settings(
         design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
     std::vector<TrajectorySample> burn_samples;
-    const BurnSolution burn =
-        solve_terminal_burn(model, e.descent->record, request, settings, &burn_samples);
+    const BurnSolution burn = solve_terminal_burn(model, e.descent->record, request, settings,
+                                                  history ? &burn_samples : nullptr);
     e.burn_request = request;
     e.burn = burn;
-    record_burn_history(burn, burn_samples, e);
+    if (history)
+        record_burn_history(burn, burn_samples, e);
 
     e.canopy_exit_state = burn.separation_state;
     const double engines = MassEstimates::engine_kg_per_N * e.full_thrust_N;
@@ -435,7 +437,7 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
 
 }  // namespace
 
-Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg) {
+Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg, bool history) {
     Evaluation e;
     e.entry_kg = entry_kg;
     e.aeroshell = resolve_aeroshell(design, entry_kg);
@@ -448,7 +450,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     if (e.aeroshell.diameter_m <= 0.0)
         return e;
 
-    e.entry = fly_entry(design, model, e.aeroshell, entry_kg, &e.history);
+    e.entry = fly_entry(design, model, e.aeroshell, entry_kg, history ? &e.history : nullptr);
     if (e.entry.end == EntryEnd::ground) {  // it comes down before the parachute: there
         e.landing_point = GroundPoint{e.entry.end_state[StateIndex::latitude],
                                       e.entry.end_state[StateIndex::longitude]};
@@ -490,10 +492,11 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
         plan.body_drag_area_m2 = body_drag_area;
         plan.jettison_mass_kg = e.budget.group_kg(MassGroup::heat_shield);
         plan.floor_altitude_m = design.site.elevation_m;
+        plan.record_samples = history;
         e.descent = fly_descent(design, model, plan, e.entry.end_time_s, e.entry.end_state);
         if (fires_engines && has_lander) {
             if (!e.descent->record.empty())
-                fly_terminal_burn(design, model, e);
+                fly_terminal_burn(design, model, e, history);
         } else {
             descend_on_canopy(design, e);
         }

@@ -79,8 +79,10 @@ struct Evaluation {
 inline constexpr double capability_depth_below_site_m = 5000.0;
 
 /// Flies the design at an entry mass and builds its budget. In analysis mode (the design fixes
-/// the entry mass), what the budget leaves over is added as "unallocated".
-Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg);
+/// the entry mass), what the budget leaves over is added as "unallocated". Without `history`
+/// the evaluation's history stays empty (and the flights record no samples).
+Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg,
+                    bool history = true);
 
 /// The timeline margin of an evaluation at a site elevation: time from parachute deploy to the
 /// start of the terminal burn (the touchdown for "none"), less the time the sequence needs.

@@ -40,21 +40,21 @@ struct Closure {
 
 /// Closes the budget: finds the entry mass m with m = budget(m), by the secant method on
 /// r(m) = budget(m) - m, started with one fixed-point step.
-Closure close_budget(const Design& design, const FlightModel& model) {
+Closure close_budget(const Design& design, const FlightModel& model, bool history) {
     double itemised = 0.0;
     for (const MassItemDesign& item : design.mass.items) {
         if (!leaves_before_entry(item.group))
             itemised += item.mass_kg;
     }
     double m0 = itemised / first_guess_itemised_share;
-    Closure c{evaluate(design, model, m0), {}};
+    Closure c{evaluate(design, model, m0, history), {}};
     double r0 = c.evaluation.budget_kg() - m0;
     double m1 = c.evaluation.budget_kg();
     for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
         c.report.iterations = iteration;
         if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg)
             break;
-        c.evaluation = evaluate(design, model, m1);
+        c.evaluation = evaluate(design, model, m1, history);
         const double r1 = c.evaluation.budget_kg() - m1;
         c.report.residual_kg = r1;
         if (std::abs(r1) < closure_tolerance_kg) {
@@ -880,11 +880,12 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
     }
 }
 
-/// The evaluation at the design's entry mass: the fixed one, or the closed one.
-Closure sized_evaluation(const Design& design, const FlightModel& model) {
+/// The evaluation at the design's entry mass: the fixed one, or the closed one (with its
+/// history when asked).
+Closure sized_evaluation(const Design& design, const FlightModel& model, bool history) {
     if (design.mass.entry_kg)
-        return {evaluate(design, model, *design.mass.entry_kg), {}};
-    return close_budget(design, model);
+        return {evaluate(design, model, *design.mass.entry_kg, history), {}};
+    return close_budget(design, model, history);
 }
 
 }  // namespace
@@ -892,7 +893,7 @@ Closure sized_evaluation(const Design& design, const FlightModel& model) {
 Design freeze_design(const Design& design) {
     const FlightEnvironment environment = make_environment(design);
     const FlightModel model = environment.model();
-    const Evaluation e = sized_evaluation(design, model).evaluation;
+    const Evaluation e = sized_evaluation(design, model, false).evaluation;
     Design frozen = design;
     frozen.mass.entry_kg = e.entry_kg;
     frozen.mass.heat_shield_kg = e.heat_shield_kg;
@@ -925,7 +926,7 @@ Results size_design(const Design& design, SizingOptions options) {
     const FlightModel model = environment.model();
 
     Results results;
-    Closure sized = sized_evaluation(design, model);
+    Closure sized = sized_evaluation(design, model, options.history);
     Evaluation& e = sized.evaluation;
     const std::optional<MassClosure> closure =
         design.mass.entry_kg ? std::nullopt : std::optional<MassClosure>(sized.report);

@@ -52,6 +52,7 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
     coast.ends = {ground};
     const PhaseOutcome coasted = fly_phase(model, coast, t_s, b.separation_state, t_s + r.coast_s,
                                            settings, {history, nullptr});
+    b.evaluations = coasted.evaluations;
     b.ignition_time_s = coasted.time_s;
     b.ignition_state = coasted.y;
     if (coasted.reason == StopReason::terminal_event) {  // hit the ground while coasting
@@ -94,6 +95,7 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
         burned =
             fly_phase(model, turn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
         raise_burn_peaks(model, turn, y, burned, b);
+        b.evaluations += burned.evaluations;
         const bool turned = burned.reason == StopReason::terminal_event && burned.ended_by == 2u;
         if (turned) {
             t = burned.time_s;
@@ -103,10 +105,12 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
             burned = fly_phase(model, burn, t, y, coasted.time_s + flight_time_limit_s, settings,
                                {history, nullptr});
             raise_burn_peaks(model, burn, y, burned, b);
+            b.evaluations += burned.evaluations;
         }
     } else {
         burned =
             fly_phase(model, burn, t, y, t + flight_time_limit_s, settings, {history, nullptr});
+        b.evaluations += burned.evaluations;
     }
     // Reaching the ground at the end velocity or slower is reaching it too: the two events
     // can fall within the event tolerance of each other when the solution is exact.
@@ -235,8 +239,14 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     const auto latest_crossing = descent.time_descending_through(request.site_elevation_m);
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
     const double tolerance = request.separation_time_tolerance_s;
+    // Every flight of the solve, kept: the solution is one of them, so without a history to
+    // record it is not flown again (a flight is a function of its separation time alone).
+    std::vector<BurnAttempt> flown;
+    std::size_t evaluations = 0;
     const auto flown_miss = [&](double t_s) {
-        return burn_miss(attempt(model, descent, request, settings, t_s, nullptr), request);
+        flown.push_back(attempt(model, descent, request, settings, t_s, nullptr));
+        evaluations += flown.back().burn.evaluations;
+        return burn_miss(flown.back(), request);
     };
     const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
 
@@ -287,9 +297,22 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
             t_solution = walk_back(flown_miss, earliest, b.late, b.late_miss, tolerance);
         }
     }
-    BurnAttempt solved =
-        attempt(model, descent, request, settings, t_solution.value_or(earliest), history);
+    const double t_solved = t_solution.value_or(earliest);
+    const auto kept = std::find_if(flown.begin(), flown.end(), [&](const BurnAttempt& a) {
+        return a.burn.separation_time_s == t_solved;
+    });
+    std::size_t attempts = flown.size();
+    BurnAttempt solved;
+    if (!history && kept != flown.end()) {
+        solved = *kept;
+    } else {
+        solved = attempt(model, descent, request, settings, t_solved, history);
+        evaluations += solved.burn.evaluations;
+        ++attempts;
+    }
     solved.burn.stops_in_time = t_solution.has_value() && solved.reached_velocity;
+    solved.burn.attempts = attempts;
+    solved.burn.evaluations = evaluations;
     return solved.burn;
 }
 

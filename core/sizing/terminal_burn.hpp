@@ -56,6 +56,10 @@ struct BurnSolution {
     double peak_sensed_deceleration_g = 0.0;
     double peak_dynamic_pressure_Pa = 0.0;
     double throttle = 1.0;  ///< as flown
+    /// The flights the solve took (coast and burn from a separation time), the solved one's
+    /// included, and the evaluations of the equations they made (the integrator's).
+    std::size_t attempts = 0;
+    std::size_t evaluations = 0;
 };
 
 /// Finds the latest separation time along the descent under the canopy at which a

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <mutex>
 #include <numeric>
 #include <random>
 #include <tuple>
@@ -61,13 +62,16 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     const DispersionSettings& settings) {
     const DesignVariants variants = DesignVariants::of(freeze_design(design), base_directory);
     std::vector<double> nominal;
+    std::vector<std::string> keys;
     for (const DispersionDesign& d : design.dispersions) {
+        keys.push_back(d.key);
         const auto value = variants.value(d.key);
         if (!value)
             return {std::nullopt,
                     fmt::format("dispersions: {} is not a number of the design", d.key)};
         nominal.push_back(*value);
     }
+    const DesignVariants::Keys drawn = variants.prepare(std::move(keys));
 
     DispersionCampaign campaign;
     campaign.seed = settings.seed;
@@ -84,22 +88,16 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     for (std::size_t i = campaign.shard_index; i < settings.runs; i += campaign.shard_count) {
         indices.push_back(i);
     }
-    campaign.cases.resize(indices.size());
-
-    parallel_for(indices.size(), settings.threads, settings.progress, [&](std::size_t k) {
-        DispersedCase& c = campaign.cases[k];
-        c.index = indices[k];
+    const auto fly_case = [&](DispersedCase& c) {
         std::mt19937_64 engine(split_mix(settings.seed ^ split_mix(c.index)));
-        std::vector<std::pair<std::string, double>> values;
         for (std::size_t j = 0; j < design.dispersions.size(); ++j) {
             const DispersionDesign& d = design.dispersions[j];
             const double draw = d.distribution == DistributionKind::normal
                                     ? nominal[j] + d.sigma * standard_normal(engine)
                                     : d.min + (d.max - d.min) * unit_uniform(engine);
             c.draws.push_back(draw);
-            values.emplace_back(d.key, draw);
         }
-        const DesignReadResult read = variants.with(values);
+        const DesignReadResult read = variants.with(drawn, c.draws);
         if (!read.ok()) {
             c.error = read.errors.front().text();
             return;
@@ -115,6 +113,32 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
                 c.failed_checks.push_back(check.id);
         }
         c.success = c.failed_checks.empty();
+    };
+
+    // Cases finish out of order on the pool: each waits in `done` until those before it are
+    // handed on, so the tally and the writer see them in the order of their index.
+    std::mutex handing;
+    std::map<std::size_t, DispersedCase> done;
+    std::size_t next_to_hand = 0;
+    const auto hand_on = [&](std::size_t k, DispersedCase c) {
+        const std::lock_guard lock(handing);
+        done.emplace(k, std::move(c));
+        for (auto it = done.begin(); it != done.end() && it->first == next_to_hand;
+             it = done.erase(it), ++next_to_hand) {
+            if (settings.tally)
+                settings.tally->add(it->second);
+            if (settings.on_case)
+                settings.on_case(campaign, it->second);
+            if (settings.keep_cases)
+                campaign.cases.push_back(std::move(it->second));
+        }
+    };
+
+    parallel_for(indices.size(), settings.threads, settings.progress, [&](std::size_t k) {
+        DispersedCase c;
+        c.index = indices[k];
+        fly_case(c);
+        hand_on(k, std::move(c));
     });
     return {std::move(campaign), {}};
 }
@@ -172,26 +196,39 @@ double quantile(const std::vector<double>& sorted, double q) {
     return sorted[lo] + (h - static_cast<double>(lo)) * (sorted[hi] - sorted[lo]);
 }
 
-DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_probability) {
-    DispersionSummary s;
-    s.runs = campaign.cases.size();
-    std::map<std::string, std::size_t> failures;
-    for (const DispersedCase& c : campaign.cases) {
-        s.successes += c.success ? 1 : 0;
-        for (const std::string& id : c.failed_checks)
-            ++failures[id];
-        if (!c.error.empty())
-            ++failures["design_unreadable"];
+void SummaryTally::reserve(std::size_t cases) {
+    for (std::vector<double>& values : values_)
+        values.reserve(cases);
+    landings_.reserve(cases);
+}
+
+void SummaryTally::add(const DispersedCase& c) {
+    ++runs_;
+    successes_ += c.success ? 1 : 0;
+    for (const std::string& id : c.failed_checks)
+        ++failures_[id];
+    if (!c.error.empty())
+        ++failures_["design_unreadable"];
+    for (std::size_t f = 0; f < values_.size(); ++f) {
+        if (f < c.figures.size() && c.figures[f])
+            values_[f].push_back(*c.figures[f]);
     }
+    if (c.landing) {
+        landings_.push_back({degrees_to_radians(c.landing->latitude_deg),
+                             degrees_to_radians(c.landing->longitude_deg)});
+    }
+}
+
+DispersionSummary SummaryTally::summary(const DispersionCampaign& campaign,
+                                        double ellipse_probability) const {
+    DispersionSummary s;
+    s.runs = runs_;
+    s.successes = successes_;
     s.success_probability =
         s.runs ? static_cast<double>(s.successes) / static_cast<double>(s.runs) : 0.0;
     std::tie(s.wilson_low, s.wilson_high) = wilson_interval(s.successes, s.runs);
     for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
-        std::vector<double> values;
-        for (const DispersedCase& c : campaign.cases) {
-            if (f < c.figures.size() && c.figures[f])
-                values.push_back(*c.figures[f]);
-        }
+        std::vector<double> values = f < values_.size() ? values_[f] : std::vector<double>{};
         FigureStatistics st{campaign.figure_ids[f], campaign.figure_units[f], values.size()};
         if (!values.empty()) {
             std::sort(values.begin(), values.end());
@@ -212,21 +249,21 @@ DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_p
         }
         s.figures.push_back(st);
     }
-    std::vector<GroundPoint> landings;
-    for (const DispersedCase& c : campaign.cases) {
-        if (c.landing) {
-            landings.push_back({degrees_to_radians(c.landing->latitude_deg),
-                                degrees_to_radians(c.landing->longitude_deg)});
-        }
-    }
-    s.landing_ellipse = landing_ellipse(landings, campaign.body_radius_m, ellipse_probability);
-    s.failing_checks.assign(failures.begin(), failures.end());
+    s.landing_ellipse = landing_ellipse(landings_, campaign.body_radius_m, ellipse_probability);
+    s.failing_checks.assign(failures_.begin(), failures_.end());
     std::stable_sort(s.failing_checks.begin(), s.failing_checks.end(),
                      [](const auto& a, const auto& b) { return a.second > b.second; });
     return s;
 }
 
-nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
+DispersionSummary summarize(const DispersionCampaign& campaign, double ellipse_probability) {
+    SummaryTally tally(campaign.figure_ids.size());
+    for (const DispersedCase& c : campaign.cases)
+        tally.add(c);
+    return tally.summary(campaign, ellipse_probability);
+}
+
+nlohmann::ordered_json campaign_head_to_json(const DispersionCampaign& c) {
     nlohmann::ordered_json out;
     out["format"] = "descent-sizer/dispersions";
     out["version"] = 1;
@@ -246,22 +283,29 @@ nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
     out["figures"] = c.figure_ids;
     out["units"] = c.figure_units;
     out["body_radius_m"] = c.body_radius_m;
-    nlohmann::ordered_json cases = nlohmann::ordered_json::array();
-    for (const DispersedCase& k : c.cases) {
-        cases.push_back(
-            {{"index", k.index},
-             {"draws", k.draws},
-             {"figures",
-              json::array_of(k.figures,
-                             [](const std::optional<double>& f) { return json::number(f); })},
-             {"success", k.success},
-             {"failed_checks", k.failed_checks},
-             {"error", k.error},
-             {"landing",
-              k.landing ? nlohmann::ordered_json{k.landing->latitude_deg, k.landing->longitude_deg,
+    return out;
+}
+
+nlohmann::ordered_json case_to_json(const DispersedCase& k) {
+    return {
+        {"index", k.index},
+        {"draws", k.draws},
+        {"figures",
+         json::array_of(k.figures, [](const std::optional<double>& f) { return json::number(f); })},
+        {"success", k.success},
+        {"failed_checks", k.failed_checks},
+        {"error", k.error},
+        {"landing", k.landing
+                        ? nlohmann::ordered_json{k.landing->latitude_deg, k.landing->longitude_deg,
                                                  k.landing->downrange_m, k.landing->crossrange_m}
-                        : nlohmann::ordered_json()}});
-    }
+                        : nlohmann::ordered_json()}};
+}
+
+nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
+    nlohmann::ordered_json out = campaign_head_to_json(c);
+    nlohmann::ordered_json cases = nlohmann::ordered_json::array();
+    for (const DispersedCase& k : c.cases)
+        cases.push_back(case_to_json(k));
     out["cases"] = cases;
     return out;
 }

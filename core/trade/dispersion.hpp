@@ -2,6 +2,8 @@
 
 #include <cstdint>
 #include <filesystem>
+#include <functional>
+#include <map>
 #include <optional>
 #include <string>
 #include <utility>
@@ -15,7 +17,12 @@
 
 namespace ds {
 
-/// How a dispersion campaign runs: how many cases, from which seed, which slice of them.
+struct DispersedCase;
+struct DispersionCampaign;
+class SummaryTally;
+
+/// How a dispersion campaign runs: how many cases, from which seed, which slice of them, and
+/// what it keeps of them.
 struct DispersionSettings {
     std::size_t runs = 0;
     std::uint64_t seed = 0;
@@ -23,6 +30,14 @@ struct DispersionSettings {
     std::size_t shard_count = 1;
     unsigned threads = 0;  ///< 0: one per core
     Progress* progress = nullptr;
+    /// Keep every case in the campaign; without, the campaign comes back without its cases
+    /// and what is wanted of them goes to `tally` and `on_case`.
+    bool keep_cases = true;
+    /// Each case is added to it, in the order of its index, as it is done.
+    SummaryTally* tally = nullptr;
+    /// Each case, in the order of its index, as it is done, with the campaign (its cases
+    /// left out) it belongs to: for writing the cases as they come.
+    std::function<void(const DispersionCampaign&, const DispersedCase&)> on_case;
 };
 
 /// Where a dispersed case came down (results.landing).
@@ -91,6 +106,32 @@ struct DispersionSummary {
     std::optional<LandingEllipse> landing_ellipse;
 };
 
+/// What the summary needs of the cases of a campaign, added one by one: the counts, each key
+/// figure's values and the landing points (some 160 bytes a case for the 18 key figures,
+/// against some 850 for a whole case), so the summary of a campaign that keeps no cases is the
+/// same, number for number, as that of its cases.
+class SummaryTally {
+public:
+    explicit SummaryTally(std::size_t figures = 0) : values_(figures) {}
+
+    /// Room for this many cases, so the values are not copied as they grow.
+    void reserve(std::size_t cases);
+
+    /// Cases are added in the order of their index (the landing ellipse's sums run in it).
+    void add(const DispersedCase& c);
+
+    /// The statistics of the cases added, with the campaign's figures and body and the landing
+    /// ellipse of the given probability.
+    DispersionSummary summary(const DispersionCampaign& campaign, double ellipse_probability) const;
+
+private:
+    std::size_t runs_ = 0;
+    std::size_t successes_ = 0;
+    std::map<std::string, std::size_t> failures_;
+    std::vector<std::vector<double>> values_;  ///< per figure, of the cases that gave it
+    std::vector<GroundPoint> landings_;
+};
+
 /// The statistics of a campaign, with the landing ellipse of the given probability.
 DispersionSummary summarize(const DispersionCampaign& campaign,
                             double ellipse_probability = default_ellipse_probability);
@@ -105,6 +146,10 @@ std::pair<double, double> wilson_interval(std::size_t successes, std::size_t tri
 double quantile(const std::vector<double>& sorted, double q);
 
 nlohmann::ordered_json campaign_to_json(const DispersionCampaign& campaign);
+/// The campaign's document without its "cases", and one case's entry of them: the parts of
+/// campaign_to_json, for writing the cases as they come.
+nlohmann::ordered_json campaign_head_to_json(const DispersionCampaign& campaign);
+nlohmann::ordered_json case_to_json(const DispersedCase& dispersed);
 std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& json,
                                                      std::string* error);
 nlohmann::ordered_json summary_to_json(const DispersionSummary& summary);

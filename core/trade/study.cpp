@@ -7,6 +7,7 @@
 
 #include <fmt/format.h>
 
+#include "results/key_figures.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/trade_csv.hpp"
 #include "trade/trade_json.hpp"
@@ -43,10 +44,16 @@ void run_dispersion_study(const StudyInput& in, StudyOutcome& out) {
     settings.shard_count = in.request.shard_count;
     settings.threads = in.threads;
     settings.progress = &in.progress;
+    settings.keep_cases = in.request.keep_cases;
+    settings.on_case = in.request.on_case;
+    SummaryTally tally(key_figure_table.size());
+    const std::size_t shards = std::max<std::size_t>(settings.shard_count, 1);
+    tally.reserve(settings.runs / shards + 1);
+    settings.tally = &tally;
     auto [campaign, error] = run_dispersions(in.design, in.base_directory, settings);
     out.error = error;
     if (campaign) {
-        out.summary = summarize(*campaign, in.request.ellipse_probability);
+        out.summary = tally.summary(*campaign, in.request.ellipse_probability);
         out.campaign = std::move(campaign);
     }
 }

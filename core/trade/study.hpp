@@ -3,6 +3,7 @@
 #include <cstddef>
 #include <cstdint>
 #include <filesystem>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -37,6 +38,10 @@ struct StudyRequest {
     std::vector<std::string> inputs;  ///< sensitivities: the keys varied, empty for every number
     /// Dispersions: the probability the landing ellipse holds.
     double ellipse_probability = default_ellipse_probability;
+    /// Dispersions: keep every case in the outcome's campaign (the summary never needs them),
+    /// and hand each, in the order of its index, to `on_case` as it is done.
+    bool keep_cases = true;
+    std::function<void(const DispersionCampaign&, const DispersedCase&)> on_case;
     /// Corridor: values of the speed key (entry speed, or arrival excess speed); empty for the
     /// design's own.
     std::vector<double> speeds;

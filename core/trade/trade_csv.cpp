@@ -93,32 +93,38 @@ std::vector<std::string> campaign_column_names(const DispersionCampaign& campaig
     return names;
 }
 
-std::string campaign_csv(const DispersionCampaign& campaign) {
+std::string campaign_csv_head(const DispersionCampaign& campaign) {
     Row head;
     for (const std::string& name : campaign_column_names(campaign))
         head << name;
-    std::string out = head.line();
-    for (const DispersedCase& c : campaign.cases) {
-        Row row;
-        row << std::to_string(c.index);
-        for (std::size_t d = 0; d < campaign.dispersions.size(); ++d) {
-            row << (d < c.draws.size() ? std::optional<double>(c.draws[d]) : std::nullopt);
-        }
-        for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
-            row << (f < c.figures.size() ? c.figures[f] : std::nullopt);
-        }
-        const auto landing = [&](double CaseLanding::*part) {
-            return c.landing ? std::optional<double>((*c.landing).*part) : std::nullopt;
-        };
-        row << landing(&CaseLanding::latitude_deg) << landing(&CaseLanding::longitude_deg)
-            << landing(&CaseLanding::downrange_m) << landing(&CaseLanding::crossrange_m);
-        std::vector<std::string> failed = c.failed_checks;
-        if (!c.error.empty())
-            failed.emplace_back("design");
-        row << std::string(c.success ? "true" : "false")
-            << fmt::format("{}", fmt::join(failed, ";"));
-        out += row.line();
+    return head.line();
+}
+
+std::string case_csv_row(const DispersionCampaign& campaign, const DispersedCase& c) {
+    Row row;
+    row << std::to_string(c.index);
+    for (std::size_t d = 0; d < campaign.dispersions.size(); ++d) {
+        row << (d < c.draws.size() ? std::optional<double>(c.draws[d]) : std::nullopt);
     }
+    for (std::size_t f = 0; f < campaign.figure_ids.size(); ++f) {
+        row << (f < c.figures.size() ? c.figures[f] : std::nullopt);
+    }
+    const auto landing = [&](double CaseLanding::*part) {
+        return c.landing ? std::optional<double>((*c.landing).*part) : std::nullopt;
+    };
+    row << landing(&CaseLanding::latitude_deg) << landing(&CaseLanding::longitude_deg)
+        << landing(&CaseLanding::downrange_m) << landing(&CaseLanding::crossrange_m);
+    std::vector<std::string> failed = c.failed_checks;
+    if (!c.error.empty())
+        failed.emplace_back("design");
+    row << std::string(c.success ? "true" : "false") << fmt::format("{}", fmt::join(failed, ";"));
+    return row.line();
+}
+
+std::string campaign_csv(const DispersionCampaign& campaign) {
+    std::string out = campaign_csv_head(campaign);
+    for (const DispersedCase& c : campaign.cases)
+        out += case_csv_row(campaign, c);
     return out;
 }
 

@@ -22,6 +22,10 @@ std::string sweep_csv(const std::vector<SweepAxis>& axes, const std::vector<Swee
 /// One row per dispersed case: its index, the drawn value of each dispersed key, the key
 /// figures, whether it succeeded and the checks that failed (separated by ";").
 std::string campaign_csv(const DispersionCampaign& campaign);
+/// Its header line, and one case's line: the parts of campaign_csv, for writing the cases as
+/// they come.
+std::string campaign_csv_head(const DispersionCampaign& campaign);
+std::string case_csv_row(const DispersionCampaign& campaign, const DispersedCase& dispersed);
 
 /// The names of campaign_csv's columns: "case", each dispersed key, each key figure,
 /// "landing_latitude_deg", "landing_longitude_deg", "landing_downrange_m",

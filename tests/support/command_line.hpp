@@ -5,6 +5,7 @@
 // test helper defines for the cli layer only.
 
 #include <sys/wait.h>
+#include <unistd.h>
 
 #include <cstdlib>
 #include <filesystem>
@@ -25,9 +26,11 @@ struct Run {
     std::string err;
 };
 
-/// A folder for the files one suite writes, made on first use.
+/// A folder for the files one suite writes, made on first use: its own for each process, since
+/// several checkouts on one machine run the same suites at once.
 inline std::filesystem::path scratch(const std::string& suite) {
-    const std::filesystem::path dir = std::filesystem::temp_directory_path() / suite;
+    const std::filesystem::path dir =
+        std::filesystem::temp_directory_path() / (suite + "-" + std::to_string(::getpid()));
     std::filesystem::create_directories(dir);
     return dir;
 }

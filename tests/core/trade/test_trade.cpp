@@ -31,6 +31,14 @@ const ds::FigureStatistics& stats(const ds::DispersionSummary& s, const std::str
     return s.figures[figure_index(id)];
 }
 
+ds::DispersionSettings campaign_settings(std::size_t runs, std::uint64_t seed, unsigned threads) {
+    ds::DispersionSettings settings;
+    settings.runs = runs;
+    settings.seed = seed;
+    settings.threads = threads;
+    return settings;
+}
+
 }  // namespace
 
 TEST_CASE("Wilson 95 % interval of 8 successes in 10 is [0.4902, 0.9433] (hand-computed)") {
@@ -104,10 +112,7 @@ TEST_CASE("the percentiles of a figure linear in a normal draw are those of the 
 
 TEST_CASE("the same seed gives the same numbers to the last digit whatever the thread count") {
     const ds::Design d = sample("small-ballistic-station");
-    ds::DispersionSettings settings;
-    settings.runs = 120;
-    settings.seed = 9;
-    settings.threads = 1;
+    ds::DispersionSettings settings = campaign_settings(120, 9, 1);
     const auto one = ds::run_dispersions(d, {}, settings).first;
     settings.threads = 2;
     const auto two = ds::run_dispersions(d, {}, settings).first;
@@ -121,6 +126,32 @@ TEST_CASE("the same seed gives the same numbers to the last digit whatever the t
     settings.seed = 10;
     const auto other = ds::run_dispersions(d, {}, settings).first;
     CHECK(other->cases[0].draws != one->cases[0].draws);
+}
+
+TEST_CASE("a campaign that keeps no cases hands them on in order and sums up to the same summary") {
+    const ds::Design d = sample("small-ballistic-station");
+    ds::DispersionSettings settings = campaign_settings(60, 5, 2);
+    settings.shard_index = 1;
+    settings.shard_count = 2;
+    const auto kept = ds::run_dispersions(d, {}, settings).first;
+    REQUIRE(kept);
+    ds::SummaryTally tally(ds::key_figure_table.size());
+    std::vector<std::size_t> handed;
+    settings.keep_cases = false;
+    settings.tally = &tally;
+    settings.on_case = [&](const ds::DispersionCampaign& campaign, const ds::DispersedCase& c) {
+        CHECK(campaign.cases.empty());
+        handed.push_back(c.index);
+    };
+    const auto streamed = ds::run_dispersions(d, {}, settings).first;
+    REQUIRE(streamed);
+    CHECK(streamed->cases.empty());
+    REQUIRE(handed.size() == kept->cases.size());
+    for (std::size_t i = 0; i < handed.size(); ++i)
+        CHECK(handed[i] == kept->cases[i].index);  // 1, 3, 5, ...: the shard's, in order
+    // Number for number: the tally runs the same sums in the same order.
+    CHECK(ds::summary_to_json(tally.summary(*streamed, 0.95)) ==
+          ds::summary_to_json(ds::summarize(*kept, 0.95)));
 }
 
 TEST_CASE("shards merged give the same campaign and summary as one run") {
@@ -303,6 +334,48 @@ TEST_CASE("design variants: key paths, numeric keys and values") {
     const ds::DesignReadResult changed = variants.with({{"entry.velocity_m_s", 6000.0}});
     REQUIRE(changed.ok());
     CHECK(changed.design->entry.velocity_m_s == 6000.0);
+}
+
+TEST_CASE("a number set in the design itself gives the strict reader's design or first error") {
+    // The frozen station has a fixed entry mass and given heat-shield and backshell masses, so
+    // the rule between the masses is in play. Each row: the keys and values, the design and
+    // the first error through the document and the reader (the reference) and through the
+    // design (prepared keys).
+    ds::Design frozen = ds::freeze_design(sample("small-ballistic-station"));
+    const ds::DesignVariants variants = ds::DesignVariants::of(frozen);
+    const double heat_shield = *frozen.mass.heat_shield_kg;
+    const std::vector<std::vector<std::pair<std::string, double>>> cases{
+        {{"entry.velocity_m_s", 5700.0}, {"mass.entry_kg", 610.0}},
+        {{"entry.flight_path_angle_deg", -95.0}},                            // out of range
+        {{"atmosphere.density_scale", -1.0}, {"entry.velocity_m_s", -5.0}},  // two: document order
+        {{"mass.entry_kg", heat_shield}},                                    // the masses' rule
+        {{"mass.entry_kg", -1.0}},                                           // refused: no rule
+        {{"mass.heat_shield_kg", 1e6}, {"entry.velocity_m_s", 0.0}},
+        {{"entry.velocity_m_s", std::nan("")}},
+        {{"site.elevation_m", 2e5}},  // a rule between keys: through the document
+        {{"entry.nothing_m", 1.0}},   // not a key: through the document
+    };
+    for (const auto& values : cases) {
+        std::vector<std::string> paths;
+        std::vector<double> numbers;
+        for (const auto& [key, value] : values) {
+            paths.push_back(key);
+            numbers.push_back(value);
+        }
+        const ds::DesignReadResult reference = variants.with_document(values);
+        const ds::DesignReadResult direct = variants.with(variants.prepare(paths), numbers);
+        CAPTURE(paths.front());
+        REQUIRE(direct.ok() == reference.ok());
+        if (reference.ok()) {
+            CHECK(*direct.design == *reference.design);
+        } else {
+            REQUIRE_FALSE(direct.errors.empty());
+            CHECK(direct.errors.front().text() == reference.errors.front().text());
+        }
+    }
+    // The plain keys are set in the design; a key a rule between keys reads is not.
+    CHECK(variants.prepare({"entry.velocity_m_s", "mass.entry_kg"}).rows.size() == 2);
+    CHECK(variants.prepare({"entry.velocity_m_s", "site.elevation_m"}).rows.empty());
 }
 
 TEST_CASE("the reader takes dispersions and names what is wrong in one") {
