@@ -10,7 +10,8 @@
 #   test_slurm_campaign.sh DESCENT_SIZER SLURM_CAMPAIGN DESIGN [RUNS] [SHARDS]
 #
 # Exits 77 (CTest's skip) where Slurm or MUNGE is not installed or the user is not root (slurmd
-# runs jobs as their user, so it must be root).
+# runs jobs as their user, so it must be root); with DESCENT_SIZER_REQUIRE_CLUSTER=1 (as CI
+# sets it) that is a failure instead.
 set -euo pipefail
 
 program=$(realpath "$1")
@@ -23,6 +24,10 @@ failing_shard=3
 timeout_s=300
 
 skip() {
+    if [[ ${DESCENT_SIZER_REQUIRE_CLUSTER:-0} == 1 ]]; then
+        echo "FAILED (DESCENT_SIZER_REQUIRE_CLUSTER=1): $*"
+        exit 1
+    fi
     echo "SKIPPED: $*"
     exit 77
 }
@@ -184,7 +189,7 @@ wait_merge() {
 
 began=$SECONDS
 "$campaign_script" start "$design" --runs "$runs" --seed "$seed" --shards "$shards" \
-    --folder "$folder" --program "$work/flaky-sizer"
+    --folder "$folder" --program "$work/flaky-sizer" -- --time=10
 wait_merge
 [[ $state == FAILED ]] || fail "the merge job should fail with shard $failing_shard missing: $state"
 [[ $(cat "$folder/missing.txt") == "$failing_shard" ]] ||
@@ -199,6 +204,8 @@ echo "the merge job reported shard $failing_shard missing ($((SECONDS - began)) 
     fail "the resubmission should run shard $failing_shard alone"
 wait_merge
 [[ $state == COMPLETED ]] || fail "the second merge job ended $state"
+scontrol --oneliner show job "$merge_job" | grep -q 'TimeLimit=00:10:00' ||
+    fail "the resubmission should keep the campaign's sbatch options (--time=10)"
 logs=("$folder"/logs/shard-*.log)
 ((${#logs[@]} == shards + 1)) || fail "expected $((shards + 1)) shard logs, found ${#logs[@]}"
 echo "the resubmitted shard and the merge ran ($((SECONDS - began)) s)"
