@@ -91,7 +91,7 @@ wait_for() {
 free_port() {
     local port
     for _ in $(seq 100); do
-        port=$((20000 + RANDOM % 20000))
+        port=$((20000 + RANDOM % 12000)) # below Linux's ephemeral ports (32768 up)
         if ! (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; then
             echo "$port"
             return
@@ -197,6 +197,8 @@ wait_merge
 grep -q "shards without a part (failed or never run): $failing_shard\$" "$folder"/logs/merge.*.log ||
     fail "the merge job's log should name shard $failing_shard"
 [[ ! -e $folder/merged.json ]] || fail "merged.json written with a shard missing"
+"$campaign_script" status "$folder" | grep -qx "shards without a part: $failing_shard" ||
+    fail "status should name shard $failing_shard: $("$campaign_script" status "$folder")"
 echo "the merge job reported shard $failing_shard missing ($((SECONDS - began)) s)"
 
 "$campaign_script" resubmit "$folder"
@@ -208,6 +210,8 @@ scontrol --oneliner show job "$merge_job" | grep -q 'TimeLimit=00:10:00' ||
     fail "the resubmission should keep the campaign's sbatch options (--time=10)"
 logs=("$folder"/logs/shard-*.log)
 ((${#logs[@]} == shards + 1)) || fail "expected $((shards + 1)) shard logs, found ${#logs[@]}"
+"$campaign_script" status "$folder" | grep -qx "every shard has its part" ||
+    fail "status should find every part: $("$campaign_script" status "$folder")"
 echo "the resubmitted shard and the merge ran ($((SECONDS - began)) s)"
 
 cmp "$work/single.json" "$folder/merged.json" ||
