@@ -45,8 +45,8 @@ passed=0
 
 stop_all() {
     local pid i
-    if ((!passed)) && [[ -f $work/campaign/jobs ]]; then
-        awk '{print $2}' "$work/campaign/jobs" | xargs -r scancel 2>/dev/null || true
+    if ((!passed)) && [[ -n ${folder-} && -f $folder/jobs ]]; then
+        awk '{print $2}' "$folder/jobs" | xargs -r scancel 2>/dev/null || true
     fi
     # The daemons, newest first, by the ids recorded when they started.
     for ((i = ${#pids[@]} - 1; i >= 0; --i)); do
@@ -62,7 +62,7 @@ stop_all() {
     if ((passed)); then
         rm -rf "$work"
     else
-        for log in "$work"/log/* "$work"/campaign/logs/*.log; do
+        for log in "$work"/log/* "$work"/*/logs/*.log; do
             [[ -f $log ]] && { echo "--- $log"; tail -n 20 "$log"; }
         done
         echo "the test's folder is kept: $work"
@@ -175,7 +175,8 @@ exec $program "\$@"
 EOF
 chmod +x "$work/flaky-sizer"
 
-folder=$work/campaign
+# The campaign's folder, as `start` names it in the current directory.
+folder=$work/$(basename "$design" .json)-$runs-runs-seed-$seed
 # Waits for the campaign's latest merge job to end; its final state in `state`.
 merge_ended() {
     state=$(scontrol --oneliner show job "$merge_job" | grep -o 'JobState=[A-Z_]*' | cut -d= -f2)
@@ -188,8 +189,9 @@ wait_merge() {
 }
 
 began=$SECONDS
-"$campaign_script" start "$design" --runs "$runs" --seed "$seed" --shards "$shards" \
-    --folder "$folder" --program "$work/flaky-sizer" -- --time=10
+(cd "$work" && "$campaign_script" start "$design" --runs "$runs" --seed "$seed" \
+    --shards "$shards" --program "$work/flaky-sizer" -- --time=10)
+[[ -f $folder/campaign.conf ]] || fail "no campaign folder $folder"
 wait_merge
 [[ $state == FAILED ]] || fail "the merge job should fail with shard $failing_shard missing: $state"
 [[ $(cat "$folder/missing.txt") == "$failing_shard" ]] ||
