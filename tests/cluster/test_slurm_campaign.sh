@@ -100,16 +100,17 @@ free_port() {
     fail "no free port found"
 }
 
-mkdir -p "$work"/{munge,log,spool,state}
-chmod 700 "$work/munge"
+mkdir -p "$work"/{munge,munge-key,log,spool,state}
+chmod 700 "$work/munge-key"
 
-# MUNGE, with its own key and socket.
-dd if=/dev/urandom of="$work/munge/munge.key" bs=1024 count=1 status=none
-chmod 400 "$work/munge/munge.key"
+# MUNGE, with its own key (readable by root alone) and socket (in a folder all may enter, as
+# munged requires).
+dd if=/dev/urandom of="$work/munge-key/munge.key" bs=1024 count=1 status=none
+chmod 400 "$work/munge-key/munge.key"
 socket=$work/munge/munge.socket
-munged --foreground --force --socket="$socket" --key-file="$work/munge/munge.key" \
+munged --foreground --socket="$socket" --key-file="$work/munge-key/munge.key" \
     --pid-file="$work/munge/munged.pid" --log-file="$work/log/munged.log" \
-    --seed-file="$work/munge/munged.seed" >>"$work/log/munged.out" 2>&1 &
+    --seed-file="$work/munge-key/munged.seed" >>"$work/log/munged.out" 2>&1 &
 pids+=($!)
 wait_for "munged's socket" test -S "$socket"
 
