@@ -76,13 +76,17 @@ fail() {
     exit 1
 }
 
-# Waits, at most until the deadline, for a command to succeed.
+# Waits, at most until the deadline and while every daemon started lives, for a command to
+# succeed.
 deadline=$((SECONDS + timeout_s))
 wait_for() {
-    local what=$1
+    local what=$1 pid
     shift
     until "$@"; do
         ((SECONDS < deadline)) || fail "timed out waiting for $what"
+        for pid in "${pids[@]}"; do
+            kill -0 "$pid" 2>/dev/null || fail "a daemon (pid $pid) exited while waiting for $what"
+        done
         sleep 0.2
     done
 }
