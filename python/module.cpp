@@ -29,7 +29,7 @@ PYBIND11_MODULE(descent_sizer, m) {
 system, from Python. The results are conceptual estimates, to be confirmed by detailed
 analysis and test.
 
-size() sizes a design; sweep(), disperse(), merge(), sensitivity() and corridor() are the
+size() sizes a design; sweep(), disperse(), merge(), sensitivity(), corridor() and optimise() are the
 command line's trade studies; atmosphere(), sphere_cone_drag_coefficient(), sutton_graves(),
 canopy_drag_coefficient(), canopy_types() and body_presets() are models of the core. A design
 is a dict (the design document) or a path to a design file; a design that cannot be read

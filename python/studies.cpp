@@ -343,6 +343,39 @@ dispersions the success at each bound and at the centre (runs cases each, 0 for 
 
 speeds: values of the speed key (a list, or "5000:6500:7" as the command line takes it);
 None for the design's own.)");
+
+    m.def(
+        "optimise",
+        [](py::object design, py::dict vary, std::string minimise, std::string maximise,
+           std::size_t budget, std::size_t starts, double tolerance, std::uint64_t seed,
+           unsigned threads, py::object base_directory) {
+            const DesignInput input = read_design_input(design, base_directory);
+            StudyRequest request;
+            request.kind = StudyKind::optimisation;
+            for (const auto& [key, bounds] : vary) {
+                const auto pair = bounds.cast<std::pair<double, double>>();
+                request.bounds.push_back({key.cast<std::string>(), pair.first, pair.second});
+            }
+            if (!minimise.empty() && !maximise.empty())
+                throw py::value_error("give minimise or maximise, not both");
+            request.objective.maximise = !maximise.empty();
+            request.objective.figure =
+                !maximise.empty() ? maximise : (minimise.empty() ? "entry_mass" : minimise);
+            request.budget = budget;
+            request.starts = starts;
+            request.tolerance = tolerance;
+            request.seed = seed;
+            return to_python(run(input, request, threads).json());
+        },
+        "design"_a, "vary"_a, py::kw_only(), "minimise"_a = "", "maximise"_a = "", "budget"_a = 800,
+        "starts"_a = 4, "tolerance"_a = 1e-4, "seed"_a = 1, "threads"_a = 0,
+        "base_directory"_a = py::none(),
+        R"(The design that minimises (or maximises) a key figure with every check passing, as
+`descent-sizer optimise --json`: each key's design value and optimum, what binds, and the
+optimum's design document.
+
+vary: {key: (low, high)}; minimise or maximise: a key figure's id (default: minimise
+entry_mass).)");
 }
 
 }  // namespace ds::python

@@ -128,6 +128,17 @@ def test_the_corridor_is_the_command_lines(ds):
     assert [row["speed"] for row in expected["speeds"]] == [5400, 5800]
 
 
+def test_an_optimisation_is_the_command_lines(ds):
+    expected = run_command("optimise", STATION, "--vary", "aeroshell.diameter_m=1.8:3.5",
+                           "--maximise", "unallocated_mass", "--json").json()
+    found = ds.optimise(STATION, {"aeroshell.diameter_m": (1.8, 3.5)},
+                        maximise="unallocated_mass")
+    assert found == expected
+    assert found["feasible"]
+    assert found["optimum_objective"] > found["design_objective"]
+    assert found["binding"][0]["id"] == "deploy_dynamic_pressure_high"
+
+
 def test_a_dict_design_runs_the_same_study_as_its_file(ds):
     design = json.loads(STATION.read_text())
     assert ds.disperse(design, runs=8, seed=2) == ds.disperse(STATION, runs=8, seed=2)
