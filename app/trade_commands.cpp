@@ -487,10 +487,14 @@ void printOptimisation(const StudyOutcome& outcome) {
     const std::string unit = figureUnit(figure);
     fmt::print("{}: {} sizings in {} starts, {:.2f} s.\n\n", outcome.description(), o.sizings,
                o.settings.starts, outcome.seconds);
-    fmt::print("{:<48} {:>12} {:>12} {:>12} {:>12}\n", "key", "low", "high", "design", "optimum");
+    std::size_t width = 24;  // the keys' column, as wide as the longest key
+    for (const OptimisedKey& k : o.settings.keys)
+        width = std::max(width, k.key.size());
+    fmt::print("{:<{}} {:>12} {:>12} {:>12} {:>12}\n", "key", width, "low", "high", "design",
+               "optimum");
     for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
         const OptimisedKey& k = o.settings.keys[i];
-        fmt::print("{:<48} {:>12.6g} {:>12.6g} {:>12.6g} {:>12}\n", k.key, k.low, k.high,
+        fmt::print("{:<{}} {:>12.6g} {:>12.6g} {:>12.6g} {:>12}\n", k.key, width, k.low, k.high,
                    o.start_inputs[i], o.feasible ? fmt::format("{:.6g}", o.best_inputs[i]) : "-");
     }
     fmt::print("\n{}: the design {} {} ({}), ", figure, valueText(o.start_objective, 2), unit,
@@ -518,7 +522,7 @@ void printOptimisation(const StudyOutcome& outcome) {
     fmt::print("\nNormalised sensitivity of {} at the optimum, d ln {} / d ln key:\n", figure,
                figure);
     for (std::size_t i = 0; i < o.settings.keys.size(); ++i)
-        fmt::print("  {:<48} {:>+10.4f}\n", o.settings.keys[i].key,
+        fmt::print("  {:<{}} {:>+10.4f}\n", o.settings.keys[i].key, width,
                    o.sensitivities[i].value_or(std::nan("")));
 }
 
