@@ -139,6 +139,28 @@ QString corridorSummary(const EntryCorridor& c) {
            QStringLiteral("<br>") + lines.join(QStringLiteral("<br>"));
 }
 
+/// A results page of a summary in words above a chart.
+struct SummaryPage {
+    QWidget* page;
+    QLabel* summary;
+    QChartView* chart;
+    QVBoxLayout* layout;
+};
+
+SummaryPage summaryPage(QWidget* parent) {
+    SummaryPage p;
+    p.page = new QWidget(parent);
+    p.summary = new QLabel(p.page);
+    p.summary->setWordWrap(true);
+    p.summary->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    p.chart = chartView(p.page);
+    p.layout = new QVBoxLayout(p.page);
+    p.layout->setContentsMargins(0, 0, 0, 0);
+    p.layout->addWidget(p.summary);
+    p.layout->addWidget(p.chart, 1);
+    return p;
+}
+
 /// What an optimisation found, in words: the figure at the design and at the optimum, each
 /// key's optimum, what binds there; or that no passing design was found, and what still failed.
 QString optimisationSummary(const Optimisation& o) {
@@ -364,43 +386,35 @@ void TradeView::buildPages() {
     dispersionGrid->addWidget(m_landing, 1, 2);
     dispersionGrid->setRowStretch(1, 1);
     m_sensitivity = chartView(this);
-    auto* corridorResults = new QWidget(this);
-    m_corridorSummary = new QLabel(corridorResults);
-    m_corridorSummary->setWordWrap(true);
-    m_corridorSummary->setTextInteractionFlags(Qt::TextSelectableByMouse);
-    m_corridor = chartView(corridorResults);
+    const SummaryPage corridorResults = summaryPage(this);
+    m_corridorSummary = corridorResults.summary;
+    m_corridor = corridorResults.chart;
     m_corridor->setObjectName(QStringLiteral("corridorBand"));
-    auto* corridorLayout = new QVBoxLayout(corridorResults);
-    corridorLayout->setContentsMargins(0, 0, 0, 0);
-    corridorLayout->addWidget(m_corridorSummary);
-    corridorLayout->addWidget(m_corridor, 1);
     m_pages->insertWidget(introPage, intro);
     m_pages->insertWidget(linePage, m_line);
     m_pages->insertWidget(mapPage, m_map);
     m_pages->insertWidget(dispersionPage, dispersionResults);
     m_pages->insertWidget(sensitivityPage, m_sensitivity);
-    m_pages->insertWidget(corridorPage, corridorResults);
+    m_pages->insertWidget(corridorPage, corridorResults.page);
 
-    auto* optimisationResults = new QWidget(this);
-    m_optimisationSummary = new QLabel(optimisationResults);
-    m_optimisationSummary->setWordWrap(true);
-    m_optimisationSummary->setTextInteractionFlags(Qt::TextSelectableByMouse);
-    m_convergence = chartView(optimisationResults);
+    const SummaryPage optimisationResults = summaryPage(this);
+    m_optimisationSummary = optimisationResults.summary;
+    m_convergence = optimisationResults.chart;
     m_convergence->setObjectName(QStringLiteral("convergence"));
-    m_applyOptimum = new QPushButton(tr("Apply the optimum to the design"), optimisationResults);
+    m_applyOptimum =
+        new QPushButton(tr("Apply the optimum to the design"), optimisationResults.page);
     m_applyOptimum->setObjectName(QStringLiteral("applyOptimum"));
     m_applyOptimum->setToolTip(
         tr("Sets the varied keys to the optimum's values, as one edit "
            "that Undo takes back"));
     connect(m_applyOptimum, &QPushButton::clicked, this, &TradeView::applyOptimum);
-    auto* optimisationLayout = new QVBoxLayout(optimisationResults);
-    optimisationLayout->setContentsMargins(0, 0, 0, 0);
+    // The button beside the summary, at its top.
+    optimisationResults.layout->removeWidget(m_optimisationSummary);
     auto* top = new QHBoxLayout;
     top->addWidget(m_optimisationSummary, 1);
     top->addWidget(m_applyOptimum, 0, Qt::AlignTop);
-    optimisationLayout->addLayout(top);
-    optimisationLayout->addWidget(m_convergence, 1);
-    m_pages->insertWidget(optimisationPage, optimisationResults);
+    optimisationResults.layout->insertLayout(0, top);
+    m_pages->insertWidget(optimisationPage, optimisationResults.page);
 }
 
 void TradeView::connectControls() {

@@ -231,6 +231,24 @@ OdeintBurn odeint_burn(const GravityTurn& s, const ds::BurnRequest& r, double th
     }
 }
 
+/// The burn solved by the project at a drag kept, and flown by the reference at its throttle.
+struct SolvedTurn {
+    GravityTurn s;
+    ds::BurnRequest request;
+    ds::ThrottledBurn solved;
+    OdeintBurn reference;
+};
+
+SolvedTurn solved_turn(double drag_kept) {
+    SolvedTurn t;
+    t.request = t.s.request(drag_kept);
+    t.solved = ds::solve_burn_throttle(t.s.model(), t.request, t.s.full_thrust_N, 0.2, tight(), 0.0,
+                                       t.s.ignition);
+    REQUIRE(t.solved.burn.stops_in_time);
+    t.reference = odeint_burn(t.s, t.request, t.solved.burn.throttle);
+    return t;
+}
+
 double mechanical_energy(const ds::Body& body, const ds::FlightState& y) {
     return 0.5 * ds::speed(y) * ds::speed(y) -
            body.mu_m3_s2 / (body.radius_m + y[ds::StateIndex::altitude]);
@@ -239,15 +257,14 @@ double mechanical_energy(const ds::Body& body, const ds::FlightState& y) {
 }  // namespace
 
 TEST_CASE("a gravity turn into the flow with drag agrees with Boost.Odeint to 1e-5") {
-    const GravityTurn s;
-    const ds::BurnRequest r = s.request(0.5);
-    const ds::ThrottledBurn solved =
-        ds::solve_burn_throttle(s.model(), r, s.full_thrust_N, 0.2, tight(), 0.0, s.ignition);
-    REQUIRE(solved.burn.stops_in_time);
+    const SolvedTurn turn = solved_turn(0.5);
+    const GravityTurn& s = turn.s;
+    const ds::BurnRequest& r = turn.request;
+    const ds::ThrottledBurn& solved = turn.solved;
+    const OdeintBurn& reference = turn.reference;
     REQUIRE_FALSE(solved.too_strong);
     CHECK(solved.burn.throttle > 0.2);
     CHECK(solved.burn.throttle < 1.0);
-    const OdeintBurn reference = odeint_burn(s, r, solved.burn.throttle);
     const double burned = s.mass_kg - reference.end[ds::StateIndex::mass];
     CHECK(solved.burn.burn_time_s == doctest::Approx(reference.end_time_s).epsilon(1e-5));
     CHECK(solved.burn.burned_kg == doctest::Approx(burned).epsilon(1e-5));
@@ -267,12 +284,10 @@ TEST_CASE("a gravity turn into the flow with drag agrees with Boost.Odeint to 1e
 }
 
 TEST_CASE("with no drag kept, the mechanical energy lost over the burn is the thrust's work") {
-    const GravityTurn s;
-    const ds::BurnRequest r = s.request(0.0);
-    const ds::ThrottledBurn solved =
-        ds::solve_burn_throttle(s.model(), r, s.full_thrust_N, 0.2, tight(), 0.0, s.ignition);
-    REQUIRE(solved.burn.stops_in_time);
-    const OdeintBurn reference = odeint_burn(s, r, solved.burn.throttle);
+    const SolvedTurn turn = solved_turn(0.0);
+    const GravityTurn& s = turn.s;
+    const ds::ThrottledBurn& solved = turn.solved;
+    const OdeintBurn& reference = turn.reference;
     const double work_per_kg = reference.end.back();
     const double lost =
         mechanical_energy(s.body, s.ignition) - mechanical_energy(s.body, solved.burn.end_state);
