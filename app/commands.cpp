@@ -17,8 +17,9 @@
 namespace ds {
 namespace {
 
-// Exit codes: 0 sized (even with failing checks), 2 a document that cannot be read,
-// 3 an internal error (a bug: please report it with the design).
+// Exit codes: 0 sized (even with failing checks), 1 arguments refused, 2 a document that cannot
+// be read, 3 an internal error (a bug: please report it with the design).
+constexpr int exit_usage = 1;
 constexpr int exit_unreadable = 2;
 constexpr int exit_internal = 3;
 
@@ -76,7 +77,9 @@ int runCommand(int argc, char** argv) {
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
-        return app.exit(e);
+        // Help and the version exit 0; every argument the parser refuses exits 1 (usage), as
+        // the commands' own checks do, whatever CLI11's own code for it.
+        return app.exit(e) == 0 ? 0 : exit_usage;
     }
     try {
         if (const int code = runTrade(); code >= 0)

@@ -3,8 +3,8 @@
 namespace ds {
 
 /// The command line: `size`, the trade studies, and `sheet` (handed to the window's program).
-/// Returns the exit code: 0 sized (even with failing checks), 2 a document that cannot be read,
-/// 3 an internal error.
+/// Returns the exit code: 0 sized (even with failing checks), 1 arguments refused (before any
+/// work), 2 a document that cannot be read, 3 an internal error.
 int runCommand(int argc, char** argv);
 
 }  // namespace ds

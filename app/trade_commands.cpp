@@ -348,6 +348,23 @@ int runStudyCommand(const Options& o, StudyRequest request,
     return 0;
 }
 
+/// Refuses, before any case runs, keys that a study cannot set: neither a number of the
+/// design nor a number key of the design format (a misspelling).
+std::optional<int> refuseUnknownKeys(const StudyDesign& file, const std::vector<std::string>& keys,
+                                     std::string_view option) {
+    const DesignVariants variants(file.document, std::filesystem::path(file.path).parent_path());
+    for (const std::string& key : keys) {
+        if (!variants.settable(key)) {
+            fmt::print(stderr,
+                       "{} {}: not a number of the design or a number key of the design format "
+                       "(keys are paths such as aeroshell.diameter_m or mass.items[0].mass_kg)\n",
+                       option, key);
+            return exit_usage;
+        }
+    }
+    return std::nullopt;
+}
+
 int sweepCommand(const Options& o) {
     StudyRequest request;
     request.kind = StudyKind::sweep;
@@ -360,9 +377,17 @@ int sweepCommand(const Options& o) {
         }
         request.axes.push_back(*axis);
     }
-    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(outcome, formatOf(o.json, o.csv), [&] { printSweepTable(outcome); });
-    });
+    return runStudyCommand(
+        o, request,
+        [&](const StudyOutcome& outcome) {
+            printStudy(outcome, formatOf(o.json, o.csv), [&] { printSweepTable(outcome); });
+        },
+        [&](const StudyDesign& file, StudyRequest& r) -> std::optional<int> {
+            std::vector<std::string> keys;
+            for (const SweepAxis& axis : r.axes)
+                keys.push_back(axis.key);
+            return refuseUnknownKeys(file, keys, "--vary");
+        });
 }
 
 int disperseCommand(const Options& o) {
@@ -408,6 +433,12 @@ int mergeCommand(const Options& o) {
         try {
             const Json j = Json::parse(in);
             part = campaign_from_json(j.contains("campaign") ? j.at("campaign") : j, &error);
+        } catch (const Json::parse_error&) {
+            // What a shard leaves when its run failed or was cut short: nothing, or a part.
+            error = in.gcount() == 0 && std::filesystem::file_size(path) == 0
+                        ? "empty: not a disperse --json output (did its shard's run fail?)"
+                        : "not a whole disperse --json output (cut short: did its shard's run "
+                          "finish?)";
         } catch (const Json::exception& e) {
             error = e.what();
         }
@@ -430,10 +461,15 @@ int sensitivityCommand(const Options& o) {
     StudyRequest request;
     request.kind = StudyKind::sensitivities;
     request.inputs = o.inputs;
-    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
-        printStudy(outcome, formatOf(o.json, o.csv),
-                   [&] { printSensitivityRanking(*outcome.sensitivities); });
-    });
+    return runStudyCommand(
+        o, request,
+        [&](const StudyOutcome& outcome) {
+            printStudy(outcome, formatOf(o.json, o.csv),
+                       [&] { printSensitivityRanking(*outcome.sensitivities); });
+        },
+        [&](const StudyDesign& file, StudyRequest& r) {
+            return refuseUnknownKeys(file, r.inputs, "--inputs");
+        });
 }
 
 int corridorCommand(const Options& o) {
@@ -592,10 +628,13 @@ std::function<int()> addTradeCommands(CLI::App& app) {
     disperse->add_option("design", o->design, "Design document with \"dispersions\"")
         ->required()
         ->check(CLI::ExistingFile);
-    disperse->add_option("--runs", o->runs, "Number of dispersed cases")->default_val(1000);
+    disperse->add_option("--runs", o->runs, "Number of dispersed cases")
+        ->default_val(1000)
+        ->check(CLI::Range(std::size_t{1}, std::size_t{100000000}));
     disperse->add_option("--seed", o->seed, "Seed: the same seed gives the same numbers")
         ->default_val(1);
-    disperse->add_option("--shard", o->shard, "I/N: run the I-th of N slices (for a batch array)");
+    disperse->add_option("--shard", o->shard,
+                         "I/N: run slice I of N, I from 0 to N-1 (for a batch array)");
     disperse->add_option("--threads", o->threads, "Threads (default: one per core)");
     disperse->add_flag("--json", o->json, "The summary and every case as JSON (what merge reads)");
     disperse->add_flag(

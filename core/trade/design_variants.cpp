@@ -165,4 +165,13 @@ std::vector<std::string> DesignVariants::numeric_keys() const {
     return number_paths(document_, trade_inputs_under);
 }
 
+bool DesignVariants::settable(std::string_view key) const {
+    if (value(key))
+        return true;
+    const KeyRow* row = find_key(key);
+    return row && row->number.set &&
+           (row->kind == KeyKind::number || row->kind == KeyKind::integer ||
+            row->kind == KeyKind::number_or_request);
+}
+
 }  // namespace ds

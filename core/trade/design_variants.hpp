@@ -57,6 +57,10 @@ public:
     /// (version), the limits and the solver settings: the inputs of a sensitivity study.
     std::vector<std::string> numeric_keys() const;
 
+    /// Whether a study can set the key: a number the document holds, or a number key of the
+    /// schema the document leaves out (it is then added). A misspelt key is neither.
+    bool settable(std::string_view key) const;
+
 private:
     nlohmann::ordered_json document_;
     std::filesystem::path base_directory_;

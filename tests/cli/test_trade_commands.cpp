@@ -264,15 +264,29 @@ TEST_CASE("trade commands: a bad range or shard exits 1 and says what was expect
 }
 
 TEST_CASE("trade commands: a bad key is named, by the refused cases or with exit 2") {
-    // A sweep of a key the design format does not have runs, and every case says why it
-    // cannot be read.
-    const Json rows = Json::parse(output("sweep " + sample("small-ballistic-station") +
-                                         " --vary entry.no_such_key=1:2:2 --json"))["rows"];
-    REQUIRE(rows.size() == 2);
-    for (const Json& row : rows) {
-        CHECK(row["error"].get<std::string>().find("entry.no_such_key") != std::string::npos);
-        CHECK(row["worst_status"] == "fail");
-    }
+    // A sweep of a key the design format does not have (a misspelling), or sensitivities to
+    // one, is refused before any case runs, with exit 1.
+    const Run misspelt = run("sweep " + sample("small-ballistic-station") +
+                             " --vary entry.no_such_key=1:2:2 --json");
+    CHECK(misspelt.exit_code == 1);
+    CHECK(misspelt.out.empty());
+    CHECK(misspelt.err.find("--vary entry.no_such_key: not a number") != std::string::npos);
+    const Run nonsense =
+        run("sensitivity " + sample("small-ballistic-station") + " --inputs nonsense");
+    CHECK(nonsense.exit_code == 1);
+    CHECK(nonsense.out.empty());
+    CHECK(nonsense.err.find("--inputs nonsense: not a number") != std::string::npos);
+    // A number key of the format that the design leaves out can be swept: it is added.
+    const Json added = Json::parse(output("sweep " + sample("small-ballistic-station") +
+                                          " --vary parachute.mass_kg=20:30:2 --json"))["rows"];
+    REQUIRE(added.size() == 2);
+    CHECK(added[0]["worst_status"] != "fail");
+    // No cases, or an option the parser refuses, is a usage error (1), as the documented codes
+    // say, not the parser library's own code.
+    const Run none = run("disperse " + sample("small-ballistic-station") + " --runs 0");
+    CHECK(none.exit_code == 1);
+    CHECK(none.err.find("--runs") != std::string::npos);
+    CHECK(run("sweep " + sample("small-ballistic-station") + " --no-such-option").exit_code == 1);
     // A dispersion of a key that is not a number of the design stops the campaign.
     const Run dispersed = run(
         "disperse " +
@@ -296,10 +310,10 @@ TEST_CASE("trade commands: a bad key is named, by the refused cases or with exit
         CHECK(r.err.find("entry.velocity_m_s") != std::string::npos);
         CHECK(r.out.empty());
     }
-    const Run none = run("disperse " + variant("small-ballistic-station", "no-dispersions",
-                                               [](Json& d) { d.erase("dispersions"); }));
-    CHECK(none.exit_code == 1);
-    CHECK(none.err.find("the design has no \"dispersions\"") != std::string::npos);
+    const Run undeclared = run("disperse " + variant("small-ballistic-station", "no-dispersions",
+                                                     [](Json& d) { d.erase("dispersions"); }));
+    CHECK(undeclared.exit_code == 1);
+    CHECK(undeclared.err.find("the design has no \"dispersions\"") != std::string::npos);
 }
 
 TEST_CASE("merge: parts that are not shards of one campaign exit 2 and say why") {
@@ -312,6 +326,14 @@ TEST_CASE("merge: parts that are not shards of one campaign exit 2 and say why")
     const Run half = run("merge " + first);
     CHECK(half.exit_code == 2);
     CHECK(half.err.find("case 1 is missing") != std::string::npos);
+    // What a failed or cut-short shard leaves: an empty file, or the start of its output.
+    const Run empty = run("merge " + saved("empty.json", ""));
+    CHECK(empty.exit_code == 2);
+    CHECK(empty.err.find("empty: not a disperse --json output") != std::string::npos);
+    const Run cut =
+        run("merge " + saved("cut.json", output(args + " --seed 1 --shard 0/2").substr(0, 300)));
+    CHECK(cut.exit_code == 2);
+    CHECK(cut.err.find("not a whole disperse --json output") != std::string::npos);
     const Run design = run("merge " + sample("earth-return-capsule"));
     CHECK(design.exit_code == 2);
     CHECK(design.err.find("not a dispersion campaign") != std::string::npos);
