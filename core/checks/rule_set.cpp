@@ -8,8 +8,28 @@
 namespace ds {
 namespace {
 
+/// Four significant digits, as {:.4g} gives them, but without an exponent from a thousandth up
+/// to a billion: "17730 kg", not "1.773e+04 kg" (a heavy lander's masses, a dynamic pressure in
+/// Pa); trailing zeros dropped ("15", "4.6").
+std::string four_digits(double value) {
+    if (value == 0.0 || !std::isfinite(value))
+        return fmt::format("{:.4g}", value);
+    const int exponent = static_cast<int>(std::floor(std::log10(std::abs(value))));
+    if (exponent < -3 || exponent >= 9)
+        return fmt::format("{:.4g}", value);
+    const int decimals = std::max(0, 3 - exponent);
+    const double scale = std::pow(10.0, exponent - 3);
+    std::string text = fmt::format("{:.{}f}", std::round(value / scale) * scale, decimals);
+    if (text.find('.') != std::string::npos) {
+        text.erase(text.find_last_not_of('0') + 1);
+        if (text.back() == '.')
+            text.pop_back();
+    }
+    return text;
+}
+
 std::string number(double value, std::string_view unit) {
-    return unit.empty() ? fmt::format("{:.4g}", value) : fmt::format("{:.4g} {}", value, unit);
+    return unit.empty() ? four_digits(value) : fmt::format("{} {}", four_digits(value), unit);
 }
 
 /// `beyond` is how far value lies past the limit as a fraction of it (positive = past it).

@@ -63,3 +63,17 @@ TEST_CASE("checks are ordered failing first, then marginal, keeping their order 
         order += c.id;
     CHECK(order == "cebad");
 }
+
+TEST_CASE("a check's numbers read in four digits without an exponent (a heavy lander's masses)") {
+    const LimitRule mass{"landed_mass", "landed mass", "kg", Severity::envelope, "test"};
+    CHECK(ds::check_at_most(mass, 17730.4, 600.0, 0.1).message ==
+          "landed mass 17730 kg is above the heritage envelope's 600 kg: beyond today's "
+          "demonstrated technology");
+    const LimitRule pressure{"q", "dynamic pressure", "Pa", Severity::physics, "test"};
+    CHECK(ds::check_at_most(pressure, 1288.27, 15000.0, 0.1).message ==
+          "dynamic pressure 1288 Pa is within the limit of 15000 Pa");
+    CHECK(ds::check_at_most(physics, 0.94238, 15.0, 0.1).message ==
+          "peak deceleration 0.9424 g is within the limit of 15 g");
+    CHECK(ds::check_at_most(physics, 2.5e-5, 4.6, 0.1).message.find("2.5e-05 g") !=
+          std::string::npos);
+}
