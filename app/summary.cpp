@@ -253,9 +253,11 @@ void write_timeline(std::string& out, const Results& results) {
                        ev.time_s, ev.name, ev.altitude_m, ev.velocity_m_s, ev.latitude_deg,
                        ev.longitude_deg, kilometres(ev.downrange_m), kilometres(ev.crossrange_m));
     }
+    const TerminalMethod method = results.terminal.method;
     row(out,
-        results.terminal.powered_descent ? "time from ignition to touchdown"
-                                         : "time from deploy to the burn",
+        method == TerminalMethod::supersonic_retro ? "time from ignition to touchdown"
+        : method == TerminalMethod::none           ? "time from deploy to touchdown"
+                                                   : "time from deploy to the burn",
         results.timeline.available_s, "s", 1);
     row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
     row(out, "timeline margin", results.timeline.margin_s, "s", 1);
