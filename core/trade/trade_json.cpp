@@ -118,7 +118,6 @@ Json corridor_to_json(const EntryCorridor& c) {
 }
 
 nlohmann::ordered_json optimisation_to_json(const Optimisation& o) {
-    using Json = nlohmann::ordered_json;
     Json keys = Json::array();
     for (std::size_t i = 0; i < o.settings.keys.size(); ++i) {
         const OptimisedKey& k = o.settings.keys[i];
