@@ -5,7 +5,7 @@
 set -eu
 
 packages="cmake ninja-build g++ pkg-config
-libeigen3-dev libfmt-dev nlohmann-json3-dev libboost-dev libcli11-dev doctest-dev libnlopt-dev
+libeigen3-dev libfmt-dev nlohmann-json3-dev libboost-dev libcli11-dev doctest-dev libnlopt-dev libnlopt-cxx-dev
 qt6-base-dev libqt6opengl6-dev qt6-charts-dev qt6-qpa-plugins fonts-dejavu-core
 python3-dev pybind11-dev python3-numpy python3-pytest"
 
