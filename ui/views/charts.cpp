@@ -164,6 +164,9 @@ void shadeBurn(const TimeChart& c, const Results& results) {
     band->setBrush(burnFill);
     band->setPen(Qt::NoPen);
     attach(c.chart, band, c.time, c.left);
+    // Its colour is the burn's of the altitude chart's legend: the time charts' legends, short
+    // of room already, leave it out.
+    hideFromLegend(c.chart, band);
 }
 
 /// A single marked point with its label written beside it; kept out of the legend.
