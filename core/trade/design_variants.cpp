@@ -166,8 +166,12 @@ std::vector<std::string> DesignVariants::numeric_keys() const {
 }
 
 bool DesignVariants::settable(std::string_view key) const {
-    if (value(key))
-        return true;
+    try {
+        if (value(key))
+            return true;
+    } catch (const nlohmann::json::exception&) {
+        return false;  // not a path at all ("aeroshell.diam~eter_m")
+    }
     const KeyRow* row = find_key(key);
     return row && row->number.set &&
            (row->kind == KeyKind::number || row->kind == KeyKind::integer ||

@@ -2,8 +2,10 @@
 // distributions, reproducibility across threads and shards, and closed-form sensitivities.
 
 #include <algorithm>
+#include <atomic>
 #include <cmath>
 #include <fstream>
+#include <stdexcept>
 #include <string>
 
 #include <doctest/doctest.h>
@@ -13,6 +15,7 @@
 #include "sizing/size.hpp"
 #include "support/samples.hpp"
 #include "trade/dispersion.hpp"
+#include "trade/parallel.hpp"
 #include "trade/sensitivity.hpp"
 #include "trade/sweep.hpp"
 
@@ -394,4 +397,23 @@ TEST_CASE("the reader takes dispersions and names what is wrong in one") {
     REQUIRE(bad.errors.size() == 2);
     CHECK(bad.errors[0].path == "dispersions[0].distribution");
     CHECK(bad.errors[1].path == "dispersions[2].max");
+}
+
+TEST_CASE("an exception in a case reaches the caller of parallel_for, after every thread ends") {
+    std::atomic<int> ran{0};
+    const auto throwing = [&](std::size_t i) {
+        ++ran;
+        if (i == 3)
+            throw std::runtime_error("case 3");
+    };
+    for (const unsigned threads : {1u, 2u, 4u}) {
+        CAPTURE(threads);
+        ran = 0;
+        CHECK_THROWS_WITH(ds::parallel_for(1000, threads, nullptr, throwing), "case 3");
+        CHECK(ran < 1000);  // the handing out stopped
+    }
+    // And without one, every case runs.
+    ran = 0;
+    CHECK(ds::parallel_for(100, 2, nullptr, [&](std::size_t) { ++ran; }));
+    CHECK(ran == 100);
 }
