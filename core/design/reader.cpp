@@ -1239,6 +1239,11 @@ bool nested_deeper_than(std::string_view text, std::size_t limit) {
     return false;
 }
 
+std::string too_deep_message() {
+    return fmt::format("arrays and objects nest more than {} levels deep: not a design document",
+                       max_nesting_depth);
+}
+
 /// "line L, column C: what" for a JSON syntax error.
 std::string parse_message(const Json::exception& error, std::string_view text) {
     const std::string what = error.what();
@@ -1278,15 +1283,24 @@ DesignReadResult read_parsed(const Json& document, const std::filesystem::path& 
 
 }  // namespace
 
+std::optional<nlohmann::ordered_json> parse_design_text(std::string_view json_text,
+                                                        std::string* error) {
+    if (nested_deeper_than(json_text, max_nesting_depth)) {
+        *error = too_deep_message();
+        return std::nullopt;
+    }
+    try {
+        return Json::parse(json_text.begin(), json_text.end());
+    } catch (const Json::exception& e) {
+        *error = parse_message(e, json_text);
+        return std::nullopt;
+    }
+}
+
 DesignReadResult read_design(std::string_view json_text,
                              const std::filesystem::path& base_directory) {
-    if (nested_deeper_than(json_text, max_nesting_depth)) {
-        return {std::nullopt,
-                {ReadError{{},
-                           fmt::format("arrays and objects nest more than {} levels deep: "
-                                       "not a design document",
-                                       max_nesting_depth)}}};
-    }
+    if (nested_deeper_than(json_text, max_nesting_depth))
+        return {std::nullopt, {ReadError{{}, too_deep_message()}}};
     Issues issues;
     DuplicateKeys duplicates(issues);
     Json document;

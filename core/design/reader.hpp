@@ -41,6 +41,13 @@ DesignReadResult read_design(std::string_view json_text,
 DesignReadResult read_design_document(const nlohmann::ordered_json& document,
                                       const std::filesystem::path& base_directory = {});
 
+/// The text of a design document parsed, with the reader's guard on how deep arrays and
+/// objects nest (a deeper document would exhaust the stack of whoever walks it): the one parse
+/// that every path opening a document goes through (the window's too). Empty, with the
+/// reader's message in `error`, when it is too deep or not JSON.
+std::optional<nlohmann::ordered_json> parse_design_text(std::string_view json_text,
+                                                        std::string* error);
+
 /// Reads a design file; its folder is the base for relative paths inside it.
 DesignReadResult read_design_file(const std::filesystem::path& file);
 

@@ -4,7 +4,9 @@
 
 #include <QApplication>
 #include <QComboBox>
+#include <QFile>
 #include <QTableWidget>
+#include <QTemporaryDir>
 #include <QTest>
 #include <QUndoStack>
 #include <QWheelEvent>
@@ -268,6 +270,23 @@ private slots:
         QCOMPARE(document.value("/terminal/isp_s").get<double>(), 220.0);
         QVERIFY(document.value("/terminal/method") == Json("retro"));
         QCOMPARE(method->currentIndex(), 0);
+    }
+
+    void aDocumentNestedTooDeepIsRefusedNotWalked() {
+        // Regression: the window parsed without the reader's nesting guard, and walking a
+        // document nested a hundred thousand levels deep overflowed the stack.
+        QTemporaryDir dir;
+        const QString path = dir.filePath("deep.json");
+        QFile file(path);
+        QVERIFY(file.open(QIODevice::WriteOnly));
+        const int depth = 100000;
+        file.write(QByteArray("{\"name\": ") + QByteArray(depth, '[') + QByteArray(depth, ']') +
+                   "}");
+        file.close();
+        DesignDocument document;
+        QString error;
+        QVERIFY(!document.open(path, &error));
+        QVERIFY2(error.contains("nest more than 64 levels"), qPrintable(error));
     }
 
     void aPoweredDescentFromTheEntryTakesTheParachuteAwayAndBack() {

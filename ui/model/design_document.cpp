@@ -68,19 +68,15 @@ bool DesignDocument::open(const QString& path, QString* error) {
         return false;
     }
     const QByteArray bytes = file.readAll();
-    Json json;
-    try {
-        json = Json::parse(bytes.constData(), bytes.constData() + bytes.size());
-    } catch (const Json::parse_error&) {
-        // The reader words the message with line and column.
-        const DesignReadResult read =
-            read_design(std::string_view(bytes.constData(), bytes.size()));
-        *error = tr("%1 is not a design document:\n%2")
-                     .arg(path, read.errors.empty()
-                                    ? QString()
-                                    : QString::fromStdString(read.errors.front().text()));
+    // The reader's guarded parse: a document nested too deep is refused, not walked.
+    std::string problem;
+    const std::optional<Json> parsed =
+        parse_design_text(std::string_view(bytes.constData(), bytes.size()), &problem);
+    if (!parsed) {
+        *error = tr("%1 is not a design document:\n%2").arg(path, QString::fromStdString(problem));
         return false;
     }
+    Json json = *parsed;
     if (json.is_object() && json.contains("version") && json["version"].is_number_integer() &&
         json["version"].get<int>() > design_format_version) {
         *error = tr("%1 was written by a newer version of Descent Sizer (design version %2); this "
