@@ -1,8 +1,12 @@
 #include "commands.hpp"
 
+#include <algorithm>
+#include <cerrno>
 #include <cstdio>
+#include <cstring>
 #include <exception>
 #include <string>
+#include <system_error>
 
 #include <fmt/format.h>
 #include <CLI/CLI.hpp>
@@ -18,10 +22,12 @@ namespace ds {
 namespace {
 
 // Exit codes: 0 sized (even with failing checks), 1 arguments refused, 2 a document that cannot
-// be read, 3 an internal error (a bug: please report it with the design).
+// be read, 3 an internal error (a bug: please report it with the design), 4 the output could
+// not be written (a full disk, a closed pipe).
 constexpr int exit_usage = 1;
 constexpr int exit_unreadable = 2;
 constexpr int exit_internal = 3;
+constexpr int exit_write_failed = 4;
 
 struct SizeOptions {
     std::string design;
@@ -81,18 +87,29 @@ int runCommand(int argc, char** argv) {
         // the commands' own checks do, whatever CLI11's own code for it.
         return app.exit(e) == 0 ? 0 : exit_usage;
     }
+    int code = 0;
     try {
-        if (const int code = runTrade(); code >= 0)
-            return code;
-        if (*size)
-            return runSize(sizeOptions);
-        if (*sheet)
-            return startWindowProgram({"sheet", sheetDesign, "--output", sheetOutput});
+        code = runTrade();
+        if (code < 0 && *size)
+            code = runSize(sizeOptions);
+        if (code < 0 && *sheet)
+            code = startWindowProgram({"sheet", sheetDesign, "--output", sheetOutput});
+        code = std::max(code, 0);
+    } catch (const std::system_error& e) {
+        // The output library's own report of a write that failed.
+        fmt::print(stderr, "cannot write the output: {}\n", e.code().message());
+        return exit_write_failed;
     } catch (const std::exception& e) {
         fmt::print(stderr, "internal error: {}\n", e.what());
         return exit_internal;
     }
-    return 0;
+    // What was printed must have reached the standard output: a full disk or a closed pipe
+    // would otherwise pass for success with nothing written.
+    if (std::fflush(stdout) != 0 || std::ferror(stdout)) {
+        fmt::print(stderr, "cannot write the output: {}\n", std::strerror(errno));
+        return exit_write_failed;
+    }
+    return code;
 }
 
 }  // namespace ds

@@ -593,20 +593,33 @@ int optimiseCommand(const Options& o) {
     request.starts = o.starts;
     request.tolerance = o.tolerance;
     request.seed = o.seed;
-    return runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
+    bool writeFailed = false;
+    const int code = runStudyCommand(o, request, [&](const StudyOutcome& outcome) {
         const Optimisation& result = *outcome.optimisation;
         printStudy(outcome, formatOf(o.json, o.csv), [&] { printOptimisation(outcome); });
         if (!o.write.empty() && result.feasible) {
-            std::ofstream out(o.write);
-            out << result.optimum_document.dump(2) << "\n";
-            if (!out) {
-                fmt::print(stderr, "cannot write {}\n", o.write);
-                return;
+            // Written beside, then renamed over: a failed write leaves any old file whole.
+            const std::string part = o.write + ".part";
+            {
+                std::ofstream out(part);
+                out << result.optimum_document.dump(2) << "\n";
+                out.close();
+                std::error_code renamed;
+                if (out)
+                    std::filesystem::rename(part, o.write, renamed);
+                if (!out || renamed) {
+                    std::filesystem::remove(part, renamed);
+                    fmt::print(stderr, "cannot write {}\n", o.write);
+                    writeFailed = true;
+                    return;
+                }
             }
             if (!o.json && !o.csv)
                 fmt::print("\nThe optimum design is written to {}.\n", o.write);
         }
     });
+    constexpr int exit_write_failed = 4;  // as the command line's other outputs
+    return writeFailed ? exit_write_failed : code;
 }
 
 }  // namespace

@@ -423,3 +423,45 @@ TEST_CASE("corridor: bad speeds, and a list of speeds for an entry from orbit, a
     CHECK(own["speed_key"].is_null());
     CHECK(own["frame"] == "inertial");
 }
+
+TEST_CASE("output that cannot be written (a full device) exits 4 and says so") {
+    // Regression: summaries sent to a full device exited 0 with nothing written.
+    for (const std::string& command :
+         {"disperse " + sample("small-ballistic-station") + " --runs 5",
+          "sensitivity " + sample("small-ballistic-station") + " --inputs aeroshell.diameter_m",
+          "size " + sample("small-ballistic-station")}) {
+        CAPTURE(command);
+        const fs::path err = scratch() / "full-stderr.txt";
+        const int status = std::system(
+            (quoted(DESCENT_SIZER_BINARY) + " " + command + " >/dev/full 2>" + quoted(err))
+                .c_str());
+        REQUIRE(WIFEXITED(status));
+        CHECK(WEXITSTATUS(status) == 4);
+        CHECK(file_text(err).find("cannot write the output") != std::string::npos);
+    }
+}
+
+TEST_CASE("optimise: the optimum is written as a design that sizes, and --json is its document") {
+    const fs::path written = scratch() / "optimum.json";
+    fs::remove(written);
+    const std::string args = "optimise " + sample("small-ballistic-station") +
+                             " --vary aeroshell.diameter_m=1.8:3.5 --maximise unallocated_mass";
+    const Run r = run(args + " --write " + quoted(written));
+    CHECK(r.exit_code == 0);
+    CHECK(r.out.find("deploy_dynamic_pressure_high") != std::string::npos);  // what binds
+    REQUIRE(fs::exists(written));
+    const Json optimum = Json::parse(output(args + " --json"));
+    CHECK(optimum["feasible"] == true);
+    const Json sized = Json::parse(output("size " + quoted(written) + " --json"));
+    CHECK(sized["mass"]["unallocated_kg"].get<double>() ==
+          doctest::Approx(optimum["optimum_objective"].get<double>()).epsilon(1e-12));
+    // A file that cannot be written: exit 4, nothing left behind.
+    const Run unwritable = run(args + " --write /nonexistent-folder/optimum.json");
+    CHECK(unwritable.exit_code == 4);
+    CHECK(unwritable.err.find("cannot write") != std::string::npos);
+    // An unknown figure is refused before any work.
+    const Run figure = run("optimise " + sample("small-ballistic-station") +
+                           " --vary aeroshell.diameter_m=1.8:3.5 --minimise lightness");
+    CHECK(figure.exit_code == 1);
+    CHECK(figure.err.find("unknown figure \"lightness\"") != std::string::npos);
+}
