@@ -634,7 +634,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->expected(1, 2);
     sweep->add_flag("--json", o->json, "Rows as JSON");
     sweep->add_flag("--csv", o->csv, "Rows as CSV");
-    sweep->add_option("--threads", o->threads, "Threads (default: one per core)");
+    sweep->add_option("--threads", o->threads, "Threads, at most 256 (default: one per core)")
+        ->check(CLI::Range(0u, 256u));
 
     CLI::App* disperse = app.add_subcommand(
         "disperse", "Fly the design's dispersions (Monte Carlo) and summarise them");
@@ -648,7 +649,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->default_val(1);
     disperse->add_option("--shard", o->shard,
                          "I/N: run slice I of N, I from 0 to N-1 (for a batch array)");
-    disperse->add_option("--threads", o->threads, "Threads (default: one per core)");
+    disperse->add_option("--threads", o->threads, "Threads, at most 256 (default: one per core)")
+        ->check(CLI::Range(0u, 256u));
     disperse->add_flag("--json", o->json, "The summary and every case as JSON (what merge reads)");
     disperse->add_flag(
         "--csv", o->csv,
@@ -678,7 +680,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->delimiter(',');
     sensitivity->add_flag("--json", o->json, "The matrix as JSON");
     sensitivity->add_flag("--csv", o->csv, "The matrix as CSV, a row per figure");
-    sensitivity->add_option("--threads", o->threads, "Threads (default: one per core)");
+    sensitivity->add_option("--threads", o->threads, "Threads, at most 256 (default: one per core)")
+        ->check(CLI::Range(0u, 256u));
 
     CLI::App* corridor = app.add_subcommand(
         "corridor",
@@ -697,7 +700,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
                      "dispersions (0: none)")
         ->default_val(500);
     corridor->add_option("--seed", o->seed, "Seed of the dispersed cases")->default_val(1);
-    corridor->add_option("--threads", o->threads, "Threads (default: one per core)");
+    corridor->add_option("--threads", o->threads, "Threads, at most 256 (default: one per core)")
+        ->check(CLI::Range(0u, 256u));
     corridor->add_flag("--json", o->json, "The corridor as JSON");
     corridor->add_flag("--csv", o->csv, "A row per speed as CSV");
 
@@ -723,7 +727,8 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->default_val(1e-4)
         ->check(CLI::Range(1e-10, 0.1));
     optimiseApp->add_option("--seed", o->seed, "Seed of the random starts")->default_val(1);
-    optimiseApp->add_option("--threads", o->threads, "Threads (default: one per core)");
+    optimiseApp->add_option("--threads", o->threads, "Threads, at most 256 (default: one per core)")
+        ->check(CLI::Range(0u, 256u));
     optimiseApp->add_option("--write", o->write, "Write the optimum as a design file");
     optimiseApp->add_flag("--json", o->json, "The optimisation as JSON");
     optimiseApp->add_flag("--csv", o->csv, "Every sizing of the search as CSV");

@@ -975,8 +975,18 @@ private:
             }
             Fields f(list[i], entry_place, *issues_);
             DispersionDesign d;
-            if (auto key = f.string("key"))
+            if (auto key = f.string("key")) {
                 d.key = *key;
+                // One draw per key: a second would be flown while the first is recorded.
+                for (std::size_t j = 0; j < design_.dispersions.size(); ++j) {
+                    if (design_.dispersions[j].key == d.key) {
+                        f.report("key",
+                                 fmt::format("\"{}\" is dispersed already (dispersions[{}]): "
+                                             "one dispersion per key",
+                                             d.key, j));
+                    }
+                }
+            }
             if (auto kind = f.string("distribution")) {
                 if (*kind == "normal") {
                     d.distribution = DistributionKind::normal;

@@ -1,4 +1,5 @@
 #include "trade/value_list.hpp"
+#include <algorithm>
 
 #include <charconv>
 #include <cmath>
@@ -71,18 +72,31 @@ std::optional<SweepAxis> parse_sweep_axis(const std::string& text, std::string* 
     char colon1 = 0;
     char colon2 = 0;
     rest >> axis.from >> colon1 >> axis.to >> colon2 >> axis.count;
-    if (!rest || colon1 != ':' || colon2 != ':' || axis.count < 1 || !std::isfinite(axis.from) ||
-        !std::isfinite(axis.to)) {
-        *error = fmt::format("{}: expected KEY=FROM:TO:N with N at least 1", text);
+    // N is a whole number, all of it: "1e6" or "3.5" are not read as their first digits.
+    const bool whole = rest && (rest >> std::ws).eof();
+    if (!whole || colon1 != ':' || colon2 != ':' || axis.count < 1 ||
+        axis.count > most_sweep_values || !std::isfinite(axis.from) || !std::isfinite(axis.to)) {
+        *error = fmt::format("{}: expected KEY=FROM:TO:N with N a whole number from 1 to {}", text,
+                             most_sweep_values);
         return std::nullopt;
     }
     return axis;
 }
 
 std::optional<Shard> parse_shard(const std::string& text) {
+    // Two whole numbers and the slash, nothing else ("-1/3" would wrap round, "1/3x" be cut).
+    const auto slash = text.find('/');
+    const auto digits = [](std::string_view part) {
+        return !part.empty() && part.size() <= 9 &&
+               std::all_of(part.begin(), part.end(), [](char c) { return c >= '0' && c <= '9'; });
+    };
+    if (slash == std::string::npos || !digits(std::string_view(text).substr(0, slash)) ||
+        !digits(std::string_view(text).substr(slash + 1)))
+        return std::nullopt;
     Shard shard;
-    if (std::sscanf(text.c_str(), "%zu/%zu", &shard.index, &shard.count) != 2 || shard.count == 0 ||
-        shard.index >= shard.count)
+    shard.index = std::stoul(text.substr(0, slash));
+    shard.count = std::stoul(text.substr(slash + 1));
+    if (shard.count == 0 || shard.index >= shard.count)
         return std::nullopt;
     return shard;
 }

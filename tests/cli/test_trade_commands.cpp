@@ -251,7 +251,21 @@ TEST_CASE("trade commands: a bad range or shard exits 1 and says what was expect
     const Run zero =
         run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2:0");
     CHECK(zero.exit_code == 1);
-    CHECK(zero.err.find("N at least 1") != std::string::npos);
+    CHECK(zero.err.find("N a whole number from 1 to 1000") != std::string::npos);
+    // Counts are whole numbers within their bounds, read whole: not "1e6" read as 1, nor a
+    // negative shard wrapped round, nor two thousand threads.
+    const std::string station = sample("small-ballistic-station");
+    for (const std::string& refused :
+         {"sweep " + station + " --vary aeroshell.diameter_m=2.2:3.4:1e6",
+          "sweep " + station + " --vary aeroshell.diameter_m=2.2:3.4:1001",
+          "sweep " + station + " --vary aeroshell.diameter_m=2.2:3.4:3 --threads 2000",
+          "disperse " + station + " --runs -5", "disperse " + station + " --shard -1/3",
+          "disperse " + station + " --shard 1/3x"}) {
+        CAPTURE(refused);
+        const Run r = run(refused);
+        CHECK(r.exit_code == 1);
+        CHECK(r.out.empty());
+    }
     const Run noKey = run("sweep " + sample("small-ballistic-station") + " --vary 5600");
     CHECK(noKey.exit_code == 1);
     const Run three = run("sweep " + sample("small-ballistic-station") +

@@ -289,6 +289,21 @@ private slots:
         QVERIFY2(error.contains("nest more than 64 levels"), qPrintable(error));
     }
 
+    void aVersionBeyondThirtyTwoBitsIsANewerVersionNotOne() {
+        // Regression: version 4294967297 was cut to 32 bits, read as 1, and opened.
+        QTemporaryDir dir;
+        const QString path = dir.filePath("future.json");
+        QFile file(path);
+        QVERIFY(file.open(QIODevice::WriteOnly));
+        file.write(R"({"format": "descent-sizer/design", "version": 4294967297})");
+        file.close();
+        DesignDocument document;
+        QString error;
+        QVERIFY(!document.open(path, &error));
+        QVERIFY2(error.contains("newer version"), qPrintable(error));
+        QVERIFY2(error.contains("4294967297"), qPrintable(error));
+    }
+
     void aPoweredDescentFromTheEntryTakesTheParachuteAwayAndBack() {
         DesignDocument document;
         QString error;

@@ -78,11 +78,11 @@ bool DesignDocument::open(const QString& path, QString* error) {
     }
     Json json = *parsed;
     if (json.is_object() && json.contains("version") && json["version"].is_number_integer() &&
-        json["version"].get<int>() > design_format_version) {
+        json["version"].get<std::int64_t>() > design_format_version) {
         *error = tr("%1 was written by a newer version of Descent Sizer (design version %2); this "
                     "version reads version %3. The file was left untouched.")
                      .arg(path)
-                     .arg(json["version"].get<int>())
+                     .arg(static_cast<qlonglong>(json["version"].get<std::int64_t>()))
                      .arg(design_format_version);
         return false;
     }

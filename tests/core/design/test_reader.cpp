@@ -1092,3 +1092,12 @@ TEST_CASE("a powered descent from the entry flies without a parachute; canopy me
     INFO(error_list(impact));
     CHECK(impact.ok());
 }
+
+TEST_CASE("a key dispersed twice is refused, naming the first") {
+    Json document = baseline();
+    document["dispersions"] = Json::array(
+        {{{"key", "entry.flight_path_angle_deg"}, {"distribution", "normal"}, {"sigma", 0.2}},
+         {{"key", "entry.flight_path_angle_deg"}, {"distribution", "normal"}, {"sigma", 0.5}}});
+    const auto result = read(document);
+    CHECK(only_error(result, "dispersions[1].key", "is dispersed already (dispersions[0])"));
+}
