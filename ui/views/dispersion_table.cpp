@@ -14,9 +14,30 @@ enum Column { keyColumn, distributionColumn, firstColumn, secondColumn, columnCo
 const char* const dispersionsPointer = "/dispersions";
 const QStringList distributions{QStringLiteral("normal"), QStringLiteral("uniform")};
 
-/// A new row's dispersion: the entry flight-path angle, the usual first one (common practice).
-const DesignDocument::Json newDispersion = {
-    {"key", "entry.flight_path_angle_deg"}, {"distribution", "normal"}, {"sigma", 0.1}};
+/// A new row's key: the first of the usual dispersed keys (common practice) not dispersed yet,
+/// since a key is dispersed once; with all of them taken, the first again, for the user to
+/// change (the reader says so meanwhile).
+const char* const usualKeys[] = {"entry.flight_path_angle_deg", "entry.velocity_m_s",
+                                 "atmosphere.density_scale",    "entry.lift_to_drag",
+                                 "entry.bank_angle_deg",        "atmosphere.wind_scale"};
+
+DesignDocument::Json newDispersion(const DesignDocument::Json& list) {
+    const auto taken = [&](const char* key) {
+        for (const auto& d : list) {
+            if (d.is_object() && d.value("key", std::string()) == key)
+                return true;
+        }
+        return false;
+    };
+    const char* key = usualKeys[0];
+    for (const char* candidate : usualKeys) {
+        if (!taken(candidate)) {
+            key = candidate;
+            break;
+        }
+    }
+    return {{"key", key}, {"distribution", "normal"}, {"sigma", 0.1}};
+}
 
 }  // namespace
 
@@ -84,7 +105,7 @@ void DispersionTable::addRow() {
     Json list = value();
     if (!list.is_array())
         list = Json::array();
-    list.push_back(newDispersion);
+    list.push_back(newDispersion(list));
     setValue(list, tr("add a dispersion"));
 }
 
