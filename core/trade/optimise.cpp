@@ -65,8 +65,9 @@ struct StartSearch {
         return p;
     }
 
-    /// Runs COBYLA from u, minimising `value` with the feasibility constraint when asked;
-    /// returns where it ended. Stops at the budget, or when progress says cancelled.
+    /// Runs COBYLA from u: on the figure with the feasibility constraint (`constrained`), or on
+    /// the margin alone (climbing it until `stop_value`, its negative). Returns where it ended;
+    /// stops at the budget, or when progress says cancelled.
     std::vector<double> cobyla(std::vector<double> u, bool constrained, double stop_value) {
         const std::size_t left = budget > steps.size() ? budget - steps.size() : 0;
         if (left < 2 || stopped)
