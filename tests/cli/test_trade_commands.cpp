@@ -285,6 +285,11 @@ TEST_CASE("trade commands: a bad key is named, by the refused cases or with exit
     CHECK(misspelt.exit_code == 1);
     CHECK(misspelt.out.empty());
     CHECK(misspelt.err.find("--vary entry.no_such_key: not a number") != std::string::npos);
+    // An element far past the end of a list is refused, not padded with a hundred million nulls.
+    const Run padded = run("sweep " + sample("small-ballistic-station") +
+                           " --vary \"mass.items[100000000].mass_kg=1:2:4\"");
+    CHECK(padded.exit_code == 1);
+    CHECK(padded.err.find("not a number of the design") != std::string::npos);
     // Not a key path at all (a JSON pointer's bad escape): refused the same way, not a crash.
     const Run escape = run("sweep " + sample("small-ballistic-station") +
                            " --vary \"aeroshell.diam~eter_m=2.2:3.4:3\"");
