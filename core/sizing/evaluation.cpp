@@ -325,15 +325,22 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     add_propulsion(design.terminal, burned, engines, e);
 }
 
-/// The devices of the entry's last stage (the aeroshell, and the decelerator once it has
-/// deployed), their drag scaled by the share kept while the engines fire into the flow.
-std::vector<DragDevice> devices_under_thrust(const Design& design, const Evaluation& e) {
-    std::vector<DragDevice> devices{aeroshell_device(design, e.aeroshell)};
+/// The entry's last stage: the aeroshell with its lift, and the decelerator once it has
+/// deployed.
+Stage last_entry_stage(const Design& design, const Evaluation& e) {
+    Stage stage = entry_stage(design, e.aeroshell);
     if (design.decelerator && e.entry.decelerator) {
-        devices.push_back({frontal_area_m2(design.decelerator->diameter_m),
-                           design.decelerator->drag_coefficient,
-                           {}});
+        stage.drag_devices.push_back({frontal_area_m2(design.decelerator->diameter_m),
+                                      design.decelerator->drag_coefficient,
+                                      {}});
     }
+    return stage;
+}
+
+/// The last stage's drag devices, their drag scaled by the share kept while the engines fire
+/// into the flow.
+std::vector<DragDevice> devices_under_thrust(const Design& design, const Evaluation& e) {
+    std::vector<DragDevice> devices = last_entry_stage(design, e).drag_devices;
     for (DragDevice& device : devices)
         device.drag_coefficient *= design.terminal.drag_preservation;
     return devices;
@@ -345,20 +352,15 @@ std::vector<DragDevice> devices_under_thrust(const Design& design, const Evaluat
 DenseTrajectory coast_after_trigger(const Design& design, const FlightModel& model,
                                     const Evaluation& e,
                                     const IntegratorSettings<flight_state_size>& settings,
-                                    std::vector<TrajectorySample>& samples) {
+                                    std::vector<TrajectorySample>* samples) {
     Phase coast;
     coast.name = "coast to ignition";
-    coast.stage = entry_stage(design, e.aeroshell);
-    if (design.decelerator && e.entry.decelerator) {
-        coast.stage.drag_devices.push_back({frontal_area_m2(design.decelerator->diameter_m),
-                                            design.decelerator->drag_coefficient,
-                                            {}});
-    }
+    coast.stage = last_entry_stage(design, e);
     coast.ends = {
         {"ground", FlightQuantity::altitude, design.site.elevation_m, EventDirection::falling}};
     DenseTrajectory record;
     fly_phase(model, coast, e.entry.end_time_s, e.entry.end_state, design.solver.max_time_s,
-              settings, {&samples, &record});
+              settings, {samples, &record});
     return record;
 }
 
@@ -367,7 +369,8 @@ DenseTrajectory coast_after_trigger(const Design& design, const FlightModel& mod
 /// throttle is solved for it; when even the deepest throttle stops above the site, the ignition
 /// comes later at that throttle (solved on the unpowered flight after the trigger). Nothing
 /// separates: the whole entry vehicle lands, less the propellant burned.
-void fly_powered_descent(const Design& design, const FlightModel& model, Evaluation& e) {
+void fly_powered_descent(const Design& design, const FlightModel& model, Evaluation& e,
+                         bool history) {
     const TerminalDesign& t = design.terminal;
     const double site = design.site.elevation_m;
     const double g_site = model.body.gravity_m_s2(site);
@@ -385,18 +388,19 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     const auto settings = flight_integrator_settings(
         design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
     std::vector<TrajectorySample> burn_samples;
+    std::vector<TrajectorySample>* record = history ? &burn_samples : nullptr;
     ThrottledBurn solved =
         solve_burn_throttle(model, request, e.full_thrust_N, t.min_throttle, settings,
-                            e.entry.end_time_s, e.entry.end_state, &burn_samples);
+                            e.entry.end_time_s, e.entry.end_state, record);
     if (solved.too_strong) {
         std::vector<TrajectorySample> coast_samples;
         const DenseTrajectory coast =
-            coast_after_trigger(design, model, e, settings, coast_samples);
+            coast_after_trigger(design, model, e, settings, history ? &coast_samples : nullptr);
         request.throttle = t.min_throttle;
         request.thrust_N = t.min_throttle * e.full_thrust_N;
         burn_samples.clear();
         if (!coast.empty()) {
-            solved.burn = solve_terminal_burn(model, coast, request, settings, &burn_samples);
+            solved.burn = solve_terminal_burn(model, coast, request, settings, record);
             solved.burn.throttle = t.min_throttle;
         }
         for (const TrajectorySample& s : coast_samples) {
@@ -484,7 +488,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     const bool fires_engines = design.terminal.method != TerminalMethod::none;
     if (powered_from_entry) {
         if (e.entry.end == EntryEnd::deployed && has_lander)
-            fly_powered_descent(design, model, e);
+            fly_powered_descent(design, model, e, history);
     } else if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0 && under_canopy) {
         DescentPlan plan;
         plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);
