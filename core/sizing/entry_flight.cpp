@@ -163,6 +163,11 @@ DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeros
     return device;
 }
 
+DragDevice decelerator_device(const Design& design) {
+    const DeceleratorDesign& d = *design.decelerator;
+    return {frontal_area_m2(d.diameter_m), d.drag_coefficient, {}};
+}
+
 DragDevice drogue_device(const Design& design) {
     const DrogueDesign& d = *design.drogue;
     const CanopyType type = *canopy_type(d.type);
@@ -213,7 +218,7 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
         phases.push_back(phase);
         deployed.push_back(&out.decelerator);
         phase.name = "decelerator";
-        phase.stage.drag_devices.push_back({frontal_area_m2(d.diameter_m), d.drag_coefficient, {}});
+        phase.stage.drag_devices.push_back(decelerator_device(design));
     }
     if (design.drogue) {
         const DrogueDesign& d = *design.drogue;

@@ -95,6 +95,9 @@ DragDevice aeroshell_device(const Design& design, const ResolvedAeroshell& aeros
 /// The drogue as a drag device, with its type's drag against Mach (the design must have one).
 DragDevice drogue_device(const Design& design);
 
+/// The inflatable decelerator as a drag device (the design must have one).
+DragDevice decelerator_device(const Design& design);
+
 Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell);
 
 /// Flies from the entry interface to the parachute trigger (through the decelerator phase when

@@ -330,9 +330,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
 Stage last_entry_stage(const Design& design, const Evaluation& e) {
     Stage stage = entry_stage(design, e.aeroshell);
     if (design.decelerator && e.entry.decelerator) {
-        stage.drag_devices.push_back({frontal_area_m2(design.decelerator->diameter_m),
-                                      design.decelerator->drag_coefficient,
-                                      {}});
+        stage.drag_devices.push_back(decelerator_device(design));
     }
     return stage;
 }
