@@ -365,14 +365,8 @@ void fill_parachute(const Evaluation& e, const FlightModel& model, ParachuteResu
 PoweredDescentResults powered_descent_results(const Evaluation& e, const Design& design,
                                               const FlightModel& model) {
     const BurnSolution& b = *e.burn;
-    const BurnRequest& r = *e.burn_request;
-    Stage burning;
-    burning.drag_devices = r.drag_devices;
-    burning.thrust_N = r.thrust_N;
-    burning.specific_impulse_s = r.specific_impulse_s;
-    burning.throttle = r.throttle;
-    burning.thrust_reference_area_m2 = r.thrust_reference_area_m2;
-    const FlightConditions at = flight_conditions(model, burning, b.ignition_state);
+    const FlightConditions at =
+        flight_conditions(model, burn_stage(*e.burn_request), b.ignition_state);
     PoweredDescentResults p;
     p.ignition_mach = at.mach;
     p.ignition_dynamic_pressure_Pa = at.dynamic_pressure_Pa;

@@ -34,6 +34,16 @@ void raise_burn_peaks(const FlightModel& model, const Phase& phase, const Flight
 
 }  // namespace
 
+Stage burn_stage(const BurnRequest& r) {
+    Stage stage;
+    stage.drag_devices = r.drag_devices;
+    stage.thrust_N = r.thrust_N;
+    stage.specific_impulse_s = r.specific_impulse_s;
+    stage.throttle = r.throttle;
+    stage.thrust_reference_area_m2 = r.thrust_reference_area_m2;
+    return stage;
+}
+
 BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
                      const IntegratorSettings<flight_state_size>& settings, double t_s,
                      FlightState separation_state, std::vector<TrajectorySample>* history) {
@@ -72,11 +82,7 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& r,
 
     Phase burn;
     burn.name = "terminal burn";
-    burn.stage.drag_devices = r.drag_devices;
-    burn.stage.thrust_N = r.thrust_N;
-    burn.stage.specific_impulse_s = r.specific_impulse_s;
-    burn.stage.throttle = r.throttle;
-    burn.stage.thrust_reference_area_m2 = r.thrust_reference_area_m2;
+    burn.stage = burn_stage(r);
     const Trigger end_of_burn{"end of burn", FlightQuantity::velocity, r.end_velocity_m_s,
                               EventDirection::falling};
     burn.ends = {end_of_burn, ground};
@@ -327,16 +333,21 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
         r.thrust_N = throttle * full_thrust_N;
         return fly_burn(model, r, settings, ignition_time_s, ignition_state, record);
     };
+    // Every flight of the solve, kept: the solution is one of them, so without a history to
+    // record it is not flown again (as solve_terminal_burn keeps its own).
+    std::vector<BurnAttempt> flown;
+    const auto miss_at = [&](double throttle) {
+        flown.push_back(fly_at(throttle, nullptr));
+        return burn_miss(flown.back(), request);
+    };
     const double max_throttle = request.throttle;
     ThrottledBurn out;
-    const double miss_max = burn_miss(fly_at(max_throttle, nullptr), request);
+    const double miss_max = miss_at(max_throttle);
     double throttle = max_throttle;
     if (miss_max >= 0.0) {
         // With no range to throttle over (min_throttle at the throttle), the ignition is what is
         // solved: the burn at the trigger stops too high unless it is already on target.
-        const double miss_min = min_throttle < max_throttle
-                                    ? burn_miss(fly_at(min_throttle, nullptr), request)
-                                    : miss_max;
+        const double miss_min = min_throttle < max_throttle ? miss_at(min_throttle) : miss_max;
         constexpr double on_target_m = 0.01;
         if (miss_min >= (min_throttle < max_throttle ? 0.0 : on_target_m)) {
             out.too_strong = true;
@@ -345,12 +356,15 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             // The miss grows with the throttle: on x = -throttle it falls, as the method wants.
             // A throttle to 1e-9 moves where the burn ends by well under a millimetre.
             constexpr double throttle_tolerance = 1e-9;
-            const auto falling = [&](double x) { return burn_miss(fly_at(-x, nullptr), request); };
+            const auto falling = [&](double x) { return miss_at(-x); };
             throttle = -illinois_last_nonnegative(falling, -max_throttle, miss_max, -min_throttle,
                                                   miss_min, throttle_tolerance);
         }
     }
-    const BurnAttempt solved = fly_at(throttle, history);
+    const auto kept = std::find_if(flown.begin(), flown.end(), [&](const BurnAttempt& a) {
+        return a.burn.throttle == throttle;
+    });
+    const BurnAttempt solved = !history && kept != flown.end() ? *kept : fly_at(throttle, history);
     out.burn = solved.burn;
     out.burn.stops_in_time = miss_max >= 0.0 && solved.reached_velocity;
     return out;

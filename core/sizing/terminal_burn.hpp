@@ -66,6 +66,10 @@ struct BurnSolution {
 /// constant-thrust burn against the velocity, after the coast, ends at the requested velocity
 /// at the requested height above the site (TOMS 748 on the separation time). With `history`, the
 /// solved coast and burn are appended to it.
+/// The stage that burns as the request asks: its drag devices, its thrust (at its throttle),
+/// specific impulse and C_T's reference area; thrust against the velocity over the ground.
+Stage burn_stage(const BurnRequest& request);
+
 /// Flies one separation (or, with no coast, ignition) at t_s from the given state: the coast,
 /// then the burn to the request's end velocity or the ground. `reached_velocity` says which.
 struct BurnAttempt {
