@@ -7,6 +7,8 @@
 #include <random>
 #include <stdexcept>
 
+#include <fmt/format.h>
+#include <fmt/ranges.h>
 #include <nlopt.hpp>
 
 #include "design/writer.hpp"
@@ -333,6 +335,23 @@ Optimisation optimise(const DesignVariants& design, const OptimiseSettings& sett
         out.sensitivities.push_back(s);
     }
     return out;
+}
+
+std::string binding_words(const Optimisation& o) {
+    std::vector<std::string> parts;
+    for (const BindingCheck& c : o.binding)
+        parts.push_back(fmt::format("{} (margin {:.2f} %)", c.id, 100.0 * c.margin));
+    parts.insert(parts.end(), o.keys_at_bounds.begin(), o.keys_at_bounds.end());
+    if (parts.empty())
+        return fmt::format("nothing within {:g} %", 100.0 * binding_margin);
+    return fmt::format("{}", fmt::join(parts, "; "));
+}
+
+std::string violated_words(const Optimisation& o) {
+    std::vector<std::string> ids;
+    for (const BindingCheck& c : o.violated)
+        ids.push_back(c.id);
+    return fmt::format("{}", fmt::join(ids, ", "));
 }
 
 }  // namespace ds

@@ -121,6 +121,14 @@ struct Optimisation {
     bool cancelled = false;
 };
 
+/// What binds at the optimum, in words, tightest first ("deploy_dynamic_pressure_high (margin
+/// 0.04 %); aeroshell.diameter_m at its upper bound"), or "nothing within 2 %": for the window
+/// and the sheet alike.
+std::string binding_words(const Optimisation& optimisation);
+
+/// The checks still failing at the least failing design, when nothing passed ("a, b").
+std::string violated_words(const Optimisation& optimisation);
+
 /// Optimises a design (as its document) under the settings. Sizes without the highest
 /// feasible site unless the objective is that figure, and without the history.
 Optimisation optimise(const DesignVariants& design, const OptimiseSettings& settings,

@@ -187,13 +187,10 @@ QString optimisationTable(const StudyOutcome& trade) {
     };
     QString body;
     if (!o.feasible) {
-        QStringList failing;
-        for (const BindingCheck& c : o.violated)
-            failing << QString::fromStdString(c.id);
         body += paragraph(QStringLiteral("No design passing every check was found in %1 sizings; "
                                          "still failing at the least failing one: %2.")
                               .arg(o.sizings)
-                              .arg(failing.join(QStringLiteral(", "))));
+                              .arg(QString::fromStdString(violated_words(o))));
     } else {
         body += paragraph(
             QStringLiteral("%1: %2 at the design (%3), %4 at the optimum (passes "
@@ -219,16 +216,8 @@ QString optimisationTable(const StudyOutcome& trade) {
     }
     body += table.html();
     if (o.feasible) {
-        QStringList binds;
-        for (const BindingCheck& c : o.binding)
-            binds << QStringLiteral("%1 (margin %2 %)")
-                         .arg(QString::fromStdString(c.id))
-                         .arg(100.0 * c.margin, 0, 'f', 2);
-        for (const std::string& k : o.keys_at_bounds)
-            binds << QString::fromStdString(k);
         body += paragraph(QStringLiteral("Binding at the optimum: %1.")
-                              .arg(binds.isEmpty() ? QStringLiteral("nothing within 2 %")
-                                                   : binds.join(QStringLiteral("; "))));
+                              .arg(QString::fromStdString(binding_words(o))));
     }
     return body;
 }

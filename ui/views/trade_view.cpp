@@ -170,14 +170,11 @@ QString optimisationSummary(const Optimisation& o) {
     const QString figure = text(o.settings.objective.figure);
     QStringList lines;
     if (!o.feasible) {
-        QStringList failing;
-        for (const BindingCheck& c : o.violated)
-            failing << text(c.id);
         lines << QCoreApplication::translate("ds::TradeView",
                                              "No design passing every check was found in %1 "
                                              "sizings; still failing at the least failing one: %2.")
                      .arg(o.sizings)
-                     .arg(failing.join(QStringLiteral(", ")));
+                     .arg(text(violated_words(o)));
         return lines.join(QStringLiteral("<br>"));
     }
     lines << QCoreApplication::translate("ds::TradeView",
@@ -195,17 +192,8 @@ QString optimisationSummary(const Optimisation& o) {
                          value(o.start_inputs[i]));
     }
     lines << keys.join(QStringLiteral("; "));
-    QStringList binds;
-    for (const BindingCheck& c : o.binding) {
-        binds
-            << QStringLiteral("%1 (margin %2 %)").arg(text(c.id)).arg(100.0 * c.margin, 0, 'f', 2);
-    }
-    for (const std::string& k : o.keys_at_bounds)
-        binds << text(k);
-    lines << QCoreApplication::translate("ds::TradeView", "Binding: %1.")
-                 .arg(binds.isEmpty()
-                          ? QCoreApplication::translate("ds::TradeView", "nothing within 2 %")
-                          : binds.join(QStringLiteral(", ")));
+    lines
+        << QCoreApplication::translate("ds::TradeView", "Binding: %1.").arg(text(binding_words(o)));
     return lines.join(QStringLiteral("<br>"));
 }
 
