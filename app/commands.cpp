@@ -1,10 +1,12 @@
 #include "commands.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cerrno>
 #include <cstdio>
 #include <cstring>
 #include <exception>
+#include <filesystem>
 #include <string>
 #include <system_error>
 
@@ -76,7 +78,20 @@ int runCommand(int argc, char** argv) {
     sheet->add_option("design", sheetDesign, "Design document (JSON)")
         ->required()
         ->check(CLI::ExistingFile);
-    sheet->add_option("-o,--output", sheetOutput, "Output file: .pdf, .html or .csv")->required();
+    sheet->add_option("-o,--output", sheetOutput, "Output file: .pdf, .html or .csv")
+        ->required()
+        ->check(CLI::Validator(
+            [](const std::string& path) -> std::string {
+                std::string suffix = std::filesystem::path(path).extension().string();
+                std::transform(suffix.begin(), suffix.end(), suffix.begin(),
+                               [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+                for (const char* known : {".pdf", ".html", ".htm", ".csv"}) {
+                    if (suffix == known)
+                        return {};
+                }
+                return "unknown sheet format '" + suffix + "': use .pdf, .html or .csv";
+            },
+            "FILE.pdf|.html|.csv"));
 
     const auto runTrade = addTradeCommands(app);
 

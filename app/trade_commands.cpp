@@ -12,6 +12,7 @@
 #include <fmt/format.h>
 #include <fmt/ranges.h>
 
+#include "design/file_output.hpp"
 #include "design/reader.hpp"
 #include "results/key_figures.hpp"
 #include "trade/study.hpp"
@@ -598,21 +599,11 @@ int optimiseCommand(const Options& o) {
         const Optimisation& result = *outcome.optimisation;
         printStudy(outcome, formatOf(o.json, o.csv), [&] { printOptimisation(outcome); });
         if (!o.write.empty() && result.feasible) {
-            // Written beside, then renamed over: a failed write leaves any old file whole.
-            const std::string part = o.write + ".part";
-            {
-                std::ofstream out(part);
-                out << result.optimum_document.dump(2) << "\n";
-                out.close();
-                std::error_code renamed;
-                if (out)
-                    std::filesystem::rename(part, o.write, renamed);
-                if (!out || renamed) {
-                    std::filesystem::remove(part, renamed);
-                    fmt::print(stderr, "cannot write {}\n", o.write);
-                    writeFailed = true;
-                    return;
-                }
+            std::string error;
+            if (!write_file_atomically(o.write, result.optimum_document.dump(2) + "\n", &error)) {
+                fmt::print(stderr, "{}\n", error);
+                writeFailed = true;
+                return;
             }
             if (!o.json && !o.csv)
                 fmt::print("\nThe optimum design is written to {}.\n", o.write);

@@ -21,6 +21,7 @@ namespace ds {
 namespace {
 
 constexpr int exit_unreadable = 2;
+constexpr int exit_write_failed = 4;  // as the command line's other outputs
 // How long --screenshot waits for the first results before giving up.
 constexpr int screenshot_timeout_ms = 20000;
 // Time for the charts to settle after the results arrive, before the picture is taken.
@@ -126,7 +127,7 @@ int writeSheetCommand(int argc, char** argv, const char* designPath, const char*
     QString error;
     if (!writeSheet(QString::fromLocal8Bit(output), *read.design, results, context, &error)) {
         fmt::print(stderr, "{}\n", error.toStdString());
-        return 1;
+        return exit_write_failed;
     }
     return 0;
 }

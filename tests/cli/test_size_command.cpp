@@ -179,9 +179,30 @@ TEST_CASE("sheet refuses an unknown format and writes nothing") {
     const fs::path out = fs::temp_directory_path() / "descent-sizer-cli-sheet.xyz";
     fs::remove(out);
     const Run r = run("sheet " + sample("small-ballistic-station") + " -o '" + out.string() + "'");
-    CHECK(r.exit_code != 0);
-    CHECK(r.err.find("unknown sheet format") != std::string::npos);
+    CHECK(r.exit_code == 1);  // refused before any work
+    CHECK(r.err.find("unknown sheet format '.xyz'") != std::string::npos);
     CHECK_FALSE(fs::exists(out));
+}
+
+TEST_CASE("a sheet on a full disk exits 4, says so and keeps the old file") {
+    // Regression: on a full disk `sheet -o` exited 0 and left the old file replaced by a part
+    // (a PDF cut short). The disk is made full past 4 KiB for the command by the shell's
+    // file-size limit; the signal a write past it raises is ignored, as a full disk raises none.
+    const fs::path dir = fs::temp_directory_path() / "descent-sizer-cli-sheet-full";
+    fs::remove_all(dir);
+    fs::create_directories(dir);
+    for (const char* name : {"sheet.csv", "sheet.pdf", "sheet.html"}) {
+        CAPTURE(name);
+        const fs::path out = dir / name;
+        std::ofstream(out) << "the old sheet\n";
+        const Run r = ds::test::run_binary_on_full_disk(
+            "sheet " + sample("small-ballistic-station") + " -o " + ds::test::quoted(out), dir, 4);
+        CHECK(r.exit_code == 4);
+        CHECK(r.err.find("cannot write '" + out.string() + "'") != std::string::npos);
+        CHECK(file_text(out) == "the old sheet\n");
+    }
+    CHECK(std::distance(fs::directory_iterator(dir), fs::directory_iterator()) ==
+          5);  // and stdout, stderr
 }
 #endif
 

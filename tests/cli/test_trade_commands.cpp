@@ -478,6 +478,15 @@ TEST_CASE("optimise: the optimum is written as a design that sizes, and --json i
     const Run unwritable = run(args + " --write /nonexistent-folder/optimum.json");
     CHECK(unwritable.exit_code == 4);
     CHECK(unwritable.err.find("cannot write") != std::string::npos);
+    // On a full disk (past 2 KiB): exit 4, the old file whole, nothing left beside it.
+    std::ofstream(written) << "the old design\n";
+    const Run full =
+        ds::test::run_binary_on_full_disk(args + " --write " + quoted(written), scratch(), 2);
+    CHECK(full.exit_code == 4);
+    CHECK(full.err.find("cannot write '" + written.string() + "'") != std::string::npos);
+    CHECK(file_text(written) == "the old design\n");
+    for (const auto& entry : fs::directory_iterator(written.parent_path()))
+        CHECK(entry.path().extension() != ".part");
     // An unknown figure is refused before any work.
     const Run figure = run("optimise " + sample("small-ballistic-station") +
                            " --vary aeroshell.diameter_m=1.8:3.5 --minimise lightness");

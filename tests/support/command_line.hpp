@@ -54,6 +54,21 @@ inline Run run_binary(const std::string& arguments, const std::filesystem::path&
     return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, file_text(out), file_text(err)};
 }
 
+/// Runs the binary as run_binary does, on a disk full past `kib` KiB: no file the command
+/// writes may grow past it (the shell's file-size limit, its outputs to stdout.txt and
+/// stderr.txt included, so keep them short), and a write past it fails as on a full disk (the
+/// signal it raises is ignored, as a full disk raises none).
+inline Run run_binary_on_full_disk(const std::string& arguments, const std::filesystem::path& dir,
+                                   int kib) {
+    const std::filesystem::path out = dir / "stdout.txt";
+    const std::filesystem::path err = dir / "stderr.txt";
+    const std::string command = "trap '' XFSZ; ulimit -f " + std::to_string(2 * kib) + "; exec " +
+                                quoted(DESCENT_SIZER_BINARY) + " " + arguments + " >" +
+                                quoted(out) + " 2>" + quoted(err);
+    const int status = std::system(command.c_str());
+    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, file_text(out), file_text(err)};
+}
+
 /// A shipped sample's path, quoted for the command line.
 inline std::string sample_argument(const std::string& name) {
     return quoted(sample_path(name));

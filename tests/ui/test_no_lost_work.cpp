@@ -4,10 +4,8 @@
 // refused, named with their line, and never written; unsaved edits are autosaved after the
 // interval and recovered, with their values and their original path, after a crash.
 //
-// A full disk cannot be simulated portably. It fails in QSaveFile::commit() (the write or the
-// rename of the temporary file), which is the same path as a target that cannot be written:
-// DesignDocument::saveAs reports the error, the temporary file is removed and the old file is
-// left as it was. The read-only target tests below cover that path.
+// A full disk is simulated with the file-size limit (tests/support/full_disk.hpp): writes past
+// it fail as on a full disk, in the write or in the flush of a buffer.
 
 #include <QApplication>
 #include <QDir>
@@ -32,6 +30,7 @@
 #include "main_window.hpp"
 #include "model/autosave.hpp"
 #include "model/design_document.hpp"
+#include "support/full_disk.hpp"
 
 using namespace ds;
 using Json = DesignDocument::Json;
@@ -185,6 +184,58 @@ private slots:
         QVERIFY2(message.contains("Nothing was written"), qPrintable(message));
         QVERIFY(window.document()->isModified());
         QCOMPARE(bytesOf(path), before);
+    }
+
+    void aSaveOnAFullDiskFailsClearlyAndKeepsTheEditsAndTheOldFile() {
+        // Regression: the design's text waited in the save file's buffer, the flush inside
+        // commit() failed unseen, and the old file was replaced by an empty one while the title
+        // showed the design as saved.
+        QTemporaryDir dir;
+        const QString path = copyOfSample(dir);
+        const QByteArray before = bytesOf(path);
+        MainWindow window;
+        QVERIFY(window.openFile(path, true));
+        edit(window.document());
+        QString message;
+        answerNextMessageBox(QMessageBox::Ok, &message);
+        {
+            const test::FullDiskAfter full(256);
+            QVERIFY(!window.save());
+        }
+        QVERIFY2(message.contains(QDir::toNativeSeparators(path)), qPrintable(message));
+        QVERIFY2(message.contains("Nothing was written"), qPrintable(message));
+        QVERIFY(window.document()->isModified());
+        QVERIFY(window.isWindowModified());
+        QCOMPARE(bytesOf(path), before);
+        QCOMPARE(QDir(dir.path()).entryList(QDir::Files).size(), 1);  // nothing left beside it
+
+        QVERIFY(window.save());  // room again: the edits save
+        QCOMPARE(jsonOf(path)["entry"]["velocity_m_s"].get<double>(), editedVelocity);
+    }
+
+    void anAutosaveOnAFullDiskWarnsAndLeavesNoEmptyRecoveryFile() {
+        // Regression: on a nearly full disk the autosave wrote empty recovery files, silently.
+        QTemporaryDir dir;
+        const QString path = copyOfSample(dir);
+        MainWindow window;
+        QVERIFY(window.openFile(path, true));
+        edit(window.document());
+        QString reason;
+        bool written = true;
+        {
+            const test::FullDiskAfter full(256);
+            written = window.autosave()->write(&reason);
+        }
+        QVERIFY(!written);
+        QVERIFY2(reason.contains("cannot write"), qPrintable(reason));
+        for (const QString& name : recoveryFiles())
+            QVERIFY2(QFileInfo(QDir(Autosave::defaultFolder()).filePath(name)).size() > 0,
+                     qPrintable(name));
+        QVERIFY2(window.statusBar()->currentMessage().contains("cannot write"),
+                 qPrintable(window.statusBar()->currentMessage()));
+        QVERIFY(window.autosave()->write(&reason));  // room again
+        QCOMPARE(jsonOf(window.autosave()->recoveryFile())["entry"]["velocity_m_s"].get<double>(),
+                 editedVelocity);
     }
 
     void aFileRemovedWhileOpenIsWrittenAgainWithTheEdits() {

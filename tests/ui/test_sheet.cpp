@@ -12,7 +12,9 @@
 #include <QBarSet>
 #include <QChart>
 #include <QChartView>
+#include <QDir>
 #include <QFile>
+#include <QFileInfo>
 #include <QLineSeries>
 #include <QPointer>
 #include <QRegularExpression>
@@ -26,6 +28,7 @@
 #include "results/caution.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "sizing/size.hpp"
+#include "support/full_disk.hpp"
 #include "support/history_columns.hpp"
 #include "views/charts.hpp"
 
@@ -254,6 +257,38 @@ private slots:
         QString error;
         QVERIFY(!writeSheet(path, m_design, m_results, m_context, &error));
         QVERIFY2(error.startsWith(QStringLiteral("cannot write '")), qPrintable(error));
+    }
+
+    void aSheetOnAFullDiskFailsAndKeepsTheOldFile() {
+        // Regression: on a full disk the CSV was replaced by its first kilobytes cut mid-row and
+        // the PDF by an unreadable part, with success reported: the last buffer's failed
+        // flush went unseen.
+        QTemporaryDir dir;
+        QTemporaryDir scratch;
+        for (const char* name : {"sheet.csv", "sheet.pdf", "sheet.html"}) {
+            // The disk fills a few bytes short of the whole sheet: its last part waits in a
+            // buffer until the final flush, the case that went unseen.
+            const QString whole = scratch.filePath(QString::fromLatin1(name));
+            QString error;
+            QVERIFY2(writeSheet(whole, m_design, m_results, m_context, &error), qPrintable(error));
+            const auto size = static_cast<rlim_t>(QFileInfo(whole).size());
+            const QString path = dir.filePath(QString::fromLatin1(name));
+            QFile old(path);
+            QVERIFY(old.open(QIODevice::WriteOnly));
+            old.write("the old sheet\n");
+            old.close();
+            bool written = true;
+            {
+                const test::FullDiskAfter full(size - 10);
+                written = writeSheet(path, m_design, m_results, m_context, &error);
+            }
+            QVERIFY2(!written, name);
+            QVERIFY2(error.contains("cannot write"), qPrintable(error));
+            QVERIFY(old.open(QIODevice::ReadOnly));
+            QCOMPARE(old.readAll(), QByteArray("the old sheet\n"));
+            old.close();
+        }
+        QCOMPARE(QDir(dir.path()).entryList(QDir::Files).size(), 3);  // nothing left beside
     }
 
     void everyChartHasSeriesAndRendersAtTheRequestedSize() {

@@ -1,31 +1,39 @@
 #include "model/atomic_file.hpp"
 
-#include <QSaveFile>
+#include <QBuffer>
+#include <QDir>
+#include <QFile>
+
+#include "design/file_output.hpp"
 
 namespace ds {
 
 bool writeFileAtomically(const QString& path, const std::function<bool(QIODevice&)>& write,
                          QString* error) {
-    QSaveFile file(path);
-    const auto failed = [&] {
-        if (error)
-            *error = QStringLiteral("cannot write '%1': %2").arg(path, file.errorString());
+    // Written whole in memory first (a sheet's PDF is a few megabytes at most), then by the
+    // core's one atomic writer, which checks every write and the final flush before it renames
+    // the file over the old one.
+    QBuffer buffer;
+    buffer.open(QIODevice::WriteOnly);
+    if (!write(buffer)) {
+        if (error) {
+            *error = QStringLiteral("cannot write '%1': it could not be composed")
+                         .arg(QDir::toNativeSeparators(path));
+        }
         return false;
-    };
-    if (!file.open(QIODevice::WriteOnly))
-        return failed();
-    if (!write(file)) {
-        file.cancelWriting();
-        return failed();
     }
-    if (!file.commit())
-        return failed();
-    return true;
+    return writeFileAtomically(path, buffer.data(), error);
 }
 
 bool writeFileAtomically(const QString& path, const QByteArray& bytes, QString* error) {
-    return writeFileAtomically(
-        path, [&bytes](QIODevice& device) { return device.write(bytes) == bytes.size(); }, error);
+    std::string why;
+    if (write_file_atomically(std::filesystem::path(QFile::encodeName(path).toStdString()),
+                              std::string_view(bytes.constData(), bytes.size()), &why)) {
+        return true;
+    }
+    if (error)
+        *error = QString::fromStdString(why);
+    return false;
 }
 
 }  // namespace ds

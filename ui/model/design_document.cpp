@@ -3,9 +3,10 @@
 #include <QDir>
 #include <QFile>
 #include <QFileInfo>
-#include <QSaveFile>
 #include <QUndoCommand>
 #include <QUndoStack>
+
+#include "model/atomic_file.hpp"
 
 namespace ds {
 
@@ -95,22 +96,16 @@ bool DesignDocument::open(const QString& path, QString* error) {
 }
 
 bool DesignDocument::saveAs(const QString& path, QString* error) {
-    const auto failed = [&](const QSaveFile& file) {
-        *error = tr("Cannot save the design to %1: %2.\nNothing was written; the design is still "
-                    "open with its changes.")
-                     .arg(QDir::toNativeSeparators(path), file.errorString());
-        return false;
-    };
-    // QSaveFile writes a temporary file beside the target and renames it over the target on
-    // commit: a failure at any step (no such folder, no permission, a full disk) leaves the old
-    // file whole.
-    QSaveFile file(path);
-    if (!file.open(QIODevice::WriteOnly))
-        return failed(file);
+    // Written beside and renamed over, every write checked (writeFileAtomically): a failure at
+    // any step (no such folder, no permission, a full disk) leaves the old file whole.
     const std::string text = m_json.dump(2) + "\n";
-    file.write(text.data(), static_cast<qint64>(text.size()));
-    if (!file.commit())
-        return failed(file);
+    QString why;
+    if (!writeFileAtomically(path, QByteArray::fromStdString(text), &why)) {
+        *error = tr("Cannot save the design: %1.\nNothing was written; the design is still open "
+                    "with its changes.")
+                     .arg(why);
+        return false;
+    }
     const bool renamed = QFileInfo(path).absoluteFilePath() != m_filePath;
     m_filePath = QFileInfo(path).absoluteFilePath();
     m_undo->setClean();
