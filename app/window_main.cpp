@@ -7,12 +7,15 @@
 #include <QCommandLineParser>
 #include <QDateTime>
 #include <QEventLoop>
+#include <QFileInfo>
+#include <QPixmap>
 #include <QSize>
 #include <QTimer>
 
 #include "allocator.hpp"
 #include "design/reader.hpp"
 #include "main_window.hpp"
+#include "model/atomic_file.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "sizing/size.hpp"
 #include "summary.hpp"
@@ -101,9 +104,17 @@ int runWindow(int argc, char** argv) {
                      [&] { QTimer::singleShot(screenshot_settle_ms, &loop, &QEventLoop::quit); });
     QTimer::singleShot(screenshot_timeout_ms, &loop, &QEventLoop::quit);
     loop.exec();
-    if (!window.grab().save(screenshot)) {
-        fmt::print(stderr, "cannot write {}\n", screenshot.toStdString());
-        return 1;
+    const QPixmap picture = window.grab();
+    const QByteArray format = QFileInfo(screenshot).suffix().isEmpty()
+                                  ? "PNG"
+                                  : QFileInfo(screenshot).suffix().toLatin1();
+    QString error;
+    const bool written = writeFileAtomically(
+        screenshot, [&](QIODevice& device) { return picture.save(&device, format.constData()); },
+        &error);
+    if (!written) {
+        fmt::print(stderr, "{}\n", error.toStdString());
+        return exit_write_failed;
     }
     return 0;
 }
