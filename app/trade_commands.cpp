@@ -174,6 +174,7 @@ public:
         start(campaign);
         if (format_ == Format::json) {
             fmt::print("{}\n   {}", cases_ == 0 ? "" : ",", case_to_json(dispersed).dump());
+            digest_.add(dispersed);
         } else if (format_ == Format::csv) {
             fmt::print("{}", case_csv_row(campaign, dispersed));
         }
@@ -192,8 +193,8 @@ public:
                     if (c == '\n')
                         indented += ' ';
                 }
-                fmt::print("{}  ]\n }},\n \"summary\": {}\n}}\n", cases_ == 0 ? "" : "\n",
-                           indented);
+                fmt::print("{}  ],\n  \"cases_digest\": \"{}\"\n }},\n \"summary\": {}\n}}\n",
+                           cases_ == 0 ? "" : "\n", digest_.hex(), indented);
                 break;
             }
             case Format::csv:
@@ -229,15 +230,8 @@ private:
     Format format_;
     bool started_ = false;
     std::size_t cases_ = 0;
+    CaseDigest digest_;  ///< of the rows written, for merge to check them against
 };
-
-void printCampaign(const DispersionCampaign& campaign, const DispersionSummary& summary,
-                   Format format) {
-    CampaignWriter writer(format);
-    for (const DispersedCase& dispersed : campaign.cases)
-        writer.add(campaign, dispersed);
-    writer.finish(campaign, summary);
-}
 
 void printSensitivityRanking(const SensitivityTable& table) {
     fmt::print(
@@ -425,36 +419,60 @@ int disperseCommand(const Options& o) {
         prepare);
 }
 
+/// Reads a part of a campaign case by case (read_campaign), handing each case to `on_case`.
+/// Returns its head, or prints why it cannot be read.
+std::optional<DispersionCampaign> readPart(
+    const std::string& path, const std::function<void(const DispersedCase&)>& on_case) {
+    std::ifstream in(path, std::ios::binary);
+    std::string error;
+    std::optional<DispersionCampaign> part;
+    if (in)
+        part = read_campaign(in, on_case, &error);
+    else
+        error = "cannot be opened";
+    if (!part)
+        fmt::print(stderr, "{}: {}\n", path, error);
+    return part;
+}
+
+/// Merges the parts part by part, holding one case at a time and what the summary needs of
+/// each (its key figures and landing point): a first reading checks every part whole (its
+/// rows against its digest) and that the parts are the shards of one campaign; a second hands
+/// their cases to the summary and the output. The merged cases are written shard by shard.
 int mergeCommand(const Options& o) {
-    std::vector<DispersionCampaign> parts;
+    std::vector<DispersionCampaign> heads;
     for (const std::string& path : o.parts) {
-        std::ifstream in(path);
-        std::string error;
-        std::optional<DispersionCampaign> part;
-        try {
-            const Json j = Json::parse(in);
-            part = campaign_from_json(j.contains("campaign") ? j.at("campaign") : j, &error);
-        } catch (const Json::parse_error&) {
-            // What a shard leaves when its run failed or was cut short: nothing, or a part.
-            error = in.gcount() == 0 && std::filesystem::file_size(path) == 0
-                        ? "empty: not a disperse --json output (did its shard's run fail?)"
-                        : "not a whole disperse --json output (cut short: did its shard's run "
-                          "finish?)";
-        } catch (const Json::exception& e) {
-            error = e.what();
-        }
-        if (!part) {
-            fmt::print(stderr, "{}: {}\n", path, error);
+        auto head = readPart(path, nullptr);
+        if (!head)
             return exit_unreadable;
-        }
-        parts.push_back(std::move(*part));
+        heads.push_back(std::move(*head));
     }
-    auto [merged, error] = merge_campaigns(parts);
-    if (!merged) {
-        fmt::print(stderr, "{}\n", error);
+    if (const std::string problem = shards_problem(heads); !problem.empty()) {
+        fmt::print(stderr, "{}\n", problem);
         return exit_unreadable;
     }
-    printCampaign(*merged, summarize(*merged, o.ellipse_probability), formatOf(o.json, o.csv));
+    DispersionCampaign merged = heads.front();
+    merged.shard_index = 0;
+    merged.shard_count = 1;
+    std::vector<std::size_t> order(o.parts.size());
+    for (std::size_t i = 0; i < order.size(); ++i)
+        order[i] = i;
+    std::sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
+        return heads[a].shard_index < heads[b].shard_index;
+    });
+    SummaryTally tally(merged.figure_ids.size());
+    CampaignWriter writer(formatOf(o.json, o.csv));
+    for (const std::size_t i : order) {
+        const auto part = readPart(o.parts[i], [&](const DispersedCase& c) {
+            tally.add(c);
+            writer.add(merged, c);
+        });
+        if (!part || part->cases_digest != heads[i].cases_digest) {
+            fmt::print(stderr, "{}: changed while it was merged\n", o.parts[i]);
+            return exit_unreadable;
+        }
+    }
+    writer.finish(merged, tally.summary(merged, o.ellipse_probability));
     return 0;
 }
 
@@ -635,7 +653,7 @@ std::function<int()> addTradeCommands(CLI::App& app) {
         ->check(CLI::ExistingFile);
     disperse->add_option("--runs", o->runs, "Number of dispersed cases")
         ->default_val(1000)
-        ->check(CLI::Range(std::size_t{1}, std::size_t{100000000}));
+        ->check(CLI::Range(std::size_t{1}, most_dispersed_runs));
     disperse->add_option("--seed", o->seed, "Seed: the same seed gives the same numbers")
         ->default_val(1);
     disperse->add_option("--shard", o->shard,

@@ -11,6 +11,7 @@
 #include <fmt/format.h>
 
 #include "constants.hpp"
+#include "design/writer.hpp"
 #include "json_values.hpp"
 #include "results/key_figures.hpp"
 #include "sizing/size.hpp"
@@ -55,12 +56,61 @@ bool same_dispersions(const std::vector<DispersionDesign>& a,
     return true;
 }
 
+/// The mean and sample standard deviation of sorted finite values, summed in their sorted
+/// order. Figures near the largest double (a sum of two of 1.7e308 is infinite) are summed
+/// scaled by the largest magnitude instead, so a mean of finite values is finite.
+std::pair<double, double> mean_and_deviation(const std::vector<double>& sorted) {
+    const double n = static_cast<double>(sorted.size());
+    // A figure every case shares (a frozen diameter) has that mean and no spread, not the
+    // rounding of a sum of equal values.
+    if (sorted.front() == sorted.back())
+        return {sorted.front(), 0.0};
+    const auto spread = [&](double scale) {
+        double sum = 0.0;
+        for (const double v : sorted)
+            sum += v / scale;
+        const double mean = sum / n;
+        double squares = 0.0;
+        for (const double v : sorted)
+            squares += (v / scale - mean) * (v / scale - mean);
+        return std::pair{mean * scale,
+                         sorted.size() > 1 ? std::sqrt(squares / (n - 1.0)) * scale : 0.0};
+    };
+    const auto plain = spread(1.0);
+    if (std::isfinite(plain.first) && std::isfinite(plain.second))
+        return plain;
+    return spread(std::max(std::abs(sorted.front()), std::abs(sorted.back())));
+}
+
 }  // namespace
+
+void TextDigest::add(std::string_view text) {
+    for (const char c : text) {
+        state_ ^= static_cast<unsigned char>(c);
+        state_ *= 0x100000001b3ULL;
+    }
+}
+
+std::string TextDigest::hex() const {
+    return fmt::format("{:016x}", state_);
+}
+
+std::string design_digest(const Design& design) {
+    TextDigest digest;
+    digest.add(design_to_json(design).dump());
+    return digest.hex();
+}
+
+void CaseDigest::add(const DispersedCase& c) {
+    digest_.add(case_to_json(c).dump());
+    digest_.add("\n");
+}
 
 std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     const Design& design, const std::filesystem::path& base_directory,
     const DispersionSettings& settings) {
-    const DesignVariants variants = DesignVariants::of(freeze_design(design), base_directory);
+    const Design frozen = freeze_design(design);
+    const DesignVariants variants = DesignVariants::of(frozen, base_directory);
     std::vector<double> nominal;
     std::vector<std::string> keys;
     for (const DispersionDesign& d : design.dispersions) {
@@ -80,6 +130,7 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     campaign.shard_count = std::max<std::size_t>(settings.shard_count, 1);
     campaign.dispersions = design.dispersions;
     campaign.body_radius_m = design.body.body.radius_m;
+    campaign.design_digest = design_digest(frozen);
     for (const KeyFigureDefinition& f : key_figure_table) {
         campaign.figure_ids.emplace_back(f.id);
         campaign.figure_units.emplace_back(f.unit);
@@ -143,36 +194,110 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     return {std::move(campaign), {}};
 }
 
+std::size_t shard_size(const DispersionCampaign& head) {
+    const std::size_t count = std::max<std::size_t>(head.shard_count, 1);
+    return head.shard_index >= head.runs ? 0 : (head.runs - head.shard_index + count - 1) / count;
+}
+
+ShardCases::ShardCases(const DispersionCampaign& head)
+    : runs_(head.runs),
+      shard_index_(head.shard_index),
+      shard_count_(std::max<std::size_t>(head.shard_count, 1)),
+      draws_(head.dispersions.size()),
+      figures_(head.figure_ids.size()),
+      seen_(shard_size(head), false) {}
+
+std::string ShardCases::add(const DispersedCase& c) {
+    if (c.index >= runs_ || c.index % shard_count_ != shard_index_) {
+        return fmt::format("case {} is not of shard {}/{} of {} runs", c.index, shard_index_,
+                           shard_count_, runs_);
+    }
+    if (seen_[c.index / shard_count_])
+        return fmt::format("case {} is repeated", c.index);
+    if (c.draws.size() != draws_ || c.figures.size() != figures_) {
+        return fmt::format("case {} has not one draw per dispersion and one value per figure",
+                           c.index);
+    }
+    seen_[c.index / shard_count_] = true;
+    ++count_;
+    return {};
+}
+
+std::string ShardCases::missing() const {
+    if (count_ == seen_.size())
+        return {};
+    for (std::size_t k = 0; k < seen_.size(); ++k) {
+        if (!seen_[k]) {
+            return fmt::format("case {} is missing: shard {}/{} holds {} of its {} cases",
+                               shard_index_ + k * shard_count_, shard_index_, shard_count_, count_,
+                               seen_.size());
+        }
+    }
+    return {};
+}
+
+std::string shards_problem(const std::vector<DispersionCampaign>& heads) {
+    if (heads.empty())
+        return "nothing to merge";
+    const DispersionCampaign& first = heads.front();
+    std::vector<bool> present(first.shard_count, false);
+    for (const DispersionCampaign& part : heads) {
+        if (part.design_digest.empty() || part.cases_digest.empty()) {
+            return "a part has no digests of its design and cases (written before they were "
+                   "kept): run its shard again";
+        }
+        if (part.seed != first.seed || part.runs != first.runs ||
+            !same_dispersions(part.dispersions, first.dispersions) ||
+            part.figure_ids != first.figure_ids || part.body_radius_m != first.body_radius_m ||
+            part.shard_count != first.shard_count) {
+            return "the parts are not shards of one campaign (seed, runs, dispersions, figures or "
+                   "shard count differ)";
+        }
+        if (part.design_digest != first.design_digest) {
+            return "the parts are not shards of one campaign: they fly different designs (their "
+                   "design digests differ)";
+        }
+        if (part.shard_index >= part.shard_count)
+            return fmt::format("shard {}/{} is no shard", part.shard_index, part.shard_count);
+        if (present[part.shard_index]) {
+            return fmt::format("shard {}/{} is given twice", part.shard_index, part.shard_count);
+        }
+        present[part.shard_index] = true;
+    }
+    for (std::size_t i = 0; i < present.size(); ++i) {
+        if (!present[i] && i < first.runs) {
+            return fmt::format("case {} is missing: shard {}/{} is not among the parts", i, i,
+                               first.shard_count);
+        }
+    }
+    return {};
+}
+
 std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
     const std::vector<DispersionCampaign>& parts) {
-    if (parts.empty())
-        return {std::nullopt, "nothing to merge"};
+    if (std::string problem = shards_problem(parts); !problem.empty())
+        return {std::nullopt, std::move(problem)};
+    for (const DispersionCampaign& part : parts) {
+        ShardCases shard(part);
+        for (const DispersedCase& c : part.cases) {
+            if (std::string problem = shard.add(c); !problem.empty())
+                return {std::nullopt, std::move(problem)};
+        }
+        if (std::string problem = shard.missing(); !problem.empty())
+            return {std::nullopt, std::move(problem)};
+    }
     DispersionCampaign merged = parts.front();
     merged.shard_index = 0;
     merged.shard_count = 1;
     merged.cases.clear();
-    for (const DispersionCampaign& part : parts) {
-        if (part.seed != merged.seed || part.runs != merged.runs ||
-            !same_dispersions(part.dispersions, merged.dispersions) ||
-            part.figure_ids != merged.figure_ids || part.body_radius_m != merged.body_radius_m) {
-            return {std::nullopt,
-                    "the parts are not shards of one campaign (seed, runs, "
-                    "dispersions or figures differ)"};
-        }
+    for (const DispersionCampaign& part : parts)
         merged.cases.insert(merged.cases.end(), part.cases.begin(), part.cases.end());
-    }
     std::sort(merged.cases.begin(), merged.cases.end(),
               [](const DispersedCase& a, const DispersedCase& b) { return a.index < b.index; });
-    for (std::size_t i = 0; i < merged.cases.size(); ++i) {
-        if (merged.cases[i].index != i) {
-            return {std::nullopt, fmt::format("case {} is {} in the parts", i,
-                                              i < merged.cases[i].index ? "missing" : "repeated")};
-        }
-    }
-    if (merged.cases.size() != merged.runs) {
-        return {std::nullopt,
-                fmt::format("the parts hold {} of the {} cases", merged.cases.size(), merged.runs)};
-    }
+    CaseDigest digest;
+    for (const DispersedCase& c : merged.cases)
+        digest.add(c);
+    merged.cases_digest = digest.hex();
     return {std::move(merged), {}};
 }
 
@@ -214,8 +339,9 @@ void SummaryTally::add(const DispersedCase& c) {
             values_[f].push_back(*c.figures[f]);
     }
     if (c.landing) {
-        landings_.push_back({degrees_to_radians(c.landing->latitude_deg),
-                             degrees_to_radians(c.landing->longitude_deg)});
+        landings_.push_back({c.index,
+                             {degrees_to_radians(c.landing->latitude_deg),
+                              degrees_to_radians(c.landing->longitude_deg)}});
     }
 }
 
@@ -232,24 +358,23 @@ DispersionSummary SummaryTally::summary(const DispersionCampaign& campaign,
         FigureStatistics st{campaign.figure_ids[f], campaign.figure_units[f], values.size()};
         if (!values.empty()) {
             std::sort(values.begin(), values.end());
-            const double n = static_cast<double>(values.size());
-            // A figure every case shares (a frozen diameter) has that mean and no spread, not
-            // the rounding of a sum of equal values.
-            const bool all_equal = values.front() == values.back();
-            st.mean =
-                all_equal ? values.front() : std::accumulate(values.begin(), values.end(), 0.0) / n;
-            double squares = 0.0;
-            for (const double v : values)
-                squares += (v - st.mean) * (v - st.mean);
-            st.standard_deviation =
-                values.size() > 1 && !all_equal ? std::sqrt(squares / (n - 1.0)) : 0.0;
+            std::tie(st.mean, st.standard_deviation) = mean_and_deviation(values);
             st.p01 = quantile(values, 0.01);
             st.p50 = quantile(values, 0.50);
             st.p99 = quantile(values, 0.99);
         }
         s.figures.push_back(st);
     }
-    s.landing_ellipse = landing_ellipse(landings_, campaign.body_radius_m, ellipse_probability);
+    // The ellipse's sums run in the order of the cases' index, whatever order they came in (a
+    // merge reads its parts one after the other).
+    std::vector<std::pair<std::size_t, GroundPoint>> by_index = landings_;
+    std::sort(by_index.begin(), by_index.end(),
+              [](const auto& a, const auto& b) { return a.first < b.first; });
+    std::vector<GroundPoint> landings;
+    landings.reserve(by_index.size());
+    for (const auto& [index, point] : by_index)
+        landings.push_back(point);
+    s.landing_ellipse = landing_ellipse(landings, campaign.body_radius_m, ellipse_probability);
     s.failing_checks.assign(failures_.begin(), failures_.end());
     std::stable_sort(s.failing_checks.begin(), s.failing_checks.end(),
                      [](const auto& a, const auto& b) { return a.second > b.second; });
@@ -283,6 +408,7 @@ nlohmann::ordered_json campaign_head_to_json(const DispersionCampaign& c) {
     out["figures"] = c.figure_ids;
     out["units"] = c.figure_units;
     out["body_radius_m"] = c.body_radius_m;
+    out["design_digest"] = c.design_digest;
     return out;
 }
 
@@ -304,16 +430,21 @@ nlohmann::ordered_json case_to_json(const DispersedCase& k) {
 nlohmann::ordered_json campaign_to_json(const DispersionCampaign& c) {
     nlohmann::ordered_json out = campaign_head_to_json(c);
     nlohmann::ordered_json cases = nlohmann::ordered_json::array();
-    for (const DispersedCase& k : c.cases)
+    CaseDigest digest;
+    for (const DispersedCase& k : c.cases) {
         cases.push_back(case_to_json(k));
+        digest.add(k);
+    }
     out["cases"] = cases;
+    out["cases_digest"] = digest.hex();
     return out;
 }
 
-std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& j,
-                                                     std::string* error) {
+std::optional<DispersionCampaign> campaign_head_from_json(const nlohmann::ordered_json& j,
+                                                          std::string* error) {
     try {
-        if (j.at("format") != "descent-sizer/dispersions") {
+        if (!j.is_object() || !j.contains("format") ||
+            j.at("format") != "descent-sizer/dispersions") {
             *error = "not a dispersion campaign (format)";
             return std::nullopt;
         }
@@ -322,6 +453,17 @@ std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_jso
         c.runs = j.at("runs").get<std::size_t>();
         c.shard_index = j.at("shard").at("index").get<std::size_t>();
         c.shard_count = j.at("shard").at("count").get<std::size_t>();
+        if (c.runs > most_dispersed_runs) {
+            *error =
+                fmt::format("not a dispersion campaign: more than {} runs", most_dispersed_runs);
+            return std::nullopt;
+        }
+        if (c.shard_count == 0 || c.shard_index >= c.shard_count ||
+            c.shard_count > most_dispersed_runs) {
+            *error =
+                fmt::format("not a dispersion campaign: shard {}/{}", c.shard_index, c.shard_count);
+            return std::nullopt;
+        }
         for (const auto& d : j.at("dispersions")) {
             c.dispersions.push_back({d.at("key").get<std::string>(),
                                      d.at("distribution") == "normal" ? DistributionKind::normal
@@ -331,25 +473,84 @@ std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_jso
         }
         c.figure_ids = j.at("figures").get<std::vector<std::string>>();
         c.figure_units = j.at("units").get<std::vector<std::string>>();
-        c.body_radius_m = j.value("body_radius_m", 0.0);
-        for (const auto& k : j.at("cases")) {
-            DispersedCase dc;
-            dc.index = k.at("index").get<std::size_t>();
-            dc.draws = k.at("draws").get<std::vector<double>>();
-            for (const auto& f : k.at("figures")) {
-                dc.figures.push_back(f.is_number() ? std::optional<double>(f.get<double>())
-                                                   : std::nullopt);
-            }
-            dc.success = k.at("success").get<bool>();
-            dc.failed_checks = k.at("failed_checks").get<std::vector<std::string>>();
-            dc.error = k.at("error").get<std::string>();
-            if (k.contains("landing") && k.at("landing").is_array()) {
-                const auto l = k.at("landing").get<std::vector<double>>();
-                if (l.size() == 4)
-                    dc.landing = CaseLanding{l[0], l[1], l[2], l[3]};
-            }
-            c.cases.push_back(std::move(dc));
+        if (c.figure_units.size() != c.figure_ids.size()) {
+            *error = "not a dispersion campaign: not one unit per figure";
+            return std::nullopt;
         }
+        c.body_radius_m = j.value("body_radius_m", 0.0);
+        c.design_digest = j.value("design_digest", std::string());
+        c.cases_digest = j.value("cases_digest", std::string());
+        return c;
+    } catch (const nlohmann::ordered_json::exception& e) {
+        *error = fmt::format("not a dispersion campaign: {}", e.what());
+        return std::nullopt;
+    }
+}
+
+std::optional<DispersedCase> case_from_json(const nlohmann::ordered_json& k, std::string* error) {
+    try {
+        DispersedCase dc;
+        dc.index = k.at("index").get<std::size_t>();
+        dc.draws = k.at("draws").get<std::vector<double>>();
+        for (const auto& f : k.at("figures")) {
+            dc.figures.push_back(f.is_number() ? std::optional<double>(f.get<double>())
+                                               : std::nullopt);
+        }
+        dc.success = k.at("success").get<bool>();
+        dc.failed_checks = k.at("failed_checks").get<std::vector<std::string>>();
+        dc.error = k.at("error").get<std::string>();
+        if (k.contains("landing") && k.at("landing").is_array()) {
+            const auto l = k.at("landing").get<std::vector<double>>();
+            if (l.size() == 4)
+                dc.landing = CaseLanding{l[0], l[1], l[2], l[3]};
+        }
+        // A case is a success exactly when it was read and no check failed: a flag that
+        // disagrees was changed by hand.
+        if (dc.success != (dc.error.empty() && dc.failed_checks.empty())) {
+            *error = fmt::format("case {}: its success disagrees with its failed checks", dc.index);
+            return std::nullopt;
+        }
+        return dc;
+    } catch (const nlohmann::ordered_json::exception& e) {
+        *error = fmt::format("not a dispersion campaign: a case: {}", e.what());
+        return std::nullopt;
+    }
+}
+
+namespace {
+
+std::string digest_problem(const DispersionCampaign& c, const std::string& rows_digest) {
+    if (c.cases_digest.empty())
+        return {};
+    if (c.cases_digest != rows_digest) {
+        return fmt::format(
+            "shard {}/{}: its cases disagree with their digest (changed since written)",
+            c.shard_index, c.shard_count);
+    }
+    return {};
+}
+
+}  // namespace
+
+std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& j,
+                                                     std::string* error) {
+    std::optional<DispersionCampaign> c = campaign_head_from_json(j, error);
+    if (!c)
+        return std::nullopt;
+    try {
+        CaseDigest digest;
+        for (const auto& k : j.at("cases")) {
+            std::optional<DispersedCase> dc = case_from_json(k, error);
+            if (!dc)
+                return std::nullopt;
+            digest.add(*dc);
+            c->cases.push_back(std::move(*dc));
+        }
+        if (std::string problem = digest_problem(*c, digest.hex()); !problem.empty()) {
+            *error = std::move(problem);
+            return std::nullopt;
+        }
+        c->cases_digest = digest.hex();
         return c;
     } catch (const nlohmann::ordered_json::exception& e) {
         *error = fmt::format("not a dispersion campaign: {}", e.what());

@@ -3,9 +3,11 @@
 #include <cstdint>
 #include <filesystem>
 #include <functional>
+#include <istream>
 #include <map>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -20,6 +22,10 @@ namespace ds {
 struct DispersedCase;
 struct DispersionCampaign;
 class SummaryTally;
+
+/// The most cases a campaign flies (the command line's --runs) or a campaign's document may
+/// hold.
+constexpr std::size_t most_dispersed_runs = 100'000'000;
 
 /// How a dispersion campaign runs: how many cases, from which seed, which slice of them, and
 /// what it keeps of them.
@@ -68,8 +74,38 @@ struct DispersionCampaign {
     std::vector<DispersionDesign> dispersions;
     std::vector<std::string> figure_ids;
     std::vector<std::string> figure_units;
-    double body_radius_m = 0.0;        ///< of the flown body: the landing points' sphere
+    double body_radius_m = 0.0;  ///< of the flown body: the landing points' sphere
+    /// The digest of the frozen design flown (design_digest): shards of one campaign share it.
+    std::string design_digest;
+    /// Read with a campaign's document: the digest it gives of its case rows (CaseDigest).
+    std::string cases_digest;
     std::vector<DispersedCase> cases;  ///< by index
+};
+
+/// A digest of text: 64-bit FNV-1a (Fowler, Noll and Vo), as 16 hexadecimal digits. It tells
+/// a part of one campaign from a part of another, and a row changed by hand from the row
+/// written; it is no defence against someone who recomputes it.
+class TextDigest {
+public:
+    void add(std::string_view text);
+    std::string hex() const;
+
+private:
+    std::uint64_t state_ = 0xcbf29ce484222325ULL;
+};
+
+/// The digest of a design: of its document (design_to_json) as the reader would read it.
+std::string design_digest(const Design& design);
+
+/// The digest of a campaign's case rows, added in the order they are written: of each row's
+/// JSON text (case_to_json(...).dump()) and a line end.
+class CaseDigest {
+public:
+    void add(const DispersedCase& c);
+    std::string hex() const { return digest_.hex(); }
+
+private:
+    TextDigest digest_;
 };
 
 /// Flies the design's dispersions: the nominal vehicle is frozen (freeze_design) and flown
@@ -85,6 +121,36 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
 /// case once. Returns the campaign or why the parts do not belong together.
 std::pair<std::optional<DispersionCampaign>, std::string> merge_campaigns(
     const std::vector<DispersionCampaign>& parts);
+
+/// Why these parts' heads (their cases not looked at) are not shards of one campaign, each
+/// once, with every shard there: the same seed, runs, dispersions, figures, body and frozen
+/// design, each of N shards once. Empty when they are.
+std::string shards_problem(const std::vector<DispersionCampaign>& heads);
+
+/// The cases of one shard as they are read, in any order: each must belong to the shard, once.
+class ShardCases {
+public:
+    explicit ShardCases(const DispersionCampaign& head);
+
+    /// Why this case cannot be the shard's next one read (not of the shard, given already, not
+    /// one draw per dispersion and one value per figure); empty when it is taken.
+    std::string add(const DispersedCase& c);
+    /// Why the cases read are not the whole shard (how many of its cases it holds); empty
+    /// when they are.
+    std::string missing() const;
+
+private:
+    std::size_t runs_;
+    std::size_t shard_index_;
+    std::size_t shard_count_;
+    std::size_t draws_;
+    std::size_t figures_;
+    std::vector<bool> seen_;  ///< by the case's place in the shard
+    std::size_t count_ = 0;
+};
+
+/// How many cases a shard of the campaign flies.
+std::size_t shard_size(const DispersionCampaign& head);
 
 struct FigureStatistics {
     std::string id;
@@ -117,7 +183,7 @@ public:
     /// Room for this many cases, so the values are not copied as they grow.
     void reserve(std::size_t cases);
 
-    /// Cases are added in the order of their index (the landing ellipse's sums run in it).
+    /// Cases may come in any order: the summary is the same, number for number.
     void add(const DispersedCase& c);
 
     /// The statistics of the cases added, with the campaign's figures and body and the landing
@@ -129,7 +195,7 @@ private:
     std::size_t successes_ = 0;
     std::map<std::string, std::size_t> failures_;
     std::vector<std::vector<double>> values_;  ///< per figure, of the cases that gave it
-    std::vector<GroundPoint> landings_;
+    std::vector<std::pair<std::size_t, GroundPoint>> landings_;  ///< with the case's index
 };
 
 /// The statistics of a campaign, with the landing ellipse of the given probability.
@@ -152,6 +218,20 @@ nlohmann::ordered_json campaign_head_to_json(const DispersionCampaign& campaign)
 nlohmann::ordered_json case_to_json(const DispersedCase& dispersed);
 std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& json,
                                                      std::string* error);
+/// A campaign's head read from its document ("cases" not read), or why it is not one.
+std::optional<DispersionCampaign> campaign_head_from_json(const nlohmann::ordered_json& json,
+                                                          std::string* error);
+/// One case read from its entry of a campaign's "cases", or why it is not one.
+std::optional<DispersedCase> case_from_json(const nlohmann::ordered_json& json, std::string* error);
+
+/// Reads a campaign's document (what `disperse --json` writes, or the campaign alone) from a
+/// stream without holding its cases: each is read, checked in its place in the shard
+/// (case_place_problem) and handed to `on_case` (when given) as soon as it is whole; at the end
+/// the rows' digest is checked against the document's. Returns the campaign without its cases
+/// (its cases_digest that of the rows read), or why the document is not a whole campaign: empty,
+/// cut short, a row changed, a case missing. Memory does not grow with the cases.
+std::optional<DispersionCampaign> read_campaign(
+    std::istream& in, const std::function<void(const DispersedCase&)>& on_case, std::string* error);
 nlohmann::ordered_json summary_to_json(const DispersionSummary& summary);
 
 }  // namespace ds

@@ -7,7 +7,9 @@
 #include <filesystem>
 #include <fstream>
 #include <functional>
+#include <sstream>
 #include <string>
+#include <vector>
 
 #include <doctest/doctest.h>
 #include <nlohmann/json.hpp>
@@ -168,11 +170,27 @@ TEST_CASE("disperse --shard and merge: the shards merged are the one run, case f
     const std::string first = saved("shard0.json", output(args + " --shard 0/2 --json"));
     const std::string second = saved("shard1.json", output(args + " --shard 1/2 --json"));
     const Json merged = Json::parse(output("merge --json " + second + " " + first));
-    CHECK(merged["campaign"]["cases"] == whole["campaign"]["cases"]);
+    // The merged cases come shard by shard (merge reads one part after the other): in the
+    // order of their index, they are the whole run's.
+    Json cases = merged["campaign"]["cases"];
+    CHECK(cases[0]["index"] == 0);
+    CHECK(cases[1]["index"] == 2);
+    std::sort(cases.begin(), cases.end(),
+              [](const Json& a, const Json& b) { return a["index"] < b["index"]; });
+    CHECK(cases == whole["campaign"]["cases"]);
     CHECK(merged["summary"] == whole["summary"]);
-    // The text summaries and the CSVs agree too.
+    // The text summaries agree, and the CSVs row for row.
     CHECK(output("merge " + first + " " + second) == output(args));
-    CHECK(output("merge --csv " + first + " " + second) == output(args + " --csv"));
+    const auto sorted_lines = [](const std::string& text) {
+        std::vector<std::string> lines;
+        std::istringstream in(text);
+        for (std::string line; std::getline(in, line);)
+            lines.push_back(line);
+        std::sort(lines.begin(), lines.end());
+        return lines;
+    };
+    CHECK(sorted_lines(output("merge --csv " + first + " " + second)) ==
+          sorted_lines(output(args + " --csv")));
     // A shard's own summary says it is one.
     CHECK(output(args + " --shard 1/2").rfind("shard 1/2 of the campaign", 0) == 0);
 }
@@ -361,6 +379,64 @@ TEST_CASE("merge: parts that are not shards of one campaign exit 2 and say why")
     const Run design = run("merge " + sample("earth-return-capsule"));
     CHECK(design.exit_code == 2);
     CHECK(design.err.find("not a dispersion campaign") != std::string::npos);
+}
+
+TEST_CASE("merge: parts of another design, or changed by hand, are refused with why (exit 2)") {
+    const std::string args = " --runs 6 --seed 5 --json";
+    const std::string station = sample("small-ballistic-station");
+    const std::string first =
+        saved("station0.json", output("disperse " + station + args + " --shard 0/2"));
+    const std::string second_text = output("disperse " + station + args + " --shard 1/2");
+    const std::string second = saved("station1.json", second_text);
+    REQUIRE(run("merge " + first + " " + second).exit_code == 0);
+
+    // The same seed, runs and dispersions on a design with another entry azimuth: the heads
+    // agree in all but the design's digest.
+    const std::string turned = variant("small-ballistic-station", "turned",
+                                       [](Json& d) { d["entry"]["azimuth_deg"] = 96.0; });
+    const std::string other =
+        saved("turned1.json", output("disperse " + turned + args + " --shard 1/2"));
+    const Run mixed = run("merge " + first + " " + other);
+    CHECK(mixed.exit_code == 2);
+    CHECK(mixed.err.find("they fly different designs") != std::string::npos);
+
+    // A success flag flipped by hand disagrees with the case's failed checks.
+    Json flipped = Json::parse(second_text);
+    Json& row = flipped["campaign"]["cases"][0];
+    row["success"] = !row["success"].get<bool>();
+    const Run flag = run("merge " + first + " " + saved("flipped.json", flipped.dump()));
+    CHECK(flag.exit_code == 2);
+    CHECK(flag.err.find("case 1: its success disagrees with its failed checks") !=
+          std::string::npos);
+
+    // A figure changed by hand: the rows disagree with their digest.
+    Json edited = Json::parse(second_text);
+    edited["campaign"]["cases"][1]["figures"][0] = 1.0;
+    const Run figure = run("merge " + first + " " + saved("edited.json", edited.dump()));
+    CHECK(figure.exit_code == 2);
+    CHECK(figure.err.find("its cases disagree with their digest") != std::string::npos);
+
+    // A part written before the digests were kept, and a shard given twice.
+    Json old = Json::parse(second_text);
+    old["campaign"].erase("cases_digest");
+    old["campaign"].erase("design_digest");
+    const Run undigested = run("merge " + first + " " + saved("old.json", old.dump()));
+    CHECK(undigested.exit_code == 2);
+    CHECK(undigested.err.find("no digests of its design and cases") != std::string::npos);
+    const Run twice = run("merge " + first + " " + first + " " + second);
+    CHECK(twice.exit_code == 2);
+    CHECK(twice.err.find("shard 0/2 is given twice") != std::string::npos);
+}
+
+TEST_CASE("merge: a part whose keys were reordered (sorted by a tool) still merges") {
+    const std::string args =
+        "disperse " + sample("small-ballistic-station") + " --runs 6 --seed 5 --json";
+    const std::string first = saved("plain0.json", output(args + " --shard 0/2"));
+    const std::string second = output(args + " --shard 1/2");
+    // nlohmann::json (not ordered) writes its keys sorted: "cases" before "runs" and "seed".
+    const std::string sorted = saved("sorted1.json", Json::parse(second).dump(1));
+    CHECK(output("merge --json " + first + " " + sorted) ==
+          output("merge --json " + first + " " + saved("plain1.json", second)));
 }
 
 TEST_CASE("corridor: each bound passes through the size command and fails just past it") {

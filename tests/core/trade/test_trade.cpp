@@ -5,8 +5,10 @@
 #include <atomic>
 #include <cmath>
 #include <fstream>
+#include <sstream>
 #include <stdexcept>
 #include <string>
+#include <vector>
 
 #include <doctest/doctest.h>
 
@@ -87,6 +89,74 @@ TEST_CASE("a figure every case shares has that mean and a standard deviation of 
     // Sample standard deviation of 1, 2, 3 (n - 1): 1.
     CHECK(spread.mean == doctest::Approx(2.0).epsilon(1e-15));
     CHECK(spread.standard_deviation == doctest::Approx(1.0).epsilon(1e-15));
+}
+
+TEST_CASE("the mean and deviation of figures near the largest double are finite, not infinity") {
+    // Regression: the plain sum of 1.7e308 and 1.6e308 overflows, so merge printed infinity.
+    // Hand-computed: mean 1.65e308; sample deviation |1.7 - 1.6|e308 / sqrt(2) = 7.0711e306.
+    ds::DispersionCampaign campaign;
+    campaign.runs = 2;
+    campaign.figure_ids = {"huge"};
+    campaign.figure_units = {"m"};
+    for (const double v : {1.7e308, 1.6e308}) {
+        ds::DispersedCase c;
+        c.index = campaign.cases.size();
+        c.figures = {v};
+        c.success = true;
+        campaign.cases.push_back(c);
+    }
+    const ds::FigureStatistics huge = ds::summarize(campaign).figures.at(0);
+    CHECK(huge.mean == doctest::Approx(1.65e308).epsilon(1e-14));
+    CHECK(huge.standard_deviation == doctest::Approx(0.1e308 / std::sqrt(2.0)).epsilon(1e-12));
+}
+
+TEST_CASE("a campaign read case by case: what merge checks, and the same campaign back") {
+    const ds::Design d = sample("small-ballistic-station");
+    const auto part = ds::run_dispersions(d, {},
+                                          [] {
+                                              ds::DispersionSettings s = campaign_settings(8, 4, 1);
+                                              s.shard_index = 1;
+                                              s.shard_count = 2;
+                                              return s;
+                                          }())
+                          .first;
+    REQUIRE(part);
+    const nlohmann::ordered_json document = ds::campaign_to_json(*part);
+    const auto read = [](const nlohmann::ordered_json& j, std::vector<std::size_t>* handed) {
+        std::istringstream in(j.dump());
+        std::string error;
+        const auto campaign = ds::read_campaign(
+            in, [handed](const ds::DispersedCase& c) { handed->push_back(c.index); }, &error);
+        return std::pair{campaign, error};
+    };
+    std::vector<std::size_t> handed;
+    const auto [whole, none] = read(document, &handed);
+    REQUIRE_MESSAGE(whole, none);
+    CHECK(whole->cases.empty());  // handed on, not held
+    CHECK(handed == std::vector<std::size_t>{1, 3, 5, 7});
+    CHECK(whole->cases_digest == document["cases_digest"]);
+    CHECK(whole->design_digest == ds::design_digest(ds::freeze_design(d)));
+
+    // A case missing, repeated or of another shard; a row changed; the document cut short.
+    nlohmann::ordered_json short_one = document;
+    short_one["cases"].erase(2);
+    CHECK(read(short_one, &handed).second.find("case 5 is missing") != std::string::npos);
+    nlohmann::ordered_json repeated = document;
+    repeated["cases"][2] = repeated["cases"][1];
+    CHECK(read(repeated, &handed).second.find("case 3 is repeated") != std::string::npos);
+    nlohmann::ordered_json foreign = document;
+    foreign["cases"][0]["index"] = 2;
+    CHECK(read(foreign, &handed).second.find("case 2 is not of shard 1/2") != std::string::npos);
+    nlohmann::ordered_json changed = document;
+    changed["cases"][3]["draws"][0] = 0.5;
+    CHECK(read(changed, &handed).second.find("disagree with their digest") != std::string::npos);
+    std::istringstream cut(document.dump().substr(0, 400));
+    std::string error;
+    CHECK_FALSE(ds::read_campaign(cut, nullptr, &error));
+    CHECK(error.find("cut short") != std::string::npos);
+    std::istringstream blank("  \n");
+    CHECK_FALSE(ds::read_campaign(blank, nullptr, &error));
+    CHECK(error.find("empty") == 0);
 }
 
 TEST_CASE("the percentiles of a figure linear in a normal draw are those of the normal") {
