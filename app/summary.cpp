@@ -22,8 +22,18 @@ void heading(std::string& out, std::string_view title) {
 
 void row(std::string& out, std::string_view label, double value, std::string_view unit,
          int decimals) {
-    fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12.{}f} {}\n", label, label_width, value,
-                   decimals, unit);
+    // A figure that overflowed is said to be one (the finite_figures check names it), and one
+    // too large for its column is written with an exponent, not three hundred digits.
+    if (!std::isfinite(value)) {
+        fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12} {}\n", label, label_width,
+                       "not finite", unit);
+    } else if (std::abs(value) >= 1e9) {
+        fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12.4e} {}\n", label, label_width,
+                       value, unit);
+    } else {
+        fmt::format_to(std::back_inserter(out), "  {:<{}} {:>12.{}f} {}\n", label, label_width,
+                       value, decimals, unit);
+    }
 }
 
 void row(std::string& out, std::string_view label, const std::optional<double>& value,

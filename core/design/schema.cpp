@@ -256,6 +256,13 @@ constexpr double max_steps_max = 1'000'000;
 // Geographic angles: latitude on the sphere; longitudes and azimuths within a turn either way.
 constexpr ValueRange latitude_range{.at_least = -90.0, .at_most = 90.0};
 constexpr ValueRange longitude_range{.at_least = -360.0, .at_most = 360.0};
+// The diameter of an aeroshell, a decelerator or a canopy: ten kilometres is our bound, far
+// above any built (tens of metres) yet room for a stress test; far beyond it the masses and
+// loads that grow with the area overflow.
+constexpr ValueRange diameter_range{.above = 0.0, .at_most = 10'000.0};
+// A rocket's specific impulse: below 10 s is no propellant (cold gas gives some 50 to 70 s:
+// common practice); far below it the rocket equation's exponential overflows.
+constexpr ValueRange isp_range{.at_least = 10.0};
 // A wind scale multiplies the wind of the design; ten times is our bound on a plausible trade.
 constexpr double wind_scale_max = 10.0;
 
@@ -600,7 +607,7 @@ const std::array keys{
     KeyRow{.section = "entry",
            .key = "isp_s",
            .parent = "orbit",
-           .range = positive,
+           .range = isp_range,
            .unit = "s",
            .number = nested<&Design::entry, &EntryDesign::orbit, &OrbitDesign::isp_s>,
            .label = "Deorbit specific impulse",
@@ -660,7 +667,7 @@ const std::array keys{
     KeyRow{.section = "aeroshell",
            .key = "diameter_m",
            .kind = KeyKind::number_or_request,
-           .range = positive,
+           .range = diameter_range,
            .unit = "m",
            .number = member<&Design::aeroshell, &AeroshellDesign::diameter_m>,
            .label = "Diameter",
@@ -741,7 +748,7 @@ const std::array keys{
 
     KeyRow{.section = "decelerator",
            .key = "diameter_m",
-           .range = positive,
+           .range = diameter_range,
            .unit = "m",
            .number = member<&Design::decelerator, &DeceleratorDesign::diameter_m>,
            .label = "Decelerator diameter",
@@ -804,7 +811,7 @@ const std::array keys{
            .label = "Drogue type"},
     KeyRow{.section = "drogue",
            .key = "diameter_m",
-           .range = positive,
+           .range = diameter_range,
            .unit = "m",
            .number = member<&Design::drogue, &DrogueDesign::diameter_m>,
            .label = "Drogue diameter",
@@ -869,7 +876,7 @@ const std::array keys{
     KeyRow{.section = "parachute",
            .key = "diameter_m",
            .kind = KeyKind::number_or_request,
-           .range = positive,
+           .range = diameter_range,
            .unit = "m",
            .number = member<&Design::parachute, &ParachuteDesign::diameter_m>,
            .label = "Parachute diameter",
@@ -995,7 +1002,7 @@ const std::array keys{
            .choice_texts = method_texts},
     KeyRow{.section = "terminal",
            .key = "isp_s",
-           .range = positive,
+           .range = isp_range,
            .unit = "s",
            .number = member<&Design::terminal, &TerminalDesign::isp_s>,
            .methods = powered_methods,

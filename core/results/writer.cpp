@@ -1,5 +1,9 @@
 #include "results/writer.hpp"
 
+#include <cmath>
+
+#include <fmt/format.h>
+
 #include "json_values.hpp"
 #include "results/history_columns.hpp"
 
@@ -8,8 +12,39 @@ namespace {
 
 using json::array_of;
 using json::Json;
-using json::number;
 using json::object_or_null;
+
+// Numbers go in as they are; results_to_json turns those that are not finite into null at the
+// end unless asked to keep them, so that one walk can name them (non_finite_figures).
+Json number(double value) {
+    return Json(value);
+}
+
+Json number(const std::optional<double>& value) {
+    return value ? Json(*value) : Json(nullptr);
+}
+
+void null_non_finite(Json& value) {
+    if (value.is_number_float() && !std::isfinite(value.get<double>())) {
+        value = nullptr;
+    } else if (value.is_structured()) {
+        for (Json& element : value)
+            null_non_finite(element);
+    }
+}
+
+void collect_non_finite(const Json& value, const std::string& path,
+                        std::vector<std::string>& paths) {
+    if (value.is_number_float() && !std::isfinite(value.get<double>())) {
+        paths.push_back(path);
+    } else if (value.is_object()) {
+        for (auto it = value.begin(); it != value.end(); ++it)
+            collect_non_finite(it.value(), path.empty() ? it.key() : path + "." + it.key(), paths);
+    } else if (value.is_array()) {
+        for (std::size_t i = 0; i < value.size(); ++i)
+            collect_non_finite(value[i], fmt::format("{}[{}]", path, i), paths);
+    }
+}
 
 /// The deploy figures a drag device's object starts with.
 void put_deploy(Json& out, const DeployResults& deploy) {
@@ -288,7 +323,17 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
     out["notes"] = results.notes;
     if (options.include_history)
         out["history"] = array_of(results.history, sample_to_json);
+    if (!options.keep_non_finite)
+        null_non_finite(out);
     return out;
+}
+
+std::vector<std::string> non_finite_figures(const Results& results, bool include_history) {
+    std::vector<std::string> paths;
+    collect_non_finite(
+        results_to_json(results, {.include_history = include_history, .keep_non_finite = true}), "",
+        paths);
+    return paths;
 }
 
 std::string write_results(const Results& results, ResultsWriteOptions options) {

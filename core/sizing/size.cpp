@@ -14,6 +14,8 @@
 #include "heating/heat_shield_mass.hpp"
 #include "numerics/illinois.hpp"
 #include "results/caution.hpp"
+#include "results/key_figures.hpp"
+#include "results/writer.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
 #include "sizing/landed_mass.hpp"
@@ -915,6 +917,41 @@ Design freeze_design(const Design& design) {
     return frozen;
 }
 
+namespace {
+
+/// A figure that is not a finite number never passes for one: the check names the first few.
+/// An input far outside what the models were built for (a specific impulse of 1e-300 s, a
+/// canopy 1e300 m wide) can overflow a figure; the reader's ranges keep most such inputs out.
+std::optional<Check> finite_figures_check(const Results& results, const SizingOptions& options) {
+    std::vector<std::string> paths;
+    if (options.every_figure_checked) {
+        paths = non_finite_figures(results, options.history);
+    } else {
+        const std::vector<std::optional<double>> values = key_figure_values(results);
+        for (std::size_t i = 0; i < values.size(); ++i) {
+            if (values[i] && !std::isfinite(*values[i]))
+                paths.emplace_back(key_figure_table[i].id);
+        }
+    }
+    if (paths.empty())
+        return std::nullopt;
+    constexpr std::size_t named = 4;
+    std::string listed;
+    for (std::size_t i = 0; i < std::min(named, paths.size()); ++i)
+        listed += fmt::format("{}{}", i == 0 ? "" : ", ", paths[i]);
+    if (paths.size() > named)
+        listed += fmt::format(" and {} more", paths.size() - named);
+    return flight_check(
+        "finite_figures", CheckStatus::fail, static_cast<double>(paths.size()), 0.0, "figures",
+        fmt::format("{} figure{} of the sizing {} not a finite number ({}): an input lies outside "
+                    "what the models cover; look for one far from its typical range",
+                    paths.size(), paths.size() == 1 ? "" : "s", paths.size() == 1 ? "is" : "are",
+                    listed),
+        "the models' domain");
+}
+
+}  // namespace
+
 Results size_design(const Design& design, SizingOptions options) {
     const FlightEnvironment environment = make_environment(design);
     const FlightModel model = environment.model();
@@ -981,10 +1018,14 @@ Results size_design(const Design& design, SizingOptions options) {
         std::vector<Check> limits = limit_checks(design, results);
         checks.insert(checks.end(), limits.begin(), limits.end());
     }
-    order_checks(checks);
-    results.checks = std::move(checks);
     const bool flown = e.aeroshell.diameter_m > 0.0 && e.entry.end != EntryEnd::stopped;
     results.converged = flown && (!closure || closure->converged);
+    results.checks = std::move(checks);
+    if (std::optional<Check> finite = finite_figures_check(results, options)) {
+        results.checks.push_back(std::move(*finite));
+        results.converged = false;
+    }
+    order_checks(results.checks);
     return results;
 }
 

@@ -10,6 +10,10 @@ namespace ds {
 struct SizingOptions {
     bool capability = true;  ///< the highest feasible site elevation (a root-finding)
     bool history = true;     ///< the trajectory samples
+    /// Every number of the results checked finite (the `finite_figures` check; a walk of the
+    /// results document, some 30 us a sizing); off, the key figures alone: for trade cases,
+    /// which keep the key figures and nothing else.
+    bool every_figure_checked = true;
 };
 
 /// Sizes a design read by read_design: flies it, estimates what it can, and checks it.

@@ -66,7 +66,8 @@ private:
             return p;
         }
         // The highest feasible site and the history hold no check: not computed.
-        const Results r = size_design(*read.design, {false, false});
+        const Results r = size_design(
+            *read.design, {.capability = false, .history = false, .every_figure_checked = false});
         const FeasibilityMargin m = feasibility_margin(r);
         if (m.margin)
             p.margin = *m.margin;

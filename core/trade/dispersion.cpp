@@ -153,7 +153,8 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
             c.error = read.errors.front().text();
             return;
         }
-        const Results r = size_design(*read.design, {false, false});
+        const Results r = size_design(
+            *read.design, {.capability = false, .history = false, .every_figure_checked = false});
         c.figures = key_figure_values(r);
         if (r.landing) {
             c.landing = CaseLanding{r.landing->latitude_deg, r.landing->longitude_deg,

@@ -237,6 +237,7 @@ Optimisation optimise(const DesignVariants& design, const OptimiseSettings& sett
     }
     SizingOptions options;
     options.history = false;
+    options.every_figure_checked = false;  // the objective and the margins are key figures
     options.capability = settings.objective.figure == "max_site_elevation";
     const double sign = settings.objective.maximise ? -1.0 : 1.0;
     const auto size_at = [&](const std::vector<double>& x) -> std::optional<Results> {

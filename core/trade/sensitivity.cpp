@@ -19,7 +19,8 @@ std::vector<std::optional<double>> figures_of(
     const DesignReadResult read = design.with(values);
     if (!read.ok())
         return {};
-    return key_figure_values(size_design(*read.design, {true, false}));
+    return key_figure_values(size_design(
+        *read.design, {.capability = true, .history = false, .every_figure_checked = false}));
 }
 
 }  // namespace

@@ -63,7 +63,8 @@ std::vector<SweepCase> run_sweep(const DesignVariants& design, const std::vector
             c.error = read.errors.front().text();
             return;
         }
-        c.results = size_design(*read.design, {true, false});
+        c.results = size_design(
+            *read.design, {.capability = true, .history = false, .every_figure_checked = false});
     });
     return cases;
 }

@@ -145,6 +145,18 @@ TEST_CASE(
     CHECK(std::system(size.c_str()) == 0);
 }
 
+TEST_CASE("a figure that overflows prints as not finite and fails finite_figures, never nan") {
+    // From a hostile trial, where the text said "delta-v -nan m/s" and "inf kg".
+    const Run r = run("size " + variant("overflowing", [](nlohmann::json& d) {
+                          d["atmosphere"]["density_scale"] = 1e300;
+                      }));
+    CHECK(r.exit_code == 0);
+    CHECK(r.out.find("FAIL      finite_figures") != std::string::npos);
+    CHECK(r.out.find("not finite g") != std::string::npos);
+    CHECK(r.out.find("peak deceleration                      not finite g") != std::string::npos);
+    CHECK(r.out.find("nan") == std::string::npos);
+}
+
 TEST_CASE("a missing design file is refused with a non-zero exit") {
     const Run r = run("size /nonexistent/design.json");
     CHECK(r.exit_code != 0);

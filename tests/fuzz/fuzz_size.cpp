@@ -12,6 +12,7 @@
 #include <exception>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include <nlohmann/json.hpp>
 
@@ -62,6 +63,17 @@ void size_and_write(std::string_view text) {
     ds::Design design = *read.design;
     design.solver.max_steps = std::min(design.solver.max_steps, fuzz_max_steps);
     const ds::Results results = ds::size_design(design);
+    // The numbers themselves, before the writer turns those that are not finite into null: a
+    // figure that overflowed is never silent, the finite_figures check counts every one.
+    const std::vector<std::string> non_finite = ds::non_finite_figures(results, true);
+    if (!non_finite.empty()) {
+        const auto check =
+            std::find_if(results.checks.begin(), results.checks.end(),
+                         [](const ds::Check& c) { return c.id == "finite_figures"; });
+        if (check == results.checks.end() || check->status != ds::CheckStatus::fail ||
+            check->value != static_cast<double>(non_finite.size()) || results.converged)
+            fail("a non-finite figure no failing check names, at", non_finite.front());
+    }
     require_finite_numbers(ds::results_to_json(results, {.include_history = true}), "results");
     // The written text parses back (JSON has no NaN or infinity literal). Without the history:
     // the history's numbers were walked above, and parsing thousands of samples back under the

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <limits>
 #include <string>
+#include <vector>
 
 #include <doctest/doctest.h>
 
@@ -210,4 +211,73 @@ TEST_CASE("a 10 km canopy that outweighs the vehicle fails drop_mass, with no ne
         CAPTURE(item.name);
         CHECK(item.mass_kg >= 0.0);
     }
+}
+
+TEST_CASE("a specific impulse of 1e-300 s and a canopy 1e300 m wide are refused by the reader") {
+    // From a hostile trial: the first printed "delta-v -nan m/s", the second "inf kg". Below
+    // 10 s no propellant is a rocket's; over 10 km no canopy is a design.
+    const ds::DesignReadResult isp = ds::read_design(mars_capsule("isp", R"(
+      "parachute": { "type": "disk-gap-band", "diameter_m": 12.0, "deploy_mach": 1.8 },
+      "terminal": { "method": "retro", "isp_s": 1e-300, "thrust_to_weight": 2.5,
+                    "touchdown_velocity_m_s": 2.0 })"));
+    REQUIRE_FALSE(isp.ok());
+    CHECK(isp.errors.front().text() == "terminal.isp_s: must be at least 10, got 1e-300");
+    const ds::DesignReadResult canopy = ds::read_design(mars_capsule("canopy", R"(
+      "parachute": { "type": "disk-gap-band", "diameter_m": 1e300, "deploy_mach": 1.8 },
+      "terminal": { "method": "none" })"));
+    REQUIRE_FALSE(canopy.ok());
+    CHECK(canopy.errors.front().text() ==
+          "parachute.diameter_m: must be greater than 0 and at most 10000, got 1e+300");
+}
+
+TEST_CASE("a figure that overflows is named by a failing check, never passed off as a number") {
+    // The reader's ranges cannot foresee every product: an atmosphere 1e300 times denser gives a
+    // deceleration of infinity at the interface. The finite_figures check counts every number
+    // of the results that is not finite (the written document has null there), the sizing does
+    // not converge, and a trade case (key figures only) names the key figure.
+    const std::string dense = R"({
+      "format": "descent-sizer/design", "version": 1, "name": "dense", "body": "mars",
+      "atmosphere": { "model": "exponential", "surface_density_kg_m3": 0.020,
+                      "scale_height_m": 11100, "temperature_K": 210, "density_scale": 1e300 },
+      "site": { "elevation_m": -1500 },
+      "entry": { "interface_altitude_m": 125000, "velocity_m_s": 5600,
+                 "flight_path_angle_deg": -13.0 },
+      "aeroshell": { "diameter_m": 2.6, "half_angle_deg": 70, "nose_radius_m": 0.65 },
+      "mass": { "entry_kg": 560, "heat_shield_kg": 60 },
+      "parachute": { "type": "disk-gap-band", "diameter_m": 12.0, "deploy_mach": 1.8 },
+      "terminal": { "method": "none" }
+    })";
+    const ds::DesignReadResult read = ds::read_design(dense);
+    REQUIRE(read.ok());
+    const ds::Results r = ds::size_design(*read.design);
+    const std::vector<std::string> non_finite = ds::non_finite_figures(r, true);
+    REQUIRE_FALSE(non_finite.empty());
+    CHECK(non_finite.front() == "entry.peak_deceleration_g");
+    CHECK_FALSE(std::isfinite(r.entry.peak_deceleration_g));
+    CHECK_FALSE(r.converged);
+    const auto check = std::find_if(r.checks.begin(), r.checks.end(),
+                                    [](const ds::Check& c) { return c.id == "finite_figures"; });
+    REQUIRE(check != r.checks.end());
+    CHECK(check->status == ds::CheckStatus::fail);
+    CHECK(check->value == static_cast<double>(non_finite.size()));
+    CHECK(check->message.find("entry.peak_deceleration_g") != std::string::npos);
+    CHECK(ds::results_to_json(r)["entry"]["peak_deceleration_g"].is_null());
+    // A sound design has none, and no such check.
+    const ds::DesignReadResult sound = ds::read_design(mars_capsule("sound", R"(
+      "parachute": { "type": "disk-gap-band", "diameter_m": 12.0, "deploy_mach": 1.8 },
+      "terminal": { "method": "none" })"));
+    REQUIRE(sound.ok());
+    const ds::Results fine = ds::size_design(*sound.design);
+    CHECK(ds::non_finite_figures(fine, true).empty());
+    CHECK(std::none_of(fine.checks.begin(), fine.checks.end(),
+                       [](const ds::Check& c) { return c.id == "finite_figures"; }));
+
+    const ds::Results trade_case = ds::size_design(
+        *read.design, {.capability = false, .history = false, .every_figure_checked = false});
+    const auto key_check =
+        std::find_if(trade_case.checks.begin(), trade_case.checks.end(),
+                     [](const ds::Check& c) { return c.id == "finite_figures"; });
+    REQUIRE(key_check != trade_case.checks.end());
+    CHECK(key_check->message.find("peak_deceleration") != std::string::npos);
+    CHECK_FALSE(trade_case.converged);
 }

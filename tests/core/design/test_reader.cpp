@@ -239,7 +239,7 @@ TEST_CASE("numbers outside their range name the rule and the value") {
         {"/mass/entry_kg", 0, "mass.entry_kg", "must be positive, got 0"},
         {"/atmosphere/density_scale", 0, "atmosphere.density_scale", "must be positive"},
         {"/atmosphere/gamma", 1.0, "atmosphere.gamma", "must be greater than 1, got 1"},
-        {"/terminal/isp_s", 0, "terminal.isp_s", "must be positive"},
+        {"/terminal/isp_s", 0, "terminal.isp_s", "must be at least 10"},
         {"/terminal/thrust_to_weight", 1.0, "terminal.thrust_to_weight", "greater than 1"},
         {"/terminal/touchdown_velocity_m_s", 0, "terminal.touchdown_velocity_m_s",
          "must be positive"},
