@@ -374,13 +374,15 @@ const std::array sections{
 
 /// A limit: defaulted, any finite value unless said otherwise.
 template <auto field>
-KeyRow limit(std::string_view key, std::string_view unit, ValueRange range = any_finite) {
+KeyRow limit(std::string_view key, std::string_view unit, std::string_view label,
+             ValueRange range = any_finite) {
     return KeyRow{.section = "limits",
                   .key = key,
                   .need = KeyNeed::defaulted,
                   .range = range,
                   .unit = unit,
-                  .number = member<&Design::limits, field>};
+                  .number = member<&Design::limits, field>,
+                  .label = label};
 }
 
 // ---- The keys --------------------------------------------------------------------------------
@@ -1151,39 +1153,61 @@ const std::array keys{
            .typical = {{20, 300}},
            .placeholder = "from the burn"},
 
-    // The limits: their defaults and sources are in core/checks/limits.hpp. The form labels
-    // them by their keys.
-    limit<&Limits::ballistic_coefficient_max_kg_m2>("ballistic_coefficient_max_kg_m2", "kg/m^2"),
-    limit<&Limits::aeroshell_diameter_max_m>("aeroshell_diameter_max_m", "m"),
-    limit<&Limits::heritage_half_angle_deg>("heritage_half_angle_deg", "deg"),
-    limit<&Limits::parachute_diameter_max_m>("parachute_diameter_max_m", "m"),
-    limit<&Limits::deploy_mach_max>("deploy_mach_max", ""),
-    limit<&Limits::deploy_dynamic_pressure_min_Pa>("deploy_dynamic_pressure_min_Pa", "Pa"),
-    limit<&Limits::deploy_dynamic_pressure_max_Pa>("deploy_dynamic_pressure_max_Pa", "Pa"),
-    limit<&Limits::peak_deceleration_max_g>("peak_deceleration_max_g", "g"),
-    limit<&Limits::peak_heat_flux_max_W_cm2>("peak_heat_flux_max_W_cm2", "W/cm^2"),
-    limit<&Limits::site_elevation_max_m>("site_elevation_max_m", "m"),
-    limit<&Limits::landed_mass_max_kg>("landed_mass_max_kg", "kg"),
-    limit<&Limits::touchdown_velocity_max_m_s>("touchdown_velocity_max_m_s", "m/s"),
-    limit<&Limits::airbag_impact_velocity_max_m_s>("airbag_impact_velocity_max_m_s", "m/s"),
-    limit<&Limits::touchdown_horizontal_velocity_max_m_s>("touchdown_horizontal_velocity_max_m_s",
-                                                          "m/s"),
+    // The limits: their defaults and sources are in core/checks/limits.hpp; the form shows
+    // them with these labels.
+    limit<&Limits::ballistic_coefficient_max_kg_m2>("ballistic_coefficient_max_kg_m2", "kg/m^2",
+                                                    "Ballistic coefficient, at most"),
+    limit<&Limits::aeroshell_diameter_max_m>("aeroshell_diameter_max_m", "m",
+                                             "Aeroshell diameter, at most"),
+    limit<&Limits::heritage_half_angle_deg>("heritage_half_angle_deg", "deg",
+                                            "Heritage half-angle"),
+    limit<&Limits::parachute_diameter_max_m>("parachute_diameter_max_m", "m",
+                                             "Parachute diameter, at most"),
+    limit<&Limits::deploy_mach_max>("deploy_mach_max", "", "Deploy Mach, at most"),
+    limit<&Limits::deploy_dynamic_pressure_min_Pa>("deploy_dynamic_pressure_min_Pa", "Pa",
+                                                   "Deploy dynamic pressure, at least"),
+    limit<&Limits::deploy_dynamic_pressure_max_Pa>("deploy_dynamic_pressure_max_Pa", "Pa",
+                                                   "Deploy dynamic pressure, at most"),
+    limit<&Limits::peak_deceleration_max_g>("peak_deceleration_max_g", "g",
+                                            "Peak deceleration, at most"),
+    limit<&Limits::peak_heat_flux_max_W_cm2>("peak_heat_flux_max_W_cm2", "W/cm^2",
+                                             "Peak heat flux, at most"),
+    limit<&Limits::site_elevation_max_m>("site_elevation_max_m", "m", "Site elevation, at most"),
+    limit<&Limits::landed_mass_max_kg>("landed_mass_max_kg", "kg", "Landed mass, at most"),
+    limit<&Limits::touchdown_velocity_max_m_s>("touchdown_velocity_max_m_s", "m/s",
+                                               "Touchdown speed, at most"),
+    limit<&Limits::airbag_impact_velocity_max_m_s>("airbag_impact_velocity_max_m_s", "m/s",
+                                                   "Airbag impact speed, at most"),
+    limit<&Limits::touchdown_horizontal_velocity_max_m_s>(
+        "touchdown_horizontal_velocity_max_m_s", "m/s",
+        "Horizontal touchdown speed on legs, at most"),
     limit<&Limits::airbag_release_horizontal_velocity_max_m_s>(
-        "airbag_release_horizontal_velocity_max_m_s", "m/s"),
-    limit<&Limits::tethered_horizontal_velocity_max_m_s>("tethered_horizontal_velocity_max_m_s",
-                                                         "m/s"),
+        "airbag_release_horizontal_velocity_max_m_s", "m/s",
+        "Horizontal speed at airbag release, at most"),
+    limit<&Limits::tethered_horizontal_velocity_max_m_s>(
+        "tethered_horizontal_velocity_max_m_s", "m/s",
+        "Horizontal speed at tether touchdown, at most"),
     limit<&Limits::canopy_touchdown_horizontal_velocity_max_m_s>(
-        "canopy_touchdown_horizontal_velocity_max_m_s", "m/s"),
-    limit<&Limits::jettison_mach_max>("jettison_mach_max", ""),
-    limit<&Limits::jettison_dynamic_pressure_max_Pa>("jettison_dynamic_pressure_max_Pa", "Pa"),
-    limit<&Limits::subsonic_canopy_deploy_mach_max>("subsonic_canopy_deploy_mach_max", ""),
-    limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s"),
-    limit<&Limits::ignition_mach_max>("ignition_mach_max", ""),
-    limit<&Limits::ignition_dynamic_pressure_max_Pa>("ignition_dynamic_pressure_max_Pa", "Pa"),
-    limit<&Limits::thrust_to_weight_min>("thrust_to_weight_min", ""),
-    limit<&Limits::propellant_fraction_max>("propellant_fraction_max", ""),
+        "canopy_touchdown_horizontal_velocity_max_m_s", "m/s",
+        "Horizontal touchdown speed on the canopy, at most"),
+    limit<&Limits::jettison_mach_max>("jettison_mach_max", "",
+                                      "Heat-shield jettison Mach, at most"),
+    limit<&Limits::jettison_dynamic_pressure_max_Pa>(
+        "jettison_dynamic_pressure_max_Pa", "Pa", "Heat-shield jettison dynamic pressure, at most"),
+    limit<&Limits::subsonic_canopy_deploy_mach_max>("subsonic_canopy_deploy_mach_max", "",
+                                                    "Subsonic canopy deploy Mach, at most"),
+    limit<&Limits::timeline_margin_min_s>("timeline_margin_min_s", "s",
+                                          "Timeline margin, at least"),
+    limit<&Limits::ignition_mach_max>("ignition_mach_max", "", "Ignition Mach, at most"),
+    limit<&Limits::ignition_dynamic_pressure_max_Pa>("ignition_dynamic_pressure_max_Pa", "Pa",
+                                                     "Ignition dynamic pressure, at most"),
+    limit<&Limits::thrust_to_weight_min>("thrust_to_weight_min", "",
+                                         "Thrust-to-weight ratio, at least"),
+    limit<&Limits::propellant_fraction_max>("propellant_fraction_max", "",
+                                            "Propellant fraction, at most"),
     // A marginal band is a fraction of the limit (our bound).
-    limit<&Limits::marginal_band>("marginal_band", "", fraction_of_one),
+    limit<&Limits::marginal_band>("marginal_band", "", "Marginal band (fraction of the limit)",
+                                  fraction_of_one),
 
     KeyRow{.section = "solver",
            .key = "relative_tolerance",

@@ -486,6 +486,21 @@ TEST_CASE("the unit of any key of a written document comes from the schema") {
     check_listed("mass.items", document["mass"]["items"][0], ds::find_key("mass.items")->elements);
 }
 
+TEST_CASE("every number the form shows has a label of its own, the limits included") {
+    // Regression: the limits were labelled from their keys ("ballistic coefficient max kg m2").
+    for (const ds::KeyRow& row : ds::design_keys()) {
+        if (row.kind != ds::KeyKind::number && row.kind != ds::KeyKind::number_or_request)
+            continue;
+        CAPTURE(row.section);
+        CAPTURE(row.key);
+        CHECK_FALSE(row.label.empty());
+    }
+    const ds::KeyRow* beta = ds::find_key("limits.ballistic_coefficient_max_kg_m2");
+    REQUIRE(beta != nullptr);
+    CHECK(ds::label_of(*beta) == "Ballistic coefficient, at most");
+    CHECK(beta->unit == "kg/m^2");
+}
+
 TEST_CASE("every check points at a key of the schema") {
     for (const ds::CheckField& field : ds::check_fields()) {
         CAPTURE(field.check);
