@@ -1,6 +1,7 @@
 #include "trade_commands.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
 #include <fstream>
 #include <functional>
@@ -14,6 +15,7 @@
 
 #include "design/file_output.hpp"
 #include "design/reader.hpp"
+#include "design/schema.hpp"
 #include "results/key_figures.hpp"
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
@@ -91,26 +93,41 @@ void printSweepTable(const StudyOutcome& outcome) {
     const auto isShown = [&](const KeyFigureDefinition& f) {
         return std::find(shown.begin(), shown.end(), f.id) != shown.end();
     };
+    // Each column as wide as its whole name (at least 10), the units on a second line.
     std::string head;
-    for (const SweepAxis& a : outcome.request.axes)
-        head += fmt::format("{:>26} ", a.key);
-    for (const KeyFigureDefinition& f : key_figure_table) {
-        if (isShown(f))
-            head += fmt::format("{:>14} ", f.id.substr(0, 14));
+    std::string units;
+    std::vector<std::size_t> inputWidths;
+    for (const SweepAxis& a : outcome.request.axes) {
+        inputWidths.push_back(std::max<std::size_t>(a.key.size(), 10));
+        head += fmt::format("{:>{}} ", a.key, inputWidths.back());
+        const std::string_view unit = unit_of_path(a.key);
+        units += fmt::format("{:>{}} ", fmt::format("[{}]", unit.empty() ? "-" : unit),
+                             inputWidths.back());
     }
-    fmt::print("{}  worst\n", head);
+    std::vector<std::size_t> figureWidths(key_figure_table.size(), 0);
+    for (std::size_t i = 0; i < key_figure_table.size(); ++i) {
+        const KeyFigureDefinition& f = key_figure_table[i];
+        if (!isShown(f))
+            continue;
+        figureWidths[i] = std::max<std::size_t>(f.id.size(), 10);
+        head += fmt::format("{:>{}} ", f.id, figureWidths[i]);
+        units += fmt::format("{:>{}} ", fmt::format("[{}]", f.unit.empty() ? "-" : f.unit),
+                             figureWidths[i]);
+    }
+    fmt::print("{}  worst\n{}\n", head, units);
     for (const SweepCase& c : outcome.sweep) {
         std::string line;
-        for (const double v : c.inputs)
-            line += fmt::format("{:>26.6g} ", v);
+        for (std::size_t k = 0; k < c.inputs.size(); ++k)
+            line += fmt::format("{:>{}.6g} ", c.inputs[k], inputWidths.at(k));
         if (!c.results) {
             fmt::print("{}  cannot be read: {}\n", line, c.error);
             continue;
         }
         const std::vector<std::optional<double>> values = key_figure_values(*c.results);
         for (std::size_t i = 0; i < key_figure_table.size(); ++i) {
-            if (isShown(key_figure_table[i])) {
-                line += fmt::format("{:>14} ", valueText(values[i], key_figure_table[i].decimals));
+            if (figureWidths[i] > 0) {
+                line += fmt::format("{:>{}} ", valueText(values[i], key_figure_table[i].decimals),
+                                    figureWidths[i]);
             }
         }
         const WorstCheck w = worst_check(*c.results);
@@ -243,9 +260,17 @@ void printSensitivityRanking(const SensitivityTable& table) {
         if (ranked.empty())
             continue;
         fmt::print("\n{}\n", table.figures[f]);
-        for (std::size_t k = 0; k < std::min<std::size_t>(5, ranked.size()); ++k) {
-            fmt::print("  {:>+9.4f}  {}\n", ranked[k].second, ranked[k].first);
+        // An input that moves the figure by less than the last digit shown is not among the
+        // largest: it does not move it at all, as far as the differences can tell.
+        std::size_t listed = 0;
+        for (; listed < std::min<std::size_t>(5, ranked.size()); ++listed) {
+            if (std::abs(ranked[listed].second) < 0.5e-4)
+                break;
+            fmt::print("  {:>+9.4f}  {}\n", ranked[listed].second, ranked[listed].first);
         }
+        if (listed < std::min<std::size_t>(5, ranked.size()))
+            fmt::print("  {}\n", listed == 0 ? "(no input moves it by 0.0001 or more)"
+                                             : "(no other input moves it by 0.0001 or more)");
     }
 }
 

@@ -103,6 +103,25 @@ TEST_CASE(
           rows[2]["entry"]["peak_deceleration_g"].get<double>());
 }
 
+TEST_CASE("sweep: the table's columns carry whole figure names and their units") {
+    // Regression: the headers were cut to 14 characters ("ballistic_coef") with no units.
+    std::istringstream text(output("sweep " + sample("small-ballistic-station") +
+                                   " --vary aeroshell.diameter_m=2.2:3.4:2 --threads 2"));
+    std::string head;
+    std::string units;
+    std::getline(text, head);
+    std::getline(text, units);
+    CHECK(head.find("aeroshell.diameter_m ") != std::string::npos);
+    CHECK(head.find(" ballistic_coefficient ") != std::string::npos);
+    CHECK(head.find(" peak_deceleration ") != std::string::npos);
+    CHECK(units.find("[m]") != std::string::npos);
+    CHECK(units.find("[kg/m^2]") != std::string::npos);
+    CHECK(units.find("[W/cm^2]") != std::string::npos);
+    // Each unit stands under its name: both end in the same column.
+    CHECK(head.find(" ballistic_coefficient ") + std::string(" ballistic_coefficient").size() ==
+          units.find("[kg/m^2]") + std::string("[kg/m^2]").size());
+}
+
 TEST_CASE(
     "sweep: two --vary make a grid, the first key slowest, in the table, the JSON and the CSV") {
     const std::string args = "sweep " + sample("earth-return-capsule") +
@@ -134,7 +153,8 @@ TEST_CASE(
 
     std::istringstream table(output(args));
     std::getline(table, line);
-    CHECK(line.find("peak_decelerat") != std::string::npos);
+    CHECK(line.find("peak_deceleration") != std::string::npos);
+    std::getline(table, line);  // the units
     lines = 0;
     while (std::getline(table, line))
         ++lines;
@@ -246,7 +266,11 @@ TEST_CASE("sensitivity: the text ranks the inputs per figure and the CSV has a r
     const std::string args = "sensitivity " + sample("small-ballistic-station") +
                              " --inputs mass.entry_kg,aeroshell.diameter_m --threads 2";
     const std::string text = output(args);
-    CHECK(text.find("\nentry_mass\n    +1.0000  mass.entry_kg\n") != std::string::npos);
+    // An input that does not move a figure is not listed among its largest (it printed as
+    // +0.0000 before): the diameter does not change the entry mass.
+    CHECK(text.find("\nentry_mass\n    +1.0000  mass.entry_kg\n"
+                    "  (no other input moves it by 0.0001 or more)\n") != std::string::npos);
+    CHECK(text.find("0.0000") == std::string::npos);
     CHECK(text.find("\nballistic_coefficient\n    -1.99") != std::string::npos);
     std::istringstream csv(output(args + " --csv"));
     std::string line;
