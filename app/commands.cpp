@@ -13,6 +13,7 @@
 #include <fmt/format.h>
 #include <CLI/CLI.hpp>
 
+#include "design/key_reference.hpp"
 #include "design/reader.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
@@ -93,6 +94,11 @@ int runCommand(int argc, char** argv) {
             },
             "FILE.pdf|.html|.csv"));
 
+    CLI::App* keys = app.add_subcommand(
+        "keys",
+        "Print every key a design document may hold, with its unit, default and range "
+        "(Markdown)");
+
     const auto runTrade = addTradeCommands(app);
 
     try {
@@ -107,6 +113,10 @@ int runCommand(int argc, char** argv) {
         code = runTrade();
         if (code < 0 && *size)
             code = runSize(sizeOptions);
+        if (code < 0 && *keys) {
+            fmt::print("{}", design_key_reference());
+            code = 0;
+        }
         if (code < 0 && *sheet)
             code = startWindowProgram({"sheet", sheetDesign, "--output", sheetOutput});
         code = std::max(code, 0);

@@ -157,6 +157,14 @@ TEST_CASE("a figure that overflows prints as not finite and fails finite_figures
     CHECK(r.out.find("nan") == std::string::npos);
 }
 
+TEST_CASE("keys prints the reference of every design key, as resources/design-keys.md holds it") {
+    const Run r = run("keys");
+    CHECK(r.exit_code == 0);
+    CHECK(r.out.rfind("# The keys of a design document\n", 0) == 0);
+    CHECK(r.out.find("| `velocity_m_s` | Velocity | m/s | required | positive |") !=
+          std::string::npos);
+}
+
 TEST_CASE("a missing design file is refused with a non-zero exit") {
     const Run r = run("size /nonexistent/design.json");
     CHECK(r.exit_code != 0);
