@@ -9,9 +9,11 @@
 #include <filesystem>
 #include <string>
 #include <system_error>
+#include <vector>
 
 #include <fmt/format.h>
 #include <CLI/CLI.hpp>
+#include <nlohmann/json.hpp>
 
 #include "design/key_reference.hpp"
 #include "design/reader.hpp"
@@ -19,6 +21,7 @@
 #include "sizing/size.hpp"
 #include "summary.hpp"
 #include "trade_commands.hpp"
+#include "verification/reference_cases.hpp"
 #include "window_program.hpp"
 
 namespace ds {
@@ -31,6 +34,7 @@ constexpr int exit_usage = 1;
 constexpr int exit_unreadable = 2;
 constexpr int exit_internal = 3;
 constexpr int exit_write_failed = 4;
+constexpr int exit_reference_missed = 5;
 
 struct SizeOptions {
     std::string design;
@@ -53,6 +57,50 @@ int runSize(const SizeOptions& options) {
         fmt::print("{}", format_summary(*read.design, results));
     }
     return 0;
+}
+
+/// Prints the reference cases (verification/reference_cases) as a table, or as JSON; exits 5
+/// when one misses its tolerance.
+int runVerify(bool json) {
+    const std::vector<ReferenceCase> cases = run_reference_cases();
+    const auto missed = static_cast<std::size_t>(std::count_if(
+        cases.begin(), cases.end(), [](const ReferenceCase& c) { return !c.agrees(); }));
+    if (json) {
+        nlohmann::ordered_json out;
+        out["cases"] = nlohmann::ordered_json::array();
+        for (const ReferenceCase& c : cases) {
+            out["cases"].push_back({{"id", c.id},
+                                    {"title", c.title},
+                                    {"source", c.source},
+                                    {"unit", c.unit},
+                                    {"expected", c.expected},
+                                    {"computed", c.computed},
+                                    {"difference", c.difference()},
+                                    {"tolerance", c.tolerance},
+                                    {"relative", !c.absolute},
+                                    {"agrees", c.agrees()}});
+        }
+        out["missed"] = missed;
+        fmt::print("{}\n", out.dump(2));
+    } else {
+        fmt::print(
+            "Descent Sizer's models against published references and an independent "
+            "integration\n\n");
+        for (const ReferenceCase& c : cases) {
+            const std::string agreement =
+                c.absolute
+                    ? fmt::format("{:.3g} {} (within {:g})", c.difference(), c.unit, c.tolerance)
+                    : fmt::format("{:.2e} relative (within {:g})", c.difference(), c.tolerance);
+            fmt::print(
+                "{:<6} {}\n       source    {}\n       expected  {:.10g} {}\n"
+                "       computed  {:.10g} {}\n       agreement {}\n\n",
+                c.agrees() ? "agrees" : "MISSED", c.title, c.source, c.expected, c.unit, c.computed,
+                c.unit, agreement);
+        }
+        fmt::print("{} of {} cases agree within their tolerance.\n", cases.size() - missed,
+                   cases.size());
+    }
+    return missed == 0 ? 0 : exit_reference_missed;
 }
 
 }  // namespace
@@ -94,6 +142,14 @@ int runCommand(int argc, char** argv) {
             },
             "FILE.pdf|.html|.csv"));
 
+    bool verifyJson = false;
+    CLI::App* verify = app.add_subcommand(
+        "verify",
+        "Run the published reference cases through the program's models and print "
+        "each with its source, the expected and computed values and their agreement; "
+        "exits 5 when one misses");
+    verify->add_flag("--json", verifyJson, "Print the cases as JSON");
+
     CLI::App* keys = app.add_subcommand(
         "keys",
         "Print every key a design document may hold, with its unit, default and range "
@@ -113,6 +169,8 @@ int runCommand(int argc, char** argv) {
         code = runTrade();
         if (code < 0 && *size)
             code = runSize(sizeOptions);
+        if (code < 0 && *verify)
+            code = runVerify(verifyJson);
         if (code < 0 && *keys) {
             fmt::print("{}", design_key_reference());
             code = 0;

@@ -1,6 +1,7 @@
 // descent-sizer: a command, or the window.
 //   descent-sizer size DESIGN [--json [--history]] the sizing, printed
 //   descent-sizer sheet DESIGN -o OUT.pdf|.html|.csv the sizing sheet (by the window's program)
+//   descent-sizer verify [--json]                the reference cases, with their sources
 //   descent-sizer keys                           every key of a design document
 //   descent-sizer sweep|disperse|merge|sensitivity|corridor|optimise  trade studies
 //   descent-sizer [FILE] [--screenshot OUT.png]   the window (the demo design without FILE)
@@ -20,7 +21,8 @@ namespace {
 bool isCommand(std::string_view word) {
     return word == "size" || word == "sheet" || word == "sweep" || word == "disperse" ||
            word == "merge" || word == "sensitivity" || word == "corridor" || word == "optimise" ||
-           word == "keys" || word == "--help" || word == "-h" || word == "--version";
+           word == "keys" || word == "verify" || word == "--help" || word == "-h" ||
+           word == "--version";
 }
 
 }  // namespace

@@ -157,6 +157,25 @@ TEST_CASE("a figure that overflows prints as not finite and fails finite_figures
     CHECK(r.out.find("nan") == std::string::npos);
 }
 
+TEST_CASE("verify prints every reference case with its source and exits 0 when all agree") {
+    const Run r = run("verify");
+    CHECK(r.exit_code == 0);
+    CHECK(r.out.find("source    Allen and Eggers, NACA Report 1381 (1958)") != std::string::npos);
+    CHECK(r.out.find("MISSED") == std::string::npos);
+    const Run json = run("verify --json");
+    REQUIRE(json.exit_code == 0);
+    const nlohmann::json cases = nlohmann::json::parse(json.out);
+    CHECK(cases["missed"] == 0);
+    REQUIRE(cases["cases"].size() >= 20);
+    CHECK(r.out.find(std::to_string(cases["cases"].size()) + " of " +
+                     std::to_string(cases["cases"].size()) + " cases agree") != std::string::npos);
+    for (const auto& c : cases["cases"]) {
+        CAPTURE(c["id"]);
+        CHECK(c["agrees"] == true);
+        CHECK(c["difference"].get<double>() <= c["tolerance"].get<double>());
+    }
+}
+
 TEST_CASE("keys prints the reference of every design key, as resources/design-keys.md holds it") {
     const Run r = run("keys");
     CHECK(r.exit_code == 0);
