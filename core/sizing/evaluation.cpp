@@ -293,11 +293,11 @@ void add_propulsion(const TerminalDesign& t, double burned, double engines, Eval
                           burned, 100.0 * t.propellant_reserve_fraction,
                           100.0 * t.propellant_residual_fraction));
     e.budget.add_estimate("propellant tanks", tanks, MassGroup::descent_stage,
-                          fmt::format("{:.0f} % of loaded propellant ({})",
+                          fmt::format("{:.0f} % of loaded propellant; {}",
                                       100.0 * MassEstimates::tank_fraction, estimate_source));
     e.budget.add_estimate(
         "engines and feed system", engines, MassGroup::descent_stage,
-        fmt::format("{} kg per N of {} full thrust ({})", MassEstimates::engine_kg_per_N,
+        fmt::format("{} kg per N of {} full thrust; {}", MassEstimates::engine_kg_per_N,
                     t.thrust_N ? "the given" : "the", estimate_source));
 }
 
@@ -517,7 +517,7 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
     if (design.terminal.method == TerminalMethod::airbag) {
         e.budget.add_estimate("airbags", MassEstimates::airbag_fraction * e.landed_kg,
                               MassGroup::payload,
-                              fmt::format("{:.0f} % of the landed mass ({})",
+                              fmt::format("{:.0f} % of the landed mass; {}",
                                           100.0 * MassEstimates::airbag_fraction, estimate_source));
         if (e.impact_velocity_m_s) {
             e.impact_energy_J = 0.5 * e.landed_kg * *e.impact_velocity_m_s * *e.impact_velocity_m_s;

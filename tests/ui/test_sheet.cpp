@@ -15,6 +15,7 @@
 #include <QDir>
 #include <QFile>
 #include <QFileInfo>
+#include <QGlyphRun>
 #include <QLineSeries>
 #include <QPointer>
 #include <QRegularExpression>
@@ -23,21 +24,42 @@
 #include <QStackedBarSeries>
 #include <QTemporaryDir>
 #include <QTest>
+#include <QTextLayout>
 
 #include "design/reader.hpp"
 #include "results/caution.hpp"
+#include "sheet/sheet_pdf.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "sizing/size.hpp"
 #include "support/full_disk.hpp"
 #include "support/history_columns.hpp"
+#include "verification/reference_cases.hpp"
 #include "views/charts.hpp"
 
 using namespace ds;
 
 namespace {
 
-const QStringList sectionHeadings = {"Design",   "Caution", "Inputs", "Key figures", "Mass budget",
-                                     "Timeline", "Landing", "Checks", "Charts"};
+// The review's summary first (what was sized, the caution, the key figures, the mass budget,
+// what fails, the altitude-velocity profile), then the details, then the appendices.
+const QStringList sectionHeadings = {"Design",
+                                     "Caution",
+                                     "Key figures",
+                                     "Mass budget",
+                                     "Checks that fail or are marginal",
+                                     "Altitude and velocity",
+                                     "Timeline",
+                                     "Landing",
+                                     "Checks",
+                                     "Charts",
+                                     "Appendix A: inputs",
+                                     "Appendix B: verification"};
+
+/// Where a section's heading starts (an appendix's carries a page break), or -1.
+qsizetype headingAt(const QString& html, const QString& heading, qsizetype from = 0) {
+    const qsizetype end = html.indexOf(QStringLiteral(">%1</h2>").arg(heading), from);
+    return end < 0 ? -1 : html.lastIndexOf(QStringLiteral("<h2"), end);
+}
 
 QStringList csvColumnNames() {
     QStringList names;
@@ -110,12 +132,19 @@ private slots:
         QVERIFY(html.startsWith(QStringLiteral("<!DOCTYPE html>")));
         qsizetype previous = -1;
         for (const QString& heading : sectionHeadings) {
-            const qsizetype at = html.indexOf(QStringLiteral("<h2>%1</h2>").arg(heading));
+            const qsizetype at = headingAt(html, heading);
             QVERIFY2(at >= 0, qPrintable(heading));
             QVERIFY2(at > previous, qPrintable(heading + " is out of order"));
             previous = at;
         }
-        QCOMPARE(countOf(html, QStringLiteral("<h2>")), sectionHeadings.size());
+        QCOMPARE(countOf(html, QStringLiteral("<h2")), sectionHeadings.size());
+        // The appendices start new pages when printed.
+        QCOMPARE(countOf(html, QStringLiteral("<h2 style=\"page-break-before: always\">")), 2);
+        // The first page's profile is the altitude-velocity chart; the other charts follow.
+        const qsizetype profile = headingAt(html, QStringLiteral("Altitude and velocity"));
+        QCOMPARE(countOf(html.mid(profile, headingAt(html, QStringLiteral("Timeline")) - profile),
+                         QStringLiteral("<img ")),
+                 1);
     }
 
     void htmlCarriesTitleContextCautionNotesAndEveryCheck() {
@@ -144,24 +173,79 @@ private slots:
         QCOMPARE(countOf(html, QStringLiteral("src=\"data:image/png;base64,")), 5);
     }
 
-    void inputsTakeTheirUnitFromTheKeySuffix() {
+    void inputsAppendixGroupsLabelsAndMarksDefaults() {
+        // Regression: the sheet opened with two pages of raw keys ("mass.items[0].name").
         const QString html = sheetHtml(m_design, m_results, m_context);
-        const auto row = [](const char* key, const char* value, const char* unit) {
-            return QStringLiteral("<tr><td>%1</td><td class=\"num\">%2</td><td>%3</td></tr>")
-                .arg(QLatin1String(key), QLatin1String(value), QLatin1String(unit));
+        const QString appendix = html.mid(headingAt(html, QStringLiteral("Appendix A: inputs")));
+        const auto row = [](const char* label, const char* value, const char* unit,
+                            const char* note = "") {
+            return QStringLiteral(
+                       "<tr><td>%1</td><td class=\"num\">%2</td><td>%3</td><td>%4</td></tr>")
+                .arg(QString::fromUtf8(label), QString::fromUtf8(value), QString::fromUtf8(unit),
+                     QString::fromUtf8(note));
         };
-        QVERIFY(html.contains(row("entry.velocity", "5600", "m/s")));
-        QVERIFY(html.contains(row("entry.flight_path_angle", "-13", "deg")));
-        QVERIFY(html.contains(row("atmosphere.surface_density", "0.02", "kg/m^3")));
-        QVERIFY(html.contains(row("atmosphere.scale_height", "11100", "m")));
-        QVERIFY(html.contains(row("atmosphere.temperature", "210", "K")));
-        QVERIFY(html.contains(row("terminal.isp", "220", "s")));
-        QVERIFY(html.contains(row("limits.deploy_dynamic_pressure_max", "850", "Pa")));
-        QVERIFY(html.contains(row("limits.peak_heat_flux_max", "200", "W/cm^2")));
-        QVERIFY(html.contains(row("limits.ballistic_coefficient_max", "150", "kg/m^2")));
-        QVERIFY(html.contains(row("limits.peak_deceleration_max", "15", "g")));
-        QVERIFY(html.contains(row("parachute.deploy_mach", "1.8", "")));
-        QVERIFY(html.contains(QStringLiteral("<tr><td>body</td><td>mars</td><td></td></tr>")));
+        QVERIFY(appendix.contains(row("Velocity", "5600", "m/s")));
+        QVERIFY(appendix.contains(row("Flight-path angle", "-13", "deg")));
+        QVERIFY(appendix.contains(row("Surface density", "0.02", "kg/m^3")));
+        QVERIFY(appendix.contains(row("Scale height", "11100", "m")));
+        QVERIFY(appendix.contains(row("Specific impulse", "220", "s")));
+        QVERIFY(appendix.contains(row("Deploy Mach", "1.8", "")));
+        // Limits the design leaves to their defaults, marked so.
+        QVERIFY(appendix.contains(row("Deploy dynamic pressure, at most", "850", "Pa", "default")));
+        QVERIFY(appendix.contains(row("Peak heat flux, at most", "200", "W/cm^2", "default")));
+        QVERIFY(appendix.contains(row("Density scale", "1", "", "default")));
+        // Given by the design: no mark. Left out and estimated: said so.
+        QVERIFY(appendix.contains(row("Heat shield", "60", "kg")));
+        QVERIFY(appendix.contains(row("Backshell", "—", "kg", "estimated")));
+        // Grouped as the form groups them.
+        QVERIFY(appendix.indexOf(QStringLiteral("<h3>Entry</h3>")) <
+                appendix.indexOf(QStringLiteral("<h3>Aeroshell</h3>")));
+        QVERIFY(appendix.contains(
+            QStringLiteral("<tr><td class=\"key\">body</td><td>mars</td><td></td><td></td></tr>")));
+        // No keyed input is shown by its raw path (the dispersions name their keys, as given).
+        QVERIFY(!appendix.contains(QStringLiteral("<td class=\"key\">entry.")));
+    }
+
+    void verificationAppendixShowsEveryReferenceCaseAgreeing() {
+        const QString html = sheetHtml(m_design, m_results, m_context);
+        const QString appendix =
+            html.mid(headingAt(html, QStringLiteral("Appendix B: verification")));
+        const std::vector<ReferenceCase> cases = run_reference_cases();
+        QCOMPARE(countOf(appendix, QStringLiteral("<td class=\"pass\">agrees</td>")),
+                 static_cast<int>(cases.size()));
+        QVERIFY(!appendix.contains(QStringLiteral("MISSED")));
+        QVERIFY(appendix.contains(QStringLiteral("Allen and Eggers, NACA Report 1381")));
+        QVERIFY(appendix.contains(QStringLiteral("%1 of %1 agree").arg(cases.size())));
+    }
+
+    void reviewPageListsTheChecksThatFailOrAreMarginal() {
+        const QString html = sheetHtml(m_design, m_results, m_context);
+        const qsizetype from = headingAt(html, QStringLiteral("Checks that fail or are marginal"));
+        const QString review =
+            html.mid(from, headingAt(html, QStringLiteral("Altitude and velocity")) - from);
+        int notPassing = 0;
+        for (const Check& check : m_results.checks) {
+            const QString cell =
+                QStringLiteral("<td class=\"key\">%1</td>").arg(QString::fromStdString(check.id));
+            QCOMPARE(review.contains(cell), check.status != CheckStatus::pass);
+            notPassing += check.status != CheckStatus::pass ? 1 : 0;
+        }
+        if (notPassing == 0)
+            QVERIFY(review.contains(QStringLiteral("every one of the")));
+    }
+
+    void pdfTextIsSetWithoutLigatures() {
+        // Regression: "coefficient" was set with an "ffi" or "fi" ligature, so a search of the
+        // PDF for it found nothing. One glyph per letter of the sheet's font.
+        const QString word = QStringLiteral("coefficient flow");
+        QTextLayout layout(word, sheet::sheetFont());
+        layout.beginLayout();
+        layout.createLine();
+        layout.endLayout();
+        qsizetype glyphs = 0;
+        for (const QGlyphRun& run : layout.glyphRuns())
+            glyphs += run.glyphIndexes().size();
+        QCOMPARE(glyphs, word.size());
     }
 
     void htmlEscapesTheDesignName() {
@@ -390,8 +474,8 @@ private slots:
                  QStringLiteral("deorbit burn"));
         const QString html = sheetHtml(orbiting, results, m_context);
         const qsizetype at = html.indexOf("<h2>Deorbit burn</h2>");
-        QVERIFY(at > html.indexOf("<h2>Key figures</h2>"));
-        QVERIFY(at < html.indexOf("<h2>Mass budget</h2>"));
+        QVERIFY(at > headingAt(html, QStringLiteral("Altitude and velocity")));
+        QVERIFY(at < headingAt(html, QStringLiteral("Timeline")));
         QVERIFY(html.indexOf(QStringLiteral("%1").arg(results.orbit->delta_v_m_s, 0, 'f', 2), at) >
                 at);
         QVERIFY(!html.contains("<h2>Approach</h2>"));

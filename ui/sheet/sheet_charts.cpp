@@ -58,11 +58,15 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
 }
 
 QString chartImages(const std::vector<SheetChart>& charts, bool trade, const ImageSource& source,
-                    int width) {
+                    int width, std::size_t first, std::size_t count) {
     const int height = width * sheetChartSize.height() / sheetChartSize.width();
     QString body;
+    std::size_t ofKind = 0;  // the place of the chart among those of its kind
     for (std::size_t i = 0; i < charts.size(); ++i) {
         if (charts[i].trade != trade)
+            continue;
+        const std::size_t place = ofKind++;
+        if (place < first || place - first >= count)
             continue;
         body += QStringLiteral("<p><img src=\"%1\" width=\"%2\" height=\"%3\" alt=\"%4\"></p>\n")
                     .arg(source(i, charts[i].image).toHtmlEscaped())

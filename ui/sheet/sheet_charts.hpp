@@ -2,6 +2,7 @@
 
 #include <cstddef>
 #include <functional>
+#include <limits>
 #include <vector>
 
 #include <QImage>
@@ -32,9 +33,11 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
 /// resource name for the PDF's text document.
 using ImageSource = std::function<QString(std::size_t index, const QImage& image)>;
 
-/// The charts of the flight or of the trade study, as images `width` wide.
+/// The charts of the flight or of the trade study, as images `width` wide: `count` of them
+/// from the `first` of their kind (every one by default).
 QString chartImages(const std::vector<SheetChart>& charts, bool trade, const ImageSource& source,
-                    int width);
+                    int width, std::size_t first = 0,
+                    std::size_t count = std::numeric_limits<std::size_t>::max());
 
 /// An image as a PNG data URI.
 QString dataUri(const QImage& image);

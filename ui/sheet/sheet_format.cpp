@@ -45,8 +45,13 @@ QString formatFixed(const std::optional<double>& value, int decimals) {
                                           : QStringLiteral("—");
 }
 
-HtmlTable::HtmlTable(const QStringList& headings) {
-    m_html += QStringLiteral("<table border=\"1\" cellspacing=\"0\" cellpadding=\"3\">\n<tr>");
+HtmlTable::HtmlTable(const QStringList& headings, const QString& tableClass) {
+    m_html += tableClass.isEmpty()
+                  ? QStringLiteral("<table border=\"1\" cellspacing=\"0\" cellpadding=\"3\">\n<tr>")
+                  : QStringLiteral(
+                        "<table class=\"%1\" border=\"1\" cellspacing=\"0\" "
+                        "cellpadding=\"2\">\n<tr>")
+                        .arg(tableClass);
     for (const QString& heading : headings)
         m_html += QStringLiteral("<th>%1</th>").arg(escaped(heading));
     m_html += QStringLiteral("</tr>\n");
@@ -67,6 +72,13 @@ void HtmlTable::addRow(const std::vector<std::pair<QString, QString>>& cells,
 
 QString section(const QString& heading, const QString& body) {
     return QStringLiteral("<section>\n<h2>%1</h2>\n%2</section>\n").arg(escaped(heading), body);
+}
+
+QString sectionOnNewPage(const QString& heading, const QString& body) {
+    return QStringLiteral(
+               "<section>\n<h2 style=\"page-break-before: always\">%1</h2>\n%2"
+               "</section>\n")
+        .arg(escaped(heading), body);
 }
 
 QString paragraph(const QString& text, const QString& cssClass) {

@@ -25,7 +25,8 @@ QString formatFixed(const std::optional<double>& value, int decimals);
 /// A table built row by row; every cell's text is escaped here.
 class HtmlTable {
 public:
-    explicit HtmlTable(const QStringList& headings);
+    /// A table of these column headings; `tableClass` names a style of the sheet ("compact").
+    explicit HtmlTable(const QStringList& headings, const QString& tableClass = {});
 
     /// A row; a cell given as {text, class} is written with that class ("num", "fail").
     void addRow(const std::vector<std::pair<QString, QString>>& cells,
@@ -42,6 +43,8 @@ inline const QString numberCell = QStringLiteral("num");
 inline const QString keyCell = QStringLiteral("key");
 
 QString section(const QString& heading, const QString& body);
+/// A section that starts a new page when printed (the PDF's appendices).
+QString sectionOnNewPage(const QString& heading, const QString& body);
 QString paragraph(const QString& text, const QString& cssClass = {});
 
 }  // namespace ds::sheet

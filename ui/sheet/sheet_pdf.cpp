@@ -1,6 +1,7 @@
 #include "sheet/sheet_pdf.hpp"
 
 #include <QAbstractTextDocumentLayout>
+#include <QFont>
 #include <QPageLayout>
 #include <QPageSize>
 #include <QPainter>
@@ -22,6 +23,14 @@ constexpr double pdfFooterHeight = 24.0;
 
 }  // namespace
 
+QFont sheetFont() {
+    // Without shaping, Latin text is set glyph for glyph: no "fi" or "fl" ligature, so the
+    // PDF's text is found by a search for "coefficient" and copies as it reads.
+    QFont font(QStringLiteral("DejaVu Sans"));
+    font.setStyleStrategy(QFont::PreferNoShaping);
+    return font;
+}
+
 bool writePagedPdf(QIODevice& device, const QString& title, const QString& creator,
                    const PagedHtml& html) {
     QPdfWriter writer(&device);
@@ -33,6 +42,7 @@ bool writePagedPdf(QIODevice& device, const QString& title, const QString& creat
     writer.setCreator(creator);
 
     QTextDocument document;
+    document.setDefaultFont(sheetFont());
     document.documentLayout()->setPaintDevice(&writer);
     const ImageSource resource = [&document](std::size_t index, const QImage& image) {
         const QString name = QStringLiteral("chart%1.png").arg(index + 1);

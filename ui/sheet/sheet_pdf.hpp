@@ -2,6 +2,7 @@
 
 #include <functional>
 
+#include <QFont>
 #include <QIODevice>
 #include <QString>
 
@@ -11,6 +12,9 @@ namespace ds::sheet {
 
 /// The HTML to lay out, given how its images are named and how wide charts are drawn.
 using PagedHtml = std::function<QString(const ImageSource& source, int chartWidth)>;
+
+/// The font the PDF's text is laid out in: DejaVu Sans, set without ligatures.
+QFont sheetFont();
 
 /// Lays HTML out on A4 pages, at screen resolution so that pixel sizes mean what they mean in
 /// the HTML, with "<title> — page i of n" at the foot of every page: the sheet as a PDF. The

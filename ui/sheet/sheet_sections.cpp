@@ -5,12 +5,14 @@
 #include <string_view>
 #include <vector>
 
+#include "design/key_path.hpp"
 #include "design/schema.hpp"
 #include "design/writer.hpp"
 #include "results/caution.hpp"
 #include "results/key_figures.hpp"
 #include "sheet/sheet_format.hpp"
 #include "trade/study.hpp"
+#include "verification/reference_cases.hpp"
 
 namespace ds::sheet {
 namespace {
@@ -65,17 +67,6 @@ void flatten(const nlohmann::ordered_json& node, const std::string& path,
     rows.push_back(std::move(row));
 }
 
-std::vector<InputRow> inputRows(const Design& design) {
-    std::vector<InputRow> rows;
-    const nlohmann::ordered_json document = design_to_json(design);
-    for (const auto& [key, value] : document.items()) {
-        if (key == "format" || key == "version")
-            continue;
-        flatten(value, key, rows);
-    }
-    return rows;
-}
-
 }  // namespace
 
 QString designSection(const Design& design, const Results& results) {
@@ -121,14 +112,6 @@ QString cautionSection(const Results& results) {
     if (!notes.isEmpty())
         body += QStringLiteral("<ul>\n%1</ul>\n").arg(notes);
     return section(QStringLiteral("Caution"), body);
-}
-
-QString inputsSection(const Design& design) {
-    HtmlTable table({QStringLiteral("key"), QStringLiteral("value"), QStringLiteral("unit")});
-    for (const InputRow& row : inputRows(design))
-        table.addRow(
-            {{row.key, {}}, {row.value, row.numeric ? numberCell : QString()}, {row.unit, {}}});
-    return section(QStringLiteral("Inputs"), table.html());
 }
 
 QString keyFiguresSection(const Results& results) {
@@ -269,6 +252,181 @@ QString checksSection(const Results& results) {
                       {QString::fromStdString(check.source), {}}});
     }
     return section(QStringLiteral("Checks"), table.html());
+}
+
+QString reviewChecksSection(const Results& results) {
+    HtmlTable table({QStringLiteral("status"), QStringLiteral("id"), QStringLiteral("message")});
+    int shown = 0;
+    for (const Check& check : results.checks) {
+        if (check.status == CheckStatus::pass)
+            continue;
+        const QString status = QString::fromUtf8(to_string(check.status));
+        table.addRow({{status, status},
+                      {QString::fromStdString(check.id), keyCell},
+                      {QString::fromStdString(check.message), {}}});
+        ++shown;
+    }
+    const QString heading = QStringLiteral("Checks that fail or are marginal");
+    if (shown == 0) {
+        return section(heading, paragraph(QStringLiteral("None: every one of the %1 checks passes.")
+                                              .arg(results.checks.size())));
+    }
+    return section(heading,
+                   table.html() + paragraph(QStringLiteral("%1 of %2 checks; every check, with its "
+                                                           "value, limit and source, follows.")
+                                                .arg(shown)
+                                                .arg(results.checks.size())));
+}
+
+namespace {
+
+/// Whether a key of the schema is one the design uses: of its atmosphere model and terminal
+/// method.
+bool usedBy(const KeyRow& row, const Design& design) {
+    if (row.model && *row.model != design.atmosphere.model)
+        return false;
+    return row.methods.empty() || std::find(row.methods.begin(), row.methods.end(),
+                                            design.terminal.method) != row.methods.end();
+}
+
+QString fromView(std::string_view text) {
+    return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size()));
+}
+
+QString sectionTitle(const SectionRow& section) {
+    if (!section.label.empty())
+        return fromView(section.label);
+    QString name = fromView(section.name);
+    if (!name.isEmpty())
+        name[0] = name[0].toUpper();
+    return name;
+}
+
+}  // namespace
+
+QString inputsAppendix(const Design& design) {
+    const nlohmann::ordered_json document = design_to_json(design);
+    const Design defaults;
+    QString body = paragraph(QStringLiteral(
+        "The design's inputs as the form groups and labels them. \"default\" marks a value the "
+        "design leaves to the program's default; an optional input left out says what stands in "
+        "its place."));
+    const auto byHandRows = [&](HtmlTable& table, const nlohmann::ordered_json& part,
+                                const std::string& path) {
+        std::vector<InputRow> rows;
+        flatten(part, path, rows);
+        for (const InputRow& row : rows) {
+            table.addRow({{row.key, keyCell},
+                          {row.value, row.numeric ? numberCell : QString()},
+                          {row.unit, {}},
+                          {QString(), {}}});
+        }
+    };
+    for (const SectionRow& section : design_sections()) {
+        if ((section.present && !section.present(design)) || !document.contains(section.name))
+            continue;
+        HtmlTable table({QStringLiteral("input"), QStringLiteral("value"), QStringLiteral("unit"),
+                         QStringLiteral("note")});
+        const std::string name(section.name);
+        if (section.by_hand) {
+            byHandRows(table, document.at(name), name);
+        } else {
+            for (const KeyRow* row : keys_of(section.name)) {
+                if (!usedBy(*row, design))
+                    continue;
+                const QString label = QString::fromStdString(label_of(*row));
+                const QString unit = fromView(row->unit);
+                switch (row->kind) {
+                    case KeyKind::number:
+                    case KeyKind::integer:
+                    case KeyKind::number_or_request: {
+                        const std::optional<double> value = row->number.get(design);
+                        if (!value) {
+                            // An optional input left out: what stands in its place.
+                            if (row->need == KeyNeed::optional && row->parent.empty() &&
+                                !row->group) {
+                                table.addRow({{label.trimmed(), {}},
+                                              {QStringLiteral("—"), numberCell},
+                                              {unit, {}},
+                                              {fromView(row->placeholder), {}}});
+                            }
+                            break;
+                        }
+                        std::optional<double> fallback = row->default_value;
+                        if (!fallback && row->need == KeyNeed::defaulted)
+                            fallback = row->number.get(defaults);
+                        const bool isDefault =
+                            row->need == KeyNeed::defaulted && fallback && *fallback == *value;
+                        table.addRow({{label.trimmed(), {}},
+                                      {QString::number(*value, 'g', 9), numberCell},
+                                      {unit, {}},
+                                      {isDefault ? QStringLiteral("default") : QString(), {}}});
+                        break;
+                    }
+                    case KeyKind::choice:
+                    case KeyKind::text: {
+                        const std::string_view text = row->text.get(design);
+                        if (text.empty())
+                            break;
+                        const bool isDefault =
+                            row->need == KeyNeed::defaulted && row->text.get(defaults) == text;
+                        table.addRow({{label.trimmed(), {}},
+                                      {fromView(text), {}},
+                                      {QString(), {}},
+                                      {isDefault ? QStringLiteral("default") : QString(), {}}});
+                        break;
+                    }
+                    case KeyKind::object:
+                        break;  // its keys are rows of their own
+                    case KeyKind::by_hand: {
+                        const nlohmann::ordered_json::json_pointer pointer(
+                            key_to_pointer(row->path()));
+                        if (document.contains(pointer))  // "items[0].name" in "Mass"
+                            byHandRows(table, document.at(pointer), std::string(row->key));
+                        break;
+                    }
+                }
+            }
+        }
+        body += QStringLiteral("<h3>%1</h3>\n%2").arg(escaped(sectionTitle(section)), table.html());
+    }
+    return sectionOnNewPage(QStringLiteral("Appendix A: inputs"), body);
+}
+
+QString verificationAppendix() {
+    const std::vector<ReferenceCase> cases = run_reference_cases();
+    HtmlTable table(
+        {QStringLiteral("case: source"), QStringLiteral("expected"), QStringLiteral("computed"),
+         QStringLiteral("unit"), QStringLiteral("difference (tolerance)"), QString()},
+        QStringLiteral("compact"));
+    int agreeing = 0;
+    for (const ReferenceCase& c : cases) {
+        const bool agrees = c.agrees();
+        agreeing += agrees ? 1 : 0;
+        const QString difference =
+            c.absolute
+                ? QStringLiteral("%1 %2 (%3)")
+                      .arg(QString::number(c.difference(), 'g', 2), QString::fromStdString(c.unit),
+                           QString::number(c.tolerance))
+                : QStringLiteral("%1 (%2) relative")
+                      .arg(QString::number(c.difference(), 'e', 1), QString::number(c.tolerance));
+        table.addRow({{QString::fromStdString(c.title + ": " + c.source), {}},
+                      {QString::number(c.expected, 'g', 8), numberCell},
+                      {QString::number(c.computed, 'g', 8), numberCell},
+                      {QString::fromStdString(c.unit), {}},
+                      {difference, {}},
+                      {agrees ? QStringLiteral("agrees") : QStringLiteral("MISSED"),
+                       agrees ? QStringLiteral("pass") : QStringLiteral("fail")}});
+    }
+    const QString intro = paragraph(
+        QStringLiteral("The program's models run now on published reference cases and against an "
+                       "independent integration of the same equations (descent-sizer verify "
+                       "prints the same): %1 of %2 agree within their tolerance. Agreement shows "
+                       "the equations are solved as written; it does not validate the models "
+                       "against flight data.")
+            .arg(agreeing)
+            .arg(cases.size()));
+    return sectionOnNewPage(QStringLiteral("Appendix B: verification"), intro + table.html());
 }
 
 QString landingSection(const Design& design, const Results& results, const StudyOutcome* trade) {

@@ -34,10 +34,12 @@ th, td { border: 1px solid #999; padding: 2px 5px; vertical-align: top; font-siz
 th { background-color: #eee; text-align: left; }
 td.num { text-align: right; white-space: nowrap; }
 td.key { white-space: nowrap; }
-td.fail { color: #a00000; font-weight: bold; }
-td.marginal { color: #8a5a00; font-weight: bold; }
-td.pass { color: #1e5e2e; }
+td.fail { color: #a00000; font-weight: bold; white-space: nowrap; }
+td.marginal { color: #8a5a00; font-weight: bold; white-space: nowrap; }
+td.pass { color: #1e5e2e; white-space: nowrap; }
+h3 { font-size: 10.5pt; margin-top: 1em; margin-bottom: 0.2em; }
 tr.total td { font-weight: bold; }
+table.compact td, table.compact th { font-size: 7pt; padding: 1px 3px; }
 img { max-width: 100%; height: auto; }
 )";
 
@@ -60,18 +62,25 @@ QString composeSheet(const Design& design, const Results& results, const SheetCo
     html += QStringLiteral(
                 "<p class=\"meta\">Date: %1<br>Tool: Descent Sizer %2<br>Design file: %3</p>\n")
                 .arg(escaped(date), escaped(context.toolVersion), escaped(file));
+    // The first pages are the review's summary: what was sized, the caution, the key figures,
+    // the mass budget, what fails or is marginal, and the altitude-velocity profile. Then the
+    // details, then the inputs and the verification as appendices.
     html += designSection(design, results);
     html += cautionSection(results);
-    html += inputsSection(design);
     html += keyFiguresSection(results);
-    html += entryStartSection(results);
     html += massSection(results);
+    html += reviewChecksSection(results);
+    html += section(QStringLiteral("Altitude and velocity"),
+                    chartImages(charts, false, source, chartWidth, 0, 1));
+    html += entryStartSection(results);
     html += timelineSection(design, results);
     html += landingSection(design, results, context.trade);
     html += checksSection(results);
-    html += section(QStringLiteral("Charts"), chartImages(charts, false, source, chartWidth));
+    html += section(QStringLiteral("Charts"), chartImages(charts, false, source, chartWidth, 1));
     if (context.trade)
         html += tradeSection(context, charts, source, chartWidth);
+    html += inputsAppendix(design);
+    html += verificationAppendix();
     html += QStringLiteral("</body>\n</html>\n");
     return html;
 }
