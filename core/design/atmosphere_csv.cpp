@@ -3,11 +3,13 @@
 #include <array>
 #include <charconv>
 #include <cmath>
-#include <fstream>
 #include <optional>
+#include <sstream>
 #include <string_view>
 
 #include <fmt/format.h>
+
+#include "design/text_file.hpp"
 
 namespace ds {
 namespace {
@@ -138,14 +140,21 @@ void assign(AtmosphereRow& row, Column column, double value) {
 }  // namespace
 
 AtmosphereCsv read_atmosphere_csv(const std::filesystem::path& file) {
-    AtmosphereCsv table;
-    std::ifstream in(file);
-    if (!in) {
-        table.error = "cannot open the file";
+    std::string error;
+    const std::optional<std::string> text =
+        read_text_file(file, most_table_file_bytes, "an atmosphere table", &error);
+    if (!text) {
+        AtmosphereCsv table;
+        table.error = fmt::format("cannot open the file: {}", error);
         return table;
     }
+    return parse_atmosphere_csv(*text);
+}
 
+AtmosphereCsv parse_atmosphere_csv(std::string_view csv) {
+    AtmosphereCsv table;
     std::optional<Header> header;
+    std::istringstream in{std::string(csv)};
     std::string text;
     int line_number = 0;
     while (std::getline(in, text)) {
@@ -187,6 +196,11 @@ AtmosphereCsv read_atmosphere_csv(const std::filesystem::path& file) {
                 return table;
             }
             assign(row, columns[i], value.number);
+        }
+        if (table.rows.size() == most_table_rows) {
+            table.error = fmt::format("line {}: more than {} rows, the most a table may have",
+                                      line_number, most_table_rows);
+            return table;
         }
         table.rows.push_back(row);
         table.lines.push_back(line_number);

@@ -2,6 +2,7 @@
 
 #include <filesystem>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "design/design.hpp"
@@ -20,7 +21,12 @@ struct AtmosphereCsv {
 /// density_kg_m3, temperature_K, in any order; other columns are an error); '#' starts a
 /// comment line; blank lines are skipped. Every value must be a finite number. Errors leave
 /// the file's name to the caller: "line 4: missing column temperature_K", "cannot open the
-/// file". Whether the rows make a usable table (order, signs) is the design reader's business.
+/// file: no such file". Whether the rows make a usable table (order, signs) is the design
+/// reader's business. Only a regular file of at most `most_table_file_bytes`, of at most
+/// `most_table_rows` rows, is read (design/text_file.hpp).
 AtmosphereCsv read_atmosphere_csv(const std::filesystem::path& file);
+
+/// The same, from the file's text.
+AtmosphereCsv parse_atmosphere_csv(std::string_view csv);
 
 }  // namespace ds

@@ -10,6 +10,7 @@
 #include <nlohmann/json.hpp>
 
 #include "support/command_line.hpp"
+#include "support/special_files.hpp"
 
 namespace fs = std::filesystem;
 
@@ -182,6 +183,20 @@ TEST_CASE("keys prints the reference of every design key, as resources/design-ke
     CHECK(r.out.rfind("# The keys of a design document\n", 0) == 0);
     CHECK(r.out.find("| `velocity_m_s` | Velocity | m/s | required | positive |") !=
           std::string::npos);
+}
+
+TEST_CASE("size refuses /dev/zero and a FIFO at once, as unreadable (exit 2), saying why") {
+    // From a hostile trial: both were read without end or blocked forever.
+    const std::filesystem::path dir = ds::test::scratch("descent-sizer-cli-test");
+    const ds::test::Fifo fifo(dir / "design.fifo");
+    REQUIRE(fifo.ok());
+    for (const std::string& file : {std::string("/dev/zero"), fifo.path().string()}) {
+        CAPTURE(file);
+        const Run r = ds::test::run_binary_within("size " + ds::test::quoted(file), dir, 20);
+        CHECK(r.exit_code == 2);
+        CHECK(r.err.find("not a regular file (a device or a pipe), so not read") !=
+              std::string::npos);
+    }
 }
 
 TEST_CASE("a missing design file is refused with a non-zero exit") {

@@ -54,6 +54,20 @@ inline Run run_binary(const std::string& arguments, const std::filesystem::path&
     return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, file_text(out), file_text(err)};
 }
 
+/// Runs the binary as run_binary does, stopped after `seconds` (coreutils' timeout: the exit
+/// code is then 124), so a command that would block or read without end fails its test rather
+/// than hangs it.
+inline Run run_binary_within(const std::string& arguments, const std::filesystem::path& dir,
+                             int seconds) {
+    const std::filesystem::path out = dir / "stdout.txt";
+    const std::filesystem::path err = dir / "stderr.txt";
+    const std::string command = "timeout -k 5 " + std::to_string(seconds) + " " +
+                                quoted(DESCENT_SIZER_BINARY) + " " + arguments + " >" +
+                                quoted(out) + " 2>" + quoted(err);
+    const int status = std::system(command.c_str());
+    return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, file_text(out), file_text(err)};
+}
+
 /// Runs the binary as run_binary does, on a disk full past `kib` KiB: no file the command
 /// writes may grow past it (the shell's file-size limit, its outputs to stdout.txt and
 /// stderr.txt included, so keep them short), and a write past it fails as on a full disk (the

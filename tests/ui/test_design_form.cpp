@@ -16,6 +16,7 @@
 #include "design/schema.hpp"
 #include "model/design_document.hpp"
 #include "parachute/canopy.hpp"
+#include "support/special_files.hpp"
 #include "views/design_form.hpp"
 #include "views/quantity_edit.hpp"
 #include "views/wind_table.hpp"
@@ -287,6 +288,24 @@ private slots:
         QString error;
         QVERIFY(!document.open(path, &error));
         QVERIFY2(error.contains("nest more than 64 levels"), qPrintable(error));
+    }
+
+    void aDeviceOrAPipeIsRefusedNotReadOrWaitedOn() {
+        // Regression: opening /dev/zero read without end, and a FIFO blocked the window.
+        DesignDocument zero;
+        QString error;
+        QVERIFY(!zero.open(QStringLiteral("/dev/zero"), &error));
+        QVERIFY2(error.contains("not a regular file (a device or a pipe)"), qPrintable(error));
+        QTemporaryDir dir;
+        const test::Fifo fifo(dir.filePath("design.fifo").toStdString());
+        QVERIFY(fifo.ok());
+        DesignDocument piped;
+        bool opened = true;
+        QVERIFY(test::returns_within(
+            [&] { opened = piped.open(QString::fromStdString(fifo.path().string()), &error); },
+            fifo));
+        QVERIFY(!opened);
+        QVERIFY2(error.contains("not a regular file"), qPrintable(error));
     }
 
     void aVersionBeyondThirtyTwoBitsIsANewerVersionNotOne() {

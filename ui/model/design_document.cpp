@@ -1,11 +1,14 @@
 #include "model/design_document.hpp"
 
+#include <filesystem>
+
 #include <QDir>
 #include <QFile>
 #include <QFileInfo>
 #include <QUndoCommand>
 #include <QUndoStack>
 
+#include "design/text_file.hpp"
 #include "model/atomic_file.hpp"
 
 namespace ds {
@@ -63,16 +66,17 @@ void DesignDocument::restore(Json json, const QString& filePath) {
 }
 
 bool DesignDocument::open(const QString& path, QString* error) {
-    QFile file(path);
-    if (!file.open(QIODevice::ReadOnly)) {
-        *error = tr("Cannot open %1: %2").arg(path, file.errorString());
+    // Read as the command line reads a design: a regular file of a bounded size (a device or a
+    // pipe would be read without end or block the window).
+    std::string problem;
+    const std::optional<std::string> text = read_text_file(
+        std::filesystem::path(path.toStdString()), most_design_bytes, "a design", &problem);
+    if (!text) {
+        *error = tr("Cannot open %1: %2").arg(path, QString::fromStdString(problem));
         return false;
     }
-    const QByteArray bytes = file.readAll();
     // The reader's guarded parse: a document nested too deep is refused, not walked.
-    std::string problem;
-    const std::optional<Json> parsed =
-        parse_design_text(std::string_view(bytes.constData(), bytes.size()), &problem);
+    const std::optional<Json> parsed = parse_design_text(*text, &problem);
     if (!parsed) {
         *error = tr("%1 is not a design document:\n%2").arg(path, QString::fromStdString(problem));
         return false;

@@ -104,6 +104,6 @@ TEST_CASE("a CSV file that cannot be opened says so") {
     const auto table = ds::read_atmosphere_csv(std::filesystem::temp_directory_path() /
                                                "descent_sizer_no_such_table.csv");
     CHECK_FALSE(table.ok());
-    CHECK(table.error == "cannot open the file");
+    CHECK(table.error == "cannot open the file: no such file");
     CHECK(table.rows.empty());
 }

@@ -884,7 +884,7 @@ TEST_CASE("read_design_file names a file it cannot open, with an empty path") {
     const auto result = ds::read_design_file(missing);
     REQUIRE(result.errors.size() == 1);
     CHECK(result.errors[0].path.empty());
-    CHECK(result.errors[0].message == "cannot open " + missing.string());
+    CHECK(result.errors[0].message == "cannot open " + missing.string() + ": no such file");
 }
 
 TEST_CASE("a wind reads as rows (objects or [altitude, east, north]) or as one constant wind") {
