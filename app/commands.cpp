@@ -7,6 +7,9 @@
 #include <cstring>
 #include <exception>
 #include <filesystem>
+#include <functional>
+#include <memory>
+#include <optional>
 #include <string>
 #include <system_error>
 #include <vector>
@@ -105,29 +108,43 @@ int runVerify(bool json) {
 
 }  // namespace
 
-int runCommand(int argc, char** argv) {
+/// Every command with its options and checks, built once; run() runs the one parsed.
+struct CommandLine::Parts {
     CLI::App app{
         "Descent Sizer: conceptual sizing of a lander's entry, descent and landing system"};
+    SizeOptions sizeOptions;
+    std::string sheetDesign;
+    std::string sheetOutput;
+    bool verifyJson = false;
+    CLI::App* size = nullptr;
+    CLI::App* sheet = nullptr;
+    CLI::App* verify = nullptr;
+    CLI::App* keys = nullptr;
+    std::function<int()> runTrade;
+};
+
+CommandLine::CommandLine() : parts_(std::make_unique<Parts>()) {
+    Parts& p = *parts_;
+    CLI::App& app = p.app;
     app.set_version_flag("--version", std::string(DESCENT_SIZER_VERSION));
     app.require_subcommand(1);
     app.footer("Without a command, descent-sizer opens the window (where it is built with one).");
 
-    SizeOptions sizeOptions;
-    CLI::App* size = app.add_subcommand("size", "Size a design and print its summary or results");
-    size->add_option("design", sizeOptions.design, "Design document (JSON)")
+    p.size = app.add_subcommand("size", "Size a design and print its summary or results");
+    p.size->add_option("design", p.sizeOptions.design, "Design document (JSON)")
         ->required()
         ->check(CLI::ExistingFile);
-    size->add_flag("--json", sizeOptions.json, "Print the results document instead of the summary");
-    size->add_flag("--history", sizeOptions.history, "With --json: include the trajectory samples");
+    p.size->add_flag("--json", p.sizeOptions.json,
+                     "Print the results document instead of the summary");
+    p.size->add_flag("--history", p.sizeOptions.history,
+                     "With --json: include the trajectory samples");
 
-    std::string sheetDesign;
-    std::string sheetOutput;
-    CLI::App* sheet = app.add_subcommand(
+    p.sheet = app.add_subcommand(
         "sheet", "Write the sizing sheet of a design: PDF, HTML, or the trajectory as CSV");
-    sheet->add_option("design", sheetDesign, "Design document (JSON)")
+    p.sheet->add_option("design", p.sheetDesign, "Design document (JSON)")
         ->required()
         ->check(CLI::ExistingFile);
-    sheet->add_option("-o,--output", sheetOutput, "Output file: .pdf, .html or .csv")
+    p.sheet->add_option("-o,--output", p.sheetOutput, "Output file: .pdf, .html or .csv")
         ->required()
         ->check(CLI::Validator(
             [](const std::string& path) -> std::string {
@@ -142,41 +159,50 @@ int runCommand(int argc, char** argv) {
             },
             "FILE.pdf|.html|.csv"));
 
-    bool verifyJson = false;
-    CLI::App* verify = app.add_subcommand(
+    p.verify = app.add_subcommand(
         "verify",
         "Run the published reference cases through the program's models and print "
         "each with its source, the expected and computed values and their agreement; "
         "exits 5 when one misses");
-    verify->add_flag("--json", verifyJson, "Print the cases as JSON");
+    p.verify->add_flag("--json", p.verifyJson, "Print the cases as JSON");
 
-    CLI::App* keys = app.add_subcommand(
+    p.keys = app.add_subcommand(
         "keys",
         "Print every key a design document may hold, with its unit, default and range "
         "(Markdown)");
 
-    const auto runTrade = addTradeCommands(app);
+    p.runTrade = addTradeCommands(app);
+}
 
+CommandLine::~CommandLine() = default;
+
+std::optional<int> CommandLine::parse(int argc, const char* const* argv, std::ostream& out,
+                                      std::ostream& err) {
     try {
-        app.parse(argc, argv);
+        parts_->app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
         // Help and the version exit 0; every argument the parser refuses exits 1 (usage), as
         // the commands' own checks do, whatever CLI11's own code for it.
-        return app.exit(e) == 0 ? 0 : exit_usage;
+        return parts_->app.exit(e, out, err) == 0 ? 0 : exit_usage;
     }
+    return std::nullopt;
+}
+
+int CommandLine::run() {
+    Parts& p = *parts_;
     int code = 0;
     try {
-        code = runTrade();
-        if (code < 0 && *size)
-            code = runSize(sizeOptions);
-        if (code < 0 && *verify)
-            code = runVerify(verifyJson);
-        if (code < 0 && *keys) {
+        code = p.runTrade();
+        if (code < 0 && *p.size)
+            code = runSize(p.sizeOptions);
+        if (code < 0 && *p.verify)
+            code = runVerify(p.verifyJson);
+        if (code < 0 && *p.keys) {
             fmt::print("{}", design_key_reference());
             code = 0;
         }
-        if (code < 0 && *sheet)
-            code = startWindowProgram({"sheet", sheetDesign, "--output", sheetOutput});
+        if (code < 0 && *p.sheet)
+            code = startWindowProgram({"sheet", p.sheetDesign, "--output", p.sheetOutput});
         code = std::max(code, 0);
     } catch (const std::system_error& e) {
         // The output library's own report of a write that failed.
@@ -193,6 +219,13 @@ int runCommand(int argc, char** argv) {
         return exit_write_failed;
     }
     return code;
+}
+
+int runCommand(int argc, char** argv) {
+    CommandLine commandLine;
+    if (const std::optional<int> code = commandLine.parse(argc, argv))
+        return *code;
+    return commandLine.run();
 }
 
 }  // namespace ds

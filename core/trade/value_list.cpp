@@ -63,8 +63,9 @@ std::optional<std::vector<double>> parse_value_list(std::string_view text, std::
 std::optional<SweepAxis> parse_sweep_axis(const std::string& text, std::string* error) {
     const auto equals = text.find('=');
     SweepAxis axis;
-    if (equals == std::string::npos) {
-        *error = fmt::format("{}: expected KEY=FROM:TO:N", text);
+    if (equals == std::string::npos || equals == 0) {
+        *error = fmt::format("{}: expected KEY=FROM:TO:N{}", text,
+                             equals == 0 ? " (no key before '=')" : "");
         return std::nullopt;
     }
     axis.key = text.substr(0, equals);

@@ -17,6 +17,7 @@
 #include "flight/phase.hpp"
 #include "heating/heat_shield_mass.hpp"
 #include "heating/sutton_graves.hpp"
+#include "numerics/maximum.hpp"
 #include "orbit/conic.hpp"
 #include "sizing/terminal_burn.hpp"
 
@@ -266,20 +267,6 @@ FlightState to_state(const RawState& x) {
     return y;
 }
 
-/// The maximum of f on [a, b] (f unimodal there), by golden-section search to 1e-7.
-double maximise(const std::function<double(double)>& f, double a, double b) {
-    const double ratio = (std::sqrt(5.0) - 1.0) / 2.0;
-    while (b - a > 1e-7) {
-        const double c = b - ratio * (b - a);
-        const double d = a + ratio * (b - a);
-        if (f(c) > f(d))
-            b = d;
-        else
-            a = c;
-    }
-    return f(0.5 * (a + b));
-}
-
 void independent_integration(std::vector<ReferenceCase>& cases) {
     namespace odeint = boost::numeric::odeint;
     const Body mars = *body_preset("mars");
@@ -348,9 +335,9 @@ void independent_integration(std::vector<ReferenceCase>& cases) {
         const double q = heat_flux(t1);
         const double from = std::max(0.0, t0 - (t1 - t0));
         if (d < previous_deceleration && reference_deceleration == 0.0)
-            reference_deceleration = maximise(deceleration, from, t1);
+            reference_deceleration = maximum_of(deceleration, from, t1);
         if (q < previous_heat_flux && reference_heat_flux == 0.0)
-            reference_heat_flux = maximise(heat_flux, from, t1);
+            reference_heat_flux = maximum_of(heat_flux, from, t1);
         previous_deceleration = d;
         previous_heat_flux = q;
         if (conditions(stepper.current_state()).mach <= deploy_mach) {

@@ -294,6 +294,11 @@ TEST_CASE("trade commands: a bad range or shard exits 1 and says what was expect
         run("sweep " + sample("small-ballistic-station") + " --vary entry.velocity_m_s=1:2:0");
     CHECK(zero.exit_code == 1);
     CHECK(zero.err.find("N a whole number from 1 to 1000") != std::string::npos);
+    // No key before '=' (found by the argument parser's fuzzer): refused at once.
+    const Run keyless = run("sweep " + sample("small-ballistic-station") + " --vary =2.2:3.4:7");
+    CHECK(keyless.exit_code == 1);
+    CHECK(keyless.err.find("=2.2:3.4:7: expected KEY=FROM:TO:N (no key before '=')") !=
+          std::string::npos);
     // Counts are whole numbers within their bounds, read whole: not "1e6" read as 1, nor a
     // negative shard wrapped round, nor two thousand threads.
     const std::string station = sample("small-ballistic-station");

@@ -17,10 +17,15 @@
 #include <nlohmann/json.hpp>
 
 #include "design/reader.hpp"
+#include "fuzz_target.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
 
+const char* const ds::fuzz::target_name = "fuzz_size";
+
 namespace {
+
+using ds::fuzz::fail;
 
 // A design document is a few kilobytes; larger inputs only slow the parser down and say nothing
 // new (our bound, with -max_len in run.sh).
@@ -33,12 +38,6 @@ constexpr std::size_t max_input_bytes = 64 * 1024;
 // phase to 5000 steps (the samples fly in 120 to 1200), so that one input stays well under the
 // 1 s timeout (our bound).
 constexpr int fuzz_max_steps = 5000;
-
-[[noreturn]] void fail(std::string_view what, std::string_view detail = {}) {
-    std::fprintf(stderr, "fuzz_size: %.*s %.*s\n", static_cast<int>(what.size()), what.data(),
-                 static_cast<int>(detail.size()), detail.data());
-    std::abort();
-}
 
 /// Every number in the document is finite; null stands for a figure that was not produced.
 void require_finite_numbers(const nlohmann::ordered_json& value, const std::string& path) {
@@ -85,14 +84,5 @@ void size_and_write(std::string_view text) {
 }  // namespace
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
-    if (size > max_input_bytes)
-        return -1;  // not kept in the corpus
-    try {
-        size_and_write(std::string_view(reinterpret_cast<const char*>(data), size));
-    } catch (const std::exception& error) {
-        fail("exception:", error.what());
-    } catch (...) {
-        fail("exception of unknown type");
-    }
-    return 0;
+    return ds::fuzz::test_one_input(data, size, max_input_bytes, size_and_write);
 }

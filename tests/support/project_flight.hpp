@@ -1,8 +1,8 @@
 #pragma once
 
 // What the flight suites that check the project against an independent integration share: the
-// project's own flight from a start state to a falling-Mach deploy, with its peaks, and the
-// search that finds a reference's peaks.
+// project's own flight from a start state to a falling-Mach deploy, with its peaks (a
+// reference's peaks are found by numerics/maximum.hpp's maximum_of).
 
 #include <algorithm>
 #include <cmath>
@@ -37,21 +37,6 @@ inline ProjectFlight project_flight(const FlightModel& model, const Stage& stage
         slot = std::max(slot, hit.value);
     }
     return f;
-}
-
-/// Golden-section search for the maximum of f on [a, b] (f unimodal there), to 1e-7 in the
-/// argument.
-inline double maximise(const std::function<double(double)>& f, double a, double b) {
-    const double ratio = (std::sqrt(5.0) - 1.0) / 2.0;
-    while (b - a > 1e-7) {
-        const double c = b - ratio * (b - a);
-        const double d = a + ratio * (b - a);
-        if (f(c) > f(d))
-            b = d;
-        else
-            a = c;
-    }
-    return f(0.5 * (a + b));
 }
 
 }  // namespace ds::test

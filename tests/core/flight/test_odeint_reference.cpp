@@ -15,6 +15,7 @@
 #include "body/body.hpp"
 #include "constants.hpp"
 #include "flight/phase.hpp"
+#include "numerics/maximum.hpp"
 #include "support/project_flight.hpp"
 
 namespace odeint = boost::numeric::odeint;
@@ -85,7 +86,7 @@ Reference odeint_reference(const Scenario& s) {
         stepper.calc_state(t, probe);
         return probe;
     };
-    using ds::test::maximise;
+    using ds::maximum_of;
 
     const auto deceleration = [&](double t) { return conditions(state_at(t)).deceleration_g; };
     const auto heat_flux = [&](double t) {
@@ -102,10 +103,10 @@ Reference odeint_reference(const Scenario& s) {
         const double heat = heat_flux(t1);
         const double lo = std::max(0.0, t0 - (t1 - t0));
         if (decel < previous_decel && ref.peak_deceleration_g == 0.0) {
-            ref.peak_deceleration_g = maximise(deceleration, lo, t1);
+            ref.peak_deceleration_g = maximum_of(deceleration, lo, t1);
         }
         if (heat < previous_heat && ref.peak_heat_flux == 0.0) {
-            ref.peak_heat_flux = maximise(heat_flux, lo, t1);
+            ref.peak_heat_flux = maximum_of(heat_flux, lo, t1);
         }
         previous_decel = decel;
         previous_heat = heat;

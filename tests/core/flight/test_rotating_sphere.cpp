@@ -28,6 +28,7 @@
 #include "flight/ground_track.hpp"
 #include "flight/phase.hpp"
 #include "heating/sutton_graves.hpp"
+#include "numerics/maximum.hpp"
 #include "sizing/entry_flight.hpp"
 #include "sizing/environment.hpp"
 #include "support/project_flight.hpp"
@@ -60,7 +61,7 @@ ds::Stage entry_stage(double lift_to_drag, double bank_deg) {
     return s;
 }
 
-using ds::test::maximise;
+using ds::maximum_of;
 
 /// What a reference integration reports: the deploy (Mach falling through 1.8) and the peaks.
 template <class State>
@@ -93,10 +94,10 @@ Reference<State> odeint_flight(const System& system, State x, const Mach& mach,
         const double lo = std::max(0.0, t0 - (t1 - t0));
         if (decel < previous_decel && ref.peak_deceleration_g == 0.0) {
             ref.peak_deceleration_g =
-                maximise([&](double t) { return deceleration(at(t)); }, lo, t1);
+                maximum_of([&](double t) { return deceleration(at(t)); }, lo, t1);
         }
         if (heat < previous_heat && ref.peak_heat_flux == 0.0) {
-            ref.peak_heat_flux = maximise([&](double t) { return heat_flux(at(t)); }, lo, t1);
+            ref.peak_heat_flux = maximum_of([&](double t) { return heat_flux(at(t)); }, lo, t1);
         }
         previous_decel = decel;
         previous_heat = heat;
