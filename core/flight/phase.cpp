@@ -51,6 +51,7 @@ TrajectorySample trajectory_sample(double time_s, const FlightConditions& c, con
     s.azimuth_deg = radians_to_degrees(azimuth_rad(y));
     s.throttle = c.throttle;
     s.thrust_coefficient = c.thrust_coefficient;
+    s.sensed_deceleration_g = c.sensed_deceleration_g;
     return s;
 }
 

@@ -22,6 +22,9 @@ struct TrajectorySample {
     double throttle = 0.0;      ///< thrust over full thrust; 0 with the engines off
     /// T / (q A) on the aeroshell's frontal area, during a burn into the flow; 0 otherwise.
     double thrust_coefficient = 0.0;
+    /// What the vehicle feels: drag, lift and thrust over its weight (g0); `deceleration_g`
+    /// with the thrust added during a burn, the same without one.
+    double sensed_deceleration_g = 0.0;
 };
 
 }  // namespace ds

@@ -15,7 +15,7 @@ struct HistoryColumn {
 };
 
 /// The history's figures in the order both documents write them.
-inline constexpr std::array<HistoryColumn, 16> history_columns{{
+inline constexpr std::array<HistoryColumn, 17> history_columns{{
     {"time_s", &TrajectorySample::time_s},
     {"altitude_m", &TrajectorySample::altitude_m},
     {"downrange_m", &TrajectorySample::downrange_m},
@@ -32,6 +32,7 @@ inline constexpr std::array<HistoryColumn, 16> history_columns{{
     {"crossrange_m", &TrajectorySample::crossrange_m},
     {"throttle", &TrajectorySample::throttle},
     {"thrust_coefficient", &TrajectorySample::thrust_coefficient},
+    {"sensed_deceleration_g", &TrajectorySample::sensed_deceleration_g},
 }};
 
 }  // namespace ds

@@ -46,14 +46,16 @@ std::optional<std::vector<double>> parse_value_list(std::string_view text, std::
         const auto to = second == std::string_view::npos
                             ? std::nullopt
                             : number(item.substr(first + 1, second - first - 1));
-        const auto count =
-            second == std::string_view::npos ? std::nullopt : number(item.substr(second + 1));
-        if (!from || !to || !count || *count < 1.0 || *count != std::floor(*count)) {
-            *error =
-                fmt::format("\"{}\": expected FROM:TO:N with N a whole number of at least 1", item);
+        // N read as a number, 0 (refused below) when it is missing or not one.
+        const double count =
+            second == std::string_view::npos ? 0.0 : number(item.substr(second + 1)).value_or(0.0);
+        if (!from || !to || count < 1.0 || count != std::floor(count) ||
+            count > most_sweep_values) {
+            *error = fmt::format("\"{}\": expected FROM:TO:N with N a whole number from 1 to {}",
+                                 item, most_sweep_values);
             return std::nullopt;
         }
-        const SweepAxis range{{}, *from, *to, static_cast<int>(*count)};
+        const SweepAxis range{{}, *from, *to, static_cast<int>(count)};
         for (int i = 0; i < range.count; ++i)
             values.push_back(range.value(i));
     }

@@ -7,7 +7,7 @@
 
 namespace ds::test {
 
-inline constexpr std::array<const char*, 16> history_columns{"time_s",
+inline constexpr std::array<const char*, 17> history_columns{"time_s",
                                                              "altitude_m",
                                                              "downrange_m",
                                                              "velocity_m_s",
@@ -22,6 +22,7 @@ inline constexpr std::array<const char*, 16> history_columns{"time_s",
                                                              "azimuth_deg",
                                                              "crossrange_m",
                                                              "throttle",
-                                                             "thrust_coefficient"};
+                                                             "thrust_coefficient",
+                                                             "sensed_deceleration_g"};
 
 }  // namespace ds::test

@@ -420,3 +420,31 @@ TEST_CASE(
         return note.find("Radiative heating is not modelled") != std::string::npos;
     }));
 }
+
+TEST_CASE("the history's sensed deceleration adds the thrust over the weight during the burn") {
+    // Regression: the trajectory CSV showed a deceleration of zero during the burn (it is the
+    // aerodynamic one). The station enters ballistic (no lift), so what it feels is
+    // (drag + T) / (m g0): the thrust adds T / (m g0), m between the lander at ignition
+    // (landed + burned) and at touchdown (landed).
+    const ds::Results r = ds::size_design(sample("small-ballistic-station"));
+    REQUIRE(r.terminal.thrust_N);
+    REQUIRE(r.mass.landed_kg);
+    REQUIRE(r.terminal.burned_propellant_kg);
+    const double thrust = *r.terminal.thrust_N;
+    const double m_end = *r.mass.landed_kg;
+    const double m_start = m_end + *r.terminal.burned_propellant_kg;
+    int burning = 0;
+    for (const ds::TrajectorySample& s : r.history) {
+        CAPTURE(s.time_s);
+        if (s.throttle == 0.0) {
+            CHECK(s.sensed_deceleration_g == s.deceleration_g);
+            continue;
+        }
+        ++burning;
+        const double added = (s.sensed_deceleration_g - s.deceleration_g) *
+                             ds::standard_gravity_m_s2 / (s.throttle * thrust);
+        CHECK(added >= 1.0 / m_start * (1.0 - 1e-9));
+        CHECK(added <= 1.0 / m_end * (1.0 + 1e-9));
+    }
+    CHECK(burning >= 3);
+}

@@ -290,4 +290,12 @@ TEST_CASE("a list of speeds as typed: values and FROM:TO:N ranges") {
         CHECK_FALSE(ds::parse_value_list(bad, &error));
         CHECK_FALSE(error.empty());
     }
+    // A count past the most a sweep takes (a thousand) is refused, not cast to int (undefined
+    // for 1e300) nor allocated (a billion values).
+    CHECK(ds::parse_value_list("1:2:1000", &error)->size() == 1000);
+    for (const char* huge : {"1:2:1001", "1:2:1e9", "1:2:1e300"}) {
+        CAPTURE(huge);
+        CHECK_FALSE(ds::parse_value_list(huge, &error));
+        CHECK(error.find("N a whole number from 1 to 1000") != std::string::npos);
+    }
 }
