@@ -1320,6 +1320,45 @@ std::vector<const KeyRow*> replacements_of(const KeyRow& row) {
     return found;
 }
 
+namespace {
+
+/// Typical values that depend on the body (our suggestions for the form, from published
+/// missions' orders of magnitude, from memory): the rows' own typical ranges are Mars's.
+struct BodyTypical {
+    std::string_view key;
+    std::string_view body;
+    std::pair<double, double> range;
+};
+
+constexpr std::array body_typicals{
+    BodyTypical{"entry.velocity_m_s", "earth", {7500, 12500}},  // from orbit to a lunar return
+    BodyTypical{"entry.velocity_m_s", "venus", {10500, 11800}},
+    BodyTypical{"entry.velocity_m_s", "titan", {5500, 7500}},
+    BodyTypical{"entry.interface_altitude_m", "earth", {120000, 125000}},
+    BodyTypical{"entry.interface_altitude_m", "venus", {175000, 250000}},
+    BodyTypical{"entry.interface_altitude_m", "titan", {1000000, 1300000}},
+    BodyTypical{"atmosphere.surface_density_kg_m3", "earth", {1.0, 1.3}},
+    BodyTypical{"atmosphere.surface_density_kg_m3", "venus", {60, 67}},
+    BodyTypical{"atmosphere.surface_density_kg_m3", "titan", {5.0, 5.5}},
+    BodyTypical{"atmosphere.scale_height_m", "earth", {7000, 8500}},
+    BodyTypical{"atmosphere.scale_height_m", "venus", {14000, 16000}},
+    BodyTypical{"atmosphere.scale_height_m", "titan", {15000, 40000}},
+    BodyTypical{"atmosphere.temperature_K", "earth", {210, 290}},
+    BodyTypical{"atmosphere.temperature_K", "venus", {230, 740}},
+    BodyTypical{"atmosphere.temperature_K", "titan", {70, 180}},
+};
+
+}  // namespace
+
+std::optional<std::pair<double, double>> typical_range(const KeyRow& row, std::string_view body) {
+    const std::string path = row.path();
+    for (const BodyTypical& t : body_typicals) {
+        if (t.key == path && t.body == body)
+            return t.range;
+    }
+    return row.typical;
+}
+
 std::string label_of(const KeyRow& row) {
     if (!row.label.empty())
         return std::string(row.label);

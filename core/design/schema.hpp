@@ -186,6 +186,11 @@ std::vector<const KeyRow*> replacements_of(const KeyRow& row);
 /// The label the form shows for a key: its label, or its key with spaces.
 std::string label_of(const KeyRow& row);
 
+/// A key's typical range on a body: the body's own where the key's typical values depend on it
+/// (the entry speed and altitude, an exponential atmosphere's constants), else the row's. For
+/// the form's suggestions, not limits. `body` is a preset's name, or empty for a custom body.
+std::optional<std::pair<double, double>> typical_range(const KeyRow& row, std::string_view body);
+
 /// The unit of any key of the document by its path, array indices included
 /// ("atmosphere.wind[2].east_m_s": "m/s"); empty for a key without one.
 std::string_view unit_of_path(std::string_view path);

@@ -433,6 +433,24 @@ private slots:
         QVERIFY(document.design().has_value());
     }
 
+    void typicalValuesInTooltipsFollowTheBody() {
+        // Regression: the velocity's tooltip said "typically 4500 to 7500 m/s" for every body.
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        QWidget* velocity = form.fieldFor("/entry/velocity_m_s");
+        QVERIFY(velocity);
+        QVERIFY2(velocity->toolTip().contains("typically 4500 to 7500"),
+                 qPrintable(velocity->toolTip()));
+        document.setValue("/body", Json("earth"), QStringLiteral("Set body"));
+        QVERIFY2(velocity->toolTip().contains("typically 7500 to 12500"),
+                 qPrintable(velocity->toolTip()));
+        document.setValue("/body", Json("titan"), QStringLiteral("Set body"));
+        QVERIFY2(velocity->toolTip().contains("typically 5500 to 7500"),
+                 qPrintable(velocity->toolTip()));
+    }
+
     void everyCheckPointsAtAField() {
         DesignDocument document;
         QString error;

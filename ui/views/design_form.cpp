@@ -80,17 +80,18 @@ std::optional<double> defaultOf(const KeyRow& key) {
 }
 
 /// The field's bounds are the reader's (the looser of a terminal key's two), its typical range
-/// the schema's, or the default.
-QuantityRange quantityRange(const KeyRow& key) {
+/// the schema's on the design's body (a preset's name; empty for a custom body), or the
+/// default.
+QuantityRange quantityRange(const KeyRow& key, std::string_view body) {
     const ValueRange& r = key.on_canopy ? key.on_canopy->range : key.range;
     QuantityRange range;
     range.minimum = r.above ? r.above : r.at_least;
     range.minimumExclusive = r.above.has_value();
     range.maximum = r.below ? r.below : r.at_most;
     range.maximumExclusive = r.below.has_value();
-    if (key.typical) {
-        range.typicalLow = key.typical->first;
-        range.typicalHigh = key.typical->second;
+    if (const auto typical = typical_range(key, body)) {
+        range.typicalLow = typical->first;
+        range.typicalHigh = typical->second;
     } else if (const auto fallback = defaultOf(key)) {
         range.typicalLow = range.typicalHigh = *fallback;
     }
@@ -225,7 +226,7 @@ QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
     auto* row = new QWidget(this);
     auto* rowLayout = new QHBoxLayout(row);
     rowLayout->setContentsMargins(0, 0, 0, 0);
-    auto* edit = new QuantityEdit(dimensionOfUnit(key.unit), quantityRange(key), row);
+    auto* edit = new QuantityEdit(dimensionOfUnit(key.unit), quantityRange(key, {}), row);
     edit->setObjectName(QString::fromStdString(pointer));
     const QString placeholder = optional ? placeholderOf(key) : QString();
     if (!placeholder.isEmpty())
@@ -640,7 +641,11 @@ bool DesignForm::applies(const KeyRow& key) const {
 void DesignForm::refresh() {
     m_refreshing = true;
     const std::vector<ReadError>& errors = m_document->errors();
+    // Typical values follow the body (an Earth entry is faster than a Mars one).
+    const Json bodyValue = m_document->value("/body");
+    const std::string body = bodyValue.is_string() ? bodyValue.get<std::string>() : std::string();
     for (NumberBinding& b : m_numbers) {
+        b.edit->setRange(quantityRange(*b.key, body));
         const Json v = m_document->value(b.pointer);
         b.edit->setValue(v.is_number() ? std::optional<double>(v.get<double>()) : std::nullopt);
         b.edit->setExternalError({});

@@ -70,6 +70,11 @@ QuantityEdit::QuantityEdit(Dimension dimension, QuantityRange range, QWidget* pa
     showState();
 }
 
+void QuantityEdit::setRange(const QuantityRange& range) {
+    m_range = range;
+    showState();
+}
+
 void QuantityEdit::setValue(std::optional<double> value) {
     m_value = value;
     m_error.clear();

@@ -30,6 +30,8 @@ public:
     std::optional<double> value() const { return m_value; }
     /// Shows a value without emitting valueEdited (for model-to-view updates).
     void setValue(std::optional<double> value);
+    /// Its bounds and typical values (the tooltip says them).
+    void setRange(const QuantityRange& range);
     /// The reason shown at the field: the typed text's, else the reader's; empty when none.
     QString errorText() const { return m_error.isEmpty() ? m_externalError : m_error; }
     /// An error found elsewhere (the design reader) for this field; empty clears it.
