@@ -63,10 +63,15 @@ AtmosphereRow interpolate_atmosphere_rows(std::span<const AtmosphereRow> rows, d
     const AtmosphereRow& lower = rows[static_cast<std::size_t>(segment)];
     const AtmosphereRow& upper = rows[static_cast<std::size_t>(segment) + 1];
     const double fraction = (altitude_m - lower.altitude_m) / (upper.altitude_m - lower.altitude_m);
-    // rho0 (rho1/rho0)^f is exact at the lower node, where f = 0.
-    return {altitude_m,
-            lower.density_kg_m3 * std::pow(upper.density_kg_m3 / lower.density_kg_m3, fraction),
-            lower.temperature_K + fraction * (upper.temperature_K - lower.temperature_K)};
+    // rho0 (rho1/rho0)^f is exact at the lower node, where f = 0. Densities whose ratio leaves
+    // the doubles (rows 1e-200 and 1e200 kg/m^3) are interpolated in logarithms instead.
+    const double ratio = upper.density_kg_m3 / lower.density_kg_m3;
+    const double density = std::isnormal(ratio)
+                               ? lower.density_kg_m3 * std::pow(ratio, fraction)
+                               : std::exp(std::lerp(std::log(lower.density_kg_m3),
+                                                    std::log(upper.density_kg_m3), fraction));
+    // std::lerp is exact at both nodes (T0 + f (T1 - T0) is not at f = 1 when T0 dwarfs T1).
+    return {altitude_m, density, std::lerp(lower.temperature_K, upper.temperature_K, fraction)};
 }
 
 TableAtmosphere::TableAtmosphere(std::vector<AtmosphereRow> rows, double gas_constant_J_kgK,

@@ -9,6 +9,8 @@
 
 #include <doctest/doctest.h>
 
+#include "atmosphere/table.hpp"
+#include "design/atmosphere_csv.hpp"
 #include "design/reader.hpp"
 #include "flight/stage.hpp"
 #include "heating/tauber_sutton.hpp"
@@ -280,4 +282,25 @@ TEST_CASE("a figure that overflows is named by a failing check, never passed off
     REQUIRE(key_check != trade_case.checks.end());
     CHECK(key_check->message.find("peak_deceleration") != std::string::npos);
     CHECK_FALSE(trade_case.converged);
+}
+
+TEST_CASE("a table gives back its rows at their altitudes, however far apart their values") {
+    // Found by the CSV reader's fuzz target (corpus-csv/regression-temperature-spanning-
+    // 1e30.csv): T0 + f (T1 - T0) from 8.9e29 K down to 260 K gave 0 K at the upper row, not
+    // 260. And (found by reading, regression-density-ratio-past-1e308.csv) a density ratio of
+    // 1e400 between two rows overflowed to an infinite density above the lower row.
+    // Gas constant and gamma: any positive pair (the checks are on density and temperature).
+    const ds::TableAtmosphere hot(
+        {{0.0, 65.0, 735.0}, {30000.0, 4.5, 8.9e29}, {60000.0, 0.47, 260.0}}, 191.8, 1.29);
+    CHECK(hot.at(60000.0).temperature_K == 260.0);
+    CHECK(hot.at(30000.0).temperature_K == 8.9e29);
+    CHECK(hot.at(0.0).temperature_K == 735.0);
+
+    const ds::TableAtmosphere wide({{0.0, 1e-200, 200.0}, {1000.0, 1e200, 300.0}}, 191.8, 1.29);
+    // Log-linear: the geometric mean half way, each row at its altitude (to 1e-12, the
+    // rounding of exp(log(x))).
+    CHECK(wide.at(500.0).density_kg_m3 == doctest::Approx(1.0).epsilon(1e-12));
+    CHECK(wide.at(1000.0).density_kg_m3 == doctest::Approx(1e200).epsilon(1e-12));
+    CHECK(wide.at(0.0).density_kg_m3 == doctest::Approx(1e-200).epsilon(1e-12));
+    CHECK(wide.at(500.0).temperature_K == 250.0);
 }
