@@ -39,6 +39,26 @@ std::string_view trim(std::string_view text) {
     return text.substr(first, last - first + 1);
 }
 
+// The most characters of a field that a reason quotes (our bound: enough to recognise it).
+constexpr std::size_t quoted_characters = 40;
+
+/// A field as a reason quotes it: its first characters, a byte other than printable ASCII shown
+/// as \xNN. The file may be in any encoding, and the reason is shown in the window, printed
+/// and handed to Python as a str, which needs UTF-8.
+std::string quoted(std::string_view field) {
+    std::string text;
+    for (std::size_t i = 0; i < field.size() && i < quoted_characters; ++i) {
+        const auto byte = static_cast<unsigned char>(field[i]);
+        if (byte >= 0x20 && byte <= 0x7E)
+            text += field[i];
+        else
+            text += fmt::format("\\x{:02X}", byte);
+    }
+    if (field.size() > quoted_characters)
+        text += "...";
+    return text;
+}
+
 std::vector<std::string_view> split_fields(std::string_view line) {
     std::vector<std::string_view> fields;
     while (true) {
@@ -77,7 +97,7 @@ Header read_header(std::string_view line, int line_number) {
     for (const auto field : split_fields(line)) {
         const auto column = column_named(field);
         if (!column) {
-            header.error = fmt::format("line {}: unknown column {}", line_number, field);
+            header.error = fmt::format("line {}: unknown column {}", line_number, quoted(field));
             return header;
         }
         for (const auto seen : header.columns) {
@@ -115,10 +135,11 @@ Value parse_value(std::string_view text, int line_number, Column column) {
     const auto end = text.data() + text.size();
     const auto [stop, status] = std::from_chars(text.data(), end, number);
     if (status != std::errc{} || stop != end) {
-        return {0.0, fmt::format("line {}: '{}' is not a number", line_number, text)};
+        return {0.0, fmt::format("line {}: '{}' is not a number", line_number, quoted(text))};
     }
     if (!std::isfinite(number)) {
-        return {0.0, fmt::format("line {}: '{}' is not a finite number", line_number, text)};
+        return {0.0,
+                fmt::format("line {}: '{}' is not a finite number", line_number, quoted(text))};
     }
     return {number, {}};
 }

@@ -304,3 +304,19 @@ TEST_CASE("a table gives back its rows at their altitudes, however far apart the
     CHECK(wide.at(0.0).density_kg_m3 == doctest::Approx(1e-200).epsilon(1e-12));
     CHECK(wide.at(500.0).temperature_K == 250.0);
 }
+
+TEST_CASE("a CSV table's field is quoted in a reason as printable ASCII, at most 40 characters") {
+    // Found by the CSV reader's fuzz target (corpus-csv/regression-latin1-column-name.csv): a
+    // column name with a byte of another encoding (0xE5) was quoted as it was, and the reason,
+    // not UTF-8, could not become a Python str (UnicodeDecodeError instead of DesignError).
+    const auto error_of = [](const std::string& text) {
+        return ds::parse_atmosphere_csv(text).error;
+    };
+    CHECK(error_of("altitude_m,density_k\xE5_m3,temperature_K\n0,1,1\n") ==
+          "line 1: unknown column density_k\\xE5_m3");
+    CHECK(error_of("altitude_m,density_kg_m3,temperature_K\n0,1\t2,1\n") ==
+          "line 2: '1\\x092' is not a number");
+    // A long field: its first 40 characters, then "...".
+    CHECK(error_of("altitude_m,density_kg_m3,temperature_K\n0," + std::string(5000, 'x') +
+                   ",1\n") == "line 2: '" + std::string(40, 'x') + "...' is not a number");
+}
