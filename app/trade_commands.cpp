@@ -16,6 +16,7 @@
 #include "design/file_output.hpp"
 #include "design/reader.hpp"
 #include "design/schema.hpp"
+#include "design/text_file.hpp"
 #include "results/key_figures.hpp"
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
@@ -448,13 +449,17 @@ int disperseCommand(const Options& o) {
 /// Returns its head, or prints why it cannot be read.
 std::optional<DispersionCampaign> readPart(
     const std::string& path, const std::function<void(const DispersedCase&)>& on_case) {
-    std::ifstream in(path, std::ios::binary);
-    std::string error;
+    // A part may be gigabytes: read as a stream, not whole, but only from a regular file (a
+    // pipe would block the merge, a device feed it without end).
+    std::string error = not_a_regular_file(path);
     std::optional<DispersionCampaign> part;
-    if (in)
-        part = read_campaign(in, on_case, &error);
-    else
-        error = "cannot be opened";
+    if (error.empty()) {
+        std::ifstream in(path, std::ios::binary);
+        if (in)
+            part = read_campaign(in, on_case, &error);
+        else
+            error = "cannot be opened";
+    }
     if (!part)
         fmt::print(stderr, "{}: {}\n", path, error);
     return part;

@@ -17,21 +17,26 @@ std::string size_text(std::uintmax_t bytes) {
 
 }  // namespace
 
+std::string not_a_regular_file(const std::filesystem::path& file) {
+    std::error_code code;
+    const std::filesystem::file_status status = std::filesystem::status(file, code);
+    if (code || !std::filesystem::exists(status))
+        return "no such file";
+    if (std::filesystem::is_directory(status))
+        return "a folder, not a file";
+    if (!std::filesystem::is_regular_file(status))
+        return "not a regular file (a device or a pipe), so not read";
+    return {};
+}
+
 std::optional<std::string> read_text_file(const std::filesystem::path& file,
                                           std::uintmax_t most_bytes, const char* what,
                                           std::string* error) {
+    if (std::string problem = not_a_regular_file(file); !problem.empty()) {
+        *error = std::move(problem);
+        return std::nullopt;
+    }
     std::error_code code;
-    const std::filesystem::file_status status = std::filesystem::status(file, code);
-    if (code || !std::filesystem::exists(status)) {
-        *error = "no such file";
-        return std::nullopt;
-    }
-    if (!std::filesystem::is_regular_file(status)) {
-        *error = std::filesystem::is_directory(status)
-                     ? "a folder, not a file"
-                     : "not a regular file (a device or a pipe), so not read";
-        return std::nullopt;
-    }
     const std::uintmax_t size = std::filesystem::file_size(file, code);
     const std::string too_large =
         fmt::format("larger than {}, the most {} may be", size_text(most_bytes), what);

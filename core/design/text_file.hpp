@@ -18,6 +18,11 @@ inline constexpr std::uintmax_t most_table_file_bytes = 32u << 20;
 /// The most rows of an atmosphere or wind table, in a design or a CSV file.
 inline constexpr std::size_t most_table_rows = 100'000;
 
+/// Why a path is not a regular file to read ("no such file", "a folder, not a file", "not a
+/// regular file (a device or a pipe), so not read"), or empty when it is one. Asked before a
+/// file is opened: opening a pipe blocks until a writer comes.
+std::string not_a_regular_file(const std::filesystem::path& file);
+
 /// The text of a file that is a regular file of at most `most_bytes`, or why not, to follow
 /// "cannot open FILE: " ("no such file", "not a regular file (a device or a pipe), so not
 /// read", "larger than 16 MiB, the most a design may be"). A device, a pipe or a folder is

@@ -15,6 +15,7 @@
 #include <nlohmann/json.hpp>
 
 #include "support/command_line.hpp"
+#include "support/special_files.hpp"
 
 namespace fs = std::filesystem;
 using Json = nlohmann::json;
@@ -405,6 +406,15 @@ TEST_CASE("merge: parts that are not shards of one campaign exit 2 and say why")
         run("merge " + saved("cut.json", output(args + " --seed 1 --shard 0/2").substr(0, 300)));
     CHECK(cut.exit_code == 2);
     CHECK(cut.err.find("not a whole disperse --json output") != std::string::npos);
+    // A device or a pipe is refused before it is opened (it would feed or block the merge).
+    const ds::test::Fifo fifo(scratch() / "part.fifo");
+    REQUIRE(fifo.ok());
+    for (const std::string& device : {std::string("/dev/zero"), fifo.path().string()}) {
+        const Run refused = ds::test::run_binary_within(
+            "merge " + ds::test::quoted(std::filesystem::path(device)), scratch(), 20);
+        CHECK(refused.exit_code == 2);
+        CHECK(refused.err.find("not a regular file (a device or a pipe)") != std::string::npos);
+    }
     const Run design = run("merge " + sample("earth-return-capsule"));
     CHECK(design.exit_code == 2);
     CHECK(design.err.find("not a dispersion campaign") != std::string::npos);
