@@ -11,8 +11,9 @@
 namespace ds {
 
 /// A list of values as a user types it: numbers and FROM:TO:N ranges (N values evenly from FROM
-/// to TO, N a whole number from 1 to most_sweep_values), separated by commas or spaces ("5000, 5600", "5000:6500:7"). Empty text is an empty
-/// list. Returns the values, or nothing with the reason in `error`.
+/// to TO, N a whole number from 1 to most_sweep_values), separated by commas or spaces ("5000,
+/// 5600", "5000:6500:7"). Empty text is an empty list. Returns the values, or nothing with the
+/// reason in `error`.
 std::optional<std::vector<double>> parse_value_list(std::string_view text, std::string* error);
 
 /// The most values one swept key takes (our bound: a 1000 x 1000 map is a million sizings, some
