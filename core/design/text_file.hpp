@@ -10,9 +10,10 @@ namespace ds {
 // What the program reads, bounded (our bounds: far above any real design or table, and low
 // enough that a wrong file is refused at once rather than read until memory runs out).
 
-/// The largest design document read: 16 MiB (the samples are 2 to 8 KiB; a design holding a
-/// table of the most rows allowed, written with every digit, is some 10 MiB).
-inline constexpr std::uintmax_t most_design_bytes = 16u << 20;
+/// The largest design document read: 32 MiB (the samples are 2 to 8 KiB; a design holding an
+/// atmosphere table and a wind of the most rows allowed each, written with every digit as the
+/// writer writes them, is some 27 MiB).
+inline constexpr std::uintmax_t most_design_bytes = 32u << 20;
 /// The largest atmosphere table file read: 32 MiB (the most rows allowed are some 6 MiB).
 inline constexpr std::uintmax_t most_table_file_bytes = 32u << 20;
 /// The most rows of an atmosphere or wind table, in a design or a CSV file.
@@ -25,7 +26,7 @@ std::string not_a_regular_file(const std::filesystem::path& file);
 
 /// The text of a file that is a regular file of at most `most_bytes`, or why not, to follow
 /// "cannot open FILE: " ("no such file", "not a regular file (a device or a pipe), so not
-/// read", "larger than 16 MiB, the most a design may be"). A device, a pipe or a folder is
+/// read", "larger than 32 MiB, the most a design may be"). A device, a pipe or a folder is
 /// refused before it is opened, so nothing blocks on a pipe or reads a device without end; a
 /// file that grows past the bound while it is read is refused too. `what` names the kind of
 /// file in the size message ("a design").

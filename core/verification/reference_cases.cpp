@@ -20,6 +20,7 @@
 #include "numerics/maximum.hpp"
 #include "orbit/conic.hpp"
 #include "sizing/terminal_burn.hpp"
+#include "verification/allen_eggers_case.hpp"
 
 namespace ds {
 
@@ -67,12 +68,12 @@ PeakHit peak_of(const PhaseOutcome& outcome, std::size_t index) {
 // rho0 0.020 kg/m^3, H 11.1 km.
 
 void allen_eggers(std::vector<ReferenceCase>& cases) {
-    constexpr double rho0 = 0.020;
-    constexpr double scale_height = 11100.0;
-    constexpr double beta = 65.0;
-    constexpr double entry_velocity = 5500.0;
-    constexpr double entry_angle_deg = -14.0;
-    constexpr double interface_altitude = 125000.0;
+    using namespace allen_eggers_case;
+    constexpr double rho0 = rho0_kg_m3;
+    constexpr double scale_height = scale_height_m;
+    constexpr double beta = beta_kg_m2;
+    constexpr double entry_velocity = entry_velocity_m_s;
+    constexpr double interface_altitude = interface_altitude_m;
     constexpr double mass = 500.0;
     const Body body{"flat", 1e16, 0.0, 0.0, Gas{188.9, 1.29, 1.9027e-4, ""}};
     const ExponentialAtmosphere atmosphere{{rho0, scale_height, 210.0}, 188.9, 1.29};

@@ -69,7 +69,7 @@ TEST_CASE("a regular file is read whole; anything else is refused before it is o
     CHECK(error == "larger than 5 bytes, the most a test file may be");
 }
 
-TEST_CASE("a design that is /dev/zero, a FIFO or past 16 MiB is refused at once, saying why") {
+TEST_CASE("a design that is /dev/zero, a FIFO or past 32 MiB is refused at once, saying why") {
     const ds::DesignReadResult zero = ds::read_design_file("/dev/zero");
     REQUIRE(zero.errors.size() == 1);
     CHECK(zero.errors[0].message ==
@@ -89,7 +89,7 @@ TEST_CASE("a design that is /dev/zero, a FIFO or past 16 MiB is refused at once,
     const ds::DesignReadResult big = ds::read_design_file(large);
     REQUIRE(big.errors.size() == 1);
     CHECK(big.errors[0].message ==
-          "cannot open " + large.string() + ": larger than 16 MiB, the most a design may be");
+          "cannot open " + large.string() + ": larger than 32 MiB, the most a design may be");
     fs::remove(large);
 }
 

@@ -11,16 +11,18 @@
 #include "atmosphere/exponential.hpp"
 #include "constants.hpp"
 #include "flight/phase.hpp"
+#include "verification/allen_eggers_case.hpp"
 
 namespace {
 
-// The worked check of references.md (derived from the closed form).
-constexpr double rho0 = 0.020;
-constexpr double scale_height = 11100.0;
-constexpr double beta = 65.0;
-constexpr double entry_velocity = 5500.0;
-constexpr double entry_angle_deg = -14.0;
-constexpr double interface_altitude = 125000.0;
+// The worked check of references.md (derived from the closed form), as `descent-sizer verify`
+// flies it.
+constexpr double rho0 = ds::allen_eggers_case::rho0_kg_m3;
+constexpr double scale_height = ds::allen_eggers_case::scale_height_m;
+constexpr double beta = ds::allen_eggers_case::beta_kg_m2;
+constexpr double entry_velocity = ds::allen_eggers_case::entry_velocity_m_s;
+constexpr double entry_angle_deg = ds::allen_eggers_case::entry_angle_deg;
+constexpr double interface_altitude = ds::allen_eggers_case::interface_altitude_m;
 
 struct AllenEggersFlight {
     ds::Body body{"flat", 1e16, 0.0, 0.0, ds::Gas{188.9, 1.29, 1.9027e-4, ""}};
