@@ -331,8 +331,17 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
 std::vector<std::string> non_finite_figures(const Results& results, bool include_history) {
     std::vector<std::string> paths;
     collect_non_finite(
-        results_to_json(results, {.include_history = include_history, .keep_non_finite = true}), "",
-        paths);
+        results_to_json(results, {.include_history = false, .keep_non_finite = true}), "", paths);
+    // The history's samples read directly, column by column (the history_columns the writer
+    // writes), not built into a document: they are most of the results.
+    if (include_history) {
+        for (std::size_t i = 0; i < results.history.size(); ++i) {
+            for (const HistoryColumn& column : history_columns) {
+                if (!std::isfinite(results.history[i].*column.value))
+                    paths.push_back(fmt::format("history[{}].{}", i, column.key));
+            }
+        }
+    }
     return paths;
 }
 

@@ -11,8 +11,8 @@ struct SizingOptions {
     bool capability = true;  ///< the highest feasible site elevation (a root-finding)
     bool history = true;     ///< the trajectory samples
     /// Every number of the results checked finite (the `finite_figures` check; a walk of the
-    /// results document, some 30 us a sizing); off, the key figures alone: for trade cases,
-    /// which keep the key figures and nothing else.
+    /// results document without its history and the history sample by sample, some 50 us a sizing);
+    /// off, the key figures alone: for trade cases, which keep the key figures and nothing else.
     bool every_figure_checked = true;
 };
 
