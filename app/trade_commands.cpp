@@ -16,7 +16,6 @@
 #include "design/file_output.hpp"
 #include "design/reader.hpp"
 #include "design/schema.hpp"
-#include "design/text_file.hpp"
 #include "results/key_figures.hpp"
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
@@ -97,23 +96,19 @@ void printSweepTable(const StudyOutcome& outcome) {
     // Each column as wide as its whole name (at least 10), the units on a second line.
     std::string head;
     std::string units;
+    const auto addColumn = [&](std::string_view name, std::string_view unit) {
+        const std::size_t width = std::max<std::size_t>(name.size(), 10);
+        head += fmt::format("{:>{}} ", name, width);
+        units += fmt::format("{:>{}} ", fmt::format("[{}]", unit.empty() ? "-" : unit), width);
+        return width;
+    };
     std::vector<std::size_t> inputWidths;
-    for (const SweepAxis& a : outcome.request.axes) {
-        inputWidths.push_back(std::max<std::size_t>(a.key.size(), 10));
-        head += fmt::format("{:>{}} ", a.key, inputWidths.back());
-        const std::string_view unit = unit_of_path(a.key);
-        units += fmt::format("{:>{}} ", fmt::format("[{}]", unit.empty() ? "-" : unit),
-                             inputWidths.back());
-    }
-    std::vector<std::size_t> figureWidths(key_figure_table.size(), 0);
+    for (const SweepAxis& a : outcome.request.axes)
+        inputWidths.push_back(addColumn(a.key, unit_of_path(a.key)));
+    std::vector<std::size_t> figureWidths(key_figure_table.size(), 0);  // 0: not shown
     for (std::size_t i = 0; i < key_figure_table.size(); ++i) {
-        const KeyFigureDefinition& f = key_figure_table[i];
-        if (!isShown(f))
-            continue;
-        figureWidths[i] = std::max<std::size_t>(f.id.size(), 10);
-        head += fmt::format("{:>{}} ", f.id, figureWidths[i]);
-        units += fmt::format("{:>{}} ", fmt::format("[{}]", f.unit.empty() ? "-" : f.unit),
-                             figureWidths[i]);
+        if (isShown(key_figure_table[i]))
+            figureWidths[i] = addColumn(key_figure_table[i].id, key_figure_table[i].unit);
     }
     fmt::print("{}  worst\n{}\n", head, units);
     for (const SweepCase& c : outcome.sweep) {
@@ -445,21 +440,12 @@ int disperseCommand(const Options& o) {
         prepare);
 }
 
-/// Reads a part of a campaign case by case (read_campaign), handing each case to `on_case`.
+/// Reads a part of a campaign case by case (read_campaign_file), handing each case to `on_case`.
 /// Returns its head, or prints why it cannot be read.
 std::optional<DispersionCampaign> readPart(
     const std::string& path, const std::function<void(const DispersedCase&)>& on_case) {
-    // A part may be gigabytes: read as a stream, not whole, but only from a regular file (a
-    // pipe would block the merge, a device feed it without end).
-    std::string error = not_a_regular_file(path);
-    std::optional<DispersionCampaign> part;
-    if (error.empty()) {
-        std::ifstream in(path, std::ios::binary);
-        if (in)
-            part = read_campaign(in, on_case, &error);
-        else
-            error = "cannot be opened";
-    }
+    std::string error;
+    std::optional<DispersionCampaign> part = read_campaign_file(path, on_case, &error);
     if (!part)
         fmt::print(stderr, "{}: {}\n", path, error);
     return part;

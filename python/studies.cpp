@@ -1,7 +1,6 @@
 #include "studies.hpp"
 
 #include <cmath>
-#include <fstream>
 #include <limits>
 #include <optional>
 #include <string>
@@ -170,21 +169,18 @@ py::object campaign_result(const DispersionCampaign& campaign, const DispersionS
 /// A disperse result, a campaign, or a path to a file of either.
 DispersionCampaign campaign_of(py::handle part, std::size_t number) {
     std::string where = fmt::format("parts[{}]", number);
-    Json document;
-    if (const auto file = path_of(part)) {
-        where = file->string();
-        std::ifstream in(*file);
-        if (!in)
-            throw py::value_error(where + ": cannot be opened");
-        try {
-            document = Json::parse(in);
-        } catch (const Json::exception& e) {
-            throw py::value_error(where + ": " + e.what());
-        }
-    } else {
-        document = from_python(part, where);
-    }
     std::string error;
+    if (const auto file = path_of(part)) {
+        // Read as the command line's merge reads a part: streamed, from a regular file only.
+        std::vector<DispersedCase> cases;
+        std::optional<DispersionCampaign> campaign = read_campaign_file(
+            *file, [&](const DispersedCase& c) { cases.push_back(c); }, &error);
+        if (!campaign)
+            throw py::value_error(file->string() + ": " + error);
+        campaign->cases = std::move(cases);
+        return std::move(*campaign);
+    }
+    const Json document = from_python(part, where);
     std::optional<DispersionCampaign> campaign;
     try {
         campaign = campaign_from_json(

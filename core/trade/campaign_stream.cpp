@@ -1,11 +1,13 @@
 // Reading a campaign's document case by case (read_campaign): a merge of a million-case
 // campaign holds one case at a time, not the document.
 
+#include <fstream>
 #include <memory>
 #include <string_view>
 
 #include <fmt/format.h>
 
+#include "design/text_file.hpp"
 #include "trade/dispersion.hpp"
 
 namespace ds {
@@ -154,7 +156,6 @@ std::optional<DispersionCampaign> read_campaign(
     Json rest;
     std::optional<DispersionCampaign> head;
     std::optional<ShardCases> shard;
-    std::size_t position = 0;
     CaseDigest digest;
     std::string problem;
     const auto campaign_part = [&rest]() -> const Json& {
@@ -180,7 +181,6 @@ std::optional<DispersionCampaign> read_campaign(
         problem = shard->add(*c);
         if (!problem.empty())
             return false;
-        ++position;
         digest.add(*c);
         if (on_case)
             on_case(*c);
@@ -221,19 +221,28 @@ std::optional<DispersionCampaign> read_campaign(
         *error = std::move(missing);
         return std::nullopt;
     }
-    if (read->cases_digest.empty() || read->design_digest.empty()) {
-        *error =
-            "no digests of its design and cases (written before they were kept): run its "
-            "shard again";
-        return std::nullopt;
-    }
-    if (read->cases_digest != digest.hex()) {
-        *error =
-            fmt::format("shard {}/{}: its cases disagree with their digest (changed since written)",
-                        read->shard_index, read->shard_count);
+    if (std::string why = part_digest_problem(*read, digest.hex()); !why.empty()) {
+        *error = std::move(why);
         return std::nullopt;
     }
     return read;
+}
+
+std::optional<DispersionCampaign> read_campaign_file(
+    const std::filesystem::path& file, const std::function<void(const DispersedCase&)>& on_case,
+    std::string* error) {
+    // A part may be gigabytes: read as a stream, not whole, but only from a regular file (a
+    // pipe would block the reading, a device feed it without end).
+    if (std::string problem = not_a_regular_file(file); !problem.empty()) {
+        *error = std::move(problem);
+        return std::nullopt;
+    }
+    std::ifstream in(file, std::ios::binary);
+    if (!in) {
+        *error = "cannot be opened";
+        return std::nullopt;
+    }
+    return read_campaign(in, on_case, error);
 }
 
 }  // namespace ds

@@ -243,10 +243,8 @@ std::string shards_problem(const std::vector<DispersionCampaign>& heads) {
     const DispersionCampaign& first = heads.front();
     std::vector<bool> present(first.shard_count, false);
     for (const DispersionCampaign& part : heads) {
-        if (part.design_digest.empty() || part.cases_digest.empty()) {
-            return "a part has no digests of its design and cases (written before they were "
-                   "kept): run its shard again";
-        }
+        if (part.design_digest.empty() || part.cases_digest.empty())
+            return "a part has " + part_digest_problem(part, {});
         if (part.seed != first.seed || part.runs != first.runs ||
             !same_dispersions(part.dispersions, first.dispersions) ||
             part.figure_ids != first.figure_ids || part.body_radius_m != first.body_radius_m ||
@@ -518,20 +516,18 @@ std::optional<DispersedCase> case_from_json(const nlohmann::ordered_json& k, std
     }
 }
 
-namespace {
-
-std::string digest_problem(const DispersionCampaign& c, const std::string& rows_digest) {
-    if (c.cases_digest.empty())
-        return {};
-    if (c.cases_digest != rows_digest) {
+std::string part_digest_problem(const DispersionCampaign& head, const std::string& rows_digest) {
+    if (head.cases_digest.empty() || head.design_digest.empty()) {
+        return "no digests of its design and cases (written before they were kept): run its "
+               "shard again";
+    }
+    if (head.cases_digest != rows_digest) {
         return fmt::format(
             "shard {}/{}: its cases disagree with their digest (changed since written)",
-            c.shard_index, c.shard_count);
+            head.shard_index, head.shard_count);
     }
     return {};
 }
-
-}  // namespace
 
 std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& j,
                                                      std::string* error) {
@@ -547,11 +543,10 @@ std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_jso
             digest.add(*dc);
             c->cases.push_back(std::move(*dc));
         }
-        if (std::string problem = digest_problem(*c, digest.hex()); !problem.empty()) {
+        if (std::string problem = part_digest_problem(*c, digest.hex()); !problem.empty()) {
             *error = std::move(problem);
             return std::nullopt;
         }
-        c->cases_digest = digest.hex();
         return c;
     } catch (const nlohmann::ordered_json::exception& e) {
         *error = fmt::format("not a dispersion campaign: {}", e.what());

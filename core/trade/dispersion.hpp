@@ -218,6 +218,10 @@ nlohmann::ordered_json campaign_head_to_json(const DispersionCampaign& campaign)
 nlohmann::ordered_json case_to_json(const DispersedCase& dispersed);
 std::optional<DispersionCampaign> campaign_from_json(const nlohmann::ordered_json& json,
                                                      std::string* error);
+/// Why a part's digests do not vouch for it: none written (a part written before they were
+/// kept), or its rows as read (their CaseDigest, `rows_digest`) disagree with the digest written.
+/// Empty when they agree. For merge's readers of a part, in memory and streamed.
+std::string part_digest_problem(const DispersionCampaign& head, const std::string& rows_digest);
 /// A campaign's head read from its document ("cases" not read), or why it is not one.
 std::optional<DispersionCampaign> campaign_head_from_json(const nlohmann::ordered_json& json,
                                                           std::string* error);
@@ -232,6 +236,11 @@ std::optional<DispersedCase> case_from_json(const nlohmann::ordered_json& json, 
 /// cut short, a row changed, a case missing. Memory does not grow with the cases.
 std::optional<DispersionCampaign> read_campaign(
     std::istream& in, const std::function<void(const DispersedCase&)>& on_case, std::string* error);
+/// The same from a file, which must be a regular file (a pipe or a device is refused before it
+/// is opened, saying so).
+std::optional<DispersionCampaign> read_campaign_file(
+    const std::filesystem::path& file, const std::function<void(const DispersedCase&)>& on_case,
+    std::string* error);
 nlohmann::ordered_json summary_to_json(const DispersionSummary& summary);
 
 }  // namespace ds
