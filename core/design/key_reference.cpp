@@ -90,10 +90,7 @@ std::string need_text(const KeyRow& row, const Design& defaults) {
             text = "required";
             break;
         case KeyNeed::defaulted: {
-            std::optional<double> value = row.default_value;
-            if (!value && row.number.get)
-                value = row.number.get(defaults);
-            if (value)
+            if (const std::optional<double> value = default_of(row))
                 text = fmt::format("default {}", plain(*value));
             else if (row.text.get && !row.text.get(defaults).empty())
                 text = fmt::format("default `{}`", row.text.get(defaults));

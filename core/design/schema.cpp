@@ -1350,6 +1350,15 @@ constexpr std::array body_typicals{
 
 }  // namespace
 
+std::optional<double> default_of(const KeyRow& row) {
+    if (row.default_value)
+        return row.default_value;
+    if (row.need != KeyNeed::defaulted || !row.number.get)
+        return std::nullopt;
+    static const Design defaults;
+    return row.number.get(defaults);
+}
+
 std::optional<std::pair<double, double>> typical_range(const KeyRow& row, std::string_view body) {
     const std::string path = row.path();
     for (const BodyTypical& t : body_typicals) {

@@ -186,6 +186,10 @@ std::vector<const KeyRow*> replacements_of(const KeyRow& row);
 /// The label the form shows for a key: its label, or its key with spaces.
 std::string label_of(const KeyRow& row);
 
+/// The number a key takes when the document leaves it out: its row's default, or for a
+/// defaulted key the default design's value; none for a key without one.
+std::optional<double> default_of(const KeyRow& row);
+
 /// A key's typical range on a body: the body's own where the key's typical values depend on it
 /// (the entry speed and altitude, an exponential atmosphere's constants), else the row's. For
 /// the form's suggestions, not limits. `body` is a preset's name, or empty for a custom body.

@@ -352,9 +352,7 @@ QString inputsAppendix(const Design& design) {
                             }
                             break;
                         }
-                        std::optional<double> fallback = row->default_value;
-                        if (!fallback && row->need == KeyNeed::defaulted)
-                            fallback = row->number.get(defaults);
+                        const std::optional<double> fallback = default_of(*row);
                         const bool isDefault =
                             row->need == KeyNeed::defaulted && fallback && *fallback == *value;
                         table.addRow({{label.trimmed(), {}},

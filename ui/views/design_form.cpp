@@ -69,16 +69,6 @@ Dimension dimensionOfUnit(std::string_view unit) {
     return Dimension::dimensionless;
 }
 
-/// The value a defaulted or optional key takes when left out, if it has one.
-std::optional<double> defaultOf(const KeyRow& key) {
-    if (key.default_value)
-        return key.default_value;
-    if (key.need != KeyNeed::defaulted || !key.number.get)
-        return std::nullopt;
-    static const Design defaults;
-    return key.number.get(defaults);
-}
-
 /// The field's bounds are the reader's (the looser of a terminal key's two), its typical range
 /// the schema's on the design's body (a preset's name; empty for a custom body), or the
 /// default.
@@ -92,7 +82,7 @@ QuantityRange quantityRange(const KeyRow& key, std::string_view body) {
     if (const auto typical = typical_range(key, body)) {
         range.typicalLow = typical->first;
         range.typicalHigh = typical->second;
-    } else if (const auto fallback = defaultOf(key)) {
+    } else if (const auto fallback = default_of(key)) {
         range.typicalLow = range.typicalHigh = *fallback;
     }
     return range;
@@ -102,7 +92,7 @@ QuantityRange quantityRange(const KeyRow& key, std::string_view body) {
 QString placeholderOf(const KeyRow& key) {
     if (!key.placeholder.empty())
         return words(key.placeholder);
-    const auto fallback = defaultOf(key);
+    const auto fallback = default_of(key);
     if (!fallback)
         return {};
     QString shown = QString::fromStdString(formatQuantity(*fallback));
