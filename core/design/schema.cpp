@@ -1350,6 +1350,13 @@ constexpr std::array body_typicals{
 
 }  // namespace
 
+bool belongs_to_design(const KeyRow& row, const Design& design) {
+    if (row.model && *row.model != design.atmosphere.model)
+        return false;
+    return row.methods.empty() || std::find(row.methods.begin(), row.methods.end(),
+                                            design.terminal.method) != row.methods.end();
+}
+
 std::optional<double> default_of(const KeyRow& row) {
     if (row.default_value)
         return row.default_value;

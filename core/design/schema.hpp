@@ -186,6 +186,10 @@ std::vector<const KeyRow*> replacements_of(const KeyRow& row);
 /// The label the form shows for a key: its label, or its key with spaces.
 std::string label_of(const KeyRow& row);
 
+/// Whether a key belongs to the design's atmosphere model and terminal method: each carries
+/// the keys it flies with, and only those (the reader refuses the others).
+bool belongs_to_design(const KeyRow& row, const Design& design);
+
 /// The number a key takes when the document leaves it out: its row's default, or for a
 /// defaulted key the default design's value; none for a key without one.
 std::optional<double> default_of(const KeyRow& row);

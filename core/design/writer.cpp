@@ -81,15 +81,6 @@ Json dispersion_to_json(const DispersionDesign& d) {
     return out;
 }
 
-/// Whether a key belongs to the design's atmosphere model and terminal method: each carries
-/// the keys it flies with, and only those (the reader refuses the others).
-bool belongs(const KeyRow& row, const Design& design) {
-    if (row.model && *row.model != design.atmosphere.model)
-        return false;
-    return row.methods.empty() || std::find(row.methods.begin(), row.methods.end(),
-                                            design.terminal.method) != row.methods.end();
-}
-
 /// A number key, or a sizing request when the design has one: the request is the design's
 /// intent and wins over a number it may have produced.
 Json number_or_request(const KeyRow& row, const Design& design) {
@@ -118,7 +109,7 @@ Json number_or_request(const KeyRow& row, const Design& design) {
 void put_keys(Json& out, std::string_view section, const Design& design,
               std::string_view parent = {}) {
     for (const KeyRow* row : keys_of(section)) {
-        if (row->parent != parent || !belongs(*row, design))
+        if (row->parent != parent || !belongs_to_design(*row, design))
             continue;
         const std::string key(row->key);
         switch (row->kind) {

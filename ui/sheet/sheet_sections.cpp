@@ -280,15 +280,6 @@ QString reviewChecksSection(const Results& results) {
 
 namespace {
 
-/// Whether a key of the schema is one the design uses: of its atmosphere model and terminal
-/// method.
-bool usedBy(const KeyRow& row, const Design& design) {
-    if (row.model && *row.model != design.atmosphere.model)
-        return false;
-    return row.methods.empty() || std::find(row.methods.begin(), row.methods.end(),
-                                            design.terminal.method) != row.methods.end();
-}
-
 QString fromView(std::string_view text) {
     return QString::fromUtf8(text.data(), static_cast<qsizetype>(text.size()));
 }
@@ -332,7 +323,7 @@ QString inputsAppendix(const Design& design) {
             byHandRows(table, document.at(name), name);
         } else {
             for (const KeyRow* row : keys_of(section.name)) {
-                if (!usedBy(*row, design))
+                if (!belongs_to_design(*row, design))
                     continue;
                 const QString label = QString::fromStdString(label_of(*row));
                 const QString unit = fromView(row->unit);
