@@ -90,15 +90,11 @@ int runVerify(bool json) {
             "Descent Sizer's models against published references and an independent "
             "integration\n\n");
         for (const ReferenceCase& c : cases) {
-            const std::string agreement =
-                c.absolute
-                    ? fmt::format("{:.3g} {} (within {:g})", c.difference(), c.unit, c.tolerance)
-                    : fmt::format("{:.2e} relative (within {:g})", c.difference(), c.tolerance);
             fmt::print(
                 "{:<6} {}\n       source    {}\n       expected  {:.10g} {}\n"
                 "       computed  {:.10g} {}\n       agreement {}\n\n",
                 c.agrees() ? "agrees" : "MISSED", c.title, c.source, c.expected, c.unit, c.computed,
-                c.unit, agreement);
+                c.unit, c.agreement());
         }
         fmt::print("{} of {} cases agree within their tolerance.\n", cases.size() - missed,
                    cases.size());

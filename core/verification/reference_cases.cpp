@@ -7,6 +7,7 @@
 #include <limits>
 #include <utility>
 
+#include <fmt/format.h>
 #include <boost/numeric/odeint.hpp>
 
 #include "aeroshell/sphere_cone.hpp"
@@ -32,6 +33,11 @@ double ReferenceCase::difference() const {
 bool ReferenceCase::agrees() const {
     const double d = difference();
     return std::isfinite(d) && d <= tolerance;
+}
+
+std::string ReferenceCase::agreement() const {
+    return absolute ? fmt::format("{:.2g} {} (within {:g})", difference(), unit, tolerance)
+                    : fmt::format("{:.1e} relative (within {:g})", difference(), tolerance);
 }
 
 namespace {

@@ -23,6 +23,9 @@ struct ReferenceCase {
     double difference() const;
     /// Whether they agree within the tolerance (a value that is not a number never does).
     bool agrees() const;
+    /// The difference against the tolerance, as the command line and the sheet show it:
+    /// "1.2e-06 relative (within 1e-05)", "6.6e-06 m (within 0.01)".
+    std::string agreement() const;
 };
 
 /// Runs every reference case through the program's models, in a fixed order: the closed-form
