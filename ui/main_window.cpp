@@ -1,5 +1,7 @@
 #include "main_window.hpp"
 
+#include <algorithm>
+
 #include <QAction>
 #include <QCloseEvent>
 #include <QDateTime>
@@ -34,8 +36,8 @@ namespace {
 
 constexpr const char* demoResource = ":/samples/small-ballistic-station.json";
 constexpr const char* designFilter = "Descent Sizer designs (*.json)";
-// Wide enough for the longest label and a number with its unit.
-constexpr int formMinimumWidth = 440;
+// What the form takes at first: its own minimum (its widest row) and a little more.
+constexpr int formWidth = 420;
 // Room for about ten rows of figures and checks above the charts.
 constexpr int tablesHeight = 300;
 // How long a note about the file (an autosave that failed, a file written again) stays shown.
@@ -76,8 +78,7 @@ MainWindow::MainWindow(QWidget* parent)
     main->addWidget(results);
     main->setStretchFactor(0, 0);
     main->setStretchFactor(1, 1);
-    m_form->setMinimumWidth(formMinimumWidth);
-    main->setSizes({formMinimumWidth, 1100});
+    main->setSizes({std::max(formWidth, m_form->minimumWidth()), 1100});
     setCentralWidget(main);
 
     m_status = new QLabel(this);

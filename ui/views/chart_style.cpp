@@ -3,7 +3,11 @@
 #include <algorithm>
 #include <cmath>
 
+#include <QAbstractAxis>
+#include <QAbstractSeries>
 #include <QChart>
+#include <QFontMetricsF>
+#include <QGraphicsLayout>
 #include <QGraphicsRectItem>
 #include <QGraphicsSimpleTextItem>
 #include <QLegend>
@@ -18,8 +22,25 @@ constexpr double baselineLineWidth = 1.5;
 constexpr int targetTickIntervals = 5;
 constexpr double keyFontScale = 0.9;
 constexpr double keyPadding = 4.0;
-constexpr double keyOffset = 8.0;
+/// Room between the plot and a key beside it: the last label of the axis under the plot
+/// reaches past the plot's side by half its width.
+constexpr double keyGap = 28.0;
 constexpr double keyZValue = 100.0;  // above the series
+/// Room around the chart's contents: QtCharts' own (some 20 px a side) leaves a small chart
+/// too little plot.
+constexpr int chartMargin = 6;
+/// What a legend entry takes beside its name (the marker and the spacing), in font heights.
+constexpr double legendMarkerHeights = 3.5;
+// The property names under which a chart's texts keep their full and short forms.
+constexpr const char* fullTextProperty = "ds.fullText";
+constexpr const char* shortTextProperty = "ds.shortText";
+
+/// The full form of an axis title or a series name, remembered the first time it is fitted.
+QString fullText(QObject* object, const QString& shown) {
+    if (!object->property(fullTextProperty).isValid())
+        object->setProperty(fullTextProperty, shown);
+    return object->property(fullTextProperty).toString();
+}
 /// An axis end rounded out to a tick may leave this fraction of the span empty, no more.
 constexpr double roundingWasteFraction = 0.1;
 constexpr double axisPadFraction = 0.02;
@@ -46,6 +67,10 @@ QChart* newChart(const QString& title) {
     titleFont.setPointSizeF(titleFont.pointSizeF() * 1.1);
     chart->setTitleFont(titleFont);
     chart->legend()->setAlignment(Qt::AlignBottom);
+    chart->setMargins(QMargins(chartMargin, chartMargin, chartMargin, chartMargin));
+    if (chart->layout())
+        chart->layout()->setContentsMargins(0, 0, 0, 0);
+    QObject::connect(chart, &QChart::plotAreaChanged, chart, [chart] { fitTexts(chart); });
     return chart;
 }
 
@@ -62,15 +87,23 @@ QPen baselinePen(Qt::PenStyle style) {
     return pen;
 }
 
+void styleAxis(QAbstractAxis* axis, const QColor& colour) {
+    axis->setLabelsColor(colour);
+    axis->setTitleBrush(QBrush(colour));
+    // Titles in the labels' weight: a bold title needs a tenth more length than a small
+    // chart's axis has.
+    QFont titleFont = axis->titleFont();
+    titleFont.setBold(false);
+    axis->setTitleFont(titleFont);
+}
+
 /// A value axis on one side of the chart, its labels in the colour of what it measures.
 QValueAxis* addValueAxis(QChart* chart, const QString& title, Qt::Alignment side,
                          const QColor& colour) {
     auto* axis = new QValueAxis;
     axis->setTitleText(title);
     axis->setLabelFormat(QStringLiteral("%g"));
-    axis->setLabelsColor(colour);
-    QBrush titleBrush(colour);
-    axis->setTitleBrush(titleBrush);
+    styleAxis(axis, colour);
     // One grid, the left axis's: a second would not line up with it.
     axis->setGridLineVisible(side != Qt::AlignRight);
     chart->addAxis(axis, side);
@@ -111,6 +144,57 @@ double niceInterval(double span, int ticks) {
     return 10.0 * decade;
 }
 
+void setShortTitle(QAbstractAxis* axis, const QString& shortTitle) {
+    axis->setProperty(shortTextProperty, shortTitle);
+}
+
+void setShortName(QAbstractSeries* series, const QString& shortName) {
+    series->setProperty(shortTextProperty, shortName);
+}
+
+void fitTexts(QChart* chart) {
+    const QRectF plot = chart->plotArea();
+    if (plot.isEmpty())
+        return;
+    for (QAbstractAxis* axis : chart->axes()) {
+        const QString shortTitle = axis->property(shortTextProperty).toString();
+        if (shortTitle.isEmpty())
+            continue;
+        const QString full = fullText(axis, axis->titleText());
+        const double length = axis->orientation() == Qt::Vertical ? plot.height() : plot.width();
+        // QtCharts cuts a title some way short of the axis's full length.
+        constexpr double usableLength = 0.85;
+        const bool fits =
+            QFontMetricsF(axis->titleFont()).horizontalAdvance(full) <= usableLength * length;
+        const QString wanted = fits ? full : shortTitle;
+        if (axis->titleText() != wanted)
+            axis->setTitleText(wanted);
+    }
+    // The legend is one row under the plot: its entries' full names, or all short ones.
+    QLegend* legend = chart->legend();
+    const QFontMetricsF metrics(legend->font());
+    double fullWidth = 0.0;
+    std::vector<QAbstractSeries*> shortened;
+    for (QLegendMarker* marker : legend->markers()) {
+        if (!marker->isVisible())
+            continue;
+        QAbstractSeries* series = marker->series();
+        const QString full = fullText(series, series->name());
+        fullWidth += metrics.horizontalAdvance(full) + legendMarkerHeights * metrics.height();
+        if (!series->property(shortTextProperty).toString().isEmpty())
+            shortened.push_back(series);
+    }
+    // The legend's own margins, some two font heights.
+    const bool fits =
+        fullWidth <= chart->size().width() - 2.0 * chartMargin - 2.0 * metrics.height();
+    for (QAbstractSeries* series : shortened) {
+        const QString wanted = fits ? series->property(fullTextProperty).toString()
+                                    : series->property(shortTextProperty).toString();
+        if (series->name() != wanted)
+            series->setName(wanted);
+    }
+}
+
 void attach(QChart* chart, QAbstractSeries* series, QAbstractAxis* x, QAbstractAxis* y) {
     chart->addSeries(series);
     series->attachAxis(x);
@@ -122,7 +206,8 @@ void hideFromLegend(QChart* chart, QAbstractSeries* series) {
         marker->setVisible(false);
 }
 
-/// A boxed key in the plot's top-left corner, following the plot area when it moves.
+/// A boxed key beside the plot, at its top right, in room the chart keeps for it: it hides no
+/// data however the plot is zoomed. For charts with no right-hand axis.
 void addKey(QChart* chart, const QString& text) {
     auto* box = new QGraphicsRectItem(chart);
     auto* label = new QGraphicsSimpleTextItem(text, box);
@@ -135,8 +220,12 @@ void addKey(QChart* chart, const QString& text) {
     box->setBrush(Qt::white);
     box->setPen(QPen(baselineInk, 0.0));
     box->setZValue(keyZValue);
+    QMargins margins = chart->margins();
+    margins.setRight(margins.right() + static_cast<int>(std::ceil(box->rect().width())) +
+                     static_cast<int>(keyGap));
+    chart->setMargins(margins);
     const auto place = [box](const QRectF& plotArea) {
-        box->setPos(plotArea.topLeft() + QPointF(keyOffset, keyOffset));
+        box->setPos(plotArea.topRight() + QPointF(keyGap, 0.0));
     };
     place(chart->plotArea());
     QObject::connect(chart, &QChart::plotAreaChanged, chart, place);

@@ -28,12 +28,18 @@ inline const QColor passInk(0x2e, 0x8b, 0x57);
 inline const QColor marginalInk(0xd0, 0x90, 0x10);
 inline const QColor failInk(0xc0, 0x30, 0x28);
 
+/// A chart in the house style. It fits its texts to the space it is given: an axis title or a
+/// legend name with a short form (setShortTitle, setShortName) takes it when the full one would
+/// be cut.
 QChart* newChart(const QString& title);
 /// A chart with nothing to draw, its title saying why.
 QChart* emptyChart(const QString& title, const QString& reason = QStringLiteral("no trajectory"));
 QPen resultPen(const QColor& colour);
 QPen baselinePen(Qt::PenStyle style = Qt::DashLine);
 
+/// An axis in the house style: labels and title in the colour of what it measures, the
+/// title in the labels' weight.
+void styleAxis(QAbstractAxis* axis, const QColor& colour = Qt::black);
 /// A value axis on one side of the chart, its labels in the colour of what it measures.
 QValueAxis* addValueAxis(QChart* chart, const QString& title, Qt::Alignment side,
                          const QColor& colour = Qt::black);
@@ -43,9 +49,20 @@ double niceInterval(double span, int ticks);
 /// to a tick only when that wastes little of the plot; otherwise it gets a small pad.
 void setNiceRange(QValueAxis* axis, double low, double high);
 
+/// What an axis title becomes when the axis is too short for it ("dynamic pressure (kPa)" to
+/// "q (kPa)").
+void setShortTitle(QAbstractAxis* axis, const QString& shortTitle);
+/// What a series is called in the legend when the legend is too narrow for its full name.
+void setShortName(QAbstractSeries* series, const QString& shortName);
+/// The texts that fit the chart as it is laid out now: every axis's title and the legend's
+/// names, full where they fit, short where they do not. Charts made by newChart do it
+/// whenever their plot area moves.
+void fitTexts(QChart* chart);
+
 void attach(QChart* chart, QAbstractSeries* series, QAbstractAxis* x, QAbstractAxis* y);
 void hideFromLegend(QChart* chart, QAbstractSeries* series);
-/// A boxed key in the plot's top-left corner, following the plot area when it moves.
+/// A boxed key beside the plot, at its top right, in room the chart keeps for it: it hides no
+/// data however the plot is zoomed. For charts with no right-hand axis.
 void addKey(QChart* chart, const QString& text);
 
 /// The smallest and largest of the finite values included.

@@ -12,16 +12,20 @@
 #include <QAreaSeries>
 #include <QBarCategoryAxis>
 #include <QBarSet>
+#include <QCategoryAxis>
 #include <QChart>
-#include <QChartView>
+#include <QComboBox>
 #include <QGraphicsLayout>
 #include <QGraphicsRectItem>
 #include <QGraphicsScene>
 #include <QGraphicsSimpleTextItem>
 #include <QGridLayout>
+#include <QHBoxLayout>
+#include <QLabel>
 #include <QLegendMarker>
 #include <QLineSeries>
 #include <QPainter>
+#include <QPushButton>
 #include <QScatterSeries>
 #include <QStackedBarSeries>
 #include <QTabWidget>
@@ -31,6 +35,8 @@
 #include "sizing/landed_mass.hpp"
 #include "sizing/limit_checks.hpp"
 #include "views/chart_style.hpp"
+#include "views/chart_view.hpp"
+#include "views/wheel_guard.hpp"
 
 namespace ds {
 namespace {
@@ -82,30 +88,76 @@ struct TimeCurve {
     QString name;          ///< "deceleration"
     QString baselineName;  ///< "baseline deceleration"
     QString axisTitle;     ///< "deceleration (g)"
+    QString shortTitle;    ///< "decel. (g)", for an axis too short for the title
     std::function<double(const TrajectorySample&)> value;
     /// What the axis must hold, when more than the curve (another curve on the same axis).
     std::function<double(const TrajectorySample&)> reach = nullptr;
 };
 
+/// Where a time lies along a logarithmic time axis: log10(1 + t / 1 s), so that the
+/// interface (t = 0) has a place.
+double logarithmicTime(double time_s) {
+    return std::log10(1.0 + std::max(time_s, 0.0));
+}
+
+/// A time axis whose positions are logarithmicTime: labelled in seconds at round times (1, 2
+/// and 5 times each power of ten over a short flight, the powers alone over a long one).
+QCategoryAxis* logarithmicTimeAxis(QChart* chart, double lastTime_s) {
+    auto* axis = new QCategoryAxis;
+    axis->setTitleText(QStringLiteral("time (s, logarithmic)"));
+    setShortTitle(axis, QStringLiteral("time (s, log)"));
+    styleAxis(axis);
+    axis->setLabelsPosition(QCategoryAxis::AxisLabelsPositionOnValue);
+    axis->setStartValue(0.0);
+    const double end = std::max(lastTime_s, 10.0);
+    axis->append(QStringLiteral("0"), 0.0);
+    constexpr double manyDecades = 3.0;
+    const bool fewDecades = std::log10(end) <= manyDecades;
+    for (double decade = 1.0; decade <= end; decade *= 10.0) {
+        for (const double step : {1.0, 2.0, 5.0}) {
+            const double t = step * decade;
+            if (t <= end && (step == 1.0 || fewDecades))
+                axis->append(QString::number(t, 'g', 6), logarithmicTime(t));
+        }
+    }
+    axis->setRange(0.0, logarithmicTime(end));
+    chart->addAxis(axis, Qt::AlignBottom);
+    return axis;
+}
+
 /// A chart of two quantities against time, each on its own axis: the left in the primary ink,
 /// the right in the secondary.
 struct TimeChart {
     QChart* chart;
-    QValueAxis* time;
+    QAbstractAxis* time;
     QValueAxis* left;
     QValueAxis* right;
+    TimeScale scale;
+
+    /// A time's place along the time axis.
+    double x(double time_s) const {
+        return scale == TimeScale::logarithmic ? logarithmicTime(time_s) : time_s;
+    }
 };
 
 /// The chart and its axes, ranged over the results and the baseline; no curves yet, so that
 /// what lies beneath them can be drawn first.
 TimeChart timeChart(const QString& title, const Results& results, const Results* baseline,
-                    const TimeCurve& left, const TimeCurve& right) {
+                    const TimeCurve& left, const TimeCurve& right, TimeScale scale) {
     QChart* chart = newChart(title);
-    TimeChart c{chart, addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom),
-                addValueAxis(chart, left.axisTitle, Qt::AlignLeft, primaryInk),
-                addValueAxis(chart, right.axisTitle, Qt::AlignRight, secondaryInk)};
     const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
-    setNiceRange(c.time, std::min(0.0, time.low), time.high);
+    QAbstractAxis* timeAxis = nullptr;
+    if (scale == TimeScale::logarithmic) {
+        timeAxis = logarithmicTimeAxis(chart, time.high);
+    } else {
+        QValueAxis* linear = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
+        setNiceRange(linear, std::min(0.0, time.low), time.high);
+        timeAxis = linear;
+    }
+    TimeChart c{chart, timeAxis, addValueAxis(chart, left.axisTitle, Qt::AlignLeft, primaryInk),
+                addValueAxis(chart, right.axisTitle, Qt::AlignRight, secondaryInk), scale};
+    setShortTitle(c.left, left.shortTitle);
+    setShortTitle(c.right, right.shortTitle);
     setNiceRange(c.left, 0.0, spanOf(results, baseline, left.reach ? left.reach : left.value).high);
     setNiceRange(c.right, 0.0,
                  spanOf(results, baseline, right.reach ? right.reach : right.value).high);
@@ -116,20 +168,20 @@ TimeChart timeChart(const QString& title, const Results& results, const Results*
 /// dash-dotted.
 void attachTimeCurves(const TimeChart& c, const Results& results, const Results* baseline,
                       const TimeCurve& left, const TimeCurve& right) {
-    const auto point = [](const TimeCurve& curve) {
-        return [value = curve.value](const TrajectorySample& s) {
-            return QPointF(s.time_s, value(s));
+    const auto point = [&c](const TimeCurve& curve) {
+        return [value = curve.value, &c](const TrajectorySample& s) {
+            return QPointF(c.x(s.time_s), value(s));
         };
     };
     if (baseline && !baseline->history.empty()) {
-        attach(c.chart,
-               historySeries(baseline->history, left.baselineName, baselinePen(Qt::DashLine),
-                             point(left)),
-               c.time, c.left);
-        attach(c.chart,
-               historySeries(baseline->history, right.baselineName, baselinePen(Qt::DashDotLine),
-                             point(right)),
-               c.time, c.right);
+        QLineSeries* leftBaseline = historySeries(baseline->history, left.baselineName,
+                                                  baselinePen(Qt::DashLine), point(left));
+        setShortName(leftBaseline, QStringLiteral("baseline"));
+        attach(c.chart, leftBaseline, c.time, c.left);
+        QLineSeries* rightBaseline = historySeries(baseline->history, right.baselineName,
+                                                   baselinePen(Qt::DashDotLine), point(right));
+        setShortName(rightBaseline, QStringLiteral("baseline"));
+        attach(c.chart, rightBaseline, c.time, c.right);
     }
     attach(c.chart, historySeries(results.history, left.name, resultPen(primaryInk), point(left)),
            c.time, c.left);
@@ -155,10 +207,10 @@ void shadeBurn(const TimeChart& c, const Results& results) {
     auto* outline = new QLineSeries(band);
     const double bottom = c.left->min();
     const double top = c.left->max();
-    outline->append(burn->first, bottom);
-    outline->append(burn->first, top);
-    outline->append(burn->second, top);
-    outline->append(burn->second, bottom);
+    outline->append(c.x(burn->first), bottom);
+    outline->append(c.x(burn->first), top);
+    outline->append(c.x(burn->second), top);
+    outline->append(c.x(burn->second), bottom);
     band->setUpperSeries(outline);
     band->setName(QStringLiteral("engines firing"));
     band->setBrush(burnFill);
@@ -192,7 +244,7 @@ void markDeploy(const TimeChart& c, const QString& label, const DeployResults& d
     if (!deploy.deployed || !deploy.deploy_time_s || !deploy.deploy_mach)
         return;
     QScatterSeries* marker =
-        eventMarker(label, QPointF(*deploy.deploy_time_s, *deploy.deploy_mach));
+        eventMarker(label, QPointF(c.x(*deploy.deploy_time_s), *deploy.deploy_mach));
     attach(c.chart, marker, c.time, c.left);
     hideFromLegend(c.chart, marker);
 }
@@ -348,24 +400,26 @@ std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Resu
     return std::unique_ptr<QChart>(chart);
 }
 
-std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline) {
+std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline,
+                                   TimeScale scale) {
     const QString title = QStringLiteral("Deceleration and heat flux against time");
     if (results.history.empty())
         return std::unique_ptr<QChart>(emptyChart(title));
 
     const TimeCurve deceleration{QStringLiteral("deceleration"),
                                  QStringLiteral("baseline deceleration"),
-                                 QStringLiteral("deceleration (g)"),
+                                 QStringLiteral("deceleration (g)"), QStringLiteral("decel. (g)"),
                                  [](const TrajectorySample& s) { return s.deceleration_g; }};
     // The heat-flux axis holds the radiative curve too.
     const TimeCurve convective{QStringLiteral("convective heat flux"),
                                QStringLiteral("baseline heat flux"),
                                QStringLiteral("heat flux (W/cm²)"),
+                               QStringLiteral("W/cm²"),
                                [](const TrajectorySample& s) { return s.heat_flux_W_cm2; },
                                [](const TrajectorySample& s) {
                                    return std::max(s.heat_flux_W_cm2, s.radiative_heat_flux_W_cm2);
                                }};
-    const TimeChart c = timeChart(title, results, baseline, deceleration, convective);
+    const TimeChart c = timeChart(title, results, baseline, deceleration, convective, scale);
     shadeBurn(c, results);
     attachTimeCurves(c, results, baseline, deceleration, convective);
     const bool radiative =
@@ -382,8 +436,8 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
         pen.setStyle(Qt::DotLine);
         attach(c.chart,
                historySeries(results.history, QStringLiteral("radiative heat flux"), pen,
-                             [](const TrajectorySample& s) {
-                                 return QPointF(s.time_s, s.radiative_heat_flux_W_cm2);
+                             [&c](const TrajectorySample& s) {
+                                 return QPointF(c.x(s.time_s), s.radiative_heat_flux_W_cm2);
                              }),
                c.time, c.right);
     }
@@ -391,19 +445,19 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
 }
 
 std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
-                                          const Results* baseline) {
+                                          const Results* baseline, TimeScale scale) {
     const QString title = QStringLiteral("Mach number and dynamic pressure against time");
     if (results.history.empty())
         return std::unique_ptr<QChart>(emptyChart(title));
 
     const TimeCurve mach{QStringLiteral("Mach number"), QStringLiteral("baseline Mach"),
-                         QStringLiteral("Mach number"),
+                         QStringLiteral("Mach number"), QStringLiteral("Mach"),
                          [](const TrajectorySample& s) { return s.mach; }};
     const TimeCurve pressure{
         QStringLiteral("dynamic pressure"), QStringLiteral("baseline pressure"),
-        QStringLiteral("dynamic pressure (kPa)"),
+        QStringLiteral("dynamic pressure (kPa)"), QStringLiteral("q (kPa)"),
         [](const TrajectorySample& s) { return s.dynamic_pressure_Pa / pascalsPerKilopascal; }};
-    const TimeChart c = timeChart(title, results, baseline, mach, pressure);
+    const TimeChart c = timeChart(title, results, baseline, mach, pressure, scale);
 
     // The deploy window where one applies (Mars, or the design's own bounds), shaded over the
     // full height: a step outline on the Mach axis.
@@ -417,13 +471,14 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         const double bottom = c.left->min();
         const double top = c.left->max();
         for (const auto& [start, end] : intervals) {
-            outline->append(start, bottom);
-            outline->append(start, top);
-            outline->append(end, top);
-            outline->append(end, bottom);
+            outline->append(c.x(start), bottom);
+            outline->append(c.x(start), top);
+            outline->append(c.x(end), top);
+            outline->append(c.x(end), bottom);
         }
         band->setUpperSeries(outline);
         band->setName(windowName(window));
+        setShortName(band, QStringLiteral("deploy window"));
         band->setBrush(windowFill);
         band->setPen(Qt::NoPen);
         attach(c.chart, band, c.time, c.left);
@@ -446,21 +501,27 @@ std::unique_ptr<QChart> burnChart(const Results& results, const Results* baselin
     if (results.history.empty() || !burn)
         return std::unique_ptr<QChart>(emptyChart(title, QStringLiteral("no burn")));
 
-    const TimeCurve throttle{QStringLiteral("throttle"), QStringLiteral("baseline throttle"),
+    const TimeCurve throttle{QStringLiteral("throttle"),
+                             QStringLiteral("baseline throttle"),
                              QStringLiteral("throttle (of full thrust)"),
+                             QStringLiteral("throttle"),
                              [](const TrajectorySample& s) { return s.throttle; },
                              [](const TrajectorySample&) { return 1.0; }};
     // C_T = T / (q A) grows without bound as the air slows: its axis holds what it reaches
     // while the flow is still supersonic (where it says how the plume meets the flow), and the
     // curve runs off the top below that.
     const TimeCurve coefficient{
-        QStringLiteral("thrust coefficient C_T"), QStringLiteral("baseline C_T"),
+        QStringLiteral("thrust coefficient C_T"),
+        QStringLiteral("baseline C_T"),
         QStringLiteral("C_T = T / (q A)"),
+        QStringLiteral("C_T"),
         [](const TrajectorySample& s) { return s.thrust_coefficient; },
         [](const TrajectorySample& s) { return s.mach >= 1.0 ? s.thrust_coefficient : 0.0; }};
-    const TimeChart c = timeChart(title, results, baseline, throttle, coefficient);
+    const TimeChart c =
+        timeChart(title, results, baseline, throttle, coefficient, TimeScale::linear);
     const double span = burn->second - burn->first;
-    setNiceRange(c.time, std::max(0.0, burn->first - 0.1 * span), burn->second + 0.05 * span);
+    setNiceRange(static_cast<QValueAxis*>(c.time), std::max(0.0, burn->first - 0.1 * span),
+                 burn->second + 0.05 * span);
     if (!(c.right->max() > 0.0))
         setNiceRange(c.right, 0.0, 1.0);  // no supersonic thrust: the canopy methods' burns
     shadeBurn(c, results);
@@ -665,11 +726,24 @@ QImage renderChart(QChart* chart, QSize size) {
     return image;
 }
 
+TimeScale suggestedTimeScale(const Results& results) {
+    const std::vector<TrajectorySample>& history = results.history;
+    if (history.empty())
+        return TimeScale::linear;
+    const auto peak = std::max_element(history.begin(), history.end(),
+                                       [](const TrajectorySample& a, const TrajectorySample& b) {
+                                           return a.deceleration_g < b.deceleration_g;
+                                       });
+    constexpr double longDescent = 20.0;
+    return peak->time_s > 0.0 && history.back().time_s > longDescent * peak->time_s
+               ? TimeScale::logarithmic
+               : TimeScale::linear;
+}
+
 ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     const auto makeView = [this](const QString& title) {
-        auto* view = new QChartView(emptyChart(title, QStringLiteral("not sized yet")), this);
-        view->setRenderHint(QPainter::Antialiasing);
-        view->setMinimumSize(320, 240);
+        auto* view = new ChartView(emptyChart(title, QStringLiteral("not sized yet")), this);
+        view->setMinimumSize(280, 200);
         return view;
     };
     m_altitudeVelocity = makeView(QStringLiteral("Altitude against velocity"));
@@ -684,6 +758,7 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     auto* profiles = new QWidget(this);
     auto* grid = new QGridLayout(profiles);
     grid->setContentsMargins(0, 0, 0, 0);
+    grid->setSpacing(2);
     grid->addWidget(m_altitudeVelocity, 0, 0);
     grid->addWidget(m_loads, 0, 1);
     grid->addWidget(m_machPressure, 1, 0);
@@ -695,23 +770,82 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     m_pages->addTab(profiles, tr("Profiles"));
     m_pages->addTab(m_groundTrack, tr("Ground track"));
     m_pages->addTab(m_burn, tr("Burn"));
+
+    // Beside the tabs: the time axis and the zoom.
+    auto* corner = new QWidget(this);
+    auto* cornerLayout = new QHBoxLayout(corner);
+    cornerLayout->setContentsMargins(0, 0, 4, 0);
+    auto* scaleLabel = new QLabel(tr("Time &axis:"), corner);
+    m_scaleChoice = new QComboBox(corner);
+    m_scaleChoice->setObjectName(QStringLiteral("timeScale"));
+    m_scaleChoice->addItems({tr("as the flight suggests"), tr("linear"), tr("logarithmic")});
+    m_scaleChoice->setToolTip(
+        tr("A logarithmic time axis gives the entry's minutes room beside a descent of hours "
+           "under a canopy. The flight suggests it when it lasts over twenty times as long as "
+           "it takes to reach its peak deceleration."));
+    guardWheel(m_scaleChoice);
+    scaleLabel->setBuddy(m_scaleChoice);
+    auto* reset = new QPushButton(tr("&Reset zoom"), corner);
+    reset->setObjectName(QStringLiteral("resetZoom"));
+    reset->setToolTip(
+        tr("Every chart whole again. On a chart: drag to zoom, the wheel zooms, "
+           "drag with the middle button or Shift to pan, double-click to reset."));
+    cornerLayout->addWidget(scaleLabel);
+    cornerLayout->addWidget(m_scaleChoice);
+    cornerLayout->addWidget(reset);
+    m_pages->setCornerWidget(corner, Qt::BottomRightCorner);
+    connect(m_scaleChoice, &QComboBox::currentIndexChanged, this, [this] { redraw(); });
+    connect(reset, &QPushButton::clicked, this, [this] {
+        for (ChartView* view : views())
+            view->resetZoom();
+    });
+
     auto* layout = new QVBoxLayout(this);
     layout->setContentsMargins(0, 0, 0, 0);
     layout->addWidget(m_pages);
 }
 
+QList<ChartView*> ChartsView::views() const {
+    return {m_altitudeVelocity, m_loads, m_machPressure, m_mass, m_groundTrack, m_burn};
+}
+
 void ChartsView::setResults(const Design& design, const Results& results, const Results* baseline) {
-    // QChartView::setChart releases the previous chart without deleting it.
-    const auto replace = [](QChartView* view, std::unique_ptr<QChart> chart) {
-        std::unique_ptr<QChart> previous(view->chart());
-        view->setChart(chart.release());  // the view's scene owns it from here
-    };
-    replace(m_altitudeVelocity, altitudeVelocityChart(results, baseline));
-    replace(m_loads, loadsChart(results, baseline));
-    replace(m_machPressure, machPressureChart(design, results, baseline));
-    replace(m_mass, massWaterfallChart(results));
-    replace(m_groundTrack, groundTrackChart(results, baseline));
-    replace(m_burn, burnChart(results, baseline));
+    m_design = design;
+    m_results = results;
+    m_baseline = baseline ? std::optional<Results>(*baseline) : std::nullopt;
+    redraw();
+}
+
+void ChartsView::redraw() {
+    if (!m_results || !m_design)
+        return;
+    const Results& results = *m_results;
+    const Results* baseline = m_baseline ? &*m_baseline : nullptr;
+    switch (m_scaleChoice->currentIndex()) {
+        case 1:
+            m_scale = TimeScale::linear;
+            break;
+        case 2:
+            m_scale = TimeScale::logarithmic;
+            break;
+        default:
+            m_scale = suggestedTimeScale(results);
+    }
+    // A change of scale moves every point of the time charts: their zoom starts afresh.
+    const bool rescaled = m_loads->property("ds.timeScale").isValid() &&
+                          m_loads->property("ds.timeScale").toInt() != static_cast<int>(m_scale);
+    if (rescaled) {
+        m_loads->resetZoom();
+        m_machPressure->resetZoom();
+    }
+    m_loads->setProperty("ds.timeScale", static_cast<int>(m_scale));
+    m_altitudeVelocity->replaceChart(altitudeVelocityChart(results, baseline).release());
+    m_loads->replaceChart(loadsChart(results, baseline, m_scale).release());
+    m_machPressure->replaceChart(
+        machPressureChart(*m_design, results, baseline, m_scale).release());
+    m_mass->replaceChart(massWaterfallChart(results).release());
+    m_groundTrack->replaceChart(groundTrackChart(results, baseline).release());
+    m_burn->replaceChart(burnChart(results, baseline).release());
 }
 
 }  // namespace ds

@@ -1,6 +1,7 @@
 #pragma once
 
 #include <memory>
+#include <optional>
 
 #include <QImage>
 #include <QSize>
@@ -11,7 +12,7 @@
 
 QT_BEGIN_NAMESPACE
 class QChart;
-class QChartView;
+class QComboBox;
 class QTabWidget;
 QT_END_NAMESPACE
 
@@ -20,10 +21,20 @@ namespace ds {
 /// The result charts, built the same way for the window and the sizing sheet. Each takes the
 /// results and, when the user pinned one, a baseline drawn dashed behind them. The caller owns
 /// the chart returned.
+/// How a chart against time spaces its time axis. A logarithmic axis (of one second plus the
+/// time from the interface) gives the entry's minutes the room that a descent of hours under
+/// a canopy takes on a linear one.
+enum class TimeScale { linear, logarithmic };
+/// The scale a flight reads best on: logarithmic when it lasts over twenty times as long as
+/// it takes to reach its peak deceleration (a long descent under a canopy), else linear.
+TimeScale suggestedTimeScale(const Results& results);
+
 std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Results* baseline);
-std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline);
+std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline,
+                                   TimeScale scale = TimeScale::linear);
 std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
-                                          const Results* baseline);
+                                          const Results* baseline,
+                                          TimeScale scale = TimeScale::linear);
 std::unique_ptr<QChart> massWaterfallChart(const Results& results);
 /// The terminal burn's throttle and thrust coefficient against time, the burn shaded; an
 /// empty chart for a flight without a burn.
@@ -36,23 +47,38 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
 /// A chart drawn into an image of the given size (for the sheet and screenshots).
 QImage renderChart(QChart* chart, QSize size);
 
+class ChartView;
+
 /// The four profiles in a grid on one page, the ground track on another; setResults replaces
-/// them.
+/// them (keeping what the user zoomed to). Beside the pages' tabs: the time axis's scale
+/// (suggested by the flight, or chosen) and a reset of every chart's zoom.
 class ChartsView : public QWidget {
     Q_OBJECT
 public:
     explicit ChartsView(QWidget* parent = nullptr);
 
     void setResults(const Design& design, const Results& results, const Results* baseline);
+    /// The scale the time charts are drawn on now.
+    TimeScale timeScale() const { return m_scale; }
+    /// Every chart, for tests.
+    QList<ChartView*> views() const;
 
 private:
-    QChartView* m_altitudeVelocity;
-    QChartView* m_loads;
-    QChartView* m_machPressure;
-    QChartView* m_mass;
-    QChartView* m_groundTrack;
-    QChartView* m_burn;
+    void redraw();
+
+    ChartView* m_altitudeVelocity;
+    ChartView* m_loads;
+    ChartView* m_machPressure;
+    ChartView* m_mass;
+    ChartView* m_groundTrack;
+    ChartView* m_burn;
     QTabWidget* m_pages;
+    QComboBox* m_scaleChoice;
+    TimeScale m_scale = TimeScale::linear;
+    // What setResults was given last, for a redraw on another time scale.
+    std::optional<Design> m_design;
+    std::optional<Results> m_results;
+    std::optional<Results> m_baseline;
 };
 
 }  // namespace ds

@@ -42,6 +42,7 @@ ChecksView::ChecksView(QWidget* parent) : QTableWidget(0, 6, parent) {
         {tr("Status"), tr("Check"), tr("Value"), tr("Limit"), tr("Why"), tr("Limit from")});
     horizontalHeader()->setSectionResizeMode(4, QHeaderView::Stretch);
     verticalHeader()->setVisible(false);
+    verticalHeader()->setDefaultSectionSize(fontMetrics().height() + 6);  // as the figures'
     setEditTriggers(QAbstractItemView::NoEditTriggers);
     setSelectionBehavior(QAbstractItemView::SelectRows);
     // One line a check; the whole reason and the limit's source are in the tooltip.

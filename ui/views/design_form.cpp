@@ -9,6 +9,7 @@
 #include <QLabel>
 #include <QPushButton>
 #include <QScrollArea>
+#include <QScrollBar>
 #include <QSignalBlocker>
 #include <QTableWidget>
 #include <QVBoxLayout>
@@ -41,6 +42,9 @@ const std::vector<FormSection> formSections{
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Mass budget"), {"mass"}},
     {QT_TRANSLATE_NOOP("ds::DesignForm", "Limits"), {"limits"}},
 };
+
+/// What a drop-down box of the form shows at least, in characters.
+constexpr int minimumChoiceCharacters = 12;
 
 QString fromView(std::string_view s) {
     return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size()));
@@ -193,6 +197,11 @@ DesignForm::DesignForm(DesignDocument* document, QWidget* parent)
             buildPart(form, *find_section(part));
     }
     m_sections->addStretch(1);
+    // As wide as its widest row needs, every row shown as it is now: the form then never
+    // scrolls sideways (a field cut at the window's side), whatever rows the design shows.
+    scroll->setHorizontalScrollBarPolicy(Qt::ScrollBarAlwaysOff);
+    setMinimumWidth(content->minimumSizeHint().width() +
+                    scroll->verticalScrollBar()->sizeHint().width() + 2 * scroll->frameWidth());
 
     connect(m_document, &DesignDocument::changed, this, &DesignForm::refresh);
     refresh();
@@ -202,6 +211,8 @@ QFormLayout* DesignForm::addSection(const QString& title) {
     auto* box = new QGroupBox(title, this);
     auto* form = new QFormLayout(box);
     form->setFieldGrowthPolicy(QFormLayout::AllNonFixedFieldsGrow);
+    // A label too long to stand beside its field goes above it, rather than widen the form.
+    form->setRowWrapPolicy(QFormLayout::WrapLongRows);
     m_sections->addWidget(box);
     return form;
 }
@@ -244,11 +255,20 @@ QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
     return edit;
 }
 
+QComboBox* DesignForm::formCombo() {
+    auto* combo = new QComboBox(this);
+    guardWheel(combo);
+    // As narrow as the form's column allows: the longest choice (a terminal method's) would
+    // otherwise widen the whole form past the window's side. The list shows every text whole.
+    combo->setSizeAdjustPolicy(QComboBox::AdjustToMinimumContentsLengthWithIcon);
+    combo->setMinimumContentsLength(minimumChoiceCharacters);
+    return combo;
+}
+
 QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
                                  const std::string& pointer,
                                  const std::vector<std::pair<QString, std::string>>& choices) {
-    auto* combo = new QComboBox(this);
-    guardWheel(combo);
+    QComboBox* combo = formCombo();
     combo->setObjectName(QString::fromStdString(pointer));
     std::vector<std::string> values;
     for (const auto& [shown, value] : choices) {
@@ -268,8 +288,7 @@ QComboBox* DesignForm::addChoice(QFormLayout* form, const QString& label,
 QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QString& label,
                                 const QStringList& shapes, std::function<int()> current,
                                 std::function<void(int)> select) {
-    auto* combo = new QComboBox(this);
-    guardWheel(combo);
+    QComboBox* combo = formCombo();
     combo->setObjectName(name);
     combo->addItems(shapes);
     form->addRow(label, combo);

@@ -68,6 +68,8 @@ private:
     };
 
     QFormLayout* addSection(const QString& title);
+    /// A drop-down box of the form: the wheel passes it by, and it is no wider than it must be.
+    QComboBox* formCombo();
     QuantityEdit* addNumber(QFormLayout* form, const KeyRow& key);
     QComboBox* addChoice(QFormLayout* form, const QString& label, const std::string& pointer,
                          const std::vector<std::pair<QString, std::string>>& choices);

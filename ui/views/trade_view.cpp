@@ -6,7 +6,6 @@
 #include <memory>
 
 #include <QChart>
-#include <QChartView>
 #include <QComboBox>
 #include <QCoreApplication>
 #include <QDoubleValidator>
@@ -31,6 +30,7 @@
 #include "trade/design_variants.hpp"
 #include "trade/success_probability.hpp"
 #include "trade/value_list.hpp"
+#include "views/chart_view.hpp"
 #include "views/dispersion_table.hpp"
 #include "views/export_dialog.hpp"
 #include "views/trade_charts.hpp"
@@ -85,10 +85,10 @@ QString text(std::string_view s) {
     return QString::fromUtf8(s.data(), static_cast<qsizetype>(s.size()));
 }
 
-QChartView* chartView(QWidget* parent) {
-    auto* view = new QChartView(new QChart, parent);
-    view->setRenderHint(QPainter::Antialiasing);
-    view->setMinimumSize(320, 260);
+ChartView* chartView(QWidget* parent) {
+    auto* view = new ChartView(new QChart, parent);
+    // Three side by side (a dispersion's) still fit a window 1280 wide beside the form.
+    view->setMinimumSize(240, 220);
     return view;
 }
 
@@ -143,7 +143,7 @@ QString corridorSummary(const EntryCorridor& c) {
 struct SummaryPage {
     QWidget* page;
     QLabel* summary;
-    QChartView* chart;
+    ChartView* chart;
     QVBoxLayout* layout;
 };
 
@@ -237,6 +237,12 @@ QHBoxLayout* TradeView::buildControls() {
     for (const KeyFigureDefinition& f : key_figure_table)
         m_figure->addItem(text(f.label), text(f.id));
     m_figure->setCurrentIndex(m_figure->findData(QString::fromLatin1(defaultFigure)));
+    // Narrower than their longest texts (which their lists show whole), so that the study's
+    // row fits a window 1280 wide beside the form.
+    for (QComboBox* combo : {m_kind, m_figure}) {
+        combo->setSizeAdjustPolicy(QComboBox::AdjustToMinimumContentsLengthWithIcon);
+        combo->setMinimumContentsLength(14);
+    }
     m_run = new QPushButton(tr("&Run"), this);
     m_cancel = new QPushButton(tr("Cancel"), this);
     m_cancel->setEnabled(false);
@@ -734,9 +740,8 @@ void TradeView::studyFinished() {
     emit studyShown();
 }
 
-void TradeView::replaceChart(QChartView* view, QChart* chart) {
-    std::unique_ptr<QChart> previous(view->chart());  // setChart does not delete it
-    view->setChart(chart);
+void TradeView::replaceChart(ChartView* view, QChart* chart) {
+    view->replaceChart(chart, ChartView::Zoom::whole);  // another study: drawn whole
 }
 
 void TradeView::showOutcome() {

@@ -12,7 +12,6 @@
 
 QT_BEGIN_NAMESPACE
 class QChart;
-class QChartView;
 class QComboBox;
 class QHBoxLayout;
 class QLabel;
@@ -24,6 +23,8 @@ class QStackedWidget;
 QT_END_NAMESPACE
 
 namespace ds {
+
+class ChartView;
 
 class DesignDocument;
 class DispersionTable;
@@ -92,7 +93,7 @@ private:
     void documentChanged();
     void studyFinished();
     void showOutcome();
-    void replaceChart(QChartView* view, QChart* chart);
+    void replaceChart(ChartView* view, QChart* chart);
 
     DesignDocument* m_document;
     TradeRunner* m_runner;
@@ -112,15 +113,15 @@ private:
     QProgressBar* m_progress;
     QLabel* m_status;
     QStackedWidget* m_pages;
-    QChartView* m_line;
+    ChartView* m_line;
     FeasibilityMap* m_map;
     QLabel* m_summary;
-    QChartView* m_histogram;
-    QChartView* m_scatter;
-    QChartView* m_landing;  ///< the landing points and their ellipse
-    QChartView* m_sensitivity;
+    ChartView* m_histogram;
+    ChartView* m_scatter;
+    ChartView* m_landing;  ///< the landing points and their ellipse
+    ChartView* m_sensitivity;
     QLabel* m_corridorSummary;
-    QChartView* m_corridor;
+    ChartView* m_corridor;
     /// The optimiser's keys (a row without a key is not varied), its sense and budget; its
     /// results: a summary, the convergence chart and the button that applies the optimum.
     static constexpr int optimisedRows = 4;
@@ -130,7 +131,7 @@ private:
     QSpinBox* m_budget;
     QSpinBox* m_starts;
     QLabel* m_optimisationSummary;
-    QChartView* m_convergence;
+    ChartView* m_convergence;
     QPushButton* m_applyOptimum;
     QStringList m_keyNames;
     bool m_stale = false;
