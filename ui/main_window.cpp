@@ -96,6 +96,7 @@ MainWindow::MainWindow(QWidget* parent)
         statusBar()->showMessage(
             tr("Autosave failed: %1. Save the design to keep the edits.").arg(error), fileNoteMs);
     });
+    connect(m_form, &DesignForm::refusalsChanged, this, &MainWindow::updateStatus);
     connect(m_checks, &ChecksView::fieldRequested, this,
             [this](const QString& pointer) { m_form->focusField(pointer.toStdString()); });
 
@@ -303,11 +304,9 @@ void MainWindow::clearBaseline() {
 void MainWindow::documentChanged() {
     if (const auto& design = m_document->design()) {
         m_runner->request(*design);
-        m_status->setText(tr("Sizing..."));
-    } else {
-        m_status->setText(
-            tr("The design has errors: the results shown are of the last valid design."));
+        m_sizing = true;
     }
+    updateStatus();
     updateTitle();
 }
 
@@ -318,22 +317,55 @@ void MainWindow::showResults() {
     m_checks->setResults(r);
     m_charts->setResults(m_runner->design(), r, baseline);
     m_lastEditToRedrawMs = m_runner->lastLatencyMs();
+    m_sizing = false;
+    updateStatus();
+    emit resultsShown();
+}
+
+bool MainWindow::resultsAreStale() const {
+    return m_runner->hasResults() &&
+           (!m_document->design() || !m_form->refusedFields().isEmpty());
+}
+
+void MainWindow::updateStatus() {
+    const bool stale = resultsAreStale();
+    m_figures->setStale(stale);
+    m_checks->setStale(stale);
+    m_status->setStyleSheet(stale ? QStringLiteral("color: #a40000;") : QString());
+    const QStringList refused = m_form->refusedFields();
+    if (!refused.isEmpty()) {
+        m_status->setText(tr("Results stale: %1 (refused; the design keeps the value before "
+                             "it). The results shown are of that design.")
+                              .arg(refused.join(QStringLiteral("; "))));
+        return;
+    }
+    if (!m_document->design()) {
+        m_status->setText(tr("Results stale: the design has errors (listed above the form). The "
+                             "results shown are of the last design that read."));
+        return;
+    }
+    if (m_sizing || !m_runner->hasResults()) {
+        m_status->setText(tr("Sizing..."));
+        return;
+    }
+    const Results& r = m_runner->results();
     int failing = 0;
     int marginal = 0;
     for (const Check& c : r.checks) {
         failing += c.status == CheckStatus::fail;
         marginal += c.status == CheckStatus::marginal;
     }
-    if (m_document->design()) {
-        m_status->setText(
-            tr("%1: %2 failing, %3 marginal of %4 checks%5")
-                .arg(r.converged ? tr("Sized") : tr("NOT sized"))
-                .arg(failing)
-                .arg(marginal)
-                .arg(r.checks.size())
-                .arg(m_baseline ? tr("; differences from the pinned baseline") : QString()));
-    }
-    emit resultsShown();
+    m_status->setText(tr("%1: %2 failing, %3 marginal of %4 checks%5")
+                          .arg(r.converged ? tr("Sized") : tr("NOT sized"))
+                          .arg(failing)
+                          .arg(marginal)
+                          .arg(r.checks.size())
+                          .arg(m_baseline ? tr("; differences from the pinned baseline")
+                                          : QString()));
+}
+
+QString MainWindow::statusText() const {
+    return m_status->text();
 }
 
 void MainWindow::updateTitle() {

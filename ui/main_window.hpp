@@ -58,6 +58,11 @@ public:
     ChecksView* checks() const { return m_checks; }
     TradeView* trades() const { return m_trades; }
     bool hasBaseline() const { return m_baseline.has_value(); }
+    /// Whether the results on show are of a design before the one being edited: a field
+    /// holds a value it refused, or the design does not read.
+    bool resultsAreStale() const;
+    /// What the status bar says of the results.
+    QString statusText() const;
     /// Milliseconds from the edit to the redrawn views, for the last results shown.
     qint64 lastEditToRedrawMs() const { return m_lastEditToRedrawMs; }
 
@@ -78,6 +83,8 @@ private:
     void buildMenus();
     void showResults();
     void documentChanged();
+    /// The status bar and the stale marks, from the document, the form and the results.
+    void updateStatus();
     void updateTitle();
     void updateRecentMenu();
     bool confirmDiscard();
@@ -99,6 +106,7 @@ private:
     Settings m_settings;
     RecoveryPrompt m_recoveryPrompt;
     qint64 m_lastEditToRedrawMs = 0;
+    bool m_sizing = false;  ///< a sizing was asked for and its results are not shown yet
 };
 
 }  // namespace ds

@@ -219,6 +219,44 @@ private slots:
         QCOMPARE(figure(window, "deploy_dynamic_pressure"), QString("600"));
     }
 
+    void aRefusedValueMarksTheResultsStaleUntilTheDesignReadsAgain() {
+        MainWindow window;
+        window.show();
+        QVERIFY(window.openFile(sample, true));
+        QVERIFY(waitForResults(window));
+        QVERIFY(!window.resultsAreStale());
+        QVERIFY(!window.figures()->isStale());
+        QVERIFY(window.statusText().startsWith(QStringLiteral("Sized")));
+
+        // A diameter the field refuses: the design keeps 2.6 m, and the results say so.
+        QuantityEdit* diameter = field(window, "/aeroshell/diameter_m");
+        type(diameter, "-3 m");
+        QVERIFY(diameter->isRefused());
+        QVERIFY(window.resultsAreStale());
+        QVERIFY(window.figures()->isStale());
+        QVERIFY(window.checks()->isStale());
+        QVERIFY2(window.statusText().contains(QStringLiteral("stale")) &&
+                     window.statusText().contains(QStringLiteral("Diameter")),
+                 qPrintable(window.statusText()));
+        QCOMPARE(figure(window, "aeroshell_diameter"), QString("2.60"));
+
+        // A value it takes: sized again, and current.
+        type(diameter, "3 m");
+        QVERIFY(waitForResults(window));
+        QVERIFY(!window.resultsAreStale());
+        QVERIFY(!window.figures()->isStale());
+        QCOMPARE(figure(window, "aeroshell_diameter"), QString("3.00"));
+
+        // A design that does not read (a key the reader refuses) is stale too, until undone.
+        window.document()->setValue("/aeroshell/unknown_key", 1.0, "a key of no meaning");
+        QVERIFY(window.resultsAreStale());
+        QVERIFY(window.checks()->isStale());
+        QVERIFY(window.statusText().contains(QStringLiteral("errors")));
+        window.document()->undoStack()->undo();
+        QVERIFY(waitForResults(window));
+        QVERIFY(!window.resultsAreStale());
+    }
+
     void theWindowFitsAScreenOf1280By720() {
         // A laptop's screen: the window may be made that small, with every view in it.
         MainWindow window;

@@ -6,6 +6,8 @@
 
 #include "design/key_path.hpp"
 #include "design/schema.hpp"
+#include "units/quantity.hpp"
+#include "views/stale_mark.hpp"
 
 namespace ds {
 namespace {
@@ -68,8 +70,8 @@ void ChecksView::setResults(const Results& results) {
         const QString unit = c.unit.empty() ? QString() : " " + QString::fromStdString(c.unit);
         const QStringList cells{statusText(c.status),
                                 QString::fromStdString(c.id),
-                                QString::number(c.value, 'g', 5) + unit,
-                                QString::number(c.limit, 'g', 5) + unit,
+                                QString::fromStdString(formatQuantity(c.value)) + unit,
+                                QString::fromStdString(formatQuantity(c.limit)) + unit,
                                 QString::fromStdString(c.message),
                                 QString::fromStdString(c.source)};
         for (int column = 0; column < cells.size(); ++column) {
@@ -82,11 +84,17 @@ void ChecksView::setResults(const Results& results) {
     }
     for (int column : {0, 1, 2, 3})
         resizeColumnToContents(column);
+    showStale(this, m_stale);
 }
 
 std::string ChecksView::fieldForCheck(const std::string& checkId) {
     const std::string_view key = key_of_check(checkId);
     return key.empty() ? std::string() : key_to_pointer(key);
+}
+
+void ChecksView::setStale(bool stale) {
+    m_stale = stale;
+    showStale(this, stale);
 }
 
 }  // namespace ds

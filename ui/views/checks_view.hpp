@@ -15,6 +15,10 @@ class ChecksView : public QTableWidget {
 public:
     explicit ChecksView(QWidget* parent = nullptr);
 
+    /// Marks the results shown as stale (greyed) or current.
+    void setStale(bool stale);
+    bool isStale() const { return m_stale; }
+
     void setResults(const Results& results);
 
     /// The design key (a JSON pointer) a check's figure depends on most directly, from the
@@ -23,6 +27,9 @@ public:
 
 signals:
     void fieldRequested(const QString& pointer);
+
+private:
+    bool m_stale = false;
 };
 
 }  // namespace ds

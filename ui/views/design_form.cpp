@@ -237,6 +237,7 @@ QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
     caption->setBuddy(edit);
     form->addRow(caption, row);
     m_numbers.push_back({pointer, edit, optional, row, &key});
+    connect(edit, &QuantityEdit::refusalChanged, this, &DesignForm::refusalsChanged);
     connect(edit, &QuantityEdit::valueEdited, this, [this, pointer, label](double value) {
         if (!m_refreshing)
             m_document->setValue(pointer, value, tr("Set %1").arg(label));
@@ -782,6 +783,15 @@ void DesignForm::setFieldVisible(QWidget* field, bool visible) {
         if (QWidget* label = form->labelForField(field))
             label->setVisible(visible);
     }
+}
+
+QStringList DesignForm::refusedFields() const {
+    QStringList refused;
+    for (const NumberBinding& b : m_numbers) {
+        if (b.edit->isRefused())
+            refused << tr("%1: %2").arg(words(label_of(*b.key)), b.edit->errorText());
+    }
+    return refused;
 }
 
 QWidget* DesignForm::fieldFor(const std::string& pointer) const {

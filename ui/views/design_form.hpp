@@ -40,6 +40,13 @@ public:
     bool focusField(const std::string& pointer);
     /// The field bound to a key, for tests.
     QWidget* fieldFor(const std::string& pointer) const;
+    /// The fields holding a value they refused, each as "label: reason"; the design keeps
+    /// the values before them, and so do the results shown.
+    QStringList refusedFields() const;
+
+signals:
+    /// A field came to hold a refused value, or no longer does.
+    void refusalsChanged();
 
 private:
     /// A number field bound to a key. Optional keys are removed when the field is emptied.

@@ -3,6 +3,7 @@
 #include <QHeaderView>
 
 #include "results/key_figures.hpp"
+#include "views/stale_mark.hpp"
 
 namespace ds {
 namespace {
@@ -63,6 +64,12 @@ void FiguresView::setResults(const Results& results, const Results* baseline) {
     }
     resizeColumnsToContents();
     horizontalHeader()->setSectionResizeMode(0, QHeaderView::Stretch);
+    showStale(this, m_stale);
+}
+
+void FiguresView::setStale(bool stale) {
+    m_stale = stale;
+    showStale(this, stale);
 }
 
 }  // namespace ds

@@ -13,7 +13,14 @@ class FiguresView : public QTableWidget {
 public:
     explicit FiguresView(QWidget* parent = nullptr);
 
+    /// Marks the results shown as stale (greyed) or current.
+    void setStale(bool stale);
+    bool isStale() const { return m_stale; }
+
     void setResults(const Results& results, const Results* baseline);
+
+private:
+    bool m_stale = false;
 };
 
 }  // namespace ds

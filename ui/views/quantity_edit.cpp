@@ -75,9 +75,16 @@ void QuantityEdit::setRange(const QuantityRange& range) {
     showState();
 }
 
+void QuantityEdit::setRefusal(const QString& error) {
+    const bool was = isRefused();
+    m_error = error;
+    if (was != isRefused())
+        emit refusalChanged(isRefused());
+}
+
 void QuantityEdit::setValue(std::optional<double> value) {
     m_value = value;
-    m_error.clear();
+    setRefusal({});
     m_externalError.clear();
     setText(value ? withUnit(*value, m_dimension) : QString());
     showState();
@@ -94,16 +101,16 @@ void QuantityEdit::commit() {
     if (typed == shown) {
         // Nothing was edited (or an edit was typed back): re-reading the rounded text would
         // change the value by its rounding.
-        m_error.clear();
+        setRefusal({});
         setText(shown);
         showState();
         return;
     }
     const ParsedQuantity parsed = typed.isEmpty() ? ParsedQuantity{std::nullopt, "needs a value"}
                                                   : parseQuantity(typed.toStdString(), m_dimension);
-    m_error = parsed.value ? rangeError(*parsed.value, m_range, m_dimension)
-                           : QString::fromStdString(parsed.error);
-    if (!m_error.isEmpty()) {
+    setRefusal(parsed.value ? rangeError(*parsed.value, m_range, m_dimension)
+                            : QString::fromStdString(parsed.error));
+    if (isRefused()) {
         showState();
         return;
     }

@@ -36,13 +36,19 @@ public:
     QString errorText() const { return m_error.isEmpty() ? m_externalError : m_error; }
     /// An error found elsewhere (the design reader) for this field; empty clears it.
     void setExternalError(const QString& error);
+    /// Whether the field holds text it refused (the design keeps its previous value).
+    bool isRefused() const { return !m_error.isEmpty(); }
 
 signals:
     /// A valid value the user entered (on Enter or leaving the field), in the document's unit.
     void valueEdited(double value);
+    /// The field came to hold refused text, or no longer does.
+    void refusalChanged(bool refused);
 
 private:
     void commit();
+    /// Sets the reason the typed text was refused (empty: none) and says so when that changes.
+    void setRefusal(const QString& error);
     void showState();
 
     Dimension m_dimension;
