@@ -146,6 +146,15 @@ void MainWindow::buildMenus() {
     redo->setShortcut(QKeySequence::Redo);
     edit->addAction(undo);
     edit->addAction(redo);
+    edit->addSeparator();
+    m_dropUnused = edit->addAction(tr("&Drop unused keys"), this, [this] {
+        const QStringList keys = m_document->unusedKeys();
+        if (m_document->dropUnusedKeys() > 0)
+            statusBar()->showMessage(
+                tr("Dropped %1 (Undo restores them).").arg(keys.join(QStringLiteral(", "))),
+                fileNoteMs);
+    });
+    m_dropUnused->setEnabled(false);
 
     QMenu* trade = menuBar()->addMenu(tr("&Baseline"));
     trade->addAction(tr("&Pin current results as baseline"), QKeySequence(tr("Ctrl+B")), this,
@@ -238,6 +247,12 @@ bool MainWindow::openFile(const QString& path, bool quiet) {
     m_settings.addRecentFile(m_document->filePath());
     m_settings.setLastDirectory(QFileInfo(path).absolutePath());
     updateRecentMenu();
+    if (const QStringList unused = m_document->unusedKeys(); !unused.isEmpty()) {
+        statusBar()->showMessage(
+            tr("%1 has keys the design does not use: %2. Edit > Drop unused keys removes them.")
+                .arg(QFileInfo(path).fileName(), unused.join(QStringLiteral(", "))),
+            fileNoteMs);
+    }
     return true;
 }
 
@@ -306,6 +321,7 @@ void MainWindow::documentChanged() {
         m_runner->request(*design);
         m_sizing = true;
     }
+    m_dropUnused->setEnabled(!m_document->unusedKeys().isEmpty());
     updateStatus();
     updateTitle();
 }
@@ -323,8 +339,7 @@ void MainWindow::showResults() {
 }
 
 bool MainWindow::resultsAreStale() const {
-    return m_runner->hasResults() &&
-           (!m_document->design() || !m_form->refusedFields().isEmpty());
+    return m_runner->hasResults() && (!m_document->design() || !m_form->refusedFields().isEmpty());
 }
 
 void MainWindow::updateStatus() {
@@ -340,8 +355,9 @@ void MainWindow::updateStatus() {
         return;
     }
     if (!m_document->design()) {
-        m_status->setText(tr("Results stale: the design has errors (listed above the form). The "
-                             "results shown are of the last design that read."));
+        m_status->setText(
+            tr("Results stale: the design has errors (listed above the form). The "
+               "results shown are of the last design that read."));
         return;
     }
     if (m_sizing || !m_runner->hasResults()) {
@@ -355,13 +371,13 @@ void MainWindow::updateStatus() {
         failing += c.status == CheckStatus::fail;
         marginal += c.status == CheckStatus::marginal;
     }
-    m_status->setText(tr("%1: %2 failing, %3 marginal of %4 checks%5")
-                          .arg(r.converged ? tr("Sized") : tr("NOT sized"))
-                          .arg(failing)
-                          .arg(marginal)
-                          .arg(r.checks.size())
-                          .arg(m_baseline ? tr("; differences from the pinned baseline")
-                                          : QString()));
+    m_status->setText(
+        tr("%1: %2 failing, %3 marginal of %4 checks%5")
+            .arg(r.converged ? tr("Sized") : tr("NOT sized"))
+            .arg(failing)
+            .arg(marginal)
+            .arg(r.checks.size())
+            .arg(m_baseline ? tr("; differences from the pinned baseline") : QString()));
 }
 
 QString MainWindow::statusText() const {

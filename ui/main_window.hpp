@@ -9,6 +9,7 @@
 #include "settings.hpp"
 
 QT_BEGIN_NAMESPACE
+class QAction;
 class QLabel;
 class QMenu;
 class QTabWidget;
@@ -102,6 +103,7 @@ private:
     QTabWidget* m_views;
     QLabel* m_status;
     QMenu* m_recentMenu = nullptr;
+    QAction* m_dropUnused = nullptr;
     std::optional<Results> m_baseline;
     Settings m_settings;
     RecoveryPrompt m_recoveryPrompt;

@@ -75,8 +75,8 @@ struct Place {
 /// Every reason the document cannot be read, collected in one pass.
 class Issues {
 public:
-    void add(const Place& place, std::string message) {
-        found_.push_back({place.position, ReadError{place.path, std::move(message)}});
+    void add(const Place& place, std::string message, bool unused_key = false) {
+        found_.push_back({place.position, ReadError{place.path, std::move(message), unused_key}});
     }
 
     bool empty() const { return found_.empty(); }
@@ -238,6 +238,11 @@ public:
         issues_->add(place_of(key), std::move(message));
     }
 
+    /// A key that is there but not used here (another model's or method's).
+    void report_unused(std::string_view key, std::string message) {
+        issues_->add(place_of(key), std::move(message), true);
+    }
+
     /// An error about the object as a whole.
     void report_here(std::string message) { issues_->add(place_, std::move(message)); }
 
@@ -246,7 +251,7 @@ public:
         std::size_t index = 0;
         for (auto it = object_->begin(); it != object_->end(); ++it, ++index) {
             if (std::find(read_.begin(), read_.end(), it.key()) == read_.end()) {
-                issues_->add(place_.key(it.key(), index), "unknown key");
+                issues_->add(place_.key(it.key(), index), "unknown key", true);
             }
         }
     }
@@ -484,9 +489,10 @@ private:
             if (*row.model != *selection.model) {
                 if (f.has(key)) {
                     f.value(key, Need::optional);
-                    f.report(key, fmt::format("unknown key for the \"{}\" model (it belongs to "
-                                              "the \"{}\" model)",
-                                              to_string(*selection.model), to_string(*row.model)));
+                    f.report_unused(
+                        key, fmt::format("unknown key for the \"{}\" model (it belongs to "
+                                         "the \"{}\" model)",
+                                         to_string(*selection.model), to_string(*row.model)));
                 }
                 return;
             }
@@ -498,7 +504,7 @@ private:
         if (!belongs) {
             if (f.has(key)) {
                 f.value(key, Need::optional);
-                f.report(key, fmt::format("only for {}", method_names(row.methods)));
+                f.report_unused(key, fmt::format("only for {}", method_names(row.methods)));
             }
             return;
         }

@@ -17,6 +17,9 @@ namespace ds {
 struct ReadError {
     std::string path;
     std::string message;
+    /// A key the design does not use where it stands: unknown, or of another atmosphere model
+    /// or terminal method. Removing it loses nothing the design uses (the window offers to).
+    bool unused_key = false;
 
     /// "path: message", or the message alone when there is no path.
     std::string text() const;

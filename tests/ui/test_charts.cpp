@@ -93,9 +93,9 @@ private slots:
             for (QAbstractAxis* axis : chart->axes()) {
                 const double length =
                     axis->orientation() == Qt::Vertical ? plot.height() : plot.width();
-                QVERIFY2(QFontMetricsF(axis->titleFont()).horizontalAdvance(axis->titleText()) <=
-                             length,
-                         qPrintable(axis->titleText()));
+                QVERIFY2(
+                    QFontMetricsF(axis->titleFont()).horizontalAdvance(axis->titleText()) <= length,
+                    qPrintable(axis->titleText()));
             }
         }
         // The deploy window's bounds are named in full where there is room.

@@ -3,6 +3,7 @@
 
 #include <QDir>
 #include <QFile>
+#include <QPushButton>
 #include <QSignalSpy>
 #include <QTableWidget>
 #include <QTemporaryDir>
@@ -255,6 +256,51 @@ private slots:
         window.document()->undoStack()->undo();
         QVERIFY(waitForResults(window));
         QVERIFY(!window.resultsAreStale());
+    }
+
+    void unusedKeysAreNamedAndDroppedAsOneUndoableEdit() {
+        // A file with a key no design has and a key of another atmosphere model.
+        QFile in(sample);
+        QVERIFY(in.open(QIODevice::ReadOnly));
+        DesignDocument::Json json = DesignDocument::Json::parse(in.readAll().toStdString());
+        json["aeroshell"]["colour"] = "red";
+        json["atmosphere"]["rows"] = DesignDocument::Json::array();
+        const DesignDocument::Json clean = [&] {
+            DesignDocument::Json c = json;
+            c["aeroshell"].erase("colour");
+            c["atmosphere"].erase("rows");
+            return c;
+        }();
+        QTemporaryDir dir;
+        const QString path = dir.filePath("unused.json");
+        QFile out(path);
+        QVERIFY(out.open(QIODevice::WriteOnly));
+        out.write(QByteArray::fromStdString(json.dump(2)));
+        out.close();
+
+        MainWindow window;
+        window.show();
+        QVERIFY(window.openFile(path, true));
+        QVERIFY(!window.document()->design());
+        QCOMPARE(window.document()->unusedKeys(),
+                 QStringList({"atmosphere.rows", "aeroshell.colour"}));
+        auto* drop = window.form()->findChild<QPushButton*>("dropUnusedKeys");
+        QVERIFY(drop);
+        QVERIFY(drop->isVisible());
+        QVERIFY2(drop->text().contains("2 keys"), qPrintable(drop->text()));
+        QVERIFY(drop->toolTip().contains("aeroshell.colour"));
+
+        QTest::mouseClick(drop, Qt::LeftButton);
+        QVERIFY(window.document()->design().has_value());
+        QVERIFY(window.document()->json() == clean);
+        QVERIFY(!drop->isVisible());
+        QCOMPARE(window.document()->undoStack()->count(), 1);  // one edit
+        QVERIFY(waitForResults(window));
+        QCOMPARE(figure(window, "aeroshell_diameter"), QString("2.60"));
+
+        window.document()->undoStack()->undo();
+        QCOMPARE(window.document()->unusedKeys().size(), 2);
+        QVERIFY(!window.document()->design());
     }
 
     void theWindowFitsAScreenOf1280By720() {

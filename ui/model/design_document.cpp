@@ -8,6 +8,7 @@
 #include <QUndoCommand>
 #include <QUndoStack>
 
+#include "design/key_path.hpp"
 #include "design/text_file.hpp"
 #include "model/atomic_file.hpp"
 
@@ -129,6 +130,26 @@ void DesignDocument::setValue(const std::string& pointer, const Json& value,
 void DesignDocument::setValues(const std::vector<std::pair<std::string, Json>>& values,
                                const QString& description) {
     m_undo->push(new DesignEditCommand(this, values, description));
+}
+
+QStringList DesignDocument::unusedKeys() const {
+    QStringList keys;
+    for (const ReadError& error : m_errors) {
+        if (error.unused_key)
+            keys << QString::fromStdString(error.path);
+    }
+    return keys;
+}
+
+int DesignDocument::dropUnusedKeys() {
+    const QStringList keys = unusedKeys();
+    if (keys.isEmpty())
+        return 0;
+    std::vector<std::pair<std::string, Json>> removals;
+    for (const QString& key : keys)
+        removals.emplace_back(key_to_pointer(key.toStdString()), Json());
+    setValues(removals, tr("Drop unused keys: %1").arg(keys.join(QStringLiteral(", "))));
+    return static_cast<int>(keys.size());
 }
 
 void DesignDocument::apply(const std::vector<std::pair<std::string, Json>>& values) {

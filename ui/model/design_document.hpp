@@ -7,6 +7,7 @@
 
 #include <QObject>
 #include <QString>
+#include <QStringList>
 #include <nlohmann/json.hpp>
 
 #include "design/design.hpp"
@@ -57,6 +58,11 @@ public:
 
     /// Sets (or, with a null value, removes) the value at a JSON pointer, as one undoable edit.
     void setValue(const std::string& pointer, const Json& value, const QString& description);
+    /// The keys the reader found but the design does not use (unknown, or another model's or
+    /// method's), by their paths ("aeroshell.colour").
+    QStringList unusedKeys() const;
+    /// Removes every unused key as one undoable edit named for them; the number removed.
+    int dropUnusedKeys();
     /// Several values as one undoable edit (a change of a field's kind: trigger, sizing mode).
     void setValues(const std::vector<std::pair<std::string, Json>>& values,
                    const QString& description);

@@ -23,8 +23,9 @@ ChartView::ChartView(QChart* chart, QWidget* parent) : QChartView(chart, parent)
     setRenderHint(QPainter::Antialiasing);
     setRubberBand(QChartView::RectangleRubberBand);
     setFocusPolicy(Qt::StrongFocus);  // Home and the arrows
-    setToolTip(tr("Drag to zoom into a rectangle, turn the wheel to zoom, drag with the middle "
-                  "button or with Shift to pan; double-click or Home for the whole chart."));
+    setToolTip(
+        tr("Drag to zoom into a rectangle, turn the wheel to zoom, drag with the middle "
+           "button or with Shift to pan; double-click or Home for the whole chart."));
     rememberWholeRanges();
 }
 

@@ -188,6 +188,13 @@ DesignForm::DesignForm(DesignDocument* document, QWidget* parent)
     m_documentErrors->setStyleSheet("color: #a40000;");
     m_documentErrors->setVisible(false);
     m_sections->addWidget(m_documentErrors);
+    // Keys a file has that the design does not use would keep it from sizing, and no field
+    // shows them: one undoable edit drops them all.
+    m_dropUnused = new QPushButton(content);
+    m_dropUnused->setObjectName(QStringLiteral("dropUnusedKeys"));
+    m_dropUnused->setVisible(false);
+    m_sections->addWidget(m_dropUnused, 0, Qt::AlignLeft);
+    connect(m_dropUnused, &QPushButton::clicked, this, [this] { m_document->dropUnusedKeys(); });
     scroll->setWidget(content);
     outer->addWidget(scroll);
 
@@ -704,6 +711,13 @@ void DesignForm::refresh() {
     }
     m_documentErrors->setText(tr("The design cannot be sized yet:\n%1").arg(unplaced.join('\n')));
     m_documentErrors->setVisible(!unplaced.isEmpty());
+    const QStringList unused = m_document->unusedKeys();
+    m_dropUnused->setText(unused.size() == 1
+                              ? tr("Drop the key the design does not use")
+                              : tr("Drop the %1 keys the design does not use").arg(unused.size()));
+    m_dropUnused->setToolTip(tr("Removes %1 from the design, as one edit that Undo restores.")
+                                 .arg(unused.join(QStringLiteral(", "))));
+    m_dropUnused->setVisible(!unused.isEmpty());
     m_refreshing = false;
 }
 

@@ -13,6 +13,7 @@ QT_BEGIN_NAMESPACE
 class QComboBox;
 class QFormLayout;
 class QLabel;
+class QPushButton;
 class QTableWidget;
 class QVBoxLayout;
 QT_END_NAMESPACE
@@ -117,6 +118,7 @@ private:
     DesignDocument* m_document;
     QVBoxLayout* m_sections;
     QLabel* m_documentErrors;
+    QPushButton* m_dropUnused;
     QTableWidget* m_items = nullptr;
     std::vector<NumberBinding> m_numbers;
     std::vector<ChoiceBinding> m_choices;

@@ -287,6 +287,23 @@ TEST_CASE("an unknown key is reported at its path") {
     CHECK(has_error(result, "aeroshell.colour", "unknown key"));
     CHECK(result.errors[0].text() == "aeroshell.colour: unknown key");
     CHECK(has_error(result, "speed_m_s", "unknown key"));
+    // Both are keys the design does not use, which the window offers to drop.
+    CHECK(result.errors[0].unused_key);
+    CHECK(result.errors[1].unused_key);
+}
+
+TEST_CASE(
+    "a key is unused where it is unknown or of another model or method, not where it is wrong") {
+    const auto rows = read(with(baseline(), "/atmosphere/rows", table_rows()));
+    REQUIRE(rows.errors.size() == 1);
+    CHECK(rows.errors[0].unused_key);  // another model's key
+
+    const auto wrong = read(with(baseline(), "/aeroshell/diameter_m", -2.0));
+    REQUIRE_FALSE(wrong.errors.empty());
+    CHECK_FALSE(wrong.errors[0].unused_key);  // a key the design uses, with a bad value
+    const auto missing = read(without(baseline(), "/aeroshell/diameter_m"));
+    REQUIRE_FALSE(missing.errors.empty());
+    CHECK_FALSE(missing.errors[0].unused_key);
 }
 
 TEST_CASE("a key given twice in one object is an error, not a silent choice") {
