@@ -288,7 +288,7 @@ const KeyGroup jettison_rule{"heat-shield jettison rule", false, "Heat-shield je
 constexpr std::array atmosphere_texts{
     ChoiceText{"exponential", "exponential"},
     ChoiceText{"standard", "the body's standard model"},
-    ChoiceText{"table", "table (edit in the file)"},
+    ChoiceText{"table", "table of altitude, density and temperature"},
 };
 constexpr std::array frame_texts{
     ChoiceText{"relative", "planet-relative"},

@@ -2,6 +2,8 @@
 // number key, choices from the core's name tables, shapes that rewrite the document with the
 // schema's fallbacks, and rows shown only where they apply.
 
+#include <cmath>
+
 #include <QApplication>
 #include <QComboBox>
 #include <QFile>
@@ -17,6 +19,7 @@
 #include "model/design_document.hpp"
 #include "parachute/canopy.hpp"
 #include "support/special_files.hpp"
+#include "views/atmosphere_table.hpp"
 #include "views/design_form.hpp"
 #include "views/quantity_edit.hpp"
 #include "views/wind_table.hpp"
@@ -195,7 +198,8 @@ private slots:
         DesignForm form(&document);
         auto* body = qobject_cast<QComboBox*>(form.fieldFor("/body"));
         QVERIFY(body);
-        QCOMPARE(body->count(), static_cast<int>(body_preset_names().size()));
+        // Every preset, and a body of one's own.
+        QCOMPARE(body->count(), static_cast<int>(body_preset_names().size()) + 1);
         QCOMPARE(body->currentText(), QString("Mars"));
         auto* canopy = qobject_cast<QComboBox*>(form.fieldFor("/parachute/type"));
         QVERIFY(canopy);
@@ -351,23 +355,130 @@ private slots:
         QCOMPARE(document.value("/parachute/diameter_m").get<double>(), 12.0);
     }
 
-    void aModelTheFormCannotFillIsLeftToTheFile() {
+    void aTableAtmosphereStartsAsTheModelItReplacesAndIsEditedInTheWindow() {
         DesignDocument document;
         QString error;
         QVERIFY(document.open(sample, &error));
         DesignForm form(&document);
+        form.show();
         QComboBox* model = shape(form, "/atmosphere/model");
         QVERIFY(model);
         model->setCurrentIndex(1);  // the body's standard model
         QVERIFY(document.value("/atmosphere/model") == Json("standard"));
         QVERIFY(document.value("/atmosphere/scale_height_m").is_null());
         QVERIFY(!shown(form, "/atmosphere/scale_height_m"));
-        model->setCurrentIndex(2);  // a table: its rows come from the file
-        QVERIFY(document.value("/atmosphere/model") == Json("standard"));
-        QCOMPARE(model->currentIndex(), 1);
-        model->setCurrentIndex(0);
+        model->setCurrentIndex(0);  // exponential again: its keys at their fallbacks
         QCOMPARE(document.value("/atmosphere/scale_height_m").get<double>(), 11100.0);
+
+        // A table: the exponential model's rows from the ground to the interface, in one edit.
+        model->setCurrentIndex(2);
+        QVERIFY(document.value("/atmosphere/model") == Json("table"));
+        const Json rows = document.value("/atmosphere/rows");
+        QVERIFY(rows.is_array());
+        QVERIFY(rows.size() >= 20);
+        QCOMPARE(rows.front()["altitude_m"].get<double>(), -1500.0);  // the site, below 0 m
+        QCOMPARE(rows.back()["altitude_m"].get<double>(), 125000.0);  // the interface
+        // 0.02 kg/m^3 at 0 m, 11.1 km scale height (the sample's): at the first row, 1500 m
+        // below 0 m, rho = 0.02 exp(1500 / 11100) (relative 1e-12).
+        const double expected = 0.02 * std::exp(1500.0 / 11100.0);
+        QVERIFY(std::abs(rows.front()["density_kg_m3"].get<double>() / expected - 1.0) < 1e-12);
         QVERIFY(document.design().has_value());
+        auto* table = form.findChild<AtmosphereTable*>("/atmosphere/rows");
+        QVERIFY(table);
+        QVERIFY(table->isVisibleTo(&form));
+        QCOMPARE(table->tableWidget()->rowCount(), static_cast<int>(rows.size()));
+
+        // A cell edited is one undoable edit the reader judges.
+        table->tableWidget()->item(0, 2)->setText("215");
+        QCOMPARE(document.value("/atmosphere/rows/0/temperature_K").get<double>(), 215.0);
+        QVERIFY(document.design().has_value());
+        // Rows pasted from a spreadsheet replace the table.
+        // (The site is at -1500 m: a table must reach down to it.)
+        QVERIFY(
+            table->pasteRows("altitude\tdensity\ttemperature\n-2000\t0.015\t200\n"
+                             "60000\t1e-4\t180\n130000\t2e-7\t150\n"));
+        QCOMPARE(document.value("/atmosphere/rows").size(), std::size_t{3});
+        QCOMPARE(document.value("/atmosphere/rows/1/density_kg_m3").get<double>(), 1e-4);
+        QVERIFY(document.design().has_value());
+        document.undoStack()->undo();
+        QCOMPARE(document.value("/atmosphere/rows").size(), rows.size());
+
+        // Another model: the table goes with the model, and the table hides.
+        model->setCurrentIndex(0);
+        QVERIFY(document.value("/atmosphere/rows").is_null());
+        QVERIFY(!table->isVisibleTo(&form));
+    }
+
+    void aTableReadFromAFileIsCopiedInToEdit() {
+        QTemporaryDir dir;
+        QFile csv(dir.filePath("air.csv"));
+        QVERIFY(csv.open(QIODevice::WriteOnly));
+        csv.write(
+            "altitude_m,density_kg_m3,temperature_K\n-2000,0.02,210\n50000,2e-4,180\n"
+            "130000,1e-8,150\n");
+        csv.close();
+        QFile in(sample);
+        QVERIFY(in.open(QIODevice::ReadOnly));
+        Json json = Json::parse(in.readAll().toStdString());
+        json["atmosphere"] = {{"model", "table"}, {"csv_file", "air.csv"}};
+        QFile out(dir.filePath("design.json"));
+        QVERIFY(out.open(QIODevice::WriteOnly));
+        out.write(QByteArray::fromStdString(json.dump()));
+        out.close();
+
+        DesignDocument document;
+        QString error;
+        QVERIFY2(document.open(dir.filePath("design.json"), &error), qPrintable(error));
+        QVERIFY(document.design().has_value());
+        DesignForm form(&document);
+        form.show();
+        auto* table = form.findChild<AtmosphereTable*>("/atmosphere/rows");
+        QVERIFY(table);
+        QVERIFY(!table->tableWidget()->isVisibleTo(&form));  // the file's name instead
+        QVERIFY(table->copyFileIn(&error));
+        QVERIFY(document.value("/atmosphere/csv_file").is_null());
+        QCOMPARE(document.value("/atmosphere/rows").size(), std::size_t{3});
+        QCOMPARE(document.value("/atmosphere/rows/1/density_kg_m3").get<double>(), 2e-4);
+        QVERIFY(table->tableWidget()->isVisibleTo(&form));
+        QVERIFY(document.design().has_value());
+        QCOMPARE(document.undoStack()->count(), 1);
+    }
+
+    void aCustomBodyStartsFromThePresetAndIsEditedFieldByField() {
+        DesignDocument document;
+        QString error;
+        QVERIFY(document.open(sample, &error));
+        DesignForm form(&document);
+        form.show();
+        auto* body = qobject_cast<QComboBox*>(form.fieldFor("/body"));
+        QVERIFY(body);
+        QVERIFY(!shown(form, "/body/radius_m"));
+        body->setCurrentIndex(body->count() - 1);
+        emit body->activated(body->count() - 1);  // as a user's choice
+        const Json custom = document.value("/body");
+        QVERIFY(custom.is_object());
+        // Mars's constants copied (the preset's, body/presets.cpp).
+        const Body mars = *body_preset("mars");
+        QCOMPARE(custom["radius_m"].get<double>(), mars.radius_m);
+        QCOMPARE(custom["mu_m3_s2"].get<double>(), mars.mu_m3_s2);
+        QVERIFY(document.design().has_value());
+        QVERIFY(shown(form, "/body/radius_m"));
+        QCOMPARE(body->currentIndex(), body->count() - 1);  // no empty box
+
+        auto* radius = qobject_cast<QuantityEdit*>(form.fieldFor("/body/radius_m"));
+        QVERIFY(radius);
+        type(radius, "3000 km");
+        QCOMPARE(document.value("/body/radius_m").get<double>(), 3.0e6);
+        type(radius, "-1");
+        QVERIFY(radius->isRefused());
+        QCOMPARE(document.value("/body/radius_m").get<double>(), 3.0e6);
+
+        body->setCurrentIndex(0);
+        emit body->activated(0);
+        QVERIFY(document.value("/body").is_string());
+        QVERIFY(!shown(form, "/body/radius_m"));
+        document.undoStack()->undo();
+        QVERIFY(document.value("/body").is_object());
     }
 
     void sizingRequestsAndTheJettisonRuleSwitchShape() {

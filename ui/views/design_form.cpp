@@ -18,6 +18,8 @@
 #include "design/key_path.hpp"
 #include "design/schema.hpp"
 #include "model/design_document.hpp"
+#include "views/atmosphere_table.hpp"
+#include "views/body_editor.hpp"
 #include "views/wheel_guard.hpp"
 #include "views/wind_table.hpp"
 
@@ -310,15 +312,9 @@ QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QS
 
 void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
     if (section.name == "body") {
-        // A preset by name; a custom body is edited in the file.
-        std::vector<std::pair<QString, std::string>> bodies;
-        for (const std::string& name : body_preset_names()) {
-            QString shown = QString::fromStdString(name);
-            if (!shown.isEmpty())
-                shown[0] = shown[0].toUpper();
-            bodies.emplace_back(tr(shown.toUtf8().constData()), name);
-        }
-        addChoice(form, tr("Body"), "/body", bodies);
+        // A preset by name, or a body of the user's own.
+        m_body = new BodyEditor(m_document, this);
+        form->addRow(tr("Body"), m_body);
         return;
     }
     if (section.present)
@@ -367,12 +363,21 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
                 if (key->path() == "mass.items")
                     buildItems(form);
                 else if (key->path() == "atmosphere.wind")
-                    form->addRow(tr("Wind"), new WindTable(m_document, this));
+                    addByHand(form, tr("Wind"), *key, new WindTable(m_document, this));
+                else if (key->path() == "atmosphere.rows")
+                    addByHand(form, tr("Table"), *key, new AtmosphereTable(m_document, this));
+                // atmosphere.csv_file: the table shows the file it names.
                 break;
             case KeyKind::text:
                 break;
         }
     }
+}
+
+void DesignForm::addByHand(QFormLayout* form, const QString& label, const KeyRow& key,
+                           QWidget* editor) {
+    form->addRow(label, editor);
+    m_byHand.push_back({&key, editor});
 }
 
 void DesignForm::addPresence(QFormLayout* form, const SectionRow& section) {
@@ -460,14 +465,13 @@ void DesignForm::addSelector(QFormLayout* form, const KeyRow& selector) {
         [this, pointer, names, &selector](int shape) {
             const std::string_view name = names[static_cast<std::size_t>(shape)];
             const std::vector<const KeyRow*> keys = keys_of(selector.section);
-            // A shape whose keys the form cannot fill (a table's rows) is chosen in the file.
-            for (const KeyRow* key : keys) {
-                if (key->kind == KeyKind::by_hand && key->model && belongsTo(*key, name)) {
-                    refresh();  // back to the document's shape
-                    return;
-                }
-            }
             std::vector<std::pair<std::string, Json>> values{{pointer, std::string(name)}};
+            // A table atmosphere starts as the atmosphere the design has, in rows to edit.
+            if (name == to_string(AtmosphereModel::table) &&
+                m_document->value("/atmosphere/rows").is_null() &&
+                m_document->value("/atmosphere/csv_file").is_null()) {
+                values.emplace_back("/atmosphere/rows", AtmosphereTable::startingRows(*m_document));
+            }
             for (const KeyRow* key : keys) {
                 if (key == &selector || !key->parent.empty())
                     continue;
@@ -689,6 +693,8 @@ void DesignForm::refresh() {
         if (s.part)
             setFieldVisible(s.combo, partPresent(*s.part));
     }
+    for (const auto& [key, editor] : m_byHand)
+        setFieldVisible(editor, applies(*key));
     // The choices of a part the design lacks (a parachute's type) show with the part.
     for (ChoiceBinding& c : m_choices) {
         if (const KeyRow* key = find_key(pointer_to_key(c.pointer)))
@@ -819,6 +825,10 @@ QWidget* DesignForm::fieldFor(const std::string& pointer) const {
     }
     if (pointer == "/mass/items")
         return m_items;
+    if (pointer == "/body")
+        return m_body->choice();
+    if (pointer.rfind("/body/", 0) == 0)
+        return m_body->fieldFor(pointer.substr(6));
     return nullptr;
 }
 

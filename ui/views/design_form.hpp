@@ -20,6 +20,7 @@ QT_END_NAMESPACE
 
 namespace ds {
 
+class BodyEditor;
 class DesignDocument;
 struct KeyGroup;
 struct KeyRow;
@@ -102,6 +103,9 @@ private:
     /// A number or a sizing request.
     void addNumberOrRequest(QFormLayout* form, const KeyRow& key);
     void buildItems(QFormLayout* form);
+    /// An editor of its own for a key read by hand (the wind, a table atmosphere's rows),
+    /// shown while the key applies.
+    void addByHand(QFormLayout* form, const QString& label, const KeyRow& key, QWidget* editor);
     /// Whether a key applies to the document as it is (its model, method, group and shape).
     bool applies(const KeyRow& key) const;
     /// Whether the part a key sits in is there: its section (the decelerator), and the object
@@ -120,9 +124,11 @@ private:
     QLabel* m_documentErrors;
     QPushButton* m_dropUnused;
     QTableWidget* m_items = nullptr;
+    BodyEditor* m_body = nullptr;
     std::vector<NumberBinding> m_numbers;
     std::vector<ChoiceBinding> m_choices;
     std::vector<ShapeBinding> m_shapes;
+    std::vector<std::pair<const KeyRow*, QWidget*>> m_byHand;
     bool m_refreshing = false;
 };
 

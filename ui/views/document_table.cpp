@@ -2,20 +2,29 @@
 
 #include <utility>
 
+#include <QApplication>
 #include <QBoxLayout>
+#include <QClipboard>
 #include <QHeaderView>
+#include <QKeyEvent>
 #include <QLocale>
 #include <QPushButton>
+#include <QRegularExpression>
 #include <QTableWidget>
 
 namespace ds {
 
 DocumentTable::DocumentTable(DesignDocument* document, std::string pointer, const QString& editName,
-                             const QStringList& headings, QWidget* parent)
+                             const QStringList& headings, QWidget* parent,
+                             std::vector<std::string> rowKeys)
     : QWidget(parent),
       m_document(document),
       m_table(new QTableWidget(0, static_cast<int>(headings.size()), this)),
-      m_pointer(std::move(pointer)) {
+      m_pointer(std::move(pointer)),
+      m_editName(editName),
+      m_rowKeys(std::move(rowKeys)) {
+    if (!m_rowKeys.empty())
+        m_table->installEventFilter(this);
     m_table->setHorizontalHeaderLabels(headings);
     m_table->verticalHeader()->setVisible(false);
     m_table->setSelectionBehavior(QAbstractItemView::SelectRows);
@@ -80,6 +89,66 @@ DocumentTable::Json DocumentTable::typed(const QString& text) {
     bool ok = false;
     const double value = QLocale::c().toDouble(text.trimmed(), &ok);
     return ok ? Json(value) : Json(text.trimmed().toStdString());
+}
+
+void DocumentTable::showRows(const Json& rows) {
+    m_table->setRowCount(rows.is_array() ? static_cast<int>(rows.size()) : 0);
+    for (int row = 0; row < m_table->rowCount(); ++row) {
+        for (std::size_t column = 0; column < m_rowKeys.size(); ++column) {
+            const Json cell = field(rows[static_cast<std::size_t>(row)], m_rowKeys[column].c_str());
+            m_table->setItem(row, static_cast<int>(column), new QTableWidgetItem(numberText(cell)));
+        }
+    }
+}
+
+DocumentTable::Json DocumentTable::cellsRows() const {
+    Json rows = Json::array();
+    for (int row = 0; row < m_table->rowCount(); ++row) {
+        Json values = Json::object();
+        for (std::size_t column = 0; column < m_rowKeys.size(); ++column)
+            values[m_rowKeys[column]] = typed(cellText(row, static_cast<int>(column)));
+        rows.push_back(values);
+    }
+    return rows;
+}
+
+bool DocumentTable::pasteRows(const QString& text) {
+    if (m_rowKeys.empty())
+        return false;
+    static const QRegularExpression separators(QStringLiteral("[\\t,;]"));
+    const int columns = static_cast<int>(m_rowKeys.size());
+    Json rows = Json::array();
+    for (const QString& line :
+         text.split(QRegularExpression(QStringLiteral("[\\r\\n]+")), Qt::SkipEmptyParts)) {
+        const QStringList cells = line.split(separators);
+        if (cells.size() < columns)
+            continue;
+        bool numbers = true;
+        for (int column = 0; column < columns; ++column) {
+            bool ok = false;
+            QLocale::c().toDouble(cells[column].trimmed(), &ok);
+            numbers = numbers && ok;
+        }
+        if (!numbers && rows.empty())
+            continue;  // a heading
+        Json values = Json::object();
+        for (int column = 0; column < columns; ++column)
+            values[m_rowKeys[static_cast<std::size_t>(column)]] = typed(cells[column]);
+        rows.push_back(values);
+    }
+    if (rows.empty())
+        return false;
+    setValue(rows, tr("Paste the %1").arg(m_editName));
+    return true;
+}
+
+bool DocumentTable::eventFilter(QObject* watched, QEvent* event) {
+    if (watched == m_table && event->type() == QEvent::KeyPress &&
+        static_cast<QKeyEvent*>(event)->matches(QKeySequence::Paste)) {
+        if (pasteRows(QApplication::clipboard()->text()))
+            return true;
+    }
+    return QWidget::eventFilter(watched, event);
 }
 
 DocumentTable::Json DocumentTable::field(const Json& row, const char* name) {

@@ -2,6 +2,7 @@
 
 #include <optional>
 #include <string>
+#include <vector>
 
 #include <QWidget>
 
@@ -14,20 +15,36 @@ QT_END_NAMESPACE
 
 namespace ds {
 
-/// An editable table of one value of the design document (the dispersions, the wind): it
-/// shows the value again whenever the document's value changes, and every edit of a cell is
-/// one undoable edit of the document, checked by the strict reader like any other. A table
-/// says how it shows the value (`showValue`) and what value its cells give (`cellsValue`).
+/// An editable table of one value of the design document (the dispersions, the wind, a table
+/// atmosphere): it shows the value again whenever the document's value changes, and every
+/// edit of a cell is one undoable edit of the document, checked by the strict reader like any
+/// other. A table says how it shows the value (`showValue`) and what value its cells give
+/// (`cellsValue`). A table of rows of numbers (one object a row, one key a column: give
+/// `rowKeys`) also takes rows copied from a spreadsheet with Ctrl+V.
 class DocumentTable : public QWidget {
     Q_OBJECT
 public:
     using Json = DesignDocument::Json;
 
+    QTableWidget* tableWidget() const { return m_table; }
+    /// Replaces the rows with text copied from a spreadsheet: one row a line, cells split by
+    /// tabs, commas or semicolons; a first line that is not numbers (a heading) is skipped.
+    /// One undoable edit; returns false when nothing in the text was a row (or the table has
+    /// no row keys).
+    bool pasteRows(const QString& text);
+
 protected:
     /// `pointer`: the value's JSON pointer ("/dispersions"); `editName`: the undo text of an
     /// edited cell. The subclass calls load() once it is built.
     DocumentTable(DesignDocument* document, std::string pointer, const QString& editName,
-                  const QStringList& headings, QWidget* parent);
+                  const QStringList& headings, QWidget* parent,
+                  std::vector<std::string> rowKeys = {});
+
+    bool eventFilter(QObject* watched, QEvent* event) override;
+    /// The rows of an array of row objects, a cell a key, as numbers.
+    void showRows(const Json& rows);
+    /// The cells as an array of row objects, a key a column.
+    Json cellsRows() const;
 
     /// Shows the document's value in the table.
     virtual void showValue(const Json& value) = 0;
@@ -66,6 +83,8 @@ protected:
 
 private:
     std::string m_pointer;
+    QString m_editName;
+    std::vector<std::string> m_rowKeys;
     std::optional<Json> m_shown;  ///< the value the table shows
     bool m_loading = false;
 };

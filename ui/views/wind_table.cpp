@@ -1,14 +1,8 @@
 #include "views/wind_table.hpp"
 
-#include <QApplication>
-#include <QClipboard>
 #include <QComboBox>
-#include <QEvent>
 #include <QHeaderView>
-#include <QKeyEvent>
-#include <QLocale>
 #include <QPushButton>
-#include <QRegularExpression>
 #include <QTableWidget>
 
 #include "model/design_document.hpp"
@@ -30,7 +24,8 @@ const DocumentTable::Json newConstant = {{"east_m_s", 5.0}, {"north_m_s", 0.0}};
 
 WindTable::WindTable(DesignDocument* document, QWidget* parent)
     : DocumentTable(document, windPointer, tr("wind"),
-                    {tr("Altitude (m)"), tr("East (m/s)"), tr("North (m/s)")}, parent),
+                    {tr("Altitude (m)"), tr("East (m/s)"), tr("North (m/s)")}, parent,
+                    {"altitude_m", "east_m_s", "north_m_s"}),
       m_shape(new QComboBox(this)) {
     setObjectName(QStringLiteral("/atmosphere/wind"));
     m_shape->addItems({tr("no wind"), tr("one wind at every altitude"), tr("wind by altitude")});
@@ -40,7 +35,6 @@ WindTable::WindTable(DesignDocument* document, QWidget* parent)
         tr("The wind the air moves with, toward the east and the north, by increasing "
            "altitude above the reference radius; linear between rows, held beyond them. "
            "Ctrl+V pastes rows copied from a spreadsheet."));
-    m_table->installEventFilter(this);
 
     // The buttons under the table: the form's field column is narrow.
     layOut(tr("Add row"), tr("Remove row"), Qt::Horizontal, m_shape);
@@ -52,21 +46,10 @@ WindTable::WindTable(DesignDocument* document, QWidget* parent)
 void WindTable::showValue(const Json& wind) {
     const Shape shape = wind.is_object() ? constant : wind.is_array() ? table : none;
     m_shape->setCurrentIndex(shape);
-    const auto setRow = [&](int row, const Json& values) {
-        m_table->setItem(row, altitudeColumn,
-                         new QTableWidgetItem(numberText(field(values, "altitude_m"))));
-        m_table->setItem(row, eastColumn,
-                         new QTableWidgetItem(numberText(field(values, "east_m_s"))));
-        m_table->setItem(row, northColumn,
-                         new QTableWidgetItem(numberText(field(values, "north_m_s"))));
-    };
     if (shape == table) {
-        m_table->setRowCount(static_cast<int>(wind.size()));
-        for (int row = 0; row < m_table->rowCount(); ++row)
-            setRow(row, wind[static_cast<std::size_t>(row)]);
+        showRows(wind);
     } else if (shape == constant) {
-        m_table->setRowCount(1);
-        setRow(0, wind);
+        showRows(Json::array({wind}));
         m_table->item(0, altitudeColumn)->setText(tr("all"));
         m_table->item(0, altitudeColumn)->setFlags(Qt::ItemIsEnabled);
     } else {
@@ -86,12 +69,7 @@ DocumentTable::Json WindTable::cellsValue() const {
     }
     if (m_shape->currentIndex() != table)
         return Json();
-    Json wind = Json::array();
-    for (int row = 0; row < m_table->rowCount(); ++row)
-        wind.push_back({{"altitude_m", typed(cellText(row, altitudeColumn))},
-                        {"east_m_s", typed(cellText(row, eastColumn))},
-                        {"north_m_s", typed(cellText(row, northColumn))}});
-    return wind;
+    return cellsRows();
 }
 
 void WindTable::setShape(int shape) {
@@ -147,41 +125,6 @@ void WindTable::removeRow() {
         return;
     wind.erase(wind.begin() + row);
     setValue(wind, tr("remove a wind row"));
-}
-
-bool WindTable::pasteRows(const QString& text) {
-    static const QRegularExpression separators(QStringLiteral("[\\t,;]"));
-    Json rows = Json::array();
-    for (const QString& line :
-         text.split(QRegularExpression(QStringLiteral("[\\r\\n]+")), Qt::SkipEmptyParts)) {
-        const QStringList cells = line.split(separators);
-        if (cells.size() < columnCount)
-            continue;
-        bool numbers = true;
-        for (int column = 0; column < columnCount; ++column) {
-            bool ok = false;
-            QLocale::c().toDouble(cells[column].trimmed(), &ok);
-            numbers = numbers && ok;
-        }
-        if (!numbers && rows.empty())
-            continue;  // a heading
-        rows.push_back({{"altitude_m", typed(cells[altitudeColumn])},
-                        {"east_m_s", typed(cells[eastColumn])},
-                        {"north_m_s", typed(cells[northColumn])}});
-    }
-    if (rows.empty())
-        return false;
-    setValue(rows, tr("paste the wind"));
-    return true;
-}
-
-bool WindTable::eventFilter(QObject* watched, QEvent* event) {
-    if (watched == m_table && event->type() == QEvent::KeyPress &&
-        static_cast<QKeyEvent*>(event)->matches(QKeySequence::Paste)) {
-        if (pasteRows(QApplication::clipboard()->text()))
-            return true;
-    }
-    return DocumentTable::eventFilter(watched, event);
 }
 
 }  // namespace ds

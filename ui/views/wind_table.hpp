@@ -18,16 +18,7 @@ public:
 
     explicit WindTable(DesignDocument* document, QWidget* parent = nullptr);
 
-    QTableWidget* tableWidget() const { return m_table; }
     QComboBox* shapeChoice() const { return m_shape; }
-
-    /// Replaces the rows with text copied from a spreadsheet: one row a line, cells split by
-    /// tabs, commas or semicolons; a first line that is not numbers (a heading) is skipped.
-    /// One undoable edit; returns false when nothing in the text was a row.
-    bool pasteRows(const QString& text);
-
-protected:
-    bool eventFilter(QObject* watched, QEvent* event) override;
 
 private:
     void showValue(const Json& wind) override;

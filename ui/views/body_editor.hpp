@@ -1,0 +1,51 @@
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include <QWidget>
+
+QT_BEGIN_NAMESPACE
+class QComboBox;
+class QLineEdit;
+QT_END_NAMESPACE
+
+namespace ds {
+
+class DesignDocument;
+class QuantityEdit;
+
+/// The design's body: a preset by name, or a body of the user's own ("custom") with its name,
+/// radius, gravitational parameter, rotation and gas, each a field. Choosing "custom" starts
+/// from the preset chosen before (its constants copied); choosing a preset again replaces the
+/// custom body. Every change is one undoable edit of the document.
+class BodyEditor : public QWidget {
+    Q_OBJECT
+public:
+    explicit BodyEditor(DesignDocument* document, QWidget* parent = nullptr);
+
+    QComboBox* choice() const { return m_choice; }
+    /// The field of a custom body's key ("radius_m"), for tests.
+    QWidget* fieldFor(const std::string& key) const;
+
+private:
+    void refresh();
+    void choose(int index);
+
+    /// A number of the custom body bound to its key.
+    struct Number {
+        std::string key;
+        QuantityEdit* edit;
+        bool optional;
+    };
+
+    DesignDocument* m_document;
+    QComboBox* m_choice;
+    QWidget* m_custom;
+    QLineEdit* m_name;
+    std::vector<Number> m_numbers;
+    std::vector<std::string> m_presets;
+    bool m_refreshing = false;
+};
+
+}  // namespace ds
