@@ -462,7 +462,10 @@ private slots:
         QCOMPARE(custom["radius_m"].get<double>(), mars.radius_m);
         QCOMPARE(custom["mu_m3_s2"].get<double>(), mars.mu_m3_s2);
         QVERIFY(document.design().has_value());
-        QVERIFY(shown(form, "/body/radius_m"));
+        for (const char* key :
+             {"/body/name", "/body/radius_m", "/body/mu_m3_s2", "/body/rotation_rad_s",
+              "/body/gas_constant_J_kgK", "/body/gamma", "/body/sutton_graves_k"})
+            QVERIFY2(shown(form, key), key);
         QCOMPARE(body->currentIndex(), body->count() - 1);  // no empty box
 
         auto* radius = qobject_cast<QuantityEdit*>(form.fieldFor("/body/radius_m"));

@@ -29,11 +29,13 @@ constexpr int mostStartingRows = 100;
 
 AtmosphereTable::AtmosphereTable(DesignDocument* document, QWidget* parent)
     : DocumentTable(document, rowsPointer, tr("atmosphere table"),
-                    {tr("Altitude (m)"), tr("Density (kg/m^3)"), tr("Temperature (K)")}, parent,
+                    {tr("Altitude (m)"), tr("Density (kg/m³)"), tr("Temperature (K)")}, parent,
                     {"altitude_m", "density_kg_m3", "temperature_K"}) {
     setObjectName(QStringLiteral("/atmosphere/rows"));
     m_table->horizontalHeader()->setSectionResizeMode(QHeaderView::Stretch);
     m_table->setMinimumHeight(140);
+    m_table->verticalHeader()->setDefaultSectionSize(m_table->fontMetrics().height() + 6);
+    m_table->setWordWrap(false);  // a long density elided, whole when edited
     m_table->setToolTip(
         tr("The density and temperature by increasing altitude above the reference radius; "
            "the density is interpolated in its logarithm, the temperature linearly. Ctrl+V "
@@ -47,8 +49,9 @@ AtmosphereTable::AtmosphereTable(DesignDocument* document, QWidget* parent)
     m_fileName->setWordWrap(true);
     auto* copy = new QPushButton(tr("Edit here"), m_fromFile);
     copy->setObjectName(QStringLiteral("copyAtmosphereFileIn"));
-    copy->setToolTip(tr("Copies the file's rows into the design (one edit that Undo takes "
-                        "back); the file itself is left as it is."));
+    copy->setToolTip(
+        tr("Copies the file's rows into the design (one edit that Undo takes "
+           "back); the file itself is left as it is."));
     fileRow->addWidget(m_fileName, 1);
     fileRow->addWidget(copy);
     connect(copy, &QPushButton::clicked, this, [this] {

@@ -4,7 +4,6 @@
 #include <QFormLayout>
 #include <QLineEdit>
 #include <QSignalBlocker>
-#include <QVBoxLayout>
 
 #include "body/body.hpp"
 #include "model/design_document.hpp"
@@ -27,20 +26,19 @@ struct BodyKey {
 };
 
 const BodyKey bodyKeys[] = {
-    {"radius_m", QT_TRANSLATE_NOOP("ds::BodyEditor", "Radius"), Dimension::length, 0.0, false,
-     ""},
-    {"mu_m3_s2", QT_TRANSLATE_NOOP("ds::BodyEditor", "Gravitational parameter (m^3/s^2)"),
-     Dimension::dimensionless, 0.0, false, ""},
+    {"radius_m", QT_TRANSLATE_NOOP("ds::BodyEditor", "Radius"), Dimension::length, 0.0, false, ""},
+    {"mu_m3_s2", QT_TRANSLATE_NOOP("ds::BodyEditor", "GM (m³/s²)"), Dimension::dimensionless, 0.0,
+     false, ""},
     {"rotation_rad_s", QT_TRANSLATE_NOOP("ds::BodyEditor", "Rotation rate"),
      Dimension::angular_rate, std::nullopt, true,
      QT_TRANSLATE_NOOP("ds::BodyEditor", "0: not rotating")},
-    {"gas_constant_J_kgK", QT_TRANSLATE_NOOP("ds::BodyEditor", "Gas constant (J/(kg K))"),
+    {"gas_constant_J_kgK", QT_TRANSLATE_NOOP("ds::BodyEditor", "Gas constant"),
      Dimension::dimensionless, 0.0, true,
      QT_TRANSLATE_NOOP("ds::BodyEditor", "here or in the atmosphere")},
     {"gamma", QT_TRANSLATE_NOOP("ds::BodyEditor", "Ratio of specific heats"),
      Dimension::dimensionless, 1.0, true,
      QT_TRANSLATE_NOOP("ds::BodyEditor", "here or in the atmosphere")},
-    {"sutton_graves_k", QT_TRANSLATE_NOOP("ds::BodyEditor", "Sutton-Graves constant (kg^0.5/m)"),
+    {"sutton_graves_k", QT_TRANSLATE_NOOP("ds::BodyEditor", "Sutton-Graves k (kg½/m)"),
      Dimension::dimensionless, 0.0, false, ""},
 };
 
@@ -59,11 +57,9 @@ Json customFrom(const Body& body) {
 
 }  // namespace
 
-BodyEditor::BodyEditor(DesignDocument* document, QWidget* parent)
-    : QWidget(parent), m_document(document), m_presets(body_preset_names()) {
-    auto* layout = new QVBoxLayout(this);
-    layout->setContentsMargins(0, 0, 0, 0);
-    m_choice = new QComboBox(this);
+BodyEditor::BodyEditor(DesignDocument* document, QFormLayout* form, QWidget* parent)
+    : QObject(parent), m_document(document), m_presets(body_preset_names()) {
+    m_choice = new QComboBox(parent);
     m_choice->setObjectName(QStringLiteral("/body"));
     guardWheel(m_choice);
     for (const std::string& name : m_presets) {
@@ -73,17 +69,22 @@ BodyEditor::BodyEditor(DesignDocument* document, QWidget* parent)
         m_choice->addItem(tr(shown.toUtf8().constData()));
     }
     m_choice->addItem(tr(customText.toUtf8().constData()));
-    m_choice->setToolTip(tr("A preset body, or one of your own: choosing \"custom body\" copies "
-                            "the preset's constants into fields to edit."));
-    layout->addWidget(m_choice);
+    m_choice->setToolTip(
+        tr("A preset body, or one of your own: choosing \"custom body\" copies "
+           "the preset's constants into fields to edit."));
+    m_choice->setSizeAdjustPolicy(QComboBox::AdjustToMinimumContentsLengthWithIcon);
+    form->addRow(tr("Body"), m_choice);
 
-    m_custom = new QWidget(this);
-    auto* form = new QFormLayout(m_custom);
-    form->setContentsMargins(0, 0, 0, 0);
-    form->setRowWrapPolicy(QFormLayout::WrapLongRows);
+    // The custom body's fields in a block of their own under the choice, the form's whole
+    // width: shown and hidden as one.
+    m_custom = new QWidget(parent);
+    auto* custom = new QFormLayout(m_custom);
+    custom->setContentsMargins(0, 0, 0, 0);
+    custom->setFieldGrowthPolicy(QFormLayout::AllNonFixedFieldsGrow);
+    form->addRow(m_custom);
     m_name = new QLineEdit(m_custom);
     m_name->setObjectName(QStringLiteral("/body/name"));
-    form->addRow(tr("Name"), m_name);
+    custom->addRow(tr("Name"), m_name);
     connect(m_name, &QLineEdit::editingFinished, this, [this] {
         const QString name = m_name->text().trimmed();
         if (!m_refreshing && !name.isEmpty() &&
@@ -102,7 +103,7 @@ BodyEditor::BodyEditor(DesignDocument* document, QWidget* parent)
         if (*k.placeholder)
             edit->setPlaceholderText(tr(k.placeholder));
         const QString label = tr(k.label);
-        form->addRow(label, edit);
+        custom->addRow(label, edit);
         m_numbers.push_back({k.key, edit, k.optional});
         connect(edit, &QuantityEdit::valueEdited, this, [this, pointer, label](double value) {
             if (!m_refreshing)
@@ -113,12 +114,11 @@ BodyEditor::BodyEditor(DesignDocument* document, QWidget* parent)
                 if (m_refreshing || !edit->text().trimmed().isEmpty() ||
                     m_document->value(pointer).is_null())
                     return;
-                m_document->setValue(pointer, Json(), tr("Clear the body's %1").arg(label.toLower()));
+                m_document->setValue(pointer, Json(),
+                                     tr("Clear the body's %1").arg(label.toLower()));
             });
         }
     }
-    layout->addWidget(m_custom);
-
     connect(m_choice, &QComboBox::activated, this, &BodyEditor::choose);
     connect(m_document, &DesignDocument::changed, this, &BodyEditor::refresh);
     refresh();
@@ -162,8 +162,7 @@ void BodyEditor::refresh() {
                                          : QString());
         for (Number& n : m_numbers) {
             const Json v = body.value(n.key, Json());
-            n.edit->setValue(v.is_number() ? std::optional<double>(v.get<double>())
-                                           : std::nullopt);
+            n.edit->setValue(v.is_number() ? std::optional<double>(v.get<double>()) : std::nullopt);
         }
         // The reader's errors at the body's fields.
         for (const ReadError& error : m_document->errors()) {

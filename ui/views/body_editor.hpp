@@ -3,11 +3,13 @@
 #include <string>
 #include <vector>
 
-#include <QWidget>
+#include <QObject>
 
 QT_BEGIN_NAMESPACE
 class QComboBox;
+class QFormLayout;
 class QLineEdit;
+class QWidget;
 QT_END_NAMESPACE
 
 namespace ds {
@@ -18,11 +20,13 @@ class QuantityEdit;
 /// The design's body: a preset by name, or a body of the user's own ("custom") with its name,
 /// radius, gravitational parameter, rotation and gas, each a field. Choosing "custom" starts
 /// from the preset chosen before (its constants copied); choosing a preset again replaces the
-/// custom body. Every change is one undoable edit of the document.
-class BodyEditor : public QWidget {
+/// custom body. Every change is one undoable edit of the document. It adds its rows to the
+/// form it is given: the choice, and under it the custom body's fields (shown only for one).
+class BodyEditor : public QObject {
     Q_OBJECT
 public:
-    explicit BodyEditor(DesignDocument* document, QWidget* parent = nullptr);
+    /// Adds the body's rows to `form`; their widgets are children of `parent`.
+    BodyEditor(DesignDocument* document, QFormLayout* form, QWidget* parent);
 
     QComboBox* choice() const { return m_choice; }
     /// The field of a custom body's key ("radius_m"), for tests.

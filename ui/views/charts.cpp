@@ -429,6 +429,7 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
         // A legend entry only: the flux drawn is convective, and the reader should know why.
         auto* note = new QLineSeries;
         note->setName(QStringLiteral("radiative: not modelled"));
+        setShortName(note, QStringLiteral("no radiative model"));
         note->setColor(Qt::transparent);  // no swatch: a note, not a curve
         attach(c.chart, note, c.time, c.right);
     } else if (radiative) {

@@ -313,8 +313,7 @@ QComboBox* DesignForm::addShape(QFormLayout* form, const QString& name, const QS
 void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
     if (section.name == "body") {
         // A preset by name, or a body of the user's own.
-        m_body = new BodyEditor(m_document, this);
-        form->addRow(tr("Body"), m_body);
+        m_body = new BodyEditor(m_document, form, this);
         return;
     }
     if (section.present)
@@ -376,8 +375,18 @@ void DesignForm::buildPart(QFormLayout* form, const SectionRow& section) {
 
 void DesignForm::addByHand(QFormLayout* form, const QString& label, const KeyRow& key,
                            QWidget* editor) {
-    form->addRow(label, editor);
-    m_byHand.push_back({&key, editor});
+    // The form's whole width, under its label: a table of three columns needs more room than
+    // the field column has.
+    auto* row = new QWidget(this);
+    auto* rowLayout = new QVBoxLayout(row);
+    rowLayout->setContentsMargins(0, 0, 0, 0);
+    rowLayout->setSpacing(2);
+    auto* caption = new QLabel(label, row);
+    caption->setBuddy(editor);
+    rowLayout->addWidget(caption);
+    rowLayout->addWidget(editor);
+    form->addRow(row);
+    m_byHand.push_back({&key, row});
 }
 
 void DesignForm::addPresence(QFormLayout* form, const SectionRow& section) {

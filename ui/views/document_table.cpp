@@ -82,7 +82,11 @@ QString DocumentTable::cellText(int row, int column) const {
 }
 
 QString DocumentTable::numberText(const Json& value) {
-    return value.is_number() ? QLocale::c().toString(value.get<double>(), 'g', 10) : QString();
+    // The shortest text that reads back as the same number: a cell shown and read again (when
+    // another cell of its row is edited) must not round the design's value.
+    return value.is_number()
+               ? QLocale::c().toString(value.get<double>(), 'g', QLocale::FloatingPointShortest)
+               : QString();
 }
 
 DocumentTable::Json DocumentTable::typed(const QString& text) {
