@@ -7,6 +7,7 @@
 #include <memory>
 #include <numeric>
 
+#include <QAbstractTextDocumentLayout>
 #include <QAreaSeries>
 #include <QBarCategoryAxis>
 #include <QBarSet>
@@ -24,6 +25,8 @@
 #include <QStackedBarSeries>
 #include <QTemporaryDir>
 #include <QTest>
+#include <QTextBlock>
+#include <QTextDocument>
 #include <QTextLayout>
 
 #include "design/reader.hpp"
@@ -319,6 +322,43 @@ private slots:
         const QRegularExpression pageObject(QStringLiteral("/Type\\s*/Page[^s]"));
         const auto pages = QString::fromLatin1(pdf).count(pageObject);
         QVERIFY2(pages > 1, QByteArray::number(pages).constData());
+    }
+
+    void aHeadingIsNeverLeftAtThePageFootWithoutWhatItHeads() {
+        // Paragraphs fill a page but for a few lines; a heading and its table come next.
+        for (int spare : {10, 40, 70}) {
+            QTextDocument document;
+            document.setDefaultFont(sheet::sheetFont());
+            QString html;
+            for (int i = 0; i < 30; ++i)
+                html += QStringLiteral("<p>Filler line %1 of the page.</p>").arg(i);
+            html += QStringLiteral("<h3>Mass budget</h3><table border=1>");
+            for (int row = 0; row < 12; ++row)
+                html += QStringLiteral("<tr><td>item %1</td><td>10 kg</td></tr>").arg(row);
+            html += QStringLiteral("</table><h3>End</h3><p>The last words.</p>");
+            document.setHtml(html);
+            document.setPageSize(QSizeF(500.0, 1.0e6));  // one page: where the heading falls
+            QTextBlock heading = document.begin();
+            while (heading.isValid() && heading.blockFormat().headingLevel() == 0)
+                heading = heading.next();
+            QVERIFY(heading.isValid());
+            const double headingBottom =
+                document.documentLayout()->blockBoundingRect(heading).bottom();
+            // The page ends `spare` pixels under the heading.
+            const double pageHeight = headingBottom + spare;
+            document.setPageSize(QSizeF(500.0, pageHeight));
+            QVERIFY(sheet::keepHeadingsWithWhatFollows(document) >= 1);
+            const auto pageOf = [&](const QTextBlock& b) {
+                return static_cast<int>(
+                    std::floor(document.documentLayout()->blockBoundingRect(b).top() / pageHeight));
+            };
+            QCOMPARE(pageOf(heading), 1);         // moved to the second page
+            QCOMPARE(pageOf(heading.next()), 1);  // with its table's first row
+            // A heading with room for what it heads stays where it is.
+            const int pages = document.pageCount();
+            QCOMPARE(sheet::keepHeadingsWithWhatFollows(document), 0);
+            QCOMPARE(document.pageCount(), pages);
+        }
     }
 
     void unknownExtensionIsRefusedAndWritesNothing() {

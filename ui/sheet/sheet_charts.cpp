@@ -16,8 +16,10 @@ std::vector<SheetChart> sheetCharts(const Design& design, const Results& results
                                     const SheetContext& context) {
     std::vector<std::unique_ptr<QChart>> charts;
     charts.emplace_back(altitudeVelocityChart(results, nullptr));
-    charts.emplace_back(loadsChart(results, nullptr));
-    charts.emplace_back(machPressureChart(design, results, nullptr));
+    // A long descent under a canopy on a logarithmic time axis, as the window suggests.
+    const TimeScale scale = suggestedTimeScale(results);
+    charts.emplace_back(loadsChart(results, nullptr, scale));
+    charts.emplace_back(machPressureChart(design, results, nullptr, scale));
     charts.emplace_back(massWaterfallChart(results));
     charts.emplace_back(groundTrackChart(results, nullptr));
     if (results.terminal.powered_descent)

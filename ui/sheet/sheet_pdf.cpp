@@ -1,12 +1,18 @@
 #include "sheet/sheet_pdf.hpp"
 
+#include <algorithm>
+#include <cmath>
+
 #include <QAbstractTextDocumentLayout>
 #include <QFont>
 #include <QPageLayout>
 #include <QPageSize>
 #include <QPainter>
 #include <QPdfWriter>
+#include <QTextBlock>
+#include <QTextCursor>
 #include <QTextDocument>
+#include <QTextTable>
 #include <QUrl>
 
 namespace ds::sheet {
@@ -20,6 +26,9 @@ constexpr int pdfResolutionDpi = 96;
 constexpr double pdfMarginMm = 15.0;
 /// Room kept at the foot of each PDF page for the page number (layout pixels).
 constexpr double pdfFooterHeight = 24.0;
+/// What a heading must have of what it heads beneath it on its page (layout pixels): some
+/// four lines of text, or a table's heading row and two rows.
+constexpr double leastHeadedHeight = 80.0;
 
 }  // namespace
 
@@ -29,6 +38,44 @@ QFont sheetFont() {
     QFont font(QStringLiteral("DejaVu Sans"));
     font.setStyleStrategy(QFont::PreferNoShaping);
     return font;
+}
+
+int keepHeadingsWithWhatFollows(QTextDocument& document) {
+    const double pageHeight = document.pageSize().height();
+    if (!(pageHeight > 0.0))
+        return 0;
+    QAbstractTextDocumentLayout* layout = document.documentLayout();
+    int moved = 0;
+    for (QTextBlock block = document.begin(); block.isValid(); block = block.next()) {
+        if (block.blockFormat().headingLevel() == 0 ||
+            block.blockFormat().pageBreakPolicy() & QTextFormat::PageBreak_AlwaysBefore)
+            continue;
+        // Laid out afresh after each move: everything below it moved too.
+        const QRectF heading = layout->blockBoundingRect(block);
+        const double pageTop = std::floor(heading.top() / pageHeight) * pageHeight;
+        if (heading.top() - pageTop < 1.0)
+            continue;  // at the top of its page already
+        const double roomBelow = pageTop + pageHeight - heading.bottom();
+        // What follows: the next block's top (a table's first cell) decides whether it was
+        // pushed to the next page; the room left whether enough of it fits beneath.
+        const QTextBlock next = block.next();
+        if (!next.isValid())
+            continue;
+        const QRectF following = [&] {
+            if (QTextTable* table = QTextCursor(next).currentTable())
+                return layout->frameBoundingRect(table);
+            return layout->blockBoundingRect(next);
+        }();
+        const bool followsOnNextPage = following.top() >= pageTop + pageHeight;
+        const double needed = std::min(leastHeadedHeight, following.height());
+        if (followsOnNextPage || roomBelow < needed) {
+            QTextBlockFormat format;
+            format.setPageBreakPolicy(QTextFormat::PageBreak_AlwaysBefore);
+            QTextCursor(block).mergeBlockFormat(format);
+            ++moved;
+        }
+    }
+    return moved;
 }
 
 bool writePagedPdf(QIODevice& device, const QString& title, const QString& creator,
@@ -52,6 +99,7 @@ bool writePagedPdf(QIODevice& device, const QString& title, const QString& creat
     document.setHtml(html(resource, pdfChartWidth));
     const QSizeF page(writer.width(), writer.height() - pdfFooterHeight);
     document.setPageSize(page);
+    keepHeadingsWithWhatFollows(document);
 
     QPainter painter;
     if (!painter.begin(&writer))

@@ -6,6 +6,10 @@
 #include <QIODevice>
 #include <QString>
 
+QT_BEGIN_NAMESPACE
+class QTextDocument;
+QT_END_NAMESPACE
+
 #include "sheet/sheet_charts.hpp"
 
 namespace ds::sheet {
@@ -15,6 +19,11 @@ using PagedHtml = std::function<QString(const ImageSource& source, int chartWidt
 
 /// The font the PDF's text is laid out in: DejaVu Sans, set without ligatures.
 QFont sheetFont();
+
+/// Moves every heading that would end a page, with too little of what it heads after it, to
+/// the top of the next page (a page break before it). The document must be paginated (its
+/// page size set). Returns how many headings were moved.
+int keepHeadingsWithWhatFollows(QTextDocument& document);
 
 /// Lays HTML out on A4 pages, at screen resolution so that pixel sizes mean what they mean in
 /// the HTML, with "<title> — page i of n" at the foot of every page: the sheet as a PDF. The
