@@ -272,6 +272,12 @@ void write_timeline(std::string& out, const Results& results) {
     row(out, "time the sequence needs", results.timeline.needed_s, "s", 1);
     row(out, "timeline margin", results.timeline.margin_s, "s", 1);
     row(out, "highest feasible site elevation", results.capability.max_site_elevation_m, "m", 0);
+    // A bound of the search, not of the margin, is said to be one.
+    if (const auto limit = results.capability.max_site_elevation_limit;
+        limit && *limit != SiteLimit::timeline_margin) {
+        fmt::format_to(std::back_inserter(out), "  {:<{}} ({})\n", "", label_width,
+                       site_limit_text(*limit));
+    }
 }
 
 void write_landing(std::string& out, const std::optional<LandingResults>& landing) {

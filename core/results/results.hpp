@@ -248,10 +248,25 @@ struct MassResults {
     std::optional<MassClosure> closure;  ///< sizing mode only
 };
 
+/// What stops the search for the highest feasible site.
+enum class SiteLimit {
+    timeline_margin,       ///< the timeline margin runs out there
+    heat_shield_jettison,  ///< the margin lasts up to where the heat shield leaves (a canopy)
+    ignition,              ///< the margin lasts up to where the engines light (from the entry)
+};
+
+/// What bounds the highest feasible site, in words for a reader ("bounded by the heat-shield
+/// jettison altitude").
+std::string_view site_limit_text(SiteLimit limit);
+
 /// What the design could still do.
 struct Capability {
-    /// The highest site elevation at which the timeline margin is still zero or more.
+    /// The highest site elevation at which the timeline margin is still zero or more, up to
+    /// the altitude where the heat shield leaves (or the engines light): a site higher than
+    /// that is above the event the timeline starts from, and is not looked at.
     std::optional<double> max_site_elevation_m;
+    /// Which of those it is: a bound of the search, not of the margin, unless the margin.
+    std::optional<SiteLimit> max_site_elevation_limit;
 };
 
 struct Results {
@@ -287,6 +302,11 @@ constexpr Names<GrowthBasis, 3> name_table(GrowthBasis) {
 }
 constexpr Names<MassMode, 2> name_table(MassMode) {
     return {{{MassMode::analysis, "analysis"}, {MassMode::sizing, "sizing"}}};
+}
+constexpr Names<SiteLimit, 3> name_table(SiteLimit) {
+    return {{{SiteLimit::timeline_margin, "timeline_margin"},
+             {SiteLimit::heat_shield_jettison, "heat_shield_jettison"},
+             {SiteLimit::ignition, "ignition"}}};
 }
 
 }  // namespace ds

@@ -276,6 +276,10 @@ Json mass_to_json(const MassResults& mass) {
 Json capability_to_json(const Capability& capability) {
     Json out;
     out["max_site_elevation_m"] = number(capability.max_site_elevation_m);
+    out["max_site_elevation_limit"] =
+        capability.max_site_elevation_limit
+            ? Json(std::string(to_string(*capability.max_site_elevation_limit)))
+            : Json();
     return out;
 }
 

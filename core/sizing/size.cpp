@@ -101,6 +101,15 @@ std::optional<CapabilityGuess> capability_guess(const Design& design, const Flig
     return CapabilityGuess{at[StateIndex::altitude] - separation_height, speed(at)};
 }
 
+/// The highest site the search looks at: a little under where the heat shield leaves (under a
+/// canopy) or where the engines light (from the entry), the event the timeline starts from.
+double site_search_ceiling(const Design& design, const Evaluation& evaluation) {
+    const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
+    return (powered ? evaluation.entry.end_state[StateIndex::altitude]
+                    : evaluation.descent->jettison_state[StateIndex::altitude]) -
+           capability_tolerance_m;
+}
+
 std::optional<double> max_site_elevation(const Design& design, const FlightModel& model,
                                          const Evaluation& evaluation) {
     const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
@@ -130,10 +139,7 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         if (!(margin_low >= 0.0))
             return std::nullopt;
     }
-    // Up to where the heat shield leaves (under a canopy), or where the engines light.
-    const double high = (powered ? evaluation.entry.end_state[StateIndex::altitude]
-                                 : evaluation.descent->jettison_state[StateIndex::altitude]) -
-                        capability_tolerance_m;
+    const double high = site_search_ceiling(design, evaluation);
     if (!(high > low))
         return std::nullopt;
 
@@ -994,7 +1000,16 @@ Results size_design(const Design& design, SizingOptions options) {
     if ((e.descent || powered_landing) && e.landing_kg > 0.0 && !stopped_in_air(e))
         results.mass.landed_kg = e.landed_kg;
     if (options.capability) {
-        results.capability.max_site_elevation_m = max_site_elevation(design, model, e);
+        const std::optional<double> highest = max_site_elevation(design, model, e);
+        results.capability.max_site_elevation_m = highest;
+        if (highest) {
+            const bool bound = *highest == site_search_ceiling(design, e);
+            results.capability.max_site_elevation_limit =
+                !bound ? SiteLimit::timeline_margin
+                : design.terminal.method == TerminalMethod::supersonic_retro
+                    ? SiteLimit::ignition
+                    : SiteLimit::heat_shield_jettison;
+        }
     }
     if (options.history)
         results.history = std::move(e.history);

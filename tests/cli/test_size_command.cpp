@@ -46,6 +46,19 @@ TEST_CASE("size prints a summary with units and the caution, and exits 0") {
     CHECK(r.err.empty());
 }
 
+TEST_CASE(
+    "a highest feasible site that is the search's bound says so; one of the margin does not") {
+    const Run titan = run("size " + sample("titan-surface-probe"));
+    CHECK(titan.exit_code == 0);
+    CHECK(titan.out.find("(bounded by the heat-shield jettison altitude)") != std::string::npos);
+    const Run station = run("size " + sample("small-ballistic-station"));
+    CHECK(station.out.find("highest feasible site elevation") != std::string::npos);
+    CHECK(station.out.find("bounded by") == std::string::npos);
+    const Run json = run("size --json " + sample("titan-surface-probe"));
+    CHECK(nlohmann::json::parse(json.out)["capability"]["max_site_elevation_limit"] ==
+          "heat_shield_jettison");
+}
+
 TEST_CASE("size --json prints a results document with the contract's keys") {
     for (const char* name :
          {"small-ballistic-station", "lifting-rover-carrier", "earth-return-capsule"}) {

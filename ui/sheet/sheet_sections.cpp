@@ -232,8 +232,18 @@ QString timelineSection(const Design& design, const Results& results) {
                       "phase, %2 s needed by the sequence)")
                       .arg(formatFixed(timeline.available_s, 1), formatFixed(timeline.needed_s, 1));
     body += paragraph(margin + QLatin1Char('.'));
-    body += paragraph(QStringLiteral("Highest feasible site elevation: %1 m.")
-                          .arg(formatFixed(results.capability.max_site_elevation_m, 0)));
+    QString highest = QStringLiteral("Highest feasible site elevation: %1 m")
+                          .arg(formatFixed(results.capability.max_site_elevation_m, 0));
+    if (const auto limit = results.capability.max_site_elevation_limit) {
+        const std::string_view words = site_limit_text(*limit);
+        highest += QStringLiteral(" (%1)").arg(
+            QString::fromUtf8(words.data(), static_cast<qsizetype>(words.size())));
+        if (*limit != SiteLimit::timeline_margin)
+            highest += QStringLiteral(
+                ": the timeline margin lasts up to that altitude, and no "
+                "higher site is looked at");
+    }
+    body += paragraph(highest + QLatin1Char('.'));
     return section(QStringLiteral("Timeline"), body);
 }
 

@@ -185,7 +185,8 @@ TEST_CASE("the decelerator, the chain's new figures and the capability are writt
     CHECK(terminal["hover_time_s"] == 14.0);
     CHECK(document["timeline"]["available_s"] == 130.0);
     CHECK(document["timeline"]["needed_s"] == 35.0);
-    CHECK(document["capability"] == Json{{"max_site_elevation_m", 1250.0}});
+    CHECK(document["capability"] ==
+          Json{{"max_site_elevation_m", 1250.0}, {"max_site_elevation_limit", nullptr}});
 }
 
 TEST_CASE("the approach and the orbit are written by value, with both frames") {

@@ -141,10 +141,27 @@ TEST_CASE("a higher site shortens the timeline margin (trend)") {
     CHECK(high < low - 20.0);
 }
 
+TEST_CASE("a highest site the timeline margin does not bound is said to be the search's bound") {
+    // The Titan probe lands on its canopy: the margin lasts all the way up to where the heat
+    // shield leaves, which is as high as a site is looked for (half a metre under it).
+    const ds::Results r = ds::size_design(sample("titan-surface-probe"));
+    REQUIRE(r.capability.max_site_elevation_m);
+    REQUIRE(r.capability.max_site_elevation_limit);
+    CHECK(*r.capability.max_site_elevation_limit == ds::SiteLimit::heat_shield_jettison);
+    const auto jettison =
+        std::find_if(r.timeline.events.begin(), r.timeline.events.end(),
+                     [](const ds::TimelineEvent& e) { return e.name == "heat-shield jettison"; });
+    REQUIRE(jettison != r.timeline.events.end());
+    CHECK(*r.capability.max_site_elevation_m ==
+          doctest::Approx(jettison->altitude_m - 0.5).epsilon(1e-9));
+}
+
 TEST_CASE("the highest feasible site elevation is where the timeline margin crosses zero") {
     ds::Design d = sample("small-ballistic-station");
     const ds::Results r = ds::size_design(d);
     REQUIRE(r.capability.max_site_elevation_m);
+    REQUIRE(r.capability.max_site_elevation_limit);
+    CHECK(*r.capability.max_site_elevation_limit == ds::SiteLimit::timeline_margin);
     const double ceiling = *r.capability.max_site_elevation_m;
     CHECK(ceiling > d.site.elevation_m);
     // Within 2 m either side (the search's tolerance is 0.5 m; the margin moves some 0.03 s a
