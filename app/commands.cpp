@@ -20,6 +20,7 @@
 
 #include "design/key_reference.hpp"
 #include "design/reader.hpp"
+#include "exit_codes.hpp"
 #include "results/writer.hpp"
 #include "sizing/size.hpp"
 #include "summary.hpp"
@@ -29,15 +30,6 @@
 
 namespace ds {
 namespace {
-
-// Exit codes: 0 sized (even with failing checks), 1 arguments refused, 2 a document that cannot
-// be read, 3 an internal error (a bug: please report it with the design), 4 the output could
-// not be written (a full disk, a closed pipe).
-constexpr int exit_usage = 1;
-constexpr int exit_unreadable = 2;
-constexpr int exit_internal = 3;
-constexpr int exit_write_failed = 4;
-constexpr int exit_reference_missed = 5;
 
 struct SizeOptions {
     std::string design;

@@ -16,6 +16,7 @@
 #include "design/file_output.hpp"
 #include "design/reader.hpp"
 #include "design/schema.hpp"
+#include "exit_codes.hpp"
 #include "results/key_figures.hpp"
 #include "trade/study.hpp"
 #include "trade/success_probability.hpp"
@@ -25,9 +26,6 @@
 
 namespace ds {
 namespace {
-
-constexpr int exit_unreadable = 2;
-constexpr int exit_usage = 1;
 
 using Json = nlohmann::ordered_json;
 
@@ -643,7 +641,6 @@ int optimiseCommand(const Options& o) {
                 fmt::print("\nThe optimum design is written to {}.\n", o.write);
         }
     });
-    constexpr int exit_write_failed = 4;  // as the command line's other outputs
     return writeFailed ? exit_write_failed : code;
 }
 

@@ -14,17 +14,17 @@
 
 #include "allocator.hpp"
 #include "design/reader.hpp"
+#include "exit_codes.hpp"
 #include "main_window.hpp"
 #include "model/atomic_file.hpp"
 #include "sheet/sizing_sheet.hpp"
 #include "sizing/size.hpp"
 #include "summary.hpp"
+#include "views/trade_view.hpp"
 
 namespace ds {
 namespace {
 
-constexpr int exit_unreadable = 2;
-constexpr int exit_write_failed = 4;  // as the command line's other outputs
 // How long --screenshot waits for the first results before giving up.
 constexpr int screenshot_timeout_ms = 20000;
 // Time for the charts to settle after the results arrive, before the picture is taken.
@@ -58,16 +58,48 @@ int sizeDemoToTerminal(const QString& file) {
     return 0;
 }
 
+/// Runs a trade study of the design on show, for a picture of the trade page: 500 dispersed
+/// cases, a 21 x 21 map of the aeroshell's diameter and the flight-path angle, or the entry
+/// corridor. False for a study it does not know.
+bool runStudyForPicture(MainWindow& window, const QString& study) {
+    TradeView* trades = window.trades();
+    window.showTradeStudy();
+    if (study == QLatin1String("dispersions")) {
+        trades->setDispersions(500, 1);
+    } else if (study == QLatin1String("map")) {
+        trades->setSweep({{"aeroshell.diameter_m", 2.0, 3.5, 21},
+                          {"entry.flight_path_angle_deg", -16.0, -10.0, 21}});
+    } else if (study == QLatin1String("corridor")) {
+        trades->setCorridor(QString(), 0);
+    } else {
+        fmt::print(stderr, "--study takes dispersions, map or corridor\n");
+        return false;
+    }
+    QEventLoop loop;
+    QObject::connect(trades, &TradeView::studyShown, &loop,
+                     [&] { QTimer::singleShot(screenshot_settle_ms, &loop, &QEventLoop::quit); });
+    QTimer::singleShot(screenshot_timeout_ms, &loop, &QEventLoop::quit);
+    if (!trades->run())
+        return false;
+    loop.exec();
+    return true;
+}
+
 /// The window. Without a display it sizes the demo design to the terminal instead.
 int runWindow(int argc, char** argv) {
     // Parse before a display is needed, so that a headless machine gets the terminal summary.
     QString file;
     QString screenshot;
     QSize size;  // --size WxH: the window's size, to see how it lays out on a smaller screen
+    // --study dispersions|map|corridor: the picture shows that trade study, run with its
+    // settings below, instead of the flight.
+    QString study;
     for (int i = 1; i < argc; ++i) {
         const QString arg = QString::fromLocal8Bit(argv[i]);
         if (arg == "--screenshot" && i + 1 < argc) {
             screenshot = QString::fromLocal8Bit(argv[++i]);
+        } else if (arg == "--study" && i + 1 < argc) {
+            study = QString::fromLocal8Bit(argv[++i]);
         } else if (arg == "--size" && i + 1 < argc) {
             const QStringList parts = QString::fromLocal8Bit(argv[++i]).split(QLatin1Char('x'));
             if (parts.size() == 2)
@@ -104,6 +136,8 @@ int runWindow(int argc, char** argv) {
                      [&] { QTimer::singleShot(screenshot_settle_ms, &loop, &QEventLoop::quit); });
     QTimer::singleShot(screenshot_timeout_ms, &loop, &QEventLoop::quit);
     loop.exec();
+    if (!study.isEmpty() && !runStudyForPicture(window, study))
+        return exit_usage;
     const QPixmap picture = window.grab();
     const QByteArray format = QFileInfo(screenshot).suffix().isEmpty()
                                   ? "PNG"
@@ -149,6 +183,7 @@ int writeSheetCommand(int argc, char** argv, const char* designPath, const char*
 
 // descent-sizer-window: the window, and the sizing sheet. descent-sizer starts it for both:
 //   descent-sizer-window [FILE] [--screenshot OUT.png] [--size WxH]
+//                        [--study dispersions|map|corridor]
 //   descent-sizer-window sheet DESIGN --output OUT     (as descent-sizer's sheet command gives it)
 int main(int argc, char** argv) {
     ds::tuneAllocator();

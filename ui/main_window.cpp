@@ -163,9 +163,9 @@ void MainWindow::buildMenus() {
 
     QMenu* study = menuBar()->addMenu(tr("&Study"));
     study->addAction(tr("Show the &trade study"), QKeySequence(tr("Ctrl+T")), this,
-                     [this] { m_views->setCurrentWidget(m_trades); });
+                     &MainWindow::showTradeStudy);
     study->addAction(tr("&Run the trade study"), QKeySequence(tr("Ctrl+R")), this, [this] {
-        m_views->setCurrentWidget(m_trades);
+        showTradeStudy();
         m_trades->run();
     });
     study->addAction(tr("&Cancel the trade study"), m_trades, &TradeView::cancel);
@@ -301,6 +301,10 @@ bool MainWindow::exportSheet(const QString& path, QString* error) {
                                m_document->filePath(), m_trades->currentOutcome(),
                                m_trades->figure()};
     return writeSheet(path, m_runner->design(), m_runner->results(), context, error);
+}
+
+void MainWindow::showTradeStudy() {
+    m_views->setCurrentWidget(m_trades);
 }
 
 void MainWindow::pinBaseline() {

@@ -67,6 +67,8 @@ public:
     /// Milliseconds from the edit to the redrawn views, for the last results shown.
     qint64 lastEditToRedrawMs() const { return m_lastEditToRedrawMs; }
 
+    /// Brings the trade study page to the front.
+    void showTradeStudy();
     void pinBaseline();
     void clearBaseline();
     bool save();

@@ -148,6 +148,10 @@ void setShortTitle(QAbstractAxis* axis, const QString& shortTitle) {
     axis->setProperty(shortTextProperty, shortTitle);
 }
 
+void setShortTitle(QChart* chart, const QString& shortTitle) {
+    chart->setProperty(shortTextProperty, shortTitle);
+}
+
 void setShortName(QAbstractSeries* series, const QString& shortName) {
     series->setProperty(shortTextProperty, shortName);
 }
@@ -170,29 +174,47 @@ void fitTexts(QChart* chart) {
         if (axis->titleText() != wanted)
             axis->setTitleText(wanted);
     }
-    // The legend is one row under the plot: its entries' full names, or all short ones.
+    // The title: its short form where the full one is wider than the chart.
+    const QString shortTitle = chart->property(shortTextProperty).toString();
+    if (!shortTitle.isEmpty()) {
+        const QString full = fullText(chart, chart->title());
+        const bool fits = QFontMetricsF(chart->titleFont()).horizontalAdvance(full) <=
+                          chart->size().width() - 2.0 * chartMargin;
+        const QString wanted = fits ? full : shortTitle;
+        if (chart->title() != wanted)
+            chart->setTitle(wanted);
+    }
+    // The legend is one row under the plot, of its entries' full names or else of the short
+    // ones; where even those do not fit, a column beside the plot.
     QLegend* legend = chart->legend();
     const QFontMetricsF metrics(legend->font());
+    const double entry = legendMarkerHeights * metrics.height();
     double fullWidth = 0.0;
+    double shortWidth = 0.0;
     std::vector<QAbstractSeries*> shortened;
     for (QLegendMarker* marker : legend->markers()) {
         if (!marker->isVisible())
             continue;
         QAbstractSeries* series = marker->series();
         const QString full = fullText(series, series->name());
-        fullWidth += metrics.horizontalAdvance(full) + legendMarkerHeights * metrics.height();
-        if (!series->property(shortTextProperty).toString().isEmpty())
+        const QString brief = series->property(shortTextProperty).toString();
+        fullWidth += metrics.horizontalAdvance(full) + entry;
+        shortWidth += metrics.horizontalAdvance(brief.isEmpty() ? full : brief) + entry;
+        if (!brief.isEmpty())
             shortened.push_back(series);
     }
     // The legend's own margins, some two font heights.
-    const bool fits =
-        fullWidth <= chart->size().width() - 2.0 * chartMargin - 2.0 * metrics.height();
+    const double room = chart->size().width() - 2.0 * chartMargin - 2.0 * metrics.height();
+    const bool fullFits = fullWidth <= room;
     for (QAbstractSeries* series : shortened) {
-        const QString wanted = fits ? series->property(fullTextProperty).toString()
-                                    : series->property(shortTextProperty).toString();
+        const QString wanted = fullFits ? series->property(fullTextProperty).toString()
+                                        : series->property(shortTextProperty).toString();
         if (series->name() != wanted)
             series->setName(wanted);
     }
+    const Qt::Alignment side = fullFits || shortWidth <= room ? Qt::AlignBottom : Qt::AlignRight;
+    if (legend->alignment() != side)
+        legend->setAlignment(side);
 }
 
 void attach(QChart* chart, QAbstractSeries* series, QAbstractAxis* x, QAbstractAxis* y) {

@@ -52,10 +52,13 @@ void setNiceRange(QValueAxis* axis, double low, double high);
 /// What an axis title becomes when the axis is too short for it ("dynamic pressure (kPa)" to
 /// "q (kPa)").
 void setShortTitle(QAbstractAxis* axis, const QString& shortTitle);
+/// What a chart's title becomes when the chart is narrower than the title.
+void setShortTitle(QChart* chart, const QString& shortTitle);
 /// What a series is called in the legend when the legend is too narrow for its full name.
 void setShortName(QAbstractSeries* series, const QString& shortName);
-/// The texts that fit the chart as it is laid out now: every axis's title and the legend's
-/// names, full where they fit, short where they do not. Charts made by newChart do it
+/// The texts that fit the chart as it is laid out now: the title, every axis's title and the
+/// legend's names, full where they fit, short where they do not; a legend too wide for a row
+/// under the plot even so stands in a column beside it. Charts made by newChart do it
 /// whenever their plot area moves.
 void fitTexts(QChart* chart);
 

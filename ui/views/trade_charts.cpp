@@ -69,9 +69,11 @@ std::optional<double> figureOf(const Results& results, std::size_t index) {
     return key_figure_table[index].value(results);
 }
 
-QScatterSeries* caseSeries(const QString& name, const QColor& colour) {
+/// Cases drawn as dots; `shortName` in a legend too narrow for `name`.
+QScatterSeries* caseSeries(const QString& name, const QString& shortName, const QColor& colour) {
     auto* series = new QScatterSeries;
     series->setName(name);
+    setShortName(series, shortName);
     series->setMarkerShape(QScatterSeries::MarkerShapeCircle);
     series->setMarkerSize(caseMarkerSize);
     series->setColor(colour);
@@ -112,16 +114,19 @@ QChart* sweepLineChart(const StudyOutcome& outcome, const std::string& figure) {
         return emptyChart(title, QStringLiteral("no cases"));
 
     QChart* chart = newChart(title);
+    setShortTitle(chart, capitalised(info->label));
     QValueAxis* xAxis = addValueAxis(chart, key, Qt::AlignBottom);
     QValueAxis* figureAxis = addValueAxis(chart, info->axisTitle(), Qt::AlignLeft, primaryInk);
     QValueAxis* marginAxis =
         addValueAxis(chart, QStringLiteral("feasibility margin (%)"), Qt::AlignRight, secondaryInk);
+    setShortTitle(marginAxis, QStringLiteral("margin (%)"));
 
     QList<QPointF> line, margin;
     Span xs, ys, ms;
-    auto* pass = caseSeries(QStringLiteral("all checks pass"), passInk);
-    auto* marginal = caseSeries(QStringLiteral("worst check marginal"), marginalInk);
-    auto* fail = caseSeries(QStringLiteral("a check fails"), failInk);
+    auto* pass = caseSeries(QStringLiteral("all checks pass"), QStringLiteral("pass"), passInk);
+    auto* marginal =
+        caseSeries(QStringLiteral("worst check marginal"), QStringLiteral("marginal"), marginalInk);
+    auto* fail = caseSeries(QStringLiteral("a check fails"), QStringLiteral("fails"), failInk);
     for (const SweepCase& c : outcome.sweep) {
         const double x = c.inputs.front();
         xs.include(x);
@@ -210,6 +215,7 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
 
     QChart* chart =
         newChart(QStringLiteral("%1: %2 dispersed cases").arg(title).arg(values.size()));
+    setShortTitle(chart, title);
     QValueAxis* xAxis = addValueAxis(chart, info->axisTitle(), Qt::AlignBottom);
     QValueAxis* countAxis = addValueAxis(chart, QStringLiteral("cases"), Qt::AlignLeft);
     auto* outline = new QLineSeries;
@@ -224,6 +230,7 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
     outline->append(high, 0.0);
     auto* bars = new QAreaSeries(outline);
     bars->setName(QStringLiteral("cases per bin"));
+    setShortName(bars, QStringLiteral("cases"));
     QColor fill = primaryInk;
     fill.setAlpha(110);
     bars->setBrush(fill);
@@ -243,12 +250,12 @@ QChart* dispersionHistogramChart(const StudyOutcome& outcome, const std::string&
     for (const auto& mark : marks) {
         QPen pen = resultPen(secondaryInk);
         pen.setStyle(mark.style);
-        attach(chart,
-               lineSeries(QStringLiteral("%1 = %2")
-                              .arg(QString::fromLatin1(mark.name))
-                              .arg(mark.value, 0, 'g', 4),
-                          pen, {{mark.value, 0.0}, {mark.value, countAxis->max()}}),
-               xAxis, countAxis);
+        QLineSeries* line = lineSeries(QStringLiteral("%1 = %2")
+                                           .arg(QString::fromLatin1(mark.name))
+                                           .arg(mark.value, 0, 'g', 4),
+                                       pen, {{mark.value, 0.0}, {mark.value, countAxis->max()}});
+        setShortName(line, QString::fromLatin1(mark.name));
+        attach(chart, line, xAxis, countAxis);
     }
     return chart;
 }
@@ -260,8 +267,8 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
     if (!outcome.campaign || !mach || !pressure)
         return emptyChart(title, QStringLiteral("no cases"));
 
-    auto* success = caseSeries(QStringLiteral("succeeded"), passInk);
-    auto* failure = caseSeries(QStringLiteral("a check failed"), failInk);
+    auto* success = caseSeries(QStringLiteral("succeeded"), QStringLiteral("ok"), passInk);
+    auto* failure = caseSeries(QStringLiteral("a check failed"), QStringLiteral("failed"), failInk);
     success->setMarkerSize(caseMarkerSize * 0.7);
     failure->setMarkerSize(caseMarkerSize * 0.7);
     const Limits& limits = outcome.design.limits;
@@ -287,8 +294,10 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
         newChart(undeployed == 0
                      ? title
                      : QStringLiteral("%1 (%2 cases never deployed)").arg(title).arg(undeployed));
+    setShortTitle(chart, title);
     QValueAxis* qAxis =
         addValueAxis(chart, QStringLiteral("dynamic pressure at deploy (Pa)"), Qt::AlignBottom);
+    setShortTitle(qAxis, QStringLiteral("q at deploy (Pa)"));
     QValueAxis* machAxis =
         addValueAxis(chart, QStringLiteral("Mach number at deploy"), Qt::AlignLeft);
     setNiceRange(qAxis, qs.low, qs.high);
@@ -305,6 +314,7 @@ QChart* deployScatterChart(const StudyOutcome& outcome) {
                         .arg(limits.deploy_mach_max)
                         .arg(limits.deploy_dynamic_pressure_min_Pa)
                         .arg(limits.deploy_dynamic_pressure_max_Pa));
+    setShortName(window, QStringLiteral("window"));
     window->setBrush(windowFill);
     window->setPen(QPen(passInk.darker(120), 1.0, Qt::DashLine));
     attach(chart, window, qAxis, machAxis);
@@ -352,8 +362,8 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
         return QPointF(d * std::sin(azimuth), d * std::cos(azimuth));
     };
 
-    auto* success = caseSeries(QStringLiteral("succeeded"), passInk);
-    auto* failure = caseSeries(QStringLiteral("a check failed"), failInk);
+    auto* success = caseSeries(QStringLiteral("succeeded"), QStringLiteral("ok"), passInk);
+    auto* failure = caseSeries(QStringLiteral("a check failed"), QStringLiteral("failed"), failInk);
     success->setMarkerSize(caseMarkerSize * 0.5);
     failure->setMarkerSize(caseMarkerSize * 0.5);
     double reach = 0.0;
@@ -388,10 +398,13 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
                                                 .arg(title)
                                                 .arg(landed)
                                                 .arg(missing));
+    setShortTitle(chart, title);
     QValueAxis* eastAxis =
         addValueAxis(chart, QStringLiteral("east of the mean (km)"), Qt::AlignBottom);
+    setShortTitle(eastAxis, QStringLiteral("east (km)"));
     QValueAxis* northAxis =
         addValueAxis(chart, QStringLiteral("north of the mean (km)"), Qt::AlignLeft);
+    setShortTitle(northAxis, QStringLiteral("north (km)"));
     // One span on both axes: the scatter's shape is the landing's.
     setNiceRange(eastAxis, -reach, reach);
     setNiceRange(northAxis, -reach, reach);
@@ -401,10 +414,12 @@ QChart* landingEllipseChart(const StudyOutcome& outcome) {
         if (series->count() == 0)
             hideFromLegend(chart, series);
     }
-    attach(chart,
-           lineSeries(QStringLiteral("%1 % ellipse").arg(ellipse->probability * percent, 0, 'g', 3),
-                      resultPen(primaryInk), outline),
-           eastAxis, northAxis);
+    QLineSeries* ellipseLine =
+        lineSeries(QStringLiteral("%1 % ellipse").arg(ellipse->probability * percent, 0, 'g', 3),
+                   resultPen(primaryInk), outline);
+    setShortName(ellipseLine,
+                 QStringLiteral("%1 %").arg(ellipse->probability * percent, 0, 'g', 3));
+    attach(chart, ellipseLine, eastAxis, northAxis);
     attach(chart,
            pointMarker(QStringLiteral("mean"), QScatterSeries::MarkerShapeRectangle,
                        caseMarkerSize * 1.4, primaryInk, QPointF(0.0, 0.0)),
@@ -523,8 +538,8 @@ QChart* convergenceChart(const StudyOutcome& outcome) {
     QValueAxis* figureAxis =
         addValueAxis(chart, info ? info->axisTitle() : label, Qt::AlignLeft, primaryInk);
     // Each sizing as a point, passing or failing; the best passing figure so far as a line.
-    auto* pass = caseSeries(QStringLiteral("all checks pass"), passInk);
-    auto* fail = caseSeries(QStringLiteral("a check fails"), failInk);
+    auto* pass = caseSeries(QStringLiteral("all checks pass"), QStringLiteral("pass"), passInk);
+    auto* fail = caseSeries(QStringLiteral("a check fails"), QStringLiteral("fails"), failInk);
     QList<QPointF> best;
     std::optional<double> bestSoFar;
     Span ys;
@@ -613,6 +628,7 @@ QChart* sensitivityChart(const StudyOutcome& outcome, const std::string& figure)
     QValueAxis* valueAxis =
         addValueAxis(chart, QStringLiteral("normalised sensitivity d ln(figure) / d ln(input)"),
                      Qt::AlignBottom);
+    setShortTitle(valueAxis, QStringLiteral("d ln(figure) / d ln(input)"));
     const double reach = std::max(std::abs(values.low), std::abs(values.high));
     setNiceRange(valueAxis, -reach, reach);
     attach(chart, series, valueAxis, inputAxis);
