@@ -196,18 +196,22 @@ std::optional<VerticalBurn> vertical_burn(double speed_m_s, double to_shed_m_s, 
 }
 
 /// The miss of the burn in closed form, from the separation state on the descent: a coast in
-/// free fall under the gravity there, then a burn at constant thrust (the mass falling by the
-/// rocket equation; no drag, the speed taken as vertical) from the coasted speed to the end
-/// speed. Not the flown miss, but close to it by an offset that changes slowly along the
-/// descent (a metre or so, changing by millimetres a second on the samples): the solver corrects
-/// it by what the flights measure.
+/// free fall under the gravity there (the horizontal speed kept), then a burn at constant
+/// thrust (the mass falling by the rocket equation; no drag) from the coasted speed to the end
+/// speed, flown as if vertical and its height scaled by the sine of the path's angle at
+/// ignition (a burn against the velocity sheds the horizontal speed without losing height for
+/// it). Not the flown miss, but close to it by an offset that changes slowly along the descent
+/// (some metres, changing by centimetres a second on the samples, even where the descent is
+/// still oblique): the solver corrects it by what the flights measure.
 double modelled_miss(const FlightModel& model, const DenseTrajectory& descent, const BurnRequest& r,
                      double t_s) {
     const FlightState y = descent.state_at(t_s);
     const double g = model.body.gravity_m_s2(y[StateIndex::altitude]);
-    const double v = speed(y) + g * r.coast_s;
-    const double h =
-        y[StateIndex::altitude] - speed(y) * r.coast_s - 0.5 * g * r.coast_s * r.coast_s;
+    const double sink = -y[StateIndex::up_velocity] + g * r.coast_s;
+    const double h = y[StateIndex::altitude] + y[StateIndex::up_velocity] * r.coast_s -
+                     0.5 * g * r.coast_s * r.coast_s;
+    const double horizontal = horizontal_speed(y);
+    const double v = std::sqrt(horizontal * horizontal + sink * sink);
     const double braking = r.thrust_N / r.lander_mass_kg - g;
     const double target = r.site_elevation_m + r.end_height_above_site_m;
     if (!(braking > 0.0))
@@ -215,11 +219,12 @@ double modelled_miss(const FlightModel& model, const DenseTrajectory& descent, c
     const double to_shed = v - r.end_velocity_m_s;
     if (!(to_shed > 0.0))
         return h - target;
+    const double steepness = v > 0.0 ? sink / v : 1.0;
     const auto burn = vertical_burn(v, to_shed, r.thrust_N, r.lander_mass_kg,
                                     r.specific_impulse_s * standard_gravity_m_s2, g);
-    if (!burn)  // the constant-mass braking of the same thrust
-        return h - target - (v * v - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking);
-    return h - target - burn->height_m;
+    const double burn_height_m =
+        burn ? burn->height_m : (v * v - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking);
+    return h - target - steepness * burn_height_m;
 }
 
 /// The latest separation at which the modelled miss is largest: the burn the model likes best.
