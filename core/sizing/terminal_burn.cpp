@@ -246,6 +246,38 @@ double best_modelled_separation(const FlightModel& model, const DenseTrajectory&
     return best_t;
 }
 
+/// The root of a function falling through zero before `high` (where it is f_high < 0), no
+/// earlier than `floor`, by the secant method from `high` and a second point a second before it
+/// (or halfway to the floor), to `tolerance` of time. Empty when the secant leaves the interval,
+/// meets a rising slope or does not settle in a few steps: the caller then brackets the root.
+template <class F>
+std::optional<double> falling_root(F&& f, double floor, double high, double f_high,
+                                   double tolerance) {
+    constexpr double first_step_s = 1.0;
+    constexpr int most_steps = 12;
+    double x0 = high;
+    double f0 = f_high;
+    double x1 = std::max(floor, high - std::min(first_step_s, 0.5 * (high - floor)));
+    double f1 = f(x1);
+    for (int i = 0; i < most_steps; ++i) {
+        if (!(x1 < x0) && !(x1 > x0))
+            return std::nullopt;
+        const double slope = (f1 - f0) / (x1 - x0);
+        if (!(slope < 0.0))
+            return std::nullopt;  // not falling here: another root, or none
+        const double x2 = x1 - f1 / slope;
+        if (!(x2 >= floor && x2 < high))
+            return std::nullopt;
+        if (std::abs(x2 - x1) <= tolerance)
+            return x2;
+        x0 = x1;
+        f0 = f1;
+        x1 = x2;
+        f1 = f(x1);
+    }
+    return std::nullopt;
+}
+
 /// What the flights have shown of the miss against the separation time, after the modelled
 /// best: the latest separation known to stop in time (miss >= 0) and the earliest known to be
 /// too late (the latest separation until one is flown).
@@ -356,8 +388,15 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     // the flights bracket the solution within the tolerance. Without either after a few guided
     // flights, the Illinois method solves the flown miss itself from its bracket, or the search
     // walks back from the latest separation.
-    Bracket b{best_modelled_separation(model, descent, request, earliest, latest), std::nullopt,
-              latest, std::nullopt};
+    // Before a flight stops, the model's best separation bounds the search from below: found
+    // by sampling the model along the descent, only when the secant below does not close.
+    std::optional<double> best;
+    const auto best_t = [&] {
+        if (!best)
+            best = best_modelled_separation(model, descent, request, earliest, latest);
+        return *best;
+    };
+    Bracket b{earliest, std::nullopt, latest, std::nullopt};
     SeparationGuide own_guide;
     SeparationGuide& offsets = guide ? *guide : own_guide;
     // Where the guide says a flight of this solve that came too late would have stopped, it is
@@ -407,34 +446,47 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     for (int flight = 0; flight < most_guided_flights && !solved(); ++flight) {
         if (b.late_miss && b.width() <= tolerance)
             break;  // a bracket this narrow with no flight that stops: nothing to guide
-        const double low = b.stopping_miss ? b.stops_at + 0.25 * tolerance : b.stops_at;
         const double high = b.late_miss ? b.late - 0.25 * tolerance : latest;
-        if (!(high > low))
+        const double floor = b.stopping_miss ? b.stops_at + 0.25 * tolerance : earliest;
+        if (!(high > floor))
             break;
         own_offsets = b.late_miss && modelled(b.late) + offsets.at(b.late).offset_m >= 0.0;
-        const double at_low = corrected(low);
         const double at_high = corrected(high);
+        double low = floor;
         double t_next = high;  // the model stops even there: try it
-        if (!(at_low >= 0.0)) {
-            t_next = low;  // not even the best known stops, by the model: try it
-        } else if (at_high < 0.0) {
-            std::uintmax_t iterations = 100;
-            const auto close = [&](double x, double y) { return y - x <= 0.1 * tolerance; };
-            const double root = boost::math::tools::toms748_solve(corrected, low, high, at_low,
-                                                                  at_high, close, iterations)
-                                    .first;
-            // Aimed before the corrected model's solution, on the side that stops: by half the
-            // tolerance, or by what the offset may drift from the flights that measured it: a
-            // hundredth of the way from one flight (the offset drifts by some 1e-4 of the miss's
-            // own rate on the samples), 1e-4 of it from a line through two.
-            SeparationGuide::Estimate e = offsets.at(root);
-            if (own_offsets)
-                e = {0.0, SeparationGuide::Estimate::one, std::abs(root - own.back().first)};
-            const double drift_allowance = e.from == SeparationGuide::Estimate::one      ? 1e-2
-                                           : e.from == SeparationGuide::Estimate::beyond ? 1e-4
-                                                                                         : 0.0;
-            const double back_off = std::max(0.5 * tolerance, drift_allowance * e.distance_s);
-            t_next = std::max(low, root - back_off);
+        if (at_high < 0.0) {
+            // The corrected model's solution before `high`, by the secant from it (the model
+            // falls nearly linearly there), checked to fall through zero; otherwise TOMS 748
+            // from the best known (the model's best separation before a flight stops).
+            std::optional<double> root =
+                falling_root(corrected, floor, high, at_high, 0.1 * tolerance);
+            if (!root) {
+                low = b.stopping_miss ? floor : std::max(floor, best_t());
+                const double at_low = corrected(low);
+                if (!(at_low >= 0.0) || !(high > low)) {
+                    t_next = low;  // not even the best known stops, by the model: try it
+                } else {
+                    std::uintmax_t iterations = 100;
+                    const auto close = [&](double x, double y) { return y - x <= 0.1 * tolerance; };
+                    root = boost::math::tools::toms748_solve(corrected, low, high, at_low, at_high,
+                                                             close, iterations)
+                               .first;
+                }
+            }
+            if (root) {
+                // Aimed before the corrected model's solution, on the side that stops: by half the
+                // tolerance, or by what the offset may drift from the flights that measured it: a
+                // hundredth of the way from one flight (the offset drifts by some 1e-4 of the
+                // miss's own rate on the samples), 1e-4 of it from a line through two.
+                SeparationGuide::Estimate e = offsets.at(*root);
+                if (own_offsets)
+                    e = {0.0, SeparationGuide::Estimate::one, std::abs(*root - own.back().first)};
+                const double drift_allowance = e.from == SeparationGuide::Estimate::one      ? 1e-2
+                                               : e.from == SeparationGuide::Estimate::beyond ? 1e-4
+                                                                                             : 0.0;
+                const double back_off = std::max(0.5 * tolerance, drift_allowance * e.distance_s);
+                t_next = std::max(low, *root - back_off);
+            }
         }
         const bool bracket = b.stopping_miss && b.late_miss;
         if (bracket && bracketed && b.width() > 0.5 * *bracketed) {
