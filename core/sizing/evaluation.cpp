@@ -532,7 +532,8 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
 }
 
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
-                                              const Evaluation& e, double site_elevation_m) {
+                                              const Evaluation& e, double site_elevation_m,
+                                              SeparationGuide* guide) {
     if (design.terminal.method == TerminalMethod::supersonic_retro) {
         if (!e.burn)
             return std::nullopt;
@@ -595,7 +596,8 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         burn = solve_terminal_burn(
             model, d.record, request,
             flight_integrator_settings(design.solver.relative_tolerance,
-                                       static_cast<std::size_t>(design.solver.max_steps)));
+                                       static_cast<std::size_t>(design.solver.max_steps)),
+            nullptr, guide);
     }
     m.available_s = burn.ignition_time_s - d.deploy_time_s;
     m.margin_s = m.available_s - m.needed_s;

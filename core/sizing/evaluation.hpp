@@ -86,7 +86,9 @@ Evaluation evaluate(const Design& design, const FlightModel& model, double entry
 
 /// The timeline margin of an evaluation at a site elevation: time from parachute deploy to the
 /// start of the terminal burn (the touchdown for "none"), less the time the sequence needs.
-/// Negative also when the lander cannot stop in time there. Uses the evaluation's own descent.
+/// Negative also when the lander cannot stop in time there. Uses the evaluation's own descent;
+/// at another site than the design's, the burn is solved again, guided by `guide` when given
+/// (what the solves before it on this evaluation's descent measured; it gains this one's).
 /// For a powered descent from the entry (supersonic_retro, design's site only): the time from
 /// ignition to touchdown, less the ground-sensing lock the terminal descent needs.
 struct TimelineMargin {
@@ -95,7 +97,7 @@ struct TimelineMargin {
     double margin_s = 0.0;
 };
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
-                                              const Evaluation& evaluation,
-                                              double site_elevation_m);
+                                              const Evaluation& evaluation, double site_elevation_m,
+                                              SeparationGuide* guide = nullptr);
 
 }  // namespace ds

@@ -119,8 +119,11 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         return std::nullopt;
     }
     const Evaluation* e = &evaluation;
+    // The burn solves of the search share what their flights measure of the closed-form miss's
+    // error along the descent.
+    SeparationGuide guide;
     const auto margin_at = [&](double site) {
-        const auto m = timeline_margin(design, model, *e, site);
+        const auto m = timeline_margin(design, model, *e, site, &guide);
         return m ? m->margin_s : -std::numeric_limits<double>::infinity();
     };
     double low = design.site.elevation_m;
@@ -133,7 +136,7 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
             extend_descent(design, model, *deeper.descent, low);
             if (!deeper.descent->reached_floor)
                 return std::nullopt;
-            e = &deeper;
+            e = &deeper;  // the same descent, flown on: the guide holds on it
         }
         margin_low = margin_at(low);
         if (!(margin_low >= 0.0))

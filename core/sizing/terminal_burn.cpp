@@ -150,23 +150,81 @@ BurnAttempt attempt(const FlightModel& model, const DenseTrajectory& descent, co
     return fly_burn(model, r, settings, t_s, descent.state_at(t_s), history);
 }
 
+/// The burn time and the height it takes to shed `to_shed_m_s` falling vertically, at constant
+/// thrust under constant gravity with no drag, the mass falling as the propellant burns (the
+/// rocket equation, Tsiolkovsky): to_shed = c ln(m0 / m1) - g t with m1 = m0 - (T / c) t.
+struct VerticalBurn {
+    double time_s = 0.0;
+    double height_m = 0.0;
+};
+
+std::optional<VerticalBurn> vertical_burn(double speed_m_s, double to_shed_m_s, double thrust_N,
+                                          double mass_kg, double exhaust_m_s, double g) {
+    const double flow = thrust_N / exhaust_m_s;  // kg/s
+    // The constant-mass burn time is at or above the root of the convex, rising speed shed
+    // against time: Newton from it falls monotonically onto the root.
+    double t = to_shed_m_s / (thrust_N / mass_kg - g);
+    constexpr int most_iterations = 30;
+    for (int i = 0; i < most_iterations; ++i) {
+        const double left = mass_kg - flow * t;
+        if (!(left > 0.0))
+            return std::nullopt;  // burns more than it has: the model does not apply
+        const double shed = -exhaust_m_s * std::log1p(-flow * t / mass_kg) - g * t - to_shed_m_s;
+        const double step = shed / (thrust_N / left - g);
+        t -= step;
+        if (!(std::abs(step) > 1e-13 * t))
+            break;
+    }
+    // The speed at time s is v0 - c ln(m0 / m(s)) + g s; the integral of c ln(m0 / m(s)) over
+    // the burn is (T / m0) t^2 S(x), x = flow t / m0 (the share of the mass burned), with
+    // S(x) = sum over n >= 1 of x^(n-1) / (n (n + 1)) = (1 + (1 - x) ln(1 - x) / x) / x: summed
+    // for a small share, where the closed form cancels (a high specific impulse).
+    const double x = flow * t / mass_kg;
+    double share_sum = 0.0;
+    constexpr double series_below = 0.1;
+    if (x < series_below) {
+        double term = 1.0;
+        for (int n = 1; n < 40 && term > 1e-18; ++n) {
+            share_sum += term / (n * (n + 1.0));
+            term *= x;
+        }
+    } else {
+        share_sum = (1.0 + (1.0 - x) * std::log1p(-x) / x) / x;
+    }
+    return VerticalBurn{t,
+                        speed_m_s * t - thrust_N / mass_kg * t * t * share_sum + 0.5 * g * t * t};
+}
+
 /// The miss of the burn in closed form, from the separation state on the descent: a coast in
-/// free fall under the gravity there, then a constant deceleration T/m - g (no mass loss, no
-/// drag, the speed taken as vertical) from the coasted speed to the end speed. Not the flown
-/// miss, but close to it by a nearly constant offset along the descent: the solver corrects it
-/// by what the flights measure.
+/// free fall under the gravity there (the horizontal speed kept), then a burn at constant
+/// thrust (the mass falling by the rocket equation; no drag) from the coasted speed to the end
+/// speed, flown as if vertical and its height scaled by the sine of the path's angle at
+/// ignition (a burn against the velocity sheds the horizontal speed without losing height for
+/// it). Not the flown miss, but close to it by an offset that changes slowly along the descent
+/// (some metres, changing by centimetres a second on the samples, even where the descent is
+/// still oblique): the solver corrects it by what the flights measure.
 double modelled_miss(const FlightModel& model, const DenseTrajectory& descent, const BurnRequest& r,
                      double t_s) {
     const FlightState y = descent.state_at(t_s);
     const double g = model.body.gravity_m_s2(y[StateIndex::altitude]);
-    const double v = speed(y) + g * r.coast_s;
-    const double h =
-        y[StateIndex::altitude] - speed(y) * r.coast_s - 0.5 * g * r.coast_s * r.coast_s;
+    const double sink = -y[StateIndex::up_velocity] + g * r.coast_s;
+    const double h = y[StateIndex::altitude] + y[StateIndex::up_velocity] * r.coast_s -
+                     0.5 * g * r.coast_s * r.coast_s;
+    const double horizontal = horizontal_speed(y);
+    const double v = std::sqrt(horizontal * horizontal + sink * sink);
     const double braking = r.thrust_N / r.lander_mass_kg - g;
     const double target = r.site_elevation_m + r.end_height_above_site_m;
     if (!(braking > 0.0))
         return h - target - v * v;  // cannot brake: a miss that only falls with time
-    return h - target - (v * v - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking);
+    const double to_shed = v - r.end_velocity_m_s;
+    if (!(to_shed > 0.0))
+        return h - target;
+    const double steepness = v > 0.0 ? sink / v : 1.0;
+    const auto burn = vertical_burn(v, to_shed, r.thrust_N, r.lander_mass_kg,
+                                    r.specific_impulse_s * standard_gravity_m_s2, g);
+    const double burn_height_m =
+        burn ? burn->height_m : (v * v - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking);
+    return h - target - steepness * burn_height_m;
 }
 
 /// The latest separation at which the modelled miss is largest: the burn the model likes best.
@@ -188,20 +246,52 @@ double best_modelled_separation(const FlightModel& model, const DenseTrajectory&
     return best_t;
 }
 
+/// The root of a function falling through zero before `high` (where it is f_high < 0), no
+/// earlier than `floor`, by the secant method from `high` and a second point a second before it
+/// (or halfway to the floor), to `tolerance` of time. Empty when the secant leaves the interval,
+/// meets a rising slope or does not settle in a few steps: the caller then brackets the root.
+template <class F>
+std::optional<double> falling_root(F&& f, double floor, double high, double f_high,
+                                   double tolerance) {
+    constexpr double first_step_s = 1.0;
+    constexpr int most_steps = 12;
+    double x0 = high;
+    double f0 = f_high;
+    double x1 = std::max(floor, high - std::min(first_step_s, 0.5 * (high - floor)));
+    double f1 = f(x1);
+    for (int i = 0; i < most_steps; ++i) {
+        if (!(x1 < x0) && !(x1 > x0))
+            return std::nullopt;
+        const double slope = (f1 - f0) / (x1 - x0);
+        if (!(slope < 0.0))
+            return std::nullopt;  // not falling here: another root, or none
+        const double x2 = x1 - f1 / slope;
+        if (!(x2 >= floor && x2 < high))
+            return std::nullopt;
+        if (std::abs(x2 - x1) <= tolerance)
+            return x2;
+        x0 = x1;
+        f0 = f1;
+        x1 = x2;
+        f1 = f(x1);
+    }
+    return std::nullopt;
+}
+
 /// What the flights have shown of the miss against the separation time, after the modelled
 /// best: the latest separation known to stop in time (miss >= 0) and the earliest known to be
-/// too late.
+/// too late (the latest separation until one is flown).
 struct Bracket {
     double stops_at = 0.0;
     std::optional<double> stopping_miss;  ///< empty while no flight has stopped in time
     double late = 0.0;
-    double late_miss = 0.0;
+    std::optional<double> late_miss;  ///< empty while no flight has been too late
 
     void record(double t_s, double m) {
         if (m >= 0.0 && t_s >= stops_at) {
             stops_at = t_s;
             stopping_miss = m;
-        } else if (m < 0.0 && t_s < late) {
+        } else if (m < 0.0 && (!late_miss || t_s <= late)) {
             late = t_s;
             late_miss = m;
         }
@@ -237,10 +327,44 @@ std::optional<double> walk_back(const std::function<double(double)>& miss_at, do
 
 }  // namespace
 
+void SeparationGuide::add(double t_s, double offset_m, bool stopped) {
+    if (!stopped) {
+        if (stopped_.empty())
+            late_ = Point{t_s, offset_m};
+        return;
+    }
+    const auto at = std::lower_bound(stopped_.begin(), stopped_.end(), t_s,
+                                     [](const Point& p, double t) { return p.t_s < t; });
+    if (at != stopped_.end() && at->t_s == t_s)
+        return;  // flown already: the same flight
+    stopped_.insert(at, Point{t_s, offset_m});
+}
+
+SeparationGuide::Estimate SeparationGuide::at(double t_s) const {
+    if (stopped_.empty())
+        return {late_ ? late_->offset_m : 0.0, late_ ? Estimate::one : Estimate::none, 0.0};
+    if (stopped_.size() == 1) {
+        const Point& p = stopped_.front();
+        return {p.offset_m, Estimate::one, std::abs(t_s - p.t_s)};
+    }
+    // The two flights either side of t, or the two nearest on its one side.
+    const auto after = std::lower_bound(stopped_.begin(), stopped_.end(), t_s,
+                                        [](const Point& p, double t) { return p.t_s < t; });
+    const bool between = after != stopped_.begin() && after != stopped_.end();
+    const auto second = after == stopped_.begin() ? after + 1
+                        : after == stopped_.end() ? after - 1
+                                                  : after;
+    const auto first = second - 1;
+    const double slope = (second->offset_m - first->offset_m) / (second->t_s - first->t_s);
+    const double distance = std::min(std::abs(t_s - first->t_s), std::abs(t_s - second->t_s));
+    return {first->offset_m + (t_s - first->t_s) * slope,
+            between ? Estimate::between : Estimate::beyond, distance};
+}
+
 BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory& descent,
                                  const BurnRequest& request,
                                  const IntegratorSettings<flight_state_size>& settings,
-                                 std::vector<TrajectorySample>* history) {
+                                 std::vector<TrajectorySample>* history, SeparationGuide* guide) {
     const double earliest = descent.start_time();
     const auto latest_crossing = descent.time_descending_through(request.site_elevation_m);
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
@@ -256,70 +380,163 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     };
     const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
 
+    // The closed-form miss plus the offset the flights measured, solved on the descent record
+    // (no flight), gives the next separation to fly: the offset changes slowly along the
+    // descent, so each guided flight lands close to the solution, on the side that stops in
+    // time (it aims half the tolerance before the corrected model's solution, not at it). The solve
+    // ends on a flight that stops in time with a miss below what the tolerance moves it by, or once
+    // the flights bracket the solution within the tolerance. Without either after a few guided
+    // flights, the Illinois method solves the flown miss itself from its bracket, or the search
+    // walks back from the latest separation.
+    // Before a flight stops, the model's best separation bounds the search from below: found
+    // by sampling the model along the descent, only when the secant below does not close.
+    std::optional<double> best;
+    const auto best_t = [&] {
+        if (!best)
+            best = best_modelled_separation(model, descent, request, earliest, latest);
+        return *best;
+    };
+    Bracket b{earliest, std::nullopt, latest, std::nullopt};
+    SeparationGuide own_guide;
+    SeparationGuide& offsets = guide ? *guide : own_guide;
+    // Where the guide says a flight of this solve that came too late would have stopped, it is
+    // wrong here: the solve goes by its own flights' offsets, along the line through the last
+    // two (a secant on the offset).
+    std::vector<std::pair<double, double>> own;  // (t, offset) of this solve's flights
+    bool own_offsets = false;
+    const auto own_offset = [&](double t_s) {
+        const auto [t1, o1] = own.back();
+        if (own.size() < 2 || own[own.size() - 2].first == t1)
+            return o1;
+        const auto [t0, o0] = own[own.size() - 2];
+        return o1 + (t_s - t1) * (o1 - o0) / (t1 - t0);
+    };
+    const auto corrected = [&](double t_s) {
+        return modelled(t_s) + (own_offsets ? own_offset(t_s) : offsets.at(t_s).offset_m);
+    };
+    // How fast the corrected miss falls with the separation time, by a central difference
+    // (a millisecond: small against the descent, large against rounding).
+    const auto falling_rate = [&](double t_s) {
+        constexpr double step_s = 1e-3;
+        const double low = std::max(earliest, t_s - step_s);
+        const double high = std::min(latest, t_s + step_s);
+        return high > low ? (corrected(low) - corrected(high)) / (high - low) : 0.0;
+    };
+    // Done: a flight stopped in time so little above the target that the solution lies within
+    // the tolerance after it (or the bracket is that narrow, or the latest separation stops).
+    const auto solved = [&] {
+        if (!b.stopping_miss)
+            return false;
+        if (b.stops_at >= latest || (b.late_miss && b.width() <= tolerance))
+            return true;
+        return *b.stopping_miss <= falling_rate(b.stops_at) * tolerance;
+    };
+    const auto fly = [&](double t_s) {
+        const double m = flown_miss(t_s);
+        b.record(t_s, m);
+        const double offset_m = m - modelled(t_s);
+        offsets.add(t_s, offset_m, m >= 0.0);
+        own.emplace_back(t_s, offset_m);
+        return m;
+    };
+
     std::optional<double> t_solution;
-    const double miss_latest = flown_miss(latest);
-    if (miss_latest >= 0.0) {
-        t_solution = latest;
-    } else {
-        // The closed-form miss plus the offset the last flight measured, solved on the descent
-        // record (no flight), gives the next separation to fly: the offset changes slowly
-        // along the descent, so two such flights land either side of the solution, close to
-        // it. From a bracket of flown misses, the Illinois method solves the flown miss itself.
-        // Without one after a few guided flights, the search walks back from the latest
-        // separation.
-        Bracket b{best_modelled_separation(model, descent, request, earliest, latest), std::nullopt,
-                  latest, miss_latest};
-        double offset = miss_latest - modelled(latest);
-        constexpr int guided_flights = 2;
-        constexpr int most_guided_flights = 4;
-        for (int flight = 0; flight < most_guided_flights && b.width() > tolerance; ++flight) {
-            if (flight >= guided_flights && b.stopping_miss)
-                break;
-            const auto corrected = [&](double t_s) { return modelled(t_s) + offset; };
-            const double at_low = corrected(b.stops_at);
-            const double at_high = corrected(b.late);
-            double t_next = 0.5 * (b.stops_at + b.late);
-            if (!(at_low >= 0.0) && !b.stopping_miss) {
-                t_next = b.stops_at;  // not even the best separation stops, by the model: try it
-            } else if (at_low >= 0.0 && at_high < 0.0) {
-                std::uintmax_t iterations = 100;
-                const auto close = [&](double x, double y) { return y - x <= 0.1 * tolerance; };
-                t_next = boost::math::tools::toms748_solve(corrected, b.stops_at, b.late, at_low,
-                                                           at_high, close, iterations)
-                             .first;
-                t_next =
-                    std::clamp(t_next, b.stops_at + 0.25 * tolerance, b.late - 0.25 * tolerance);
+    constexpr int most_guided_flights = 6;
+    std::optional<double> bracketed;  // the bracket's width before the last flight
+    for (int flight = 0; flight < most_guided_flights && !solved(); ++flight) {
+        if (b.late_miss && b.width() <= tolerance)
+            break;  // a bracket this narrow with no flight that stops: nothing to guide
+        const double high = b.late_miss ? b.late - 0.25 * tolerance : latest;
+        const double floor = b.stopping_miss ? b.stops_at + 0.25 * tolerance : earliest;
+        if (!(high > floor))
+            break;
+        own_offsets = b.late_miss && modelled(b.late) + offsets.at(b.late).offset_m >= 0.0;
+        const double at_high = corrected(high);
+        double low = floor;
+        double t_next = high;  // the model stops even there: try it
+        if (at_high < 0.0) {
+            // The corrected model's solution before `high`, by the secant from it (the model
+            // falls nearly linearly there), checked to fall through zero; otherwise TOMS 748
+            // from the best known (the model's best separation before a flight stops).
+            std::optional<double> root =
+                falling_root(corrected, floor, high, at_high, 0.1 * tolerance);
+            if (!root) {
+                low = b.stopping_miss ? floor : std::max(floor, best_t());
+                const double at_low = corrected(low);
+                if (!(at_low >= 0.0) || !(high > low)) {
+                    t_next = low;  // not even the best known stops, by the model: try it
+                } else {
+                    std::uintmax_t iterations = 100;
+                    const auto close = [&](double x, double y) { return y - x <= 0.1 * tolerance; };
+                    root = boost::math::tools::toms748_solve(corrected, low, high, at_low, at_high,
+                                                             close, iterations)
+                               .first;
+                }
             }
-            const double m = flown_miss(t_next);
-            b.record(t_next, m);
-            if (t_next == b.late && !b.stopping_miss)
-                break;  // the best separation fails too
-            offset = m - modelled(t_next);
+            if (root) {
+                // Aimed before the corrected model's solution, on the side that stops: by half the
+                // tolerance, or by what the offset may drift from the flights that measured it: a
+                // hundredth of the way from one flight (the offset drifts by some 1e-4 of the
+                // miss's own rate on the samples), 1e-4 of it from a line through two.
+                SeparationGuide::Estimate e = offsets.at(*root);
+                if (own_offsets)
+                    e = {0.0, SeparationGuide::Estimate::one, std::abs(*root - own.back().first)};
+                const double drift_allowance = e.from == SeparationGuide::Estimate::one      ? 1e-2
+                                               : e.from == SeparationGuide::Estimate::beyond ? 1e-4
+                                                                                             : 0.0;
+                const double back_off = std::max(0.5 * tolerance, drift_allowance * e.distance_s);
+                t_next = std::max(low, *root - back_off);
+            }
         }
-        if (b.stopping_miss) {
-            t_solution = illinois_last_nonnegative(flown_miss, b.stops_at, *b.stopping_miss, b.late,
-                                                   b.late_miss, tolerance);
-        } else {
-            t_solution = walk_back(flown_miss, earliest, b.late, b.late_miss, tolerance);
+        const bool bracket = b.stopping_miss && b.late_miss;
+        if (bracket && bracketed && b.width() > 0.5 * *bracketed) {
+            // The last guided flight did not halve the bracket (the model is poor here: an
+            // oblique, fast descent): halve it.
+            t_next = 0.5 * (b.stops_at + b.late);
+        } else if (bracket && (t_next <= low || t_next >= high)) {
+            // The model disagrees with the bracket the flights made: the secant across it.
+            const double s = *b.stopping_miss / (*b.stopping_miss - *b.late_miss);
+            t_next = std::clamp(b.stops_at + s * b.width(), low, high);
         }
+        if (bracket)
+            bracketed = b.width();
+        const double m = fly(t_next);
+        if (m < 0.0 && !b.stopping_miss && t_next == low)
+            break;  // the best separation fails too
+    }
+    if (b.stopping_miss && !b.late_miss && !solved()) {
+        const double m = flown_miss(latest);  // the side too late, not flown yet
+        b.record(latest, m);
+    }
+    if (solved()) {
+        t_solution = b.stops_at;
+    } else if (b.stopping_miss && b.late_miss) {
+        t_solution = illinois_last_nonnegative(flown_miss, b.stops_at, *b.stopping_miss, b.late,
+                                               *b.late_miss, tolerance);
+    } else if (!b.stopping_miss) {
+        const double late_miss = b.late_miss ? *b.late_miss : flown_miss(latest);
+        if (late_miss >= 0.0)
+            t_solution = latest;
+        else
+            t_solution = walk_back(flown_miss, earliest, b.late, late_miss, tolerance);
     }
     const double t_solved = t_solution.value_or(earliest);
     const auto kept = std::find_if(flown.begin(), flown.end(), [&](const BurnAttempt& a) {
         return a.burn.separation_time_s == t_solved;
     });
     std::size_t attempts = flown.size();
-    BurnAttempt solved;
+    BurnAttempt solved_attempt;
     if (!history && kept != flown.end()) {
-        solved = *kept;
+        solved_attempt = *kept;
     } else {
-        solved = attempt(model, descent, request, settings, t_solved, history);
-        evaluations += solved.burn.evaluations;
+        solved_attempt = attempt(model, descent, request, settings, t_solved, history);
+        evaluations += solved_attempt.burn.evaluations;
         ++attempts;
     }
-    solved.burn.stops_in_time = t_solution.has_value() && solved.reached_velocity;
-    solved.burn.attempts = attempts;
-    solved.burn.evaluations = evaluations;
-    return solved.burn;
+    solved_attempt.burn.stops_in_time = t_solution.has_value() && solved_attempt.reached_velocity;
+    solved_attempt.burn.attempts = attempts;
+    solved_attempt.burn.evaluations = evaluations;
+    return solved_attempt.burn;
 }
 
 ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& request,

@@ -1,5 +1,6 @@
 #pragma once
 
+#include <optional>
 #include <vector>
 
 #include "flight/phase.hpp"
@@ -62,10 +63,6 @@ struct BurnSolution {
     std::size_t evaluations = 0;
 };
 
-/// Finds the latest separation time along the descent under the canopy at which a
-/// constant-thrust burn against the velocity, after the coast, ends at the requested velocity
-/// at the requested height above the site (TOMS 748 on the separation time). With `history`, the
-/// solved coast and burn are appended to it.
 /// The stage that burns as the request asks: its drag devices, its thrust (at its throttle),
 /// specific impulse and C_T's reference area; thrust against the velocity over the ground.
 Stage burn_stage(const BurnRequest& request);
@@ -86,10 +83,46 @@ BurnAttempt fly_burn(const FlightModel& model, const BurnRequest& request,
 /// (m/s) times one second.
 double burn_miss(const BurnAttempt& attempt, const BurnRequest& request);
 
+/// What the flights of separation solves on one descent have measured of the closed-form
+/// miss's error (the flown miss less the modelled one, along the separation time), for the
+/// solves that follow on the same descent with the same lander, burn and end (at another site:
+/// the error does not depend on the site). A flight too late measures it only until one stops in
+/// time (it ends at the ground, where the miss counts its excess speed instead).
+class SeparationGuide {
+public:
+    void add(double t_s, double offset_m, bool stopped);
+
+    struct Estimate {
+        double offset_m = 0.0;
+        /// What it is made from: nothing, one flight, a line through two flights on the same
+        /// side of the time, or between two.
+        enum From { none, one, beyond, between } from = none;
+        double distance_s = 0.0;  ///< to the nearest flight that stopped in time
+    };
+    Estimate at(double t_s) const;
+
+private:
+    struct Point {
+        double t_s = 0.0;
+        double offset_m = 0.0;
+    };
+    std::vector<Point> stopped_;  ///< in time order
+    std::optional<Point> late_;
+};
+
+/// Finds the latest separation time along the descent under the canopy at which a
+/// constant-thrust burn against the velocity, after the coast, ends at the requested velocity
+/// at the requested height above the site, to the request's tolerance. Each flight is guided by the
+/// closed-form miss (a free-fall coast, then a vertical burn at constant thrust by the rocket
+/// equation, without drag) corrected by what the flights measured; the Illinois method on the flown
+/// miss where that does not close. With `guide`, the solve starts from what earlier solves on the
+/// same descent measured, and adds its own flights to it. With `history`, the solved coast and burn
+/// are appended to it.
 BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory& descent,
                                  const BurnRequest& request,
                                  const IntegratorSettings<flight_state_size>& settings,
-                                 std::vector<TrajectorySample>* history = nullptr);
+                                 std::vector<TrajectorySample>* history = nullptr,
+                                 SeparationGuide* guide = nullptr);
 
 /// A powered descent lit at a point of the entry (supersonic retro-propulsion): the throttle
 /// between min_throttle and the request's (the most the design flies) that ends the burn at the

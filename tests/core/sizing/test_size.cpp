@@ -9,6 +9,7 @@
 #include "design/reader.hpp"
 #include "results/key_figures.hpp"
 #include "sizing/environment.hpp"
+#include "sizing/evaluation.hpp"
 #include "sizing/size.hpp"
 #include "support/preset_body.hpp"
 #include "support/results_lookup.hpp"
@@ -447,4 +448,44 @@ TEST_CASE("the history's sensed deceleration adds the thrust over the weight dur
         CHECK(added <= 1.0 / m_end * (1.0 + 1e-9));
     }
     CHECK(burning >= 3);
+}
+
+TEST_CASE("a weak burn finds the separation that stops in time on an oblique descent") {
+    // The rover carrier at a thrust-to-weight of 1.3 with a 2 s coast, its burn solved for a
+    // site 1,020 m above its own (-1,480 m): separating some 45 s after deploy (at 108 m/s,
+    // 59 deg below the horizon), the lander still stops, at the tether's 7.5 m above the site
+    // at 0.75 m/s, and the timeline margin falls smoothly with the site. (The solve before this
+    // round, guided by a vertical model far off on this oblique descent, then walking back
+    // from it in doubling steps, missed the stretch that stops and said it could not: a margin
+    // of -396 s.)
+    ds::Design d = sample("lifting-rover-carrier");
+    d.terminal.thrust_to_weight = 1.3;
+    d.sequence.separation_coast_s = 2.0;
+    const ds::FlightEnvironment environment = ds::make_environment(d);
+    const ds::FlightModel model = environment.model();
+    const ds::Results sized = ds::size_design(d, {.capability = false, .history = false});
+    const ds::Evaluation e = ds::evaluate(d, model, sized.entry.mass_kg, false);
+    REQUIRE(e.descent);
+    REQUIRE(e.burn_request);
+    ds::BurnRequest request = *e.burn_request;
+    request.site_elevation_m = -1480.0;
+    const ds::BurnSolution burn = ds::solve_terminal_burn(
+        model, e.descent->record, request,
+        ds::flight_integrator_settings(d.solver.relative_tolerance,
+                                       static_cast<std::size_t>(d.solver.max_steps)));
+    REQUIRE(burn.stops_in_time);
+    CHECK(burn.end_state[ds::StateIndex::altitude] ==
+          doctest::Approx(-1480.0 + 7.5).epsilon(1e-3 / 1472.5));
+    CHECK(ds::speed(burn.end_state) == doctest::Approx(0.75).epsilon(1e-6));
+    // The margin against the site: positive at -1,480 m, falling by some 1.2 to 1.4 s per 60 m
+    // (about 1 / v of the descent there), with no jump to "cannot stop" on the way.
+    double previous = ds::timeline_margin(d, model, e, -1600.0)->margin_s;
+    for (double site = -1540.0; site <= -1420.0; site += 60.0) {
+        CAPTURE(site);
+        const double margin = ds::timeline_margin(d, model, e, site)->margin_s;
+        CHECK(margin < previous);
+        CHECK(previous - margin < 2.0);
+        previous = margin;
+    }
+    CHECK(ds::timeline_margin(d, model, e, -1480.0)->margin_s > 0.0);
 }

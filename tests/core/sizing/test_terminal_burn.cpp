@@ -158,3 +158,28 @@ TEST_CASE("the separation is solved to its tolerance, the latest that stops in t
         CHECK(t >= reference - 1.5 * tolerance);
     }
 }
+
+TEST_CASE("a solve guided by an earlier one on the same descent finds the same separation") {
+    // The closed-form miss's error does not depend on the site: what a solve at one site
+    // measured guides the solve at another, which must still find the separation the unguided
+    // solve finds (both are solved to 1e-6 s), in no more flights.
+    const VerticalDrop drop;
+    ds::BurnRequest r = request(2.5 * g, 300.0);
+    r.coast_s = 1.0;
+    ds::SeparationGuide guide;
+    const ds::BurnSolution first =
+        ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings(), nullptr, &guide);
+    REQUIRE(first.stops_in_time);
+    r.site_elevation_m = 800.0;
+    const ds::BurnSolution unguided =
+        ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings());
+    const ds::BurnSolution guided =
+        ds::solve_terminal_burn(drop.model(), drop.record, r, drop.settings(), nullptr, &guide);
+    REQUIRE(unguided.stops_in_time);
+    REQUIRE(guided.stops_in_time);
+    CHECK(std::abs(guided.separation_time_s - unguided.separation_time_s) <= 1e-6);
+    CHECK(guided.attempts <= unguided.attempts);
+    // Both end on target: 800 m up at 2 m/s, to what a microsecond of separation moves them.
+    CHECK(std::abs(guided.end_state[ds::StateIndex::altitude] - 800.0) < 0.01);
+    CHECK(std::abs(ds::speed(guided.end_state) - 2.0) < 0.05);
+}
