@@ -796,6 +796,7 @@ ChartsView::ChartsView(QWidget* parent) : QWidget(parent) {
     cornerLayout->addWidget(reset);
     m_pages->setCornerWidget(corner, Qt::BottomRightCorner);
     connect(m_scaleChoice, &QComboBox::currentIndexChanged, this, [this] { redraw(); });
+    connect(m_pages, &QTabWidget::currentChanged, this, [this] { drawShown(); });
     connect(reset, &QPushButton::clicked, this, [this] {
         for (ChartView* view : views())
             view->resetZoom();
@@ -820,8 +821,6 @@ void ChartsView::setResults(const Design& design, const Results& results, const 
 void ChartsView::redraw() {
     if (!m_results || !m_design)
         return;
-    const Results& results = *m_results;
-    const Results* baseline = m_baseline ? &*m_baseline : nullptr;
     switch (m_scaleChoice->currentIndex()) {
         case 1:
             m_scale = TimeScale::linear;
@@ -830,7 +829,7 @@ void ChartsView::redraw() {
             m_scale = TimeScale::logarithmic;
             break;
         default:
-            m_scale = suggestedTimeScale(results);
+            m_scale = suggestedTimeScale(*m_results);
     }
     // A change of scale moves every point of the time charts: their zoom starts afresh.
     const bool rescaled = m_loads->property("ds.timeScale").isValid() &&
@@ -840,13 +839,40 @@ void ChartsView::redraw() {
         m_machPressure->resetZoom();
     }
     m_loads->setProperty("ds.timeScale", static_cast<int>(m_scale));
-    m_altitudeVelocity->replaceChart(altitudeVelocityChart(results, baseline).release());
-    m_loads->replaceChart(loadsChart(results, baseline, m_scale).release());
-    m_machPressure->replaceChart(
-        machPressureChart(*m_design, results, baseline, m_scale).release());
-    m_mass->replaceChart(massWaterfallChart(results).release());
-    m_groundTrack->replaceChart(groundTrackChart(results, baseline).release());
-    m_burn->replaceChart(burnChart(results, baseline).release());
+    m_drawn.clear();
+    drawShown();
+}
+
+void ChartsView::drawShown() {
+    if (!m_results || !m_design)
+        return;
+    // The window's other tab (the trade study) hides the whole view: nothing is drawn until it
+    // shows again. A view that was never shown (a test's) draws its current page.
+    if (isHidden() || (window()->isVisible() && !isVisible()))
+        return;
+    const Results& results = *m_results;
+    const Results* baseline = m_baseline ? &*m_baseline : nullptr;
+    const std::pair<ChartView*, std::function<std::unique_ptr<QChart>()>> charts[] = {
+        {m_altitudeVelocity, [&] { return altitudeVelocityChart(results, baseline); }},
+        {m_loads, [&] { return loadsChart(results, baseline, m_scale); }},
+        {m_machPressure, [&] { return machPressureChart(*m_design, results, baseline, m_scale); }},
+        {m_mass, [&] { return massWaterfallChart(results); }},
+        {m_groundTrack, [&] { return groundTrackChart(results, baseline); }},
+        {m_burn, [&] { return burnChart(results, baseline); }},
+    };
+    // Only the page on show: the others are drawn when their tab is chosen (a third of the
+    // charts an edit would build for nothing).
+    for (const auto& [view, build] : charts) {
+        if (view->isVisibleTo(this) && !m_drawn.contains(view)) {
+            view->replaceChart(build().release());
+            m_drawn.insert(view);
+        }
+    }
+}
+
+void ChartsView::showEvent(QShowEvent* event) {
+    QWidget::showEvent(event);
+    drawShown();
 }
 
 }  // namespace ds

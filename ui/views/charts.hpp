@@ -4,6 +4,7 @@
 #include <optional>
 
 #include <QImage>
+#include <QSet>
 #include <QSize>
 #include <QWidget>
 
@@ -63,8 +64,14 @@ public:
     /// Every chart, for tests.
     QList<ChartView*> views() const;
 
+protected:
+    void showEvent(QShowEvent* event) override;
+
 private:
+    /// Draws the charts again from the results kept (a new time scale, new results).
     void redraw();
+    /// Draws the charts on show that are not drawn from the results kept.
+    void drawShown();
 
     ChartView* m_altitudeVelocity;
     ChartView* m_loads;
@@ -79,6 +86,7 @@ private:
     std::optional<Design> m_design;
     std::optional<Results> m_results;
     std::optional<Results> m_baseline;
+    QSet<ChartView*> m_drawn;  ///< the views drawn from the results kept
 };
 
 }  // namespace ds
