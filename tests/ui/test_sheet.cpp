@@ -23,6 +23,7 @@
 #include <QScatterSeries>
 #include <QSet>
 #include <QStackedBarSeries>
+#include <QTabWidget>
 #include <QTemporaryDir>
 #include <QTest>
 #include <QTextBlock>
@@ -37,6 +38,7 @@
 #include "support/full_disk.hpp"
 #include "support/history_columns.hpp"
 #include "verification/reference_cases.hpp"
+#include "views/chart_view.hpp"
 #include "views/charts.hpp"
 
 using namespace ds;
@@ -745,7 +747,14 @@ private slots:
         QList<QPointer<QChart>> before;
         for (QChartView* chartView : views)
             before << QPointer<QChart>(chartView->chart());
+        const QPointer<QChart> groundTrackBefore(view.views()[4]->chart());
         view.setResults(m_design, m_results, nullptr);
+        // The page on show is drawn at once, the others when their tab is chosen.
+        auto* pages = view.findChild<QTabWidget*>(QStringLiteral("flightPages"));
+        QVERIFY(pages);
+        QVERIFY(!groundTrackBefore.isNull());  // the ground track's page is not on show yet
+        for (int page = 1; page < pages->count(); ++page)
+            pages->setCurrentIndex(page);
         for (const QPointer<QChart>& chart : before)
             QVERIFY(chart.isNull());
         for (QChartView* chartView : views) {

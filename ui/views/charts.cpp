@@ -847,8 +847,8 @@ void ChartsView::drawShown() {
     if (!m_results || !m_design)
         return;
     // The window's other tab (the trade study) hides the whole view: nothing is drawn until it
-    // shows again. A view that was never shown (a test's) draws its current page.
-    if (isHidden() || (window()->isVisible() && !isVisible()))
+    // shows again. A window not shown yet (or a test's view) draws its current page.
+    if (window()->isVisible() && !isVisible())
         return;
     const Results& results = *m_results;
     const Results* baseline = m_baseline ? &*m_baseline : nullptr;
