@@ -97,6 +97,7 @@ MainWindow::MainWindow(QWidget* parent)
             tr("Autosave failed: %1. Save the design to keep the edits.").arg(error), fileNoteMs);
     });
     connect(m_form, &DesignForm::refusalsChanged, this, &MainWindow::updateStatus);
+    connect(m_runner, &SizingRunner::busyChanged, this, &MainWindow::updateStatus);
     connect(m_checks, &ChecksView::fieldRequested, this,
             [this](const QString& pointer) { m_form->focusField(pointer.toStdString()); });
 
@@ -323,7 +324,6 @@ void MainWindow::clearBaseline() {
 void MainWindow::documentChanged() {
     if (const auto& design = m_document->design()) {
         m_runner->request(*design);
-        m_sizing = true;
     }
     m_dropUnused->setEnabled(!m_document->unusedKeys().isEmpty());
     updateStatus();
@@ -337,7 +337,6 @@ void MainWindow::showResults() {
     m_checks->setResults(r);
     m_charts->setResults(m_runner->design(), r, baseline);
     m_lastEditToRedrawMs = m_runner->lastLatencyMs();
-    m_sizing = false;
     updateStatus();
     emit resultsShown();
 }
@@ -364,7 +363,7 @@ void MainWindow::updateStatus() {
                "results shown are of the last design that read."));
         return;
     }
-    if (m_sizing || !m_runner->hasResults()) {
+    if (m_runner->isBusy() || !m_runner->hasResults()) {  // an edit newer than the results
         m_status->setText(tr("Sizing..."));
         return;
     }

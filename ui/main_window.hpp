@@ -110,7 +110,6 @@ private:
     Settings m_settings;
     RecoveryPrompt m_recoveryPrompt;
     qint64 m_lastEditToRedrawMs = 0;
-    bool m_sizing = false;  ///< a sizing was asked for and its results are not shown yet
 };
 
 }  // namespace ds

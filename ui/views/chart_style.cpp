@@ -35,15 +35,16 @@ constexpr double legendMarkerHeights = 3.5;
 constexpr const char* fullTextProperty = "ds.fullText";
 constexpr const char* shortTextProperty = "ds.shortText";
 
+/// An axis end rounded out to a tick may leave this fraction of the span empty, no more.
+constexpr double roundingWasteFraction = 0.1;
+constexpr double axisPadFraction = 0.02;
+
 /// The full form of an axis title or a series name, remembered the first time it is fitted.
 QString fullText(QObject* object, const QString& shown) {
     if (!object->property(fullTextProperty).isValid())
         object->setProperty(fullTextProperty, shown);
     return object->property(fullTextProperty).toString();
 }
-/// An axis end rounded out to a tick may leave this fraction of the span empty, no more.
-constexpr double roundingWasteFraction = 0.1;
-constexpr double axisPadFraction = 0.02;
 
 }  // namespace
 
@@ -195,9 +196,11 @@ void fitTexts(QChart* chart) {
     for (QLegendMarker* marker : legend->markers()) {
         if (!marker->isVisible())
             continue;
+        // A series with a short name is measured by its full one; any other entry (a bar set
+        // of a bar series) by its label.
         QAbstractSeries* series = marker->series();
-        const QString full = fullText(series, series->name());
         const QString brief = series->property(shortTextProperty).toString();
+        const QString full = brief.isEmpty() ? marker->label() : fullText(series, series->name());
         fullWidth += metrics.horizontalAdvance(full) + entry;
         shortWidth += metrics.horizontalAdvance(brief.isEmpty() ? full : brief) + entry;
         if (!brief.isEmpty())
