@@ -29,6 +29,7 @@
 #include <QTextBlock>
 #include <QTextDocument>
 #include <QTextLayout>
+#include <QUrl>
 
 #include "design/reader.hpp"
 #include "results/caution.hpp"
@@ -361,6 +362,32 @@ private slots:
             QCOMPARE(sheet::keepHeadingsWithWhatFollows(document), 0);
             QCOMPARE(document.pageCount(), pages);
         }
+        // A heading over a chart that does not fit under it: the chart's line goes to the next
+        // page, and the heading with it.
+        QTextDocument charts;
+        charts.setDefaultFont(sheet::sheetFont());
+        QImage image(200, 300, QImage::Format_RGB32);
+        image.fill(Qt::white);
+        charts.addResource(QTextDocument::ImageResource, QUrl(QStringLiteral("chart.png")), image);
+        QString html;
+        for (int i = 0; i < 20; ++i)
+            html += QStringLiteral("<p>Filler line %1.</p>").arg(i);
+        html += QStringLiteral(
+            "<h3>Charts</h3><p><img src=\"chart.png\" width=\"200\" "
+            "height=\"300\"></p>");
+        charts.setHtml(html);
+        charts.setPageSize(QSizeF(500.0, 1.0e6));
+        QTextBlock heading = charts.begin();
+        while (heading.isValid() && heading.blockFormat().headingLevel() == 0)
+            heading = heading.next();
+        QVERIFY(heading.isValid());
+        const double pageHeight =
+            charts.documentLayout()->blockBoundingRect(heading).bottom() + 100;
+        charts.setPageSize(QSizeF(500.0, pageHeight));
+        QCOMPARE(sheet::keepHeadingsWithWhatFollows(charts), 1);
+        QCOMPARE(static_cast<int>(charts.documentLayout()->blockBoundingRect(heading).top() /
+                                  pageHeight),
+                 1);
     }
 
     void unknownExtensionIsRefusedAndWritesNothing() {

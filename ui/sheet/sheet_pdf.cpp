@@ -12,6 +12,7 @@
 #include <QTextBlock>
 #include <QTextCursor>
 #include <QTextDocument>
+#include <QTextLayout>
 #include <QTextTable>
 #include <QUrl>
 
@@ -61,11 +62,13 @@ int keepHeadingsWithWhatFollows(QTextDocument& document) {
         const QTextBlock next = block.next();
         if (!next.isValid())
             continue;
-        const QRectF following = [&] {
-            if (QTextTable* table = QTextCursor(next).currentTable())
-                return layout->frameBoundingRect(table);
-            return layout->blockBoundingRect(next);
-        }();
+        QRectF following = layout->blockBoundingRect(next);
+        if (QTextTable* table = QTextCursor(next).currentTable())
+            following = layout->frameBoundingRect(table);
+        else if (next.layout() && next.layout()->lineCount() > 0)
+            // A line that does not fit (an image's) is moved down to the next page, and the
+            // block's top stays behind it: where its first line stands is what counts.
+            following.setTop(following.top() + next.layout()->lineAt(0).y());
         const bool followsOnNextPage = following.top() >= pageTop + pageHeight;
         const double needed = std::min(leastHeadedHeight, following.height());
         if (followsOnNextPage || roomBelow < needed) {
