@@ -476,6 +476,21 @@ private slots:
         QVERIFY(radius->isRefused());
         QCOMPARE(document.value("/body/radius_m").get<double>(), 3.0e6);
 
+        // A body of one's own with a preset's standard atmosphere: the atmosphere becomes a
+        // table of itself in the same edit, so the design still reads and flies the same air.
+        QVERIFY(document.open(
+            QStringLiteral(DESCENT_SIZER_SAMPLES_DIR "/earth-return-capsule.json"), &error));
+        QVERIFY(document.value("/atmosphere/model") == Json("standard"));
+        const double interface = document.design()->entry.interface_altitude_m;
+        body->setCurrentIndex(body->count() - 1);
+        emit body->activated(body->count() - 1);
+        QVERIFY(document.value("/body").is_object());
+        QVERIFY(document.value("/atmosphere/model") == Json("table"));
+        QVERIFY2(document.design().has_value(),
+                 document.errors().empty() ? "" : document.errors().front().text().c_str());
+        QCOMPARE(document.value("/atmosphere/rows").back()["altitude_m"].get<double>(), interface);
+        QCOMPARE(document.undoStack()->count(), 1);
+
         body->setCurrentIndex(0);
         emit body->activated(0);
         QVERIFY(document.value("/body").is_string());

@@ -7,6 +7,7 @@
 
 #include "body/body.hpp"
 #include "model/design_document.hpp"
+#include "views/atmosphere_table.hpp"
 #include "views/quantity_edit.hpp"
 #include "views/wheel_guard.hpp"
 
@@ -137,8 +138,15 @@ void BodyEditor::choose(int index) {
     // From the preset the design had (Mars when it had none the reader knows).
     const std::optional<Body> preset =
         body_preset(body.is_string() ? body.get<std::string>() : std::string("mars"));
-    m_document->setValue("/body", customFrom(preset ? *preset : *body_preset("mars")),
-                         tr("Describe a body of your own"));
+    std::vector<std::pair<std::string, Json>> values{
+        {"/body", customFrom(preset ? *preset : *body_preset("mars"))}};
+    // A preset's standard atmosphere has no meaning for a body of one's own: it becomes a
+    // table of itself, sampled from the site to the interface, in the same edit.
+    if (m_document->value("/atmosphere/model") == Json("standard")) {
+        values.emplace_back("/atmosphere/model", "table");
+        values.emplace_back("/atmosphere/rows", AtmosphereTable::startingRows(*m_document));
+    }
+    m_document->setValues(values, tr("Describe a body of your own"));
 }
 
 void BodyEditor::refresh() {

@@ -19,9 +19,10 @@ class QuantityEdit;
 
 /// The design's body: a preset by name, or a body of the user's own ("custom") with its name,
 /// radius, gravitational parameter, rotation and gas, each a field. Choosing "custom" starts
-/// from the preset chosen before (its constants copied); choosing a preset again replaces the
-/// custom body. Every change is one undoable edit of the document. It adds its rows to the
-/// form it is given: the choice, and under it the custom body's fields (shown only for one).
+/// from the preset chosen before (its constants copied, and its standard atmosphere, which
+/// only a preset has, as a table of itself); choosing a preset again replaces the custom body.
+/// Every change is one undoable edit of the document. It adds its rows to the form it is given: the
+/// choice, and under it the custom body's fields (shown only for one).
 class BodyEditor : public QObject {
     Q_OBJECT
 public:
