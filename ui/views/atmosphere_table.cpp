@@ -47,6 +47,7 @@ AtmosphereTable::AtmosphereTable(DesignDocument* document, QWidget* parent)
     fileRow->setContentsMargins(0, 0, 0, 0);
     m_fileName = new QLabel(m_fromFile);
     m_fileName->setWordWrap(true);
+    m_fileName->setTextFormat(Qt::PlainText);  // a file's name as it is
     auto* copy = new QPushButton(tr("Edit here"), m_fromFile);
     copy->setObjectName(QStringLiteral("copyAtmosphereFileIn"));
     copy->setToolTip(
@@ -71,9 +72,8 @@ void AtmosphereTable::showSource() {
     const bool fromFile = file.is_string();
     m_fromFile->setVisible(fromFile);
     if (fromFile) {
-        m_fileName->setText(
-            tr("The rows are read from %1, beside the design.")
-                .arg(QString::fromStdString(file.get<std::string>()).toHtmlEscaped()));
+        m_fileName->setText(tr("The rows are read from %1, beside the design.")
+                                .arg(QString::fromStdString(file.get<std::string>())));
     }
     m_table->setVisible(!fromFile);
     m_add->setVisible(!fromFile);
