@@ -78,7 +78,6 @@ void ChartView::resetZoom() {
         if (auto* value = qobject_cast<QValueAxis*>(whole.axis.data()))
             value->setRange(whole.min, whole.max);
     }
-    emit zoomChanged();
 }
 
 void ChartView::zoomAbout(QPointF at, double factor) {
@@ -93,7 +92,6 @@ void ChartView::zoomAbout(QPointF at, double factor) {
                        centre.y() - (centre.y() - plot.top()) / factor, plot.width() / factor,
                        plot.height() / factor);
     chart()->zoomIn(shown);
-    emit zoomChanged();
 }
 
 void ChartView::wheelEvent(QWheelEvent* event) {
@@ -128,7 +126,6 @@ void ChartView::mouseMoveEvent(QMouseEvent* event) {
         const QPointF moved = event->position() - m_lastPan;
         m_lastPan = event->position();
         chart()->scroll(-moved.x(), moved.y());
-        emit zoomChanged();
         event->accept();
         return;
     }
@@ -147,8 +144,6 @@ void ChartView::mouseReleaseEvent(QMouseEvent* event) {
         return;
     }
     QChartView::mouseReleaseEvent(event);
-    if (event->button() == Qt::LeftButton)
-        emit zoomChanged();
 }
 
 void ChartView::mouseDoubleClickEvent(QMouseEvent* event) {
@@ -194,9 +189,7 @@ void ChartView::keyPressEvent(QKeyEvent* event) {
             break;
         default:
             QChartView::keyPressEvent(event);
-            return;
     }
-    emit zoomChanged();
 }
 
 void ChartView::contextMenuEvent(QContextMenuEvent* event) {

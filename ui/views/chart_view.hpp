@@ -36,10 +36,6 @@ public slots:
     /// Zooms by a factor (above 1: in) about a point of the view, which stays where it is.
     void zoomAbout(QPointF at, double factor);
 
-signals:
-    /// The visible part of the chart changed (a zoom, a pan, a reset).
-    void zoomChanged();
-
 protected:
     void wheelEvent(QWheelEvent* event) override;
     void mousePressEvent(QMouseEvent* event) override;

@@ -821,24 +821,17 @@ void ChartsView::setResults(const Design& design, const Results& results, const 
 void ChartsView::redraw() {
     if (!m_results || !m_design)
         return;
-    switch (m_scaleChoice->currentIndex()) {
-        case 1:
-            m_scale = TimeScale::linear;
-            break;
-        case 2:
-            m_scale = TimeScale::logarithmic;
-            break;
-        default:
-            m_scale = suggestedTimeScale(*m_results);
-    }
+    TimeScale scale = suggestedTimeScale(*m_results);
+    if (m_scaleChoice->currentIndex() == 1)
+        scale = TimeScale::linear;
+    else if (m_scaleChoice->currentIndex() == 2)
+        scale = TimeScale::logarithmic;
     // A change of scale moves every point of the time charts: their zoom starts afresh.
-    const bool rescaled = m_loads->property("ds.timeScale").isValid() &&
-                          m_loads->property("ds.timeScale").toInt() != static_cast<int>(m_scale);
-    if (rescaled) {
+    if (scale != m_scale) {
         m_loads->resetZoom();
         m_machPressure->resetZoom();
+        m_scale = scale;
     }
-    m_loads->setProperty("ds.timeScale", static_cast<int>(m_scale));
     m_drawn.clear();
     drawShown();
 }
