@@ -115,13 +115,7 @@ void AtmosphereTable::addRow() {
 }
 
 void AtmosphereTable::removeRow() {
-    Json rows = value();
-    const int row = m_table->currentRow();
-    // A table needs two rows to interpolate between.
-    if (!rows.is_array() || rows.size() < 3 || row < 0 || row >= static_cast<int>(rows.size()))
-        return;
-    rows.erase(rows.begin() + row);
-    setValue(rows, tr("Remove an atmosphere row"));
+    removeSelectedRow(2, tr("Remove an atmosphere row"));  // two to interpolate between
 }
 
 bool AtmosphereTable::copyFileIn(QString* error) {

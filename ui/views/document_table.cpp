@@ -116,6 +116,16 @@ DocumentTable::Json DocumentTable::cellsRows() const {
     return rows;
 }
 
+void DocumentTable::removeSelectedRow(std::size_t fewestRows, const QString& description) {
+    Json rows = value();
+    const int row = m_table->currentRow();
+    if (!rows.is_array() || rows.size() <= fewestRows || row < 0 ||
+        row >= static_cast<int>(rows.size()))
+        return;
+    rows.erase(rows.begin() + row);
+    setValue(rows, description);
+}
+
 bool DocumentTable::pasteRows(const QString& text) {
     if (m_rowKeys.empty())
         return false;

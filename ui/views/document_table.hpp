@@ -45,6 +45,9 @@ protected:
     void showRows(const Json& rows);
     /// The cells as an array of row objects, a key a column.
     Json cellsRows() const;
+    /// Removes the selected row of an array value, as one undoable edit, unless that would
+    /// leave fewer than `fewestRows` (what the reader needs).
+    void removeSelectedRow(std::size_t fewestRows, const QString& description);
 
     /// Shows the document's value in the table.
     virtual void showValue(const Json& value) = 0;

@@ -118,13 +118,8 @@ void WindTable::addRow() {
 }
 
 void WindTable::removeRow() {
-    Json wind = value();
-    const int row = m_table->currentRow();
     // The reader wants a row at least: the last one goes by choosing no wind.
-    if (!wind.is_array() || wind.size() < 2 || row < 0 || row >= static_cast<int>(wind.size()))
-        return;
-    wind.erase(wind.begin() + row);
-    setValue(wind, tr("remove a wind row"));
+    removeSelectedRow(1, tr("remove a wind row"));
 }
 
 }  // namespace ds
