@@ -149,10 +149,9 @@ void MainWindow::buildMenus() {
     edit->addAction(redo);
     edit->addSeparator();
     m_dropUnused = edit->addAction(tr("&Drop unused keys"), this, [this] {
-        const QStringList keys = m_document->unusedKeys();
-        if (m_document->dropUnusedKeys() > 0)
+        if (const QStringList dropped = m_document->dropUnusedKeys(); !dropped.isEmpty())
             statusBar()->showMessage(
-                tr("Dropped %1 (Undo restores them).").arg(keys.join(QStringLiteral(", "))),
+                tr("Dropped %1 (Undo restores them).").arg(dropped.join(QStringLiteral(", "))),
                 fileNoteMs);
     });
     m_dropUnused->setEnabled(false);

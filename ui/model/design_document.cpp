@@ -141,15 +141,15 @@ QStringList DesignDocument::unusedKeys() const {
     return keys;
 }
 
-int DesignDocument::dropUnusedKeys() {
+QStringList DesignDocument::dropUnusedKeys() {
     const QStringList keys = unusedKeys();
     if (keys.isEmpty())
-        return 0;
+        return keys;
     std::vector<std::pair<std::string, Json>> removals;
     for (const QString& key : keys)
         removals.emplace_back(key_to_pointer(key.toStdString()), Json());
     setValues(removals, tr("Drop unused keys: %1").arg(keys.join(QStringLiteral(", "))));
-    return static_cast<int>(keys.size());
+    return keys;
 }
 
 void DesignDocument::apply(const std::vector<std::pair<std::string, Json>>& values) {

@@ -61,8 +61,8 @@ public:
     /// The keys the reader found but the design does not use (unknown, or another model's or
     /// method's), by their paths ("aeroshell.colour").
     QStringList unusedKeys() const;
-    /// Removes every unused key as one undoable edit named for them; the number removed.
-    int dropUnusedKeys();
+    /// Removes every unused key as one undoable edit named for them; the keys removed.
+    QStringList dropUnusedKeys();
     /// Several values as one undoable edit (a change of a field's kind: trigger, sizing mode).
     void setValues(const std::vector<std::pair<std::string, Json>>& values,
                    const QString& description);
