@@ -475,6 +475,10 @@ private slots:
         type(radius, "-1");
         QVERIFY(radius->isRefused());
         QCOMPARE(document.value("/body/radius_m").get<double>(), 3.0e6);
+        // Counted with the form's refused fields, so the window marks its results stale.
+        QCOMPARE(form.refusedFields().size(), 1);
+        QVERIFY2(form.refusedFields().front().startsWith(QStringLiteral("Body: Radius")),
+                 qPrintable(form.refusedFields().front()));
 
         // A body of one's own with a preset's standard atmosphere: the atmosphere becomes a
         // table of itself in the same edit, so the design still reads and flies the same air.

@@ -104,6 +104,7 @@ BodyEditor::BodyEditor(DesignDocument* document, QFormLayout* form, QWidget* par
         if (*k.placeholder)
             edit->setPlaceholderText(tr(k.placeholder));
         const QString label = tr(k.label);
+        edit->setAccessibleName(tr("Body: %1").arg(label));
         custom->addRow(label, edit);
         m_numbers.push_back({k.key, edit, k.optional});
         connect(edit, &QuantityEdit::valueEdited, this, [this, pointer, label](double value) {

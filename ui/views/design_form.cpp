@@ -206,6 +206,8 @@ DesignForm::DesignForm(DesignDocument* document, QWidget* parent)
             buildPart(form, *find_section(part));
     }
     m_sections->addStretch(1);
+    for (QuantityEdit* edit : findChildren<QuantityEdit*>())
+        connect(edit, &QuantityEdit::refusalChanged, this, &DesignForm::refusalsChanged);
     // As wide as its widest row needs, every row shown as it is now: the form then never
     // scrolls sideways (a field cut at the window's side), whatever rows the design shows.
     scroll->setHorizontalScrollBarPolicy(Qt::ScrollBarAlwaysOff);
@@ -238,6 +240,7 @@ QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
     rowLayout->setContentsMargins(0, 0, 0, 0);
     auto* edit = new QuantityEdit(dimensionOfUnit(key.unit), quantityRange(key, {}), row);
     edit->setObjectName(QString::fromStdString(pointer));
+    edit->setAccessibleName(label);
     const QString placeholder = optional ? placeholderOf(key) : QString();
     if (!placeholder.isEmpty())
         edit->setPlaceholderText(placeholder);
@@ -246,7 +249,6 @@ QuantityEdit* DesignForm::addNumber(QFormLayout* form, const KeyRow& key) {
     caption->setBuddy(edit);
     form->addRow(caption, row);
     m_numbers.push_back({pointer, edit, optional, row, &key});
-    connect(edit, &QuantityEdit::refusalChanged, this, &DesignForm::refusalsChanged);
     connect(edit, &QuantityEdit::valueEdited, this, [this, pointer, label](double value) {
         if (!m_refreshing)
             m_document->setValue(pointer, value, tr("Set %1").arg(label));
@@ -815,10 +817,11 @@ void DesignForm::setFieldVisible(QWidget* field, bool visible) {
 }
 
 QStringList DesignForm::refusedFields() const {
+    // Every number field of the form, the body's and the schema rows' alike.
     QStringList refused;
-    for (const NumberBinding& b : m_numbers) {
-        if (b.edit->isRefused())
-            refused << tr("%1: %2").arg(words(label_of(*b.key)), b.edit->errorText());
+    for (const QuantityEdit* edit : findChildren<QuantityEdit*>()) {
+        if (edit->isRefused())
+            refused << tr("%1: %2").arg(edit->accessibleName(), edit->errorText());
     }
     return refused;
 }
