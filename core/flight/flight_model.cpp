@@ -212,8 +212,7 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
             const double up = along.z();
             const Vec3 n1(-up * along.x() / horizontal, -up * along.y() / horizontal, horizontal);
             const Vec3 n2(along.y() / horizontal, -along.x() / horizontal, 0.0);
-            a += (c.lift_N / m) *
-                 (std::cos(stage.bank_angle_rad) * n1 + std::sin(stage.bank_angle_rad) * n2);
+            a += (c.lift_N / m) * (stage.bank.cos() * n1 + stage.bank.sin() * n2);
         }
     }
     if (stage.thrust_N > 0.0) {

@@ -1,5 +1,6 @@
 #pragma once
 
+#include <cmath>
 #include <span>
 #include <vector>
 
@@ -31,11 +32,26 @@ struct DragDevice {
     double drag_area_m2(double mach) const { return drag_coefficient_at(mach) * area_m2; }
 };
 
+/// A bank angle about the air velocity, with its cosine and sine, taken once where it is set
+/// rather than in every evaluation of the equations.
+class BankAngle {
+public:
+    BankAngle(double rad = 0.0) : rad_(rad), cos_(std::cos(rad)), sin_(std::sin(rad)) {}
+    double rad() const { return rad_; }
+    double cos() const { return cos_; }
+    double sin() const { return sin_; }
+
+private:
+    double rad_;
+    double cos_;
+    double sin_;
+};
+
 /// What is flying during one phase: its drag devices, lift, heating geometry and thrust.
 struct Stage {
     std::vector<DragDevice> drag_devices;
-    double lift_to_drag = 0.0;  ///< lift over the total drag
-    double bank_angle_rad = 0.0;
+    double lift_to_drag = 0.0;   ///< lift over the total drag
+    BankAngle bank;              ///< set from radians
     double nose_radius_m = 0.0;  ///< 0: no stagnation heating is computed for this stage
     double thrust_N = 0.0;       ///< along the velocity vector, braking
     double specific_impulse_s = 0.0;

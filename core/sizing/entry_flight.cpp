@@ -178,7 +178,7 @@ Stage entry_stage(const Design& design, const ResolvedAeroshell& aeroshell) {
     Stage stage;
     stage.drag_devices = {aeroshell_device(design, aeroshell)};
     stage.lift_to_drag = design.entry.lift_to_drag;
-    stage.bank_angle_rad = degrees_to_radians(design.entry.bank_angle_deg);
+    stage.bank = degrees_to_radians(design.entry.bank_angle_deg);
     stage.nose_radius_m = design.aeroshell.nose_radius_m;
     return stage;
 }

@@ -282,7 +282,7 @@ void independent_integration(std::vector<ReferenceCase>& cases) {
     Stage stage;
     stage.drag_devices = {{pi * 4.0 * 4.0 / 4.0, 1.68, {}}};
     stage.lift_to_drag = 0.22;
-    stage.bank_angle_rad = degrees_to_radians(40.0);
+    stage.bank = degrees_to_radians(40.0);
     stage.nose_radius_m = 1.0;
     const FlightState y0 =
         make_flight_state(125000.0, degrees_to_radians(20.0), 0.0, 5800.0,

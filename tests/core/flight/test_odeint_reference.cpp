@@ -49,7 +49,7 @@ Scenario lifting_mars_entry() {
                1.8};
     s.stage.drag_devices = {{M_PI * 4.0 * 4.0 / 4.0, 1.68, {}}};
     s.stage.lift_to_drag = 0.22;
-    s.stage.bank_angle_rad = ds::degrees_to_radians(40.0);
+    s.stage.bank = ds::degrees_to_radians(40.0);
     s.stage.nose_radius_m = 1.0;
     s.y0 =
         ds::make_flight_state(125000.0, ds::degrees_to_radians(20.0), 0.0, 5800.0,

@@ -56,7 +56,7 @@ ds::Stage entry_stage(double lift_to_drag, double bank_deg) {
     ds::Stage s;
     s.drag_devices = {{ds::pi * 4.5 * 4.5 / 4.0, 1.68, {}}};
     s.lift_to_drag = lift_to_drag;
-    s.bank_angle_rad = ds::degrees_to_radians(bank_deg);
+    s.bank = ds::degrees_to_radians(bank_deg);
     s.nose_radius_m = 1.1;
     return s;
 }
@@ -201,8 +201,8 @@ struct Cartesian {
         // a positive bank towards along x n1, the right of the flight.
         const Vec3 n1 = (up - up.dot(along) * along).normalized();
         const Vec3 n2 = along.cross(n1);
-        f.aero = (-drag * along + lift * (std::cos(stage.bank_angle_rad) * n1 +
-                                          std::sin(stage.bank_angle_rad) * n2)) /
+        f.aero = (-drag * along +
+                  lift * (std::cos(stage.bank.rad()) * n1 + std::sin(stage.bank.rad()) * n2)) /
                  x[6];
         f.deceleration_g = std::hypot(drag, lift) / x[6] / ds::standard_gravity_m_s2;
         f.heat = ds::sutton_graves_heat_flux_W_m2(body.gas.sutton_graves_k, a.density_kg_m3,
