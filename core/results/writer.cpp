@@ -1,6 +1,7 @@
 #include "results/writer.hpp"
 
 #include <cmath>
+#include <iterator>
 
 #include <fmt/format.h>
 
@@ -33,16 +34,26 @@ void null_non_finite(Json& value) {
     }
 }
 
-void collect_non_finite(const Json& value, const std::string& path,
-                        std::vector<std::string>& paths) {
+/// The paths of the numbers in `value` that are not finite. `path` grows and shrinks as the
+/// walk goes down and back up, so a path is written out only for a number it names.
+void collect_non_finite(const Json& value, std::string& path, std::vector<std::string>& paths) {
+    const std::size_t length = path.size();
     if (value.is_number_float() && !std::isfinite(value.get<double>())) {
         paths.push_back(path);
     } else if (value.is_object()) {
-        for (auto it = value.begin(); it != value.end(); ++it)
-            collect_non_finite(it.value(), path.empty() ? it.key() : path + "." + it.key(), paths);
+        for (auto it = value.begin(); it != value.end(); ++it) {
+            if (length > 0)
+                path += '.';
+            path += it.key();
+            collect_non_finite(it.value(), path, paths);
+            path.resize(length);
+        }
     } else if (value.is_array()) {
-        for (std::size_t i = 0; i < value.size(); ++i)
-            collect_non_finite(value[i], fmt::format("{}[{}]", path, i), paths);
+        for (std::size_t i = 0; i < value.size(); ++i) {
+            fmt::format_to(std::back_inserter(path), "[{}]", i);
+            collect_non_finite(value[i], path, paths);
+            path.resize(length);
+        }
     }
 }
 
@@ -334,8 +345,9 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
 
 std::vector<std::string> non_finite_figures(const Results& results, bool include_history) {
     std::vector<std::string> paths;
+    std::string path;
     collect_non_finite(
-        results_to_json(results, {.include_history = false, .keep_non_finite = true}), "", paths);
+        results_to_json(results, {.include_history = false, .keep_non_finite = true}), path, paths);
     // The history's samples read directly, column by column (the history_columns the writer
     // writes), not built into a document: they are most of the results.
     if (include_history) {
