@@ -1,7 +1,9 @@
 #include "sizing/evaluation.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <optional>
 
 #include <boost/math/tools/roots.hpp>
 
@@ -439,8 +441,18 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
 
 }  // namespace
 
-Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg, bool history) {
+Evaluation evaluate(const Design& given, const FlightModel& model, double entry_kg, bool history,
+                    Precision precision) {
+    // Aiming, the design is flown at the looser of its tolerance and the aiming one.
+    std::optional<Design> loosened;
+    if (precision == Precision::aiming &&
+        given.solver.relative_tolerance < aiming_relative_tolerance) {
+        loosened = given;
+        loosened->solver.relative_tolerance = aiming_relative_tolerance;
+    }
+    const Design& design = loosened ? *loosened : given;
     Evaluation e;
+    e.precision = precision;
     e.entry_kg = entry_kg;
     e.aeroshell = resolve_aeroshell(design, entry_kg);
     for (const MassItemDesign& item : design.mass.items)
@@ -587,16 +599,17 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
                  design.sequence.separation_coast_s;
     BurnSolution burn = *e.burn;
     if (site_elevation_m != e.burn_request->site_elevation_m) {
-        // A millisecond on the separation moves the margin by a millisecond: plenty for a
-        // site elevation found to half a metre.
+        // A millisecond on the separation moves the margin by a millisecond, and the aiming
+        // tolerance a burn's end by millimetres: plenty for a site found to half a metre.
         constexpr double trade_tolerance_s = 1e-3;
         BurnRequest request = *e.burn_request;
         request.site_elevation_m = site_elevation_m;
         request.separation_time_tolerance_s = trade_tolerance_s;
         burn = solve_terminal_burn(
             model, d.record, request,
-            flight_integrator_settings(design.solver.relative_tolerance,
-                                       static_cast<std::size_t>(design.solver.max_steps)),
+            flight_integrator_settings(
+                std::max(design.solver.relative_tolerance, aiming_relative_tolerance),
+                static_cast<std::size_t>(design.solver.max_steps)),
             nullptr, guide);
     }
     m.available_s = burn.ignition_time_s - d.deploy_time_s;

@@ -12,6 +12,15 @@
 
 namespace ds {
 
+/// How closely flights are flown that only aim a search: the mass closure's first
+/// evaluations, which only aim its secant, and the burns of the highest-feasible-site search,
+/// found to half a metre. They fly at this relative tolerance where the design's is tighter,
+/// which moves where a burn ends by millimetres and a budget by grams (our choice).
+inline constexpr double aiming_relative_tolerance = 1e-6;
+
+/// Whether an evaluation flies to the design's tolerances or to the aiming ones.
+enum class Precision { design, aiming };
+
 /// One flight of the whole design at one entry mass, with the mass budget it implies: the
 /// step the closure iterates, and what the results are made from.
 struct Evaluation {
@@ -69,6 +78,9 @@ struct Evaluation {
 
     std::vector<TrajectorySample> history;
 
+    /// The tolerances it was flown to.
+    Precision precision = Precision::design;
+
     /// The entry mass the budget adds up to (without the deorbit stage, which leaves before
     /// the interface): what the closure drives to entry_kg.
     double budget_kg() const { return budget.entry_kg(); }
@@ -82,7 +94,7 @@ inline constexpr double capability_depth_below_site_m = 5000.0;
 /// the entry mass), what the budget leaves over is added as "unallocated". Without `history`
 /// the evaluation's history stays empty (and the flights record no samples).
 Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg,
-                    bool history = true);
+                    bool history = true, Precision precision = Precision::design);
 
 /// The timeline margin of an evaluation at a site elevation: time from parachute deploy to the
 /// start of the terminal burn (the touchdown for "none"), less the time the sequence needs.

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdint>
 #include <memory>
+#include <optional>
 
 #include <fmt/format.h>
 #include <boost/math/tools/toms748_solve.hpp>
@@ -42,22 +43,38 @@ struct Closure {
 
 /// Closes the budget: finds the entry mass m with m = budget(m), by the secant method on
 /// r(m) = budget(m) - m, started with one fixed-point step.
+/// The first two evaluations, at the first guess and at its fixed-point step, only aim the
+/// secant: they fly to the aiming tolerances (Precision::aiming), which move their residuals
+/// by grams where the first guess is off by tens of kilograms. Every later evaluation, the one
+/// the closure ends on among them, flies the design's own; an aiming evaluation that already
+/// meets the closure's tolerance is flown again to the design's before the closure ends on it.
 Closure close_budget(const Design& design, const FlightModel& model, bool history) {
     double itemised = 0.0;
     for (const MassItemDesign& item : design.mass.items) {
         if (!leaves_before_entry(item.group))
             itemised += item.mass_kg;
     }
+    constexpr int aiming_evaluations = 2;
+    int flown = 0;
+    const auto evaluate_at = [&](double mass_kg) {
+        return flown++ < aiming_evaluations
+                   ? evaluate(design, model, mass_kg, false, Precision::aiming)
+                   : evaluate(design, model, mass_kg, history);
+    };
     double m0 = itemised / first_guess_itemised_share;
-    Closure c{evaluate(design, model, m0, history), {}};
+    Closure c{evaluate_at(m0), {}};
     double r0 = c.evaluation.budget_kg() - m0;
     double m1 = c.evaluation.budget_kg();
     for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
         c.report.iterations = iteration;
         if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg)
             break;
-        c.evaluation = evaluate(design, model, m1, history);
-        const double r1 = c.evaluation.budget_kg() - m1;
+        c.evaluation = evaluate_at(m1);
+        double r1 = c.evaluation.budget_kg() - m1;
+        if (std::abs(r1) < closure_tolerance_kg && c.evaluation.precision == Precision::aiming) {
+            c.evaluation = evaluate(design, model, m1, history);
+            r1 = c.evaluation.budget_kg() - m1;
+        }
         c.report.residual_kg = r1;
         if (std::abs(r1) < closure_tolerance_kg) {
             c.report.converged = true;
@@ -69,6 +86,8 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
         r0 = r1;
         m1 = next;
     }
+    if (c.evaluation.precision == Precision::aiming)  // diverged from an aiming evaluation
+        c.evaluation = evaluate(design, model, c.evaluation.entry_kg, history);
     return c;
 }
 
