@@ -34,22 +34,28 @@ std::string number(double value, std::string_view unit) {
 
 /// `beyond` is how far value lies past the limit as a fraction of it (positive = past it).
 Check judge(const LimitRule& rule, double value, double limit, double beyond, double band,
-            std::string_view past_word, std::string_view within_word) {
+            std::string_view past_word, std::string_view within_word, Wording wording) {
     Check c{rule.id, CheckStatus::pass, value, limit, rule.unit, "", rule.source, {}};
     if (rule.severity == Severity::physics)
         c.margin = -beyond;
+    const bool past = beyond > 0.0;
+    const bool near = !past && rule.severity == Severity::physics && beyond > -band;
+    if (past)
+        c.status = rule.severity == Severity::envelope ? CheckStatus::marginal : CheckStatus::fail;
+    else if (near)
+        c.status = CheckStatus::marginal;
+    if (wording == Wording::judged_only)
+        return c;
     const std::string v = number(value, rule.unit);
     const std::string l = number(limit, rule.unit);
-    if (beyond > 0.0) {
-        c.status = rule.severity == Severity::envelope ? CheckStatus::marginal : CheckStatus::fail;
+    if (past) {
         c.message = rule.severity == Severity::envelope
                         ? fmt::format(
                               "{} {} is {} the heritage envelope's {}: beyond today's "
                               "demonstrated technology",
                               rule.what, v, past_word, l)
                         : fmt::format("{} {} is {} the limit of {}", rule.what, v, past_word, l);
-    } else if (rule.severity == Severity::physics && beyond > -band) {
-        c.status = CheckStatus::marginal;
+    } else if (near) {
         c.message = fmt::format("{} {} is within {:.0f} % of the limit of {}", rule.what, v,
                                 band * 100.0, l);
     } else {
@@ -64,14 +70,16 @@ double relative_excess(double value, double limit) {
 
 }  // namespace
 
-Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band) {
+Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band,
+                    Wording wording) {
     return judge(rule, value, limit, relative_excess(value, limit), marginal_band, "above",
-                 "within");
+                 "within", wording);
 }
 
-Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band) {
+Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band,
+                     Wording wording) {
     return judge(rule, value, limit, -relative_excess(value, limit), marginal_band, "below",
-                 "above");
+                 "above", wording);
 }
 
 void order_checks(std::vector<Check>& checks) {

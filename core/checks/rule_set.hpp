@@ -25,9 +25,11 @@ struct LimitRule {
 };
 
 /// Checks value <= limit.
-Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band);
+Check check_at_most(const LimitRule& rule, double value, double limit, double marginal_band,
+                    Wording wording = Wording::words);
 /// Checks value >= limit.
-Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band);
+Check check_at_least(const LimitRule& rule, double value, double limit, double marginal_band,
+                     Wording wording = Wording::words);
 
 /// Orders checks failing first, then marginal, then passing, keeping their order otherwise.
 void order_checks(std::vector<Check>& checks);

@@ -25,6 +25,8 @@ DeployWindow deploy_window(const Design& design);
 /// Every limit check that applies to these results, against the design's limits: the heritage
 /// envelope (the launcher fairing for every design, the rest for Mars only), the parachute's
 /// deploy window, the loads, the terminal descent and the timeline.
-std::vector<Check> limit_checks(const Design& design, const Results& results);
+/// Judged only (Wording::judged_only), the checks carry no messages.
+std::vector<Check> limit_checks(const Design& design, const Results& results,
+                                Wording wording = Wording::words);
 
 }  // namespace ds

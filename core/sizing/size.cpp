@@ -1052,7 +1052,7 @@ Results size_design(const Design& design, SizingOptions options) {
 
     std::vector<Check> checks = flight_checks(e, design, closure);
     if (e.aeroshell.diameter_m > 0.0) {
-        std::vector<Check> limits = limit_checks(design, results);
+        std::vector<Check> limits = limit_checks(design, results, options.check_wording);
         checks.insert(checks.end(), limits.begin(), limits.end());
     }
     const bool flown = e.aeroshell.diameter_m > 0.0 && e.entry.end != EntryEnd::stopped;

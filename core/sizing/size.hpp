@@ -14,6 +14,9 @@ struct SizingOptions {
     /// results document without its history and the history sample by sample, some 50 us a sizing);
     /// off, the key figures alone: for trade cases, which keep the key figures and nothing else.
     bool every_figure_checked = true;
+    /// Judged only, the limit checks carry no messages: for trade cases that keep which checks
+    /// fail and nothing they say (a dispersion's).
+    Wording check_wording = Wording::words;
 };
 
 /// Sizes a design read by read_design: flies it, estimates what it can, and checks it.

@@ -153,8 +153,10 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
             c.error = read.errors.front().text();
             return;
         }
-        const Results r = size_design(
-            *read.design, {.capability = false, .history = false, .every_figure_checked = false});
+        const Results r = size_design(*read.design, {.capability = false,
+                                                     .history = false,
+                                                     .every_figure_checked = false,
+                                                     .check_wording = Wording::judged_only});
         c.figures = key_figure_values(r);
         if (r.landing) {
             c.landing = CaseLanding{r.landing->latitude_deg, r.landing->longitude_deg,

@@ -77,3 +77,26 @@ TEST_CASE("a check's numbers read in four digits without an exponent (a heavy la
     CHECK(ds::check_at_most(physics, 2.5e-5, 4.6, 0.1).message.find("2.5e-05 g") !=
           std::string::npos);
 }
+
+TEST_CASE("a check judged only has the worded check's status, value, limit and margin, no words") {
+    const LimitRule low{"deploy_q_low", "deploy dynamic pressure", "Pa", Severity::physics, "t"};
+    for (const double value : {10.0, 14.0, 15.0, 15.1, 9.0, 4.5, 250.0, 200.0, 400.0}) {
+        CAPTURE(value);
+        for (const LimitRule* rule : {&physics, &envelope, &low}) {
+            const bool lower = rule == &low;
+            const double limit = lower ? 250.0 : 15.0;
+            const ds::Check worded = lower ? ds::check_at_least(*rule, value, limit, 0.1)
+                                           : ds::check_at_most(*rule, value, limit, 0.1);
+            const ds::Check judged =
+                lower ? ds::check_at_least(*rule, value, limit, 0.1, ds::Wording::judged_only)
+                      : ds::check_at_most(*rule, value, limit, 0.1, ds::Wording::judged_only);
+            CHECK(judged.id == worded.id);
+            CHECK(judged.status == worded.status);
+            CHECK(judged.value == worded.value);
+            CHECK(judged.limit == worded.limit);
+            CHECK(judged.margin == worded.margin);
+            CHECK_FALSE(worded.message.empty());
+            CHECK(judged.message.empty());
+        }
+    }
+}

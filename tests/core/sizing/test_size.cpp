@@ -489,3 +489,33 @@ TEST_CASE("a weak burn finds the separation that stops in time on an oblique des
     }
     CHECK(ds::timeline_margin(d, model, e, -1480.0)->margin_s > 0.0);
 }
+
+TEST_CASE("a sizing whose checks are judged only fails and passes the same checks, unworded") {
+    // A dispersion's cases keep which checks fail: the same checks, statuses and margins as the
+    // worded sizing, on samples with failing, marginal and passing checks.
+    for (const char* name : {"small-ballistic-station", "lifting-rover-carrier",
+                             "heavy-cargo-lander", "titan-surface-probe"}) {
+        CAPTURE(name);
+        ds::Design d = sample(name);
+        d.limits.peak_deceleration_max_g = 1.0;  // a failing check on every sample
+        const ds::SizingOptions worded{.capability = false, .history = false};
+        ds::SizingOptions judged = worded;
+        judged.check_wording = ds::Wording::judged_only;
+        const ds::Results a = ds::size_design(d, worded);
+        const ds::Results b = ds::size_design(d, judged);
+        REQUIRE(a.checks.size() == b.checks.size());
+        for (std::size_t i = 0; i < a.checks.size(); ++i) {
+            CAPTURE(a.checks[i].id);
+            CHECK(b.checks[i].id == a.checks[i].id);
+            CHECK(b.checks[i].status == a.checks[i].status);
+            CHECK(b.checks[i].margin == a.checks[i].margin);
+        }
+        CHECK(std::any_of(a.checks.begin(), a.checks.end(),
+                          [](const ds::Check& c) { return c.status == ds::CheckStatus::fail; }));
+        const auto peak = std::find_if(b.checks.begin(), b.checks.end(), [](const ds::Check& c) {
+            return c.id == "peak_deceleration";
+        });
+        REQUIRE(peak != b.checks.end());
+        CHECK(peak->message.empty());
+    }
+}
