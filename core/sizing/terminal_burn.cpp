@@ -369,12 +369,15 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     const auto latest_crossing = descent.time_descending_through(request.site_elevation_m);
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
     const double tolerance = request.separation_time_tolerance_s;
-    // Every flight of the solve, kept: the solution is one of them, so without a history to
-    // record it is not flown again (a flight is a function of its separation time alone).
+    // Every flight of the solve, kept: the solution is one of them, so it is not flown again (a
+    // flight is a function of its separation time alone). With a history to record, each flight
+    // records its own samples, a small part of what flying it again would cost.
     std::vector<BurnAttempt> flown;
+    std::vector<std::vector<TrajectorySample>> flown_samples;
     std::size_t evaluations = 0;
     const auto flown_miss = [&](double t_s) {
-        flown.push_back(attempt(model, descent, request, settings, t_s, nullptr));
+        std::vector<TrajectorySample>* samples = history ? &flown_samples.emplace_back() : nullptr;
+        flown.push_back(attempt(model, descent, request, settings, t_s, samples));
         evaluations += flown.back().burn.evaluations;
         return burn_miss(flown.back(), request);
     };
@@ -526,8 +529,12 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     });
     std::size_t attempts = flown.size();
     BurnAttempt solved_attempt;
-    if (!history && kept != flown.end()) {
+    if (kept != flown.end()) {
         solved_attempt = *kept;
+        if (history) {
+            const auto& samples = flown_samples[static_cast<std::size_t>(kept - flown.begin())];
+            history->insert(history->end(), samples.begin(), samples.end());
+        }
     } else {
         solved_attempt = attempt(model, descent, request, settings, t_solved, history);
         evaluations += solved_attempt.burn.evaluations;
