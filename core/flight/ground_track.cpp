@@ -26,16 +26,22 @@ Eigen::Vector3d north(const GroundPoint& p) {
 
 }  // namespace
 
-TrackPosition track_position(const TrackReference& track, const GroundPoint& point) {
-    const Eigen::Vector3d o = unit(track.origin);
-    const Eigen::Vector3d t = std::sin(track.azimuth_rad) * east(track.origin) +
-                              std::cos(track.azimuth_rad) * north(track.origin);
-    // The pole of the track's great circle on the left of the flight: o x t.
-    const Eigen::Vector3d left = o.cross(t);
+TrackAxes::TrackAxes(const TrackReference& track)
+    : origin_(unit(track.origin)),
+      along_(std::sin(track.azimuth_rad) * east(track.origin) +
+             std::cos(track.azimuth_rad) * north(track.origin)),
+      left_(origin_.cross(along_)),  // o x t: the pole on the left of the flight
+      radius_m_(track.radius_m) {}
+
+TrackPosition TrackAxes::position(const GroundPoint& point) const {
     const Eigen::Vector3d p = unit(point);
-    const double across = std::asin(std::clamp(-p.dot(left), -1.0, 1.0));
-    const double along = std::atan2(p.dot(t), p.dot(o));
-    return {track.radius_m * along, track.radius_m * across};
+    const double across = std::asin(std::clamp(-p.dot(left_), -1.0, 1.0));
+    const double along = std::atan2(p.dot(along_), p.dot(origin_));
+    return {radius_m_ * along, radius_m_ * across};
+}
+
+TrackPosition track_position(const TrackReference& track, const GroundPoint& point) {
+    return TrackAxes(track).position(point);
 }
 
 double great_circle_distance_m(const GroundPoint& a, const GroundPoint& b, double radius_m) {

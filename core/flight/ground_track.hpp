@@ -1,5 +1,7 @@
 #pragma once
 
+#include <Eigen/Core>
+
 #include <vector>
 
 namespace ds {
@@ -27,6 +29,20 @@ struct TrackPosition {
 };
 
 TrackPosition track_position(const TrackReference& track, const GroundPoint& point);
+
+/// The reference track's axes, taken once for the many points placed against it (a history's
+/// samples): position() is track_position, to the bit.
+class TrackAxes {
+public:
+    explicit TrackAxes(const TrackReference& track);
+    TrackPosition position(const GroundPoint& point) const;
+
+private:
+    Eigen::Vector3d origin_;  ///< unit vector to the origin
+    Eigen::Vector3d along_;   ///< unit vector along the track at the origin
+    Eigen::Vector3d left_;    ///< the pole of the track's great circle, on the left
+    double radius_m_;
+};
 
 /// Great-circle distance between two points on a sphere of the given radius, m.
 double great_circle_distance_m(const GroundPoint& a, const GroundPoint& b, double radius_m);

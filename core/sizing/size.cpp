@@ -837,15 +837,16 @@ std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
 /// lands (with the miss, given a target).
 void place_on_track(const Evaluation& e, const Design& design, const TrackReference& track,
                     Results& results) {
+    const TrackAxes axes(track);
     for (TimelineEvent& event : results.timeline.events) {
         const TrackPosition p =
-            track_position(track, point_of_degrees(event.latitude_deg, event.longitude_deg));
+            axes.position(point_of_degrees(event.latitude_deg, event.longitude_deg));
         event.downrange_m = p.downrange_m;
         event.crossrange_m = p.crossrange_m;
     }
     for (TrajectorySample& sample : results.history) {
         const TrackPosition p =
-            track_position(track, point_of_degrees(sample.latitude_deg, sample.longitude_deg));
+            axes.position(point_of_degrees(sample.latitude_deg, sample.longitude_deg));
         sample.downrange_m = p.downrange_m;
         sample.crossrange_m = p.crossrange_m;
     }
@@ -854,13 +855,13 @@ void place_on_track(const Evaluation& e, const Design& design, const TrackRefere
     LandingResults landing;
     landing.latitude_deg = radians_to_degrees(e.landing_point->latitude_rad);
     landing.longitude_deg = radians_to_degrees(e.landing_point->longitude_rad);
-    const TrackPosition at = track_position(track, *e.landing_point);
+    const TrackPosition at = axes.position(*e.landing_point);
     landing.downrange_m = at.downrange_m;
     landing.crossrange_m = at.crossrange_m;
     if (design.site.latitude_deg && design.site.longitude_deg) {
         const GroundPoint target =
             point_of_degrees(*design.site.latitude_deg, *design.site.longitude_deg);
-        const TrackPosition aim = track_position(track, target);
+        const TrackPosition aim = axes.position(target);
         landing.miss_m = great_circle_distance_m(*e.landing_point, target, track.radius_m);
         landing.miss_downrange_m = at.downrange_m - aim.downrange_m;
         landing.miss_crossrange_m = at.crossrange_m - aim.crossrange_m;
