@@ -599,16 +599,18 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
                  design.sequence.separation_coast_s;
     BurnSolution burn = *e.burn;
     if (site_elevation_m != e.burn_request->site_elevation_m) {
-        // A millisecond on the separation moves the margin by a millisecond, and the aiming
-        // tolerance a burn's end by millimetres: plenty for a site found to half a metre.
+        // A millisecond on the separation moves the margin by a millisecond, and burns flown
+        // at a relative tolerance of 1e-5 (where the design's is tighter) move where they end
+        // by centimetres: plenty for a site found to half a metre (our choice).
         constexpr double trade_tolerance_s = 1e-3;
+        constexpr double trade_relative_tolerance = 1e-5;
         BurnRequest request = *e.burn_request;
         request.site_elevation_m = site_elevation_m;
         request.separation_time_tolerance_s = trade_tolerance_s;
         burn = solve_terminal_burn(
             model, d.record, request,
             flight_integrator_settings(
-                std::max(design.solver.relative_tolerance, aiming_relative_tolerance),
+                std::max(design.solver.relative_tolerance, trade_relative_tolerance),
                 static_cast<std::size_t>(design.solver.max_steps)),
             nullptr, guide);
     }

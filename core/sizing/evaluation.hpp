@@ -12,10 +12,9 @@
 
 namespace ds {
 
-/// How closely flights are flown that only aim a search: the mass closure's first
-/// evaluations, which only aim its secant, and the burns of the highest-feasible-site search,
-/// found to half a metre. They fly at this relative tolerance where the design's is tighter,
-/// which moves where a burn ends by millimetres and a budget by grams (our choice).
+/// How closely the evaluations are flown that only aim a search (the mass closure's first
+/// ones, which only aim its secant): at this relative tolerance where the design's is tighter,
+/// which moves a budget by grams where the first guess is off by tens of kilograms (our choice).
 inline constexpr double aiming_relative_tolerance = 1e-6;
 
 /// Whether an evaluation flies to the design's tolerances or to the aiming ones.

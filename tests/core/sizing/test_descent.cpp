@@ -201,6 +201,41 @@ TEST_CASE("the highest feasible site elevation is where the timeline margin cros
     CHECK(find_check(above, "timeline_margin")->status == ds::CheckStatus::fail);
 }
 
+TEST_CASE("the site search's burns, flown at 1e-5, separate where the design's tolerance does") {
+    // The search solves each burn to 1e-3 s of separation with flights at a relative tolerance
+    // of 1e-5: the same separation, to that millisecond, as flights to the design's 1e-8, at
+    // sites up to the highest feasible one.
+    for (const char* name : {"small-ballistic-station", "lifting-rover-carrier"}) {
+        CAPTURE(std::string(name));
+        const ds::Design d = sample(name);
+        const ds::FlightEnvironment environment = ds::make_environment(d);
+        const ds::FlightModel model = environment.model();
+        const ds::Results r = ds::size_design(d, {.history = false});
+        REQUIRE(r.capability.max_site_elevation_m);
+        const ds::Evaluation e = ds::evaluate(d, model, r.mass.entry_kg, false);
+        REQUIRE(e.descent);
+        REQUIRE(e.burn_request);
+        for (const double above : {0.25, 0.5, 0.75, 1.0}) {
+            ds::BurnRequest request = *e.burn_request;
+            request.site_elevation_m =
+                d.site.elevation_m +
+                above * (*r.capability.max_site_elevation_m - d.site.elevation_m);
+            CAPTURE(request.site_elevation_m);
+            request.separation_time_tolerance_s = 1e-3;
+            const auto solve = [&](double tolerance) {
+                return ds::solve_terminal_burn(model, e.descent->record, request,
+                                               ds::flight_integrator_settings(tolerance, 100000));
+            };
+            const ds::BurnSolution fine = solve(d.solver.relative_tolerance);
+            const ds::BurnSolution trade = solve(1e-5);
+            REQUIRE(fine.stops_in_time);
+            REQUIRE(trade.stops_in_time);
+            // Each within 1e-3 s before its own solution.
+            CHECK(std::abs(trade.ignition_time_s - fine.ignition_time_s) < 2e-3);
+        }
+    }
+}
+
 TEST_CASE("thrust below weight cannot land: a failing check with the impact speed") {
     ds::Design d = sample("small-ballistic-station");
     d.terminal.throttle = 0.35;  // 0.35 x 2.5 = 0.875 of the weight
