@@ -53,9 +53,10 @@ QImage renderChart(QChart* chart, QSize size);
 
 class ChartView;
 
-/// The four profiles in a grid on one page, the ground track on another; setResults replaces
-/// them (keeping what the user zoomed to). Beside the pages' tabs: the time axis's scale
-/// (suggested by the flight, or chosen) and a reset of every chart's zoom.
+/// The four profiles in a grid on one page, the ground track on another; setResults draws the
+/// new results into the charts on show where the charts keep their shape, and builds them anew
+/// where not (keeping what the user zoomed to either way). Beside the pages' tabs: the time
+/// axis's scale (suggested by the flight, or chosen) and a reset of every chart's zoom.
 class ChartsView : public QWidget {
     Q_OBJECT
 public:
