@@ -15,6 +15,7 @@
 #include <QImage>
 #include <QLegendMarker>
 #include <QLineSeries>
+#include <QTabWidget>
 #include <QTest>
 #include <QValueAxis>
 #include <QWheelEvent>
@@ -61,10 +62,14 @@ QXYSeries* seriesNamed(QChart* chart, const QString& name) {
 }
 
 /// The sample's design with a wider aeroshell, and its results: another result of the same
-/// design, as an edit of the diameter gives.
+/// design, as an edit of the diameter (or of the ballistic coefficient it is sized for) gives.
 Results widened(const Design& design, Design* wider) {
     *wider = design;
-    wider->aeroshell.diameter_m = design.aeroshell.diameter_m.value_or(1.0) * 1.15;
+    AeroshellDesign& aeroshell = wider->aeroshell;
+    if (aeroshell.diameter_m)
+        *aeroshell.diameter_m *= 1.15;
+    else if (aeroshell.size_for_ballistic_coefficient_kg_m2)
+        *aeroshell.size_for_ballistic_coefficient_kg_m2 /= 1.15 * 1.15;
     return size_design(*wider);
 }
 
@@ -265,24 +270,41 @@ private slots:
 
     void aChartFilledInPlaceDrawsAsOneBuiltAfresh() {
         for (const char* sample : {"small-ballistic-station.json", "earth-return-capsule.json",
-                                   "titan-surface-probe.json"}) {
+                                   "titan-surface-probe.json", "heavy-cargo-lander.json",
+                                   "lifting-rover-carrier.json", "venus-atmospheric-probe.json"}) {
             Design design;
             const Results first = sized(sample, &design);
             Design wider;
             const Results second = widened(design, &wider);
             ChartsView charts;
-            charts.setResults(design, first, nullptr);
+            auto* pages = charts.findChild<QTabWidget*>(QStringLiteral("flightPages"));
+            QVERIFY(pages);
+            // Every page shown once, so that every chart is drawn from the results given.
+            const auto showResults = [&](const Design& d, const Results& r) {
+                charts.setResults(d, r, nullptr);
+                for (int page = pages->count() - 1; page >= 0; --page)
+                    pages->setCurrentIndex(page);
+            };
+            showResults(design, first);
             const TimeScale scale = charts.timeScale();
             const QSize size(640, 420);
             // Drawn once at the size, as the window shows a chart before the edit.
+            QChart* loads = charts.views()[1]->chart();
             for (ChartView* view : charts.views())
                 renderChart(view->chart(), size);
-            charts.setResults(wider, second, nullptr);
+            showResults(wider, second);
             QCOMPARE(charts.timeScale(), scale);
+            QVERIFY2(charts.views()[1]->chart() == loads, "the chart against time built anew");
+            // In the order of ChartsView::views.
             const std::unique_ptr<QChart> fresh[] = {
-                altitudeVelocityChart(second, nullptr), loadsChart(second, nullptr, scale),
-                machPressureChart(wider, second, nullptr, scale), massWaterfallChart(second)};
-            for (int i = 0; i < 4; ++i) {
+                altitudeVelocityChart(second, nullptr),
+                loadsChart(second, nullptr, scale),
+                machPressureChart(wider, second, nullptr, scale),
+                massWaterfallChart(second),
+                groundTrackChart(second, nullptr),
+                burnChart(second, nullptr)};
+            QCOMPARE(charts.views().size(), 6);
+            for (int i = 0; i < 6; ++i) {
                 const QImage filled = renderChart(charts.views()[i]->chart(), size);
                 const QImage built = renderChart(fresh[i].get(), size);
                 QVERIFY2(filled == built,
