@@ -1,5 +1,6 @@
 // The result charts as the window shows them: texts that fit the space, an event key that
-// hides no data, a logarithmic time axis for long descents, and zoom and pan with a reset.
+// hides no data, a logarithmic time axis for long descents, zoom and pan with a reset, and new
+// results of the same design drawn into the charts on show.
 
 #include <cmath>
 #include <filesystem>
@@ -11,11 +12,14 @@
 #include <QComboBox>
 #include <QFontMetricsF>
 #include <QGraphicsRectItem>
+#include <QImage>
 #include <QLegendMarker>
 #include <QLineSeries>
+#include <QTabWidget>
 #include <QTest>
 #include <QValueAxis>
 #include <QWheelEvent>
+#include <QXYSeries>
 
 #include "design/reader.hpp"
 #include "sizing/size.hpp"
@@ -48,6 +52,28 @@ QValueAxis* valueAxis(QChart* chart, Qt::Alignment side) {
     }
     return nullptr;
 }
+
+QXYSeries* seriesNamed(QChart* chart, const QString& name) {
+    for (QAbstractSeries* series : chart->series()) {
+        if (series->name() == name)
+            return qobject_cast<QXYSeries*>(series);
+    }
+    return nullptr;
+}
+
+/// The sample's design with a wider aeroshell, and its results: another result of the same
+/// design, as an edit of the diameter (or of the ballistic coefficient it is sized for) gives.
+Results widened(const Design& design, Design* wider) {
+    *wider = design;
+    AeroshellDesign& aeroshell = wider->aeroshell;
+    if (aeroshell.diameter_m)
+        *aeroshell.diameter_m *= 1.15;
+    else if (aeroshell.size_for_ballistic_coefficient_kg_m2)
+        *aeroshell.size_for_ballistic_coefficient_kg_m2 /= 1.15 * 1.15;
+    return size_design(*wider);
+}
+
+constexpr Qt::Alignment sides[] = {Qt::AlignBottom, Qt::AlignLeft, Qt::AlignRight};
 
 }  // namespace
 
@@ -195,6 +221,148 @@ private slots:
         view.zoomAbout(QPointF(350, 200), 2.0);
         view.replaceChart(loadsChart(results, nullptr).release(), ChartView::Zoom::whole);
         QVERIFY(!view.isZoomed());
+    }
+
+    void newResultsOfTheSameDesignAreDrawnIntoTheChartsOnShow() {
+        Design design;
+        const Results first = sized("small-ballistic-station.json", &design);
+        Design wider;
+        const Results second = widened(design, &wider);
+        QVERIFY(!second.history.empty());
+        ChartsView charts;
+        charts.setResults(design, first, nullptr);
+        QList<QChart*> shown;
+        for (ChartView* view : charts.views())
+            shown << view->chart();
+        QChart* loads = charts.views()[1]->chart();
+        const QList<QAbstractSeries*> series = loads->series();
+        const QList<QAbstractAxis*> axes = loads->axes();
+
+        charts.setResults(wider, second, nullptr);
+        // The profiles on show keep their charts, axes and series.
+        for (int i = 0; i < 4; ++i)
+            QVERIFY2(charts.views()[i]->chart() == shown[i], "a chart built anew");
+        QVERIFY(loads->series() == series);
+        QVERIFY(loads->axes() == axes);
+        // The second flight's points: its deceleration, a point per sample.
+        QXYSeries* deceleration = seriesNamed(loads, QStringLiteral("deceleration"));
+        QVERIFY(deceleration);
+        QCOMPARE(deceleration->count(), static_cast<int>(second.history.size()));
+        const std::size_t middle = second.history.size() / 2;
+        QCOMPARE(deceleration->at(static_cast<int>(middle)).x(), second.history[middle].time_s);
+        QCOMPARE(deceleration->at(static_cast<int>(middle)).y(),
+                 second.history[middle].deceleration_g);
+        // The axes ranged as a chart built for the second flight ranges them; the edit moves
+        // at least one of them, so that a range left over from the first would show.
+        std::unique_ptr<QChart> fresh = loadsChart(second, nullptr);
+        std::unique_ptr<QChart> before = loadsChart(first, nullptr);
+        bool moved = false;
+        for (const Qt::Alignment side : sides) {
+            QValueAxis* axis = valueAxis(loads, side);
+            QValueAxis* expected = valueAxis(fresh.get(), side);
+            QCOMPARE(axis->min(), expected->min());
+            QCOMPARE(axis->max(), expected->max());
+            QCOMPARE(axis->tickInterval(), expected->tickInterval());
+            moved = moved || valueAxis(before.get(), side)->max() != expected->max();
+        }
+        QVERIFY(moved);
+    }
+
+    void aChartFilledInPlaceDrawsAsOneBuiltAfresh() {
+        for (const char* sample : {"small-ballistic-station.json", "earth-return-capsule.json",
+                                   "titan-surface-probe.json", "heavy-cargo-lander.json",
+                                   "lifting-rover-carrier.json", "venus-atmospheric-probe.json"}) {
+            Design design;
+            const Results first = sized(sample, &design);
+            Design wider;
+            const Results second = widened(design, &wider);
+            ChartsView charts;
+            auto* pages = charts.findChild<QTabWidget*>(QStringLiteral("flightPages"));
+            QVERIFY(pages);
+            // Every page shown once, so that every chart is drawn from the results given.
+            const auto showResults = [&](const Design& d, const Results& r) {
+                charts.setResults(d, r, nullptr);
+                for (int page = pages->count() - 1; page >= 0; --page)
+                    pages->setCurrentIndex(page);
+            };
+            showResults(design, first);
+            const TimeScale scale = charts.timeScale();
+            const QSize size(640, 420);
+            // Drawn once at the size, as the window shows a chart before the edit.
+            QChart* loads = charts.views()[1]->chart();
+            for (ChartView* view : charts.views())
+                renderChart(view->chart(), size);
+            showResults(wider, second);
+            QCOMPARE(charts.timeScale(), scale);
+            QVERIFY2(charts.views()[1]->chart() == loads, "the chart against time built anew");
+            // In the order of ChartsView::views.
+            const std::unique_ptr<QChart> fresh[] = {
+                altitudeVelocityChart(second, nullptr),
+                loadsChart(second, nullptr, scale),
+                machPressureChart(wider, second, nullptr, scale),
+                massWaterfallChart(second),
+                groundTrackChart(second, nullptr),
+                burnChart(second, nullptr)};
+            QCOMPARE(charts.views().size(), 6);
+            for (int i = 0; i < 6; ++i) {
+                const QImage filled = renderChart(charts.views()[i]->chart(), size);
+                const QImage built = renderChart(fresh[i].get(), size);
+                QVERIFY2(filled == built,
+                         qPrintable(QStringLiteral("%1: %2").arg(sample, fresh[i]->title())));
+            }
+        }
+    }
+
+    void aChartOfAnotherShapeIsBuiltAnew() {
+        Design design;
+        const Results first = sized("small-ballistic-station.json", &design);
+        Design wider;
+        const Results second = widened(design, &wider);
+        ChartsView charts;
+        charts.setResults(design, first, nullptr);
+        QChart* loads = charts.views()[1]->chart();
+        const auto count = loads->series().size();
+        // A baseline pinned: two curves more.
+        charts.setResults(wider, second, &first);
+        QVERIFY(charts.views()[1]->chart() != loads);
+        QCOMPARE(charts.views()[1]->chart()->series().size(), count + 2);
+        // Another time scale: another kind of time axis.
+        loads = charts.views()[1]->chart();
+        charts.findChild<QComboBox*>(QStringLiteral("timeScale"))->setCurrentIndex(2);
+        QVERIFY(charts.views()[1]->chart() != loads);
+        QVERIFY(qobject_cast<QCategoryAxis*>(bottomAxis(charts.views()[1]->chart())));
+    }
+
+    void aZoomedChartKeepsItsZoomForNewResults() {
+        Design design;
+        const Results first = sized("small-ballistic-station.json", &design);
+        Design wider;
+        const Results second = widened(design, &wider);
+        ChartsView charts;
+        charts.resize(1000, 700);
+        charts.setResults(design, first, nullptr);
+        charts.show();
+        QVERIFY(QTest::qWaitForWindowExposed(&charts));
+        ChartView* view = charts.views()[1];
+        QChart* chart = view->chart();
+        view->zoomAbout(QPointF(view->width() / 2.0, view->height() / 2.0), 2.0);
+        auto* time = qobject_cast<QValueAxis*>(bottomAxis(chart));
+        const double low = time->min();
+        const double high = time->max();
+
+        charts.setResults(wider, second, nullptr);
+        QVERIFY2(view->chart() == chart, "a chart built anew");
+        QCOMPARE(time->min(), low);
+        QCOMPARE(time->max(), high);
+        QVERIFY(view->isZoomed());
+        // The whole chart is the second flight's.
+        view->resetZoom();
+        QVERIFY(!view->isZoomed());
+        std::unique_ptr<QChart> fresh = loadsChart(second, nullptr);
+        for (const Qt::Alignment side : sides) {
+            QCOMPARE(valueAxis(chart, side)->min(), valueAxis(fresh.get(), side)->min());
+            QCOMPARE(valueAxis(chart, side)->max(), valueAxis(fresh.get(), side)->max());
+        }
     }
 
     void theTimeAxisChoiceRedrawsTheTimeCharts() {

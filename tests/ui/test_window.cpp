@@ -236,6 +236,9 @@ private slots:
         QVERIFY(window.resultsAreStale());
         QVERIFY(window.figures()->isStale());
         QVERIFY(window.checks()->isStale());
+        // Every item shows it (greyed, in italics), as marked once when the state changed.
+        QVERIFY(window.figures()->item(0, 1)->font().italic());
+        QVERIFY(window.checks()->item(0, 2)->font().italic());
         QVERIFY2(window.statusText().contains(QStringLiteral("stale")) &&
                      window.statusText().contains(QStringLiteral("Diameter")),
                  qPrintable(window.statusText()));
@@ -246,6 +249,8 @@ private slots:
         QVERIFY(waitForResults(window));
         QVERIFY(!window.resultsAreStale());
         QVERIFY(!window.figures()->isStale());
+        QVERIFY(!window.figures()->item(0, 1)->font().italic());
+        QVERIFY(!window.checks()->item(0, 2)->font().italic());
         QCOMPARE(figure(window, "aeroshell_diameter"), QString("3.00"));
 
         // A design that does not read (a key the reader refuses) is stale too, until undone.

@@ -111,9 +111,7 @@ QValueAxis* addValueAxis(QChart* chart, const QString& title, Qt::Alignment side
     return axis;
 }
 
-/// Sets an axis to hold [low, high], ticks on round values from zero. An end is rounded out
-/// to a tick only when that wastes little of the plot; otherwise it gets a small pad.
-void setNiceRange(QValueAxis* axis, double low, double high) {
+AxisRange niceRange(double low, double high) {
     if (!std::isfinite(low) || !std::isfinite(high)) {  // nothing finite to show
         low = 0.0;
         high = 1.0;
@@ -127,11 +125,20 @@ void setNiceRange(QValueAxis* axis, double low, double high) {
     const double roundedLow = std::floor(low / interval) * interval;
     const double roundedHigh = std::ceil(high / interval) * interval;
     const double pad = axisPadFraction * span;
-    axis->setRange(low - roundedLow <= roundingWasteFraction * span ? roundedLow : low - pad,
-                   roundedHigh - high <= roundingWasteFraction * span ? roundedHigh : high + pad);
+    return {low - roundedLow <= roundingWasteFraction * span ? roundedLow : low - pad,
+            roundedHigh - high <= roundingWasteFraction * span ? roundedHigh : high + pad,
+            interval};
+}
+
+void setRange(QValueAxis* axis, const AxisRange& range) {
+    axis->setRange(range.min, range.max);
     axis->setTickType(QValueAxis::TicksDynamic);
     axis->setTickAnchor(0.0);
-    axis->setTickInterval(interval);
+    axis->setTickInterval(range.tickInterval);
+}
+
+void setNiceRange(QValueAxis* axis, double low, double high) {
+    setRange(axis, niceRange(low, high));
 }
 
 /// A tick interval of 1, 2 or 5 times a power of ten giving about `ticks` intervals over span.

@@ -45,8 +45,20 @@ QValueAxis* addValueAxis(QChart* chart, const QString& title, Qt::Alignment side
                          const QColor& colour = Qt::black);
 /// A tick interval of 1, 2 or 5 times a power of ten giving about `ticks` intervals over span.
 double niceInterval(double span, int ticks);
-/// Sets an axis to hold [low, high], ticks on round values from zero. An end is rounded out
-/// to a tick only when that wastes little of the plot; otherwise it gets a small pad.
+/// An axis's range and its tick interval.
+struct AxisRange {
+    double min = 0.0;
+    double max = 1.0;
+    double tickInterval = 0.0;  ///< 0: no ticks of ours
+
+    bool operator==(const AxisRange&) const = default;
+};
+/// The range that holds [low, high] with ticks on round values from zero. An end is rounded
+/// out to a tick only when that wastes little of the plot; otherwise it gets a small pad.
+AxisRange niceRange(double low, double high);
+/// Sets an axis to a range from niceRange: its ticks on the interval, anchored at zero.
+void setRange(QValueAxis* axis, const AxisRange& range);
+/// Sets an axis to niceRange(low, high).
 void setNiceRange(QValueAxis* axis, double low, double high);
 
 /// What an axis title becomes when the axis is too short for it ("dynamic pressure (kPa)" to

@@ -61,6 +61,23 @@ void ChartView::replaceChart(QChart* chart, Zoom zoom) {
     }
 }
 
+void ChartView::updateChart(const std::function<void(QChart*)>& fill) {
+    QChart* shown = chart();
+    if (!shown)
+        return;
+    QList<std::pair<QValueAxis*, std::pair<double, double>>> zoomed;
+    if (isZoomed()) {
+        for (QAbstractAxis* axis : shown->axes()) {
+            if (auto* value = qobject_cast<QValueAxis*>(axis))
+                zoomed.append({value, {value->min(), value->max()}});
+        }
+    }
+    fill(shown);
+    rememberWholeRanges();
+    for (const auto& [axis, range] : zoomed)
+        axis->setRange(range.first, range.second);
+}
+
 bool ChartView::isZoomed() const {
     for (const AxisRange& whole : m_whole) {
         const auto* value = qobject_cast<const QValueAxis*>(whole.axis.data());

@@ -1,5 +1,7 @@
 #pragma once
 
+#include <functional>
+
 #include <QChartView>
 #include <QList>
 #include <QPointF>
@@ -14,8 +16,8 @@ namespace ds {
 /// A chart view the user can zoom and pan: drag a rectangle to zoom into it, turn the wheel to
 /// zoom about the pointer, drag with the middle button (or with Shift held) to pan, and
 /// double-click, press Home or choose "Reset zoom" from the context menu to see the whole
-/// chart again. A chart set in place of another (new results of the same design) keeps the
-/// part of the axes the user zoomed to.
+/// chart again. A chart set in place of another, or filled with new values (new results of the
+/// same design), keeps the part of the axes the user zoomed to.
 class ChartView : public QChartView {
     Q_OBJECT
 public:
@@ -27,6 +29,10 @@ public:
     /// the zoom is kept, its axes' visible ranges carry over to the new chart's axes on the
     /// same sides.
     void replaceChart(QChart* chart, Zoom zoom = Zoom::kept);
+    /// Puts new values into the chart on show (`fill` is given it: the same axes and series
+    /// for new results of the same design) and takes its new ranges as the whole chart's.
+    /// Where the user had zoomed, every axis keeps the part zoomed to, as replaceChart keeps it.
+    void updateChart(const std::function<void(QChart*)>& fill);
     /// Whether any axis shows less (or more) than its whole range.
     bool isZoomed() const;
 

@@ -9,31 +9,21 @@
 #include <utility>
 #include <vector>
 
-#include <QAreaSeries>
-#include <QBarCategoryAxis>
-#include <QBarSet>
-#include <QCategoryAxis>
 #include <QChart>
 #include <QComboBox>
 #include <QGraphicsLayout>
-#include <QGraphicsRectItem>
 #include <QGraphicsScene>
-#include <QGraphicsSimpleTextItem>
 #include <QGridLayout>
 #include <QHBoxLayout>
 #include <QLabel>
-#include <QLegendMarker>
-#include <QLineSeries>
 #include <QPainter>
 #include <QPushButton>
-#include <QScatterSeries>
-#include <QStackedBarSeries>
 #include <QTabWidget>
 #include <QVBoxLayout>
-#include <QValueAxis>
 
 #include "sizing/landed_mass.hpp"
 #include "sizing/limit_checks.hpp"
+#include "views/chart_plan.hpp"
 #include "views/chart_style.hpp"
 #include "views/chart_view.hpp"
 #include "views/wheel_guard.hpp"
@@ -53,22 +43,30 @@ constexpr double eventMergeFraction = 0.02;
 /// A waterfall step lighter than this is left out: it would show as "-0.0 kg".
 constexpr double negligibleKg = 0.05;
 
-/// The label of the invisible bars the waterfall's steps stand on.
-const QString waterfallBaseLabel = QStringLiteral("base");
+/// A value axis on one side, ranged and inked.
+AxisPlan valueAxis(const QString& title, Qt::Alignment side, const AxisRange& range,
+                   const QColor& ink = Qt::black) {
+    AxisPlan axis;
+    axis.side = side;
+    axis.title = title;
+    axis.ink = ink;
+    axis.range = range;
+    return axis;
+}
 
-/// A line through the history, one point per sample.
-QLineSeries* historySeries(const std::vector<TrajectorySample>& history, const QString& name,
-                           const QPen& pen,
-                           const std::function<QPointF(const TrajectorySample&)>& point) {
-    auto* series = new QLineSeries;
-    series->setName(name);
-    series->setPen(pen);
-    QList<QPointF> points;
-    points.reserve(static_cast<qsizetype>(history.size()));
+/// A line through the history, one point per sample, on the axes x and y.
+SeriesPlan historyLine(const std::vector<TrajectorySample>& history, const QString& name,
+                       const QPen& pen, int x, int y,
+                       const std::function<QPointF(const TrajectorySample&)>& point) {
+    SeriesPlan line;
+    line.name = name;
+    line.pen = pen;
+    line.xAxis = x;
+    line.yAxis = y;
+    line.points.reserve(static_cast<qsizetype>(history.size()));
     for (const TrajectorySample& sample : history)
-        points.append(point(sample));
-    series->replace(points);
-    return series;
+        line.points.append(point(sample));
+    return line;
 }
 
 Span spanOf(const Results& results, const Results* baseline,
@@ -102,38 +100,38 @@ double logarithmicTime(double time_s) {
 
 /// A time axis whose positions are logarithmicTime: labelled in seconds at round times (1, 2
 /// and 5 times each power of ten over a short flight, the powers alone over a long one).
-QCategoryAxis* logarithmicTimeAxis(QChart* chart, double lastTime_s) {
-    auto* axis = new QCategoryAxis;
-    axis->setTitleText(QStringLiteral("time (s, logarithmic)"));
-    setShortTitle(axis, QStringLiteral("time (s, log)"));
-    styleAxis(axis);
-    axis->setLabelsPosition(QCategoryAxis::AxisLabelsPositionOnValue);
-    axis->setStartValue(0.0);
+AxisPlan logarithmicTimeAxis(double lastTime_s) {
+    AxisPlan axis;
+    axis.kind = AxisPlan::Kind::logarithmicTime;
+    axis.side = Qt::AlignBottom;
+    axis.title = QStringLiteral("time (s, logarithmic)");
+    axis.shortTitle = QStringLiteral("time (s, log)");
     const double end = std::max(lastTime_s, 10.0);
-    axis->append(QStringLiteral("0"), 0.0);
+    axis.labels.append({QStringLiteral("0"), 0.0});
     constexpr double manyDecades = 3.0;
     const bool fewDecades = std::log10(end) <= manyDecades;
     for (double decade = 1.0; decade <= end; decade *= 10.0) {
         for (const double step : {1.0, 2.0, 5.0}) {
             const double t = step * decade;
             if (t <= end && (step == 1.0 || fewDecades))
-                axis->append(QString::number(t, 'g', 6), logarithmicTime(t));
+                axis.labels.append({QString::number(t, 'g', 6), logarithmicTime(t)});
         }
     }
-    axis->setRange(0.0, logarithmicTime(end));
-    chart->addAxis(axis, Qt::AlignBottom);
+    axis.range = {0.0, logarithmicTime(end), 0.0};
     return axis;
 }
 
 /// A chart of two quantities against time, each on its own axis: the left in the primary ink,
 /// the right in the secondary.
 struct TimeChart {
-    QChart* chart;
-    QAbstractAxis* time;
-    QValueAxis* left;
-    QValueAxis* right;
+    static constexpr int time = 0;
+    static constexpr int left = 1;
+    static constexpr int right = 2;
+    ChartPlan plan;
     TimeScale scale;
 
+    AxisPlan& axis(int index) { return plan.axes[static_cast<std::size_t>(index)]; }
+    const AxisPlan& axis(int index) const { return plan.axes[static_cast<std::size_t>(index)]; }
     /// A time's place along the time axis.
     double x(double time_s) const {
         return scale == TimeScale::logarithmic ? logarithmicTime(time_s) : time_s;
@@ -144,29 +142,29 @@ struct TimeChart {
 /// what lies beneath them can be drawn first.
 TimeChart timeChart(const QString& title, const Results& results, const Results* baseline,
                     const TimeCurve& left, const TimeCurve& right, TimeScale scale) {
-    QChart* chart = newChart(title);
+    TimeChart c{{}, scale};
+    c.plan.title = title;
     const Span time = spanOf(results, baseline, [](const TrajectorySample& s) { return s.time_s; });
-    QAbstractAxis* timeAxis = nullptr;
-    if (scale == TimeScale::logarithmic) {
-        timeAxis = logarithmicTimeAxis(chart, time.high);
-    } else {
-        QValueAxis* linear = addValueAxis(chart, QStringLiteral("time (s)"), Qt::AlignBottom);
-        setNiceRange(linear, std::min(0.0, time.low), time.high);
-        timeAxis = linear;
-    }
-    TimeChart c{chart, timeAxis, addValueAxis(chart, left.axisTitle, Qt::AlignLeft, primaryInk),
-                addValueAxis(chart, right.axisTitle, Qt::AlignRight, secondaryInk), scale};
-    setShortTitle(c.left, left.shortTitle);
-    setShortTitle(c.right, right.shortTitle);
-    setNiceRange(c.left, 0.0, spanOf(results, baseline, left.reach ? left.reach : left.value).high);
-    setNiceRange(c.right, 0.0,
-                 spanOf(results, baseline, right.reach ? right.reach : right.value).high);
+    if (scale == TimeScale::logarithmic)
+        c.plan.axes.push_back(logarithmicTimeAxis(time.high));
+    else
+        c.plan.axes.push_back(valueAxis(QStringLiteral("time (s)"), Qt::AlignBottom,
+                                        niceRange(std::min(0.0, time.low), time.high)));
+    const auto reach = [&](const TimeCurve& curve) {
+        return spanOf(results, baseline, curve.reach ? curve.reach : curve.value).high;
+    };
+    c.plan.axes.push_back(
+        valueAxis(left.axisTitle, Qt::AlignLeft, niceRange(0.0, reach(left)), primaryInk));
+    c.plan.axes.push_back(
+        valueAxis(right.axisTitle, Qt::AlignRight, niceRange(0.0, reach(right)), secondaryInk));
+    c.axis(TimeChart::left).shortTitle = left.shortTitle;
+    c.axis(TimeChart::right).shortTitle = right.shortTitle;
     return c;
 }
 
 /// The two curves of the results, with the baseline's behind them: the left dashed, the right
 /// dash-dotted.
-void attachTimeCurves(const TimeChart& c, const Results& results, const Results* baseline,
+void attachTimeCurves(TimeChart& c, const Results& results, const Results* baseline,
                       const TimeCurve& left, const TimeCurve& right) {
     const auto point = [&c](const TimeCurve& curve) {
         return [value = curve.value, &c](const TrajectorySample& s) {
@@ -174,20 +172,21 @@ void attachTimeCurves(const TimeChart& c, const Results& results, const Results*
         };
     };
     if (baseline && !baseline->history.empty()) {
-        QLineSeries* leftBaseline = historySeries(baseline->history, left.baselineName,
-                                                  baselinePen(Qt::DashLine), point(left));
-        setShortName(leftBaseline, QStringLiteral("baseline"));
-        attach(c.chart, leftBaseline, c.time, c.left);
-        QLineSeries* rightBaseline = historySeries(baseline->history, right.baselineName,
-                                                   baselinePen(Qt::DashDotLine), point(right));
-        setShortName(rightBaseline, QStringLiteral("baseline"));
-        attach(c.chart, rightBaseline, c.time, c.right);
+        SeriesPlan leftBaseline =
+            historyLine(baseline->history, left.baselineName, baselinePen(Qt::DashLine),
+                        TimeChart::time, TimeChart::left, point(left));
+        leftBaseline.shortName = QStringLiteral("baseline");
+        c.plan.series.push_back(std::move(leftBaseline));
+        SeriesPlan rightBaseline =
+            historyLine(baseline->history, right.baselineName, baselinePen(Qt::DashDotLine),
+                        TimeChart::time, TimeChart::right, point(right));
+        rightBaseline.shortName = QStringLiteral("baseline");
+        c.plan.series.push_back(std::move(rightBaseline));
     }
-    attach(c.chart, historySeries(results.history, left.name, resultPen(primaryInk), point(left)),
-           c.time, c.left);
-    attach(c.chart,
-           historySeries(results.history, right.name, resultPen(secondaryInk), point(right)),
-           c.time, c.right);
+    c.plan.series.push_back(historyLine(results.history, left.name, resultPen(primaryInk),
+                                        TimeChart::time, TimeChart::left, point(left)));
+    c.plan.series.push_back(historyLine(results.history, right.name, resultPen(secondaryInk),
+                                        TimeChart::time, TimeChart::right, point(right)));
 }
 
 /// The terminal burn's interval, ignition to its end, when the flight has one.
@@ -198,65 +197,76 @@ std::optional<std::pair<double, double>> burnInterval(const Results& results) {
     return std::make_pair(*t.ignition_time_s, *t.ignition_time_s + *t.burn_time_s);
 }
 
+/// A band over the left axis's full height through the time intervals given.
+SeriesPlan timeBand(const TimeChart& c, const std::vector<std::pair<double, double>>& intervals,
+                    const QString& name, const QColor& fill) {
+    SeriesPlan band;
+    band.kind = SeriesPlan::Kind::area;
+    band.name = name;
+    band.brush = fill;
+    band.pen = QPen(Qt::NoPen);
+    band.xAxis = TimeChart::time;
+    band.yAxis = TimeChart::left;
+    const double bottom = c.axis(TimeChart::left).range.min;
+    const double top = c.axis(TimeChart::left).range.max;
+    for (const auto& [start, end] : intervals) {
+        band.points.append(QPointF(c.x(start), bottom));
+        band.points.append(QPointF(c.x(start), top));
+        band.points.append(QPointF(c.x(end), top));
+        band.points.append(QPointF(c.x(end), bottom));
+    }
+    return band;
+}
+
 /// Shades the time the engines fire, over the chart's full height (on the left axis).
-void shadeBurn(const TimeChart& c, const Results& results) {
+void shadeBurn(TimeChart& c, const Results& results) {
     const auto burn = burnInterval(results);
     if (!burn)
         return;
-    auto* band = new QAreaSeries;
-    auto* outline = new QLineSeries(band);
-    const double bottom = c.left->min();
-    const double top = c.left->max();
-    outline->append(c.x(burn->first), bottom);
-    outline->append(c.x(burn->first), top);
-    outline->append(c.x(burn->second), top);
-    outline->append(c.x(burn->second), bottom);
-    band->setUpperSeries(outline);
-    band->setName(QStringLiteral("engines firing"));
-    band->setBrush(burnFill);
-    band->setPen(Qt::NoPen);
-    attach(c.chart, band, c.time, c.left);
+    SeriesPlan band = timeBand(c, {*burn}, QStringLiteral("engines firing"), burnFill);
     // Its colour is the burn's of the altitude chart's legend: the time charts' legends, short
     // of room already, leave it out.
-    hideFromLegend(c.chart, band);
+    band.inLegend = false;
+    c.plan.series.push_back(std::move(band));
 }
 
 /// A single marked point with its label written beside it; kept out of the legend.
-QScatterSeries* eventMarker(const QString& label, QPointF point) {
-    auto* marker = new QScatterSeries;
-    marker->setName(label);
-    marker->setMarkerShape(QScatterSeries::MarkerShapeCircle);
-    marker->setMarkerSize(eventMarkerSize);
-    marker->setColor(Qt::white);
-    marker->setBorderColor(eventInk);
-    marker->append(point);
+SeriesPlan eventMarker(const QString& label, QPointF point, int x, int y) {
+    SeriesPlan marker;
+    marker.kind = SeriesPlan::Kind::scatter;
+    marker.name = label;
+    marker.xAxis = x;
+    marker.yAxis = y;
+    marker.inLegend = false;
+    marker.marker.shape = QScatterSeries::MarkerShapeCircle;
+    marker.marker.size = eventMarkerSize;
+    marker.marker.fill = Qt::white;
+    marker.marker.border = eventInk;
+    marker.points.append(point);
     // A format without placeholders ("@xPoint") is written as it is: the event's own label.
     QString format = label;
-    marker->setPointLabelsFormat(format.replace(QLatin1Char('@'), QStringLiteral("at ")));
-    marker->setPointLabelsVisible(true);
-    marker->setPointLabelsColor(eventInk);
-    marker->setPointLabelsClipping(false);
+    marker.marker.label = format.replace(QLatin1Char('@'), QStringLiteral("at "));
+    marker.marker.labelInk = eventInk;
     return marker;
 }
 
 /// Where a drag device deployed, on the Mach curve.
-void markDeploy(const TimeChart& c, const QString& label, const DeployResults& deploy) {
+void markDeploy(TimeChart& c, const QString& label, const DeployResults& deploy) {
     if (!deploy.deployed || !deploy.deploy_time_s || !deploy.deploy_mach)
         return;
-    QScatterSeries* marker =
-        eventMarker(label, QPointF(c.x(*deploy.deploy_time_s), *deploy.deploy_mach));
-    attach(c.chart, marker, c.time, c.left);
-    hideFromLegend(c.chart, marker);
+    c.plan.series.push_back(eventMarker(label,
+                                        QPointF(c.x(*deploy.deploy_time_s), *deploy.deploy_mach),
+                                        TimeChart::time, TimeChart::left));
 }
 
 /// The timeline's events from the interface on, numbered, with their names in a key in the
 /// plot's top-left corner.
 /// Events that fall on one spot (peak dynamic pressure and peak deceleration, the last
 /// seconds before touchdown) share a marker.
-void markEvents(QChart* chart, const std::vector<TimelineEvent>& events, QValueAxis* xAxis,
-                QValueAxis* yAxis, const std::function<QPointF(const TimelineEvent&)>& point) {
-    const double xTolerance = eventMergeFraction * (xAxis->max() - xAxis->min());
-    const double yTolerance = eventMergeFraction * (yAxis->max() - yAxis->min());
+void markEvents(ChartPlan& plan, const std::vector<TimelineEvent>& events, int x, int y,
+                const std::function<QPointF(const TimelineEvent&)>& point) {
+    const double xTolerance = eventMergeFraction * plan.axes[static_cast<std::size_t>(x)].span();
+    const double yTolerance = eventMergeFraction * plan.axes[static_cast<std::size_t>(y)].span();
     std::vector<std::pair<QStringList, QPointF>> marks;
     QStringList key;
     int number = 0;
@@ -275,13 +285,9 @@ void markEvents(QChart* chart, const std::vector<TimelineEvent>& events, QValueA
         else
             marks.emplace_back(QStringList{label}, at);
     }
-    for (const auto& [labels, at] : marks) {
-        QScatterSeries* marker = eventMarker(labels.join(QStringLiteral(",")), at);
-        attach(chart, marker, xAxis, yAxis);
-        hideFromLegend(chart, marker);
-    }
-    if (!key.isEmpty())
-        addKey(chart, key.join(QLatin1Char('\n')));
+    for (const auto& [labels, at] : marks)
+        plan.series.push_back(eventMarker(labels.join(QStringLiteral(",")), at, x, y));
+    plan.key = key.join(QLatin1Char('\n'));
 }
 
 /// The time intervals over which the history lies inside the deploy window, with the
@@ -349,36 +355,41 @@ QString kgText(double value) {
     return QString::number(value, 'f', 1);
 }
 
-}  // namespace
+/// An empty chart's plan: the title and why there is nothing to draw.
+ChartPlan emptyPlan(const QString& title, const QString& reason = QStringLiteral("no trajectory")) {
+    ChartPlan plan;
+    plan.title = title;
+    plan.emptyReason = reason;
+    return plan;
+}
 
-std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Results* baseline) {
+ChartPlan altitudeVelocityPlan(const Results& results, const Results* baseline) {
     const QString title = QStringLiteral("Altitude against velocity");
     if (results.history.empty())
-        return std::unique_ptr<QChart>(emptyChart(title));
+        return emptyPlan(title);
 
-    QChart* chart = newChart(title);
-    QValueAxis* velocityAxis =
-        addValueAxis(chart, QStringLiteral("velocity (m/s)"), Qt::AlignBottom);
-    QValueAxis* altitudeAxis = addValueAxis(chart, QStringLiteral("altitude (km)"), Qt::AlignLeft);
+    ChartPlan plan;
+    plan.title = title;
+    constexpr int velocityAxis = 0;
+    constexpr int altitudeAxis = 1;
     const Span velocity =
         spanOf(results, baseline, [](const TrajectorySample& s) { return s.velocity_m_s; });
     const Span altitude = spanOf(results, baseline, [](const TrajectorySample& s) {
         return s.altitude_m / metresPerKilometre;
     });
-    setNiceRange(velocityAxis, std::min(0.0, velocity.low), velocity.high);
-    setNiceRange(altitudeAxis, std::min(0.0, altitude.low), altitude.high);
+    plan.axes.push_back(valueAxis(QStringLiteral("velocity (m/s)"), Qt::AlignBottom,
+                                  niceRange(std::min(0.0, velocity.low), velocity.high)));
+    plan.axes.push_back(valueAxis(QStringLiteral("altitude (km)"), Qt::AlignLeft,
+                                  niceRange(std::min(0.0, altitude.low), altitude.high)));
 
     const auto point = [](const TrajectorySample& s) {
         return QPointF(s.velocity_m_s, s.altitude_m / metresPerKilometre);
     };
     if (baseline && !baseline->history.empty())
-        attach(chart,
-               historySeries(baseline->history, QStringLiteral("baseline"), baselinePen(), point),
-               velocityAxis, altitudeAxis);
-    attach(
-        chart,
-        historySeries(results.history, QStringLiteral("trajectory"), resultPen(primaryInk), point),
-        velocityAxis, altitudeAxis);
+        plan.series.push_back(historyLine(baseline->history, QStringLiteral("baseline"),
+                                          baselinePen(), velocityAxis, altitudeAxis, point));
+    plan.series.push_back(historyLine(results.history, QStringLiteral("trajectory"),
+                                      resultPen(primaryInk), velocityAxis, altitudeAxis, point));
     // The stretch flown with the engines firing, over the trajectory in the burn's colour.
     std::vector<TrajectorySample> firing;
     std::copy_if(results.history.begin(), results.history.end(), std::back_inserter(firing),
@@ -387,24 +398,23 @@ std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Resu
         QPen pen = resultPen(burnFill);
         pen.setColor(QColor(burnFill.red(), burnFill.green(), burnFill.blue()));
         pen.setWidthF(pen.widthF() * 2.5);
-        attach(chart, historySeries(firing, QStringLiteral("engines firing"), pen, point),
-               velocityAxis, altitudeAxis);
+        plan.series.push_back(historyLine(firing, QStringLiteral("engines firing"), pen,
+                                          velocityAxis, altitudeAxis, point));
     }
 
     // Each event is marked by its number, the key in the corner that an entry never reaches
     // (slow and high).
-    markEvents(chart, results.timeline.events, velocityAxis, altitudeAxis,
+    markEvents(plan, results.timeline.events, velocityAxis, altitudeAxis,
                [](const TimelineEvent& event) {
                    return QPointF(event.velocity_m_s, event.altitude_m / metresPerKilometre);
                });
-    return std::unique_ptr<QChart>(chart);
+    return plan;
 }
 
-std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline,
-                                   TimeScale scale) {
+ChartPlan loadsPlan(const Results& results, const Results* baseline, TimeScale scale) {
     const QString title = QStringLiteral("Deceleration and heat flux against time");
     if (results.history.empty())
-        return std::unique_ptr<QChart>(emptyChart(title));
+        return emptyPlan(title);
 
     const TimeCurve deceleration{QStringLiteral("deceleration"),
                                  QStringLiteral("baseline deceleration"),
@@ -419,7 +429,7 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
                                [](const TrajectorySample& s) {
                                    return std::max(s.heat_flux_W_cm2, s.radiative_heat_flux_W_cm2);
                                }};
-    const TimeChart c = timeChart(title, results, baseline, deceleration, convective, scale);
+    TimeChart c = timeChart(title, results, baseline, deceleration, convective, scale);
     shadeBurn(c, results);
     attachTimeCurves(c, results, baseline, deceleration, convective);
     const bool radiative =
@@ -427,29 +437,30 @@ std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseli
                     [](const TrajectorySample& s) { return s.radiative_heat_flux_W_cm2 > 0.0; });
     if (results.entry.radiative_heating == radiative_heating_not_modelled) {
         // A legend entry only: the flux drawn is convective, and the reader should know why.
-        auto* note = new QLineSeries;
-        note->setName(QStringLiteral("radiative: not modelled"));
-        setShortName(note, QStringLiteral("no radiative model"));
-        note->setColor(Qt::transparent);  // no swatch: a note, not a curve
-        attach(c.chart, note, c.time, c.right);
+        SeriesPlan note;
+        note.name = QStringLiteral("radiative: not modelled");
+        note.shortName = QStringLiteral("no radiative model");
+        note.colour = QColor(Qt::transparent);  // no swatch: a note, not a curve
+        note.xAxis = TimeChart::time;
+        note.yAxis = TimeChart::right;
+        c.plan.series.push_back(std::move(note));
     } else if (radiative) {
         QPen pen = resultPen(secondaryInk);
         pen.setStyle(Qt::DotLine);
-        attach(c.chart,
-               historySeries(results.history, QStringLiteral("radiative heat flux"), pen,
-                             [&c](const TrajectorySample& s) {
-                                 return QPointF(c.x(s.time_s), s.radiative_heat_flux_W_cm2);
-                             }),
-               c.time, c.right);
+        c.plan.series.push_back(
+            historyLine(results.history, QStringLiteral("radiative heat flux"), pen,
+                        TimeChart::time, TimeChart::right, [&c](const TrajectorySample& s) {
+                            return QPointF(c.x(s.time_s), s.radiative_heat_flux_W_cm2);
+                        }));
     }
-    return std::unique_ptr<QChart>(c.chart);
+    return std::move(c.plan);
 }
 
-std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
-                                          const Results* baseline, TimeScale scale) {
+ChartPlan machPressurePlan(const Design& design, const Results& results, const Results* baseline,
+                           TimeScale scale) {
     const QString title = QStringLiteral("Mach number and dynamic pressure against time");
     if (results.history.empty())
-        return std::unique_ptr<QChart>(emptyChart(title));
+        return emptyPlan(title);
 
     const TimeCurve mach{QStringLiteral("Mach number"), QStringLiteral("baseline Mach"),
                          QStringLiteral("Mach number"), QStringLiteral("Mach"),
@@ -458,7 +469,7 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         QStringLiteral("dynamic pressure"), QStringLiteral("baseline pressure"),
         QStringLiteral("dynamic pressure (kPa)"), QStringLiteral("q (kPa)"),
         [](const TrajectorySample& s) { return s.dynamic_pressure_Pa / pascalsPerKilopascal; }};
-    const TimeChart c = timeChart(title, results, baseline, mach, pressure, scale);
+    TimeChart c = timeChart(title, results, baseline, mach, pressure, scale);
 
     // The deploy window where one applies (Mars, or the design's own bounds), shaded over the
     // full height: a step outline on the Mach axis.
@@ -467,22 +478,9 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
                                ? deployWindowIntervals(results.history, window)
                                : std::vector<std::pair<double, double>>{};
     if (!intervals.empty()) {
-        auto* band = new QAreaSeries;
-        auto* outline = new QLineSeries(band);
-        const double bottom = c.left->min();
-        const double top = c.left->max();
-        for (const auto& [start, end] : intervals) {
-            outline->append(c.x(start), bottom);
-            outline->append(c.x(start), top);
-            outline->append(c.x(end), top);
-            outline->append(c.x(end), bottom);
-        }
-        band->setUpperSeries(outline);
-        band->setName(windowName(window));
-        setShortName(band, QStringLiteral("deploy window"));
-        band->setBrush(windowFill);
-        band->setPen(Qt::NoPen);
-        attach(c.chart, band, c.time, c.left);
+        SeriesPlan band = timeBand(c, intervals, windowName(window), windowFill);
+        band.shortName = QStringLiteral("deploy window");
+        c.plan.series.push_back(std::move(band));
     }
 
     shadeBurn(c, results);
@@ -493,14 +491,14 @@ std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& r
         markDeploy(c, QStringLiteral("decelerator inflation"), *results.decelerator);
     if (results.drogue)
         markDeploy(c, QStringLiteral("drogue deploy"), *results.drogue);
-    return std::unique_ptr<QChart>(c.chart);
+    return std::move(c.plan);
 }
 
-std::unique_ptr<QChart> burnChart(const Results& results, const Results* baseline) {
+ChartPlan burnPlan(const Results& results, const Results* baseline) {
     const QString title = QStringLiteral("Throttle and thrust coefficient during the burn");
     const auto burn = burnInterval(results);
     if (results.history.empty() || !burn)
-        return std::unique_ptr<QChart>(emptyChart(title, QStringLiteral("no burn")));
+        return emptyPlan(title, QStringLiteral("no burn"));
 
     const TimeCurve throttle{QStringLiteral("throttle"),
                              QStringLiteral("baseline throttle"),
@@ -518,23 +516,22 @@ std::unique_ptr<QChart> burnChart(const Results& results, const Results* baselin
         QStringLiteral("C_T"),
         [](const TrajectorySample& s) { return s.thrust_coefficient; },
         [](const TrajectorySample& s) { return s.mach >= 1.0 ? s.thrust_coefficient : 0.0; }};
-    const TimeChart c =
-        timeChart(title, results, baseline, throttle, coefficient, TimeScale::linear);
+    TimeChart c = timeChart(title, results, baseline, throttle, coefficient, TimeScale::linear);
     const double span = burn->second - burn->first;
-    setNiceRange(static_cast<QValueAxis*>(c.time), std::max(0.0, burn->first - 0.1 * span),
-                 burn->second + 0.05 * span);
-    if (!(c.right->max() > 0.0))
-        setNiceRange(c.right, 0.0, 1.0);  // no supersonic thrust: the canopy methods' burns
+    c.axis(TimeChart::time).range =
+        niceRange(std::max(0.0, burn->first - 0.1 * span), burn->second + 0.05 * span);
+    if (!(c.axis(TimeChart::right).range.max > 0.0))           // no supersonic thrust: the canopy
+        c.axis(TimeChart::right).range = niceRange(0.0, 1.0);  // methods' burns
     shadeBurn(c, results);
     attachTimeCurves(c, results, baseline, throttle, coefficient);
-    return std::unique_ptr<QChart>(c.chart);
+    return std::move(c.plan);
 }
 
-std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
+ChartPlan massWaterfallPlan(const Results& results) {
     const QString title = QStringLiteral("Mass from entry to landing");
     const MassResults& mass = results.mass;
     if (!(mass.entry_kg > 0.0))
-        return std::unique_ptr<QChart>(emptyChart(title, QStringLiteral("no mass budget")));
+        return emptyPlan(title, QStringLiteral("no mass budget"));
 
     const auto groupKg = [&](MassGroup group) {
         double sum = 0.0;
@@ -563,16 +560,17 @@ std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
         drops.emplace_back(QStringLiteral("descent<br>stage"),
                            groupKg(MassGroup::descent_stage) - burned);
 
+    // The steps stand on invisible bars (kept out of the legend).
+    BarSetPlan base{QStringLiteral("base"), Qt::transparent, false, {}};
+    BarSetPlan totals{QStringLiteral("mass on board"), totalFill, true, {}};
+    BarSetPlan dropped{QStringLiteral("mass dropped"), droppedFill, true, {}};
     QStringList categories;
-    QList<qreal> base;
-    QList<qreal> totals;
-    QList<qreal> dropped;
     const auto addBar = [&](const QString& category, double baseKg, double totalKg,
                             double droppedKg) {
         categories << category;
-        base << baseKg;
-        totals << totalKg;
-        dropped << droppedKg;
+        base.values << baseKg;
+        totals.values << totalKg;
+        dropped.values << droppedKg;
     };
     addBar(QStringLiteral("entry<br><br>%1 kg").arg(kgText(mass.entry_kg)), 0.0, mass.entry_kg,
            0.0);
@@ -587,45 +585,27 @@ std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
         addBar(QStringLiteral("landed<br><br>%1 kg").arg(kgText(*mass.landed_kg)), 0.0,
                *mass.landed_kg, 0.0);
 
-    auto* baseSet = new QBarSet(waterfallBaseLabel);
-    baseSet->append(base);
-    baseSet->setColor(Qt::transparent);
-    baseSet->setBorderColor(Qt::transparent);
-    auto* totalSet = new QBarSet(QStringLiteral("mass on board"));
-    totalSet->append(totals);
-    totalSet->setColor(totalFill);
-    totalSet->setBorderColor(totalFill);
-    auto* droppedSet = new QBarSet(QStringLiteral("mass dropped"));
-    droppedSet->append(dropped);
-    droppedSet->setColor(droppedFill);
-    droppedSet->setBorderColor(droppedFill);
-
-    auto* series = new QStackedBarSeries;
-    series->append(baseSet);
-    series->append(totalSet);
-    series->append(droppedSet);
-    series->setBarWidth(0.6);
-
-    QChart* chart =
-        newChart(mass.landed_kg ? title : title + QStringLiteral(" (landing not reached)"));
-    auto* categoryAxis = new QBarCategoryAxis;
-    categoryAxis->append(categories);
-    categoryAxis->setTruncateLabels(false);  // the steps' names and masses are the point
-    chart->addAxis(categoryAxis, Qt::AlignBottom);
-    QValueAxis* massAxis = addValueAxis(chart, QStringLiteral("mass (kg)"), Qt::AlignLeft);
-    setNiceRange(massAxis, 0.0, std::max(mass.entry_kg, mass.landed_kg.value_or(0.0)));
-    attach(chart, series, categoryAxis, massAxis);
-    for (QLegendMarker* marker : chart->legend()->markers(series)) {
-        if (marker->label() == waterfallBaseLabel)
-            marker->setVisible(false);
-    }
-    return std::unique_ptr<QChart>(chart);
+    ChartPlan plan;
+    plan.title = mass.landed_kg ? title : title + QStringLiteral(" (landing not reached)");
+    AxisPlan categoryAxis;
+    categoryAxis.kind = AxisPlan::Kind::categories;
+    categoryAxis.categories = categories;
+    plan.axes.push_back(std::move(categoryAxis));
+    plan.axes.push_back(
+        valueAxis(QStringLiteral("mass (kg)"), Qt::AlignLeft,
+                  niceRange(0.0, std::max(mass.entry_kg, mass.landed_kg.value_or(0.0)))));
+    SeriesPlan bars;
+    bars.kind = SeriesPlan::Kind::stackedBars;
+    bars.bars = {std::move(base), std::move(totals), std::move(dropped)};
+    bars.barWidth = 0.6;
+    plan.series.push_back(std::move(bars));
+    return plan;
 }
 
-std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* baseline) {
+ChartPlan groundTrackPlan(const Results& results, const Results* baseline) {
     const QString title = QStringLiteral("Ground track");
     if (results.history.empty())
-        return std::unique_ptr<QChart>(emptyChart(title));
+        return emptyPlan(title);
 
     // The target, from the landing less its miss: downrange and crossrange on the same track.
     std::optional<QPointF> target;
@@ -635,13 +615,6 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
                          (results.landing->crossrange_m - *results.landing->miss_crossrange_m) /
                              metresPerKilometre);
 
-    QChart* chart = newChart(title);
-    // Not to the same scale: the crossrange of an entry is a small fraction of its downrange,
-    // and at one scale the track would be a flat line. The axis titles say km on both.
-    QValueAxis* downrangeAxis =
-        addValueAxis(chart, QStringLiteral("downrange from the entry point (km)"), Qt::AlignBottom);
-    QValueAxis* crossrangeAxis = addValueAxis(
-        chart, QStringLiteral("crossrange, right of the entry heading (km)"), Qt::AlignLeft);
     Span downrange = spanOf(results, baseline, [](const TrajectorySample& s) {
         return s.downrange_m / metresPerKilometre;
     });
@@ -661,39 +634,77 @@ std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* 
         crossrange.include(middle - 0.5 * narrowestCrossrangeKm);
         crossrange.include(middle + 0.5 * narrowestCrossrangeKm);
     }
-    setNiceRange(downrangeAxis, std::min(0.0, downrange.low), downrange.high);
-    setNiceRange(crossrangeAxis, crossrange.low, crossrange.high);
+
+    ChartPlan plan;
+    plan.title = title;
+    // Not to the same scale: the crossrange of an entry is a small fraction of its downrange,
+    // and at one scale the track would be a flat line. The axis titles say km on both.
+    constexpr int downrangeAxis = 0;
+    constexpr int crossrangeAxis = 1;
+    plan.axes.push_back(valueAxis(QStringLiteral("downrange from the entry point (km)"),
+                                  Qt::AlignBottom,
+                                  niceRange(std::min(0.0, downrange.low), downrange.high)));
+    plan.axes.push_back(valueAxis(QStringLiteral("crossrange, right of the entry heading (km)"),
+                                  Qt::AlignLeft, niceRange(crossrange.low, crossrange.high)));
 
     const auto point = [](const TrajectorySample& s) {
         return QPointF(s.downrange_m / metresPerKilometre, s.crossrange_m / metresPerKilometre);
     };
     if (baseline && !baseline->history.empty())
-        attach(chart,
-               historySeries(baseline->history, QStringLiteral("baseline"), baselinePen(), point),
-               downrangeAxis, crossrangeAxis);
-    attach(chart,
-           historySeries(results.history, QStringLiteral("ground track"), resultPen(primaryInk),
-                         point),
-           downrangeAxis, crossrangeAxis);
+        plan.series.push_back(historyLine(baseline->history, QStringLiteral("baseline"),
+                                          baselinePen(), downrangeAxis, crossrangeAxis, point));
+    plan.series.push_back(historyLine(results.history, QStringLiteral("ground track"),
+                                      resultPen(primaryInk), downrangeAxis, crossrangeAxis, point));
     if (target) {
-        auto* site = new QScatterSeries;
-        site->setName(results.landing->miss_m
-                          ? QStringLiteral("target (missed by %1 km)")
-                                .arg(*results.landing->miss_m / metresPerKilometre, 0, 'f', 2)
-                          : QStringLiteral("target"));
-        site->setMarkerShape(QScatterSeries::MarkerShapeStar);
-        site->setMarkerSize(2.0 * eventMarkerSize);
-        site->setColor(secondaryInk);
-        site->setBorderColor(secondaryInk);
-        site->append(*target);
-        attach(chart, site, downrangeAxis, crossrangeAxis);
+        SeriesPlan site;
+        site.kind = SeriesPlan::Kind::scatter;
+        site.name = results.landing->miss_m
+                        ? QStringLiteral("target (missed by %1 km)")
+                              .arg(*results.landing->miss_m / metresPerKilometre, 0, 'f', 2)
+                        : QStringLiteral("target");
+        site.xAxis = downrangeAxis;
+        site.yAxis = crossrangeAxis;
+        site.marker.shape = QScatterSeries::MarkerShapeStar;
+        site.marker.size = 2.0 * eventMarkerSize;
+        site.marker.fill = secondaryInk;
+        site.marker.border = secondaryInk;
+        site.points.append(*target);
+        plan.series.push_back(std::move(site));
     }
-    markEvents(chart, results.timeline.events, downrangeAxis, crossrangeAxis,
+    markEvents(plan, results.timeline.events, downrangeAxis, crossrangeAxis,
                [](const TimelineEvent& event) {
                    return QPointF(event.downrange_m / metresPerKilometre,
                                   event.crossrange_m / metresPerKilometre);
                });
-    return std::unique_ptr<QChart>(chart);
+    return plan;
+}
+
+}  // namespace
+
+std::unique_ptr<QChart> altitudeVelocityChart(const Results& results, const Results* baseline) {
+    return std::unique_ptr<QChart>(buildChart(altitudeVelocityPlan(results, baseline)));
+}
+
+std::unique_ptr<QChart> loadsChart(const Results& results, const Results* baseline,
+                                   TimeScale scale) {
+    return std::unique_ptr<QChart>(buildChart(loadsPlan(results, baseline, scale)));
+}
+
+std::unique_ptr<QChart> machPressureChart(const Design& design, const Results& results,
+                                          const Results* baseline, TimeScale scale) {
+    return std::unique_ptr<QChart>(buildChart(machPressurePlan(design, results, baseline, scale)));
+}
+
+std::unique_ptr<QChart> burnChart(const Results& results, const Results* baseline) {
+    return std::unique_ptr<QChart>(buildChart(burnPlan(results, baseline)));
+}
+
+std::unique_ptr<QChart> massWaterfallChart(const Results& results) {
+    return std::unique_ptr<QChart>(buildChart(massWaterfallPlan(results)));
+}
+
+std::unique_ptr<QChart> groundTrackChart(const Results& results, const Results* baseline) {
+    return std::unique_ptr<QChart>(buildChart(groundTrackPlan(results, baseline)));
 }
 
 QImage renderChart(QChart* chart, QSize size) {
@@ -845,22 +856,36 @@ void ChartsView::drawShown() {
         return;
     const Results& results = *m_results;
     const Results* baseline = m_baseline ? &*m_baseline : nullptr;
-    const std::pair<ChartView*, std::function<std::unique_ptr<QChart>()>> charts[] = {
-        {m_altitudeVelocity, [&] { return altitudeVelocityChart(results, baseline); }},
-        {m_loads, [&] { return loadsChart(results, baseline, m_scale); }},
-        {m_machPressure, [&] { return machPressureChart(*m_design, results, baseline, m_scale); }},
-        {m_mass, [&] { return massWaterfallChart(results); }},
-        {m_groundTrack, [&] { return groundTrackChart(results, baseline); }},
-        {m_burn, [&] { return burnChart(results, baseline); }},
+    const std::pair<ChartView*, std::function<ChartPlan()>> charts[] = {
+        {m_altitudeVelocity, [&] { return altitudeVelocityPlan(results, baseline); }},
+        {m_loads, [&] { return loadsPlan(results, baseline, m_scale); }},
+        {m_machPressure, [&] { return machPressurePlan(*m_design, results, baseline, m_scale); }},
+        {m_mass, [&] { return massWaterfallPlan(results); }},
+        {m_groundTrack, [&] { return groundTrackPlan(results, baseline); }},
+        {m_burn, [&] { return burnPlan(results, baseline); }},
     };
     // Only the page on show: the others are drawn when their tab is chosen (a third of the
     // charts an edit would build for nothing).
-    for (const auto& [view, build] : charts) {
-        if (view->isVisibleTo(this) && !m_drawn.contains(view)) {
-            view->replaceChart(build().release());
-            m_drawn.insert(view);
-        }
+    for (const auto& [view, plan] : charts) {
+        if (view->isVisibleTo(this) && !m_drawn.contains(view))
+            draw(view, plan());
     }
+}
+
+void ChartsView::draw(ChartView* view, ChartPlan plan) {
+    m_drawn.insert(view);
+    // A chart of the same shape takes the new values in place: Qt Charts keeps its items and
+    // lays out only what moved. Any other is built anew.
+    const auto shown = m_shown.find(view);
+    if (shown != m_shown.end() && shown->second.chart == view->chart() &&
+        sameShape(shown->second.plan, plan)) {
+        view->updateChart([&plan](QChart* chart) { fillChart(chart, plan); });
+    } else {
+        QChart* chart = buildChart(plan);
+        view->replaceChart(chart);
+        m_shown[view].chart = chart;
+    }
+    m_shown[view].plan = std::move(plan);
 }
 
 void ChartsView::showEvent(QShowEvent* event) {

@@ -1,15 +1,18 @@
 #pragma once
 
+#include <map>
 #include <memory>
 #include <optional>
 
 #include <QImage>
+#include <QPointer>
 #include <QSet>
 #include <QSize>
 #include <QWidget>
 
 #include "design/design.hpp"
 #include "results/results.hpp"
+#include "views/chart_plan.hpp"
 
 QT_BEGIN_NAMESPACE
 class QChart;
@@ -50,9 +53,10 @@ QImage renderChart(QChart* chart, QSize size);
 
 class ChartView;
 
-/// The four profiles in a grid on one page, the ground track on another; setResults replaces
-/// them (keeping what the user zoomed to). Beside the pages' tabs: the time axis's scale
-/// (suggested by the flight, or chosen) and a reset of every chart's zoom.
+/// The four profiles in a grid on one page, the ground track on another; setResults draws the
+/// new results into the charts on show where the charts keep their shape, and builds them anew
+/// where not (keeping what the user zoomed to either way). Beside the pages' tabs: the time
+/// axis's scale (suggested by the flight, or chosen) and a reset of every chart's zoom.
 class ChartsView : public QWidget {
     Q_OBJECT
 public:
@@ -72,6 +76,8 @@ private:
     void redraw();
     /// Draws the charts on show that are not drawn from the results kept.
     void drawShown();
+    /// Shows the plan in the view: in the chart on show when it has the plan's shape.
+    void draw(ChartView* view, ChartPlan plan);
 
     ChartView* m_altitudeVelocity;
     ChartView* m_loads;
@@ -87,6 +93,13 @@ private:
     std::optional<Results> m_results;
     std::optional<Results> m_baseline;
     QSet<ChartView*> m_drawn;  ///< the views drawn from the results kept
+    /// What each view shows: the chart built, and the plan it was built from or last filled
+    /// with.
+    struct Shown {
+        QPointer<QChart> chart;
+        ChartPlan plan;
+    };
+    std::map<ChartView*, Shown> m_shown;
 };
 
 }  // namespace ds

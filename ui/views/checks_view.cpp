@@ -93,6 +93,8 @@ std::string ChecksView::fieldForCheck(const std::string& checkId) {
 }
 
 void ChecksView::setStale(bool stale) {
+    if (stale == m_stale)
+        return;  // every item is marked so already: setResults marks the items it makes
     m_stale = stale;
     showStale(this, stale);
 }

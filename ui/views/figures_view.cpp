@@ -68,6 +68,8 @@ void FiguresView::setResults(const Results& results, const Results* baseline) {
 }
 
 void FiguresView::setStale(bool stale) {
+    if (stale == m_stale)
+        return;  // every item is marked so already: setResults marks the items it makes
     m_stale = stale;
     showStale(this, stale);
 }

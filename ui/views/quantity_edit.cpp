@@ -71,6 +71,8 @@ QuantityEdit::QuantityEdit(Dimension dimension, QuantityRange range, QWidget* pa
 }
 
 void QuantityEdit::setRange(const QuantityRange& range) {
+    if (range == m_range)
+        return;  // the state shown is of this range already
     m_range = range;
     showState();
 }
@@ -91,6 +93,8 @@ void QuantityEdit::setValue(std::optional<double> value) {
 }
 
 void QuantityEdit::setExternalError(const QString& error) {
+    if (error == m_externalError)
+        return;  // the state shown is of this error already
     m_externalError = error;
     showState();
 }

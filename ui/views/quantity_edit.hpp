@@ -16,6 +16,8 @@ struct QuantityRange {
     bool maximumExclusive = false;
     double typicalLow = 0.0;  ///< for the tooltip: "typically 2 to 5 m"
     double typicalHigh = 0.0;
+
+    bool operator==(const QuantityRange&) const = default;
 };
 
 /// A number field with a unit: shows the value in the document's unit with the unit beside it,
