@@ -754,12 +754,15 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             out.too_strong = m >= 0.0 && x == min_throttle;
         };
         // Each guided flight aims half the tolerance above the target, at the closed form plus
-        // the offset, so that it lands within the tolerance on the side that stops. Where the
-        // guide points at a flown end, the secant across the bracket; where a flight did not
-        // halve how far the last one landed from its aim, the bisection.
+        // the offset, so that it lands within the tolerance on the side that stops; where the
+        // guide points at a flown end, the secant across the bracket. A flight that did not
+        // halve how far the last one landed from its aim ends the guided flights: the closed
+        // form is poor here (drag kept under thrust, which it does not fly, bends the miss).
         constexpr int most_guided_flights = 8;
         std::optional<double> last_gap;
-        for (int i = 0; i < most_guided_flights && !decided && !solved() && high > low; ++i) {
+        bool stalled = false;
+        for (int i = 0; i < most_guided_flights && !decided && !solved() && !stalled && high > low;
+             ++i) {
             const auto [newer, older] = offset_line();
             const auto offset_at = [&](double x) {
                 if (!older)
@@ -782,16 +785,12 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             const double gap = std::abs(m - aim);
             record(next, m);
             decide(next, m);
-            if (!decided && !solved() && bracket && last_gap && gap > 0.5 * *last_gap) {
-                const double middle = 0.5 * (low + high);
-                const double mm = continued_miss_at(middle);
-                measure(middle, mm, flown.back().burn, flown.back().reached_velocity);
-                record(middle, mm);
-            }
+            stalled = last_gap && gap > 0.5 * *last_gap;
             last_gap = gap;
         }
         // Not guided home: the range's ends flown where not yet, then the Illinois method on
-        // the bracket, its tolerance of throttle the tolerance of miss at the bracket's slope.
+        // the bracket, its tolerance of throttle the tolerance of miss at the bracket's slope;
+        // again on the bracket it leaves, at its slope, where that was not enough.
         if (!decided && !solved() && !high_miss) {
             const double m = continued_miss_at(max_throttle);
             record(max_throttle, m);
@@ -802,11 +801,16 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             record(min_throttle, m);
             decide(min_throttle, m);
         }
-        if (!decided && !solved() && high > low) {
+        const auto falling = [&](double x) {
+            const double m = continued_miss_at(-x);
+            record(-x, m);
+            return m;
+        };
+        constexpr int most_rounds = 3;
+        for (int i = 0; i < most_rounds && !decided && !solved() && high > low; ++i) {
             const double slope = (*high_miss - *low_miss) / (high - low);
-            const auto falling = [&](double x) { return continued_miss_at(-x); };
-            high = -illinois_last_nonnegative(falling, -high, *high_miss, -low, *low_miss,
-                                              tolerance_m / slope);
+            illinois_last_nonnegative(falling, -high, *high_miss, -low, *low_miss,
+                                      tolerance_m / slope);
         }
         const bool short_of = decided && !out.too_strong;
         throttle = short_of ? max_throttle : high;
