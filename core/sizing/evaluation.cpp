@@ -551,16 +551,23 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
             return std::nullopt;
         BurnSolution burn = *e.burn;
         if (site_elevation_m != e.burn_request->site_elevation_m) {
-            // The powered descent lit at the trigger, its throttle solved for that site.
+            // The powered descent lit at the trigger, its throttle solved for that site, from
+            // the design site's solve when that was lit there too. A millisecond on the burn's
+            // time moves the margin by a millisecond: as under a canopy, plenty for a site
+            // elevation found to half a metre.
+            constexpr double trade_tolerance_s = 1e-3;
             BurnRequest request = *e.burn_request;
             request.site_elevation_m = site_elevation_m;
             request.throttle = design.terminal.throttle;
+            ThrottleSolve how;
+            how.end_time_tolerance_s = trade_tolerance_s;
+            how.earlier = e.ignition_delayed ? nullptr : &*e.burn;
             burn =
                 solve_burn_throttle(
                     model, request, e.full_thrust_N, design.terminal.min_throttle,
                     flight_integrator_settings(design.solver.relative_tolerance,
                                                static_cast<std::size_t>(design.solver.max_steps)),
-                    e.entry.end_time_s, e.entry.end_state)
+                    e.entry.end_time_s, e.entry.end_state, nullptr, how)
                     .burn;
         }
         TimelineMargin m;

@@ -1,6 +1,7 @@
 #include "sizing/terminal_burn.hpp"
 
 #include <algorithm>
+#include <cfloat>
 #include <cmath>
 #include <cstdint>
 #include <functional>
@@ -195,6 +196,20 @@ std::optional<VerticalBurn> vertical_burn(double speed_m_s, double to_shed_m_s, 
                         speed_m_s * t - thrust_N / mass_kg * t * t * share_sum + 0.5 * g * t * t};
 }
 
+/// The vertical burn at thrust_N that slows the request's lander from speed_m_s to the end speed
+/// under gravity g: by the rocket equation, or at constant mass where that would burn more than
+/// there is. The thrust must hold more than the weight.
+VerticalBurn lander_vertical_burn(const BurnRequest& r, double speed_m_s, double thrust_N,
+                                  double g) {
+    const double to_shed = speed_m_s - r.end_velocity_m_s;
+    if (const auto burn = vertical_burn(speed_m_s, to_shed, thrust_N, r.lander_mass_kg,
+                                        r.specific_impulse_s * standard_gravity_m_s2, g))
+        return *burn;
+    const double braking = thrust_N / r.lander_mass_kg - g;
+    return {to_shed / braking,
+            (speed_m_s * speed_m_s - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking)};
+}
+
 /// The miss of the burn in closed form, from the separation state on the descent: a coast in
 /// free fall under the gravity there (the horizontal speed kept), then a burn at constant
 /// thrust (the mass falling by the rocket equation; no drag) from the coasted speed to the end
@@ -220,11 +235,7 @@ double modelled_miss(const FlightModel& model, const DenseTrajectory& descent, c
     if (!(to_shed > 0.0))
         return h - target;
     const double steepness = v > 0.0 ? sink / v : 1.0;
-    const auto burn = vertical_burn(v, to_shed, r.thrust_N, r.lander_mass_kg,
-                                    r.specific_impulse_s * standard_gravity_m_s2, g);
-    const double burn_height_m =
-        burn ? burn->height_m : (v * v - r.end_velocity_m_s * r.end_velocity_m_s) / (2.0 * braking);
-    return h - target - steepness * burn_height_m;
+    return h - target - steepness * lander_vertical_burn(r, v, r.thrust_N, g).height_m;
 }
 
 /// The latest separation at which the modelled miss is largest: the burn the model likes best.
@@ -546,51 +557,288 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     return solved_attempt.burn;
 }
 
+namespace {
+
+/// Where a drag-free powered descent from `ignition` at thrust_N ends, in closed form (under the
+/// gravity of ignition, over a flat, still body). In a gravity turn at a constant thrust
+/// acceleration n g against the velocity, the angle phi off the downward vertical and the speed
+/// obey v dphi/dt = -g sin phi and dv/dt = -n g + g cos phi, so d ln v / dphi = n / sin phi -
+/// cot phi and v = K tan^n(phi/2) / sin phi; the height lost to the vertical, the integral of
+/// v^2 cot phi / g over phi, is with u = tan(phi0/2) v0^2 / (g (1 + u^2)^2) (1 / (2n - 2) - u^4 /
+/// (2n + 2)): (1 - u^4 (n - 1) / (n + 1)) / (1 + u^2)^2 of the vertical burn's v0^2 / (2 (n - 1)
+/// g). That share scales the vertical burn by the rocket equation, with n the thrust
+/// acceleration a third of the way through that burn: the mean of its time weighted by the
+/// height lost (at a steady deceleration the rate of losing height falls linearly to zero over
+/// the time T, and the integral of t (T - t) over that of T - t is T / 3). A climbing start is
+/// taken as level.
+double modelled_end_altitude(const FlightModel& model, const BurnRequest& r, double thrust_N,
+                             const FlightState& ignition) {
+    const double h = ignition[StateIndex::altitude];
+    const double v = speed(ignition);
+    const double g = model.body.gravity_m_s2(h);
+    if (!(thrust_N > r.lander_mass_kg * g))
+        return h - v * v;  // cannot brake: as the separation solve's model, far below
+    if (!(v > r.end_velocity_m_s))
+        return h;
+    const VerticalBurn vertical = lander_vertical_burn(r, v, thrust_N, g);
+    const double exhaust = r.specific_impulse_s * standard_gravity_m_s2;
+    const double mass_by_then = r.lander_mass_kg - thrust_N / exhaust * vertical.time_s / 3.0;
+    // (at ignition where even a third of the burn would take more than there is)
+    const double n = thrust_N / ((mass_by_then > 0.0 ? mass_by_then : r.lander_mass_kg) * g);
+    const double cos_off_vertical = std::clamp(-ignition[StateIndex::up_velocity] / v, 0.0, 1.0);
+    const double u2 = (1.0 - cos_off_vertical) / (1.0 + cos_off_vertical);  // tan^2(phi0 / 2)
+    const double turn_share = (1.0 - u2 * u2 * (n - 1.0) / (n + 1.0)) / ((1.0 + u2) * (1.0 + u2));
+    return h - turn_share * vertical.height_m;
+}
+
+/// Where a flown burn ended, continued below the ground for one that reached it too fast: less
+/// the height its deceleration at the end, held vertically, would still take to slow to the end
+/// speed. Unlike the miss (burn_miss counts the excess speed), it runs on through the target
+/// with the throttle at about the same rate, so a secant can use the flights on both sides.
+double continued_end_altitude(const FlightModel& model, const BurnRequest& r,
+                              const BurnAttempt& a) {
+    const FlightState& y = a.burn.end_state;
+    const double altitude = y[StateIndex::altitude];
+    const double excess = speed(y) - r.end_velocity_m_s;
+    if (a.reached_velocity || !(excess > 0.0))
+        return altitude;
+    const double braking = r.thrust_N / y[StateIndex::mass] - model.body.gravity_m_s2(altitude);
+    constexpr double seconds = 1.0;  // as burn_miss, where the thrust cannot brake
+    if (!(braking > 0.0))
+        return altitude - excess * seconds;
+    return altitude - excess * (speed(y) + r.end_velocity_m_s) / (2.0 * braking);
+}
+
+/// The burn's mean rate of descent (m/s). A change of thrust that moves where the burn ends by a
+/// metre moves when it ends by at most one over this: exactly for a vertical burn at constant
+/// thrust acceleration a, whose time and height both go as 1 / (a - g); by less for the gravity
+/// turn above, whose d(time)/d(height) over time/height is, with A = 1 / (n - 1) and
+/// B = 1 / (n + 1), (A^2 + u^2 B^2) (A - u^4 B) / ((A - u^2 B) (A + u^2 B)^2): 1 at u = 0 and
+/// below 1 elsewhere (evaluated for n from 1 to 21 and u from 0 to 1). The end speed where the
+/// burn is flown for no time or no height.
+double mean_descent_rate_m_s(const BurnSolution& b, double end_velocity_m_s) {
+    const double drop = b.ignition_state[StateIndex::altitude] - b.end_state[StateIndex::altitude];
+    return b.burn_time_s > 0.0 && drop > 0.0 ? drop / b.burn_time_s : end_velocity_m_s;
+}
+
+/// The throttle in [low, high] at which `rising` (a function rising with the throttle) crosses
+/// zero, to the last bits of the throttle, by TOMS 748 (Alefeld, Potra and Shi, ACM TOMS 21,
+/// 1995; Boost's); the end it points to when it does not cross zero there. Of the final bracket,
+/// the end where the function is at or above zero.
+template <class F>
+double rising_root(F&& rising, double low, double high) {
+    const double at_low = rising(low);
+    if (at_low >= 0.0)
+        return low;
+    const double at_high = rising(high);
+    if (!(at_high >= 0.0))
+        return high;
+    std::uintmax_t iterations = 100;
+    const auto close = [](double a, double b) { return b - a <= 4.0 * DBL_EPSILON * b; };
+    return boost::math::tools::toms748_solve(rising, low, high, at_low, at_high, close, iterations)
+        .second;
+}
+
+}  // namespace
+
+double closed_form_throttle(const FlightModel& model, const BurnRequest& request,
+                            double full_thrust_N, double min_throttle,
+                            const FlightState& ignition_state) {
+    const double target = request.site_elevation_m + request.end_height_above_site_m;
+    return rising_root(
+        [&](double throttle) {
+            return modelled_end_altitude(model, request, throttle * full_thrust_N, ignition_state) -
+                   target;
+        },
+        std::min(min_throttle, request.throttle), request.throttle);
+}
+
 ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& request,
                                   double full_thrust_N, double min_throttle,
                                   const IntegratorSettings<flight_state_size>& settings,
                                   double ignition_time_s, const FlightState& ignition_state,
-                                  std::vector<TrajectorySample>* history) {
-    const auto fly_at = [&](double throttle, std::vector<TrajectorySample>* record) {
+                                  std::vector<TrajectorySample>* history,
+                                  const ThrottleSolve& how) {
+    const auto request_at = [&](double throttle) {
         BurnRequest r = request;
         r.throttle = throttle;
         r.thrust_N = throttle * full_thrust_N;
-        return fly_burn(model, r, settings, ignition_time_s, ignition_state, record);
+        return r;
+    };
+    const auto fly_at = [&](double throttle, std::vector<TrajectorySample>* record) {
+        return fly_burn(model, request_at(throttle), settings, ignition_time_s, ignition_state,
+                        record);
     };
     // Every flight of the solve, kept: the solution is one of them, so without a history to
     // record it is not flown again (as solve_terminal_burn keeps its own).
     std::vector<BurnAttempt> flown;
-    const auto miss_at = [&](double throttle) {
+    std::size_t evaluations = 0;
+    const auto fly = [&](double throttle) -> const BurnAttempt& {
         flown.push_back(fly_at(throttle, nullptr));
-        return burn_miss(flown.back(), request);
+        evaluations += flown.back().burn.evaluations;
+        return flown.back();
     };
     const double max_throttle = request.throttle;
     ThrottledBurn out;
-    const double miss_max = miss_at(max_throttle);
     double throttle = max_throttle;
-    if (miss_max >= 0.0) {
-        // With no range to throttle over (min_throttle at the throttle), the ignition is what is
-        // solved: the burn at the trigger stops too high unless it is already on target.
-        const double miss_min = min_throttle < max_throttle ? miss_at(min_throttle) : miss_max;
+    bool stops = false;
+    if (!(min_throttle < max_throttle)) {
+        // With no range to throttle over, the ignition is what is solved: the burn at the
+        // trigger stops too high unless it is already on target.
+        const double miss = burn_miss(fly(max_throttle), request);
         constexpr double on_target_m = 0.01;
-        if (miss_min >= (min_throttle < max_throttle ? 0.0 : on_target_m)) {
-            out.too_strong = true;
-            throttle = std::min(min_throttle, max_throttle);
-        } else if (min_throttle < max_throttle) {
-            // The miss grows with the throttle: on x = -throttle it falls, as the method wants.
-            // A throttle to 1e-9 moves where the burn ends by well under a millimetre.
-            constexpr double throttle_tolerance = 1e-9;
-            const auto falling = [&](double x) { return miss_at(-x); };
-            throttle = -illinois_last_nonnegative(falling, -max_throttle, miss_max, -min_throttle,
-                                                  miss_min, throttle_tolerance);
+        stops = miss >= 0.0;
+        out.too_strong = miss >= on_target_m;
+        throttle = std::min(min_throttle, max_throttle);
+    } else {
+        // The throttle is bracketed between the highest known to stop too late (the miss, which
+        // grows with the throttle, below zero) and the lowest known to stop in time; the range's
+        // ends until flown. The misses kept are the continued ones (the same where it stops).
+        const double target = request.site_elevation_m + request.end_height_above_site_m;
+        double low = min_throttle;
+        double high = max_throttle;
+        std::optional<double> low_miss;
+        std::optional<double> high_miss;
+        const auto continued_miss_at = [&](double x) {
+            return continued_end_altitude(model, request_at(x), fly(x)) - target;
+        };
+        const auto record = [&](double x, double m) {
+            (m >= 0.0 ? high : low) = x;
+            (m >= 0.0 ? high_miss : low_miss) = m;
+        };
+        // The closed form's error, measured by the flights (and the earlier solve): where the
+        // burn ended (continued below the ground) less where the closed form ends it.
+        const auto modelled = [&](double x) {
+            return modelled_end_altitude(model, request, x * full_thrust_N, ignition_state);
+        };
+        struct Measure {
+            double throttle = 0.0;
+            double offset_m = 0.0;
+            bool exact = false;  ///< the burn reached the end speed: not continued
+        };
+        std::vector<Measure> measures;  // in flight order
+        double tolerance_m = 0.0;       // once a burn has been flown
+        const auto measure = [&](double x, double m, const BurnSolution& b, bool exact) {
+            measures.push_back({x, m + target - modelled(x), exact});
+            tolerance_m =
+                how.end_time_tolerance_s * mean_descent_rate_m_s(b, request.end_velocity_m_s);
+        };
+        if (how.earlier && how.earlier->stops_in_time) {
+            const BurnSolution& e = *how.earlier;
+            measure(e.throttle, e.end_state[StateIndex::altitude] - target, e, true);
         }
+        // The offset along the line through the last two measures that reached the end speed
+        // when the last did (then both are where a burn ended, not continued, and the line is
+        // good to second order near the last), else through the last two; the one there is
+        // alone. The measures come nearer the solution with each flight.
+        const auto offset_line = [&]() -> std::pair<const Measure*, const Measure*> {
+            if (measures.empty())
+                return {nullptr, nullptr};
+            const Measure& newer = measures.back();
+            const Measure* previous = nullptr;  // the last before it, at another throttle
+            for (auto m = measures.rbegin() + 1; m != measures.rend(); ++m) {
+                if (m->throttle == newer.throttle)
+                    continue;
+                if (!previous)
+                    previous = &*m;
+                if (!newer.exact)
+                    break;
+                if (m->exact)
+                    return {&newer, &*m};
+            }
+            return {&newer, previous};
+        };
+        // Done: the lowest throttle known to stop stops so little above the target that its
+        // burn ends within the tolerance of time of the exact throttle's (the miss over the mean
+        // rate of descent), or the bracket has closed to the last bits of the throttle.
+        const auto solved = [&] {
+            return high_miss && (*high_miss <= tolerance_m ||
+                                 (low_miss && high - low <= 4.0 * DBL_EPSILON * high));
+        };
+        bool decided = false;  // not stopping even at the most throttle, or too strong
+        const auto decide = [&](double x, double m) {
+            decided = (m >= 0.0 && x == min_throttle) || (m < 0.0 && x == max_throttle);
+            out.too_strong = m >= 0.0 && x == min_throttle;
+        };
+        // Each guided flight aims half the tolerance above the target, at the closed form plus
+        // the offset, so that it lands within the tolerance on the side that stops; where the
+        // guide points at a flown end, the secant across the bracket. A flight that did not
+        // halve how far the last one landed from its aim ends the guided flights: the closed
+        // form is poor here (drag kept under thrust, which it does not fly, bends the miss).
+        constexpr int most_guided_flights = 8;
+        std::optional<double> last_gap;
+        bool stalled = false;
+        for (int i = 0; i < most_guided_flights && !decided && !solved() && !stalled && high > low;
+             ++i) {
+            const auto [newer, older] = offset_line();
+            const auto offset_at = [&](double x) {
+                if (!older)
+                    return newer ? newer->offset_m : 0.0;
+                return newer->offset_m + (x - newer->throttle) *
+                                             (newer->offset_m - older->offset_m) /
+                                             (newer->throttle - older->throttle);
+            };
+            const double aim = 0.5 * tolerance_m;
+            double next = rising_root(
+                [&](double x) { return modelled(x) + offset_at(x) - target - aim; }, low, high);
+            const bool bracket = low_miss && high_miss;
+            if (bracket && (next <= low || next >= high)) {
+                next = low + (high - low) * -*low_miss / (*high_miss - *low_miss);
+            } else if ((next == low && low_miss) || (next == high && high_miss)) {
+                next = 0.5 * (low + high);
+            }
+            const double m = continued_miss_at(next);
+            measure(next, m, flown.back().burn, flown.back().reached_velocity);
+            const double gap = std::abs(m - aim);
+            record(next, m);
+            decide(next, m);
+            stalled = last_gap && gap > 0.5 * *last_gap;
+            last_gap = gap;
+        }
+        // Not guided home: the range's ends flown where not yet, then the Illinois method on
+        // the bracket, its tolerance of throttle the tolerance of miss at the bracket's slope;
+        // again on the bracket it leaves, at its slope, where that was not enough.
+        if (!decided && !solved() && !high_miss) {
+            const double m = continued_miss_at(max_throttle);
+            record(max_throttle, m);
+            decide(max_throttle, m);
+        }
+        if (!decided && !solved() && !low_miss) {
+            const double m = continued_miss_at(min_throttle);
+            record(min_throttle, m);
+            decide(min_throttle, m);
+        }
+        const auto falling = [&](double x) {
+            const double m = continued_miss_at(-x);
+            record(-x, m);
+            return m;
+        };
+        constexpr int most_rounds = 3;
+        for (int i = 0; i < most_rounds && !decided && !solved() && high > low; ++i) {
+            const double slope = (*high_miss - *low_miss) / (high - low);
+            illinois_last_nonnegative(falling, -high, *high_miss, -low, *low_miss,
+                                      tolerance_m / slope);
+        }
+        const bool short_of = decided && !out.too_strong;
+        throttle = short_of ? max_throttle : high;
+        stops = !short_of && high_miss.has_value();
     }
     const auto kept = std::find_if(flown.begin(), flown.end(), [&](const BurnAttempt& a) {
         return a.burn.throttle == throttle;
     });
-    const BurnAttempt solved = !history && kept != flown.end() ? *kept : fly_at(throttle, history);
-    out.burn = solved.burn;
-    out.burn.stops_in_time = miss_max >= 0.0 && solved.reached_velocity;
+    std::size_t attempts = flown.size();
+    BurnAttempt solved_attempt;
+    if (!history && kept != flown.end()) {
+        solved_attempt = *kept;
+    } else {
+        solved_attempt = fly_at(throttle, history);
+        evaluations += solved_attempt.burn.evaluations;
+        ++attempts;
+    }
+    out.burn = solved_attempt.burn;
+    out.burn.stops_in_time = stops && solved_attempt.reached_velocity;
+    out.burn.attempts = attempts;
+    out.burn.evaluations = evaluations;
     return out;
 }
 

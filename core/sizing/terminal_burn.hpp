@@ -124,11 +124,38 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
                                  std::vector<TrajectorySample>* history = nullptr,
                                  SeparationGuide* guide = nullptr);
 
+/// How closely a throttle is solved, and what the solve may start from.
+struct ThrottleSolve {
+    /// The solved burn ends within this of the time the exact throttle's burn ends: the
+    /// timeline margin of a powered descent is the burn's time, and the separation solve's own
+    /// tolerance is the same 1e-6 s. A solve ends on a flight that stops in time with a miss below
+    /// this times the burn's mean rate of descent (see solve_burn_throttle).
+    double end_time_tolerance_s = 1e-6;
+    /// A burn solved earlier from the same ignition, with the same vehicle and burn, for another
+    /// site: where its flight ended measures the closed form's error, which does not depend on
+    /// the site, so the solve starts from it (ignored unless it stopped in time).
+    const BurnSolution* earlier = nullptr;
+};
+
+/// The throttle between min_throttle and the request's at which a drag-free powered descent
+/// from `ignition_state` ends at the end speed at the target height, in closed form (the
+/// solve's first guess): the vertical burn at constant thrust by the rocket equation (its mass
+/// falling), its height scaled by what a gravity turn at the thrust acceleration of ignition
+/// takes over a vertical burn from the same speed (the constant-acceleration gravity turn in
+/// closed form, Culler and Fried, J. Appl. Phys. 28, 1957, from memory; derived in the source).
+/// The nearer end of the range when none ends there.
+double closed_form_throttle(const FlightModel& model, const BurnRequest& request,
+                            double full_thrust_N, double min_throttle,
+                            const FlightState& ignition_state);
+
 /// A powered descent lit at a point of the entry (supersonic retro-propulsion): the throttle
 /// between min_throttle and the request's (the most the design flies) that ends the burn at the
-/// end velocity at the target height, by the Illinois method on the miss (which grows with the
-/// throttle). `too_strong` when even the deepest throttle stops above the target: the ignition
-/// must then come later. When even the most throttle does not stop in time, the burn at that
+/// end velocity at the target height. Each flight is guided by the closed-form end of the burn
+/// (closed_form_throttle's) corrected by what the flights measured of its error, aimed just
+/// above the target so that it lands on the side that stops in time; the solve ends on a flight
+/// that stops within `how`'s tolerance (the Illinois method on the miss where the guide does not
+/// close). `too_strong` when even the deepest throttle stops above the target: the ignition must
+/// then come later. When even the most throttle does not stop in time, the burn at that
 /// throttle, with stops_in_time false.
 struct ThrottledBurn {
     BurnSolution burn;
@@ -138,6 +165,7 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
                                   double full_thrust_N, double min_throttle,
                                   const IntegratorSettings<flight_state_size>& settings,
                                   double ignition_time_s, const FlightState& ignition_state,
-                                  std::vector<TrajectorySample>* history = nullptr);
+                                  std::vector<TrajectorySample>* history = nullptr,
+                                  const ThrottleSolve& how = {});
 
 }  // namespace ds

@@ -1,0 +1,184 @@
+// The throttle solve of a powered descent lit during the entry (supersonic retro-propulsion):
+// - the solved burn, flown again at its throttle, ends at the site within the metres its time
+//   tolerance allows (the tolerance times the burn's mean rate of descent), and its burn time
+//   within that tolerance of a solve a thousand times tighter, on the heavy cargo sample, at
+//   the design's site and at another started from it;
+// - the closed-form first guess against the solved throttle: exact, but for the end speed, for a
+//   drag-free gravity turn at constant mass over a flat airless body (the constant-acceleration
+//   gravity turn in closed form, Culler and Fried, J. Appl. Phys. 28, 1957, from memory), and
+//   within a stated distance on the heavy cargo sample.
+
+#include <cmath>
+
+#include <doctest/doctest.h>
+
+#include "atmosphere/exponential.hpp"
+#include "constants.hpp"
+#include "sizing/environment.hpp"
+#include "sizing/evaluation.hpp"
+#include "sizing/size.hpp"
+#include "sizing/terminal_burn.hpp"
+#include "support/samples.hpp"
+
+namespace {
+
+/// The heavy cargo sample at its closed entry mass: the burn request of its powered descent,
+/// lit at the trigger.
+struct HeavyCargo {
+    ds::Design design;
+    ds::FlightEnvironment environment;
+    ds::Evaluation e;
+
+    /// With the share of the aeroshell's and decelerator's drag kept under thrust.
+    explicit HeavyCargo(double drag_kept = 0.0)
+        : design([&] {
+              ds::Design d = ds::test::sample("heavy-cargo-lander");
+              d.terminal.drag_preservation = drag_kept;
+              return d;
+          }()),
+          environment(ds::make_environment(design)),
+          e(ds::evaluate(design, environment.model(), ds::size_design(design).mass.entry_kg,
+                         false)) {}
+
+    ds::FlightModel model() const { return environment.model(); }
+    ds::IntegratorSettings<ds::flight_state_size> settings() const {
+        return ds::flight_integrator_settings(design.solver.relative_tolerance,
+                                              static_cast<std::size_t>(design.solver.max_steps));
+    }
+    ds::BurnRequest request(double site_m) const {
+        ds::BurnRequest r = *e.burn_request;
+        r.site_elevation_m = site_m;
+        r.throttle = design.terminal.throttle;
+        r.thrust_N = r.throttle * e.full_thrust_N;
+        return r;
+    }
+    ds::ThrottledBurn solve(double site_m, const ds::ThrottleSolve& how) const {
+        return ds::solve_burn_throttle(model(), request(site_m), e.full_thrust_N,
+                                       design.terminal.min_throttle, settings(), e.entry.end_time_s,
+                                       e.entry.end_state, nullptr, how);
+    }
+    /// The burn flown again at a throttle, from the same ignition.
+    ds::BurnAttempt fly(double site_m, double throttle) const {
+        ds::BurnRequest r = request(site_m);
+        r.throttle = throttle;
+        r.thrust_N = throttle * e.full_thrust_N;
+        return ds::fly_burn(model(), r, settings(), e.entry.end_time_s, e.entry.end_state);
+    }
+};
+
+ds::ThrottleSolve within(double seconds, const ds::BurnSolution* earlier = nullptr) {
+    ds::ThrottleSolve how;
+    how.end_time_tolerance_s = seconds;
+    how.earlier = earlier;
+    return how;
+}
+
+/// Checks a solve at a site against its burn flown again, and against the tighter solve.
+void check_within_tolerance(const HeavyCargo& s, double site_m, const ds::ThrottledBurn& solved,
+                            double tolerance_s) {
+    REQUIRE(solved.burn.stops_in_time);
+    REQUIRE_FALSE(solved.too_strong);
+    const ds::BurnAttempt again = s.fly(site_m, solved.burn.throttle);
+    REQUIRE(again.reached_velocity);
+    const ds::FlightState& end = again.burn.end_state;
+    const double above_site = end[ds::StateIndex::altitude] - site_m;
+    const double mean_rate =
+        (s.e.entry.end_state[ds::StateIndex::altitude] - end[ds::StateIndex::altitude]) /
+        again.burn.burn_time_s;
+    CHECK(above_site >= 0.0);
+    CHECK(above_site <= tolerance_s * mean_rate);
+    CHECK(ds::speed(end) ==
+          doctest::Approx(s.design.terminal.touchdown_velocity_m_s).epsilon(1e-6));
+
+    const ds::ThrottledBurn tighter = s.solve(site_m, within(1e-3 * tolerance_s));
+    REQUIRE(tighter.burn.stops_in_time);
+    CHECK(std::abs(solved.burn.burn_time_s - tighter.burn.burn_time_s) <= tolerance_s);
+    CHECK(tighter.burn.throttle <= solved.burn.throttle);
+}
+
+}  // namespace
+
+TEST_CASE("the solved throttle's burn ends at the site within its tolerance (heavy cargo)") {
+    const HeavyCargo s;
+    REQUIRE(s.e.burn);
+    REQUIRE_FALSE(s.e.ignition_delayed);
+    const double site = s.design.site.elevation_m;
+    // The sizing's tolerance, 1e-6 s, as the sizing solved it.
+    const ds::ThrottledBurn solved = s.solve(site, {});
+    check_within_tolerance(s, site, solved, 1e-6);
+    CHECK(solved.burn.throttle == s.e.burn->throttle);
+    // The site search's: 1e-3 s at a site 2 km higher, from the design site's burn.
+    const double higher = site + 2000.0;
+    const ds::ThrottledBurn warm = s.solve(higher, within(1e-3, &*s.e.burn));
+    check_within_tolerance(s, higher, warm, 1e-3);
+    // Started from the design site's burn it flies at most three times (a cold solve at the
+    // sizing's tolerance four); the flights' count, not a time.
+    CHECK(warm.burn.attempts <= 3);
+}
+
+TEST_CASE("with all the drag kept under thrust, which the closed form does not fly, as closely") {
+    // The closed form is kilometres off here: the guide stalls and the Illinois method takes
+    // over (run once on the bracket, not again on the one it left, the burn 1.5 km higher,
+    // started from the design site's, ended 1.2e-4 m above the site and 2.1e-6 s off).
+    const HeavyCargo s(1.0);
+    REQUIRE(s.e.burn);
+    REQUIRE_FALSE(s.e.ignition_delayed);
+    const double site = s.design.site.elevation_m;
+    check_within_tolerance(s, site, s.solve(site, {}), 1e-6);
+    check_within_tolerance(s, site + 1500.0, s.solve(site + 1500.0, within(1e-6, &*s.e.burn)),
+                           1e-6);
+}
+
+TEST_CASE("the closed-form throttle is within 0.005 of the solved one (heavy cargo)") {
+    const HeavyCargo s;
+    const double site = s.design.site.elevation_m;
+    const double guess =
+        ds::closed_form_throttle(s.model(), s.request(site), s.e.full_thrust_N,
+                                 s.design.terminal.min_throttle, s.e.entry.end_state);
+    // 0.005 of throttle is some 160 m of the 12 km the burn descends (the miss grows by about
+    // 32 m a thousandth): the closed form flies no air, a flat body and a fixed thrust
+    // acceleration in the turn; the sample's own burn is drag-free (no drag kept under thrust).
+    CHECK(std::abs(guess - s.e.burn->throttle) <= 0.005);
+}
+
+namespace {
+
+// A flat, airless, non-rotating body with a uniform 3.7 m/s^2 (a huge radius with mu = g R^2, as
+// in the terminal-burn suite).
+constexpr double flat_radius = 1e9;
+constexpr double g = 3.7;
+
+struct FlatVacuum {
+    ds::Body body{"flat", flat_radius, g* flat_radius* flat_radius, 0.0,
+                  ds::Gas{188.9, 1.29, 1.9e-4, ""}};
+    ds::ExponentialAtmosphere air{{1e-15, 11100.0, 210.0}, 188.9, 1.29};
+    ds::FlightModel model() const { return {body, air}; }
+};
+
+}  // namespace
+
+TEST_CASE("a drag-free gravity turn at constant mass is flown at the closed form's throttle") {
+    const FlatVacuum v;
+    const double mass = 20000.0;
+    const double full = 3.0 * mass * g;
+    ds::BurnRequest r;
+    r.end_velocity_m_s = 2.0;
+    r.lander_mass_kg = mass;
+    r.thrust_N = full;
+    r.throttle = 1.0;
+    r.specific_impulse_s = 1e7;  // the mass burned is some 1e-5 of the vehicle's
+    r.gravity_turn = true;
+    for (const double path_deg : {-5.0, -20.0, -45.0, -90.0}) {
+        CAPTURE(path_deg);
+        const ds::FlightState ignition = ds::make_flight_state(
+            8000.0, 0.0, 0.0, 300.0, ds::degrees_to_radians(path_deg), M_PI / 2.0, mass);
+        const double guess = ds::closed_form_throttle(v.model(), r, full, 0.2, ignition);
+        const ds::ThrottledBurn solved = ds::solve_burn_throttle(
+            v.model(), r, full, 0.2, ds::flight_integrator_settings(1e-10, 200000), 0.0, ignition);
+        REQUIRE(solved.burn.stops_in_time);
+        REQUIRE(solved.burn.throttle > 0.2);
+        REQUIRE(solved.burn.throttle < 1.0);
+        // The closed form turns to a stop: the last 2 m/s, some 0.3 m, it counts vertically.
+        CHECK(guess == doctest::Approx(solved.burn.throttle).epsilon(1e-4));
+    }
+}
