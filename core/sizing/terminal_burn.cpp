@@ -151,6 +151,55 @@ BurnAttempt attempt(const FlightModel& model, const DenseTrajectory& descent, co
     return fly_burn(model, r, settings, t_s, descent.state_at(t_s), history);
 }
 
+/// The flights of a solve, kept: the solution is one of them, so it is not flown again (a
+/// flight is a function of what the solve varies alone). With a history to record, each flight
+/// records its own samples, a small part of what flying the solution again would cost.
+class FlownBurns {
+public:
+    explicit FlownBurns(std::vector<TrajectorySample>* history) : history_(history) {}
+
+    /// Keeps the flight `fly(record)` flies (recording its samples into `record` when it is
+    /// not null).
+    template <class Fly>
+    const BurnAttempt& add(Fly&& fly) {
+        std::vector<TrajectorySample>* record = history_ ? &samples_.emplace_back() : nullptr;
+        flown_.push_back(fly(record));
+        evaluations_ += flown_.back().burn.evaluations;
+        return flown_.back();
+    }
+    const BurnAttempt& last() const { return flown_.back(); }
+
+    /// The solution: the kept flight `is_solution` picks, its samples appended to the history;
+    /// without one, `fly(history)` flies it (again), counted with the rest. Its burn carries the
+    /// attempts and evaluations of the whole solve.
+    template <class IsSolution, class Fly>
+    BurnAttempt solution(IsSolution&& is_solution, Fly&& fly) {
+        const auto kept = std::find_if(flown_.begin(), flown_.end(), is_solution);
+        BurnAttempt solved;
+        std::size_t attempts = flown_.size();
+        if (kept != flown_.end()) {
+            solved = *kept;
+            if (history_) {
+                const auto& samples = samples_[static_cast<std::size_t>(kept - flown_.begin())];
+                history_->insert(history_->end(), samples.begin(), samples.end());
+            }
+        } else {
+            solved = fly(history_);
+            evaluations_ += solved.burn.evaluations;
+            ++attempts;
+        }
+        solved.burn.attempts = attempts;
+        solved.burn.evaluations = evaluations_;
+        return solved;
+    }
+
+private:
+    std::vector<TrajectorySample>* history_;
+    std::vector<BurnAttempt> flown_;
+    std::vector<std::vector<TrajectorySample>> samples_;  ///< each flight's, with a history
+    std::size_t evaluations_ = 0;
+};
+
 /// The burn time and the height it takes to shed `to_shed_m_s` falling vertically, at constant
 /// thrust under constant gravity with no drag, the mass falling as the propellant burns (the
 /// rocket equation, Tsiolkovsky): to_shed = c ln(m0 / m1) - g t with m1 = m0 - (T / c) t.
@@ -380,17 +429,13 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
     const auto latest_crossing = descent.time_descending_through(request.site_elevation_m);
     const double latest = latest_crossing ? *latest_crossing : descent.end_time();
     const double tolerance = request.separation_time_tolerance_s;
-    // Every flight of the solve, kept: the solution is one of them, so it is not flown again (a
-    // flight is a function of its separation time alone). With a history to record, each flight
-    // records its own samples, a small part of what flying it again would cost.
-    std::vector<BurnAttempt> flown;
-    std::vector<std::vector<TrajectorySample>> flown_samples;
-    std::size_t evaluations = 0;
+    // A flight is a function of its separation time alone.
+    FlownBurns flown(history);
     const auto flown_miss = [&](double t_s) {
-        std::vector<TrajectorySample>* samples = history ? &flown_samples.emplace_back() : nullptr;
-        flown.push_back(attempt(model, descent, request, settings, t_s, samples));
-        evaluations += flown.back().burn.evaluations;
-        return burn_miss(flown.back(), request);
+        return burn_miss(flown.add([&](std::vector<TrajectorySample>* record) {
+            return attempt(model, descent, request, settings, t_s, record);
+        }),
+                         request);
     };
     const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
 
@@ -535,26 +580,13 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
             t_solution = walk_back(flown_miss, earliest, b.late, late_miss, tolerance);
     }
     const double t_solved = t_solution.value_or(earliest);
-    const auto kept = std::find_if(flown.begin(), flown.end(), [&](const BurnAttempt& a) {
-        return a.burn.separation_time_s == t_solved;
-    });
-    std::size_t attempts = flown.size();
-    BurnAttempt solved_attempt;
-    if (kept != flown.end()) {
-        solved_attempt = *kept;
-        if (history) {
-            const auto& samples = flown_samples[static_cast<std::size_t>(kept - flown.begin())];
-            history->insert(history->end(), samples.begin(), samples.end());
-        }
-    } else {
-        solved_attempt = attempt(model, descent, request, settings, t_solved, history);
-        evaluations += solved_attempt.burn.evaluations;
-        ++attempts;
-    }
-    solved_attempt.burn.stops_in_time = t_solution.has_value() && solved_attempt.reached_velocity;
-    solved_attempt.burn.attempts = attempts;
-    solved_attempt.burn.evaluations = evaluations;
-    return solved_attempt.burn;
+    BurnAttempt solution =
+        flown.solution([&](const BurnAttempt& a) { return a.burn.separation_time_s == t_solved; },
+                       [&](std::vector<TrajectorySample>* record) {
+                           return attempt(model, descent, request, settings, t_solved, record);
+                       });
+    solution.burn.stops_in_time = t_solution.has_value() && solution.reached_velocity;
+    return solution.burn;
 }
 
 namespace {
@@ -669,14 +701,11 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
         return fly_burn(model, request_at(throttle), settings, ignition_time_s, ignition_state,
                         record);
     };
-    // Every flight of the solve, kept: the solution is one of them, so without a history to
-    // record it is not flown again (as solve_terminal_burn keeps its own).
-    std::vector<BurnAttempt> flown;
-    std::size_t evaluations = 0;
+    // A flight is a function of its throttle alone.
+    FlownBurns flown(history);
     const auto fly = [&](double throttle) -> const BurnAttempt& {
-        flown.push_back(fly_at(throttle, nullptr));
-        evaluations += flown.back().burn.evaluations;
-        return flown.back();
+        return flown.add(
+            [&](std::vector<TrajectorySample>* record) { return fly_at(throttle, record); });
     };
     const double max_throttle = request.throttle;
     ThrottledBurn out;
@@ -788,7 +817,7 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
                 next = 0.5 * (low + high);
             }
             const double m = continued_miss_at(next);
-            measure(next, m, flown.back().burn, flown.back().reached_velocity);
+            measure(next, m, flown.last().burn, flown.last().reached_velocity);
             const double gap = std::abs(m - aim);
             record(next, m);
             decide(next, m);
@@ -823,22 +852,11 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
         throttle = short_of ? max_throttle : high;
         stops = !short_of && high_miss.has_value();
     }
-    const auto kept = std::find_if(flown.begin(), flown.end(), [&](const BurnAttempt& a) {
-        return a.burn.throttle == throttle;
-    });
-    std::size_t attempts = flown.size();
-    BurnAttempt solved_attempt;
-    if (!history && kept != flown.end()) {
-        solved_attempt = *kept;
-    } else {
-        solved_attempt = fly_at(throttle, history);
-        evaluations += solved_attempt.burn.evaluations;
-        ++attempts;
-    }
-    out.burn = solved_attempt.burn;
-    out.burn.stops_in_time = stops && solved_attempt.reached_velocity;
-    out.burn.attempts = attempts;
-    out.burn.evaluations = evaluations;
+    const BurnAttempt solved = flown.solution(
+        [&](const BurnAttempt& a) { return a.burn.throttle == throttle; },
+        [&](std::vector<TrajectorySample>* record) { return fly_at(throttle, record); });
+    out.burn = solved.burn;
+    out.burn.stops_in_time = stops && solved.reached_velocity;
     return out;
 }
 
