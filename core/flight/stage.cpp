@@ -35,6 +35,10 @@ void DragDevice::follow_stagnation_pressure(double gamma) {
 }
 
 double DragDevice::drag_coefficient_at(double mach) const {
+    // A device whose drag is not kept (a powered descent's aeroshell, drag_preservation 0)
+    // skips its Mach law; a Mach number that is not finite still reaches it.
+    if (drag_coefficient == 0.0 && std::isfinite(mach))
+        return 0.0;
     double cd = drag_coefficient * table_factor(mach_factor, mach);
     if (stagnation_gamma > 0.0)
         cd *= stagnation_pressure_coefficient_at(stagnation_gamma, mach) / stagnation_limit;
