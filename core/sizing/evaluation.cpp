@@ -546,29 +546,34 @@ Evaluation evaluate(const Design& given, const FlightModel& model, double entry_
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
                                               const Evaluation& e, double site_elevation_m,
                                               SeparationGuide* guide) {
+    // At another site than the design's the burn is solved again, for the highest feasible
+    // site, found to half a metre: to a millisecond of separation or of the burn's time, which
+    // moves the margin by a millisecond, and with flights at a relative tolerance of 1e-5 where
+    // the design's is tighter, which moves where a burn ends by centimetres (our choice).
+    constexpr double trade_tolerance_s = 1e-3;
+    constexpr double trade_relative_tolerance = 1e-5;
+    const auto trade_settings = [&] {
+        return flight_integrator_settings(
+            std::max(design.solver.relative_tolerance, trade_relative_tolerance),
+            static_cast<std::size_t>(design.solver.max_steps));
+    };
     if (design.terminal.method == TerminalMethod::supersonic_retro) {
         if (!e.burn)
             return std::nullopt;
         BurnSolution burn = *e.burn;
         if (site_elevation_m != e.burn_request->site_elevation_m) {
             // The powered descent lit at the trigger, its throttle solved for that site, from
-            // the design site's solve when that was lit there too. A millisecond on the burn's
-            // time moves the margin by a millisecond: as under a canopy, plenty for a site
-            // elevation found to half a metre.
-            constexpr double trade_tolerance_s = 1e-3;
+            // the design site's solve when that was lit there too.
             BurnRequest request = *e.burn_request;
             request.site_elevation_m = site_elevation_m;
             request.throttle = design.terminal.throttle;
             ThrottleSolve how;
             how.end_time_tolerance_s = trade_tolerance_s;
             how.earlier = e.ignition_delayed ? nullptr : &*e.burn;
-            burn =
-                solve_burn_throttle(
-                    model, request, e.full_thrust_N, design.terminal.min_throttle,
-                    flight_integrator_settings(design.solver.relative_tolerance,
-                                               static_cast<std::size_t>(design.solver.max_steps)),
-                    e.entry.end_time_s, e.entry.end_state, nullptr, how)
-                    .burn;
+            burn = solve_burn_throttle(model, request, e.full_thrust_N,
+                                       design.terminal.min_throttle, trade_settings(),
+                                       e.entry.end_time_s, e.entry.end_state, nullptr, how)
+                       .burn;
         }
         TimelineMargin m;
         m.available_s = burn.end_time_s - burn.ignition_time_s;
@@ -606,20 +611,10 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
                  design.sequence.separation_coast_s;
     BurnSolution burn = *e.burn;
     if (site_elevation_m != e.burn_request->site_elevation_m) {
-        // A millisecond on the separation moves the margin by a millisecond, and burns flown
-        // at a relative tolerance of 1e-5 (where the design's is tighter) move where they end
-        // by centimetres: plenty for a site found to half a metre (our choice).
-        constexpr double trade_tolerance_s = 1e-3;
-        constexpr double trade_relative_tolerance = 1e-5;
         BurnRequest request = *e.burn_request;
         request.site_elevation_m = site_elevation_m;
         request.separation_time_tolerance_s = trade_tolerance_s;
-        burn = solve_terminal_burn(
-            model, d.record, request,
-            flight_integrator_settings(
-                std::max(design.solver.relative_tolerance, trade_relative_tolerance),
-                static_cast<std::size_t>(design.solver.max_steps)),
-            nullptr, guide);
+        burn = solve_terminal_burn(model, d.record, request, trade_settings(), nullptr, guide);
     }
     m.available_s = burn.ignition_time_s - d.deploy_time_s;
     m.margin_s = m.available_s - m.needed_s;

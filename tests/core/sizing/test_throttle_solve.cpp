@@ -41,9 +41,10 @@ struct HeavyCargo {
                          false)) {}
 
     ds::FlightModel model() const { return environment.model(); }
-    ds::IntegratorSettings<ds::flight_state_size> settings() const {
-        return ds::flight_integrator_settings(design.solver.relative_tolerance,
-                                              static_cast<std::size_t>(design.solver.max_steps));
+    ds::IntegratorSettings<ds::flight_state_size> settings(double relative_tolerance = 0.0) const {
+        return ds::flight_integrator_settings(
+            relative_tolerance > 0.0 ? relative_tolerance : design.solver.relative_tolerance,
+            static_cast<std::size_t>(design.solver.max_steps));
     }
     ds::BurnRequest request(double site_m) const {
         ds::BurnRequest r = *e.burn_request;
@@ -52,10 +53,12 @@ struct HeavyCargo {
         r.thrust_N = r.throttle * e.full_thrust_N;
         return r;
     }
-    ds::ThrottledBurn solve(double site_m, const ds::ThrottleSolve& how) const {
+    /// Flown at the design's tolerance, or at `relative_tolerance` when it is given.
+    ds::ThrottledBurn solve(double site_m, const ds::ThrottleSolve& how,
+                            double relative_tolerance = 0.0) const {
         return ds::solve_burn_throttle(model(), request(site_m), e.full_thrust_N,
-                                       design.terminal.min_throttle, settings(), e.entry.end_time_s,
-                                       e.entry.end_state, nullptr, how);
+                                       design.terminal.min_throttle, settings(relative_tolerance),
+                                       e.entry.end_time_s, e.entry.end_state, nullptr, how);
     }
     /// The burn flown again at a throttle, from the same ignition.
     ds::BurnAttempt fly(double site_m, double throttle) const {
@@ -114,6 +117,26 @@ TEST_CASE("the solved throttle's burn ends at the site within its tolerance (hea
     // Started from the design site's burn it flies at most three times (a cold solve at the
     // sizing's tolerance four); the flights' count, not a time.
     CHECK(warm.burn.attempts <= 3);
+}
+
+TEST_CASE("the site search's throttle solves, flown at 1e-5, time the burn as the design's 1e-8") {
+    // The search's flights fly at a relative tolerance of 1e-5 (timeline_margin): the burn's
+    // time, which the margin is, agrees with flights to the design's tolerance within the
+    // search's 1e-3 s, at sites up to the highest feasible one.
+    const HeavyCargo s;
+    REQUIRE(s.e.burn);
+    const double site = s.design.site.elevation_m;
+    const ds::Results r = ds::size_design(s.design, {.history = false});
+    REQUIRE(r.capability.max_site_elevation_m);
+    for (const double above : {0.25, 0.5, 0.75, 1.0}) {
+        const double at = site + above * (*r.capability.max_site_elevation_m - site);
+        CAPTURE(at);
+        const ds::ThrottledBurn fine = s.solve(at, within(1e-3, &*s.e.burn));
+        const ds::ThrottledBurn trade = s.solve(at, within(1e-3, &*s.e.burn), 1e-5);
+        REQUIRE(fine.burn.stops_in_time);
+        REQUIRE(trade.burn.stops_in_time);
+        CHECK(std::abs(trade.burn.burn_time_s - fine.burn.burn_time_s) < 2e-3);
+    }
 }
 
 TEST_CASE("with all the drag kept under thrust, which the closed form does not fly, as closely") {
