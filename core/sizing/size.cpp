@@ -33,6 +33,9 @@ constexpr int closure_max_iterations = 50;
 constexpr double closure_diverged_kg = 1e6;
 // First guess of the entry mass: the itemised masses over a typical itemised share of it.
 constexpr double first_guess_itemised_share = 0.6;
+// A closure evaluation the secant reaches by a step larger than this (a hundred times the
+// closure's tolerance) only aims it: the one after it is seldom the last (our choice).
+constexpr double closure_aiming_step_kg = 100.0 * closure_tolerance_kg;
 // The highest feasible site elevation is found to half a metre.
 constexpr double capability_tolerance_m = 0.5;
 
@@ -43,11 +46,11 @@ struct Closure {
 
 /// Closes the budget: finds the entry mass m with m = budget(m), by the secant method on
 /// r(m) = budget(m) - m, started with one fixed-point step.
-/// The first two evaluations, at the first guess and at its fixed-point step, only aim the
-/// secant: they fly to the aiming tolerances (Precision::aiming), which move their residuals
-/// by grams where the first guess is off by tens of kilograms. Every later evaluation, the one
-/// the closure ends on among them, flies the design's own; an aiming evaluation that already
-/// meets the closure's tolerance is flown again to the design's before the closure ends on it.
+/// The evaluations that only aim the secant fly to the aiming tolerance (Precision::aiming),
+/// which moves their residuals by grams: the first two (at the first guess, tens of kilograms
+/// off or more, and its fixed-point step) and any the secant reaches by a step of more than
+/// closure_aiming_step_kg. The closure ends on an evaluation flown to the design's own
+/// tolerance: an aiming one that already meets the closure's tolerance is flown again to it.
 Closure close_budget(const Design& design, const FlightModel& model, bool history) {
     double itemised = 0.0;
     for (const MassItemDesign& item : design.mass.items) {
@@ -56,20 +59,21 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
     }
     constexpr int aiming_evaluations = 2;
     int flown = 0;
-    const auto evaluate_at = [&](double mass_kg) {
-        return flown++ < aiming_evaluations
-                   ? evaluate(design, model, mass_kg, false, Precision::aiming)
-                   : evaluate(design, model, mass_kg, history);
+    const auto evaluate_at = [&](double mass_kg, double step_kg) {
+        const bool aiming =
+            flown++ < aiming_evaluations || std::abs(step_kg) > closure_aiming_step_kg;
+        return aiming ? evaluate(design, model, mass_kg, false, Precision::aiming)
+                      : evaluate(design, model, mass_kg, history);
     };
     double m0 = itemised / first_guess_itemised_share;
-    Closure c{evaluate_at(m0), {}};
+    Closure c{evaluate_at(m0, 0.0), {}};
     double r0 = c.evaluation.budget_kg() - m0;
     double m1 = c.evaluation.budget_kg();
     for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
         c.report.iterations = iteration;
         if (!std::isfinite(m1) || m1 <= 0.0 || m1 > closure_diverged_kg)
             break;
-        c.evaluation = evaluate_at(m1);
+        c.evaluation = evaluate_at(m1, m1 - m0);
         double r1 = c.evaluation.budget_kg() - m1;
         if (std::abs(r1) < closure_tolerance_kg && c.evaluation.precision == Precision::aiming) {
             c.evaluation = evaluate(design, model, m1, history);
