@@ -238,11 +238,11 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     if (may_change)
         events.push_back(change_of_equations(model, stage, equations, rhs));
 
+    // A step's end is where the step's last stage and the events were evaluated: its
+    // conditions are in the memo.
     const auto on_step = [&](double t, const FlightState& y) {
-        if (recording.history) {
-            recording.history->push_back(
-                trajectory_sample(t, flight_conditions(model, stage, y), y));
-        }
+        if (recording.history)
+            recording.history->push_back(trajectory_sample(t, conditions_at(y), y));
     };
     const IntegrationOutcome<flight_state_size> run = integrate_dormand_prince<flight_state_size>(
         rhs, t0, y0, t_max, events, settings, on_step,
