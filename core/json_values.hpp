@@ -24,6 +24,14 @@ inline Json number(const std::optional<double>& value) {
     return value ? number(*value) : Json(nullptr);
 }
 
+/// An empty object with room for `keys` members, so that filling it in order does not move
+/// the members already in it (an ordered object keeps them in a vector).
+inline Json object_with_room(std::size_t keys) {
+    Json out = Json::object();
+    out.get_ref<Json::object_t&>().reserve(keys);
+    return out;
+}
+
 /// An array of one JSON value per element, in order.
 template <class Range, class ToJson>
 Json array_of(const Range& elements, ToJson&& to_json) {

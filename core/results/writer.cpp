@@ -15,6 +15,13 @@ using json::array_of;
 using json::Json;
 using json::object_or_null;
 
+/// An object of the results, with room for the keys most of them hold, so that filling it
+/// does not move the keys already in it.
+Json results_object() {
+    constexpr std::size_t keys = 16;
+    return json::object_with_room(keys);
+}
+
 // Numbers go in as they are; results_to_json turns those that are not finite into null at the
 // end unless asked to keep them, so that one walk can name them (non_finite_figures).
 Json number(double value) {
@@ -74,7 +81,7 @@ void put_place(Json& out, const TrackPlace& place) {
 }
 
 Json entry_velocity_to_json(const EntryVelocity& v) {
-    Json out;
+    Json out = results_object();
     out["velocity_m_s"] = number(v.velocity_m_s);
     out["flight_path_angle_deg"] = number(v.flight_path_angle_deg);
     out["azimuth_deg"] = number(v.azimuth_deg);
@@ -82,7 +89,7 @@ Json entry_velocity_to_json(const EntryVelocity& v) {
 }
 
 Json interface_to_json(const EntryInterface& i) {
-    Json out;
+    Json out = results_object();
     out["latitude_deg"] = number(i.latitude_deg);
     out["longitude_deg"] = number(i.longitude_deg);
     out["rotation_flown"] = i.rotation_flown;
@@ -95,7 +102,7 @@ Json interface_to_json(const EntryInterface& i) {
 Json approach_to_json(const std::optional<ApproachResults>& approach) {
     if (!approach)
         return nullptr;
-    Json out;
+    Json out = results_object();
     out["v_infinity_m_s"] = number(approach->v_infinity_m_s);
     out["semi_major_axis_m"] = number(approach->semi_major_axis_m);
     out["eccentricity"] = number(approach->eccentricity);
@@ -112,7 +119,7 @@ Json approach_to_json(const std::optional<ApproachResults>& approach) {
 Json orbit_to_json(const std::optional<OrbitResults>& orbit) {
     if (!orbit)
         return nullptr;
-    Json out;
+    Json out = results_object();
     out["periapsis_altitude_m"] = number(orbit->periapsis_altitude_m);
     out["apoapsis_altitude_m"] = number(orbit->apoapsis_altitude_m);
     out["speed_before_burn_m_s"] = number(orbit->speed_before_burn_m_s);
@@ -133,7 +140,7 @@ Json orbit_to_json(const std::optional<OrbitResults>& orbit) {
 }
 
 Json entry_to_json(const EntryResults& entry) {
-    Json out;
+    Json out = results_object();
     out["mass_kg"] = number(entry.mass_kg);
     out["diameter_m"] = number(entry.diameter_m);
     out["nose_radius_m"] = number(entry.nose_radius_m);
@@ -157,7 +164,7 @@ Json entry_to_json(const EntryResults& entry) {
 }
 
 Json parachute_to_json(const ParachuteResults& parachute) {
-    Json out;
+    Json out = results_object();
     put_deploy(out, parachute);
     out["deploy_velocity_m_s"] = number(parachute.deploy_velocity_m_s);
     out["diameter_m"] = number(parachute.diameter_m);
@@ -180,7 +187,7 @@ Json parachute_to_json(const ParachuteResults& parachute) {
 }
 
 Json decelerator_to_json(const DeceleratorResults& decelerator) {
-    Json out;
+    Json out = results_object();
     put_deploy(out, decelerator);
     out["diameter_m"] = number(decelerator.diameter_m);
     out["mass_kg"] = number(decelerator.mass_kg);
@@ -188,7 +195,7 @@ Json decelerator_to_json(const DeceleratorResults& decelerator) {
 }
 
 Json powered_descent_to_json(const PoweredDescentResults& p) {
-    Json out;
+    Json out = results_object();
     out["ignition_mach"] = number(p.ignition_mach);
     out["ignition_dynamic_pressure_Pa"] = number(p.ignition_dynamic_pressure_Pa);
     out["ignition_flight_path_angle_deg"] = number(p.ignition_flight_path_angle_deg);
@@ -204,7 +211,7 @@ Json powered_descent_to_json(const PoweredDescentResults& p) {
 }
 
 Json terminal_to_json(const TerminalResults& terminal) {
-    Json out;
+    Json out = results_object();
     out["method"] = to_string(terminal.method);
     out["ignition_altitude_m"] = number(terminal.ignition_altitude_m);
     out["ignition_velocity_m_s"] = number(terminal.ignition_velocity_m_s);
@@ -225,7 +232,7 @@ Json terminal_to_json(const TerminalResults& terminal) {
 }
 
 Json landing_to_json(const LandingResults& landing) {
-    Json out;
+    Json out = results_object();
     put_place(out, landing);
     out["miss_m"] = number(landing.miss_m);
     out["miss_downrange_m"] = number(landing.miss_downrange_m);
@@ -234,7 +241,7 @@ Json landing_to_json(const LandingResults& landing) {
 }
 
 Json event_to_json(const TimelineEvent& event) {
-    Json out;
+    Json out = results_object();
     out["name"] = event.name;
     out["time_s"] = number(event.time_s);
     out["altitude_m"] = number(event.altitude_m);
@@ -244,7 +251,7 @@ Json event_to_json(const TimelineEvent& event) {
 }
 
 Json timeline_to_json(const Timeline& timeline) {
-    Json out;
+    Json out = results_object();
     out["events"] = array_of(timeline.events, event_to_json);
     out["margin_s"] = number(timeline.margin_s);
     out["available_s"] = number(timeline.available_s);
@@ -253,7 +260,7 @@ Json timeline_to_json(const Timeline& timeline) {
 }
 
 Json closure_to_json(const MassClosure& closure) {
-    Json out;
+    Json out = results_object();
     out["converged"] = closure.converged;
     out["iterations"] = closure.iterations;
     out["residual_kg"] = number(closure.residual_kg);
@@ -261,7 +268,7 @@ Json closure_to_json(const MassClosure& closure) {
 }
 
 Json item_to_json(const MassItem& item) {
-    Json out;
+    Json out = results_object();
     out["name"] = item.name;
     out["mass_kg"] = number(item.mass_kg);
     out["basic_kg"] = number(item.basic_kg);
@@ -273,7 +280,7 @@ Json item_to_json(const MassItem& item) {
 }
 
 Json mass_to_json(const MassResults& mass) {
-    Json out;
+    Json out = results_object();
     out["mode"] = to_string(mass.mode);
     out["entry_kg"] = number(mass.entry_kg);
     out["landed_kg"] = number(mass.landed_kg);
@@ -285,7 +292,7 @@ Json mass_to_json(const MassResults& mass) {
 }
 
 Json capability_to_json(const Capability& capability) {
-    Json out;
+    Json out = results_object();
     out["max_site_elevation_m"] = number(capability.max_site_elevation_m);
     out["max_site_elevation_limit"] =
         capability.max_site_elevation_limit
@@ -295,7 +302,7 @@ Json capability_to_json(const Capability& capability) {
 }
 
 Json check_to_json(const Check& check) {
-    Json out;
+    Json out = results_object();
     out["id"] = check.id;
     out["status"] = to_string(check.status);
     out["value"] = number(check.value);
@@ -309,7 +316,7 @@ Json check_to_json(const Check& check) {
 }
 
 Json sample_to_json(const TrajectorySample& sample) {
-    Json out;
+    Json out = results_object();
     for (const HistoryColumn& column : history_columns)
         out[column.key] = number(sample.*column.value);
     return out;
@@ -318,7 +325,7 @@ Json sample_to_json(const TrajectorySample& sample) {
 }  // namespace
 
 nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptions options) {
-    Json out;
+    Json out = results_object();
     out["format"] = results_format_id;
     out["version"] = results_format_version;
     out["converged"] = results.converged;
