@@ -12,9 +12,9 @@
 
 namespace ds {
 
-/// How closely the evaluations are flown that only aim a search (the mass closure's first
-/// ones, which only aim its secant): at this relative tolerance where the design's is tighter,
-/// which moves a budget by grams where the first guess is off by tens of kilograms (our choice).
+/// How closely the evaluations are flown that only aim a search (the mass closure's that only
+/// aim its secant, far from the closed mass): at this relative tolerance where the design's is
+/// tighter, which moves a budget by grams where the secant is still kilograms off (our choice).
 inline constexpr double aiming_relative_tolerance = 1e-6;
 
 /// Whether an evaluation flies to the design's tolerances or to the aiming ones.

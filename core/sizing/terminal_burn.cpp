@@ -799,7 +799,10 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
         bool stalled = false;
         for (int i = 0; i < most_guided_flights && !decided && !solved() && !stalled && high > low;
              ++i) {
-            const auto [newer, older] = offset_line();
+            // Named, not bound: a lambda may not capture a structured binding in clang 14.
+            const std::pair<const Measure*, const Measure*> line = offset_line();
+            const Measure* newer = line.first;
+            const Measure* older = line.second;
             const auto offset_at = [&](double x) {
                 if (!older)
                     return newer ? newer->offset_m : 0.0;
