@@ -61,16 +61,26 @@ QXYSeries* seriesNamed(QChart* chart, const QString& name) {
     return nullptr;
 }
 
-/// The sample's design with a wider aeroshell, and its results: another result of the same
-/// design, as an edit of the diameter (or of the ballistic coefficient it is sized for) gives.
-Results widened(const Design& design, Design* wider) {
-    *wider = design;
-    AeroshellDesign& aeroshell = wider->aeroshell;
+/// Two results of the same design: a sample's, then the sample's with a wider aeroshell, as an
+/// edit of the diameter (or of the ballistic coefficient it is sized for) gives.
+struct TwoFlights {
+    Design design;
+    Results first;
+    Design wider;
+    Results second;
+};
+
+TwoFlights twoFlights(const char* sample) {
+    TwoFlights f;
+    f.first = sized(sample, &f.design);
+    f.wider = f.design;
+    AeroshellDesign& aeroshell = f.wider.aeroshell;
     if (aeroshell.diameter_m)
         *aeroshell.diameter_m *= 1.15;
     else if (aeroshell.size_for_ballistic_coefficient_kg_m2)
         *aeroshell.size_for_ballistic_coefficient_kg_m2 /= 1.15 * 1.15;
-    return size_design(*wider);
+    f.second = size_design(f.wider);
+    return f;
 }
 
 constexpr Qt::Alignment sides[] = {Qt::AlignBottom, Qt::AlignLeft, Qt::AlignRight};
@@ -224,10 +234,7 @@ private slots:
     }
 
     void newResultsOfTheSameDesignAreDrawnIntoTheChartsOnShow() {
-        Design design;
-        const Results first = sized("small-ballistic-station.json", &design);
-        Design wider;
-        const Results second = widened(design, &wider);
+        const auto [design, first, wider, second] = twoFlights("small-ballistic-station.json");
         QVERIFY(!second.history.empty());
         ChartsView charts;
         charts.setResults(design, first, nullptr);
@@ -272,10 +279,7 @@ private slots:
         for (const char* sample : {"small-ballistic-station.json", "earth-return-capsule.json",
                                    "titan-surface-probe.json", "heavy-cargo-lander.json",
                                    "lifting-rover-carrier.json", "venus-atmospheric-probe.json"}) {
-            Design design;
-            const Results first = sized(sample, &design);
-            Design wider;
-            const Results second = widened(design, &wider);
+            const auto [design, first, wider, second] = twoFlights(sample);
             ChartsView charts;
             auto* pages = charts.findChild<QTabWidget*>(QStringLiteral("flightPages"));
             QVERIFY(pages);
@@ -314,10 +318,7 @@ private slots:
     }
 
     void aChartOfAnotherShapeIsBuiltAnew() {
-        Design design;
-        const Results first = sized("small-ballistic-station.json", &design);
-        Design wider;
-        const Results second = widened(design, &wider);
+        const auto [design, first, wider, second] = twoFlights("small-ballistic-station.json");
         ChartsView charts;
         charts.setResults(design, first, nullptr);
         QChart* loads = charts.views()[1]->chart();
@@ -334,10 +335,7 @@ private slots:
     }
 
     void aZoomedChartKeepsItsZoomForNewResults() {
-        Design design;
-        const Results first = sized("small-ballistic-station.json", &design);
-        Design wider;
-        const Results second = widened(design, &wider);
+        const auto [design, first, wider, second] = twoFlights("small-ballistic-station.json");
         ChartsView charts;
         charts.resize(1000, 700);
         charts.setResults(design, first, nullptr);

@@ -23,6 +23,7 @@
 #include "constants.hpp"
 #include "sizing/size.hpp"
 #include "sizing/terminal_burn.hpp"
+#include "support/flat_vacuum.hpp"
 #include "support/results_lookup.hpp"
 #include "support/samples.hpp"
 
@@ -30,17 +31,8 @@ namespace odeint = boost::numeric::odeint;
 
 namespace {
 
-// A flat, airless, non-rotating body with a uniform 3.7 m/s^2: a huge radius with mu = g R^2
-// keeps g within 1e-5 over the few kilometres flown (as in the terminal-burn suite).
-constexpr double flat_radius = 1e9;
-constexpr double g = 3.7;
-
-struct Vacuum {
-    ds::Body body{"flat", flat_radius, g* flat_radius* flat_radius, 0.0,
-                  ds::Gas{188.9, 1.29, 1.9e-4, ""}};
-    ds::ExponentialAtmosphere air{{1e-15, 11100.0, 210.0}, 188.9, 1.29};
-    ds::FlightModel model() const { return {body, air}; }
-};
+// The flat, airless body's uniform gravity (support/flat_vacuum.hpp).
+constexpr double g = ds::test::flat_gravity_m_s2;
 
 ds::IntegratorSettings<ds::flight_state_size> tight() {
     return ds::flight_integrator_settings(1e-10, 200000);
@@ -88,7 +80,7 @@ using Raw = std::array<double, ds::flight_state_size + 1>;  // the state, then t
 }  // namespace
 
 TEST_CASE("a vertical powered descent in vacuum: throttle, burn time, propellant (closed form)") {
-    const Vacuum v;
+    const ds::test::FlatVacuum v;
     const double m0 = 10000.0;
     const double v0 = 150.0;
     const double h0 = 3000.0;
@@ -120,7 +112,7 @@ TEST_CASE("a vertical powered descent in vacuum: throttle, burn time, propellant
 }
 
 TEST_CASE("a powered descent whose deepest throttle stops too high asks for a later ignition") {
-    const Vacuum v;
+    const ds::test::FlatVacuum v;
     const double m0 = 10000.0;
     const ds::FlightState ignition =
         ds::make_flight_state(20000.0, 0.0, 0.0, 150.0, -M_PI / 2.0, 0.0, m0);

@@ -6,20 +6,17 @@
 
 #include <doctest/doctest.h>
 
-#include "atmosphere/exponential.hpp"
 #include "constants.hpp"
 #include "sizing/terminal_burn.hpp"
+#include "support/flat_vacuum.hpp"
 
 namespace {
 
-// A flat, airless, non-rotating body with a uniform 3.7 m/s^2: a huge radius with
-// mu = g R^2 keeps g within 1e-5 over the few kilometres flown.
-constexpr double radius = 1e9;
-constexpr double g = 3.7;
+// The flat, airless body's uniform gravity (support/flat_vacuum.hpp).
+constexpr double g = ds::test::flat_gravity_m_s2;
 
 struct VerticalDrop {
-    ds::Body body{"flat", radius, g* radius* radius, 0.0, ds::Gas{188.9, 1.29, 1.9e-4, ""}};
-    ds::ExponentialAtmosphere vacuum{{1e-15, 11100.0, 210.0}, 188.9, 1.29};
+    ds::test::FlatVacuum flat;
     ds::DenseTrajectory record;
 
     VerticalDrop() {
@@ -30,7 +27,7 @@ struct VerticalDrop {
             ds::make_flight_state(6000.0, 0.0, 0.0, 60.0, -M_PI / 2.0, 0.0, 500.0);
         ds::fly_phase(model(), fall, 0.0, y0, 1000.0, settings(), {nullptr, &record});
     }
-    ds::FlightModel model() const { return {body, vacuum}; }
+    ds::FlightModel model() const { return flat.model(); }
     static ds::IntegratorSettings<ds::flight_state_size> settings() {
         return ds::flight_integrator_settings(1e-10, 100000);
     }

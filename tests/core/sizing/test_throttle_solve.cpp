@@ -12,12 +12,12 @@
 
 #include <doctest/doctest.h>
 
-#include "atmosphere/exponential.hpp"
 #include "constants.hpp"
 #include "sizing/environment.hpp"
 #include "sizing/evaluation.hpp"
 #include "sizing/size.hpp"
 #include "sizing/terminal_burn.hpp"
+#include "support/flat_vacuum.hpp"
 #include "support/samples.hpp"
 
 namespace {
@@ -164,26 +164,10 @@ TEST_CASE("the closed-form throttle is within 0.005 of the solved one (heavy car
     CHECK(std::abs(guess - s.e.burn->throttle) <= 0.005);
 }
 
-namespace {
-
-// A flat, airless, non-rotating body with a uniform 3.7 m/s^2 (a huge radius with mu = g R^2, as
-// in the terminal-burn suite).
-constexpr double flat_radius = 1e9;
-constexpr double g = 3.7;
-
-struct FlatVacuum {
-    ds::Body body{"flat", flat_radius, g* flat_radius* flat_radius, 0.0,
-                  ds::Gas{188.9, 1.29, 1.9e-4, ""}};
-    ds::ExponentialAtmosphere air{{1e-15, 11100.0, 210.0}, 188.9, 1.29};
-    ds::FlightModel model() const { return {body, air}; }
-};
-
-}  // namespace
-
 TEST_CASE("a drag-free gravity turn at constant mass is flown at the closed form's throttle") {
-    const FlatVacuum v;
+    const ds::test::FlatVacuum v;
     const double mass = 20000.0;
-    const double full = 3.0 * mass * g;
+    const double full = 3.0 * mass * ds::test::flat_gravity_m_s2;
     ds::BurnRequest r;
     r.end_velocity_m_s = 2.0;
     r.lander_mass_kg = mass;
