@@ -543,20 +543,60 @@ Evaluation evaluate(const Design& given, const FlightModel& model, double entry_
     return e;
 }
 
+namespace {
+
+// At another site than the design's the burn is solved again, for the highest feasible site,
+// found to half a metre: to a millisecond of separation or of the burn's time, which moves the
+// margin by a millisecond, and with flights at a relative tolerance of 1e-5 where the design's
+// is tighter, which moves where a burn ends by centimetres (our choice).
+constexpr double trade_tolerance_s = 1e-3;
+constexpr double trade_relative_tolerance = 1e-5;
+
+IntegratorSettings<flight_state_size> trade_settings(const Design& design) {
+    return flight_integrator_settings(
+        std::max(design.solver.relative_tolerance, trade_relative_tolerance),
+        static_cast<std::size_t>(design.solver.max_steps));
+}
+
+/// The powered descent from the entry at another site: lit at the trigger, at the design's
+/// throttle until solved.
+BurnRequest powered_request_at(const Design& design, const Evaluation& e, double site_m) {
+    BurnRequest request = *e.burn_request;
+    request.site_elevation_m = site_m;
+    request.throttle = design.terminal.throttle;
+    request.thrust_N = design.terminal.throttle * e.full_thrust_N;
+    return request;
+}
+
+/// The timeline margin of a powered descent from the entry: the time from ignition to the
+/// burn's end, less the ground-sensing lock the terminal descent needs.
+TimelineMargin powered_margin(const Design& design, const BurnSolution& burn) {
+    TimelineMargin m;
+    m.available_s = burn.end_time_s - burn.ignition_time_s;
+    m.needed_s = design.sequence.ground_sensing_lock_s;
+    m.margin_s = m.available_s - m.needed_s;
+    return m;
+}
+
+}  // namespace
+
+std::optional<PoweredReach> powered_reach(const Design& design, const FlightModel& model,
+                                          const Evaluation& e, double lowest_site_m) {
+    if (design.terminal.method != TerminalMethod::supersonic_retro || !e.burn || !e.burn_request)
+        return std::nullopt;
+    const BurnAttempt full =
+        fly_burn(model, powered_request_at(design, e, lowest_site_m), trade_settings(design),
+                 e.entry.end_time_s, e.entry.end_state, nullptr);
+    if (!full.reached_velocity)
+        return std::nullopt;
+    return PoweredReach{
+        full.burn.end_state[StateIndex::altitude] - e.burn_request->end_height_above_site_m,
+        powered_margin(design, full.burn).margin_s};
+}
+
 std::optional<TimelineMargin> timeline_margin(const Design& design, const FlightModel& model,
                                               const Evaluation& e, double site_elevation_m,
                                               SeparationGuide* guide) {
-    // At another site than the design's the burn is solved again, for the highest feasible
-    // site, found to half a metre: to a millisecond of separation or of the burn's time, which
-    // moves the margin by a millisecond, and with flights at a relative tolerance of 1e-5 where
-    // the design's is tighter, which moves where a burn ends by centimetres (our choice).
-    constexpr double trade_tolerance_s = 1e-3;
-    constexpr double trade_relative_tolerance = 1e-5;
-    const auto trade_settings = [&] {
-        return flight_integrator_settings(
-            std::max(design.solver.relative_tolerance, trade_relative_tolerance),
-            static_cast<std::size_t>(design.solver.max_steps));
-    };
     if (design.terminal.method == TerminalMethod::supersonic_retro) {
         if (!e.burn)
             return std::nullopt;
@@ -564,21 +604,16 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         if (site_elevation_m != e.burn_request->site_elevation_m) {
             // The powered descent lit at the trigger, its throttle solved for that site, from
             // the design site's solve when that was lit there too.
-            BurnRequest request = *e.burn_request;
-            request.site_elevation_m = site_elevation_m;
-            request.throttle = design.terminal.throttle;
             ThrottleSolve how;
             how.end_time_tolerance_s = trade_tolerance_s;
             how.earlier = e.ignition_delayed ? nullptr : &*e.burn;
-            burn = solve_burn_throttle(model, request, e.full_thrust_N,
-                                       design.terminal.min_throttle, trade_settings(),
-                                       e.entry.end_time_s, e.entry.end_state, nullptr, how)
+            burn = solve_burn_throttle(model, powered_request_at(design, e, site_elevation_m),
+                                       e.full_thrust_N, design.terminal.min_throttle,
+                                       trade_settings(design), e.entry.end_time_s,
+                                       e.entry.end_state, nullptr, how)
                        .burn;
         }
-        TimelineMargin m;
-        m.available_s = burn.end_time_s - burn.ignition_time_s;
-        m.needed_s = design.sequence.ground_sensing_lock_s;
-        m.margin_s = m.available_s - m.needed_s;
+        TimelineMargin m = powered_margin(design, burn);
         if (!burn.stops_in_time) {
             // As under a canopy: the excess speed counts against it, so the margin keeps
             // falling as the site rises.
@@ -614,7 +649,7 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         BurnRequest request = *e.burn_request;
         request.site_elevation_m = site_elevation_m;
         request.separation_time_tolerance_s = trade_tolerance_s;
-        burn = solve_terminal_burn(model, d.record, request, trade_settings(), nullptr, guide);
+        burn = solve_terminal_burn(model, d.record, request, trade_settings(design), nullptr, guide);
     }
     m.available_s = burn.ignition_time_s - d.deploy_time_s;
     m.margin_s = m.available_s - m.needed_s;

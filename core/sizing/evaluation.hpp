@@ -111,4 +111,18 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
                                               const Evaluation& evaluation, double site_elevation_m,
                                               SeparationGuide* guide = nullptr);
 
+/// How high a powered descent from the entry can land: its burn lit at the trigger at the
+/// design's throttle (the most), flown on until it slows to its end speed over no ground. The
+/// site it ends its end height above is the highest it stops in time for (a burn at less
+/// throttle ends lower; above it the margin counts the excess speed, a jump), and `margin_s` is
+/// the timeline margin there. Flown as timeline_margin flies other sites. Nothing when the
+/// evaluation has no powered descent from the entry, or the burn has not slowed to its end
+/// speed `lowest_site_m` above the lowest site searched.
+struct PoweredReach {
+    double site_m = 0.0;
+    double margin_s = 0.0;
+};
+std::optional<PoweredReach> powered_reach(const Design& design, const FlightModel& model,
+                                          const Evaluation& evaluation, double lowest_site_m);
+
 }  // namespace ds

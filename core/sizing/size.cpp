@@ -187,6 +187,21 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
         }
         return m;
     };
+    // A powered descent from the entry: where its burn at the most throttle slows to its end
+    // speed bounds the search in one flight. Up to there the margin is smooth in the site (the
+    // throttle rises, the burn shortens); above it the burn cannot stop, a jump in the margin a
+    // root-finder would only close in on by halves. Where the margin holds up to that edge, the
+    // site half the search's tolerance inside it: the edge flown at the search's tolerance is
+    // centimetres from the edge flown at the design's.
+    if (powered) {
+        if (const auto reach = powered_reach(design, model, evaluation, low);
+            reach && reach->site_m > stops && reach->site_m < high) {
+            if (reach->margin_s >= 0.0)
+                return std::max(stops, reach->site_m - 0.5 * capability_tolerance_m);
+            fails = reach->site_m;
+            fails_margin = reach->margin_s;
+        }
+    }
     if (const auto guess = capability_guess(design, model, *e)) {
         const double inside = capability_tolerance_m;
         const double first = std::clamp(guess->site_m, low + inside, high - inside);

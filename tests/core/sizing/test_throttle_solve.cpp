@@ -3,6 +3,8 @@
 //   tolerance allows (the tolerance times the burn's mean rate of descent), and its burn time
 //   within that tolerance of a solve a thousand times tighter, on the heavy cargo sample, at
 //   the design's site and at another started from it;
+// - the reach (the highest site the burn at the most throttle stops for) against solves just
+//   under and just over it, and the site search's answer against it;
 // - the closed-form first guess against the solved throttle: exact, but for the end speed, for a
 //   drag-free gravity turn at constant mass over a flat airless body (the constant-acceleration
 //   gravity turn in closed form, Culler and Fried, J. Appl. Phys. 28, 1957, from memory), and
@@ -137,6 +139,33 @@ TEST_CASE("the site search's throttle solves, flown at 1e-5, time the burn as th
         REQUIRE(trade.burn.stops_in_time);
         CHECK(std::abs(trade.burn.burn_time_s - fine.burn.burn_time_s) < 2e-3);
     }
+}
+
+TEST_CASE("the powered descent's reach: the highest site its burn at the most throttle stops for") {
+    // One flight at the design's throttle bounds the site search: a site 5 cm under the reach
+    // is landed on at the end speed, at a throttle within 1e-4 of the most, its margin that of
+    // the reach within the search's 1e-3 s; 5 cm over it the burn cannot stop. Both solves flown
+    // at the search's 1e-5, as the reach.
+    const HeavyCargo s;
+    REQUIRE(s.e.burn);
+    const double site = s.design.site.elevation_m;
+    const auto reach = ds::powered_reach(s.design, s.model(), s.e, site);
+    REQUIRE(reach);
+    CHECK(reach->site_m > site + 5000.0);  // the sample reaches a site some 5.4 km higher
+    const ds::ThrottledBurn under = s.solve(reach->site_m - 0.05, within(1e-3, &*s.e.burn), 1e-5);
+    REQUIRE(under.burn.stops_in_time);
+    CHECK(under.burn.throttle > s.design.terminal.throttle - 1e-4);
+    const double under_margin = under.burn.end_time_s - under.burn.ignition_time_s -
+                                s.design.sequence.ground_sensing_lock_s;
+    CHECK(std::abs(under_margin - reach->margin_s) < 1e-3);
+    const ds::ThrottledBurn over = s.solve(reach->site_m + 0.05, within(1e-3, &*s.e.burn), 1e-5);
+    CHECK_FALSE(over.burn.stops_in_time);
+    // The site search returns half its tolerance (0.5 m) inside the reach, where the margin
+    // holds (it does here).
+    REQUIRE(reach->margin_s >= 0.0);
+    const ds::Results r = ds::size_design(s.design, {.history = false});
+    REQUIRE(r.capability.max_site_elevation_m);
+    CHECK(std::abs(*r.capability.max_site_elevation_m - (reach->site_m - 0.25)) < 1e-9);
 }
 
 TEST_CASE("with all the drag kept under thrust, which the closed form does not fly, as closely") {
