@@ -370,7 +370,7 @@ DenseTrajectory coast_after_trigger(const Design& design, const FlightModel& mod
 /// comes later at that throttle (solved on the unpowered flight after the trigger). Nothing
 /// separates: the whole entry vehicle lands, less the propellant burned.
 void fly_powered_descent(const Design& design, const FlightModel& model, Evaluation& e,
-                         bool history) {
+                         bool history, const Evaluation* previous) {
     const TerminalDesign& t = design.terminal;
     const double site = design.site.elevation_m;
     const double g_site = model.body.gravity_m_s2(site);
@@ -389,9 +389,16 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
         design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
     std::vector<TrajectorySample> burn_samples;
     std::vector<TrajectorySample>* record = history ? &burn_samples : nullptr;
+    ThrottleSolve how;
+    if (e.precision == Precision::aiming)
+        how.end_time_tolerance_s = aiming_end_time_tolerance_s;
+    if (previous && previous->burn && previous->burn_request && !previous->ignition_delayed) {
+        how.earlier = &*previous->burn;
+        how.earlier_request = &*previous->burn_request;
+    }
     ThrottledBurn solved =
         solve_burn_throttle(model, request, e.full_thrust_N, t.min_throttle, settings,
-                            e.entry.end_time_s, e.entry.end_state, record);
+                            e.entry.end_time_s, e.entry.end_state, record, how);
     if (solved.too_strong) {
         std::vector<TrajectorySample> coast_samples;
         const DenseTrajectory coast =
@@ -442,7 +449,7 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
 }  // namespace
 
 Evaluation evaluate(const Design& given, const FlightModel& model, double entry_kg, bool history,
-                    Precision precision) {
+                    Precision precision, const Evaluation* previous) {
     // Aiming, the design is flown at the looser of its tolerance and the aiming one.
     std::optional<Design> loosened;
     if (precision == Precision::aiming &&
@@ -498,7 +505,7 @@ Evaluation evaluate(const Design& given, const FlightModel& model, double entry_
     const bool fires_engines = design.terminal.method != TerminalMethod::none;
     if (powered_from_entry) {
         if (e.entry.end == EntryEnd::deployed && has_lander)
-            fly_powered_descent(design, model, e, history);
+            fly_powered_descent(design, model, e, history, previous);
     } else if (e.entry.end == EntryEnd::deployed && e.canopy_diameter_m > 0.0 && under_canopy) {
         DescentPlan plan;
         plan.canopy = canopy_device(e.canopy, e.canopy_diameter_m, e.canopy_drag_coefficient);

@@ -16,6 +16,10 @@ namespace ds {
 /// aim its secant, far from the closed mass): at this relative tolerance where the design's is
 /// tighter, which moves a budget by grams where the secant is still kilograms off (our choice).
 inline constexpr double aiming_relative_tolerance = 1e-6;
+/// And a powered descent's throttle is solved so that its burn ends within this of the time the
+/// exact throttle's ends, where the design's is solved to 1e-6 s: grams of propellant (our
+/// choice; the separation solve under a canopy gains no flight from it and keeps 1e-6 s).
+inline constexpr double aiming_end_time_tolerance_s = 1e-4;
 
 /// Whether an evaluation flies to the design's tolerances or to the aiming ones.
 enum class Precision { design, aiming };
@@ -91,9 +95,12 @@ inline constexpr double capability_depth_below_site_m = 5000.0;
 
 /// Flies the design at an entry mass and builds its budget. In analysis mode (the design fixes
 /// the entry mass), what the budget leaves over is added as "unallocated". Without `history`
-/// the evaluation's history stays empty (and the flights record no samples).
+/// the evaluation's history stays empty (and the flights record no samples). `previous`, an
+/// evaluation of the same design at another entry mass (the closure's last), guides the solve of
+/// a powered descent's throttle.
 Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg,
-                    bool history = true, Precision precision = Precision::design);
+                    bool history = true, Precision precision = Precision::design,
+                    const Evaluation* previous = nullptr);
 
 /// The timeline margin of an evaluation at a site elevation: time from parachute deploy to the
 /// start of the terminal burn (the touchdown for "none"), less the time the sequence needs.

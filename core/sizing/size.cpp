@@ -59,14 +59,21 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
     }
     constexpr int aiming_evaluations = 2;
     int flown = 0;
+    Closure c;
+    // Each evaluation after the first is guided by the one before it (c.evaluation until the
+    // new one replaces it).
     const auto evaluate_at = [&](double mass_kg, double step_kg) {
+        const Evaluation* previous = flown > 0 ? &c.evaluation : nullptr;
         const bool aiming =
             flown++ < aiming_evaluations || std::abs(step_kg) > closure_aiming_step_kg;
-        return aiming ? evaluate(design, model, mass_kg, false, Precision::aiming)
-                      : evaluate(design, model, mass_kg, history);
+        return aiming ? evaluate(design, model, mass_kg, false, Precision::aiming, previous)
+                      : evaluate(design, model, mass_kg, history, Precision::design, previous);
+    };
+    const auto design_precision_at = [&](double mass_kg) {
+        return evaluate(design, model, mass_kg, history, Precision::design, &c.evaluation);
     };
     double m0 = itemised / first_guess_itemised_share;
-    Closure c{evaluate_at(m0, 0.0), {}};
+    c.evaluation = evaluate_at(m0, 0.0);
     double r0 = c.evaluation.budget_kg() - m0;
     double m1 = c.evaluation.budget_kg();
     for (int iteration = 1; iteration <= closure_max_iterations; ++iteration) {
@@ -76,7 +83,7 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
         c.evaluation = evaluate_at(m1, m1 - m0);
         double r1 = c.evaluation.budget_kg() - m1;
         if (std::abs(r1) < closure_tolerance_kg && c.evaluation.precision == Precision::aiming) {
-            c.evaluation = evaluate(design, model, m1, history);
+            c.evaluation = design_precision_at(m1);
             r1 = c.evaluation.budget_kg() - m1;
         }
         c.report.residual_kg = r1;
@@ -91,7 +98,7 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
         m1 = next;
     }
     if (c.evaluation.precision == Precision::aiming)  // diverged from an aiming evaluation
-        c.evaluation = evaluate(design, model, c.evaluation.entry_kg, history);
+        c.evaluation = design_precision_at(c.evaluation.entry_kg);
     return c;
 }
 

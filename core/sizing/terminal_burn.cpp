@@ -7,6 +7,7 @@
 #include <functional>
 #include <limits>
 #include <optional>
+#include <utility>
 
 #include <boost/math/tools/toms748_solve.hpp>
 
@@ -752,9 +753,23 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             tolerance_m =
                 how.end_time_tolerance_s * mean_descent_rate_m_s(b, request.end_velocity_m_s);
         };
+        // (an earlier solve's for another vehicle, until this solve's first flight)
+        bool foreign_measure = false;
         if (how.earlier && how.earlier->stops_in_time) {
             const BurnSolution& e = *how.earlier;
-            measure(e.throttle, e.end_state[StateIndex::altitude] - target, e, true);
+            if (how.earlier_request) {
+                const BurnRequest& r = *how.earlier_request;
+                measures.push_back({e.throttle,
+                                    e.end_state[StateIndex::altitude] -
+                                        modelled_end_altitude(model, r, r.thrust_N,
+                                                              e.ignition_state),
+                                    true});
+                tolerance_m =
+                    how.end_time_tolerance_s * mean_descent_rate_m_s(e, r.end_velocity_m_s);
+                foreign_measure = true;
+            } else {
+                measure(e.throttle, e.end_state[StateIndex::altitude] - target, e, true);
+            }
         }
         // The offset along the line through the last two measures that reached the end speed
         // when the last did (then both are where a burn ended, not continued, and the line is
@@ -821,6 +836,8 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             }
             const double m = continued_miss_at(next);
             measure(next, m, flown.last().burn, flown.last().reached_velocity);
+            if (std::exchange(foreign_measure, false))
+                measures.erase(measures.begin());
             const double gap = std::abs(m - aim);
             record(next, m);
             decide(next, m);

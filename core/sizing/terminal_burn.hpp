@@ -135,6 +135,10 @@ struct ThrottleSolve {
     /// site: where its flight ended measures the closed form's error, which does not depend on
     /// the site, so the solve starts from it (ignored unless it stopped in time).
     const BurnSolution* earlier = nullptr;
+    /// What `earlier` was solved for, when that was another vehicle from another ignition (the
+    /// mass closure's previous entry mass): its closed-form error, taken on its own request and
+    /// ignition, guides the first flight only, for it changes with the vehicle.
+    const BurnRequest* earlier_request = nullptr;
 };
 
 /// The throttle between min_throttle and the request's at which a drag-free powered descent
