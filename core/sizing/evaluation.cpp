@@ -395,6 +395,7 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     if (previous && previous->burn && previous->burn_request && !previous->ignition_delayed) {
         how.earlier = &*previous->burn;
         how.earlier_request = &*previous->burn_request;
+        how.offset_slope_m = previous->throttle_offset_slope_m;
     }
     ThrottledBurn solved =
         solve_burn_throttle(model, request, e.full_thrust_N, t.min_throttle, settings,
@@ -418,6 +419,7 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     request.throttle = solved.burn.throttle;
     request.thrust_N = solved.burn.throttle * e.full_thrust_N;
     e.ignition_delayed = solved.too_strong;
+    e.throttle_offset_slope_m = solved.offset_slope_m;
     e.burn_request = request;
     e.burn = solved.burn;
     e.history.insert(e.history.end(), burn_samples.begin(), burn_samples.end());

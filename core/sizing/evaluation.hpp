@@ -64,6 +64,9 @@ struct Evaluation {
     /// supersonic_retro: even the deepest throttle stopped above the site at the trigger, so
     /// the ignition was solved later along the flight (at that throttle).
     bool ignition_delayed = false;
+    /// supersonic_retro: how the throttle solve's closed-form error changes with the throttle,
+    /// for the next closure evaluation's solve (ThrottledBurn::offset_slope_m).
+    std::optional<double> throttle_offset_slope_m;
     double burned_kg = 0.0;  ///< every burn, hover and fly-away included
     double loaded_propellant_kg = 0.0;
     std::optional<double> hover_time_s;      ///< tethered

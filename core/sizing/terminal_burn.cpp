@@ -819,11 +819,12 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             const Measure* newer = line.first;
             const Measure* older = line.second;
             const auto offset_at = [&](double x) {
-                if (!older)
-                    return newer ? newer->offset_m : 0.0;
-                return newer->offset_m + (x - newer->throttle) *
-                                             (newer->offset_m - older->offset_m) /
-                                             (newer->throttle - older->throttle);
+                if (!newer)
+                    return 0.0;
+                const std::optional<double> slope =
+                    older ? (newer->offset_m - older->offset_m) / (newer->throttle - older->throttle)
+                          : how.offset_slope_m;
+                return newer->offset_m + (slope ? (x - newer->throttle) * *slope : 0.0);
             };
             const double aim = 0.5 * tolerance_m;
             double next = rising_root(
@@ -871,6 +872,10 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
         const bool short_of = decided && !out.too_strong;
         throttle = short_of ? max_throttle : high;
         stops = !short_of && high_miss.has_value();
+        if (const std::pair<const Measure*, const Measure*> line = offset_line(); line.second) {
+            out.offset_slope_m = (line.first->offset_m - line.second->offset_m) /
+                                 (line.first->throttle - line.second->throttle);
+        }
     }
     const BurnAttempt solved = flown.solution(
         [&](const BurnAttempt& a) { return a.burn.throttle == throttle; },

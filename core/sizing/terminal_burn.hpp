@@ -139,6 +139,10 @@ struct ThrottleSolve {
     /// mass closure's previous entry mass): its closed-form error, taken on its own request and
     /// ignition, guides the first flight only, for it changes with the vehicle.
     const BurnRequest* earlier_request = nullptr;
+    /// How the closed form's error changes with the throttle (m per unit of throttle), as an
+    /// earlier solve measured it (ThrottledBurn::offset_slope_m): until this solve has measured
+    /// its error at two throttles, its guide takes the error's change from it, not as constant.
+    std::optional<double> offset_slope_m;
 };
 
 /// The throttle between min_throttle and the request's at which a drag-free powered descent
@@ -164,6 +168,10 @@ double closed_form_throttle(const FlightModel& model, const BurnRequest& request
 struct ThrottledBurn {
     BurnSolution burn;
     bool too_strong = false;
+    /// The change of the closed form's error with the throttle between the solve's last two
+    /// measures of it at different throttles (m per unit of throttle), for a later solve's
+    /// guide (ThrottleSolve::offset_slope_m); none when it measured fewer.
+    std::optional<double> offset_slope_m;
 };
 ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& request,
                                   double full_thrust_N, double min_throttle,
