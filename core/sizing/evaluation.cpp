@@ -616,6 +616,7 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
             ThrottleSolve how;
             how.end_time_tolerance_s = trade_tolerance_s;
             how.earlier = e.ignition_delayed ? nullptr : &*e.burn;
+            how.offset_slope_m = e.throttle_offset_slope_m;
             burn = solve_burn_throttle(model, powered_request_at(design, e, site_elevation_m),
                                        e.full_thrust_N, design.terminal.min_throttle,
                                        trade_settings(design), e.entry.end_time_s,
