@@ -392,6 +392,8 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     ThrottleSolve how;
     if (e.precision == Precision::aiming)
         how.end_time_tolerance_s = aiming_end_time_tolerance_s;
+    if (e.precision == Precision::first_guess)
+        how.end_time_tolerance_s = first_guess_end_time_tolerance_s;
     if (previous && previous->burn && previous->burn_request && !previous->ignition_delayed) {
         how.earlier = &*previous->burn;
         how.earlier_request = &*previous->burn_request;
@@ -452,12 +454,15 @@ void descend_on_canopy(const Design& design, Evaluation& e) {
 
 Evaluation evaluate(const Design& given, const FlightModel& model, double entry_kg, bool history,
                     Precision precision, const Evaluation* previous) {
-    // Aiming, the design is flown at the looser of its tolerance and the aiming one.
+    // Aiming (or at the first guess), the design is flown at the looser of its tolerance and
+    // the aiming one (the first guess's).
+    const double loosest = precision == Precision::aiming        ? aiming_relative_tolerance
+                           : precision == Precision::first_guess ? first_guess_relative_tolerance
+                                                                 : 0.0;
     std::optional<Design> loosened;
-    if (precision == Precision::aiming &&
-        given.solver.relative_tolerance < aiming_relative_tolerance) {
+    if (given.solver.relative_tolerance < loosest) {
         loosened = given;
-        loosened->solver.relative_tolerance = aiming_relative_tolerance;
+        loosened->solver.relative_tolerance = loosest;
     }
     const Design& design = loosened ? *loosened : given;
     Evaluation e;

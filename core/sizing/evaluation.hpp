@@ -21,8 +21,16 @@ inline constexpr double aiming_relative_tolerance = 1e-6;
 /// choice; the separation solve under a canopy gains no flight from it and keeps 1e-6 s).
 inline constexpr double aiming_end_time_tolerance_s = 1e-4;
 
-/// Whether an evaluation flies to the design's tolerances or to the aiming ones.
-enum class Precision { design, aiming };
+/// The mass closure's first evaluation, at its first guess (tens of percent off), gives the
+/// secant no more than its first residual: at this relative tolerance where the design's is
+/// tighter, its powered descent's throttle solved to this of the burn's time (our choice; it
+/// moves a closed budget by grams, through the secant's path).
+inline constexpr double first_guess_relative_tolerance = 1e-5;
+inline constexpr double first_guess_end_time_tolerance_s = 1e-3;
+
+/// Whether an evaluation flies to the design's tolerances, to the aiming ones or to the first
+/// guess's.
+enum class Precision { design, aiming, first_guess };
 
 /// One flight of the whole design at one entry mass, with the mass budget it implies: the
 /// step the closure iterates, and what the results are made from.

@@ -46,28 +46,30 @@ struct Closure {
 
 /// Closes the budget: finds the entry mass m with m = budget(m), by the secant method on
 /// r(m) = budget(m) - m, started with one fixed-point step.
-/// The evaluations that only aim the secant fly to the aiming tolerance (Precision::aiming),
-/// which moves their residuals by grams: the first two (at the first guess, tens of kilograms
-/// off or more, and its fixed-point step) and any the secant reaches by a step of more than
-/// closure_aiming_step_kg. The closure ends on an evaluation flown to the design's own
-/// tolerance: an aiming one that already meets the closure's tolerance is flown again to it.
+/// The evaluations that only steer the secant fly to looser tolerances, which moves their
+/// residuals by grams: the first, at the first guess (tens of percent off), to the first
+/// guess's (Precision::first_guess); the second (its fixed-point step) and any the secant
+/// reaches by a step of more than closure_aiming_step_kg to the aiming ones
+/// (Precision::aiming). The closure ends on an evaluation flown to the design's own tolerance:
+/// one that already meets the closure's tolerance at a looser one is flown again to it.
 Closure close_budget(const Design& design, const FlightModel& model, bool history) {
     double itemised = 0.0;
     for (const MassItemDesign& item : design.mass.items) {
         if (!leaves_before_entry(item.group))
             itemised += item.mass_kg;
     }
-    constexpr int aiming_evaluations = 2;
+    constexpr int aiming_evaluations = 2;  // the first guess's, then one aiming
     int flown = 0;
     Closure c;
     // Each evaluation after the first is guided by the one before it (c.evaluation until the
     // new one replaces it).
     const auto evaluate_at = [&](double mass_kg, double step_kg) {
-        const Evaluation* previous = flown > 0 ? &c.evaluation : nullptr;
+        if (++flown == 1)
+            return evaluate(design, model, mass_kg, false, Precision::first_guess);
         const bool aiming =
-            flown++ < aiming_evaluations || std::abs(step_kg) > closure_aiming_step_kg;
-        return aiming ? evaluate(design, model, mass_kg, false, Precision::aiming, previous)
-                      : evaluate(design, model, mass_kg, history, Precision::design, previous);
+            flown <= aiming_evaluations || std::abs(step_kg) > closure_aiming_step_kg;
+        return evaluate(design, model, mass_kg, history && !aiming,
+                        aiming ? Precision::aiming : Precision::design, &c.evaluation);
     };
     const auto design_precision_at = [&](double mass_kg) {
         return evaluate(design, model, mass_kg, history, Precision::design, &c.evaluation);
@@ -82,7 +84,7 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
             break;
         c.evaluation = evaluate_at(m1, m1 - m0);
         double r1 = c.evaluation.budget_kg() - m1;
-        if (std::abs(r1) < closure_tolerance_kg && c.evaluation.precision == Precision::aiming) {
+        if (std::abs(r1) < closure_tolerance_kg && c.evaluation.precision != Precision::design) {
             c.evaluation = design_precision_at(m1);
             r1 = c.evaluation.budget_kg() - m1;
         }
@@ -97,7 +99,7 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
         r0 = r1;
         m1 = next;
     }
-    if (c.evaluation.precision == Precision::aiming)  // diverged from an aiming evaluation
+    if (c.evaluation.precision != Precision::design)  // diverged from an aiming evaluation
         c.evaluation = design_precision_at(c.evaluation.entry_kg);
     return c;
 }
