@@ -220,20 +220,26 @@ IntegrationOutcome<flight_state_size> fly_stretch(
             events.back().counts = [](double, const FlightState& y) { return descending(y); };
         }
     }
-    // A peak is where the logarithmic rate of its quantity falls through zero. The rate is a
-    // central difference along the flow, y +- dt y', so every quantity, whatever its model,
-    // is served by the same event.
+    // A peak is a local maximum of its quantity: the integrator sees it from the quantity at
+    // the steps' ends (in the memo: the step's last stage was evaluated there), whatever the
+    // quantity's model, and places it where the logarithmic rate of the quantity falls through
+    // zero. The rate is a central difference along the flow, y +- dt y', so every quantity,
+    // whatever its model, is served by the same event; it is asked only near a peak.
     static constexpr double rate_step_s = 1e-3;
     for (const Peak& peak : phase.peaks) {
-        events.push_back({[&quantity, &rhs, q = peak.quantity](double, const FlightState& y) {
-                              const FlightState dy = rate_step_s * rhs(0.0, y);
-                              const double ahead = quantity(q, y + dy);
-                              const double behind = quantity(q, y - dy);
-                              if (!(ahead > 0.0 && behind > 0.0))
-                                  return 0.0;
-                              return std::log(ahead / behind);
-                          },
-                          EventDirection::falling, false});
+        Event<flight_state_size> event{
+            [&quantity, q = peak.quantity](double, const FlightState& y) { return quantity(q, y); },
+            EventDirection::any, false};
+        event.kind = EventKind::maximum;
+        event.slope = [&quantity, &rhs, q = peak.quantity](double, const FlightState& y) {
+            const FlightState dy = rate_step_s * rhs(0.0, y);
+            const double ahead = quantity(q, y + dy);
+            const double behind = quantity(q, y - dy);
+            if (!(ahead > 0.0 && behind > 0.0))
+                return 0.0;
+            return std::log(ahead / behind);
+        };
+        events.push_back(std::move(event));
     }
     if (may_change)
         events.push_back(change_of_equations(model, stage, equations, rhs));

@@ -12,6 +12,7 @@
 
 #include <Eigen/Core>
 #include <boost/container/small_vector.hpp>
+#include <boost/math/tools/minima.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
 
 namespace ds {
@@ -32,7 +33,16 @@ struct IntegratorSettings {
 
 enum class EventDirection { any, rising, falling };
 
-/// A zero crossing of g(t, y) to locate. A terminal event ends the integration.
+/// What an event locates: a zero crossing of its function, or a local maximum of it.
+enum class EventKind { crossing, maximum };
+
+/// A zero crossing of g(t, y) to locate (a terminal event ends the integration), or a local
+/// maximum of g along the solution (EventKind::maximum; never terminal, direction unused).
+/// A maximum costs no evaluation of g but at the steps' ends: it is seen where g, having risen
+/// over one step, does not rise over the next, and is then located on those two steps'
+/// continuous extension: at the zero of its slope when the event has one, else by Brent's
+/// method on g. A step that holds a maximum and a minimum of g both shows neither, as a step
+/// that crosses zero twice shows no crossing.
 template <int N>
 struct Event {
     std::function<double(double, const Vector<N>&)> function;
@@ -40,6 +50,12 @@ struct Event {
     bool terminal = false;
     /// When given, a crossing counts only if this holds at it; the others pass unreported.
     std::function<bool(double, const Vector<N>&)> counts{};
+    EventKind kind = EventKind::crossing;
+    /// For a maximum, when given: of the sign of g's rate along the solution. Its zero places
+    /// the maximum to the event time tolerance, where g's values on the continuous extension
+    /// place it only as well as the extension's slope is known (some 1e-5 s on a step of a
+    /// second at a relative tolerance of 1e-8).
+    std::function<double(double, const Vector<N>&)> slope{};
 };
 
 template <int N>
@@ -127,13 +143,160 @@ inline bool crosses(double before, double after, EventDirection direction) {
     return false;
 }
 
+/// A value of a maximum event's function at a time.
+struct TimedValue {
+    double t = 0.0;
+    double g = 0.0;
+};
+
+/// Where the local maximum of g lies between `from` and `to` (g above both there), given a
+/// value between them that is above both, when there is one (`inside`): where the slope's
+/// zero is, when the event has a slope, by TOMS 748 to `tolerance`, in a bracket a twentieth of
+/// the span either side of the vertex of the parabola through the three values (the whole span
+/// when the slope does not change sign there); else, or when the slope does not change sign on
+/// the span either, by Brent's method (Boost.Math) on -g, in the time from `from`, to half the
+/// digits of a double of it (the maximum being flat, the value is then good to all of them, the
+/// time only as well as the continuous extension's slope is known). Nothing when the largest
+/// value found is not above both ends.
+template <class G, class Slope>
+std::optional<double> locate_maximum(G&& g, const Slope* slope, TimedValue from, TimedValue to,
+                                     std::optional<TimedValue> inside, double tolerance) {
+    const double span = to.t - from.t;
+    if (slope && *slope) {
+        double guess = from.t + 0.5 * span;
+        if (inside) {
+            // The vertex of the parabola through the three values.
+            const double d1 = (inside->g - from.g) / (inside->t - from.t);
+            const double d2 = (to.g - inside->g) / (to.t - inside->t);
+            const double curvature = (d2 - d1) / (to.t - from.t);
+            if (curvature < 0.0)
+                guess = 0.5 * (from.t + inside->t) - d1 / (2.0 * curvature);
+        }
+        guess = std::clamp(guess, from.t, to.t);
+        const auto rate = [&](double t) { return (*slope)(t); };
+        const double near = 0.05 * span;
+        double a = std::max(from.t, guess - near);
+        double b = std::min(to.t, guess + near);
+        double rate_a = rate(a);
+        double rate_b = rate(b);
+        if (!(rate_a > 0.0 && rate_b < 0.0)) {
+            if (!(rate_a > 0.0))
+                rate_a = rate(a = from.t);
+            if (!(rate_b < 0.0))
+                rate_b = rate(b = to.t);
+        }
+        if (rate_a > 0.0 && rate_b < 0.0) {
+            std::uintmax_t iterations = 100;
+            const double t =
+                boost::math::tools::toms748_solve(
+                    rate, a, b, rate_a, rate_b,
+                    [&](double l, double r) { return std::abs(r - l) <= tolerance; }, iterations)
+                    .second;
+            return g(t) > std::max(from.g, to.g) ? std::optional<double>(t) : std::nullopt;
+        }
+    }
+    std::uintmax_t iterations = 100;
+    const auto [after_from, minus_g] =
+        boost::math::tools::brent_find_minima([&](double s) { return -g(from.t + s); }, 0.0, span,
+                                              std::numeric_limits<double>::digits / 2, iterations);
+    if (!(-minus_g > std::max(from.g, to.g)))
+        return std::nullopt;
+    return from.t + after_from;
+}
+
+/// A step's start of the flow along its first derivative, to tell which way a maximum event's
+/// function goes where nothing before it says: at an integration's start (forward) and at a
+/// terminal event (backward), in seconds, small against any step that resolves a maximum.
+inline constexpr double slope_probe_s = 1e-3;
+
+/// The maximum events of an integration: which way each function went over the last step,
+/// the values at that step's start and its continuous extension, and the search for a maximum
+/// once a function that rose does not rise again. Out of the integrator's loop (and out of
+/// line), so that an integration with none pays a test a step.
+template <int N>
+class Maxima {
+public:
+    Maxima(std::span<const Event<N>> events, double t0, const Vector<N>& y0, const Vector<N>& k1,
+           const EventValues<double>& g0)
+        : rising_(events.size(), 0), g_earlier_(events.size()) {
+        for (std::size_t i = 0; i < events.size(); ++i) {
+            if (events[i].kind != EventKind::maximum)
+                continue;
+            any_ = true;
+            rising_[i] = events[i].function(t0 + slope_probe_s, y0 + slope_probe_s * k1) > g0[i];
+        }
+    }
+
+    bool any() const { return any_; }
+
+    /// After the accepted step `current` from t to t_new (the events' values g_before at t,
+    /// g_after at t_new), ended early by `stop` when a terminal event came in it: appends the
+    /// maxima on it, and on the step before it, to `hits`.
+    [[gnu::noinline]] void after_step(std::span<const Event<N>> events, const DenseStep<N>& current,
+                                      double t, double t_new, const EventValues<double>& g_before,
+                                      const EventValues<double>& g_after, const EventHit<N>* stop,
+                                      double tolerance, EventValues<EventHit<N>>& hits) {
+        const double t_last = stop ? stop->t : t_new;
+        const auto state_at = [&](double tau) {
+            return previous_ && tau < current.t0 ? (*previous_)(tau) : current(tau);
+        };
+        for (std::size_t i = 0; i < events.size(); ++i) {
+            if (events[i].kind != EventKind::maximum)
+                continue;
+            const double g_last = stop ? events[i].function(t_last, stop->y) : g_after[i];
+            const bool rose = g_last > g_before[i];
+            // Risen over the last step and not over this one: the maximum is on the two, above
+            // the value between them. Rising into the terminal event: on this step, when the
+            // value falls just before the event.
+            std::optional<TimedValue> from;
+            std::optional<TimedValue> inside;
+            if (rising_[i] && !rose) {
+                from = previous_ ? TimedValue{previous_->t0, g_earlier_[i]}
+                                 : TimedValue{t, g_before[i]};
+                if (previous_)
+                    inside = TimedValue{t, g_before[i]};
+            } else if (stop && rose) {
+                const double back = std::min(slope_probe_s, 0.5 * (t_last - t));
+                const double t_back = t_last - back;
+                const double g_back = events[i].function(t_back, current(t_back));
+                if (back > 0.0 && g_back > g_last) {
+                    from = TimedValue{t, g_before[i]};
+                    inside = TimedValue{t_back, g_back};
+                }
+            }
+            rising_[i] = rose;
+            g_earlier_[i] = g_before[i];
+            if (!from)
+                continue;
+            const std::function<double(double)> slope =
+                events[i].slope ? std::function<double(double)>([&](double tau) {
+                    return events[i].slope(tau, state_at(tau));
+                })
+                                : nullptr;
+            const std::optional<double> t_max =
+                locate_maximum([&](double tau) { return events[i].function(tau, state_at(tau)); },
+                               &slope, *from, {t_last, g_last}, inside, tolerance);
+            if (t_max)
+                hits.push_back({i, *t_max, state_at(*t_max)});
+        }
+        previous_ = current;
+    }
+
+private:
+    EventValues<char> rising_;       ///< each maximum event's function rose over the last step
+    EventValues<double> g_earlier_;  ///< the values at the last step's start
+    std::optional<DenseStep<N>> previous_;  ///< the last step's continuous extension
+    bool any_ = false;
+};
+
 }  // namespace detail
 
 /// Integrates y' = rhs(t, y) from t0 to t_end with the Dormand-Prince 5(4) pair, adaptive step
 /// size on a mixed absolute/relative error norm, locating events on the dense output with
-/// TOMS 748 (Boost.Math). After every accepted step `on_step(t, y)` is called; with
-/// `dense_record`, every accepted step's continuous extension is appended to it. The one
-/// integrator of the project: every flight phase is a call of it with its own rhs and events.
+/// TOMS 748 (Boost.Math), and maxima from the steps' ends (see Event). After every accepted step
+/// `on_step(t, y)` is called; with `dense_record`, every accepted step's continuous extension is
+/// appended to it. The one integrator of the project: every flight phase is a call of it with its
+/// own rhs and events.
 template <int N, class Rhs, class OnStep>
 IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vector<N>& y0,
                                                double t_end, std::span<const Event<N>> events,
@@ -162,6 +325,7 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
     detail::EventValues<EventHit<N>> hits;
     for (std::size_t i = 0; i < events.size(); ++i)
         g_start[i] = events[i].function(t, y);
+    detail::Maxima<N> maxima(events, t, y, k1, g_start);
 
     on_step(t, y);
     while (t < t_end) {
@@ -241,7 +405,8 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         detail::EventValues<double>& g_after = *after_values;
         for (std::size_t i = 0; i < events.size(); ++i) {
             g_after[i] = events[i].function(t_new, y_new);
-            if (!detail::crosses(g_before[i], g_after[i], events[i].direction))
+            if (events[i].kind == EventKind::maximum ||
+                !detail::crosses(g_before[i], g_after[i], events[i].direction))
                 continue;
             const DenseStep<N>& dense = extension();
             const auto g = [&](double tau) { return events[i].function(tau, dense(tau)); };
@@ -258,11 +423,22 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
                 continue;
             hits.push_back({i, t_hit, y_hit});
         }
-        std::sort(hits.begin(), hits.end(),
-                  [](const EventHit<N>& a, const EventHit<N>& b) { return a.t < b.t; });
-        const auto terminal = std::find_if(hits.begin(), hits.end(), [&](const EventHit<N>& hit) {
-            return events[hit.index].terminal;
-        });
+        const auto by_time = [](const EventHit<N>& a, const EventHit<N>& b) { return a.t < b.t; };
+        std::sort(hits.begin(), hits.end(), by_time);
+        const auto first_terminal = [&] {
+            return std::find_if(hits.begin(), hits.end(),
+                                [&](const EventHit<N>& hit) { return events[hit.index].terminal; });
+        };
+        if (maxima.any()) {
+            // (a copy: the maxima are appended to the hits)
+            const auto stop = first_terminal();
+            const std::optional<EventHit<N>> stopped =
+                stop != hits.end() ? std::optional<EventHit<N>>(*stop) : std::nullopt;
+            maxima.after_step(events, extension(), t, t_new, g_before, g_after,
+                              stopped ? &*stopped : nullptr, settings.event_time_tolerance, hits);
+            std::sort(hits.begin(), hits.end(), by_time);
+        }
+        const auto terminal = first_terminal();
 
         ++out.accepted_steps;
         if (terminal != hits.end()) {

@@ -664,7 +664,8 @@ std::optional<TimelineMargin> timeline_margin(const Design& design, const Flight
         BurnRequest request = *e.burn_request;
         request.site_elevation_m = site_elevation_m;
         request.separation_time_tolerance_s = trade_tolerance_s;
-        burn = solve_terminal_burn(model, d.record, request, trade_settings(design), nullptr, guide);
+        burn =
+            solve_terminal_burn(model, d.record, request, trade_settings(design), nullptr, guide);
     }
     m.available_s = burn.ignition_time_s - d.deploy_time_s;
     m.margin_s = m.available_s - m.needed_s;

@@ -759,11 +759,11 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             const BurnSolution& e = *how.earlier;
             if (how.earlier_request) {
                 const BurnRequest& r = *how.earlier_request;
-                measures.push_back({e.throttle,
-                                    e.end_state[StateIndex::altitude] -
-                                        modelled_end_altitude(model, r, r.thrust_N,
-                                                              e.ignition_state),
-                                    true});
+                measures.push_back(
+                    {e.throttle,
+                     e.end_state[StateIndex::altitude] -
+                         modelled_end_altitude(model, r, r.thrust_N, e.ignition_state),
+                     true});
                 tolerance_m =
                     how.end_time_tolerance_s * mean_descent_rate_m_s(e, r.end_velocity_m_s);
                 foreign_measure = true;
@@ -821,9 +821,9 @@ ThrottledBurn solve_burn_throttle(const FlightModel& model, const BurnRequest& r
             const auto offset_at = [&](double x) {
                 if (!newer)
                     return 0.0;
-                const std::optional<double> slope =
-                    older ? (newer->offset_m - older->offset_m) / (newer->throttle - older->throttle)
-                          : how.offset_slope_m;
+                const std::optional<double> slope = older ? (newer->offset_m - older->offset_m) /
+                                                                (newer->throttle - older->throttle)
+                                                          : how.offset_slope_m;
                 return newer->offset_m + (slope ? (x - newer->throttle) * *slope : 0.0);
             };
             const double aim = 0.5 * tolerance_m;

@@ -1,4 +1,5 @@
 #include <cmath>
+#include <functional>
 #include <vector>
 
 #include <doctest/doctest.h>
@@ -158,4 +159,83 @@ TEST_CASE("the observer sees every accepted step, in time order, ending at t_end
     CHECK(times.front() == 0.0);
     CHECK(times.back() == doctest::Approx(5.0).epsilon(1e-15));
     CHECK(std::is_sorted(times.begin(), times.end()));
+}
+
+namespace {
+
+/// A maximum event of a function of the state, with its slope along the flow when given.
+template <class G>
+Event<2> maximum_of(G g, std::function<double(double, const Vector<2>&)> slope = {}) {
+    Event<2> e{g, EventDirection::any, false};
+    e.kind = ds::EventKind::maximum;
+    e.slope = std::move(slope);
+    return e;
+}
+
+std::vector<double> maxima_times(const ds::IntegrationOutcome<2>& out) {
+    std::vector<double> times;
+    for (const auto& hit : out.events)
+        times.push_back(hit.t);
+    return times;
+}
+
+}  // namespace
+
+TEST_CASE(
+    "maxima of -sin t (x = cos t) at 3 pi / 2 and 7 pi / 2: by the slope to 1e-7 s, by "
+    "the values to 1e-5 s (closed form)") {
+    // v = -sin t peaks at 3 pi / 2 + 2 k pi, at 1. Its slope along the flow is v' = -x.
+    const auto v = [](double, const Vector<2>& y) { return y[1]; };
+    const auto slope = [](double, const Vector<2>& y) { return -y[0]; };
+    for (const bool with_slope : {true, false}) {
+        CAPTURE(with_slope);
+        const std::vector<Event<2>> events{with_slope ? maximum_of(v, slope) : maximum_of(v)};
+        const auto out = ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 12.0,
+                                                         events, tight(), ignore_step);
+        REQUIRE(out.events.size() == 2);
+        const double tolerance = with_slope ? 1e-7 : 1e-5;
+        CHECK(std::abs(out.events[0].t - 1.5 * M_PI) < tolerance);
+        CHECK(std::abs(out.events[1].t - 3.5 * M_PI) < tolerance);
+        CHECK(std::abs(out.events[0].y[1] - 1.0) < 1e-9);
+        CHECK(std::abs(out.events[1].y[1] - 1.0) < 1e-9);
+    }
+}
+
+TEST_CASE("a maximum inside the first step, and one just before a terminal event, are found") {
+    // g = -(t - c)^2 through the state's clock: y = (t, 0) with y' = (1, 0).
+    const auto clock = [](double, const Vector<2>&) { return Vector<2>(1.0, 0.0); };
+    const auto around = [](double c) {
+        return maximum_of([c](double, const Vector<2>& y) { return -(y[0] - c) * (y[0] - c); },
+                          [c](double, const Vector<2>& y) { return -(y[0] - c); });
+    };
+    IntegratorSettings<2> s = tight();
+    s.initial_step = 0.1;
+    SUBCASE("at 0.03, inside the first step (0.1 s)") {
+        const std::vector<Event<2>> events{around(0.03)};
+        const auto out = ds::integrate_dormand_prince<2>(clock, 0.0, Vector<2>(0.0, 0.0), 1.0,
+                                                         events, s, ignore_step);
+        REQUIRE(maxima_times(out).size() == 1);
+        CHECK(std::abs(out.events[0].t - 0.03) < 1e-7);
+    }
+    SUBCASE("at 1.0, 10 ms before the terminal event at 1.01") {
+        const std::vector<Event<2>> events{
+            around(1.0),
+            {[](double, const Vector<2>& y) { return y[0] - 1.01; }, EventDirection::rising, true}};
+        const auto out = ds::integrate_dormand_prince<2>(clock, 0.0, Vector<2>(0.0, 0.0), 5.0,
+                                                         events, s, ignore_step);
+        CHECK(out.reason == StopReason::terminal_event);
+        REQUIRE(out.events.size() == 2);
+        CHECK(out.events[0].index == 0u);
+        CHECK(std::abs(out.events[0].t - 1.0) < 1e-7);
+        CHECK(out.events[1].index == 1u);
+    }
+    SUBCASE("none where the function rises to the terminal event, nor after it") {
+        const std::vector<Event<2>> events{
+            around(1.02),
+            {[](double, const Vector<2>& y) { return y[0] - 1.01; }, EventDirection::rising, true}};
+        const auto out = ds::integrate_dormand_prince<2>(clock, 0.0, Vector<2>(0.0, 0.0), 5.0,
+                                                         events, s, ignore_step);
+        REQUIRE(out.events.size() == 1);
+        CHECK(out.events[0].index == 1u);
+    }
 }

@@ -132,17 +132,15 @@ TEST_CASE("a solve for another entry mass, guided by the closure's previous one,
     const HeavyCargo s;
     REQUIRE(s.e.burn);
     REQUIRE(s.e.throttle_offset_slope_m);
-    const ds::Evaluation heavier =
-        ds::evaluate(s.design, s.model(), s.e.entry_kg + 200.0, false);
+    const ds::Evaluation heavier = ds::evaluate(s.design, s.model(), s.e.entry_kg + 200.0, false);
     REQUIRE(heavier.burn_request);
     ds::BurnRequest request = *heavier.burn_request;  // as solved: at the design's throttle again
     request.throttle = s.design.terminal.throttle;
     request.thrust_N = request.throttle * heavier.full_thrust_N;
     const auto solve = [&](const ds::ThrottleSolve& how) {
-        return ds::solve_burn_throttle(s.model(), request, heavier.full_thrust_N,
-                                       s.design.terminal.min_throttle, s.settings(),
-                                       heavier.entry.end_time_s, heavier.entry.end_state, nullptr,
-                                       how);
+        return ds::solve_burn_throttle(
+            s.model(), request, heavier.full_thrust_N, s.design.terminal.min_throttle, s.settings(),
+            heavier.entry.end_time_s, heavier.entry.end_state, nullptr, how);
     };
     const ds::ThrottledBurn cold = solve(within(1e-6));
     ds::ThrottleSolve guided_how = within(1e-6, &*s.e.burn);
