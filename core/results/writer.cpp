@@ -43,6 +43,20 @@ void null_non_finite(Json& value) {
 
 /// The paths of the numbers in `value` that are not finite. `path` grows and shrinks as the
 /// walk goes down and back up, so a path is written out only for a number it names.
+/// Whether a document holds a number that is not finite: the walk without the paths, for the
+/// common case where it holds none.
+bool holds_non_finite(const Json& value) {
+    if (value.is_number_float())
+        return !std::isfinite(value.get<double>());
+    if (value.is_structured()) {
+        for (const Json& element : value) {
+            if (holds_non_finite(element))
+                return true;
+        }
+    }
+    return false;
+}
+
 void collect_non_finite(const Json& value, std::string& path, std::vector<std::string>& paths) {
     const std::size_t length = path.size();
     if (value.is_number_float() && !std::isfinite(value.get<double>())) {
@@ -353,8 +367,10 @@ nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptio
 std::vector<std::string> non_finite_figures(const Results& results, bool include_history) {
     std::vector<std::string> paths;
     std::string path;
-    collect_non_finite(
-        results_to_json(results, {.include_history = false, .keep_non_finite = true}), path, paths);
+    const Json document =
+        results_to_json(results, {.include_history = false, .keep_non_finite = true});
+    if (holds_non_finite(document))
+        collect_non_finite(document, path, paths);
     // The history's samples read directly, column by column (the history_columns the writer
     // writes), not built into a document: they are most of the results.
     if (include_history) {
