@@ -390,8 +390,11 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     std::vector<TrajectorySample> burn_samples;
     std::vector<TrajectorySample>* record = history ? &burn_samples : nullptr;
     ThrottleSolve how;
-    if (e.precision == Precision::aiming)
-        how.end_time_tolerance_s = aiming_end_time_tolerance_s;
+    if (e.precision == Precision::aiming) {
+        const double flow_kg_s = request.thrust_N / (t.isp_s * standard_gravity_m_s2);
+        how.end_time_tolerance_s =
+            std::max(how.end_time_tolerance_s, aiming_propellant_tolerance_kg / flow_kg_s);
+    }
     if (e.precision == Precision::first_guess)
         how.end_time_tolerance_s = first_guess_end_time_tolerance_s;
     if (previous && previous->burn && previous->burn_request && !previous->ignition_delayed) {
