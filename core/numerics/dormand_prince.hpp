@@ -149,57 +149,79 @@ struct TimedValue {
     double g = 0.0;
 };
 
+/// A local maximum of g in (a.t, b.t), given m inside with g above both ends there: golden
+/// section on the bracket, which keeps a point above both its ends, until it is `width` wide.
+template <class G>
+TimedValue golden_maximum(G&& g, TimedValue a, TimedValue m, TimedValue b, double width) {
+    constexpr double golden = 0.3819660112501051;  // (3 - sqrt 5) / 2
+    while (b.t - a.t > width) {
+        const bool right = b.t - m.t > m.t - a.t;  // into the larger part
+        const double t = right ? m.t + golden * (b.t - m.t) : m.t - golden * (m.t - a.t);
+        const TimedValue p{t, g(t)};
+        if (p.g > m.g) {
+            (right ? a : b) = m;
+            m = p;
+        } else {
+            (right ? b : a) = p;
+        }
+    }
+    return m;
+}
+
 /// Where the local maximum of g lies between `from` and `to` (g above both there), given a
-/// value between them that is above both, when there is one (`inside`): where the slope's
-/// zero is, when the event has a slope, by TOMS 748 to `tolerance`, in a bracket a twentieth of
-/// the span either side of the vertex of the parabola through the three values (the whole span
-/// when the slope does not change sign there); else, or when the slope does not change sign on
-/// the span either, by Brent's method (Boost.Math) on -g, in the time from `from`, to half the
-/// digits of a double of it (the maximum being flat, the value is then good to all of them, the
-/// time only as well as the continuous extension's slope is known). Nothing when the largest
-/// value found is not above both ends.
+/// value between them that is above both, when there is one (`inside`). With the event's slope:
+/// at its zero, by TOMS 748 to `tolerance`, in a bracket a twentieth of the span either side of
+/// the vertex of the parabola through the three values; where the slope does not change sign
+/// there (g has more than one turn on the span, or the parabola is poor), first by golden
+/// section on the three values to 1e-5 of the span, then at the slope's zero within a
+/// ten-thousandth of the span of it when the slope changes sign there. Without `inside`, by
+/// Brent's method (Boost.Math) on -g, in the time from `from`, to half the digits of a double of
+/// it (the maximum being flat, the value is then good to all of them, the time only as well as
+/// the continuous extension's slope is known), and so without a slope. Nothing when the value
+/// found is not above both ends.
 template <class G, class Slope>
-std::optional<double> locate_maximum(G&& g, const Slope* slope, TimedValue from, TimedValue to,
+std::optional<double> locate_maximum(G&& g, const Slope& slope, TimedValue from, TimedValue to,
                                      std::optional<TimedValue> inside, double tolerance) {
     const double span = to.t - from.t;
-    if (slope && *slope) {
-        double guess = from.t + 0.5 * span;
-        if (inside) {
-            // The vertex of the parabola through the three values.
-            const double d1 = (inside->g - from.g) / (inside->t - from.t);
-            const double d2 = (to.g - inside->g) / (to.t - inside->t);
-            const double curvature = (d2 - d1) / (to.t - from.t);
-            if (curvature < 0.0)
-                guess = 0.5 * (from.t + inside->t) - d1 / (2.0 * curvature);
+    const double ends = std::max(from.g, to.g);
+    // The slope's zero in [a, b] around `guess` when it changes sign there.
+    const auto slope_zero = [&](double guess, double half_width) -> std::optional<double> {
+        if (!slope)
+            return std::nullopt;
+        const double a = std::max(from.t, guess - half_width);
+        const double b = std::min(to.t, guess + half_width);
+        const double rate_a = slope(a);
+        const double rate_b = slope(b);
+        if (!(rate_a > 0.0 && rate_b < 0.0))
+            return std::nullopt;
+        std::uintmax_t iterations = 100;
+        return boost::math::tools::toms748_solve(
+                   slope, a, b, rate_a, rate_b,
+                   [&](double l, double r) { return std::abs(r - l) <= tolerance; }, iterations)
+            .second;
+    };
+    if (inside) {
+        // The vertex of the parabola through the three values.
+        const double d1 = (inside->g - from.g) / (inside->t - from.t);
+        const double d2 = (to.g - inside->g) / (to.t - inside->t);
+        const double curvature = (d2 - d1) / span;
+        const double vertex = std::clamp(
+            curvature < 0.0 ? 0.5 * (from.t + inside->t) - d1 / (2.0 * curvature) : inside->t,
+            from.t, to.t);
+        std::optional<double> t = slope_zero(vertex, 0.05 * span);
+        if (!t) {
+            const TimedValue m = golden_maximum(g, from, *inside, to, 1e-5 * span);
+            t = slope_zero(m.t, 1e-4 * span);
+            if (!t)
+                t = m.t;
         }
-        guess = std::clamp(guess, from.t, to.t);
-        const auto rate = [&](double t) { return (*slope)(t); };
-        const double near = 0.05 * span;
-        double a = std::max(from.t, guess - near);
-        double b = std::min(to.t, guess + near);
-        double rate_a = rate(a);
-        double rate_b = rate(b);
-        if (!(rate_a > 0.0 && rate_b < 0.0)) {
-            if (!(rate_a > 0.0))
-                rate_a = rate(a = from.t);
-            if (!(rate_b < 0.0))
-                rate_b = rate(b = to.t);
-        }
-        if (rate_a > 0.0 && rate_b < 0.0) {
-            std::uintmax_t iterations = 100;
-            const double t =
-                boost::math::tools::toms748_solve(
-                    rate, a, b, rate_a, rate_b,
-                    [&](double l, double r) { return std::abs(r - l) <= tolerance; }, iterations)
-                    .second;
-            return g(t) > std::max(from.g, to.g) ? std::optional<double>(t) : std::nullopt;
-        }
+        return g(*t) > ends ? t : std::nullopt;
     }
     std::uintmax_t iterations = 100;
     const auto [after_from, minus_g] =
         boost::math::tools::brent_find_minima([&](double s) { return -g(from.t + s); }, 0.0, span,
                                               std::numeric_limits<double>::digits / 2, iterations);
-    if (!(-minus_g > std::max(from.g, to.g)))
+    if (!(-minus_g > ends))
         return std::nullopt;
     return from.t + after_from;
 }
@@ -275,7 +297,7 @@ public:
                                 : nullptr;
             const std::optional<double> t_max =
                 locate_maximum([&](double tau) { return events[i].function(tau, state_at(tau)); },
-                               &slope, *from, {t_last, g_last}, inside, tolerance);
+                               slope, *from, {t_last, g_last}, inside, tolerance);
             if (t_max)
                 hits.push_back({i, *t_max, state_at(*t_max)});
         }

@@ -239,3 +239,25 @@ TEST_CASE("a maximum inside the first step, and one just before a terminal event
         CHECK(out.events[0].index == 1u);
     }
 }
+
+TEST_CASE("a maximum where the function turns twice between the steps' ends is still found") {
+    // g = sin 5t + 0.3 t on [0, 1.1] with the value at 0.5 above both ends: a maximum at
+    // acos(-0.06) / 5 (closed form), a minimum at 0.93, rising again at the end, so the slope
+    // does not change sign across the span nor near the parabola's vertex (0.49): the golden
+    // section on the three values finds the maximum, the slope's zero then places it.
+    const auto g = [](double t) { return std::sin(5.0 * t) + 0.3 * t; };
+    const std::function<double(double)> slope = [](double t) {
+        return 5.0 * std::cos(5.0 * t) + 0.3;
+    };
+    const double expected = std::acos(-0.06) / 5.0;
+    const ds::detail::TimedValue from{0.0, g(0.0)};
+    const ds::detail::TimedValue inside{0.5, g(0.5)};
+    const ds::detail::TimedValue to{1.1, g(1.1)};
+    const auto with_slope = ds::detail::locate_maximum(g, slope, from, to, inside, 1e-10);
+    REQUIRE(with_slope);
+    CHECK(std::abs(*with_slope - expected) < 1e-9);
+    const auto by_values =
+        ds::detail::locate_maximum(g, std::function<double(double)>{}, from, to, inside, 1e-10);
+    REQUIRE(by_values);
+    CHECK(std::abs(*by_values - expected) < 2e-5);
+}
