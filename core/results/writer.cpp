@@ -41,8 +41,6 @@ void null_non_finite(Json& value) {
     }
 }
 
-/// The paths of the numbers in `value` that are not finite. `path` grows and shrinks as the
-/// walk goes down and back up, so a path is written out only for a number it names.
 /// Whether a document holds a number that is not finite: the walk without the paths, for the
 /// common case where it holds none.
 bool holds_non_finite(const Json& value) {
@@ -57,6 +55,8 @@ bool holds_non_finite(const Json& value) {
     return false;
 }
 
+/// The paths of the numbers in `value` that are not finite. `path` grows and shrinks as the
+/// walk goes down and back up, so a path is written out only for a number it names.
 void collect_non_finite(const Json& value, std::string& path, std::vector<std::string>& paths) {
     const std::size_t length = path.size();
     if (value.is_number_float() && !std::isfinite(value.get<double>())) {
