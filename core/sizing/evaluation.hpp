@@ -109,8 +109,8 @@ inline constexpr double capability_depth_below_site_m = 5000.0;
 /// Flies the design at an entry mass and builds its budget. In analysis mode (the design fixes
 /// the entry mass), what the budget leaves over is added as "unallocated". Without `history`
 /// the evaluation's history stays empty (and the flights record no samples). `previous`, an
-/// evaluation of the same design at another entry mass (the closure's last), guides the solve of
-/// a powered descent's throttle.
+/// evaluation of the same design at another entry mass (the closure's last) or of the nominal
+/// vehicle a dispersed case varies, guides the solve of a powered descent's throttle.
 Evaluation evaluate(const Design& design, const FlightModel& model, double entry_kg,
                     bool history = true, Precision precision = Precision::design,
                     const Evaluation* previous = nullptr);

@@ -935,13 +935,21 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
 
 /// The evaluation at the design's entry mass: the fixed one, or the closed one (with its
 /// history when asked).
-Closure sized_evaluation(const Design& design, const FlightModel& model, bool history) {
-    if (design.mass.entry_kg)
-        return {evaluate(design, model, *design.mass.entry_kg, history), {}};
+Closure sized_evaluation(const Design& design, const FlightModel& model, bool history,
+                         const Evaluation* guide = nullptr) {
+    if (design.mass.entry_kg) {
+        return {evaluate(design, model, *design.mass.entry_kg, history, Precision::design, guide),
+                {}};
+    }
     return close_budget(design, model, history);
 }
 
 }  // namespace
+
+Evaluation guiding_evaluation(const Design& frozen) {
+    const FlightEnvironment environment = make_environment(frozen);
+    return sized_evaluation(frozen, environment.model(), false).evaluation;
+}
 
 Design freeze_design(const Design& design) {
     const FlightEnvironment environment = make_environment(design);
@@ -1014,7 +1022,7 @@ Results size_design(const Design& design, SizingOptions options) {
     const FlightModel model = environment.model();
 
     Results results;
-    Closure sized = sized_evaluation(design, model, options.history);
+    Closure sized = sized_evaluation(design, model, options.history, options.guide);
     Evaluation& e = sized.evaluation;
     const std::optional<MassClosure> closure =
         design.mass.entry_kg ? std::nullopt : std::optional<MassClosure>(sized.report);

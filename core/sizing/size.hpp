@@ -5,6 +5,8 @@
 
 namespace ds {
 
+struct Evaluation;
+
 /// What a sizing computes besides the sizing itself; trade studies that fly thousands of
 /// cases turn off what they do not read.
 struct SizingOptions {
@@ -17,7 +19,15 @@ struct SizingOptions {
     /// Judged only, the limit checks carry no messages: for trade cases that keep which checks
     /// fail and nothing they say (a dispersion's).
     Wording check_wording = Wording::words;
+    /// An evaluation of the vehicle this design disperses (its entry mass fixed), whose solves
+    /// guide this sizing's: a powered descent's throttle solve starts from what the nominal's
+    /// measured of its closed form's error (evaluate's `previous`). For a dispersion's cases.
+    const Evaluation* guide = nullptr;
 };
+
+/// The evaluation of a frozen design (freeze_design's) that guides its dispersed cases'
+/// sizings (SizingOptions::guide).
+Evaluation guiding_evaluation(const Design& frozen);
 
 /// Sizes a design read by read_design: flies it, estimates what it can, and checks it.
 /// Never throws for a design that was read: a design that cannot be flown comes back with

@@ -14,6 +14,7 @@
 #include "design/writer.hpp"
 #include "json_values.hpp"
 #include "results/key_figures.hpp"
+#include "sizing/evaluation.hpp"
 #include "sizing/size.hpp"
 #include "trade/design_variants.hpp"
 #include "trade/parallel.hpp"
@@ -111,6 +112,8 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     const DispersionSettings& settings) {
     const Design frozen = freeze_design(design);
     const DesignVariants variants = DesignVariants::of(frozen, base_directory);
+    // The nominal vehicle's flight guides each case's solves (a case is a small change of it).
+    const Evaluation nominal_flight = guiding_evaluation(frozen);
     std::vector<double> nominal;
     std::vector<std::string> keys;
     for (const DispersionDesign& d : design.dispersions) {
@@ -156,7 +159,8 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
         const Results r = size_design(*read.design, {.capability = false,
                                                      .history = false,
                                                      .every_figure_checked = false,
-                                                     .check_wording = Wording::judged_only});
+                                                     .check_wording = Wording::judged_only,
+                                                     .guide = &nominal_flight});
         c.figures = key_figure_values(r);
         if (r.landing) {
             c.landing = CaseLanding{r.landing->latitude_deg, r.landing->longitude_deg,
