@@ -99,7 +99,7 @@ Closure close_budget(const Design& design, const FlightModel& model, bool histor
         r0 = r1;
         m1 = next;
     }
-    if (c.evaluation.precision != Precision::design)  // diverged from an aiming evaluation
+    if (c.evaluation.precision != Precision::design)  // diverged from a looser evaluation
         c.evaluation = design_precision_at(c.evaluation.entry_kg);
     return c;
 }
@@ -946,15 +946,12 @@ Closure sized_evaluation(const Design& design, const FlightModel& model, bool hi
 
 }  // namespace
 
-Evaluation guiding_evaluation(const Design& frozen) {
-    const FlightEnvironment environment = make_environment(frozen);
-    return sized_evaluation(frozen, environment.model(), false).evaluation;
-}
-
-Design freeze_design(const Design& design) {
+Design freeze_design(const Design& design, Evaluation* sized) {
     const FlightEnvironment environment = make_environment(design);
     const FlightModel model = environment.model();
-    const Evaluation e = sized_evaluation(design, model, false).evaluation;
+    Evaluation kept;
+    Evaluation& e = sized ? *sized : kept;
+    e = sized_evaluation(design, model, false).evaluation;
     Design frozen = design;
     frozen.mass.entry_kg = e.entry_kg;
     frozen.mass.heat_shield_kg = e.heat_shield_kg;

@@ -25,10 +25,6 @@ struct SizingOptions {
     const Evaluation* guide = nullptr;
 };
 
-/// The evaluation of a frozen design (freeze_design's) that guides its dispersed cases'
-/// sizings (SizingOptions::guide).
-Evaluation guiding_evaluation(const Design& frozen);
-
 /// Sizes a design read by read_design: flies it, estimates what it can, and checks it.
 /// Never throws for a design that was read: a design that cannot be flown comes back with
 /// `converged` false or failing checks that say why, with numbers.
@@ -36,7 +32,9 @@ Results size_design(const Design& design, SizingOptions options = {});
 
 /// The design as the vehicle it sizes to: the entry mass, the heat-shield, backshell,
 /// parachute and decelerator masses and every sized diameter fixed at their sized values, so
-/// that flying it again under other conditions (a dispersion) flies the same vehicle.
-Design freeze_design(const Design& design);
+/// that flying it again under other conditions (a dispersion) flies the same vehicle. With
+/// `sized`, the evaluation it froze is kept there: the nominal flight that guides the dispersed
+/// cases' sizings (SizingOptions::guide).
+Design freeze_design(const Design& design, Evaluation* sized = nullptr);
 
 }  // namespace ds

@@ -110,10 +110,10 @@ void CaseDigest::add(const DispersedCase& c) {
 std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
     const Design& design, const std::filesystem::path& base_directory,
     const DispersionSettings& settings) {
-    const Design frozen = freeze_design(design);
-    const DesignVariants variants = DesignVariants::of(frozen, base_directory);
     // The nominal vehicle's flight guides each case's solves (a case is a small change of it).
-    const Evaluation nominal_flight = guiding_evaluation(frozen);
+    Evaluation nominal_flight;
+    const Design frozen = freeze_design(design, &nominal_flight);
+    const DesignVariants variants = DesignVariants::of(frozen, base_directory);
     std::vector<double> nominal;
     std::vector<std::string> keys;
     for (const DispersionDesign& d : design.dispersions) {

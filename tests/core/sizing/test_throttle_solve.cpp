@@ -166,8 +166,8 @@ TEST_CASE(
     // solve ends within the same 1e-6 s of burn time as a cold one, in no more flights (4 and 4
     // here, a case a standard deviation out on each key; over the sample's 200 first cases the
     // guide takes 5.6 % of the instructions off); the flights' count, not a time.
-    const ds::Design frozen = ds::freeze_design(ds::test::sample("heavy-cargo-lander"));
-    const ds::Evaluation nominal = ds::guiding_evaluation(frozen);
+    ds::Evaluation nominal;
+    const ds::Design frozen = ds::freeze_design(ds::test::sample("heavy-cargo-lander"), &nominal);
     ds::Design dispersed = frozen;
     REQUIRE(dispersed.entry.orbit);
     dispersed.entry.orbit->flight_path_angle_deg -= 0.15;
