@@ -40,9 +40,9 @@ enum class EventKind { crossing, maximum };
 /// maximum of g along the solution (EventKind::maximum; never terminal, direction unused).
 /// A maximum costs no evaluation of g but at the steps' ends: it is seen where g, having risen
 /// over one step, does not rise over the next, and is then located on those two steps'
-/// continuous extension: at the zero of its slope when the event has one, else by Brent's
-/// method on g. A step that holds a maximum and a minimum of g both shows neither, as a step
-/// that crosses zero twice shows no crossing.
+/// continuous extension: at the zero of its slope when the event has one, else on g's values
+/// (golden section, or Brent's method; see detail::locate_maximum). A step that holds a maximum
+/// and a minimum of g both shows neither, as a step that crosses zero twice shows no crossing.
 template <int N>
 struct Event {
     std::function<double(double, const Vector<N>&)> function;
