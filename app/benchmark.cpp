@@ -119,8 +119,10 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
         return;
     const double us_per_case = 1e6 * best_cpu / runs;
 
-    // The same cases again, flown one by one to count what each phase takes.
-    const ds::Design frozen = ds::freeze_design(design);
+    // The same cases again, flown one by one as the campaign flies them (guided by the nominal
+    // vehicle's flight, the burn solved as a dispersed case's) to count what each phase takes.
+    ds::Evaluation nominal_flight;
+    const ds::Design frozen = ds::freeze_design(design, &nominal_flight);
     const ds::DesignVariants variants = ds::DesignVariants::of(frozen, file.parent_path());
     std::vector<std::string> keys;
     for (const ds::DispersionDesign& d : design.dispersions)
@@ -134,8 +136,9 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
         if (!variant.ok())
             continue;
         const ds::FlightEnvironment environment = ds::make_environment(*variant.design);
-        const ds::Evaluation e = ds::evaluate(*variant.design, environment.model(),
-                                              *variant.design->mass.entry_kg, false);
+        const ds::Evaluation e =
+            ds::evaluate(*variant.design, environment.model(), *variant.design->mass.entry_kg,
+                         false, ds::Precision::dispersed, &nominal_flight);
         if (!e.descent || !e.burn)
             continue;
         ++flown;
@@ -156,7 +159,7 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
     // The cost of an evaluation of each phase's equations, on the nominal vehicle's states.
     const ds::FlightEnvironment environment = ds::make_environment(frozen);
     const ds::FlightModel model = environment.model();
-    const ds::Evaluation nominal = ds::evaluate(frozen, model, *frozen.mass.entry_kg, false);
+    const ds::Evaluation& nominal = nominal_flight;
     if (!nominal.descent || !nominal.burn_request)
         return;
     ds::Phase entry_phase;

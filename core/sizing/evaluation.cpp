@@ -309,7 +309,9 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
                        bool history) {
     const double site = design.site.elevation_m;
     const double g_site = model.body.gravity_m_s2(site);
-    const BurnRequest request = burn_request(design, g_site, e);
+    BurnRequest request = burn_request(design, g_site, e);
+    if (e.precision == Precision::dispersed)
+        request.separation_time_tolerance_s = dispersed_separation_tolerance_s;
     const auto settings = flight_integrator_settings(
         design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
     std::vector<TrajectorySample> burn_samples;
@@ -385,6 +387,8 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     request.drag_devices = devices_under_thrust(design, e);
     request.thrust_reference_area_m2 = frontal_area_m2(e.aeroshell.diameter_m);
     request.gravity_turn = true;
+    if (e.precision == Precision::dispersed)  // for a delayed ignition's separation solve
+        request.separation_time_tolerance_s = dispersed_separation_tolerance_s;
     const auto settings = flight_integrator_settings(
         design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
     std::vector<TrajectorySample> burn_samples;
@@ -397,6 +401,8 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     }
     if (e.precision == Precision::first_guess)
         how.end_time_tolerance_s = first_guess_end_time_tolerance_s;
+    if (e.precision == Precision::dispersed)
+        how.end_time_tolerance_s = dispersed_end_time_tolerance_s;
     if (previous && previous->burn && previous->burn_request && !previous->ignition_delayed) {
         how.earlier = &*previous->burn;
         how.earlier_request = &*previous->burn_request;

@@ -933,14 +933,12 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
     }
 }
 
-/// The evaluation at the design's entry mass: the fixed one, or the closed one (with its
-/// history when asked).
+/// The evaluation at the design's entry mass: the fixed one (at `fixed`'s precision), or the
+/// closed one (with its history when asked).
 Closure sized_evaluation(const Design& design, const FlightModel& model, bool history,
-                         const Evaluation* guide = nullptr) {
-    if (design.mass.entry_kg) {
-        return {evaluate(design, model, *design.mass.entry_kg, history, Precision::design, guide),
-                {}};
-    }
+                         const Evaluation* guide = nullptr, Precision fixed = Precision::design) {
+    if (design.mass.entry_kg)
+        return {evaluate(design, model, *design.mass.entry_kg, history, fixed, guide), {}};
     return close_budget(design, model, history);
 }
 
@@ -1019,7 +1017,9 @@ Results size_design(const Design& design, SizingOptions options) {
     const FlightModel model = environment.model();
 
     Results results;
-    Closure sized = sized_evaluation(design, model, options.history, options.guide);
+    Closure sized =
+        sized_evaluation(design, model, options.history, options.guide,
+                         options.dispersed_case ? Precision::dispersed : Precision::design);
     Evaluation& e = sized.evaluation;
     const std::optional<MassClosure> closure =
         design.mass.entry_kg ? std::nullopt : std::optional<MassClosure>(sized.report);

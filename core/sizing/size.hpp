@@ -23,6 +23,9 @@ struct SizingOptions {
     /// guide this sizing's: a powered descent's throttle solve starts from what the nominal's
     /// measured of its closed form's error (evaluate's `previous`). For a dispersion's cases.
     const Evaluation* guide = nullptr;
+    /// A dispersion's case, its entry mass fixed: the terminal burn is solved as a case's
+    /// (Precision::dispersed), to looser tolerances than the design's 1e-6 s.
+    bool dispersed_case = false;
 };
 
 /// Sizes a design read by read_design: flies it, estimates what it can, and checks it.

@@ -160,7 +160,8 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
                                                      .history = false,
                                                      .every_figure_checked = false,
                                                      .check_wording = Wording::judged_only,
-                                                     .guide = &nominal_flight});
+                                                     .guide = &nominal_flight,
+                                                     .dispersed_case = true});
         c.figures = key_figure_values(r);
         if (r.landing) {
             c.landing = CaseLanding{r.landing->latitude_deg, r.landing->longitude_deg,
