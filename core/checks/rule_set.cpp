@@ -83,20 +83,17 @@ Check check_at_least(const LimitRule& rule, double value, double limit, double m
 }
 
 void order_checks(std::vector<Check>& checks) {
-    const auto rank = [](CheckStatus s) {
-        switch (s) {
-            case CheckStatus::fail:
-                return 0;
-            case CheckStatus::marginal:
-                return 1;
-            case CheckStatus::pass:
-                return 2;
+    // Three statuses: a pass over the checks for each, in order, keeps the order within each
+    // (a stable sort would move each check some log n times and take a buffer).
+    std::vector<Check> ordered;
+    ordered.reserve(checks.size());
+    for (const CheckStatus status : {CheckStatus::fail, CheckStatus::marginal, CheckStatus::pass}) {
+        for (Check& check : checks) {
+            if (check.status == status)
+                ordered.push_back(std::move(check));
         }
-        return 2;
-    };
-    std::stable_sort(checks.begin(), checks.end(), [&](const Check& a, const Check& b) {
-        return rank(a.status) < rank(b.status);
-    });
+    }
+    checks = std::move(ordered);
 }
 
 }  // namespace ds

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <iterator>
 #include <memory>
 #include <optional>
 
@@ -933,6 +934,22 @@ void add_frame_notes(const Design& design, const InterfaceState& entry, Results&
     }
 }
 
+/// The results' notes: the cautions, the frame of the flight, and what is not modelled.
+void add_notes(const Design& design, const Evaluation& e, Results& results) {
+    results.notes.emplace_back(conceptual_caution);
+    results.notes.push_back(
+        "Mass estimates marked \"estimate\" are rules of thumb: replace them with itemised "
+        "masses as the design matures.");
+    add_frame_notes(design, e.entry.interface, results);
+    if (results.entry.radiative_heating == radiative_heating_not_modelled) {
+        results.notes.push_back(
+            "Radiative heating is not modelled for this body (no published correlation is "
+            "carried for its gas): the heat flux, the heat load and the heat-shield mass are "
+            "convective only. At high entry speeds, and in some gases, the shock layer's "
+            "radiation can be a large part of the heating: confirm it by analysis.");
+    }
+}
+
 /// The evaluation at the design's entry mass: the fixed one (at `fixed`'s precision), or the
 /// closed one (with its history when asked).
 Closure sized_evaluation(const Design& design, const FlightModel& model, bool history,
@@ -1041,7 +1058,8 @@ Results size_design(const Design& design, SizingOptions options) {
         fill_parachute(e, model, results.parachute);
     fill_terminal(e, design, model, results.terminal);
     fill_conic(e, design, model.body, results);
-    fill_timeline(e, design, model.body, results.timeline);
+    if (options.notes_and_timeline)
+        fill_timeline(e, design, model.body, results.timeline);
     if (const auto margin = timeline_margin(design, model, e, design.site.elevation_m)) {
         results.timeline.margin_s = margin->margin_s;
         results.timeline.available_s = margin->available_s;
@@ -1071,23 +1089,14 @@ Results size_design(const Design& design, SizingOptions options) {
         results.history = std::move(e.history);
     place_on_track(e, design, entry_track(e.entry.interface, model.body), results);
 
-    results.notes.emplace_back(conceptual_caution);
-    results.notes.push_back(
-        "Mass estimates marked \"estimate\" are rules of thumb: replace them with itemised "
-        "masses as the design matures.");
-    add_frame_notes(design, e.entry.interface, results);
-    if (results.entry.radiative_heating == radiative_heating_not_modelled) {
-        results.notes.push_back(
-            "Radiative heating is not modelled for this body (no published correlation is "
-            "carried for its gas): the heat flux, the heat load and the heat-shield mass are "
-            "convective only. At high entry speeds, and in some gases, the shock layer's "
-            "radiation can be a large part of the heating: confirm it by analysis.");
-    }
+    if (options.notes_and_timeline)
+        add_notes(design, e, results);
 
     std::vector<Check> checks = flight_checks(e, design, closure);
     if (e.aeroshell.diameter_m > 0.0) {
         std::vector<Check> limits = limit_checks(design, results, options.check_wording);
-        checks.insert(checks.end(), limits.begin(), limits.end());
+        checks.insert(checks.end(), std::make_move_iterator(limits.begin()),
+                      std::make_move_iterator(limits.end()));
     }
     const bool flown = e.aeroshell.diameter_m > 0.0 && e.entry.end != EntryEnd::stopped;
     results.converged = flown && (!closure || closure->converged);

@@ -19,6 +19,10 @@ struct SizingOptions {
     /// Judged only, the limit checks carry no messages: for trade cases that keep which checks
     /// fail and nothing they say (a dispersion's).
     Wording check_wording = Wording::words;
+    /// The results' notes and the timeline's events (each placed on the ground track): off for
+    /// trade cases that keep the key figures, the landing point and which checks fail, and
+    /// nothing a reader reads there (a dispersion's). The timeline's margin is kept.
+    bool notes_and_timeline = true;
     /// An evaluation of the vehicle this design disperses (its entry mass fixed), whose solves
     /// guide this sizing's: a powered descent's throttle solve starts from what the nominal's
     /// measured of its closed form's error (evaluate's `previous`). For a dispersion's cases.

@@ -160,6 +160,7 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
                                                      .history = false,
                                                      .every_figure_checked = false,
                                                      .check_wording = Wording::judged_only,
+                                                     .notes_and_timeline = false,
                                                      .guide = &nominal_flight,
                                                      .dispersed_case = true});
         c.figures = key_figure_values(r);
