@@ -147,36 +147,35 @@ Event<flight_state_size> change_of_equations(const FlightModel& model, const Sta
             EventDirection::rising, true};
 }
 
-/// The last few states a phase's equations or its events were evaluated at, with what was
-/// computed there: the integrator's last stage of a step is the step's end (first same as
-/// last), where every event is then asked, and each peak's rate looks at the same two states
-/// either side of it. Keyed on the state itself, so a hit gives the very numbers a fresh
-/// evaluation would.
-template <class Value, std::size_t Slots>
+/// What a phase computed at the last state its equations or its events were evaluated at: the
+/// flight conditions and the derivative, each once asked for. The integrator's last stage of a
+/// step is the step's end (first same as last), where every event is then asked, and a peak's
+/// slope asks the derivative where its value was asked. Keyed on the state itself (the altitude
+/// first: two states a step apart differ there), so a hit gives the very numbers a fresh
+/// evaluation would. One state is enough: three kept the same share of hits but for a state an
+/// event's root-finding left behind, and cost more to look through.
 class StateMemo {
 public:
-    template <class Compute>
-    const Value& get(const FlightState& y, Compute&& compute) {
-        for (Slot& slot : slots_) {
-            if (slot.filled && slot.y == y)
-                return slot.value;
+    struct Entry {
+        FlightState y;
+        std::optional<FlightConditions> conditions;
+        std::optional<FlightState> rates;
+    };
+
+    /// The entry of the state, a fresh one (nothing computed) when it is not the last one.
+    Entry& at(const FlightState& y) {
+        if (!(kept_ && last_.y[StateIndex::altitude] == y[StateIndex::altitude] && last_.y == y)) {
+            last_.y = y;
+            last_.conditions.reset();
+            last_.rates.reset();
+            kept_ = true;
         }
-        Slot& slot = slots_[next_];
-        next_ = (next_ + 1) % Slots;
-        slot.y = y;
-        slot.value = compute(y);
-        slot.filled = true;
-        return slot.value;
+        return last_;
     }
 
 private:
-    struct Slot {
-        bool filled = false;
-        FlightState y;
-        Value value;
-    };
-    std::array<Slot, Slots> slots_{};
-    std::size_t next_ = 0;
+    Entry last_;
+    bool kept_ = false;
 };
 
 /// Flies a phase on one set of equations until a trigger, t_max or the step budget, or (with
@@ -186,21 +185,27 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     const FlightState& y0, double t_max, const IntegratorSettings<flight_state_size>& settings,
     PhaseRecording recording) {
     const Stage& stage = phase.stage;
-    StateMemo<FlightState, 1> rates;
-    StateMemo<FlightConditions, 3> conditions;
+    StateMemo memo;
+    const auto conditions_of = [&](StateMemo::Entry& e) -> const FlightConditions& {
+        if (!e.conditions)
+            e.conditions = flight_conditions(model, stage, e.y);
+        return *e.conditions;
+    };
     const auto conditions_at = [&](const FlightState& y) -> const FlightConditions& {
-        return conditions.get(
-            y, [&](const FlightState& at) { return flight_conditions(model, stage, at); });
+        return conditions_of(memo.at(y));
     };
     // The full equations take the conditions from the memo the events read too.
     const bool air = feels_air(stage);
-    const auto rhs = [&](double, const FlightState& y) {
-        return rates.get(y, [&](const FlightState& at) {
+    const auto rhs = [&](double, const FlightState& y) -> FlightState {
+        StateMemo::Entry& e = memo.at(y);
+        if (!e.rates) {
             if (equations == Equations::quasi_steady)
-                return quasi_steady_derivative(model, stage, at);
-            return air ? flight_derivative(model, stage, at, conditions_at(at))
-                       : flight_derivative(model, stage, at);
-        });
+                e.rates = quasi_steady_derivative(model, stage, e.y);
+            else
+                e.rates = air ? flight_derivative(model, stage, e.y, conditions_of(e))
+                              : flight_derivative(model, stage, e.y);
+        }
+        return *e.rates;
     };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
         if (read_off_state(q))
