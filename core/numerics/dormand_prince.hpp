@@ -290,11 +290,11 @@ public:
             g_earlier_[i] = g_before[i];
             if (!from)
                 continue;
+            const auto slope_at = [&](double tau) { return events[i].slope(tau, state_at(tau)); };
+            // (held by reference: a std::function keeps that in place, where the lambda, with
+            // its three references, would be allocated)
             const std::function<double(double)> slope =
-                events[i].slope ? std::function<double(double)>([&](double tau) {
-                    return events[i].slope(tau, state_at(tau));
-                })
-                                : nullptr;
+                events[i].slope ? std::function<double(double)>(std::cref(slope_at)) : nullptr;
             const std::optional<double> t_max =
                 locate_maximum([&](double tau) { return events[i].function(tau, state_at(tau)); },
                                slope, *from, {t_last, g_last}, inside, tolerance);
