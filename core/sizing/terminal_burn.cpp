@@ -418,8 +418,10 @@ void SeparationGuide::add(double t_s, double offset_m, bool stopped) {
 }
 
 SeparationGuide::Estimate SeparationGuide::at(double t_s) const {
+    if (stopped_.empty() && late_)
+        return {late_->offset_m, Estimate::one, 0.0};
     if (stopped_.empty())
-        return {late_ ? late_->offset_m : 0.0, late_ ? Estimate::one : Estimate::none, 0.0};
+        return {prior_.value_or(0.0), prior_ ? Estimate::prior : Estimate::none, 0.0};
     if (stopped_.size() == 1) {
         const Point& p = stopped_.front();
         return {p.offset_m, Estimate::one, std::abs(t_s - p.t_s)};
@@ -604,6 +606,7 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
                            return attempt(model, descent, request, settings, t_solved, record);
                        });
     solution.burn.stops_in_time = t_solution.has_value() && solution.reached_velocity;
+    solution.burn.closed_form_offset_m = burn_miss(solution, request) - modelled(t_solved);
     return solution.burn;
 }
 

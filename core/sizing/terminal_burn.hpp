@@ -61,6 +61,10 @@ struct BurnSolution {
     /// included, and the evaluations of the equations they made (the integrator's).
     std::size_t attempts = 0;
     std::size_t evaluations = 0;
+    /// Of a separation solve (solve_terminal_burn): the solved flight's miss less the closed
+    /// form's at its separation, which a solve on another descent of the same vehicle may start
+    /// from (SeparationGuide::start_from).
+    double closed_form_offset_m = 0.0;
 };
 
 /// The stage that burns as the request asks: its drag devices, its thrust (at its throttle),
@@ -92,11 +96,16 @@ class SeparationGuide {
 public:
     void add(double t_s, double offset_m, bool stopped);
 
+    /// Until a flight of its own, the offset a solve on another descent of the same vehicle
+    /// measured (a dispersion's nominal flight, BurnSolution::closed_form_offset_m), where the
+    /// guide otherwise starts from none.
+    void start_from(double offset_m) { prior_ = offset_m; }
+
     struct Estimate {
         double offset_m = 0.0;
-        /// What it is made from: nothing, one flight, a line through two flights on the same
-        /// side of the time, or between two.
-        enum From { none, one, beyond, between } from = none;
+        /// What it is made from: nothing, another descent's solve, one flight, a line through
+        /// two flights on the same side of the time, or between two.
+        enum From { none, prior, one, beyond, between } from = none;
         double distance_s = 0.0;  ///< to the nearest flight that stopped in time
     };
     Estimate at(double t_s) const;
@@ -108,6 +117,7 @@ private:
     };
     std::vector<Point> stopped_;  ///< in time order
     std::optional<Point> late_;
+    std::optional<double> prior_;
 };
 
 /// Finds the latest separation time along the descent under the canopy at which a
