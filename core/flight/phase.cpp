@@ -1,8 +1,8 @@
 #include "flight/phase.hpp"
 
 #include <algorithm>
-#include <array>
 #include <cmath>
+#include <limits>
 #include <optional>
 
 #include "constants.hpp"
@@ -164,18 +164,17 @@ public:
 
     /// The entry of the state, a fresh one (nothing computed) when it is not the last one.
     Entry& at(const FlightState& y) {
-        if (!(kept_ && last_.y[StateIndex::altitude] == y[StateIndex::altitude] && last_.y == y)) {
+        if (!(last_.y[StateIndex::altitude] == y[StateIndex::altitude] && last_.y == y)) {
             last_.y = y;
             last_.conditions.reset();
             last_.rates.reset();
-            kept_ = true;
         }
         return last_;
     }
 
 private:
-    Entry last_;
-    bool kept_ = false;
+    /// Before the first state: one that equals none (NaN compares unequal to everything).
+    Entry last_{FlightState::Constant(std::numeric_limits<double>::quiet_NaN()), {}, {}};
 };
 
 /// Flies a phase on one set of equations until a trigger, t_max or the step budget, or (with

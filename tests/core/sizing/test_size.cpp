@@ -14,6 +14,7 @@
 #include "support/preset_body.hpp"
 #include "support/results_lookup.hpp"
 #include "support/samples.hpp"
+#include "support/sized_flights.hpp"
 
 namespace {
 
@@ -463,16 +464,13 @@ TEST_CASE("a weak burn finds the separation that stops in time on an oblique des
     d.sequence.separation_coast_s = 2.0;
     const ds::FlightEnvironment environment = ds::make_environment(d);
     const ds::FlightModel model = environment.model();
-    const ds::Results sized = ds::size_design(d, {.capability = false, .history = false});
-    const ds::Evaluation e = ds::evaluate(d, model, sized.entry.mass_kg, false);
+    const ds::Evaluation e = ds::test::flight_at_sized_mass(d, model);
     REQUIRE(e.descent);
     REQUIRE(e.burn_request);
     ds::BurnRequest request = *e.burn_request;
     request.site_elevation_m = -1480.0;
-    const ds::BurnSolution burn = ds::solve_terminal_burn(
-        model, e.descent->record, request,
-        ds::flight_integrator_settings(d.solver.relative_tolerance,
-                                       static_cast<std::size_t>(d.solver.max_steps)));
+    const ds::BurnSolution burn =
+        ds::solve_terminal_burn(model, e.descent->record, request, ds::test::design_settings(d));
     REQUIRE(burn.stops_in_time);
     CHECK(burn.end_state[ds::StateIndex::altitude] ==
           doctest::Approx(-1480.0 + 7.5).epsilon(1e-3 / 1472.5));

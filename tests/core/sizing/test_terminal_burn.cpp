@@ -8,11 +8,10 @@
 
 #include "constants.hpp"
 #include "sizing/environment.hpp"
-#include "sizing/evaluation.hpp"
-#include "sizing/size.hpp"
 #include "sizing/terminal_burn.hpp"
 #include "support/flat_vacuum.hpp"
 #include "support/samples.hpp"
+#include "support/sized_flights.hpp"
 
 namespace {
 
@@ -188,12 +187,10 @@ TEST_CASE("a solve guided by an earlier one on the same descent finds the same s
     const ds::Design d = ds::test::sample("lifting-rover-carrier");
     const ds::FlightEnvironment environment = ds::make_environment(d);
     const ds::FlightModel model = environment.model();
-    const ds::Results sized = ds::size_design(d, {.capability = false, .history = false});
-    const ds::Evaluation e = ds::evaluate(d, model, sized.entry.mass_kg, false);
+    const ds::Evaluation e = ds::test::flight_at_sized_mass(d, model);
     REQUIRE(e.descent);
     REQUIRE(e.burn_request);
-    const auto settings = ds::flight_integrator_settings(
-        d.solver.relative_tolerance, static_cast<std::size_t>(d.solver.max_steps));
+    const auto settings = ds::test::design_settings(d);
     ds::BurnRequest r = *e.burn_request;
     ds::SeparationGuide guide;
     const ds::BurnSolution first =
@@ -223,18 +220,13 @@ TEST_CASE("a dispersed case's separation, solved to a case's tolerance: within i
     // the propellant within a gram; in one flight, for the closed form's error (some 2 mm) lies
     // within what the tolerance lets the first flight stop above the target (the flights' count,
     // not a time).
-    ds::Evaluation nominal;
-    const ds::Design frozen =
-        ds::freeze_design(ds::test::sample("small-ballistic-station"), &nominal);
-    ds::Design dispersed = frozen;
+    const ds::test::FrozenSample station("small-ballistic-station");
+    ds::Design dispersed = station.frozen;
     dispersed.atmosphere.density_scale = 1.1;
-    const ds::FlightEnvironment environment = ds::make_environment(dispersed);
-    REQUIRE(dispersed.mass.entry_kg);
-    const double mass = *dispersed.mass.entry_kg;
     const ds::Evaluation exact =
-        ds::evaluate(dispersed, environment.model(), mass, false, ds::Precision::design, &nominal);
-    const ds::Evaluation as_case = ds::evaluate(dispersed, environment.model(), mass, false,
-                                                ds::Precision::dispersed, &nominal);
+        ds::test::fly_case(dispersed, ds::Precision::design, &station.nominal);
+    const ds::Evaluation as_case =
+        ds::test::fly_case(dispersed, ds::Precision::dispersed, &station.nominal);
     REQUIRE(exact.burn);
     REQUIRE(as_case.burn);
     REQUIRE(exact.burn->stops_in_time);
@@ -255,27 +247,20 @@ TEST_CASE(
     // 4 cm), where a case without it starts from none. Each solve ends within the case's
     // tolerance of the design-precision solve, never later; over the nine cases those that start
     // from the nominal's offset take fewer flights, none more (the flights' count, not a time).
-    ds::Evaluation nominal;
-    const ds::Design frozen =
-        ds::freeze_design(ds::test::sample("lifting-rover-carrier"), &nominal);
-    REQUIRE(nominal.burn);
-    CHECK(std::abs(nominal.burn->closed_form_offset_m) < 0.1);
+    const ds::test::FrozenSample rover("lifting-rover-carrier");
+    REQUIRE(rover.nominal.burn);
+    CHECK(std::abs(rover.nominal.burn->closed_form_offset_m) < 0.1);
     const double tolerance = ds::dispersed_separation_tolerance_s;
     std::size_t cold_flights = 0;
     std::size_t started_flights = 0;
     for (int i = 0; i <= 8; ++i) {
-        ds::Design dispersed = frozen;
+        ds::Design dispersed = rover.frozen;
         dispersed.atmosphere.density_scale = 0.88 + 0.03 * i;
         CAPTURE(dispersed.atmosphere.density_scale);
-        const ds::FlightEnvironment environment = ds::make_environment(dispersed);
-        REQUIRE(dispersed.mass.entry_kg);
-        const double mass = *dispersed.mass.entry_kg;
-        const ds::Evaluation exact =
-            ds::evaluate(dispersed, environment.model(), mass, false, ds::Precision::design);
-        const ds::Evaluation cold =
-            ds::evaluate(dispersed, environment.model(), mass, false, ds::Precision::dispersed);
-        const ds::Evaluation started = ds::evaluate(dispersed, environment.model(), mass, false,
-                                                    ds::Precision::dispersed, &nominal);
+        const ds::Evaluation exact = ds::test::fly_case(dispersed, ds::Precision::design);
+        const ds::Evaluation cold = ds::test::fly_case(dispersed, ds::Precision::dispersed);
+        const ds::Evaluation started =
+            ds::test::fly_case(dispersed, ds::Precision::dispersed, &rover.nominal);
         REQUIRE(exact.burn);
         REQUIRE(cold.burn);
         REQUIRE(started.burn);

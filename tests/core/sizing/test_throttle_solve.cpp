@@ -24,6 +24,7 @@
 #include "sizing/terminal_burn.hpp"
 #include "support/flat_vacuum.hpp"
 #include "support/samples.hpp"
+#include "support/sized_flights.hpp"
 
 namespace {
 
@@ -106,6 +107,22 @@ void check_within_tolerance(const HeavyCargo& s, double site_m, const ds::Thrott
 
 }  // namespace
 
+namespace {
+
+/// A case of the heavy cargo sample's dispersion, about a standard deviation out on each key:
+/// the frozen vehicle's deorbit 0.15 deg steeper, an atmosphere 10 % denser and engines 3 s of
+/// specific impulse better (its burn 5.5 s longer than the nominal's).
+ds::Design heavy_cargo_case(const ds::Design& frozen) {
+    ds::Design dispersed = frozen;
+    REQUIRE(dispersed.entry.orbit);
+    dispersed.entry.orbit->flight_path_angle_deg -= 0.15;
+    dispersed.atmosphere.density_scale = 1.1;
+    dispersed.terminal.isp_s += 3.0;
+    return dispersed;
+}
+
+}  // namespace
+
 TEST_CASE("the solved throttle's burn ends at the site within its tolerance (heavy cargo)") {
     const HeavyCargo s;
     REQUIRE(s.e.burn);
@@ -160,25 +177,15 @@ TEST_CASE("a solve for another entry mass, guided by the closure's previous one,
 
 TEST_CASE(
     "a dispersed case guided by the nominal vehicle's evaluation: as close, no more flights") {
-    // A case of the sample's dispersion: the frozen vehicle's deorbit 0.15 deg steeper, an
-    // atmosphere 10 % denser and engines 3 s of specific impulse better (its burn 5.5 s longer
-    // than the nominal's). Guided by the nominal's evaluation (SizingOptions::guide) its throttle
-    // solve ends within the same 1e-6 s of burn time as a cold one, in no more flights (4 and 4
-    // here, a case a standard deviation out on each key; over the sample's 200 first cases the
-    // guide takes 5.6 % of the instructions off); the flights' count, not a time.
-    ds::Evaluation nominal;
-    const ds::Design frozen = ds::freeze_design(ds::test::sample("heavy-cargo-lander"), &nominal);
-    ds::Design dispersed = frozen;
-    REQUIRE(dispersed.entry.orbit);
-    dispersed.entry.orbit->flight_path_angle_deg -= 0.15;
-    dispersed.atmosphere.density_scale = 1.1;
-    dispersed.terminal.isp_s += 3.0;
-    const ds::FlightEnvironment environment = ds::make_environment(dispersed);
-    REQUIRE(dispersed.mass.entry_kg);
-    const double mass = *dispersed.mass.entry_kg;
-    const ds::Evaluation cold = ds::evaluate(dispersed, environment.model(), mass, false);
-    const ds::Evaluation guided =
-        ds::evaluate(dispersed, environment.model(), mass, false, ds::Precision::design, &nominal);
+    // A case of the sample's dispersion (heavy_cargo_case). Guided by the nominal's evaluation
+    // (SizingOptions::guide) its throttle solve ends within the same 1e-6 s of burn time as a
+    // cold one, in no more flights (4 and 4 here; over the sample's 200 first cases the guide
+    // takes 5.6 % of the instructions off); the flights' count, not a time.
+    const ds::test::FrozenSample heavy("heavy-cargo-lander");
+    const ds::Evaluation& nominal = heavy.nominal;
+    const ds::Design dispersed = heavy_cargo_case(heavy.frozen);
+    const ds::Evaluation cold = ds::test::fly_case(dispersed, ds::Precision::design);
+    const ds::Evaluation guided = ds::test::fly_case(dispersed, ds::Precision::design, &nominal);
     REQUIRE(cold.burn);
     REQUIRE(guided.burn);
     REQUIRE(cold.burn->stops_in_time);
@@ -197,20 +204,12 @@ TEST_CASE(
     // the design's own is solved to 1e-6 s. Its burn time, and the time it ends, within that
     // millisecond of the design-precision solve's; its propellant within the 10 g the constant
     // says a millisecond moves it by; in fewer flights (the flights' count, not a time).
-    ds::Evaluation nominal;
-    const ds::Design frozen = ds::freeze_design(ds::test::sample("heavy-cargo-lander"), &nominal);
-    ds::Design dispersed = frozen;
-    REQUIRE(dispersed.entry.orbit);
-    dispersed.entry.orbit->flight_path_angle_deg -= 0.15;
-    dispersed.atmosphere.density_scale = 1.1;
-    dispersed.terminal.isp_s += 3.0;
-    const ds::FlightEnvironment environment = ds::make_environment(dispersed);
-    REQUIRE(dispersed.mass.entry_kg);
-    const double mass = *dispersed.mass.entry_kg;
+    const ds::test::FrozenSample heavy("heavy-cargo-lander");
+    const ds::Design dispersed = heavy_cargo_case(heavy.frozen);
     const ds::Evaluation exact =
-        ds::evaluate(dispersed, environment.model(), mass, false, ds::Precision::design, &nominal);
-    const ds::Evaluation as_case = ds::evaluate(dispersed, environment.model(), mass, false,
-                                                ds::Precision::dispersed, &nominal);
+        ds::test::fly_case(dispersed, ds::Precision::design, &heavy.nominal);
+    const ds::Evaluation as_case =
+        ds::test::fly_case(dispersed, ds::Precision::dispersed, &heavy.nominal);
     REQUIRE(exact.burn);
     REQUIRE(as_case.burn);
     REQUIRE(exact.burn->stops_in_time);
