@@ -1,5 +1,7 @@
 #include "sizing/descent_flight.hpp"
 
+#include "sizing/environment.hpp"
+
 namespace ds {
 namespace {
 
@@ -16,11 +18,6 @@ Phase under_canopy_phase(const DescentPlan& plan, double floor_altitude_m) {
 /// descent under a canopy takes some tens of steps (our choice).
 constexpr std::size_t expected_descent_steps = 128;
 
-IntegratorSettings<flight_state_size> descent_settings(const Design& design) {
-    return flight_integrator_settings(design.solver.relative_tolerance,
-                                      static_cast<std::size_t>(design.solver.max_steps));
-}
-
 }  // namespace
 
 DescentFlight fly_descent(const Design& design, const FlightModel& model, const DescentPlan& plan,
@@ -28,7 +25,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
     DescentFlight out;
     out.plan = plan;
     out.deploy_time_s = deploy_time_s;
-    const auto settings = descent_settings(design);
+    const auto settings = design_integrator_settings(design);
     const double t_budget = design.solver.max_time_s;
     Phase under_canopy = under_canopy_phase(plan, plan.floor_altitude_m);
     out.record.steps().reserve(expected_descent_steps);
@@ -87,7 +84,7 @@ void extend_descent(const Design& design, const FlightModel& model, DescentFligh
     descent.plan.floor_altitude_m = floor_altitude_m;
     const PhaseOutcome more =
         fly_phase(model, under_canopy_phase(descent.plan, floor_altitude_m), t, y,
-                  design.solver.max_time_s, descent_settings(design),
+                  design.solver.max_time_s, design_integrator_settings(design),
                   {descent.plan.record_samples ? &descent.samples : nullptr, &descent.record});
     descent.quasi_steady_steps += more.quasi_steady_steps;
     descent.evaluations += more.evaluations;

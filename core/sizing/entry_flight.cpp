@@ -193,8 +193,7 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
     out.start = make_flight_state(at.altitude_m, at.point.latitude_rad, at.point.longitude_rad,
                                   at.relative.speed_m_s, at.relative.flight_path_angle_rad,
                                   at.relative.azimuth_rad, entry_mass_kg);
-    const auto settings = flight_integrator_settings(
-        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    const auto settings = design_integrator_settings(design);
 
     Phase phase;
     phase.name = "entry";

@@ -59,4 +59,9 @@ FlightEnvironment make_environment(const Design& design) {
     return {flown_body(design), make_atmosphere(design), make_wind(design)};
 }
 
+IntegratorSettings<flight_state_size> design_integrator_settings(const Design& design) {
+    return flight_integrator_settings(design.solver.relative_tolerance,
+                                      static_cast<std::size_t>(design.solver.max_steps));
+}
+
 }  // namespace ds

@@ -7,6 +7,7 @@
 #include "atmosphere/wind.hpp"
 #include "design/design.hpp"
 #include "flight/flight_model.hpp"
+#include "flight/phase.hpp"
 
 namespace ds {
 
@@ -38,5 +39,8 @@ struct FlightEnvironment {
 
 /// Throws as make_atmosphere does.
 FlightEnvironment make_environment(const Design& design);
+
+/// How the design's own flights are integrated: its solver's relative tolerance and step budget.
+IntegratorSettings<flight_state_size> design_integrator_settings(const Design& design);
 
 }  // namespace ds

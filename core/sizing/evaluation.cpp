@@ -14,6 +14,7 @@
 #include "heating/heat_shield_mass.hpp"
 #include "mass/estimates.hpp"
 #include "mass/growth.hpp"
+#include "sizing/environment.hpp"
 #include "sizing/landed_mass.hpp"
 
 namespace ds {
@@ -312,8 +313,7 @@ void fly_terminal_burn(const Design& design, const FlightModel& model, Evaluatio
     BurnRequest request = burn_request(design, g_site, e);
     if (e.precision == Precision::dispersed)
         request.separation_time_tolerance_s = dispersed_separation_tolerance_s;
-    const auto settings = flight_integrator_settings(
-        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    const auto settings = design_integrator_settings(design);
     // A dispersion's case starts from what the nominal vehicle's solve measured of the closed
     // form's error: the rover carrier's cases' own lie within some 5 mm of it (standard
     // deviation), about what a case's tolerance lets the first flight stop above the target, so
@@ -397,8 +397,7 @@ void fly_powered_descent(const Design& design, const FlightModel& model, Evaluat
     request.gravity_turn = true;
     if (e.precision == Precision::dispersed)  // for a delayed ignition's separation solve
         request.separation_time_tolerance_s = dispersed_separation_tolerance_s;
-    const auto settings = flight_integrator_settings(
-        design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+    const auto settings = design_integrator_settings(design);
     std::vector<TrajectorySample> burn_samples;
     std::vector<TrajectorySample>* record = history ? &burn_samples : nullptr;
     ThrottleSolve how;

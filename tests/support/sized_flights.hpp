@@ -22,12 +22,6 @@ inline Evaluation flight_at_sized_mass(const Design& design, const FlightModel& 
     return evaluate(design, model, sized.entry.mass_kg, false);
 }
 
-/// The integrator settings the design's own flights take: its tolerance and step budget.
-inline IntegratorSettings<flight_state_size> design_settings(const Design& design) {
-    return flight_integrator_settings(design.solver.relative_tolerance,
-                                      static_cast<std::size_t>(design.solver.max_steps));
-}
-
 /// A shipped sample frozen as a dispersion freezes it (freeze_design), with the nominal flight
 /// it was frozen from, which guides the dispersion's cases.
 struct FrozenSample {

@@ -52,8 +52,7 @@ struct Comparison {
     /// The ignition altitude of the evaluation's retro burn solved on the full record.
     double full_ignition_altitude_m() const {
         const ds::FlightModel model = environment.model();
-        const auto settings = ds::flight_integrator_settings(
-            design.solver.relative_tolerance, static_cast<std::size_t>(design.solver.max_steps));
+        const auto settings = ds::design_integrator_settings(design);
         return ds::solve_terminal_burn(model, full.record, *evaluation.burn_request, settings)
             .ignition_state[ds::StateIndex::altitude];
     }

@@ -469,8 +469,8 @@ TEST_CASE("a weak burn finds the separation that stops in time on an oblique des
     REQUIRE(e.burn_request);
     ds::BurnRequest request = *e.burn_request;
     request.site_elevation_m = -1480.0;
-    const ds::BurnSolution burn =
-        ds::solve_terminal_burn(model, e.descent->record, request, ds::test::design_settings(d));
+    const ds::BurnSolution burn = ds::solve_terminal_burn(model, e.descent->record, request,
+                                                          ds::design_integrator_settings(d));
     REQUIRE(burn.stops_in_time);
     CHECK(burn.end_state[ds::StateIndex::altitude] ==
           doctest::Approx(-1480.0 + 7.5).epsilon(1e-3 / 1472.5));

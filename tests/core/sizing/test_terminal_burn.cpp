@@ -190,7 +190,7 @@ TEST_CASE("a solve guided by an earlier one on the same descent finds the same s
     const ds::Evaluation e = ds::test::flight_at_sized_mass(d, model);
     REQUIRE(e.descent);
     REQUIRE(e.burn_request);
-    const auto settings = ds::test::design_settings(d);
+    const auto settings = ds::design_integrator_settings(d);
     ds::BurnRequest r = *e.burn_request;
     ds::SeparationGuide guide;
     const ds::BurnSolution first =
