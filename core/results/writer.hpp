@@ -11,18 +11,16 @@ namespace ds {
 
 struct ResultsWriteOptions {
     bool include_history = false;  ///< the trajectory samples, for plots
-    /// NaN and infinity kept as the numbers they are (JSON text has no literal for them; dump
-    /// writes null), for a check that every figure is finite (non_finite_figures).
-    bool keep_non_finite = false;
 };
 
 /// The results document (design-file.md, version 1). Absent figures are written as null, and
-/// so are figures that are not finite unless kept.
+/// so are figures that are not finite.
 nlohmann::ordered_json results_to_json(const Results& results, ResultsWriteOptions options = {});
 std::string write_results(const Results& results, ResultsWriteOptions options = {});
 
 /// The paths (as "entry.peak_heat_flux_W_cm2", "history[3].mach") of the numbers of the results
-/// document that are not finite, in the document's order: none for a sound sizing.
+/// document that are not finite, in the document's order: none for a sound sizing. Walks the
+/// results as the writer does, without building the document.
 std::vector<std::string> non_finite_figures(const Results& results, bool include_history);
 
 }  // namespace ds

@@ -323,6 +323,32 @@ TEST_CASE("absent figures and non-finite numbers are written as null") {
     CHECK(ds::write_results(results).find("NaN") == std::string::npos);
 }
 
+TEST_CASE("the figures that are not finite are named by their paths in the document") {
+    const double nan = std::numeric_limits<double>::quiet_NaN();
+    ds::Results results = sample_results();
+    results.entry.interface.relative.velocity_m_s = nan;  // an object in an object
+    results.mass.items.at(0).basic_kg = std::numeric_limits<double>::infinity();  // in an array
+    results.checks.push_back({"second", ds::CheckStatus::fail, nan, 1.0, "", "", "", nan});
+    results.history.at(0).mach = nan;
+    const std::vector<std::string> expected{"entry.interface.relative.velocity_m_s",
+                                            "mass.items[0].basic_kg", "checks[1].value",
+                                            "checks[1].margin"};
+    CHECK(ds::non_finite_figures(results, false) == expected);
+    std::vector<std::string> with_history = expected;
+    with_history.push_back("history[0].mach");
+    CHECK(ds::non_finite_figures(results, true) == with_history);
+    CHECK(ds::non_finite_figures(sample_results(), true).empty());
+
+    // Written as null.
+    const Json document = ds::results_to_json(results, {.include_history = true});
+    for (const char* key : {"/entry/interface/relative/velocity_m_s", "/mass/items/0/basic_kg",
+                            "/checks/1/value", "/checks/1/margin", "/history/0/mach"}) {
+        CAPTURE(key);
+        REQUIRE(document.contains(Json::json_pointer(key)));
+        CHECK(document[Json::json_pointer(key)].is_null());
+    }
+}
+
 TEST_CASE("check statuses are named pass, marginal and fail") {
     CHECK(ds::to_string(ds::CheckStatus::pass) == "pass");
     CHECK(ds::to_string(ds::CheckStatus::marginal) == "marginal");
