@@ -10,6 +10,7 @@
 // then dispersed flights, and the optimiser on the rover carrier's four keys.
 
 #include <algorithm>
+#include <array>
 #include <chrono>
 #include <ctime>
 #include <filesystem>
@@ -58,52 +59,45 @@ double cpu_seconds() {
     return static_cast<double>(std::clock()) / CLOCKS_PER_SEC;
 }
 
-/// Nanoseconds of CPU per evaluation of the equations of a stage, over states spread along a
-/// flight (each evaluated many times over): the best of ten passes, as the flights' own time
-/// is the best of three runs, so that a burst of load on the machine reads in neither.
-double ns_per_evaluation(const ds::FlightModel& model, const ds::Stage& stage,
-                         const std::vector<ds::FlightState>& states) {
-    constexpr int passes = 10;
-    constexpr int rounds = 100;
-    double sink = 0.0;
-    double best = 1e300;
-    for (int pass = 0; pass < passes; ++pass) {
-        const double start = cpu_seconds();
-        for (int round = 0; round < rounds; ++round) {
-            for (const ds::FlightState& y : states)
-                sink += ds::flight_derivative(model, stage, y)[ds::StateIndex::up_velocity];
-        }
-        best = std::min(best, cpu_seconds() - start);
-    }
-    if (sink == 12345.678)  // keeps the loop from being optimised away
-        fmt::print(" ");
-    return 1e9 * best / (rounds * static_cast<double>(states.size()));
-}
-
-/// The same as a chain: each evaluation's state waits for the last one's derivative (a zero
-/// times it added to the altitude), as an integration's stages wait for each other, so the
-/// processor cannot overlap one evaluation with the next. Information beside the floor, which
-/// stays the evaluations' cost one by one (ns_per_evaluation).
-double ns_per_chained_evaluation(const ds::FlightModel& model, const ds::Stage& stage,
-                                 const std::vector<ds::FlightState>& states) {
-    constexpr int passes = 10;
+/// Nanoseconds of CPU per evaluation of the equations of a stage, in one pass over states
+/// spread along a flight (each evaluated 100 times over): one by one, or as a chain, each
+/// evaluation's state waiting for the last one's derivative (a zero times it added to the
+/// altitude) as an integration's stages wait for each other, so that the processor cannot
+/// overlap one evaluation with the next.
+double evaluation_pass_ns(const ds::FlightModel& model, const ds::Stage& stage,
+                          const std::vector<ds::FlightState>& states, bool chained) {
     constexpr int rounds = 100;
     double last = 0.0;
-    double best = 1e300;
-    for (int pass = 0; pass < passes; ++pass) {
-        const double start = cpu_seconds();
-        for (int round = 0; round < rounds; ++round) {
+    const double start = cpu_seconds();
+    for (int round = 0; round < rounds; ++round) {
+        if (chained) {
             for (ds::FlightState y : states) {
                 y[ds::StateIndex::altitude] += 0.0 * last;
                 last = ds::flight_derivative(model, stage, y)[ds::StateIndex::up_velocity];
             }
+        } else {
+            for (const ds::FlightState& y : states)
+                last += ds::flight_derivative(model, stage, y)[ds::StateIndex::up_velocity];
         }
-        best = std::min(best, cpu_seconds() - start);
     }
-    if (last == 12345.678)  // keeps the loop from being optimised away
+    const double seconds = cpu_seconds() - start;
+    if (last == 12345.678)  // keeps the loops from being optimised away
         fmt::print(" ");
-    return 1e9 * best / (rounds * static_cast<double>(states.size()));
+    return 1e9 * seconds / (rounds * static_cast<double>(states.size()));
 }
+
+/// The least a phase's evaluation took over the passes so far, one by one and as a chain.
+struct EvaluationCost {
+    const ds::Stage* stage = nullptr;
+    std::vector<ds::FlightState> states;
+    double ns = 1e300;
+    double chained_ns = 1e300;
+
+    void pass(const ds::FlightModel& model) {
+        ns = std::min(ns, evaluation_pass_ns(model, *stage, states, false));
+        chained_ns = std::min(chained_ns, evaluation_pass_ns(model, *stage, states, true));
+    }
+};
 
 /// States spread evenly in time along a dense record.
 std::vector<ds::FlightState> states_along(const ds::DenseTrajectory& record, double mass_kg = 0.0) {
@@ -123,14 +117,44 @@ std::vector<ds::FlightState> states_along(const ds::DenseTrajectory& record, dou
 /// evaluations the integrator makes in each phase (averaged over the first cases), the CPU an
 /// evaluation of each phase's equations takes, and the floor: the evaluations the flight
 /// needs (the entry's, the descent's and one burn attempt's) times their cost. Both sides are
-/// timed the same way, the best of several passes over the same work, so that a burst of load
-/// on the machine reads in neither: the cases in four campaigns of 1000 (seeds 1 to 4), each
-/// the best of three runs.
+/// timed the same way and at the same moments, the best of several passes over the same work,
+/// so that a burst of load on the machine reads in neither: the cases in four campaigns of
+/// 1000 (seeds 1 to 4), each the best of three runs, and after each run a pass of each phase's
+/// evaluations (the best of twelve).
 void dispersed_flight_floor(const std::filesystem::path& file) {
     const ds::DesignReadResult read = ds::read_design_file(file);
     if (!read.ok() || read.design->dispersions.empty())
         return;
     const ds::Design& design = *read.design;
+
+    // The equations of each phase, on the nominal vehicle's states.
+    ds::Evaluation nominal;
+    const ds::Design frozen = ds::freeze_design(design, &nominal);
+    if (!nominal.descent || !nominal.burn_request)
+        return;
+    const ds::FlightEnvironment environment = ds::make_environment(frozen);
+    const ds::FlightModel model = environment.model();
+    ds::Phase entry_phase;
+    entry_phase.stage = ds::entry_stage(frozen, nominal.aeroshell);
+    entry_phase.ends = {{"deploy", ds::FlightQuantity::altitude,
+                         nominal.entry.end_state[ds::StateIndex::altitude],
+                         ds::EventDirection::falling}};
+    ds::DenseTrajectory entry_record;
+    (void)ds::fly_phase(model, entry_phase, 0.0, nominal.entry.start, frozen.solver.max_time_s,
+                        ds::flight_integrator_settings(frozen.solver.relative_tolerance, 1000000),
+                        {nullptr, &entry_record});
+    const ds::DescentPlan& plan = nominal.descent->plan;
+    ds::Stage under_canopy;
+    under_canopy.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
+    ds::Stage lander;
+    lander.thrust_N = nominal.burn_request->thrust_N;
+    lander.specific_impulse_s = nominal.burn_request->specific_impulse_s;
+    std::array<EvaluationCost, 3> costs{{
+        {&entry_phase.stage, states_along(entry_record)},
+        {&under_canopy, states_along(nominal.descent->record)},
+        {&lander, states_along(nominal.descent->record, nominal.burn_request->lander_mass_kg)},
+    }};
+
     constexpr std::size_t campaigns = 4;
     constexpr std::size_t runs = 1000;
     constexpr int passes = 3;
@@ -151,15 +175,16 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
                 return;
             if (c == 0)
                 campaign = std::move(flown);
+            for (EvaluationCost& cost : costs)
+                cost.pass(model);
         }
         cpu += best;
     }
     const double us_per_case = 1e6 * cpu / (campaigns * runs);
 
-    // The same cases again, flown one by one as the campaign flies them (guided by the nominal
-    // vehicle's flight, the burn solved as a dispersed case's) to count what each phase takes.
-    ds::Evaluation nominal_flight;
-    const ds::Design frozen = ds::freeze_design(design, &nominal_flight);
+    // The first campaign's cases again, flown one by one as the campaign flies them (guided by
+    // the nominal vehicle's flight, the burn solved as a dispersed case's) to count what each
+    // phase takes.
     const ds::DesignVariants variants = ds::DesignVariants::of(frozen, file.parent_path());
     std::vector<std::string> keys;
     for (const ds::DispersionDesign& d : design.dispersions)
@@ -172,10 +197,10 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
         const ds::DesignReadResult variant = variants.with(drawn, campaign->cases[i].draws);
         if (!variant.ok())
             continue;
-        const ds::FlightEnvironment environment = ds::make_environment(*variant.design);
+        const ds::FlightEnvironment case_environment = ds::make_environment(*variant.design);
         const ds::Evaluation e =
-            ds::evaluate(*variant.design, environment.model(), *variant.design->mass.entry_kg,
-                         false, ds::Precision::dispersed, &nominal_flight);
+            ds::evaluate(*variant.design, case_environment.model(), *variant.design->mass.entry_kg,
+                         false, ds::Precision::dispersed, &nominal);
         if (!e.descent || !e.burn)
             continue;
         ++flown;
@@ -192,44 +217,13 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
     attempts /= n;
     burn /= n;
     const double per_attempt = burn / attempts;
-
-    // The cost of an evaluation of each phase's equations, on the nominal vehicle's states.
-    const ds::FlightEnvironment environment = ds::make_environment(frozen);
-    const ds::FlightModel model = environment.model();
-    const ds::Evaluation& nominal = nominal_flight;
-    if (!nominal.descent || !nominal.burn_request)
-        return;
-    ds::Phase entry_phase;
-    entry_phase.stage = ds::entry_stage(frozen, nominal.aeroshell);
-    entry_phase.ends = {{"deploy", ds::FlightQuantity::altitude,
-                         nominal.entry.end_state[ds::StateIndex::altitude],
-                         ds::EventDirection::falling}};
-    ds::DenseTrajectory entry_record;
-    (void)ds::fly_phase(model, entry_phase, 0.0, nominal.entry.start, frozen.solver.max_time_s,
-                        ds::flight_integrator_settings(frozen.solver.relative_tolerance, 1000000),
-                        {nullptr, &entry_record});
-    const ds::DescentPlan& plan = nominal.descent->plan;
-    ds::Stage under_canopy;
-    under_canopy.drag_devices = {plan.canopy, {plan.body_drag_area_m2, 1.0, {}}};
-    ds::Stage lander;
-    lander.thrust_N = nominal.burn_request->thrust_N;
-    lander.specific_impulse_s = nominal.burn_request->specific_impulse_s;
-    const double ns_entry = ns_per_evaluation(model, entry_phase.stage, states_along(entry_record));
-    const double ns_descent =
-        ns_per_evaluation(model, under_canopy, states_along(nominal.descent->record));
-    const double ns_burn = ns_per_evaluation(
-        model, lander, states_along(nominal.descent->record, nominal.burn_request->lander_mass_kg));
-    const double floor_us =
-        1e-3 * (entry * ns_entry + descent * ns_descent + per_attempt * ns_burn);
-    const double chained_us =
-        1e-3 *
-        (entry * ns_per_chained_evaluation(model, entry_phase.stage, states_along(entry_record)) +
-         descent *
-             ns_per_chained_evaluation(model, under_canopy, states_along(nominal.descent->record)) +
-         per_attempt *
-             ns_per_chained_evaluation(
-                 model, lander,
-                 states_along(nominal.descent->record, nominal.burn_request->lander_mass_kg)));
+    const std::array<double, 3> needed{entry, descent, per_attempt};
+    double floor_us = 0.0;
+    double chained_us = 0.0;
+    for (std::size_t i = 0; i < costs.size(); ++i) {
+        floor_us += 1e-3 * needed[i] * costs[i].ns;
+        chained_us += 1e-3 * needed[i] * costs[i].chained_ns;
+    }
     fmt::print(
         "{}: a dispersed flight takes {:.0f} us of CPU on one thread ({} cases, each campaign of "
         "{} the best of {})\n"
@@ -242,7 +236,7 @@ void dispersed_flight_floor(const std::filesystem::path& file) {
         "  (the same evaluations as a chain, each waiting for the last as the stages of a step "
         "do: {:.0f} us)\n",
         file.stem().string(), us_per_case, campaigns * runs, runs, passes, flown, entry, descent,
-        burn, attempts, per_attempt, ns_entry, ns_descent, ns_burn, floor_us,
+        burn, attempts, per_attempt, costs[0].ns, costs[1].ns, costs[2].ns, floor_us,
         us_per_case / floor_us, chained_us);
 }
 
