@@ -4,6 +4,7 @@
 #include <cmath>
 #include <limits>
 #include <optional>
+#include <type_traits>
 
 #include "constants.hpp"
 
@@ -177,6 +178,15 @@ private:
     Entry last_{FlightState::Constant(std::numeric_limits<double>::quiet_NaN()), {}, {}};
 };
 
+/// What a function returns, made where it is emplaced: std::optional::emplace(InPlace{f})
+/// constructs its value from f()'s result directly (C++17's guaranteed copy elision through the
+/// conversion), where assigning f() would make it and then copy it in.
+template <class F>
+struct InPlace {
+    F make;
+    operator std::invoke_result_t<F&>() { return make(); }
+};
+
 /// Flies a phase on one set of equations until a trigger, t_max or the step budget, or (with
 /// `may_change`) until its equations should change: that event comes after the peaks.
 IntegrationOutcome<flight_state_size> fly_stretch(
@@ -185,9 +195,10 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     PhaseRecording recording) {
     const Stage& stage = phase.stage;
     StateMemo memo;
+    // Each computed straight into the memo's entry (InPlace), not copied into it.
     const auto conditions_of = [&](StateMemo::Entry& e) -> const FlightConditions& {
         if (!e.conditions)
-            e.conditions = flight_conditions(model, stage, e.y);
+            e.conditions.emplace(InPlace{[&] { return flight_conditions(model, stage, e.y); }});
         return *e.conditions;
     };
     const auto conditions_at = [&](const FlightState& y) -> const FlightConditions& {
@@ -195,14 +206,15 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     };
     // The full equations take the conditions from the memo the events read too.
     const bool air = feels_air(stage);
-    const auto rhs = [&](double, const FlightState& y) -> FlightState {
+    const auto rhs = [&](double, const FlightState& y) -> const FlightState& {
         StateMemo::Entry& e = memo.at(y);
         if (!e.rates) {
-            if (equations == Equations::quasi_steady)
-                e.rates = quasi_steady_derivative(model, stage, e.y);
-            else
-                e.rates = air ? flight_derivative(model, stage, e.y, conditions_of(e))
-                              : flight_derivative(model, stage, e.y);
+            e.rates.emplace(InPlace{[&] {
+                if (equations == Equations::quasi_steady)
+                    return quasi_steady_derivative(model, stage, e.y);
+                return air ? flight_derivative(model, stage, e.y, conditions_of(e))
+                           : flight_derivative(model, stage, e.y);
+            }});
         }
         return *e.rates;
     };
