@@ -35,7 +35,14 @@ std::string number(double value, std::string_view unit) {
 /// `beyond` is how far value lies past the limit as a fraction of it (positive = past it).
 Check judge(const LimitRule& rule, double value, double limit, double beyond, double band,
             std::string_view past_word, std::string_view within_word, Wording wording) {
-    Check c{rule.id, CheckStatus::pass, value, limit, rule.unit, "", rule.source, {}};
+    Check c{std::string(rule.id),
+            CheckStatus::pass,
+            value,
+            limit,
+            std::string(rule.unit),
+            "",
+            std::string(rule.source),
+            {}};
     if (rule.severity == Severity::physics)
         c.margin = -beyond;
     const bool past = beyond > 0.0;

@@ -1,6 +1,7 @@
 #pragma once
 
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "checks/check.hpp"
@@ -15,13 +16,14 @@ namespace ds {
 /// marginal band of it is "marginal".
 enum class Severity { envelope, physics };
 
-/// What a limit check compares, in words and numbers.
+/// What a limit check compares, in words and numbers: views of text that outlives the check's
+/// making (a literal, or a string of the caller's), which the check copies what it keeps of.
 struct LimitRule {
-    std::string id;
-    std::string what;  ///< "peak deceleration"
-    std::string unit;
+    std::string_view id;
+    std::string_view what;  ///< "peak deceleration"
+    std::string_view unit;
     Severity severity = Severity::physics;
-    std::string source;
+    std::string_view source;
 };
 
 /// Checks value <= limit.

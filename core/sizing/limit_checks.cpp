@@ -33,7 +33,7 @@ struct Judge {
     }
 };
 
-Check half_angle_check(double half_angle_deg, double heritage_deg, const std::string& source,
+Check half_angle_check(double half_angle_deg, double heritage_deg, std::string_view source,
                        const Judge& judge) {
     constexpr double same_angle_deg = 0.5;  // a heritage shape to within half a degree
     Check c{"aeroshell_half_angle",
@@ -42,7 +42,7 @@ Check half_angle_check(double half_angle_deg, double heritage_deg, const std::st
             heritage_deg,
             "deg",
             "",
-            source,
+            std::string(source),
             {}};
     if (std::abs(half_angle_deg - heritage_deg) > same_angle_deg) {
         c.status = CheckStatus::marginal;
@@ -96,17 +96,17 @@ Check timeline_check(double margin_s, double limit_s, double needed_s, bool powe
 }
 
 /// The launcher fairing bounds every aeroshell.
-void fairing_check(const Results& results, const Judge& judge, const std::string& heritage,
+void fairing_check(const Results& results, const Judge& judge, std::string_view heritage,
                    std::vector<Check>& checks) {
     checks.push_back(
         judge.at_most({"aeroshell_diameter", "aeroshell diameter", "m", Severity::envelope,
-                       "launcher fairing about 4.5-4.6 m, " + heritage},
+                       fmt::format("launcher fairing about 4.5-4.6 m, {}", heritage)},
                       results.entry.diameter_m, judge.limits.aeroshell_diameter_max_m));
 }
 
 /// The rest of the heritage envelope is that of Mars soft landing: for Mars designs only.
 void mars_envelope_checks(const Design& design, const Results& results, const Judge& judge,
-                          const std::string& heritage, std::vector<Check>& checks) {
+                          std::string_view heritage, std::vector<Check>& checks) {
     const Limits& lim = judge.limits;
     checks.push_back(judge.at_most({"ballistic_coefficient", "entry ballistic coefficient",
                                     "kg/m^2", Severity::envelope, heritage},
@@ -160,8 +160,8 @@ void deploy_checks(const Design& design, const CanopyChecked& canopy, const Judg
                    std::vector<Check>& checks) {
     const ParachuteResults& parachute = canopy.results;
     const DeployWindow w = deploy_window(design);
-    const std::string window{design.body.preset == "mars" ? std::string(deploy_window_source)
-                                                          : std::string("the design's own limit")};
+    const std::string_view window =
+        design.body.preset == "mars" ? deploy_window_source : "the design's own limit";
     const std::string mach_words = canopy.words("Mach number at {} deploy");
     const std::string pressure_words = canopy.words("dynamic pressure at {} deploy");
     if (w.mach_max) {
@@ -239,7 +239,7 @@ void jettison_checks(const ParachuteResults& parachute, const Judge& judge,
     if (!parachute.heat_shield_jettison_mach)
         return;
     const Limits& lim = judge.limits;
-    const std::string source =
+    constexpr std::string_view source =
         "a clean separation of the heat shield, subsonic at low dynamic pressure (common "
         "practice: set the design's own)";
     checks.push_back(judge.at_most(
@@ -281,7 +281,7 @@ void powered_descent_checks(const Results& results, const Judge& judge,
         return;
     const PoweredDescentResults& p = *results.terminal.powered_descent;
     const Limits& lim = judge.limits;
-    const std::string envelope =
+    constexpr std::string_view envelope =
         "retro-propulsion ignition envelope (wind-tunnel tests into a supersonic flow span about "
         "Mach 2 to 4.6, from memory; 15 kPa is our default; common practice: set the vehicle's "
         "own)";
@@ -358,9 +358,9 @@ Check touchdown_horizontal_check(const TerminalResults& terminal, const Judge& j
         if (r.method == terminal.method)
             rule = &r;
     }
-    return judge.at_most({"touchdown_horizontal_velocity", std::string(rule->what), "m/s",
-                          Severity::physics, std::string(rule->source)},
-                         *terminal.touchdown_horizontal_velocity_m_s, judge.limits.*(rule->limit));
+    return judge.at_most(
+        {"touchdown_horizontal_velocity", rule->what, "m/s", Severity::physics, rule->source},
+        *terminal.touchdown_horizontal_velocity_m_s, judge.limits.*(rule->limit));
 }
 
 /// How the payload meets the ground: its touchdown speed (a tethered payload's is the
@@ -404,11 +404,12 @@ DeployWindow deploy_window(const Design& design) {
 
 std::vector<Check> limit_checks(const Design& design, const Results& results, Wording wording) {
     const Judge judge{design.limits, wording};
-    const std::string heritage{heritage_source};
     std::vector<Check> checks;
-    fairing_check(results, judge, heritage, checks);
+    constexpr std::size_t most_checks = 32;  // a sizing makes some 20: room without regrowth
+    checks.reserve(most_checks);
+    fairing_check(results, judge, heritage_source, checks);
     if (design.body.preset == "mars")
-        mars_envelope_checks(design, results, judge, heritage, checks);
+        mars_envelope_checks(design, results, judge, heritage_source, checks);
     parachute_checks(design, results, judge, checks);
     entry_load_checks(results.entry, judge, checks);
     landing_checks(results.terminal, judge, checks);
