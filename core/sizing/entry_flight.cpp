@@ -29,19 +29,17 @@ std::vector<Peak> entry_peaks() {
 }
 
 /// Raises `best` to the phase's located maxima and its two ends (a quantity may still be
-/// rising when the phase ends).
-void raise_peak(PeakValue& best, const FlightModel& model, const Phase& phase, std::size_t peak,
-                double t0, const FlightState& y0, const PhaseOutcome& flown) {
+/// rising when the phase ends), given the flight conditions at the ends.
+void raise_peak(PeakValue& best, const Phase& phase, std::size_t peak, double t0,
+                const FlightState& y0, const FlightConditions& at_start, const PhaseOutcome& flown,
+                const FlightConditions& at_end) {
     const FlightQuantity q = phase.peaks[peak].quantity;
     const auto consider = [&](double value, double t, const FlightState& y) {
         if (value > best.value)
             best = {value, t, y};
     };
-    const auto value_at = [&](const FlightState& y) {
-        return flight_quantity(q, flight_conditions(model, phase.stage, y), y);
-    };
-    consider(value_at(y0), t0, y0);
-    consider(value_at(flown.y), flown.time_s, flown.y);
+    consider(flight_quantity(q, at_start, y0), t0, y0);
+    consider(flight_quantity(q, at_end, flown.y), flown.time_s, flown.y);
     for (const PeakHit& hit : flown.peaks) {
         if (hit.peak == peak)
             consider(hit.value, hit.time_s, hit.y);
@@ -237,17 +235,19 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
     FlightState y = out.start;
     for (std::size_t i = 0; i < phases.size(); ++i) {
         const Phase& p = phases[i];
+        const FlightConditions at_start = flight_conditions(model, p.stage, y);
         const PhaseOutcome flown =
             fly_phase(model, p, t, y, design.solver.max_time_s, settings, {history, nullptr});
-        raise_peak(out.dynamic_pressure, model, p, dynamic_pressure_peak, t, y, flown);
-        raise_peak(out.deceleration, model, p, deceleration_peak, t, y, flown);
-        raise_peak(out.heat_flux, model, p, heat_flux_peak, t, y, flown);
-        raise_peak(out.radiative_heat_flux, model, p, radiative_peak, t, y, flown);
+        out.end_conditions = flight_conditions(model, p.stage, flown.y);
+        const FlightConditions& at_end = out.end_conditions;
+        raise_peak(out.dynamic_pressure, p, dynamic_pressure_peak, t, y, at_start, flown, at_end);
+        raise_peak(out.deceleration, p, deceleration_peak, t, y, at_start, flown, at_end);
+        raise_peak(out.heat_flux, p, heat_flux_peak, t, y, at_start, flown, at_end);
+        raise_peak(out.radiative_heat_flux, p, radiative_peak, t, y, at_start, flown, at_end);
         out.steps += flown.steps;
         out.evaluations += flown.evaluations;
         out.end_time_s = flown.time_s;
         out.end_state = flown.y;
-        out.end_conditions = flight_conditions(model, p.stage, flown.y);
         if (flown.reason != StopReason::terminal_event) {
             out.end = EntryEnd::stopped;
             out.stop_reason = flown.reason;
