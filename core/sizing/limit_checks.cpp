@@ -182,23 +182,27 @@ void deploy_checks(const Design& design, const CanopyChecked& canopy, const Judg
                                         *w.dynamic_pressure_min_Pa));
     }
     if (!w.any()) {
-        const Limits mars;
-        checks.push_back(Check{
-            canopy.id("deploy_window"),
-            CheckStatus::pass,
-            *parachute.deploy_mach,
-            0.0,
-            "",
-            fmt::format("not checked: no deploy window is known for {} (the Mars supersonic "
-                        "window, Mach up to {:.4g} and {:.4g}-{:.4g} Pa, applies to Mars only); "
-                        "{} deploy at Mach {:.2f} and {:.0f} Pa: set deploy_mach_max and the "
-                        "deploy dynamic pressures in \"limits\" to check them",
-                        design.body.preset.empty() ? "a custom body" : design.body.preset,
-                        mars.deploy_mach_max, mars.deploy_dynamic_pressure_min_Pa,
-                        mars.deploy_dynamic_pressure_max_Pa, canopy.name, *parachute.deploy_mach,
-                        *parachute.deploy_dynamic_pressure_Pa),
-            "no source for this body",
-            {}});
+        Check c{canopy.id("deploy_window"),
+                CheckStatus::pass,
+                *parachute.deploy_mach,
+                0.0,
+                "",
+                "",
+                "no source for this body",
+                {}};
+        if (judge.worded()) {
+            const Limits mars;
+            c.message = fmt::format(
+                "not checked: no deploy window is known for {} (the Mars supersonic window, Mach "
+                "up to {:.4g} and {:.4g}-{:.4g} Pa, applies to Mars only); {} deploy at Mach "
+                "{:.2f} and {:.0f} Pa: set deploy_mach_max and the deploy dynamic pressures in "
+                "\"limits\" to check them",
+                design.body.preset.empty() ? "a custom body" : design.body.preset,
+                mars.deploy_mach_max, mars.deploy_dynamic_pressure_min_Pa,
+                mars.deploy_dynamic_pressure_max_Pa, canopy.name, *parachute.deploy_mach,
+                *parachute.deploy_dynamic_pressure_Pa);
+        }
+        checks.push_back(std::move(c));
     }
 }
 

@@ -232,11 +232,25 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
                                      capability_tolerance_m);
 }
 
-Check flight_check(std::string id, CheckStatus status, double value, double limit, std::string unit,
-                   std::string message, std::string source) {
-    return {std::move(id),     status,      value, limit, std::move(unit), std::move(message),
-            std::move(source), std::nullopt};
-}
+/// Makes the checks that come from the flight and the closure themselves: the message, a
+/// function that writes it, is written only when the checks are worded (a dispersion's cases
+/// are judged only, Wording).
+struct FlightChecks {
+    Wording wording = Wording::words;
+
+    template <class Message>
+    Check operator()(std::string id, CheckStatus status, double value, double limit,
+                     std::string unit, Message&& message, std::string source) const {
+        return {std::move(id),
+                status,
+                value,
+                limit,
+                std::move(unit),
+                wording == Wording::words ? std::string(message()) : std::string(),
+                std::move(source),
+                std::nullopt};
+    }
+};
 
 constexpr Names<StopReason, 5> stop_reason_texts{
     {{StopReason::reached_end, "the flight-time budget ran out"},
@@ -632,57 +646,71 @@ void fill_conic(const Evaluation& e, const Design& design, const Body& body, Res
 
 /// The heat shield's jettison, when it does not come before the lander leaves: never in the
 /// descent flown, or only after the backshell separation.
-Check jettison_check(const Evaluation& e) {
+Check jettison_check(const Evaluation& e, const FlightChecks& check) {
     const DescentFlight& d = *e.descent;
-    const std::string advice = "shorten the jettison delay or raise its dynamic pressure";
+    constexpr std::string_view advice = "shorten the jettison delay or raise its dynamic pressure";
     if (!d.jettisoned) {
-        return flight_check(
+        return check(
             "heat_shield_jettison", CheckStatus::fail, 0.0, 0.0, "",
-            fmt::format("the heat shield is never jettisoned before {}: {}",
-                        descent_stopped(e) ? "the descent under the canopy stops" : "the ground",
-                        advice),
+            [&] {
+                return fmt::format(
+                    "the heat shield is never jettisoned before {}: {}",
+                    descent_stopped(e) ? "the descent under the canopy stops" : "the ground",
+                    advice);
+            },
             "design sequence");
     }
     // Jettisoned but not reached: only a backshell separation comes before it.
     const double jettison = d.jettison_time_s - d.deploy_time_s;
     const double separation = e.burn->separation_time_s - d.deploy_time_s;
-    return flight_check(
+    return check(
         "heat_shield_jettison", CheckStatus::fail, jettison, separation, "s",
-        fmt::format("the heat shield would be jettisoned {:.1f} s after parachute deploy, but the "
-                    "lander separates from the backshell at {:.1f} s: the jettison is not "
-                    "reached, and the lander would leave with the heat shield still on while its "
-                    "mass and burn assume it gone; {}",
-                    jettison, separation, advice),
+        [&] {
+            return fmt::format(
+                "the heat shield would be jettisoned {:.1f} s after parachute deploy, but the "
+                "lander separates from the backshell at {:.1f} s: the jettison is not reached, "
+                "and the lander would leave with the heat shield still on while its mass and "
+                "burn assume it gone; {}",
+                jettison, separation, advice);
+        },
         "design sequence");
 }
 
 /// Parts dropped before landing that weigh as much as the vehicle leave nothing to land.
-Check drop_mass_check(const Evaluation& e, const Design& design) {
+Check drop_mass_check(const Evaluation& e, const Design& design, const FlightChecks& check) {
     const double dropped = e.entry_kg - e.landing_kg;
-    return flight_check(
+    return check(
         "drop_mass", CheckStatus::fail, dropped, e.entry_kg, "kg",
-        fmt::format("the masses dropped before landing ({:.1f} kg: heat shield{}{}) {} the "
-                    "entry mass ({:.1f} kg): nothing is left to land, and no landed mass, thrust "
-                    "or propellant is computed",
-                    dropped, e.decelerator_kg > 0.0 ? ", decelerator" : "",
-                    backshell_separates(design.terminal.method) ? ", backshell, parachute" : "",
-                    dropped > e.entry_kg ? "exceed" : "equal", e.entry_kg),
+        [&] {
+            return fmt::format(
+                "the masses dropped before landing ({:.1f} kg: heat shield{}{}) {} the entry "
+                "mass ({:.1f} kg): nothing is left to land, and no landed mass, thrust or "
+                "propellant is computed",
+                dropped, e.decelerator_kg > 0.0 ? ", decelerator" : "",
+                backshell_separates(design.terminal.method) ? ", backshell, parachute" : "",
+                dropped > e.entry_kg ? "exceed" : "equal", e.entry_kg);
+        },
         "mass budget");
 }
 
 /// A load the design gives must cover the burn: what can burn is the load less its trapped
 /// residual (the reserve is there to be burned when a flight needs it).
-Check propellant_load_check(const TerminalDesign& t, double burned_kg) {
+Check propellant_load_check(const TerminalDesign& t, double burned_kg, const FlightChecks& check) {
     const double usable = *t.propellant_loaded_kg * (1.0 - t.propellant_residual_fraction);
-    Check c = flight_check(
+    Check c = check(
         "propellant_load", burned_kg > usable ? CheckStatus::fail : CheckStatus::pass, burned_kg,
         usable, "kg",
-        burned_kg > usable
-            ? fmt::format("the flight burns {:.1f} kg but the {:.1f} kg loaded leave {:.1f} kg "
-                          "above the trapped residual: the tanks run dry",
-                          burned_kg, *t.propellant_loaded_kg, usable)
-            : fmt::format("the flight burns {:.1f} kg of the {:.1f} kg usable ({:.1f} kg loaded)",
-                          burned_kg, usable, *t.propellant_loaded_kg),
+        [&] {
+            return burned_kg > usable
+                       ? fmt::format(
+                             "the flight burns {:.1f} kg but the {:.1f} kg loaded leave "
+                             "{:.1f} kg above the trapped residual: the tanks run dry",
+                             burned_kg, *t.propellant_loaded_kg, usable)
+                       : fmt::format(
+                             "the flight burns {:.1f} kg of the {:.1f} kg usable ({:.1f} "
+                             "kg loaded)",
+                             burned_kg, usable, *t.propellant_loaded_kg);
+        },
         "the design's loaded propellant less its trapped residual");
     c.margin = (usable - burned_kg) / usable;
     return c;
@@ -690,31 +718,40 @@ Check propellant_load_check(const TerminalDesign& t, double burned_kg) {
 
 /// The sizing requests of the design: an aeroshell sized for a ballistic coefficient, a canopy
 /// sized for a descent speed. Returns false when the aeroshell has no solution (nothing flew).
-bool sizing_request_checks(const Evaluation& e, const Design& design, std::vector<Check>& checks) {
+bool sizing_request_checks(const Evaluation& e, const Design& design, const FlightChecks& check,
+                           std::vector<Check>& checks) {
     if (design.aeroshell.size_for_ballistic_coefficient_kg_m2) {
         const double target = *design.aeroshell.size_for_ballistic_coefficient_kg_m2;
-        checks.push_back(
-            e.aeroshell.diameter_m > 0.0
-                ? flight_check("aeroshell_sizing", CheckStatus::pass, target, target, "kg/m^2",
-                               fmt::format("aeroshell sized to {:.4g} m for a ballistic "
-                                           "coefficient of {:.4g} kg/m^2",
-                                           e.aeroshell.diameter_m, target),
-                               "sizing request")
-                : flight_check("aeroshell_sizing", CheckStatus::fail, 0.0, target, "kg/m^2",
-                               fmt::format("no aeroshell diameter between the nose diameter and "
-                                           "100 m gives a ballistic coefficient of {:.4g} kg/m^2 "
-                                           "at {:.4g} kg",
-                                           target, e.entry_kg),
-                               "sizing request"));
-        if (e.aeroshell.diameter_m <= 0.0)
+        if (e.aeroshell.diameter_m > 0.0) {
+            checks.push_back(check(
+                "aeroshell_sizing", CheckStatus::pass, target, target, "kg/m^2",
+                [&] {
+                    return fmt::format(
+                        "aeroshell sized to {:.4g} m for a ballistic coefficient of {:.4g} kg/m^2",
+                        e.aeroshell.diameter_m, target);
+                },
+                "sizing request"));
+        } else {
+            checks.push_back(check(
+                "aeroshell_sizing", CheckStatus::fail, 0.0, target, "kg/m^2",
+                [&] {
+                    return fmt::format(
+                        "no aeroshell diameter between the nose diameter and 100 m gives a "
+                        "ballistic coefficient of {:.4g} kg/m^2 at {:.4g} kg",
+                        target, e.entry_kg);
+                },
+                "sizing request"));
             return false;
+        }
     }
     if (design.parachute && !design.parachute->diameter_m && e.canopy_diameter_m <= 0.0) {
-        checks.push_back(flight_check(
+        checks.push_back(check(
             "parachute_sizing", CheckStatus::fail, 0.0, *design.parachute->size_for_velocity_m_s,
             "m/s",
-            "the vehicle under the canopy already descends slower than the requested speed: "
-            "no canopy is needed, or the request is wrong",
+            [] {
+                return "the vehicle under the canopy already descends slower than the requested "
+                       "speed: no canopy is needed, or the request is wrong";
+            },
             "sizing request"));
     }
     return true;
@@ -723,112 +760,144 @@ bool sizing_request_checks(const Evaluation& e, const Design& design, std::vecto
 /// How the entry ended: at its last trigger (the parachute's deploy, or a powered descent's
 /// ignition), or short of it (ground, skip-out, stopped). Without either, the entry flies to
 /// the ground, as a ballistic impact.
-Check entry_end_check(const Evaluation& e, const Design& design) {
+Check entry_end_check(const Evaluation& e, const Design& design, const FlightChecks& check) {
     const EntryFlight& f = e.entry;
     const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
-    const std::string id = powered ? "ignition_trigger" : "parachute_trigger";
-    const std::string what = powered ? "ignition trigger" : "parachute trigger";
+    const char* id = powered ? "ignition_trigger" : "parachute_trigger";
+    const std::string_view what = powered ? "ignition trigger" : "parachute trigger";
     const std::optional<Trigger> last = entry_end_trigger(design);
-    const std::string trigger =
-        powered ? describe_trigger(design.terminal.trigger, design.terminal.trigger_value)
-        : design.parachute
-            ? describe_trigger(design.parachute->trigger, design.parachute->trigger_value)
-            : std::string();
+    const auto trigger = [&] {
+        return powered ? describe_trigger(design.terminal.trigger, design.terminal.trigger_value)
+               : design.parachute
+                   ? describe_trigger(design.parachute->trigger, design.parachute->trigger_value)
+                   : std::string();
+    };
     const double v_end = speed(f.end_state);
     const double h_end = f.end_state[StateIndex::altitude];
     if (!last && f.end == EntryEnd::ground) {
-        return flight_check("ballistic_impact", CheckStatus::pass, v_end, 0.0, "m/s",
-                            fmt::format("no parachute: the vehicle flies its entry to the ground "
-                                        "and strikes it at {:.1f} m/s, {:.1f} s after entry",
-                                        v_end, f.end_time_s),
-                            "design sequence");
+        return check(
+            "ballistic_impact", CheckStatus::pass, v_end, 0.0, "m/s",
+            [&] {
+                return fmt::format(
+                    "no parachute: the vehicle flies its entry to the ground and "
+                    "strikes it at {:.1f} m/s, {:.1f} s after entry",
+                    v_end, f.end_time_s);
+            },
+            "design sequence");
     }
     switch (f.end) {
         case EntryEnd::deployed:
-            return flight_check(
+            return check(
                 id, CheckStatus::pass, h_end - design.site.elevation_m, 0.0, "m",
-                fmt::format("{} ({}) reached {:.0f} m above the site, {:.1f} s after entry", what,
-                            trigger, h_end - design.site.elevation_m, f.end_time_s),
+                [&] {
+                    return fmt::format(
+                        "{} ({}) reached {:.0f} m above the site, {:.1f} s after "
+                        "entry",
+                        what, trigger(), h_end - design.site.elevation_m, f.end_time_s);
+                },
                 "design trigger");
         case EntryEnd::ground:
-            return flight_check(
+            return check(
                 id, CheckStatus::fail, 0.0, 0.0, "m",
-                fmt::format("the vehicle reaches the ground at {:.1f} m/s (Mach {:.2f}), {:.1f} s "
-                            "after entry, before the {} ({})",
-                            v_end, f.end_conditions.mach, f.end_time_s, what, trigger),
+                [&] {
+                    return fmt::format(
+                        "the vehicle reaches the ground at {:.1f} m/s (Mach "
+                        "{:.2f}), {:.1f} s after entry, before the {} ({})",
+                        v_end, f.end_conditions.mach, f.end_time_s, what, trigger());
+                },
                 "design trigger");
         case EntryEnd::skip_out:
-            return flight_check(
+            return check(
                 id, CheckStatus::fail, h_end - design.site.elevation_m, 0.0, "m",
-                fmt::format("the vehicle skips out of the atmosphere at {:.0f} m/s, {:.1f} s after "
-                            "entry, before the {}{}: steepen the entry or reduce the lift",
-                            v_end, f.end_time_s, last ? what : "ground",
-                            last ? fmt::format(" ({})", trigger) : std::string()),
+                [&] {
+                    return fmt::format(
+                        "the vehicle skips out of the atmosphere at {:.0f} m/s, {:.1f} s after "
+                        "entry, before the {}{}: steepen the entry or reduce the lift",
+                        v_end, f.end_time_s, last ? what : "ground",
+                        last ? fmt::format(" ({})", trigger()) : std::string());
+                },
                 "design trigger");
         case EntryEnd::stopped:
             break;
     }
-    return flight_check("trajectory", CheckStatus::fail, f.end_time_s, design.solver.max_time_s,
-                        "s",
-                        fmt::format("the flight stopped at {:.1f} s, {:.0f} m, {:.1f} m/s: {}",
-                                    f.end_time_s, h_end, v_end, stop_reason_text(f.stop_reason)),
-                        "solver settings");
+    return check(
+        "trajectory", CheckStatus::fail, f.end_time_s, design.solver.max_time_s, "s",
+        [&] {
+            return fmt::format("the flight stopped at {:.1f} s, {:.0f} m, {:.1f} m/s: {}",
+                               f.end_time_s, h_end, v_end, stop_reason_text(f.stop_reason));
+        },
+        "solver settings");
 }
 
 /// What went wrong under the canopy and in the terminal burn: a descent that stopped, a
 /// jettison not reached, a burn that cannot stop in time, a load the burn exceeds.
-void descent_checks(const Evaluation& e, const Design& design, std::vector<Check>& checks) {
+void descent_checks(const Evaluation& e, const Design& design, const FlightChecks& check,
+                    std::vector<Check>& checks) {
     if (e.descent && !e.descent->reached_floor &&
         e.descent->stop_reason != StopReason::terminal_event) {
-        checks.push_back(flight_check("trajectory", CheckStatus::fail, 0.0,
-                                      design.solver.max_time_s, "s",
-                                      fmt::format("the descent under the canopy stopped: {}",
-                                                  stop_reason_text(e.descent->stop_reason)),
-                                      "solver settings"));
+        checks.push_back(check(
+            "trajectory", CheckStatus::fail, 0.0, design.solver.max_time_s, "s",
+            [&] {
+                return fmt::format("the descent under the canopy stopped: {}",
+                                   stop_reason_text(e.descent->stop_reason));
+            },
+            "solver settings"));
     }
     if (e.descent && !jettison_reached(e))
-        checks.push_back(jettison_check(e));
+        checks.push_back(jettison_check(e, check));
     if (e.burn && !e.burn->stops_in_time) {
         const bool powered = design.terminal.method == TerminalMethod::supersonic_retro;
-        checks.push_back(flight_check(
-            "terminal_burn", CheckStatus::fail, speed(e.burn->end_state),
-            design.terminal.touchdown_velocity_m_s, "m/s",
-            powered ? fmt::format("even at full throttle from its ignition, the powered descent "
-                                  "cannot bring the vehicle to {:.2g} m/s in time: it reaches the "
-                                  "ground at {:.1f} m/s; more thrust, more drag kept under thrust, "
-                                  "or an ignition with more height for its speed is needed",
-                                  design.terminal.touchdown_velocity_m_s, speed(e.burn->end_state))
-                    : fmt::format("even separating at parachute deploy, the burn cannot bring the "
-                                  "lander to {:.2g} m/s in time: it reaches the ground at {:.1f} "
-                                  "m/s; more thrust or an earlier, higher deploy is needed",
-                                  design.terminal.touchdown_velocity_m_s, speed(e.burn->end_state)),
+        const double reached = speed(e.burn->end_state);
+        const double wanted = design.terminal.touchdown_velocity_m_s;
+        checks.push_back(check(
+            "terminal_burn", CheckStatus::fail, reached, wanted, "m/s",
+            [&] {
+                return powered ? fmt::format(
+                                     "even at full throttle from its ignition, the powered "
+                                     "descent cannot bring the vehicle to {:.2g} m/s in time: "
+                                     "it reaches the ground at {:.1f} m/s; more thrust, more "
+                                     "drag kept under thrust, or an ignition with more "
+                                     "height for its speed is needed",
+                                     wanted, reached)
+                               : fmt::format(
+                                     "even separating at parachute deploy, the burn cannot "
+                                     "bring the lander to {:.2g} m/s in time: it reaches the "
+                                     "ground at {:.1f} m/s; more thrust or an earlier, higher "
+                                     "deploy is needed",
+                                     wanted, reached);
+            },
             "terminal descent"));
     }
     if (design.terminal.propellant_loaded_kg && e.burned_kg > 0.0) {
-        checks.push_back(propellant_load_check(design.terminal, e.burned_kg));
+        checks.push_back(propellant_load_check(design.terminal, e.burned_kg, check));
     }
 }
 
 /// The budget against the entry mass: closed by iteration (sizing), or within the fixed entry
 /// mass (analysis).
-std::optional<Check> budget_check(const Evaluation& e, const std::optional<MassClosure>& closure) {
+std::optional<Check> budget_check(const Evaluation& e, const std::optional<MassClosure>& closure,
+                                  const FlightChecks& check) {
     const double mass = e.entry_kg;
     if (closure) {
-        return closure->converged
-                   ? flight_check("mass_closure", CheckStatus::pass, closure->residual_kg,
-                                  closure_tolerance_kg, "kg",
-                                  fmt::format("mass budget closed at {:.1f} kg in {} iterations",
-                                              mass, closure->iterations),
-                                  "closure to 0.1 kg")
-                   : flight_check("mass_closure", CheckStatus::fail, closure->residual_kg,
-                                  closure_tolerance_kg, "kg",
-                                  fmt::format("the mass budget does not close: after {} "
-                                              "iterations the entry mass is {:.4g} kg and the "
-                                              "budget adds up to {:.4g} kg (propellant or "
-                                              "estimates growing faster than the mass they "
-                                              "serve)",
-                                              closure->iterations, mass, e.budget_kg()),
-                                  "closure to 0.1 kg");
+        if (closure->converged) {
+            return check(
+                "mass_closure", CheckStatus::pass, closure->residual_kg, closure_tolerance_kg, "kg",
+                [&] {
+                    return fmt::format("mass budget closed at {:.1f} kg in {} iterations", mass,
+                                       closure->iterations);
+                },
+                "closure to 0.1 kg");
+        }
+        return check(
+            "mass_closure", CheckStatus::fail, closure->residual_kg, closure_tolerance_kg, "kg",
+            [&] {
+                return fmt::format(
+                    "the mass budget does not close: after {} iterations the entry mass is "
+                    "{:.4g} kg and the budget adds up to {:.4g} kg (propellant or estimates "
+                    "growing faster than the mass they serve)",
+                    closure->iterations, mass, e.budget_kg());
+            },
+            "closure to 0.1 kg");
     }
     if (!e.unallocated_kg)
         return std::nullopt;
@@ -836,28 +905,33 @@ std::optional<Check> budget_check(const Evaluation& e, const std::optional<MassC
     // Within the closure's tolerance is allocated: a frozen sized design (a dispersion's
     // vehicle) carries its closure's last 0.1 kg as a rounding, not as an excess.
     const bool over = unallocated < -closure_tolerance_kg;
-    return flight_check(
+    return check(
         "mass_allocation", over ? CheckStatus::fail : CheckStatus::pass, unallocated, 0.0, "kg",
-        over ? fmt::format("the items and estimates add up to {:.1f} kg more than the fixed "
-                           "entry mass of {:.1f} kg",
-                           -unallocated, mass)
-             : fmt::format("{:.1f} kg of the fixed entry mass of {:.1f} kg is not itemised or "
-                           "estimated",
-                           unallocated, mass),
+        [&] {
+            return over ? fmt::format(
+                              "the items and estimates add up to {:.1f} kg more than the "
+                              "fixed entry mass of {:.1f} kg",
+                              -unallocated, mass)
+                        : fmt::format(
+                              "{:.1f} kg of the fixed entry mass of {:.1f} kg is not "
+                              "itemised or estimated",
+                              unallocated, mass);
+        },
         "entry mass fixed by the design");
 }
 
 /// Checks that come from the flight and the closure themselves, not from a limit.
 std::vector<Check> flight_checks(const Evaluation& e, const Design& design,
-                                 const std::optional<MassClosure>& closure) {
+                                 const std::optional<MassClosure>& closure, Wording wording) {
+    const FlightChecks check{wording};
     std::vector<Check> checks;
-    if (!sizing_request_checks(e, design, checks))
+    if (!sizing_request_checks(e, design, check, checks))
         return checks;
     if (e.landing_kg <= 0.0)
-        checks.push_back(drop_mass_check(e, design));
-    checks.push_back(entry_end_check(e, design));
-    descent_checks(e, design, checks);
-    if (std::optional<Check> budget = budget_check(e, closure))
+        checks.push_back(drop_mass_check(e, design, check));
+    checks.push_back(entry_end_check(e, design, check));
+    descent_checks(e, design, check, checks);
+    if (std::optional<Check> budget = budget_check(e, closure, check))
         checks.push_back(std::move(*budget));
     return checks;
 }
@@ -1018,12 +1092,15 @@ std::optional<Check> finite_figures_check(const Results& results, const SizingOp
         listed += fmt::format("{}{}", i == 0 ? "" : ", ", paths[i]);
     if (paths.size() > named)
         listed += fmt::format(" and {} more", paths.size() - named);
-    return flight_check(
+    return FlightChecks{options.check_wording}(
         "finite_figures", CheckStatus::fail, static_cast<double>(paths.size()), 0.0, "figures",
-        fmt::format("{} figure{} of the sizing {} not a finite number ({}): an input lies outside "
-                    "what the models cover; look for one far from its typical range",
-                    paths.size(), paths.size() == 1 ? "" : "s", paths.size() == 1 ? "is" : "are",
-                    listed),
+        [&] {
+            return fmt::format(
+                "{} figure{} of the sizing {} not a finite number ({}): an input lies outside "
+                "what the models cover; look for one far from its typical range",
+                paths.size(), paths.size() == 1 ? "" : "s", paths.size() == 1 ? "is" : "are",
+                listed);
+        },
         "the models' domain");
 }
 
@@ -1092,7 +1169,7 @@ Results size_design(const Design& design, SizingOptions options) {
     if (options.notes_and_timeline)
         add_notes(design, e, results);
 
-    std::vector<Check> checks = flight_checks(e, design, closure);
+    std::vector<Check> checks = flight_checks(e, design, closure, options.check_wording);
     if (e.aeroshell.diameter_m > 0.0) {
         std::vector<Check> limits = limit_checks(design, results, options.check_wording);
         checks.insert(checks.end(), std::make_move_iterator(limits.begin()),

@@ -16,8 +16,8 @@ struct SizingOptions {
     /// results document without its history and the history sample by sample, some 50 us a sizing);
     /// off, the key figures alone: for trade cases, which keep the key figures and nothing else.
     bool every_figure_checked = true;
-    /// Judged only, the limit checks carry no messages: for trade cases that keep which checks
-    /// fail and nothing they say (a dispersion's).
+    /// Judged only, the checks carry no messages (the limits' and the flight's own): for trade
+    /// cases that keep which checks fail and nothing they say (a dispersion's).
     Wording check_wording = Wording::words;
     /// The results' notes and the timeline's events (each placed on the ground track): off for
     /// trade cases that keep the key figures, the landing point and which checks fail, and
