@@ -89,6 +89,10 @@ constexpr double settle_rate_g = 1e-3;
 /// value, so that the two changes cannot chase each other (our choice).
 constexpr double unsettle_rate_g = 2e-3;
 
+/// What a quantity read off the state is handed for conditions: made once, not each time an
+/// event asks.
+const FlightConditions no_conditions{};
+
 /// A trigger that counts only in descending flight asks this of the state at its crossing.
 bool descending(const FlightState& y) {
     return y[StateIndex::up_velocity] < 0.0;
@@ -104,7 +108,7 @@ bool read_off_state(FlightQuantity q) {
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
     if (read_off_state(q))
-        return flight_quantity(q, FlightConditions{}, y);
+        return flight_quantity(q, no_conditions, y);
     return flight_quantity(q, flight_conditions(model, stage, y), y);
 }
 
@@ -220,7 +224,7 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     };
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
         if (read_off_state(q))
-            return flight_quantity(q, FlightConditions{}, y);
+            return flight_quantity(q, no_conditions, y);
         return flight_quantity(q, conditions_at(y), y);
     };
 
