@@ -1,6 +1,7 @@
 #include "sizing/terminal_burn.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cfloat>
 #include <cmath>
 #include <cstdint>
@@ -456,7 +457,20 @@ BurnSolution solve_terminal_burn(const FlightModel& model, const DenseTrajectory
         }),
                          request);
     };
-    const auto modelled = [&](double t_s) { return modelled_miss(model, descent, request, t_s); };
+    // The model is asked again where it was asked (the rate about a flight's time, more than
+    // once; the flown time, the last secant's): it keeps its last few answers.
+    std::array<std::pair<double, double>, 4> answers;
+    answers.fill({std::numeric_limits<double>::quiet_NaN(), 0.0});  // NaN: equal to no time
+    std::size_t answered = 0;
+    const auto modelled = [&](double t_s) {
+        for (const auto& [t, miss] : answers) {
+            if (t == t_s)
+                return miss;
+        }
+        const double miss = modelled_miss(model, descent, request, t_s);
+        answers[answered++ % answers.size()] = {t_s, miss};
+        return miss;
+    };
 
     // The closed-form miss plus the offset the flights measured, solved on the descent record
     // (no flight), gives the next separation to fly: the offset changes slowly along the
