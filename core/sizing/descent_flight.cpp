@@ -47,6 +47,7 @@ DescentFlight fly_descent(const Design& design, const FlightModel& model, const 
         fly_phase(model, under_canopy, deploy_time_s, deploy_state, t_end, settings, recording);
     out.quasi_steady_steps = first.quasi_steady_steps;
     out.evaluations = first.evaluations;
+    out.evaluations_with_heat_shield = first.evaluations;
     const bool floor_first = first.ended_by == std::size_t{0};
     const bool jettison_event = first.reason == StopReason::terminal_event && !floor_first;
     const bool jettison_delay = first.reason == StopReason::reached_end && t_end < t_budget;

@@ -33,6 +33,7 @@ struct DescentFlight {
     StopReason stop_reason = StopReason::terminal_event;  ///< why, when not reached_floor
     std::size_t quasi_steady_steps = 0;  ///< of the record's steps, on the quasi-steady equations
     std::size_t evaluations = 0;  ///< of the equations by the integrator, rejected steps included
+    std::size_t evaluations_with_heat_shield = 0;  ///< of those, before the heat shield's jettison
     DenseTrajectory record;
     std::vector<TrajectorySample> samples;  ///< one per accepted step, deploy to floor (if asked)
 };
