@@ -2,6 +2,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "flight/dense_trajectory.hpp"
@@ -29,7 +30,7 @@ double flight_quantity(FlightQuantity quantity, const FlightConditions& conditio
 /// Ends a phase when a quantity crosses a value in the given direction (and, when asked, only
 /// while the flight descends).
 struct Trigger {
-    std::string name;
+    std::string_view name;  ///< a literal: the names of triggers, peaks and phases are the code's
     FlightQuantity quantity = FlightQuantity::altitude;
     double value = 0.0;
     EventDirection direction = EventDirection::falling;
@@ -38,13 +39,13 @@ struct Trigger {
 
 /// A quantity whose local maxima are located during a phase.
 struct Peak {
-    std::string name;
+    std::string_view name;
     FlightQuantity quantity = FlightQuantity::dynamic_pressure;
 };
 
 /// One flight phase as data: what flies, and what ends it.
 struct Phase {
-    std::string name;
+    std::string_view name;
     Stage stage;
     std::vector<Trigger> ends;
     std::vector<Peak> peaks;

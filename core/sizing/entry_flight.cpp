@@ -114,18 +114,18 @@ ResolvedAeroshell resolve_aeroshell(const Design& design, double entry_mass_kg) 
     return out;
 }
 
-Trigger deploy_trigger(std::string name, TriggerKind kind, double value) {
+Trigger deploy_trigger(std::string_view name, TriggerKind kind, double value) {
     switch (kind) {
         case TriggerKind::mach:
-            return {std::move(name), FlightQuantity::mach, value, EventDirection::falling};
+            return {name, FlightQuantity::mach, value, EventDirection::falling};
         case TriggerKind::dynamic_pressure:
             // The dynamic pressure also falls on a climb (a skip, a lofted path), at any speed:
             // only its fall in descending flight is the slowing down a deploy waits for. (A Mach
             // number falls only as the vehicle slows, and an altitude only in descent.)
-            return {std::move(name), FlightQuantity::dynamic_pressure, value,
+            return {name, FlightQuantity::dynamic_pressure, value,
                     EventDirection::falling, true};
         case TriggerKind::altitude:
-            return {std::move(name), FlightQuantity::altitude, value, EventDirection::falling};
+            return {name, FlightQuantity::altitude, value, EventDirection::falling};
     }
     return {};
 }
@@ -253,7 +253,7 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
             out.stop_reason = flown.reason;
             return out;
         }
-        const std::string& ended_by = p.ends[*flown.ended_by].name;
+        const std::string_view ended_by = p.ends[*flown.ended_by].name;
         if (ended_by == ground.name) {
             out.end = EntryEnd::ground;
             return out;

@@ -107,7 +107,7 @@ EntryFlight fly_entry(const Design& design, const FlightModel& model,
                       std::vector<TrajectorySample>* history);
 
 /// The design's trigger as a phase end, and in words ("Mach 1.8").
-Trigger deploy_trigger(std::string name, TriggerKind kind, double value);
+Trigger deploy_trigger(std::string_view name, TriggerKind kind, double value);
 
 /// What ends the entry: the ignition of a supersonic retro-propulsive descent, else the
 /// parachute's deploy; none for a design with neither (it flies to the ground).
