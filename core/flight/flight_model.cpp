@@ -189,10 +189,11 @@ bool feels_air(const Stage& stage) {
 
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
     // A stage with neither drag nor heating (a lander coasting or burning) feels no air: its
-    // conditions, all zero forces, are not computed.
-    return flight_derivative(
-        model, stage, y,
-        feels_air(stage) ? flight_conditions(model, stage, y) : FlightConditions{});
+    // conditions, all zero forces, are not computed (one empty set, made once, serves).
+    static const FlightConditions no_air{};
+    if (!feels_air(stage))
+        return flight_derivative(model, stage, y, no_air);
+    return flight_derivative(model, stage, y, flight_conditions(model, stage, y));
 }
 
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
