@@ -1,6 +1,7 @@
 #pragma once
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
@@ -253,7 +254,8 @@ public:
 
     /// After the accepted step `current` from t to t_new (the events' values g_before at t,
     /// g_after at t_new), ended early by `stop` when a terminal event came in it: appends the
-    /// maxima on it, and on the step before it, to `hits`.
+    /// maxima on it, and on the step before it, to `hits`. `current` must stay as it is until
+    /// the next call returns (it is that call's step before).
     [[gnu::noinline]] void after_step(std::span<const Event<N>> events, const DenseStep<N>& current,
                                       double t, double t_new, const EventValues<double>& g_before,
                                       const EventValues<double>& g_after, const EventHit<N>* stop,
@@ -301,13 +303,15 @@ public:
             if (t_max)
                 hits.push_back({i, *t_max, state_at(*t_max)});
         }
-        previous_ = current;
+        previous_ = &current;
     }
 
 private:
     EventValues<char> rising_;       ///< each maximum event's function rose over the last step
     EventValues<double> g_earlier_;  ///< the values at the last step's start
-    std::optional<DenseStep<N>> previous_;  ///< the last step's continuous extension
+    /// The last step's continuous extension: the integrator's, which keeps it until the next
+    /// step's after_step returns (it builds each step's in the other of two places).
+    const DenseStep<N>* previous_ = nullptr;
     bool any_ = false;
 };
 
@@ -348,6 +352,7 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
     for (std::size_t i = 0; i < events.size(); ++i)
         g_start[i] = events[i].function(t, y);
     detail::Maxima<N> maxima(events, t, y, k1, g_start);
+    std::array<DenseStep<N>, 2> extensions;  // the step's and the last one's (see below)
 
     on_step(t, y);
     while (t < t_end) {
@@ -401,10 +406,12 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         }
 
         // Accepted: look for events inside the step on its continuous extension, built when
-        // a record keeps it or an event crosses.
-        std::optional<DenseStep<N>> dense_step;
+        // a record keeps it, an event crosses or the maxima look (each step's in the other of
+        // two places, so the maxima keep the last one without a copy).
+        DenseStep<N>& dense_step = extensions[out.accepted_steps % 2];
+        bool extended = false;
         const auto extension = [&]() -> const DenseStep<N>& {
-            if (!dense_step) {
+            if (!extended) {
                 const Vector<N> ydiff = y_new - y;
                 const Vector<N> bspl = h * k1 - ydiff;
                 dense_step = DenseStep<N>{t,
@@ -415,8 +422,9 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
                                           ydiff - h * k7 - bspl,
                                           h * (T::d1 * k1 + T::d3 * k3 + T::d4 * k4 + T::d5 * k5 +
                                                T::d6 * k6 + T::d7 * k7)};
+                extended = true;
             }
-            return *dense_step;
+            return dense_step;
         };
         const double t_new = last ? t_end : t + h;
         if (dense_record)

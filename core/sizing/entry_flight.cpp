@@ -122,8 +122,7 @@ Trigger deploy_trigger(std::string_view name, TriggerKind kind, double value) {
             // The dynamic pressure also falls on a climb (a skip, a lofted path), at any speed:
             // only its fall in descending flight is the slowing down a deploy waits for. (A Mach
             // number falls only as the vehicle slows, and an altitude only in descent.)
-            return {name, FlightQuantity::dynamic_pressure, value,
-                    EventDirection::falling, true};
+            return {name, FlightQuantity::dynamic_pressure, value, EventDirection::falling, true};
         case TriggerKind::altitude:
             return {name, FlightQuantity::altitude, value, EventDirection::falling};
     }
