@@ -41,10 +41,4 @@ Json array_of(const Range& elements, ToJson&& to_json) {
     return out;
 }
 
-/// The object of a part the document may lack, or null without it.
-template <class Part, class ToJson>
-Json object_or_null(const std::optional<Part>& part, ToJson&& to_json) {
-    return part ? to_json(*part) : Json(nullptr);
-}
-
 }  // namespace ds::json

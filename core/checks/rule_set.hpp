@@ -16,8 +16,8 @@ namespace ds {
 /// marginal band of it is "marginal".
 enum class Severity { envelope, physics };
 
-/// What a limit check compares, in words and numbers: views of text that outlives the check's
-/// making (a literal, or a string of the caller's), which the check copies what it keeps of.
+/// What a limit check compares, in words and numbers. The words are views (of literals, or of
+/// the caller's strings alive while the check is made): the check copies what it keeps.
 struct LimitRule {
     std::string_view id;
     std::string_view what;  ///< "peak deceleration"
