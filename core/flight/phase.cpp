@@ -190,6 +190,8 @@ struct InPlace {
     F make;
     operator std::invoke_result_t<F&>() { return make(); }
 };
+template <class F>
+InPlace(F) -> InPlace<F>;  // (clang 14 deduces no aggregate's arguments without it)
 
 /// Flies a phase on one set of equations until a trigger, t_max or the step budget, or (with
 /// `may_change`) until its equations should change: that event comes after the peaks.
