@@ -138,6 +138,8 @@ Vec3 balance_near(const FlightModel& model, const Stage& stage, const FlightStat
 
 }  // namespace
 
+const FlightConditions no_conditions{};
+
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
                                    const FlightState& y) {
     const double altitude = y[StateIndex::altitude];
@@ -189,10 +191,9 @@ bool feels_air(const Stage& stage) {
 
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
     // A stage with neither drag nor heating (a lander coasting or burning) feels no air: its
-    // conditions, all zero forces, are not computed (one empty set, made once, serves).
-    static const FlightConditions no_air{};
+    // conditions, all zero forces, are not computed.
     if (!feels_air(stage))
-        return flight_derivative(model, stage, y, no_air);
+        return flight_derivative(model, stage, y, no_conditions);
     return flight_derivative(model, stage, y, flight_conditions(model, stage, y));
 }
 

@@ -45,6 +45,10 @@ struct FlightConditions {
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
                                    const FlightState& y);
 
+/// All zero: the conditions of a stage that feels no air, and what a quantity read off the
+/// state alone is handed. Made once, so the hot paths that hand them make none.
+extern const FlightConditions no_conditions;
+
 /// The three-degree-of-freedom equations of motion of a point mass over a spherical body
 /// rotating about its north pole, with inverse-square gravity, in the body-fixed frame: the
 /// equations of Vinh, Busemann and Culp, Hypersonic and Planetary Entry Flight Mechanics

@@ -89,10 +89,6 @@ constexpr double settle_rate_g = 1e-3;
 /// value, so that the two changes cannot chase each other (our choice).
 constexpr double unsettle_rate_g = 2e-3;
 
-/// What a quantity read off the state is handed for conditions: made once, not each time an
-/// event asks.
-const FlightConditions no_conditions{};
-
 /// A trigger that counts only in descending flight asks this of the state at its crossing.
 bool descending(const FlightState& y) {
     return y[StateIndex::up_velocity] < 0.0;

@@ -174,7 +174,7 @@ void write_interface(Out& out, const EntryInterface& i) {
     out.object("inertial", [&](Out& o) { write_entry_velocity(o, i.inertial); });
 }
 
-/// The arrival, or null for a design without one.
+/// The arrival (a design without one writes null: write_results_document).
 template <class Out>
 void write_approach(Out& out, const ApproachResults& approach) {
     out.number("v_infinity_m_s", approach.v_infinity_m_s);
@@ -188,7 +188,7 @@ void write_approach(Out& out, const ApproachResults& approach) {
     out.object("relative", [&](Out& o) { write_entry_velocity(o, approach.relative); });
 }
 
-/// The orbit and its deorbit burn, or null for a design without one.
+/// The orbit and its deorbit burn (a design without one writes null).
 template <class Out>
 void write_orbit(Out& out, const OrbitResults& orbit) {
     out.number("periapsis_altitude_m", orbit.periapsis_altitude_m);
