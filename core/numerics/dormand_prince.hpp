@@ -9,6 +9,7 @@
 #include <limits>
 #include <optional>
 #include <span>
+#include <type_traits>
 #include <vector>
 
 #include <Eigen/Core>
@@ -100,7 +101,22 @@ struct DenseStep {
     }
 };
 
+/// Handed to the right-hand side as a third argument at the second to the sixth stage of a
+/// step, when it takes one: nothing else asks for the state there (the seventh stage is the
+/// step's end, where the events are evaluated, and the next step's first), so an rhs that keeps
+/// what it computed at a state for later questions need not keep these.
+struct InteriorStage {};
+
 namespace detail {
+
+/// An interior stage's rates: with the InteriorStage tag when the rhs takes it.
+template <class Rhs, int N>
+decltype(auto) interior_rates(Rhs& rhs, double t, const Vector<N>& y) {
+    if constexpr (std::is_invocable_v<Rhs&, double, const Vector<N>&, InteriorStage>)
+        return rhs(t, y, InteriorStage{});
+    else
+        return rhs(t, y);
+}
 
 /// The events' values and a step's hits are kept in place up to this many events (a flight
 /// phase has at most eight), so a step allocates nothing; more spill to the heap.
@@ -368,12 +384,16 @@ IntegrationOutcome<N> integrate_dormand_prince(Rhs&& rhs, double t0, const Vecto
         if (last)
             h = t_end - t;
 
-        const Vector<N> k2 = rhs(t + T::c2 * h, y + h * (T::a21 * k1));
-        const Vector<N> k3 = rhs(t + T::c3 * h, y + h * (T::a31 * k1 + T::a32 * k2));
-        const Vector<N> k4 = rhs(t + T::c4 * h, y + h * (T::a41 * k1 + T::a42 * k2 + T::a43 * k3));
+        const auto stage = [&](double t_stage, const Vector<N>& y_stage) -> Vector<N> {
+            return detail::interior_rates<Rhs, N>(rhs, t_stage, y_stage);
+        };
+        const Vector<N> k2 = stage(t + T::c2 * h, y + h * (T::a21 * k1));
+        const Vector<N> k3 = stage(t + T::c3 * h, y + h * (T::a31 * k1 + T::a32 * k2));
+        const Vector<N> k4 =
+            stage(t + T::c4 * h, y + h * (T::a41 * k1 + T::a42 * k2 + T::a43 * k3));
         const Vector<N> k5 =
-            rhs(t + T::c5 * h, y + h * (T::a51 * k1 + T::a52 * k2 + T::a53 * k3 + T::a54 * k4));
-        const Vector<N> k6 = rhs(
+            stage(t + T::c5 * h, y + h * (T::a51 * k1 + T::a52 * k2 + T::a53 * k3 + T::a54 * k4));
+        const Vector<N> k6 = stage(
             t + h, y + h * (T::a61 * k1 + T::a62 * k2 + T::a63 * k3 + T::a64 * k4 + T::a65 * k5));
         const Vector<N> y_new =
             y + h * (T::a71 * k1 + T::a73 * k3 + T::a74 * k4 + T::a75 * k5 + T::a76 * k6);

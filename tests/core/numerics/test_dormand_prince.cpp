@@ -254,3 +254,25 @@ TEST_CASE("a maximum where the function turns twice between the steps' ends is s
     REQUIRE(by_values);
     CHECK(std::abs(*by_values - expected) < 2e-5);
 }
+
+TEST_CASE("an rhs that takes the interior-stage tag is asked through it at stages 2 to 6 only") {
+    // Counted against the pair's own structure: six new evaluations a step, the seventh at the
+    // step's end (first same as last), plus the one at the start. The solution is the same
+    // number for number as an rhs without the tag, which every stage asks plainly.
+    int interior = 0;
+    int plain = 0;
+    const auto tagged = [&](double t, const Vector<2>& y, auto... tag) {
+        ++(sizeof...(tag) > 0 ? interior : plain);
+        return oscillator(t, y);
+    };
+    const auto out = ds::integrate_dormand_prince<2>(
+        tagged, 0.0, Vector<2>(1.0, 0.0), 10.0, std::span<const Event<2>>{}, tight(), ignore_step);
+    const auto reference =
+        ds::integrate_dormand_prince<2>(oscillator, 0.0, Vector<2>(1.0, 0.0), 10.0,
+                                        std::span<const Event<2>>{}, tight(), ignore_step);
+    const int attempts = static_cast<int>(out.accepted_steps + out.rejected_steps);
+    CHECK(interior == 5 * attempts);
+    CHECK(plain == 1 + attempts);
+    CHECK(out.y == reference.y);
+    CHECK(out.accepted_steps == reference.accepted_steps);
+}
