@@ -5,7 +5,6 @@
 #include <map>
 #include <mutex>
 #include <numeric>
-#include <random>
 #include <tuple>
 
 #include <fmt/format.h>
@@ -13,6 +12,7 @@
 #include "constants.hpp"
 #include "design/writer.hpp"
 #include "json_values.hpp"
+#include "numerics/lazy_mt19937_64.hpp"
 #include "results/key_figures.hpp"
 #include "sizing/evaluation.hpp"
 #include "sizing/size.hpp"
@@ -32,13 +32,13 @@ std::uint64_t split_mix(std::uint64_t x) {
 }
 
 /// A uniform draw in (0, 1) from a 64-bit generator, its top 53 bits.
-double unit_uniform(std::mt19937_64& engine) {
+double unit_uniform(LazyMt19937_64& engine) {
     return (static_cast<double>(engine() >> 11) + 0.5) * (1.0 / 9007199254740992.0);
 }
 
 /// A standard normal draw by Box-Muller, written here so the numbers do not depend on the
 /// standard library's distribution implementation.
-double standard_normal(std::mt19937_64& engine) {
+double standard_normal(LazyMt19937_64& engine) {
     const double u1 = unit_uniform(engine);
     const double u2 = unit_uniform(engine);
     return std::sqrt(-2.0 * std::log(u1)) * std::cos(2.0 * pi * u2);
@@ -143,7 +143,7 @@ std::pair<std::optional<DispersionCampaign>, std::string> run_dispersions(
         indices.push_back(i);
     }
     const auto fly_case = [&](DispersedCase& c) {
-        std::mt19937_64 engine(split_mix(settings.seed ^ split_mix(c.index)));
+        LazyMt19937_64 engine(split_mix(settings.seed ^ split_mix(c.index)));
         for (std::size_t j = 0; j < design.dispersions.size(); ++j) {
             const DispersionDesign& d = design.dispersions[j];
             const double draw = d.distribution == DistributionKind::normal
