@@ -317,7 +317,7 @@ bool settle(const FlightModel& model, const Phase& phase, PhaseOutcome& out) {
 
 /// Adds a stretch to the phase's outcome: its steps, peaks, trigger and where it ended. True
 /// when it ended on a change of equations.
-bool add_stretch(const FlightModel& model, const Phase& phase, Equations equations,
+bool add_stretch(const Phase& phase, Equations equations,
                  const IntegrationOutcome<flight_state_size>& run, PhaseOutcome& out) {
     out.reason = run.reason;
     out.time_s = run.t;
@@ -337,8 +337,7 @@ bool add_stretch(const FlightModel& model, const Phase& phase, Equations equatio
             changed = true;
             continue;
         }
-        out.peaks.push_back(
-            {p, hit.t, quantity_at(model, phase.stage, phase.peaks[p].quantity, hit.y), hit.y});
+        out.peaks.push_back({p, hit.t, hit.value, hit.y});  // (the peak's quantity there)
     }
     return changed;
 }
@@ -364,7 +363,7 @@ PhaseOutcome fly_phase(const FlightModel& model, const Phase& phase, double t0,
         budget.max_steps -= out.steps;
         const IntegrationOutcome<flight_state_size> run = fly_stretch(
             model, phase, equations, may_settle, out.time_s, out.y, t_max, budget, recording);
-        if (!add_stretch(model, phase, equations, run, out))
+        if (!add_stretch(phase, equations, run, out))
             return out;
         equations = equations == Equations::full ? Equations::quasi_steady : Equations::full;
     }

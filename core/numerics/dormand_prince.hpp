@@ -65,6 +65,7 @@ struct EventHit {
     std::size_t index = 0;  ///< into the events given
     double t = 0.0;
     Vector<N> y;
+    double value = 0.0;  ///< a maximum's value (its event function's at t, y); 0 for a crossing
 };
 
 enum class StopReason {
@@ -195,10 +196,10 @@ TimedValue golden_maximum(G&& g, TimedValue a, TimedValue m, TimedValue b, doubl
 /// Brent's method (Boost.Math) on -g, in the time from `from`, to half the digits of a double of
 /// it (the maximum being flat, the value is then good to all of them, the time only as well as
 /// the continuous extension's slope is known), and so without a slope. Nothing when the value
-/// found is not above both ends.
+/// found is not above both ends; else the maximum's time and value.
 template <class G, class Slope>
-std::optional<double> locate_maximum(G&& g, const Slope& slope, TimedValue from, TimedValue to,
-                                     std::optional<TimedValue> inside, double tolerance) {
+std::optional<TimedValue> locate_maximum(G&& g, const Slope& slope, TimedValue from, TimedValue to,
+                                         std::optional<TimedValue> inside, double tolerance) {
     const double span = to.t - from.t;
     const double ends = std::max(from.g, to.g);
     // The slope's zero in [a, b] around `guess` when it changes sign there.
@@ -232,7 +233,8 @@ std::optional<double> locate_maximum(G&& g, const Slope& slope, TimedValue from,
             if (!t)
                 t = m.t;
         }
-        return g(*t) > ends ? t : std::nullopt;
+        const double g_max = g(*t);
+        return g_max > ends ? std::optional<TimedValue>({*t, g_max}) : std::nullopt;
     }
     std::uintmax_t iterations = 100;
     const auto [after_from, minus_g] =
@@ -240,7 +242,7 @@ std::optional<double> locate_maximum(G&& g, const Slope& slope, TimedValue from,
                                               std::numeric_limits<double>::digits / 2, iterations);
     if (!(-minus_g > ends))
         return std::nullopt;
-    return from.t + after_from;
+    return TimedValue{from.t + after_from, -minus_g};
 }
 
 /// A step's start of the flow along its first derivative, to tell which way a maximum event's
@@ -313,11 +315,11 @@ public:
             // its three references, would be allocated)
             const std::function<double(double)> slope =
                 events[i].slope ? std::function<double(double)>(std::cref(slope_at)) : nullptr;
-            const std::optional<double> t_max =
+            const std::optional<TimedValue> max =
                 locate_maximum([&](double tau) { return events[i].function(tau, state_at(tau)); },
                                slope, *from, {t_last, g_last}, inside, tolerance);
-            if (t_max)
-                hits.push_back({i, *t_max, state_at(*t_max)});
+            if (max)
+                hits.push_back({i, max->t, state_at(max->t), max->g});
         }
         previous_ = &current;
     }

@@ -191,6 +191,9 @@ TEST_CASE(
         CHECK(std::abs(out.events[1].t - 3.5 * M_PI) < tolerance);
         CHECK(std::abs(out.events[0].y[1] - 1.0) < 1e-9);
         CHECK(std::abs(out.events[1].y[1] - 1.0) < 1e-9);
+        // Each hit carries the maximum's value: the function's at the hit's state.
+        CHECK(out.events[0].value == out.events[0].y[1]);
+        CHECK(out.events[1].value == out.events[1].y[1]);
     }
 }
 
@@ -248,11 +251,13 @@ TEST_CASE("a maximum where the function turns twice between the steps' ends is s
     const ds::detail::TimedValue to{1.1, g(1.1)};
     const auto with_slope = ds::detail::locate_maximum(g, slope, from, to, inside, 1e-10);
     REQUIRE(with_slope);
-    CHECK(std::abs(*with_slope - expected) < 1e-9);
+    CHECK(std::abs(with_slope->t - expected) < 1e-9);
+    CHECK(with_slope->g == g(with_slope->t));
     const auto by_values =
         ds::detail::locate_maximum(g, std::function<double(double)>{}, from, to, inside, 1e-10);
     REQUIRE(by_values);
-    CHECK(std::abs(*by_values - expected) < 2e-5);
+    CHECK(std::abs(by_values->t - expected) < 2e-5);
+    CHECK(by_values->g == g(by_values->t));
 }
 
 TEST_CASE("an rhs that takes the interior-stage tag is asked through it at stages 2 to 6 only") {
