@@ -140,8 +140,13 @@ Vec3 balance_near(const FlightModel& model, const Stage& stage, const FlightStat
 
 const FlightConditions no_conditions{};
 
-FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
-                                   const FlightState& y) {
+namespace {
+
+/// The conditions with the parts asked for, the choice made at compile time so that the
+/// integrator's evaluations (all of them) pay no test for it.
+template <ConditionParts parts>
+FlightConditions conditions_with(const FlightModel& model, const Stage& stage,
+                                 const FlightState& y) {
     const double altitude = y[StateIndex::altitude];
     const double mass = y[StateIndex::mass];
     const AtmosphereSample air = model.atmosphere.at(altitude);
@@ -154,33 +159,60 @@ FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
     c.speed_of_sound_m_s = air.speed_of_sound_m_s;
     c.mach = velocity / air.speed_of_sound_m_s;
     c.dynamic_pressure_Pa = 0.5 * air.density_kg_m3 * velocity * velocity;
-    c.drag_N = c.dynamic_pressure_Pa * stage.drag_area_m2(c.mach);
-    c.lift_N = stage.lift_to_drag * c.drag_N;
     c.gravity_m_s2 = model.body.gravity_m_s2(altitude);
-    // sqrt of the sum of squares, not std::hypot: forces never come near overflow, and this is
-    // the integrator's innermost loop.
-    c.deceleration_g =
-        std::sqrt(c.drag_N * c.drag_N + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
-    if (stage.thrust_N > 0.0) {
-        c.thrust_N = stage.thrust_N;
-        c.throttle = stage.throttle;
-        if (stage.thrust_reference_area_m2 > 0.0 && c.dynamic_pressure_Pa > 0.0) {
-            c.thrust_coefficient =
-                stage.thrust_N / (c.dynamic_pressure_Pa * stage.thrust_reference_area_m2);
+    if constexpr (parts == ConditionParts::forces || parts == ConditionParts::all) {
+        c.drag_N = c.dynamic_pressure_Pa * stage.drag_area_m2(c.mach);
+        c.lift_N = stage.lift_to_drag * c.drag_N;
+        // sqrt of the sum of squares, not std::hypot: forces never come near overflow, and
+        // this is the integrator's innermost loop.
+        c.deceleration_g =
+            std::sqrt(c.drag_N * c.drag_N + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
+        if (stage.thrust_N > 0.0) {
+            c.thrust_N = stage.thrust_N;
+            c.throttle = stage.throttle;
+            if (stage.thrust_reference_area_m2 > 0.0 && c.dynamic_pressure_Pa > 0.0) {
+                c.thrust_coefficient =
+                    stage.thrust_N / (c.dynamic_pressure_Pa * stage.thrust_reference_area_m2);
+            }
+            const double along = c.drag_N + c.thrust_N;
+            c.sensed_deceleration_g =
+                std::sqrt(along * along + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
+        } else {
+            c.sensed_deceleration_g = c.deceleration_g;
         }
-        const double along = c.drag_N + c.thrust_N;
-        c.sensed_deceleration_g =
-            std::sqrt(along * along + c.lift_N * c.lift_N) / mass / standard_gravity_m_s2;
-    } else {
-        c.sensed_deceleration_g = c.deceleration_g;
     }
-    if (stage.nose_radius_m > 0.0) {
-        c.convective_heat_flux_W_m2 = sutton_graves_heat_flux_W_m2(
-            model.body.gas.sutton_graves_k, air.density_kg_m3, stage.nose_radius_m, velocity);
-        c.radiative_heat_flux_W_m2 = tauber_sutton_heat_flux_W_m2(
-            model.body.gas.radiative_correlation, air.density_kg_m3, stage.nose_radius_m, velocity);
+    if constexpr (parts == ConditionParts::heating || parts == ConditionParts::all) {
+        if (stage.nose_radius_m > 0.0) {
+            c.convective_heat_flux_W_m2 = sutton_graves_heat_flux_W_m2(
+                model.body.gas.sutton_graves_k, air.density_kg_m3, stage.nose_radius_m, velocity);
+            c.radiative_heat_flux_W_m2 =
+                tauber_sutton_heat_flux_W_m2(model.body.gas.radiative_correlation,
+                                             air.density_kg_m3, stage.nose_radius_m, velocity);
+        }
     }
     return c;
+}
+
+}  // namespace
+
+FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
+                                   const FlightState& y) {
+    return conditions_with<ConditionParts::all>(model, stage, y);
+}
+
+FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
+                                   const FlightState& y, ConditionParts parts) {
+    switch (parts) {
+        case ConditionParts::air:
+            return conditions_with<ConditionParts::air>(model, stage, y);
+        case ConditionParts::forces:
+            return conditions_with<ConditionParts::forces>(model, stage, y);
+        case ConditionParts::heating:
+            return conditions_with<ConditionParts::heating>(model, stage, y);
+        case ConditionParts::all:
+            break;
+    }
+    return conditions_with<ConditionParts::all>(model, stage, y);
 }
 
 bool feels_air(const Stage& stage) {

@@ -42,8 +42,16 @@ struct FlightConditions {
     double sensed_deceleration_g = 0.0;
 };
 
+/// Which of the conditions beyond the air's (its velocity, density, speed of sound, Mach
+/// number, dynamic pressure) and gravity are computed: the forces (drag, lift, thrust and the
+/// decelerations), the heating (the convective and radiative fluxes), or both. Each part is the
+/// same number computed alone as with the others; the parts left out stay zero.
+enum class ConditionParts { air, forces, heating, all };
+
 FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
                                    const FlightState& y);
+FlightConditions flight_conditions(const FlightModel& model, const Stage& stage,
+                                   const FlightState& y, ConditionParts parts);
 
 /// All zero: the conditions of a stage that feels no air, and what a quantity read off the
 /// state alone is handed. Made once, so the hot paths that hand them make none.

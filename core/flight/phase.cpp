@@ -102,6 +102,26 @@ bool read_off_state(FlightQuantity q) {
            q == FlightQuantity::flight_path_angle;
 }
 
+/// The part of the flight conditions a quantity that needs them is computed from.
+ConditionParts parts_for(FlightQuantity q) {
+    switch (q) {
+        case FlightQuantity::deceleration:
+        case FlightQuantity::sensed_deceleration:
+            return ConditionParts::forces;
+        case FlightQuantity::heat_flux:
+        case FlightQuantity::radiative_heat_flux:
+            return ConditionParts::heating;
+        case FlightQuantity::mach:
+        case FlightQuantity::dynamic_pressure:
+            return ConditionParts::air;
+        case FlightQuantity::altitude:
+        case FlightQuantity::velocity:
+        case FlightQuantity::flight_path_angle:
+            break;
+    }
+    return ConditionParts::all;
+}
+
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
     if (read_off_state(q))
@@ -164,9 +184,17 @@ public:
         std::optional<FlightState> rates;
     };
 
+    /// Whether the state is the last one.
+    bool holds(const FlightState& y) const {
+        return last_.y[StateIndex::altitude] == y[StateIndex::altitude] && last_.y == y;
+    }
+
+    /// The last state's entry.
+    Entry& last() { return last_; }
+
     /// The entry of the state, a fresh one (nothing computed) when it is not the last one.
     Entry& at(const FlightState& y) {
-        if (!(last_.y[StateIndex::altitude] == y[StateIndex::altitude] && last_.y == y)) {
+        if (!holds(y)) {
             last_.y = y;
             last_.conditions.reset();
             last_.rates.reset();
@@ -231,10 +259,16 @@ IntegrationOutcome<flight_state_size> fly_stretch(
             return std::as_const(*e.rates);
         }
     };
+    // At the memo's state (a step's end, where every event is asked) a quantity takes all the
+    // conditions, kept for the others; elsewhere (a search on the continuous extension, for a
+    // trigger's crossing or a peak's slope, whose states nothing else asks for) only the part
+    // it needs is computed, and the memo keeps its state.
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
         if (read_off_state(q))
             return flight_quantity(q, no_conditions, y);
-        return flight_quantity(q, conditions_at(y), y);
+        if (memo.holds(y))
+            return flight_quantity(q, conditions_of(memo.last()), y);
+        return flight_quantity(q, flight_conditions(model, stage, y, parts_for(q)), y);
     };
 
     std::vector<Event<flight_state_size>> events;

@@ -446,3 +446,41 @@ TEST_CASE(
     // From 30 m/s the wrong way to the wind's 10 m/s: it did move.
     CHECK(std::abs(ds::horizontal_speed(y0) - 10.0) > 10.0);
 }
+
+TEST_CASE("each part of the flight conditions is the same number alone as with the others") {
+    // A stage that has every part: drag with a Mach law, lift, thrust against the air with a
+    // reference area, and heating. What a part leaves out stays zero.
+    const ds::Body mars = *ds::body_preset("mars");
+    const ds::ExponentialAtmosphere air = mars_air();
+    const ds::FlightModel model{mars, air};
+    ds::Stage stage = entry_stage(0.24, 30.0);
+    stage.drag_devices.front().follow_stagnation_pressure(1.29);
+    stage.thrust_N = 20000.0;
+    stage.thrust_reference_area_m2 = 15.9;
+    const ds::FlightState y =
+        ds::make_flight_state(30000.0, ds::degrees_to_radians(10.0), 0.0, 2500.0,
+                              ds::degrees_to_radians(-12.0), ds::degrees_to_radians(80.0), 900.0);
+    const ds::FlightConditions all = ds::flight_conditions(model, stage, y);
+    REQUIRE(all.drag_N > 0.0);
+    REQUIRE(all.convective_heat_flux_W_m2 > 0.0);
+    REQUIRE(all.thrust_coefficient > 0.0);
+    using Parts = ds::ConditionParts;
+    for (const Parts parts : {Parts::air, Parts::forces, Parts::heating, Parts::all}) {
+        CAPTURE(static_cast<int>(parts));
+        const ds::FlightConditions c = ds::flight_conditions(model, stage, y, parts);
+        CHECK(c.air_velocity_m_s == all.air_velocity_m_s);
+        CHECK(c.mach == all.mach);
+        CHECK(c.dynamic_pressure_Pa == all.dynamic_pressure_Pa);
+        CHECK(c.density_kg_m3 == all.density_kg_m3);
+        CHECK(c.gravity_m_s2 == all.gravity_m_s2);
+        const bool forces = parts == Parts::forces || parts == Parts::all;
+        const bool heating = parts == Parts::heating || parts == Parts::all;
+        CHECK(c.drag_N == (forces ? all.drag_N : 0.0));
+        CHECK(c.lift_N == (forces ? all.lift_N : 0.0));
+        CHECK(c.deceleration_g == (forces ? all.deceleration_g : 0.0));
+        CHECK(c.sensed_deceleration_g == (forces ? all.sensed_deceleration_g : 0.0));
+        CHECK(c.thrust_coefficient == (forces ? all.thrust_coefficient : 0.0));
+        CHECK(c.convective_heat_flux_W_m2 == (heating ? all.convective_heat_flux_W_m2 : 0.0));
+        CHECK(c.radiative_heat_flux_W_m2 == (heating ? all.radiative_heat_flux_W_m2 : 0.0));
+    }
+}
