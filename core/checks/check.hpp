@@ -17,8 +17,9 @@ constexpr Names<CheckStatus, 3> name_table(CheckStatus) {
              {CheckStatus::fail, "fail"}}};
 }
 
-/// Whether a check is written out in words (its message) or only judged (status, value, limit
-/// and margin): a case of a dispersion campaign keeps which checks fail and nothing they say.
+/// Whether a check is written out in words (its message and its source) or only judged (status,
+/// value, limit and margin): a case of a dispersion campaign keeps which checks fail and
+/// nothing they say.
 enum class Wording { words, judged_only };
 
 /// The outcome of one named check: the value, the limit it was held against, and why.

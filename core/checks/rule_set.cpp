@@ -41,7 +41,7 @@ Check judge(const LimitRule& rule, double value, double limit, double beyond, do
             limit,
             std::string(rule.unit),
             "",
-            std::string(rule.source),
+            wording == Wording::words ? std::string(rule.source) : std::string(),
             {}};
     if (rule.severity == Severity::physics)
         c.margin = -beyond;

@@ -42,7 +42,7 @@ Check half_angle_check(double half_angle_deg, double heritage_deg, std::string_v
             heritage_deg,
             "deg",
             "",
-            std::string(source),
+            judge.worded() ? std::string(source) : std::string(),
             {}};
     if (std::abs(half_angle_deg - heritage_deg) > same_angle_deg) {
         c.status = CheckStatus::marginal;
@@ -64,7 +64,9 @@ Check half_angle_check(double half_angle_deg, double heritage_deg, std::string_v
 Check timeline_check(double margin_s, double limit_s, double needed_s, bool powered,
                      Wording wording) {
     Check c{"timeline_margin", CheckStatus::pass, margin_s, limit_s, "s", "",
-            "sequence times of the design; marginal below the limit (common practice)",
+            wording == Wording::words
+                ? "sequence times of the design; marginal below the limit (common practice)"
+                : "",
             // A sequence fails at zero margin: measured against the margin wanted.
             margin_s / (limit_s > 0.0 ? limit_s : 1.0)};
     if (margin_s < 0.0)
@@ -188,7 +190,7 @@ void deploy_checks(const Design& design, const CanopyChecked& canopy, const Judg
                 0.0,
                 "",
                 "",
-                "no source for this body",
+                judge.worded() ? "no source for this body" : "",
                 {}};
         if (judge.worded()) {
             const Limits mars;

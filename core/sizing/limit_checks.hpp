@@ -25,7 +25,7 @@ DeployWindow deploy_window(const Design& design);
 /// Every limit check that applies to these results, against the design's limits: the heritage
 /// envelope (the launcher fairing for every design, the rest for Mars only), the parachute's
 /// deploy window, the loads, the terminal descent and the timeline.
-/// Judged only (Wording::judged_only), the checks carry no messages.
+/// Judged only (Wording::judged_only), the checks carry no messages and no sources.
 std::vector<Check> limit_checks(const Design& design, const Results& results,
                                 Wording wording = Wording::words);
 

@@ -233,21 +233,21 @@ std::optional<double> max_site_elevation(const Design& design, const FlightModel
 }
 
 /// Makes the checks that come from the flight and the closure themselves: the message, a
-/// function that writes it, is written only when the checks are worded (a dispersion's cases
-/// are judged only, Wording).
+/// function that writes it, and the source are written only when the checks are worded (a
+/// dispersion's cases are judged only, Wording).
 struct FlightChecks {
     Wording wording = Wording::words;
 
     template <class Message>
     Check operator()(std::string id, CheckStatus status, double value, double limit,
-                     std::string unit, Message&& message, std::string source) const {
+                     std::string unit, Message&& message, std::string_view source) const {
         return {std::move(id),
                 status,
                 value,
                 limit,
                 std::move(unit),
                 wording == Wording::words ? std::string(message()) : std::string(),
-                std::move(source),
+                wording == Wording::words ? std::string(source) : std::string(),
                 std::nullopt};
     }
 };

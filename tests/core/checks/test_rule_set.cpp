@@ -78,7 +78,9 @@ TEST_CASE("a check's numbers read in four digits without an exponent (a heavy la
           std::string::npos);
 }
 
-TEST_CASE("a check judged only has the worded check's status, value, limit and margin, no words") {
+TEST_CASE(
+    "a check judged only has the worded check's status, value, limit and margin, no words and "
+    "no source") {
     const LimitRule low{"deploy_q_low", "deploy dynamic pressure", "Pa", Severity::physics, "t"};
     for (const double value : {10.0, 14.0, 15.0, 15.1, 9.0, 4.5, 250.0, 200.0, 400.0}) {
         CAPTURE(value);
@@ -97,6 +99,8 @@ TEST_CASE("a check judged only has the worded check's status, value, limit and m
             CHECK(judged.margin == worded.margin);
             CHECK_FALSE(worded.message.empty());
             CHECK(judged.message.empty());
+            CHECK(judged.source.empty());
+            CHECK(worded.source == rule->source);
         }
     }
 }

@@ -488,7 +488,9 @@ TEST_CASE("a weak burn finds the separation that stops in time on an oblique des
     CHECK(ds::timeline_margin(d, model, e, -1480.0)->margin_s > 0.0);
 }
 
-TEST_CASE("a sizing whose checks are judged only fails and passes the same checks, unworded") {
+TEST_CASE(
+    "a sizing whose checks are judged only fails and passes the same checks, unworded and "
+    "unsourced") {
     // A dispersion's cases keep which checks fail: the same checks, statuses and margins as the
     // worded sizing, on samples with failing, marginal and passing checks.
     for (const char* name : {"small-ballistic-station", "lifting-rover-carrier",
@@ -510,6 +512,8 @@ TEST_CASE("a sizing whose checks are judged only fails and passes the same check
             // Every check is worded or not: the limits' and the flight's own alike.
             CHECK_FALSE(a.checks[i].message.empty());
             CHECK(b.checks[i].message.empty());
+            CHECK_FALSE(a.checks[i].source.empty());
+            CHECK(b.checks[i].source.empty());
         }
         CHECK(std::any_of(a.checks.begin(), a.checks.end(),
                           [](const ds::Check& c) { return c.status == ds::CheckStatus::fail; }));
