@@ -40,40 +40,6 @@ Vec3 wind_at(const FlightModel& model, double altitude_m) {
     return {w.east_m_s, w.north_m_s, 0.0};
 }
 
-/// The local frame at a point: what the frame's acceleration needs of the position.
-struct LocalFrame {
-    double r = 0.0;      ///< m from the centre
-    double omega = 0.0;  ///< rad/s
-    double sin_lat = 0.0;
-    double cos_lat = 1.0;
-    double gravity = 0.0;  ///< mu / r^2
-
-    LocalFrame(const Body& body, double altitude_m, double latitude_rad)
-        : r(body.radius_m + altitude_m),
-          omega(body.rotation_rad_s),
-          sin_lat(std::sin(latitude_rad)),
-          cos_lat(std::cos(latitude_rad)),
-          gravity(body.mu_m3_s2 / (r * r)) {}
-
-    /// What acts per unit mass on a vehicle moving at the planet-relative velocity v (east,
-    /// north, up) besides its own forces: gravity, the Coriolis term -2 w x v, the centripetal
-    /// term -w x (w x r) with w = omega (0, cos(lat), sin(lat)) in the local frame, and the
-    /// transport-rate term -rho x v of the local frame turning as the vehicle moves over the
-    /// sphere, rho = (-v_n, v_e, v_e tan(lat)) / r.
-    Vec3 acceleration(const Vec3& v) const {
-        const double s = sin_lat;
-        const double c = cos_lat;
-        const double t = s / c;
-        const double w = omega;
-        const double ve = v.x();
-        const double vn = v.y();
-        const double vu = v.z();
-        return {-2.0 * w * (c * vu - s * vn) + (ve * vn * t - ve * vu) / r,
-                -2.0 * w * s * ve - w * w * r * s * c - (ve * ve * t + vn * vu) / r,
-                -gravity + 2.0 * w * c * ve + w * w * r * c * c + (ve * ve + vn * vn) / r};
-    }
-};
-
 /// The rates of the position: altitude, latitude, longitude.
 /// With the cosine of the latitude when the caller has it.
 void position_rates(const FlightModel& model, const FlightState& y, double cos_latitude,
@@ -221,19 +187,14 @@ bool feels_air(const Stage& stage) {
             (stage.thrust_against_air || stage.thrust_reference_area_m2 > 0.0));
 }
 
-FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
-    // A stage with neither drag nor heating (a lander coasting or burning) feels no air: its
-    // conditions, all zero forces, are not computed.
-    if (!feels_air(stage))
-        return flight_derivative(model, stage, y, no_conditions);
-    return flight_derivative(model, stage, y, flight_conditions(model, stage, y));
+LocalFrame local_frame(const FlightModel& model, const FlightState& y) {
+    return {model.body, y[StateIndex::altitude], y[StateIndex::latitude]};
 }
 
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
-                              const FlightConditions& c) {
+                              const FlightConditions& c, const LocalFrame& frame) {
     const double m = y[StateIndex::mass];
     const Vec3 v = velocity_of(y);
-    const LocalFrame frame(model.body, y[StateIndex::altitude], y[StateIndex::latitude]);
     Vec3 a = frame.acceleration(v);
     if (c.air_speed_m_s > 0.0) {
         const Vec3 along = c.air_velocity_m_s / c.air_speed_m_s;
@@ -271,6 +232,20 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
     dy[StateIndex::convective_heat_load] = c.convective_heat_flux_W_m2;
     dy[StateIndex::radiative_heat_load] = c.radiative_heat_flux_W_m2;
     return dy;
+}
+
+FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
+                              const FlightConditions& c) {
+    return flight_derivative(model, stage, y, c, local_frame(model, y));
+}
+
+FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
+    // The frame first (see local_frame). A stage with neither drag nor heating (a lander
+    // coasting or burning) feels no air: its conditions, all zero forces, are not computed.
+    const LocalFrame frame = local_frame(model, y);
+    if (!feels_air(stage))
+        return flight_derivative(model, stage, y, no_conditions, frame);
+    return flight_derivative(model, stage, y, flight_conditions(model, stage, y), frame);
 }
 
 double unsettled_rate(const FlightModel& model, const Stage& stage, const FlightState& y) {

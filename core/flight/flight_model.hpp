@@ -1,5 +1,7 @@
 #pragma once
 
+#include <cmath>
+
 #include <Eigen/Core>
 
 #include "atmosphere/atmosphere.hpp"
@@ -75,6 +77,50 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
 /// the same model, stage and state; a stage without drag or heating does not read them).
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
                               const FlightConditions& conditions);
+
+/// The local frame at a point: what the frame's acceleration needs of the position (the
+/// latitude's sine and cosine among it). See local_frame.
+struct LocalFrame {
+    double r = 0.0;      ///< m from the centre
+    double omega = 0.0;  ///< rad/s
+    double sin_lat = 0.0;
+    double cos_lat = 1.0;
+    double gravity = 0.0;  ///< mu / r^2
+
+    LocalFrame(const Body& body, double altitude_m, double latitude_rad)
+        : r(body.radius_m + altitude_m),
+          omega(body.rotation_rad_s),
+          sin_lat(std::sin(latitude_rad)),
+          cos_lat(std::cos(latitude_rad)),
+          gravity(body.mu_m3_s2 / (r * r)) {}
+
+    /// What acts per unit mass on a vehicle moving at the planet-relative velocity v (east,
+    /// north, up) besides its own forces: gravity, the Coriolis term -2 w x v, the centripetal
+    /// term -w x (w x r) with w = omega (0, cos(lat), sin(lat)) in the local frame, and the
+    /// transport-rate term -rho x v of the local frame turning as the vehicle moves over the
+    /// sphere, rho = (-v_n, v_e, v_e tan(lat)) / r.
+    Eigen::Vector3d acceleration(const Eigen::Vector3d& v) const {
+        const double s = sin_lat;
+        const double c = cos_lat;
+        const double t = s / c;
+        const double w = omega;
+        const double ve = v.x();
+        const double vn = v.y();
+        const double vu = v.z();
+        return {-2.0 * w * (c * vu - s * vn) + (ve * vn * t - ve * vu) / r,
+                -2.0 * w * s * ve - w * w * r * s * c - (ve * ve * t + vn * vu) / r,
+                -gravity + 2.0 * w * c * ve + w * w * r * c * c + (ve * ve + vn * vn) / r};
+    }
+};
+
+/// The state's local frame. flight_derivative makes it before the state's conditions: the two
+/// need nothing of each other, and a processor then works on both at once (its sine and cosine
+/// alongside the conditions' chain of functions), where one after the other it waits for each.
+LocalFrame local_frame(const FlightModel& model, const FlightState& y);
+
+/// The same in the state's local frame, when the caller has made it (local_frame).
+FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
+                              const FlightConditions& conditions, const LocalFrame& frame);
 
 /// Whether a stage's equations read the air: it has drag or heating, or thrusts against the
 /// air or records its thrust coefficient.

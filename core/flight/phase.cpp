@@ -235,25 +235,25 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     const auto conditions_at = [&](const FlightState& y) -> const FlightConditions& {
         return conditions_of(memo.at(y));
     };
-    // The rates at a state, given how to get its conditions.
     const bool air = feels_air(stage);
-    const auto rates = [&](const FlightState& y, const auto& conditions) {
-        if (equations == Equations::quasi_steady)
-            return quasi_steady_derivative(model, stage, y);
-        return air ? flight_derivative(model, stage, y, conditions())
-                   : flight_derivative(model, stage, y);
-    };
     // The full equations take the conditions from the memo the events read too; an interior
     // stage of a step, whose state nothing else asks for, passes it by.
     const auto rhs = [&](double, const FlightState& y, auto... interior) -> decltype(auto) {
         if constexpr (sizeof...(interior) > 0) {
-            return rates(y, [&] { return flight_conditions(model, stage, y); });
+            if (equations == Equations::quasi_steady)
+                return quasi_steady_derivative(model, stage, y);
+            return flight_derivative(model, stage, y);
         } else {
             StateMemo::Entry& e = memo.at(y);
             if (!e.rates) {
                 e.rates.emplace(InPlace{[&] {
-                    return rates(e.y,
-                                 [&]() -> const FlightConditions& { return conditions_of(e); });
+                    if (equations == Equations::quasi_steady)
+                        return quasi_steady_derivative(model, stage, e.y);
+                    if (!air)
+                        return flight_derivative(model, stage, e.y);
+                    // The frame before the conditions, as flight_derivative makes them.
+                    const LocalFrame frame = local_frame(model, e.y);
+                    return flight_derivative(model, stage, e.y, conditions_of(e), frame);
                 }});
             }
             return std::as_const(*e.rates);
