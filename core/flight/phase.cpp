@@ -122,11 +122,12 @@ ConditionParts parts_for(FlightQuantity q) {
     return ConditionParts::all;
 }
 
+/// A quantity at a state: read off it, or from the part of its conditions the quantity needs.
 double quantity_at(const FlightModel& model, const Stage& stage, FlightQuantity q,
                    const FlightState& y) {
     if (read_off_state(q))
         return flight_quantity(q, no_conditions, y);
-    return flight_quantity(q, flight_conditions(model, stage, y), y);
+    return flight_quantity(q, flight_conditions(model, stage, y, parts_for(q)), y);
 }
 
 /// The acceleration of the quasi-steady model (the norm of its velocity's rate), in g.
@@ -261,14 +262,12 @@ IntegrationOutcome<flight_state_size> fly_stretch(
     };
     // At the memo's state (a step's end, where every event is asked) a quantity takes all the
     // conditions, kept for the others; elsewhere (a search on the continuous extension, for a
-    // trigger's crossing or a peak's slope, whose states nothing else asks for) only the part
-    // it needs is computed, and the memo keeps its state.
+    // trigger's crossing or a peak's slope, whose states nothing else asks for) quantity_at
+    // computes only the part it needs, and the memo keeps its state.
     const auto quantity = [&](FlightQuantity q, const FlightState& y) {
-        if (read_off_state(q))
-            return flight_quantity(q, no_conditions, y);
-        if (memo.holds(y))
+        if (!read_off_state(q) && memo.holds(y))
             return flight_quantity(q, conditions_of(memo.last()), y);
-        return flight_quantity(q, flight_conditions(model, stage, y, parts_for(q)), y);
+        return quantity_at(model, stage, q, y);
     };
 
     std::vector<Event<flight_state_size>> events;
