@@ -234,11 +234,6 @@ FlightState flight_derivative(const FlightModel& model, const Stage& stage, cons
     return dy;
 }
 
-FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
-                              const FlightConditions& c) {
-    return flight_derivative(model, stage, y, c, local_frame(model, y));
-}
-
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y) {
     // The frame first (see local_frame). A stage with neither drag nor heating (a lander
     // coasting or burning) feels no air: its conditions, all zero forces, are not computed.

@@ -73,11 +73,6 @@ extern const FlightConditions no_conditions;
 /// Singular at the poles (latitude +-90 deg).
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y);
 
-/// The same from the state's flight conditions, when the caller has them (flight_conditions of
-/// the same model, stage and state; a stage without drag or heating does not read them).
-FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
-                              const FlightConditions& conditions);
-
 /// The local frame at a point: what the frame's acceleration needs of the position (the
 /// latitude's sine and cosine among it). See local_frame.
 struct LocalFrame {
@@ -118,7 +113,9 @@ struct LocalFrame {
 /// alongside the conditions' chain of functions), where one after the other it waits for each.
 LocalFrame local_frame(const FlightModel& model, const FlightState& y);
 
-/// The same in the state's local frame, when the caller has made it (local_frame).
+/// The same from the state's flight conditions and local frame, when the caller has them
+/// (flight_conditions of the same model, stage and state, a stage without drag or heating does
+/// not read them; local_frame, made first).
 FlightState flight_derivative(const FlightModel& model, const Stage& stage, const FlightState& y,
                               const FlightConditions& conditions, const LocalFrame& frame);
 
